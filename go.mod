@@ -1,0 +1,13 @@
+module porelight
+
+go 1.26
+
+require gonum.org/v1/gonum v0.17.0
+
+require (
+	github.com/vugu/html v0.0.0-20190914200101-c62dc20b8289 // indirect
+	github.com/vugu/vugu v0.4.0 // indirect
+	github.com/vugu/xxhash v0.0.0-20191111030615-ed24d0179019 // indirect
+)
+
+tool github.com/vugu/vugu/cmd/vugugen

@@ -1,0 +1,200 @@
+package solver
+
+import (
+	"fmt"
+
+	"gonum.org/v1/gonum/blas"
+	"gonum.org/v1/gonum/lapack/gonum"
+)
+
+// band is a symmetric n×n band matrix with kd super-diagonals, upper part
+// stored row by row (gonum's Dpbtrf layout, ldab = kd+1):
+//
+//	ab[i*(kd+1)+j] = A[i][i+j],  0 ≤ j ≤ kd.
+//
+// For n = 5 and kd = 2 the storage holds
+//
+//	a00 a01 a02
+//	a11 a12 a13
+//	a22 a23 a24
+//	a33 a34  *
+//	a44  *   *
+type band struct {
+	n, kd int
+	ab    []float64
+}
+
+func newBand(n, kd int) *band { return &band{n: n, kd: kd, ab: make([]float64, n*(kd+1))} }
+
+// add adds v to A[i][j] (and A[j][i]); it requires i ≤ j ≤ i+kd.
+func (b *band) add(i, j int, v float64) { b.ab[i*(b.kd+1)+j-i] += v }
+
+// at returns A[i][j] for any i, j.
+func (b *band) at(i, j int) float64 {
+	if i > j {
+		i, j = j, i
+	}
+	if j-i > b.kd {
+		return 0
+	}
+	return b.ab[i*(b.kd+1)+j-i]
+}
+
+// mulVec sets dst = A·x. dst and x must not overlap.
+func (b *band) mulVec(dst, x []float64) {
+	ld := b.kd + 1
+	clear(dst[:b.n])
+	for i := range b.n {
+		row := b.ab[i*ld : i*ld+ld]
+		dst[i] += row[0] * x[i]
+		for j := 1; j < ld && i+j < b.n; j++ {
+			dst[i] += row[j] * x[i+j]
+			dst[i+j] += row[j] * x[i]
+		}
+	}
+}
+
+// assemble adds to dst the matrix of the bilinear form
+//
+//	∫ c(e, z) · (w·u)  dz  (mass == true), or
+//	∫ c(e, z) · (w'·u') dz (mass == false)
+//
+// over every element e, by Gauss quadrature. dst must be sized for m
+// (nodes × order).
+func (m *mesh) assemble(dst *band, c func(e int, z float64) float64, mass bool) {
+	np := m.order + 1
+	var ke [9]float64
+	for e := range m.elements() {
+		n0, z0, z1 := m.span(e)
+		jac := (z1 - z0) / 2 // dz/dξ
+		clear(ke[:])
+		for q, xq := range m.gx {
+			z := z0 + (xq+1)*jac
+			cw := c(e, z) * m.gw[q] * jac
+			if mass {
+				n := m.shape[q*np : (q+1)*np]
+				for a := range np {
+					for b := a; b < np; b++ {
+						ke[a*np+b] += cw * n[a] * n[b]
+					}
+				}
+			} else {
+				dn := m.dshape[q*np : (q+1)*np]
+				for a := range np {
+					for b := a; b < np; b++ {
+						ke[a*np+b] += cw * dn[a] * dn[b] / (jac * jac)
+					}
+				}
+			}
+		}
+		for a := range np {
+			for b := a; b < np; b++ {
+				dst.add(n0+a, n0+b, ke[a*np+b])
+			}
+		}
+	}
+}
+
+// load adds to dst the vector ∫ f(z) · w dz for every shape function w.
+func (m *mesh) load(dst []float64, f func(z float64) float64) {
+	np := m.order + 1
+	for e := range m.elements() {
+		n0, z0, z1 := m.span(e)
+		jac := (z1 - z0) / 2
+		for q, xq := range m.gx {
+			fw := f(z0+(xq+1)*jac) * m.gw[q] * jac
+			for a := range np {
+				dst[n0+a] += fw * m.shape[q*np+a]
+			}
+		}
+	}
+}
+
+// factor is the Cholesky (band) or L·D·Lᵀ (tridiagonal) factorisation of
+// the rows and columns lo … hi-1 of a symmetric positive definite band
+// matrix: the unknowns left when the ends held by Dirichlet conditions are
+// removed.
+type factor struct {
+	n, kd, lo int
+	d, e      []float64 // kd == 1: D and the subdiagonal of L
+	ab        []float64 // kd > 1: upper Cholesky factor in band storage
+}
+
+var lapack gonum.Implementation
+
+// factorize factorises the block lo … hi-1 of a into dst, reusing dst's
+// storage when it is large enough. It costs O(n·kd²) and returns an error
+// naming the row when the block is not positive definite.
+func factorize(dst *factor, a *band, lo, hi int) error {
+	n := hi - lo
+	dst.n, dst.kd, dst.lo = n, a.kd, lo
+	if n <= 0 {
+		return nil
+	}
+	ld := a.kd + 1
+	if a.kd == 1 {
+		dst.d = grow(dst.d, n)
+		dst.e = grow(dst.e, max(n-1, 0))
+		for i := range n {
+			dst.d[i] = a.ab[(lo+i)*ld]
+			if i < n-1 {
+				dst.e[i] = a.ab[(lo+i)*ld+1]
+			}
+		}
+		if !lapack.Dpttrf(n, dst.d, dst.e) {
+			return notDefinite(dst.d)
+		}
+		return nil
+	}
+	dst.ab = grow(dst.ab, n*ld)
+	copy(dst.ab, a.ab[lo*ld:hi*ld])
+	if !lapack.Dpbtrf(blas.Upper, n, a.kd, dst.ab, ld) {
+		return fmt.Errorf("solver: the system matrix is not positive definite (check for zero or non-finite k or mv)")
+	}
+	return nil
+}
+
+func notDefinite(d []float64) error {
+	for i, v := range d {
+		if !(v > 0) {
+			return fmt.Errorf("solver: the system matrix is not positive definite at unknown %d (check for zero or non-finite k or mv)", i)
+		}
+	}
+	return fmt.Errorf("solver: the system matrix is not positive definite")
+}
+
+// solve overwrites x[lo : lo+n] with the solution of the factorised
+// system for the right-hand side it holds there. O(n·kd) operations, no
+// allocation.
+func (f *factor) solve(x []float64) {
+	if f.n <= 0 {
+		return
+	}
+	b := x[f.lo : f.lo+f.n]
+	if f.kd == 1 {
+		lapack.Dpttrs(f.n, 1, f.d, f.e, b, 1)
+		return
+	}
+	lapack.Dpbtrs(blas.Upper, f.n, f.kd, 1, f.ab, f.kd+1, b, 1)
+}
+
+// grow returns s resized to n, reusing its storage when it can.
+func grow(s []float64, n int) []float64 {
+	if cap(s) >= n {
+		return s[:n]
+	}
+	return make([]float64, n)
+}
+
+// dirichletRHS moves the known values g at the held ends into the
+// right-hand side: rhs[i] -= A[i][j]·g[j] for every held node j and free
+// node i. held lists the held node indices.
+func dirichletRHS(rhs []float64, a *band, u []float64, held []int) {
+	for _, j := range held {
+		for i := max(j-a.kd, 0); i <= min(j+a.kd, a.n-1); i++ {
+			if i != j {
+				rhs[i] -= a.at(i, j) * u[j]
+			}
+		}
+	}
+}

@@ -1,0 +1,183 @@
+package solver
+
+// Result is everything one solve computes. It is plain data and encodes to
+// the JSON that the page and the JavaScript API hand out. Units as in
+// Project: m, kPa, day, m/s.
+type Result struct {
+	// Steady is the initial steady groundwater state of the column.
+	Steady Steady `json:"steady"`
+	// Consolidation is nil when the project has no load, no initial excess
+	// pore pressure and no pressure history at a drained end.
+	Consolidation *Consolidation `json:"consolidation,omitempty"`
+	// Summary collects the headline figures.
+	Summary Summary `json:"summary"`
+	// Warnings are conditions the results do not cover well; they never
+	// stop a solve.
+	Warnings []Warning `json:"warnings"`
+	// Stats describe the numerical work done.
+	Stats Stats `json:"stats"`
+}
+
+// Warning is a condition worth the engineer's attention. Path, when not
+// empty, is the field of the project it concerns.
+type Warning struct {
+	Path    string `json:"path,omitempty"`
+	Message string `json:"message"`
+}
+
+// Steady is the steady seepage solution on the mesh nodes.
+type Steady struct {
+	// Depth of each node below the top, m. Layer boundaries are nodes.
+	Depth []float64 `json:"depth"`
+	// Head is the total head, m above the top of the column.
+	Head []float64 `json:"head"`
+	// Pore is the pore water pressure, kPa.
+	Pore []float64 `json:"pore"`
+	// Total and Effective are the vertical total and effective stresses
+	// before any load, kPa.
+	Total     []float64 `json:"total"`
+	Effective []float64 `json:"effective"`
+	// Flux is the Darcy velocity, m/s, positive downward. It is the same
+	// in every layer.
+	Flux float64 `json:"flux"`
+	// KEquivalent is the equivalent vertical permeability of the column,
+	// m/s (thickness-weighted harmonic mean).
+	KEquivalent float64 `json:"kEquivalent"`
+	// Layers holds the per-layer figures, top to bottom.
+	Layers []SteadyLayer `json:"layers"`
+	// Uplift holds the uplift check at the base of every layer that is at
+	// least 100 times less permeable than the layer below it.
+	Uplift []UpliftCheck `json:"uplift,omitempty"`
+}
+
+// SteadyLayer holds one layer's steady seepage figures.
+type SteadyLayer struct {
+	Name   string  `json:"name"`
+	Top    float64 `json:"top"`    // m
+	Bottom float64 `json:"bottom"` // m
+	// Gradient is the hydraulic gradient in the layer: the head lost per
+	// metre of flow path, in the direction of flow (≥ 0).
+	Gradient float64 `json:"gradient"`
+	// Flux is the Darcy velocity through the layer, m/s, positive down.
+	Flux float64 `json:"flux"`
+	// Upward is true when water flows up through the layer.
+	Upward bool `json:"upward"`
+	// CriticalGradient is γ'/γw with γ' = γsat − γw.
+	CriticalGradient float64 `json:"criticalGradient"`
+	// HeaveFactor is ic/i for upward flow, nil otherwise (or when i = 0).
+	HeaveFactor *float64 `json:"heaveFactor,omitempty"`
+	// Cv is the coefficient of consolidation k/(mv γw), m²/day, when mv
+	// is known (nil when mv is to be derived and there is no load).
+	Cv *float64 `json:"cv,omitempty"`
+}
+
+// UpliftCheck compares the total stress on the base of a low-permeability
+// layer with the water pressure acting there (common practice).
+type UpliftCheck struct {
+	Layer int     `json:"layer"` // index of the layer whose base is checked
+	Depth float64 `json:"depth"` // m
+	// Total is the total vertical stress at the base from everything
+	// above, kPa; Pore the water pressure there, kPa.
+	Total float64 `json:"total"`
+	Pore  float64 `json:"pore"`
+	// Factor is Total/Pore (nil when Pore ≤ 0).
+	Factor *float64 `json:"factor,omitempty"`
+}
+
+// Consolidation is the transient solution.
+type Consolidation struct {
+	// Depth of each node, m (the same nodes as Steady.Depth).
+	Depth []float64 `json:"depth"`
+	// Isochrones of excess pore pressure at the requested times.
+	Isochrones []Isochrone `json:"isochrones"`
+	// Series at every time step.
+	Series Series `json:"series"`
+	// Start says how each instantaneous change was started, e.g.
+	// "4 backward Euler steps, then Crank–Nicolson (θ = 0.5)".
+	Start string `json:"start"`
+}
+
+// Isochrone is the excess pore pressure (change from the initial steady
+// state) at every node at one time, kPa.
+type Isochrone struct {
+	Time   float64   `json:"time"` // day
+	Excess []float64 `json:"excess"`
+}
+
+// Series holds histories at the time steps (Time[0] = 0).
+type Series struct {
+	Time []float64 `json:"time"` // day
+	// Load is the surcharge at the top, kPa.
+	Load []float64 `json:"load"`
+	// Us and Up are the average degrees of consolidation by settlement
+	// and by pore pressure, relative to the final state under the whole
+	// load history (empty when there is no net change).
+	Us []float64 `json:"us"`
+	Up []float64 `json:"up"`
+	// Settlement is the primary settlement from mv, m (positive down);
+	// SettlementElog from the e–log σ' curves (empty when a layer lacks
+	// one).
+	Settlement     []float64 `json:"settlement"`
+	SettlementElog []float64 `json:"settlementElog,omitempty"`
+	// Piezometers holds the pore pressure histories at the requested
+	// depths, in the order given.
+	Piezometers []Piezometer `json:"piezometers,omitempty"`
+}
+
+// Piezometer is a pore pressure history at one depth.
+type Piezometer struct {
+	Depth float64 `json:"depth"` // m
+	// Pore is the pore pressure a piezometer reads, kPa (steady plus
+	// excess); Excess the change from the initial steady state.
+	Pore   []float64 `json:"pore"`
+	Excess []float64 `json:"excess"`
+}
+
+// Summary collects the headline figures. Pointer fields are nil where the
+// figure does not exist (no load, never reached in the simulated time).
+type Summary struct {
+	// SettlementLinear is the final primary settlement from mv, m.
+	SettlementLinear *float64 `json:"settlementLinear,omitempty"`
+	// SettlementElog is the final primary settlement from the e–log σ'
+	// curves, m (nil unless every layer has one).
+	SettlementElog *float64 `json:"settlementElog,omitempty"`
+	// T50, T90 and TTarget are the times to Us = 50 %, 90 % and
+	// TargetDegree, days.
+	T50     *float64 `json:"t50,omitempty"`
+	T90     *float64 `json:"t90,omitempty"`
+	TTarget *float64 `json:"tTarget,omitempty"`
+	// TargetDegree is the fraction TTarget refers to.
+	TargetDegree float64 `json:"targetDegree"`
+	// Secondary is the secondary compression settlement at DesignLife, m.
+	Secondary  *float64 `json:"secondary,omitempty"`
+	DesignLife float64  `json:"designLife"` // day
+	// Layers holds per-layer settlement figures.
+	Layers []LayerSummary `json:"layers"`
+	// MinHeaveFactor is the smallest heave factor of any layer with
+	// upward flow (nil when there is none).
+	MinHeaveFactor *float64 `json:"minHeaveFactor,omitempty"`
+	// Flux is the steady Darcy velocity, m/s, positive downward.
+	Flux float64 `json:"flux"`
+}
+
+// LayerSummary holds one layer's settlement figures.
+type LayerSummary struct {
+	Name string  `json:"name"`
+	Mv   float64 `json:"mv"` // 1/kPa, as given or derived from the e–log curve
+	Cv   float64 `json:"cv"` // m²/day
+	// SettlementLinear and SettlementElog are this layer's final primary
+	// settlements, m (SettlementElog nil without an e–log curve).
+	SettlementLinear float64  `json:"settlementLinear"`
+	SettlementElog   *float64 `json:"settlementElog,omitempty"`
+	Secondary        *float64 `json:"secondary,omitempty"`
+}
+
+// Stats describe the numerical work of a solve.
+type Stats struct {
+	Nodes          int    `json:"nodes"`
+	Elements       int    `json:"elements"`
+	Order          int    `json:"order"`
+	Steps          int    `json:"steps"`
+	Factorizations int    `json:"factorizations"`
+	Scheme         string `json:"scheme,omitempty"`
+}

@@ -1,0 +1,241 @@
+package solver
+
+import (
+	"fmt"
+	"math"
+)
+
+// Limits that keep one solve within what a browser tab can do.
+const (
+	MaxLayers      = 500
+	MaxElements    = 200_000
+	MaxTimes       = 1_000
+	MaxPiezometers = 100
+	MaxLoads       = 200
+	MaxSteps       = 20_000
+)
+
+// Validate checks every value of p and returns all problems at once (as
+// Problems, each with its field path), or nil. It does not change p.
+func Validate(p *Project) error {
+	var ps Problems
+	if p == nil {
+		ps.Add("", ErrRequired, "no project")
+		return ps
+	}
+	if p.Format != Format {
+		ps.Add("format", ErrFormat, fmt.Sprintf("got %q, this version reads %q", p.Format, Format))
+	}
+	if u := p.Units; u != nil {
+		for _, c := range []struct{ path, got, want string }{
+			{"units.length", u.Length, "m"}, {"units.stress", u.Stress, "kPa"},
+			{"units.time", u.Time, "day"}, {"units.k", u.K, "m/s"},
+		} {
+			if c.got != "" && c.got != c.want {
+				ps.Add(c.path, ErrOutOfRange, fmt.Sprintf("got %q, files use %q", c.got, c.want))
+			}
+		}
+	}
+	gw := p.GammaW
+	if p.GammaW != 0 {
+		positive(&ps, "gammaW", p.GammaW)
+	} else {
+		gw = DefaultGammaW
+	}
+	finite(&ps, "waterTable", p.WaterTable)
+
+	switch n := len(p.Layers); {
+	case n == 0:
+		ps.Add("layers", ErrRequired, "at least one layer")
+	case n > MaxLayers:
+		ps.Add("layers", ErrTooLarge, fmt.Sprintf("%d layers, the limit is %d", n, MaxLayers))
+	}
+	height := 0.0
+	for i, l := range p.Layers {
+		at := fmt.Sprintf("layers[%d].", i)
+		positive(&ps, at+"thickness", l.Thickness)
+		if l.Thickness > 0 && !math.IsInf(l.Thickness, 0) {
+			height += l.Thickness
+		}
+		if positive(&ps, at+"gammaSat", l.GammaSat) && l.GammaSat <= gw {
+			ps.Add(at+"gammaSat", ErrOutOfRange, fmt.Sprintf("must exceed gammaW = %g (got %g)", gw, l.GammaSat))
+		}
+		if l.Gamma != 0 {
+			positive(&ps, at+"gamma", l.Gamma)
+		}
+		positive(&ps, at+"k", l.K)
+		if l.Mv != 0 {
+			positive(&ps, at+"mv", l.Mv)
+		} else if l.ECurve == nil {
+			ps.Add(at+"mv", ErrRequired, "give mv, or an ecurve to derive it from")
+		}
+		if l.Calpha != 0 {
+			nonNegative(&ps, at+"calpha", l.Calpha)
+			if l.ECurve == nil {
+				ps.Add(at+"calpha", ErrConflict, "secondary compression needs ecurve.e0")
+			}
+		}
+		if c := l.ECurve; c != nil {
+			positive(&ps, at+"ecurve.e0", c.E0)
+			positive(&ps, at+"ecurve.cc", c.Cc)
+			if nonNegative(&ps, at+"ecurve.cr", c.Cr) && c.Cr > c.Cc {
+				ps.Add(at+"ecurve.cr", ErrOutOfRange, fmt.Sprintf("must not exceed cc = %g (got %g)", c.Cc, c.Cr))
+			}
+			if c.SigmaP != 0 {
+				positive(&ps, at+"ecurve.sigmaP", c.SigmaP)
+			}
+			if c.OCR != 0 && finite(&ps, at+"ecurve.ocr", c.OCR) && c.OCR < 1 {
+				ps.Add(at+"ecurve.ocr", ErrOutOfRange, "must be ≥ 1 "+paren(num(c.OCR)))
+			}
+			if c.SigmaP != 0 && c.OCR != 0 {
+				ps.Add(at+"ecurve.ocr", ErrConflict, "give sigmaP or ocr, not both")
+			}
+		}
+	}
+
+	validBoundary(&ps, "top", p.Top)
+	validBoundary(&ps, "bottom", p.Bottom)
+	if !p.Top.Drained && !p.Bottom.Drained {
+		for _, c := range []struct {
+			at string
+			q  float64
+		}{{"top.inflow", p.Top.Inflow}, {"bottom.inflow", p.Bottom.Inflow}} {
+			if c.q != 0 {
+				ps.Add(c.at, ErrConflict, "steady flow needs a drained end to leave by; drain the other end")
+			}
+		}
+	}
+
+	if len(p.Loads) > MaxLoads {
+		ps.Add("loads", ErrTooLarge, fmt.Sprintf("%d stages, the limit is %d", len(p.Loads), MaxLoads))
+	}
+	for i, l := range p.Loads {
+		at := fmt.Sprintf("loads[%d].", i)
+		nonNegative(&ps, at+"start", l.Start)
+		nonNegative(&ps, at+"ramp", l.Ramp)
+		finite(&ps, at+"q", l.Q)
+		validProfile(&ps, at+"profile", l.Profile)
+	}
+	validProfile(&ps, "initialExcess", p.InitialExcess)
+
+	if len(p.Times) > MaxTimes {
+		ps.Add("times", ErrTooLarge, fmt.Sprintf("%d times, the limit is %d", len(p.Times), MaxTimes))
+	}
+	for i, t := range p.Times {
+		at := fmt.Sprintf("times[%d]", i)
+		if positive(&ps, at, t) && i > 0 && t <= p.Times[i-1] {
+			ps.Add(at, ErrNotSorted, fmt.Sprintf("%g follows %g", t, p.Times[i-1]))
+		}
+	}
+	if len(p.Piezometers) > MaxPiezometers {
+		ps.Add("piezometers", ErrTooLarge, fmt.Sprintf("%d piezometers, the limit is %d", len(p.Piezometers), MaxPiezometers))
+	}
+	for i, z := range p.Piezometers {
+		at := fmt.Sprintf("piezometers[%d]", i)
+		if nonNegative(&ps, at, z) && height > 0 && z > height*(1+1e-12) {
+			ps.Add(at, ErrOutOfRange, fmt.Sprintf("depth %g m is below the base of the column at %g m", z, height))
+		}
+	}
+	if p.TargetDegree != 0 && (!(p.TargetDegree > 0 && p.TargetDegree < 1)) {
+		ps.Add("targetDegree", ErrOutOfRange, "must be a fraction between 0 and 1 "+paren(num(p.TargetDegree)))
+	}
+	if p.DesignLife != 0 {
+		positive(&ps, "designLife", p.DesignLife)
+	}
+
+	m := p.Mesh
+	if m.Order != 0 && m.Order != 1 && m.Order != 2 {
+		ps.Add("mesh.order", ErrOutOfRange, fmt.Sprintf("must be 1 (linear) or 2 (quadratic), got %d", m.Order))
+	}
+	if m.MaxSize != 0 {
+		positive(&ps, "mesh.maxSize", m.MaxSize)
+	}
+	if m.MinPerLayer < 0 {
+		ps.Add("mesh.minPerLayer", ErrNegative, fmt.Sprintf("got %d", m.MinPerLayer))
+	}
+	if len(ps) == 0 {
+		if n := elementCount(p); n > MaxElements {
+			ps.Add("mesh.maxSize", ErrTooLarge, fmt.Sprintf("the mesh would have %d elements, the limit is %d; use a larger maxSize", n, MaxElements))
+		}
+	}
+
+	s := p.Stepping
+	if s.Theta != 0 && (!(s.Theta >= 0.5 && s.Theta <= 1)) {
+		ps.Add("stepping.theta", ErrOutOfRange, "must be between 0.5 and 1 "+paren(num(s.Theta)))
+	}
+	if s.FirstStep != 0 {
+		positive(&ps, "stepping.firstStep", s.FirstStep)
+	}
+	if s.Growth != 0 && (!(s.Growth >= 1 && s.Growth <= 10)) {
+		ps.Add("stepping.growth", ErrOutOfRange, "must be between 1 and 10 "+paren(num(s.Growth)))
+	}
+	if s.EndTime != 0 {
+		positive(&ps, "stepping.endTime", s.EndTime)
+	}
+	return ps.Err()
+}
+
+func validBoundary(ps *Problems, at string, b Boundary) {
+	if b.Head != nil {
+		finite(ps, at+".head", *b.Head)
+		if !b.Drained {
+			ps.Add(at+".head", ErrConflict, "a fixed head needs a drained end")
+		}
+	}
+	finite(ps, at+".inflow", b.Inflow)
+	if b.Inflow != 0 && b.Drained {
+		ps.Add(at+".inflow", ErrConflict, "an inflow needs an undrained end; a drained end has a fixed head")
+	}
+	if len(b.Excess) > 0 && !b.Drained {
+		ps.Add(at+".excess", ErrConflict, "a pressure history needs a drained end")
+	}
+	for i, tv := range b.Excess {
+		p := fmt.Sprintf("%s.excess[%d]", at, i)
+		if nonNegative(ps, p+".t", tv.T) && i > 0 && tv.T < b.Excess[i-1].T {
+			ps.Add(p+".t", ErrNotSorted, fmt.Sprintf("%g follows %g", tv.T, b.Excess[i-1].T))
+		}
+		finite(ps, p+".value", tv.Value)
+	}
+}
+
+func validProfile(ps *Problems, at string, pts []DepthValue) {
+	for i, dv := range pts {
+		p := fmt.Sprintf("%s[%d]", at, i)
+		if finite(ps, p+".z", dv.Z) && i > 0 && dv.Z <= pts[i-1].Z {
+			ps.Add(p+".z", ErrNotSorted, fmt.Sprintf("%g follows %g", dv.Z, pts[i-1].Z))
+		}
+		finite(ps, p+".value", dv.Value)
+	}
+}
+
+func finite(ps *Problems, at string, v float64) bool {
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		ps.Add(at, ErrNotFinite, num(v))
+		return false
+	}
+	return true
+}
+
+func positive(ps *Problems, at string, v float64) bool {
+	if !finite(ps, at, v) {
+		return false
+	}
+	if v <= 0 {
+		ps.Add(at, ErrNotPositive, num(v))
+		return false
+	}
+	return true
+}
+
+func nonNegative(ps *Problems, at string, v float64) bool {
+	if !finite(ps, at, v) {
+		return false
+	}
+	if v < 0 {
+		ps.Add(at, ErrNegative, num(v))
+		return false
+	}
+	return true
+}
+
+func paren(s string) string { return "(" + s + ")" }
