@@ -178,10 +178,10 @@ type Stepping struct {
 	// FirstStep is the first step after every breakpoint, days. Zero
 	// means 1 minute (1/1440 day).
 	FirstStep float64 `json:"firstStep,omitempty"`
-	// Growth is the ratio between consecutive steps, > 1. Zero means 1.2.
+	// Growth is the ratio between consecutive steps, ≥ 1. Zero means 1.1.
 	Growth float64 `json:"growth,omitempty"`
-	// EndTime is the last time simulated, days. Zero means the larger of
-	// the last output time and 100 years, extended until consolidation is
-	// complete.
+	// EndTime is the last time simulated, days. Zero means 100 years
+	// after the last load or boundary change, or the last output time if
+	// that is later.
 	EndTime float64 `json:"endTime,omitempty"`
 }

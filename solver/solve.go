@@ -28,6 +28,11 @@ func Solve(p *Project, opt *Options) (*Result, error) {
 	r.Steady = c.steady(warn)
 	r.Stats = Stats{Nodes: c.m.nodes(), Elements: c.m.elements(), Order: c.m.order}
 	r.Summary.Flux = r.Steady.Flux
+	if hasConsolidation(p) {
+		if err := c.consolidate(&r.Steady, r, opt, warn); err != nil {
+			return nil, err
+		}
+	}
 	for _, l := range r.Steady.Layers {
 		if l.HeaveFactor != nil && (r.Summary.MinHeaveFactor == nil || *l.HeaveFactor < *r.Summary.MinHeaveFactor) {
 			r.Summary.MinHeaveFactor = ptr(*l.HeaveFactor)
