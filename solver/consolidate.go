@@ -85,6 +85,7 @@ type transient struct {
 	shapes   [][]float64 // per load stage: Q·factor at the nodes
 	wMass    []float64   // ∫ mv Nᵢ dz
 	wLength  []float64   // ∫ Nᵢ dz
+	lumped   bool        // mass is diagonal
 	theta    float64
 	damped   int
 	first    float64
@@ -157,7 +158,8 @@ func (tr *transient) setMv(mv []float64) {
 	// bounds under backward Euler steps; the accuracy stays O(h²).
 	// Quadratic elements keep the consistent matrix, which their O(h³)
 	// accuracy needs.
-	if m.order == 1 {
+	tr.lumped = m.order == 1
+	if tr.lumped {
 		clear(tr.mass.ab)
 		for i, w := range tr.wMass {
 			tr.mass.ab[i*(tr.mass.kd+1)] = w
@@ -266,18 +268,34 @@ func (tr *transient) step(theta, t0, dt float64) error {
 		return err
 	}
 	u, rhs, tmp, sig := tr.u, tr.rhs, tr.tmp, tr.sigma
-	// tmp = u⁰ + σ¹ − σ⁰ ; keep σ¹ in sigma afterwards.
-	copy(tmp, sig)
-	// Changes at t1 that are instantaneous belong to jump, not to the step.
-	tr.stressAt(sig, t0+dt, true)
-	for i := range tmp {
-		tmp[i] = u[i] + sig[i] - tmp[i]
+	// tmp = σ¹ − σ⁰, keeping σ¹ in sigma. Changes at t1 that are
+	// instantaneous belong to jump, not to the step.
+	ds := []float64(nil)
+	if tr.ramping(t0, t0+dt) {
+		copy(tmp, sig)
+		tr.stressAt(sig, t0+dt, true)
+		for i := range tmp {
+			tmp[i] = sig[i] - tmp[i]
+		}
+		ds = tmp
 	}
-	tr.mass.mulVec(rhs, tmp)
-	if c := (1 - theta) * dt; c != 0 {
-		tr.k.mulVec(tmp, u)
-		for i := range rhs {
-			rhs[i] -= c * tmp[i]
+	c := (1 - theta) * dt
+	if tr.mass.kd == 1 && tr.lumped {
+		thetaRHS(rhs, u, ds, tr.mass.ab, tr.k.ab, c)
+	} else {
+		if ds != nil {
+			for i := range tmp {
+				tmp[i] += u[i]
+			}
+			tr.mass.mulVec(rhs, tmp)
+		} else {
+			tr.mass.mulVec(rhs, u)
+		}
+		if c != 0 {
+			tr.k.mulVec(tmp, u)
+			for i := range rhs {
+				rhs[i] -= c * tmp[i]
+			}
 		}
 	}
 	tr.setHeld(u, t0+dt, true)
@@ -361,4 +379,38 @@ func (tr *transient) startText() string {
 		return scheme + " throughout"
 	}
 	return fmt.Sprintf("%d backward Euler steps after each instantaneous change, then %s", tr.damped, scheme)
+}
+
+// ramping reports whether a ramped load stage changes during (t0, t1).
+func (tr *transient) ramping(t0, t1 float64) bool {
+	for _, l := range tr.c.p.Loads {
+		if l.Ramp > 0 && l.Start < t1 && l.Start+l.Ramp > t0 {
+			return true
+		}
+	}
+	return false
+}
+
+// thetaRHS sets dst = D (u + ds) − c·K u for a diagonal D (the first
+// column of the band storage d) and a tridiagonal K (band storage k, kd =
+// 1), in one pass. ds may be nil (no stress change).
+func thetaRHS(dst, u, ds, d, k []float64, c float64) {
+	n := len(u)
+	if n == 0 {
+		return
+	}
+	// Row i of K·u is k[2(i-1)+1]·u[i-1] + k[2i]·u[i] + k[2i+1]·u[i+1].
+	prev := 0.0 // k[i-1][i]·u[i-1]
+	for i := range n {
+		ku := prev + k[2*i]*u[i]
+		if i+1 < n {
+			ku += k[2*i+1] * u[i+1]
+			prev = k[2*i+1] * u[i]
+		}
+		v := u[i]
+		if ds != nil {
+			v += ds[i]
+		}
+		dst[i] = d[2*i]*v - c*ku
+	}
 }

@@ -72,6 +72,60 @@
 // at the nodes; between nodes the error is O(h²) in the L2 norm for linear
 // and O(h³) for quadratic elements (Strang & Fix 1973).
 //
+// # Time stepping
+//
+// Consolidation uses the θ-method on M u̇ + K u = M σ̇:
+//
+//	(M + θΔt K) u¹ = (M − (1−θ)Δt K) u⁰ + M (σ¹ − σ⁰),
+//
+// with u¹ held at drained ends. θ = 0.5 (Crank–Nicolson, second order) by
+// default. An instantaneous change — a load stage with no ramp, an initial
+// excess profile, a step in a boundary pressure history — is applied
+// between steps as the undrained response (the excess pressure rises by
+// the stress change at every node that is not held), and the next
+// Stepping.DampedSteps steps (4 by default) use backward Euler, which damps
+// the oscillation Crank–Nicolson shows after a discontinuous start
+// (Rannacher 1984). Steps start at Stepping.FirstStep (1 minute) after
+// every load or boundary breakpoint and grow by Stepping.Growth (1.1)
+// between breakpoints and output times, on which they land exactly, so one
+// minute to 100 years takes about 160 steps per breakpoint. Each distinct
+// (θ, Δt) is factorised once and reused: after every restart the step
+// sizes repeat.
+//
+// Linear elements use the row-sum lumped capacity matrix: it keeps
+// M + θΔt K an M-matrix, so the pressure next to a drained end does not
+// dip below its final value after an instantaneous load, which on the
+// history-dependent e–log σ' curve would leave spurious virgin compression.
+// Quadratic elements keep the consistent capacity matrix.
+//
+// # Settlement and degrees of consolidation
+//
+// With σ(z, t) the total stress change and u(z, t) the pore pressure
+// change, the linear settlement is s(t) = ∫ mv (σ − u) dz; unloading
+// returns along the same mv. The final state has every load applied and
+// u∞ the steady pore pressure change under the final boundary values. The
+// average degrees of consolidation are, relative to that final state,
+//
+//	Us(t) = ∫ mv (σ − u) dz / ∫ mv (σ∞ − u∞) dz   (by settlement),
+//	Up(t) = ∫ (σ − u) dz / ∫ (σ∞ − u∞) dz         (by pore pressure),
+//
+// which reduce to Terzaghi's U for one layer under one instantaneous load
+// and differ in layered soil. Under a surcharge later removed, Us exceeds 1
+// while the surcharge acts. t50, t90 and the time to Project.TargetDegree
+// are the first times Us reaches those values.
+//
+// The e–log σ' settlement (Terzaghi & Peck 1967) is evaluated per element
+// (a sublayer) at its centre, from the initial effective stress of the
+// steady state and σ'p (given, or OCR·σ'0, or σ'0): recompression and
+// swelling follow Cr, loading beyond the largest past stress follows Cc.
+// The series follows the effective stress the consolidation gives at every
+// step; the final figure follows the fully drained stress at every load
+// breakpoint in turn, so a surcharge removed early is counted as if it had
+// consolidated fully. Where a layer gives no mv, it is the secant of its
+// e–log curve over the final stress change. Secondary compression (Mesri
+// 1973) is Cα H/(1+ep) log10(t/tp) per layer at Project.DesignLife, with tp
+// the time at which Us reaches 95 %.
+//
 // # File format
 //
 // One project is one JSON object; the field names of Project and its parts

@@ -53,6 +53,8 @@ type Project struct {
 	// DesignLife is the time at which secondary compression is evaluated,
 	// days. Zero means 50 years (18262.5 days).
 	DesignLife float64 `json:"designLife,omitempty"`
+	// Monitoring holds field readings to compare with the prediction.
+	Monitoring *Monitoring `json:"monitoring,omitempty"`
 	// Mesh and Stepping control the numerics; zero values are defaults.
 	Mesh     MeshSettings `json:"mesh,omitzero"`
 	Stepping Stepping     `json:"stepping,omitzero"`
@@ -184,4 +186,39 @@ type Stepping struct {
 	// after the last load or boundary change, or the last output time if
 	// that is later.
 	EndTime float64 `json:"endTime,omitempty"`
+}
+
+// Monitoring holds field readings taken after loading starts.
+type Monitoring struct {
+	// Start is the calendar date of day 0 of the project (the start of
+	// construction), "YYYY-MM-DD". Readings may give a date instead of t
+	// only when Start is set.
+	Start string `json:"start,omitempty"`
+	// Plates are settlement records, one per settlement plate or marker.
+	Plates []Plate `json:"plates,omitempty"`
+	// Piezometers are pore pressure records at given depths.
+	Piezometers []PiezometerRecord `json:"piezometers,omitempty"`
+}
+
+// Plate is the settlement record of one plate; Readings are settlements, m,
+// positive downward, relative to the plate's level at day 0.
+type Plate struct {
+	Name     string    `json:"name,omitempty"`
+	Readings []Reading `json:"readings"`
+}
+
+// PiezometerRecord is the record of one piezometer; Readings are pore
+// pressures, kPa (what the instrument reads, not the excess).
+type PiezometerRecord struct {
+	Name     string    `json:"name,omitempty"`
+	Depth    float64   `json:"depth"` // m below the top of the column
+	Readings []Reading `json:"readings"`
+}
+
+// Reading is one measurement: at T days after day 0, or on Date
+// ("YYYY-MM-DD") when Monitoring.Start is set; one of the two.
+type Reading struct {
+	T     float64 `json:"t,omitempty"`
+	Date  string  `json:"date,omitempty"`
+	Value float64 `json:"value"`
 }

@@ -22,14 +22,15 @@ func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path
 
 	// e–log σ' sublayers, one per element, and the final settlement along
 	// the fully drained stress path through every breakpoint.
-	allCurves := true
+	allCurves, anyCurve := true, false
 	for _, l := range p.Layers {
 		allCurves = allCurves && l.ECurve != nil
+		anyCurve = anyCurve || l.ECurve != nil
 	}
 	var subs []sublayer
 	elogLayer := make([]float64, len(p.Layers))
 	drainedDelta := make([]float64, len(p.Layers)) // ∫ Δσ'∞ dz per layer
-	if allCurves || needDerivedMv(p) {
+	if anyCurve {
 		subs = make([]sublayer, ne)
 		stress := make([]float64, n)
 		warned := map[int]bool{}
@@ -100,7 +101,7 @@ func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path
 	r.Summary.Layers = make([]LayerSummary, len(p.Layers))
 	for i, l := range p.Layers {
 		ls := LayerSummary{Name: l.Name, Mv: mv[i], Cv: cvPerDay(l.K, mv[i], c.gw)}
-		if l.ECurve != nil && (allCurves || l.Mv == 0) {
+		if l.ECurve != nil {
 			ls.SettlementElog = ptr(elogLayer[i])
 			sumElog += elogLayer[i]
 		}
@@ -141,11 +142,16 @@ func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path
 	record := func(t float64) {
 		ser.Time = append(ser.Time, t)
 		ser.Load = append(ser.Load, surcharge(p.Loads, t))
-		sNow := dot(tr.wMass, tr.sigma) - dot(tr.wMass, tr.u)
+		var sNow, pNow float64
+		for i, w := range tr.wMass {
+			d := tr.sigma[i] - tr.u[i]
+			sNow += w * d
+			pNow += tr.wLength[i] * d
+		}
 		ser.Settlement = append(ser.Settlement, sNow)
 		if defined {
 			ser.Us = append(ser.Us, sNow/denS)
-			ser.Up = append(ser.Up, (dot(tr.wLength, tr.sigma)-dot(tr.wLength, tr.u))/denP)
+			ser.Up = append(ser.Up, pNow/denP)
 		}
 		if subs != nil {
 			total := 0.0
@@ -286,17 +292,19 @@ func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path
 		}
 	}
 	c.meshWarnings(mv, warn)
-	return nil
-}
-
-// needDerivedMv reports whether some layer's mv comes from its e–log curve.
-func needDerivedMv(p *Project) bool {
-	for _, l := range p.Layers {
-		if l.Mv == 0 {
-			return true
+	first := math.Inf(1)
+	for _, b := range bps {
+		if b.kind&(bpJump|bpRestart) != 0 {
+			first = b.t
+			break
 		}
 	}
-	return false
+	for i, t := range p.Times {
+		if t < first {
+			warn(fmt.Sprintf("times[%d]", i), fmt.Sprintf("%g days is before the first load or boundary change (%g days): its isochrone is zero", t, first))
+		}
+	}
+	return nil
 }
 
 // crossing returns the first time at which ys reaches y, interpolating

@@ -143,6 +143,10 @@ func Validate(p *Project) error {
 		positive(&ps, "designLife", p.DesignLife)
 	}
 
+	if p.Monitoring != nil {
+		validMonitoring(&ps, p.Monitoring, height)
+	}
+
 	m := p.Mesh
 	if m.Order != 0 && m.Order != 1 && m.Order != 2 {
 		ps.Add("mesh.order", ErrOutOfRange, fmt.Sprintf("must be 1 (linear) or 2 (quadratic), got %d", m.Order))

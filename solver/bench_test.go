@@ -1,0 +1,49 @@
+package solver
+
+import (
+	"os"
+	"testing"
+)
+
+// BenchmarkDemo solves the demo project (testdata/demo.json) with its own
+// settings: steady state, consolidation, e–log path and summary.
+func BenchmarkDemo(b *testing.B) {
+	data, err := os.ReadFile("../testdata/demo.json")
+	if err != nil {
+		b.Fatal(err)
+	}
+	p, err := Decode(data)
+	if err != nil {
+		b.Fatal(err)
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := Solve(p, nil); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// BenchmarkLargeColumn is the cost of 100,000 linear elements over 1,000
+// uniform time steps (one factorisation, 1,000 solves), with no e–log
+// curves and no output times.
+func BenchmarkLargeColumn(b *testing.B) {
+	p := &Project{
+		Format: Format,
+		Layers: []Layer{{Thickness: 100, GammaSat: 18, K: 1e-9, Mv: 1e-3}},
+		Top:    Boundary{Drained: true}, Bottom: Boundary{Drained: true},
+		Loads:    []Load{{Start: 0, Q: 100}},
+		Mesh:     MeshSettings{MaxSize: 100.0 / 100_000},
+		Stepping: Stepping{FirstStep: 10, Growth: 1, EndTime: 10_000, DampedSteps: -1},
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		r, err := Solve(p, nil)
+		if err != nil {
+			b.Fatal(err)
+		}
+		if r.Stats.Steps != 1000 {
+			b.Fatalf("%d steps, want 1000", r.Stats.Steps)
+		}
+	}
+}
