@@ -414,3 +414,31 @@ func thetaRHS(dst, u, ds, d, k []float64, c float64) {
 		dst[i] = d[2*i]*v - c*ku
 	}
 }
+
+// estimateSteps is the number of time steps a solve of p takes, to within
+// a few: between restarts the steps grow geometrically from the first one,
+// and every output time may cut one more.
+func estimateSteps(p *Project) int {
+	_, _, first, growth := stepping(p)
+	bps := breakpoints(p, endTime(p))
+	n, last := 0.0, 0.0
+	for _, b := range bps {
+		if b.kind&(bpRestart|bpJump) == 0 && b.t != bps[len(bps)-1].t {
+			n++
+			continue
+		}
+		span := b.t - last
+		if span > 0 {
+			if growth > 1 {
+				n += math.Ceil(math.Log1p(span*(growth-1)/first) / math.Log(growth))
+			} else {
+				n += math.Ceil(span / first)
+			}
+		}
+		last = b.t
+		if n > math.MaxInt32 {
+			return math.MaxInt32
+		}
+	}
+	return int(n)
+}

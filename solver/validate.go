@@ -13,6 +13,9 @@ const (
 	MaxPiezometers = 100
 	MaxLoads       = 200
 	MaxSteps       = 20_000
+	// MaxWork caps nodes × time steps of one solve: about 2 s natively
+	// and 10 s in a browser.
+	MaxWork = 200_000_000
 )
 
 // Validate checks every value of p and returns all problems at once (as
@@ -175,6 +178,16 @@ func Validate(p *Project) error {
 	}
 	if s.EndTime != 0 {
 		positive(&ps, "stepping.endTime", s.EndTime)
+	}
+	if len(ps) == 0 && hasConsolidation(p) {
+		steps := estimateSteps(p)
+		nodes := elementCount(p)*max(p.Mesh.Order, 1) + 1
+		switch {
+		case steps > MaxSteps:
+			ps.Add("stepping.firstStep", ErrTooLarge, fmt.Sprintf("about %d time steps, the limit is %d; use a larger stepping.firstStep or stepping.growth", steps, MaxSteps))
+		case float64(steps)*float64(nodes) > MaxWork:
+			ps.Add("stepping.firstStep", ErrTooLarge, fmt.Sprintf("about %d time steps × %d nodes, the limit is %d; use a larger stepping.firstStep or stepping.growth, or a larger mesh.maxSize", steps, nodes, MaxWork))
+		}
 	}
 	return ps.Err()
 }
