@@ -1,0 +1,68 @@
+package plot
+
+import "porelight/solver"
+
+// The plot components. Each takes the project and the result of a solve
+// and draws one Figure through Chart; Width and Height are pixels, zero for
+// the default size (640 × 420). The figure is rebuilt on every render from
+// the current props, so a new Result or an edited Project shows at once.
+// Each root svg has a stable id: plot-isochrones, plot-degree,
+// plot-settlement, plot-piezometers, plot-steady.
+
+// Isochrones draws IsochronesFigure.
+type Isochrones struct {
+	Project       *solver.Project
+	Result        *solver.Result
+	Width, Height int
+}
+
+// Figure builds the figure drawn for the current props.
+func (c *Isochrones) Figure() *Figure {
+	return IsochronesFigure(c.Project, c.Result, c.Width, c.Height)
+}
+
+// Degree draws DegreeFigure.
+type Degree struct {
+	Project       *solver.Project
+	Result        *solver.Result
+	Width, Height int
+}
+
+// Figure builds the figure drawn for the current props.
+func (c *Degree) Figure() *Figure { return DegreeFigure(c.Project, c.Result, c.Width, c.Height) }
+
+// Settlement draws SettlementFigure.
+type Settlement struct {
+	Project       *solver.Project
+	Result        *solver.Result
+	Width, Height int
+}
+
+// Figure builds the figure drawn for the current props.
+func (c *Settlement) Figure() *Figure {
+	return SettlementFigure(c.Project, c.Result, c.Width, c.Height)
+}
+
+// Piezometers draws PiezometersFigure.
+type Piezometers struct {
+	Project       *solver.Project
+	Result        *solver.Result
+	Width, Height int
+}
+
+// Figure builds the figure drawn for the current props.
+func (c *Piezometers) Figure() *Figure {
+	return PiezometersFigure(c.Project, c.Result, c.Width, c.Height)
+}
+
+// SteadyProfiles draws SteadyFigure.
+type SteadyProfiles struct {
+	Project       *solver.Project
+	Result        *solver.Result
+	Width, Height int
+}
+
+// Figure builds the figure drawn for the current props.
+func (c *SteadyProfiles) Figure() *Figure {
+	return SteadyFigure(c.Project, c.Result, c.Width, c.Height)
+}

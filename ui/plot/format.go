@@ -1,0 +1,117 @@
+package plot
+
+import (
+	"math"
+	"strconv"
+	"strings"
+)
+
+// minus is the typographic minus sign used in drawn labels (CSV keeps '-').
+const minus = "\u2212"
+
+// daysPerYear converts days to years for time labels.
+const daysPerYear = 365.25
+
+// coord formats a pixel coordinate with at most one decimal and no trailing
+// ".0", e.g. 12.5, 40, -3.2.
+func coord(v float64) string {
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return "0"
+	}
+	s := strconv.FormatFloat(math.Round(v*10)/10, 'f', 1, 64)
+	s = strings.TrimSuffix(s, ".0")
+	if s == "-0" {
+		s = "0"
+	}
+	return s
+}
+
+// fixed formats v with the given number of decimals and a typographic
+// minus sign; -0 prints as 0.
+func fixed(v float64, decimals int) string {
+	if decimals < 0 {
+		decimals = 0
+	}
+	s := strconv.FormatFloat(v, 'f', decimals, 64)
+	if strings.Trim(s, "-0.") == "" {
+		s = strings.TrimPrefix(s, "-")
+	}
+	return strings.Replace(s, "-", minus, 1)
+}
+
+// sig formats v to about n significant figures for read-outs and labels:
+// fixed notation between 1e-4 and 1e6, trailing zeros after the point
+// trimmed, typographic minus. NaN and ±Inf print as "–".
+//
+// Special cases are:
+//
+//	sig(0, n) = "0"
+//	sig(NaN, n) = sig(±Inf, n) = "–"
+func sig(v float64, n int) string {
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return "–"
+	}
+	if v == 0 {
+		return "0"
+	}
+	if n < 1 {
+		n = 1
+	}
+	a := math.Abs(v)
+	if a >= 1e6 || a < 1e-4 {
+		s := strconv.FormatFloat(v, 'e', n-1, 64)
+		mant, exp, _ := strings.Cut(s, "e")
+		if strings.Contains(mant, ".") {
+			mant = strings.TrimRight(strings.TrimRight(mant, "0"), ".")
+		}
+		e, _ := strconv.Atoi(exp)
+		return strings.Replace(mant, "-", minus, 1) + "×10" + superscript(e)
+	}
+	d := n - 1 - int(math.Floor(math.Log10(a)))
+	if d < 0 {
+		d = 0
+	}
+	s := fixed(v, d)
+	if strings.Contains(s, ".") {
+		s = strings.TrimRight(strings.TrimRight(s, "0"), ".")
+	}
+	return s
+}
+
+// superscript writes an integer with Unicode superscript digits, e.g. 10⁻³.
+func superscript(e int) string {
+	const digits = "⁰¹²³⁴⁵⁶⁷⁸⁹"
+	sup := []rune(digits)
+	var b strings.Builder
+	if e < 0 {
+		b.WriteString("⁻")
+		e = -e
+	}
+	for _, r := range strconv.Itoa(e) {
+		b.WriteRune(sup[r-'0'])
+	}
+	return b.String()
+}
+
+// timeLabel formats a time given in days: days below one year ("30 d",
+// "0.5 d"), years from one year on ("1 yr", "2.74 yr").
+func timeLabel(days float64) string {
+	if !isFinite(days) {
+		return "–"
+	}
+	if math.Abs(days) >= daysPerYear {
+		return sig(days/daysPerYear, 3) + " yr"
+	}
+	return sig(days, 3) + " d"
+}
+
+// csvNum formats a value for CSV: up to 10 significant figures, ASCII,
+// shortest form; NaN and ±Inf give an empty cell.
+func csvNum(v float64) string {
+	if !isFinite(v) {
+		return ""
+	}
+	return strconv.FormatFloat(v, 'g', 10, 64)
+}
+
+func isFinite(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }

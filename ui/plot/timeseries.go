@@ -1,0 +1,221 @@
+package plot
+
+import (
+	"math"
+
+	"porelight/solver"
+)
+
+// Time figure layout, pixels.
+const (
+	timeTop    = 34
+	timeBottom = 50 // tick labels and axis title below the plot
+	timeLeft   = 68
+)
+
+// timeFigure lays out one panel with a log time axis (days) at the bottom
+// and a linear y axis on the left over [ylo, yhi] widened to nice ticks;
+// down puts ylo at the top (values grow downward). It returns the panel
+// and its clip id.
+func (f *Figure) timeFigure(tlo, thi, ylo, yhi float64, ylabel string, down bool) (*Panel, string) {
+	box := Box{timeLeft, timeTop, f.W - legendW - 8 - timeLeft, f.H - timeBottom - timeTop}
+	// The first steps after a load are minutes long; more than six decades
+	// before the end only flatten the interesting part.
+	tlo = math.Max(tlo, thi*1e-6)
+	tlo, thi = LogRange(tlo, thi)
+	lo, hi, step := NiceRange(ylo, yhi, int(math.Max(2, box.H/45)))
+	y := Scale{Lo: lo, Hi: hi, A: box.Bottom(), B: box.Y}
+	if down {
+		y.A, y.B = box.Y, box.Bottom()
+	}
+	pn := &Panel{Box: box, X: Scale{Lo: tlo, Hi: thi, A: box.X, B: box.Right(), Log: true}, Y: y}
+	xt, yt := LogTicks(tlo, thi), LinearTicks(lo, hi, step)
+	f.grid(pn, xt, true)
+	f.grid(pn, yt, false)
+	f.frame(box)
+	f.axis(box, pn.X, xt, sideBottom, "Time, days (log scale)")
+	f.axis(box, pn.Y, yt, sideLeft, ylabel)
+	f.Panels = append(f.Panels, pn)
+	return pn, f.clip(box)
+}
+
+// positiveTimeRange returns the smallest positive and the largest finite
+// time, and false when no time is positive.
+func positiveTimeRange(ts []float64) (lo, hi float64, ok bool) {
+	lo, hi = math.Inf(1), math.Inf(-1)
+	for _, t := range ts {
+		if t > 0 && isFinite(t) {
+			lo, hi = math.Min(lo, t), math.Max(hi, t)
+		}
+	}
+	return lo, hi, lo <= hi
+}
+
+// consolidationSeries returns the series of r, or a message saying why
+// there is none.
+func consolidationSeries(r *solver.Result) (*solver.Series, string) {
+	switch {
+	case r == nil:
+		return nil, msgNoResult
+	case r.Consolidation == nil:
+		return nil, msgNoConsolidation
+	}
+	s := &r.Consolidation.Series
+	if _, _, ok := positiveTimeRange(s.Time); !ok {
+		return nil, msgNoConsolidation
+	}
+	return s, ""
+}
+
+func scaled(vs []float64, k float64) []float64 {
+	out := make([]float64, len(vs))
+	for i, v := range vs {
+		out[i] = v * k
+	}
+	return out
+}
+
+func readTime(name, unit string, digits int) func(Pt) string {
+	return func(q Pt) string {
+		return "t = " + timeLabel(q.DX) + ", " + name + " = " + sig(q.DY, digits) + unit
+	}
+}
+
+// DegreeFigure builds the plot of the average degree of consolidation by
+// settlement (Us) and by pore pressure (Up), in %, against log time, 0 % at
+// the top. Us and Up are read as fractions (1 = complete). The times to
+// 50 % and 90 % from the summary are marked when known.
+func DegreeFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
+	f := newFigure("plot-degree", "Average degree of consolidation", w, h)
+	s, msg := consolidationSeries(r)
+	if s == nil {
+		return f.message(msg)
+	}
+	if _, _, ok := finiteRange(s.Us, s.Up); !ok {
+		return f.message("No degree of consolidation: the load history makes no net change.")
+	}
+	tlo, thi, _ := positiveTimeRange(s.Time)
+	pn, clip := f.timeFigure(tlo, thi, 0, 100, "Degree of consolidation, %", true)
+	f.addSeries(pn, clip, "Us, settlement", styleAt(0), s.Time, scaled(s.Us, 100), readTime("Us", " %", 3))
+	f.addSeries(pn, clip, "Up, pore pressure", styleAt(1), s.Time, scaled(s.Up, 100), readTime("Up", " %", 3))
+	sm := r.Summary
+	f.markTime(pn, sm.T50, 50, "t50")
+	f.markTime(pn, sm.T90, 90, "t90")
+	f.legend(f.W-legendW+8, timeTop+8, legendW-12, int((f.H-timeTop-20)/16), f.allSeries())
+	return f
+}
+
+// markTime draws a dashed guide from the level y on the value axis to the
+// time t and down to the time axis, labelled "name = t".
+func (f *Figure) markTime(pn *Panel, t *float64, y float64, name string) {
+	if t == nil || !(*t > 0) || !pn.X.Contains(*t) {
+		return
+	}
+	x, yy := pn.X.Map(*t), pn.Y.Map(y)
+	f.path("M"+coord(pn.Box.X)+" "+coord(yy)+" H"+coord(x)+" V"+coord(pn.Box.Bottom()), inkMuted, "2 3", 1)
+	label := name + " = " + timeLabel(*t)
+	tx := f.text(pn.Box.X+6, yy-4, label, "start", 10.5, inkMuted)
+	tx.Halo = true
+}
+
+// SettlementFigure builds the plot of primary settlement (m, growing
+// downward) against log time, from mv and, when present, from the e–log σ′
+// curves.
+func SettlementFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
+	f := newFigure("plot-settlement", "Settlement", w, h)
+	s, msg := consolidationSeries(r)
+	if s == nil {
+		return f.message(msg)
+	}
+	lo, hi, ok := finiteRange(s.Settlement, s.SettlementElog)
+	if !ok {
+		return f.message("No settlement results in this solve.")
+	}
+	tlo, thi, _ := positiveTimeRange(s.Time)
+	lo, hi = padRange(math.Min(0, lo), math.Max(0, hi))
+	pn, clip := f.timeFigure(tlo, thi, lo, hi, "Settlement, m", true)
+	f.addSeries(pn, clip, "From mv", styleAt(0), s.Time, s.Settlement, readTime("s", " m", 3))
+	f.addSeries(pn, clip, "From e–log σ′", styleAt(1), s.Time, s.SettlementElog, readTime("s", " m", 3))
+	f.legend(f.W-legendW+8, timeTop+8, legendW-12, int((f.H-timeTop-20)/16), f.allSeries())
+	return f
+}
+
+// excessDash marks the excess pore pressure companion of a piezometer's
+// pore pressure curve.
+const excessDash = "1.5 3"
+
+// PiezometersFigure builds the plot of pore pressure (kPa) against log time
+// at every piezometer: the reading (steady plus excess) in the piezometer's
+// own style and the excess alone dotted, thinner, in the same colour.
+func PiezometersFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
+	f := newFigure("plot-piezometers", "Piezometers: pore pressure against time", w, h)
+	s, msg := consolidationSeries(r)
+	if s == nil {
+		return f.message(msg)
+	}
+	var all [][]float64
+	for _, pz := range s.Piezometers {
+		all = append(all, pz.Pore, pz.Excess)
+	}
+	lo, hi, ok := finiteRange(all...)
+	if !ok {
+		return f.message(msgNoPiezometers)
+	}
+	tlo, thi, _ := positiveTimeRange(s.Time)
+	lo, hi = padRange(math.Min(0, lo), math.Max(0, hi))
+	pn, clip := f.timeFigure(tlo, thi, lo, hi, "Pore pressure, kPa", false)
+	if lo < 0 {
+		y := pn.Y.Map(0)
+		f.path("M"+coord(pn.Box.X)+" "+coord(y)+" H"+coord(pn.Box.Right()), inkRule, "none", 1)
+	}
+	for i, pz := range s.Piezometers {
+		at := "z = " + sig(pz.Depth, 3) + " m"
+		st := styleAt(i)
+		f.addSeries(pn, clip, at+", reading", st, s.Time, pz.Pore, readTime("u", " kPa", 3))
+		ex := withDash(st, excessDash)
+		ex.Width = math.Max(1.25, st.Width-0.5)
+		f.addSeries(pn, clip, at+", excess", ex, s.Time, pz.Excess, readTime("Δu", " kPa", 3))
+	}
+	f.legend(f.W-legendW+8, timeTop+8, legendW-12, int((f.H-timeTop-20)/16), f.allSeries())
+	return f
+}
+
+// SteadyFigure builds the steady state profiles against depth beside the
+// layer strip: total head (m) in the left panel; pore pressure, total and
+// effective vertical stress (kPa) in the right one.
+func SteadyFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
+	f := newFigure("plot-steady", "Steady state: head, pore pressure and stresses", w, h)
+	if r == nil {
+		return f.message(msgNoResult)
+	}
+	st := &r.Steady
+	hlo, hhi, okH := finiteRange(st.Head)
+	slo, shi, okS := finiteRange(st.Pore, st.Total, st.Effective)
+	if len(st.Depth) == 0 || (!okH && !okS) {
+		return f.message(msgNoSteady)
+	}
+	bs := layerBands(p, r)
+	zmax := columnDepth(bs, st.Depth)
+	if !(zmax > 0) {
+		return f.message(msgNoSteady)
+	}
+	if !okH {
+		hlo, hhi = 0, 1
+	}
+	if !okS {
+		slo, shi = 0, 1
+	}
+	panels, clips := f.depthFigure(p, bs, zmax, []panelSpec{
+		{Weight: 0.8, Lo: hlo, Hi: hhi, Label: "Total head, m"},
+		{Weight: 1.4, Lo: math.Min(0, slo), Hi: math.Max(0, shi), Label: "Pressure and stress, kPa"},
+	})
+	readZ := func(name, unit string) func(Pt) string {
+		return func(q Pt) string { return "z = " + sig(q.DY, 3) + " m, " + name + " = " + sig(q.DX, 4) + unit }
+	}
+	f.addSeries(panels[0], clips[0], "Total head h", styleAt(0), st.Head, st.Depth, readZ("h", " m"))
+	f.addSeries(panels[1], clips[1], "Pore pressure u", styleAt(1), st.Pore, st.Depth, readZ("u", " kPa"))
+	f.addSeries(panels[1], clips[1], "Total stress σv", styleAt(2), st.Total, st.Depth, readZ("σv", " kPa"))
+	f.addSeries(panels[1], clips[1], "Effective stress σ′v", styleAt(3), st.Effective, st.Depth, readZ("σ′v", " kPa"))
+	f.legend(f.W-legendW+8, depthTop+8, legendW-12, int((f.H-depthTop-20)/16), f.allSeries())
+	return f
+}
