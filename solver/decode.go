@@ -4,7 +4,9 @@ import (
 	"bytes"
 	"encoding/json"
 	"fmt"
+	"maps"
 	"reflect"
+	"slices"
 	"strings"
 )
 
@@ -80,7 +82,10 @@ func checkShape(ps *Problems, path string, v any, t reflect.Type) {
 			return
 		}
 		fields := jsonFields(t)
-		for key, val := range obj {
+		// Sorted keys keep the order of the problems the same from run
+		// to run (map order is random).
+		for _, key := range slices.Sorted(maps.Keys(obj)) {
+			val := obj[key]
 			f, ok := fields[key]
 			if !ok {
 				ps.Add(join(path, key), ErrUnknown, "check the spelling; names are case-sensitive")

@@ -2,6 +2,7 @@ package solver
 
 import (
 	"fmt"
+	"slices"
 
 	"gonum.org/v1/gonum/blas"
 	"gonum.org/v1/gonum/lapack/gonum"
@@ -192,7 +193,9 @@ func grow(s []float64, n int) []float64 {
 func dirichletRHS(rhs []float64, a *band, u []float64, held []int) {
 	for _, j := range held {
 		for i := max(j-a.kd, 0); i <= min(j+a.kd, a.n-1); i++ {
-			if i != j {
+			// A held row keeps its value: with one element both ends are
+			// held and lie within the band of each other.
+			if i != j && !slices.Contains(held, i) {
 				rhs[i] -= a.at(i, j) * u[j]
 			}
 		}
