@@ -110,8 +110,9 @@ type Series struct {
 	// Load is the surcharge at the top, kPa.
 	Load []float64 `json:"load"`
 	// Us and Up are the average degrees of consolidation by settlement
-	// and by pore pressure, relative to the final state under the whole
-	// load history (empty when there is no net change).
+	// and by pore pressure, as fractions (1 = complete), relative to the
+	// final state under the whole load history (empty when there is no
+	// net change; above 1 while a surcharge later removed acts).
 	Us []float64 `json:"us"`
 	Up []float64 `json:"up"`
 	// Settlement is the primary settlement from mv, m (positive down);
