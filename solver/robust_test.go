@@ -200,3 +200,39 @@ func TestCancel(t *testing.T) {
 		t.Fatalf("Solve = %v after %d progress calls, want ErrCanceled after 1", err, calls)
 	}
 }
+
+// TestOddValuesWarn: legal but unusual values give warnings at their
+// field, never errors (typical ranges: common practice, PUBLISHED.md).
+func TestOddValuesWarn(t *testing.T) {
+	t.Parallel()
+	tests := []struct {
+		name  string
+		layer Layer
+		path  string // "" means no warning about the layer
+	}{
+		{"ordinary clay", clayLayer(5, 1e-9), ""},
+		{"k below 1e-13", clayLayer(5, 1e-14), "layers[0].k"},
+		{"k above 1 m/s", Layer{Thickness: 5, GammaSat: 19, K: 3, Mv: 1e-5}, "layers[0].k"},
+		{"cv far too high for a clay", Layer{Thickness: 5, GammaSat: 17, K: 5e-8, Mv: 1e-6}, "layers[0].mv"},
+		{"layer thinner than the elements", clayLayer(0.001, 1e-9), "layers[0].thickness"},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			t.Parallel()
+			p := &Project{Format: Format, Layers: []Layer{tt.layer, clayLayer(5, 1e-9)}, Top: Boundary{Drained: true}, Mesh: MeshSettings{MaxSize: 0.1}}
+			r, err := Solve(p, nil)
+			if err != nil {
+				t.Fatal(err)
+			}
+			found := ""
+			for _, w := range r.Warnings {
+				if strings.HasPrefix(w.Path, "layers[0]") && found == "" {
+					found = w.Path
+				}
+			}
+			if found != tt.path {
+				t.Errorf("warning at %q, want %q (all: %v)", found, tt.path, r.Warnings)
+			}
+		})
+	}
+}

@@ -25,6 +25,7 @@ func Solve(p *Project, opt *Options) (*Result, error) {
 	c := newColumn(p)
 	r := &Result{Warnings: []Warning{}}
 	warn := func(path, msg string) { r.Warnings = append(r.Warnings, Warning{Path: path, Message: msg}) }
+	oddValues(p, warn)
 	r.Steady = c.steady(warn)
 	r.Stats = Stats{Nodes: c.m.nodes(), Elements: c.m.elements(), Order: c.m.order}
 	r.Summary.Flux = r.Steady.Flux

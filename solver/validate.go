@@ -256,3 +256,38 @@ func nonNegative(ps *Problems, at string, v float64) bool {
 }
 
 func paren(s string) string { return "(" + s + ")" }
+
+// Typical ranges (common practice; see the package documentation): values
+// outside them are legal but worth a second look.
+const (
+	typicalKMin  = 1e-13  // m/s
+	typicalKMax  = 1.0    // m/s
+	typicalCvMin = 0.01   // m²/year, for layers with k < 1e-7 m/s
+	typicalCvMax = 1000.0 // m²/year, for layers with k < 1e-7 m/s
+)
+
+// oddValues warns about legal values that are physically unusual: a
+// permeability outside 1e-13 … 1 m/s, a fine-grained layer's cv outside
+// 0.01 … 1000 m²/year, and a layer thinner than the mesh's element size.
+func oddValues(p *Project, warn func(path, msg string)) {
+	gw := p.GammaW
+	if gw == 0 {
+		gw = DefaultGammaW
+	}
+	_, maxSize, _ := meshSize(p)
+	for i, l := range p.Layers {
+		at := fmt.Sprintf("layers[%d]", i)
+		if l.K < typicalKMin || l.K > typicalKMax {
+			warn(at+".k", fmt.Sprintf("k = %g m/s is outside the usual range of soils (%g to %g m/s)", l.K, typicalKMin, typicalKMax))
+		}
+		if l.Mv > 0 && l.K < 1e-7 {
+			cv := cvPerDay(l.K, l.Mv, gw) * 365.25
+			if cv < typicalCvMin || cv > typicalCvMax {
+				warn(at+".mv", fmt.Sprintf("cv = k/(mv γw) = %.3g m²/year is outside the usual range of fine-grained soils (%g to %g m²/year); check k and mv", cv, typicalCvMin, typicalCvMax))
+			}
+		}
+		if l.Thickness < maxSize {
+			warn(at+".thickness", fmt.Sprintf("the layer (%.3g m) is thinner than the element size (%.3g m): it gets its own finer elements", l.Thickness, maxSize))
+		}
+	}
+}
