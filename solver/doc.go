@@ -150,6 +150,62 @@
 //	  "mesh": {"order": 1, "maxSize": 0.1, "minPerLayer": 4}
 //	}
 //
+// # Input contract
+//
+// Validate checks every field below and reports each violation with its
+// path and reason (the Err* values); Decode first refuses unknown fields
+// (ErrUnknown), values of the wrong JSON type and a different "format"
+// (ErrFormat). Limits protect a browser tab: at most MaxLayers layers,
+// MaxElements elements, MaxTimes output times, MaxPiezometers piezometers,
+// MaxLoads load stages, MaxSteps time steps and MaxWork nodes × steps
+// (ErrTooLarge, reported at mesh.maxSize or stepping.firstStep).
+//
+//	field                     unit    allowed                         error when not
+//	format                    –       "porelight/1"                   ErrFormat
+//	units.*                   –       "m", "kPa", "day", "m/s"        ErrOutOfRange
+//	gammaW                    kN/m³   > 0 (0 or absent: 9.81)         ErrNotPositive
+//	waterTable                m       finite (negative: water above)  ErrNotFinite
+//	layers                    –       1 … MaxLayers                   ErrRequired, ErrTooLarge
+//	layers[i].thickness       m       > 0                             ErrNotPositive
+//	layers[i].gammaSat        kN/m³   > gammaW                        ErrNotPositive, ErrOutOfRange
+//	layers[i].gamma           kN/m³   > 0 (absent: gammaSat)          ErrNotPositive
+//	layers[i].k               m/s     > 0                             ErrNotPositive
+//	layers[i].mv              1/kPa   > 0, or absent with an ecurve   ErrNotPositive, ErrRequired
+//	layers[i].calpha          –       ≥ 0, needs an ecurve            ErrNegative, ErrConflict
+//	layers[i].ecurve.e0       –       > 0                             ErrNotPositive
+//	layers[i].ecurve.cc       –       > 0                             ErrNotPositive
+//	layers[i].ecurve.cr       –       0 ≤ cr ≤ cc                     ErrNegative, ErrOutOfRange
+//	layers[i].ecurve.sigmaP   kPa     > 0; not with ocr               ErrNotPositive, ErrConflict
+//	layers[i].ecurve.ocr      –       ≥ 1; not with sigmaP            ErrOutOfRange, ErrConflict
+//	top|bottom.head           m       finite; drained end only        ErrNotFinite, ErrConflict
+//	top|bottom.inflow         m/s     finite; undrained end, and the  ErrNotFinite, ErrConflict
+//	                                  other end drained
+//	top|bottom.excess[j].t    day     ≥ 0, not decreasing             ErrNegative, ErrNotSorted
+//	top|bottom.excess[j].value kPa    finite; drained end only        ErrNotFinite, ErrConflict
+//	loads                     –       at most MaxLoads                ErrTooLarge
+//	loads[j].start, .ramp     day     ≥ 0                             ErrNegative
+//	loads[j].q                kPa     finite (negative removes)       ErrNotFinite
+//	loads[j].profile[k].z     m       finite, increasing              ErrNotFinite, ErrNotSorted
+//	initialExcess[k].z        m       finite, increasing              ErrNotFinite, ErrNotSorted
+//	times[j]                  day     > 0, increasing                 ErrNotPositive, ErrNotSorted
+//	piezometers[j]            m       0 … column height               ErrNegative, ErrOutOfRange
+//	targetDegree              –       0 < value < 1 (absent: 0.95)    ErrOutOfRange
+//	designLife                day     > 0 (absent: 50 years)          ErrNotPositive
+//	mesh.order                –       1 or 2 (absent: 1)              ErrOutOfRange
+//	mesh.maxSize              m       > 0 (absent: height/200)        ErrNotPositive, ErrTooLarge
+//	mesh.minPerLayer          –       ≥ 0 (absent: 4)                 ErrNegative
+//	stepping.theta            –       0.5 … 1 (absent: 0.5)           ErrOutOfRange
+//	stepping.firstStep        day     > 0 (absent: 1 minute)          ErrNotPositive, ErrTooLarge
+//	stepping.growth           –       1 … 10 (absent: 1.1)            ErrOutOfRange
+//	stepping.endTime          day     > 0 (absent: see Stepping)      ErrNotPositive
+//	monitoring.*              see Monitoring and its validation
+//
+// Legal but unusual values give warnings in the Result, never errors: a
+// permeability outside 1e-13 … 1 m/s, a fine-grained layer (k < 1e-7 m/s)
+// with cv outside 0.01 … 1000 m²/year, a layer thinner than the element
+// size, σ'p below the in-situ effective stress, suction or negative
+// effective stress in the steady state, and a column that cannot drain.
+//
 // # Scope
 //
 // The column is saturated, one-dimensional and small strain; flow follows
