@@ -118,11 +118,13 @@
 // (a sublayer) at its centre, from the initial effective stress of the
 // steady state and σ'p (given, or OCR·σ'0, or σ'0): recompression and
 // swelling follow Cr, loading beyond the largest past stress follows Cc.
-// The series follows the effective stress the consolidation gives at every
-// step; the final figure follows the fully drained stress at every load
-// breakpoint in turn, so a surcharge removed early is counted as if it had
-// consolidated fully. Where a layer gives no mv, it is the secant of its
-// e–log curve over the final stress change. Secondary compression (Mesri
+// Both the series and the final figure follow the effective stress the
+// consolidation gives at every step, so a surcharge removed before it has
+// consolidated counts only for the compression it caused; the final figure
+// is the value at the end of the simulation (a warning says when
+// consolidation is not complete by then). Where a layer gives no mv, it is the secant of its
+// e–log curve over the final stress change along the fully drained path
+// through every load breakpoint. Secondary compression (Mesri
 // 1973) is Cα H/(1+ep) log10(t/tp) per layer at Project.DesignLife, with tp
 // the time at which Us reaches 95 %.
 //

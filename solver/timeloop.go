@@ -27,31 +27,32 @@ func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path
 		allCurves = allCurves && l.ECurve != nil
 		anyCurve = anyCurve || l.ECurve != nil
 	}
-	var subs []sublayer
+	// Every element is a sublayer; those with an e–log curve follow it.
+	subs := make([]sublayer, ne)
 	elogLayer := make([]float64, len(p.Layers))
 	drainedDelta := make([]float64, len(p.Layers)) // ∫ Δσ'∞ dz per layer
+	warned := map[int]bool{}
+	for e := range ne {
+		_, z0, z1 := m.span(e)
+		zc := (z0 + z1) / 2
+		s0 := math.Max(m.interpolate(st.Effective, zc), minEffective)
+		subs[e] = sublayer{z: zc, h: z1 - z0, s0: s0, sig: s0}
+		l := &p.Layers[m.layer[e]]
+		if l.ECurve == nil {
+			continue
+		}
+		if l.ECurve.SigmaP > 0 && l.ECurve.SigmaP < s0 && !warned[m.layer[e]] {
+			warned[m.layer[e]] = true
+			warn(fmt.Sprintf("layers[%d].ecurve.sigmaP", m.layer[e]), fmt.Sprintf("σ'p = %g kPa is below the in-situ effective stress (%.3g kPa at %.3g m); taken as normally consolidated there", l.ECurve.SigmaP, s0, zc))
+		}
+		subs[e].curve = l.ECurve
+		subs[e].peak = preconsolidation(l.ECurve, s0)
+	}
 	if anyCurve {
-		subs = make([]sublayer, ne)
+		// The fully drained path through every breakpoint: the secant mv
+		// of layers that give none comes from it.
+		final := append([]sublayer(nil), subs...)
 		stress := make([]float64, n)
-		warned := map[int]bool{}
-		for e := range ne {
-			_, z0, z1 := m.span(e)
-			zc := (z0 + z1) / 2
-			l := &p.Layers[m.layer[e]]
-			if l.ECurve == nil {
-				continue
-			}
-			s0 := math.Max(m.interpolate(st.Effective, zc), minEffective)
-			if l.ECurve.SigmaP > 0 && l.ECurve.SigmaP < s0 && !warned[m.layer[e]] {
-				warned[m.layer[e]] = true
-				warn(fmt.Sprintf("layers[%d].ecurve.sigmaP", m.layer[e]), fmt.Sprintf("σ'p = %g kPa is below the in-situ effective stress (%.3g kPa at %.3g m); taken as normally consolidated there", l.ECurve.SigmaP, s0, zc))
-			}
-			subs[e] = sublayer{curve: l.ECurve, z: zc, h: z1 - z0, s0: s0, sig: s0, peak: preconsolidation(l.ECurve, s0)}
-		}
-		final := subs
-		if allCurves {
-			final = append([]sublayer(nil), subs...)
-		}
 		for _, b := range bps {
 			tr.stressAt(stress, b.t, false)
 			for e := range final {
@@ -66,9 +67,6 @@ func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path
 				elogLayer[m.layer[e]] += final[e].settlement()
 				drainedDelta[m.layer[e]] += (m.interpolate(sigInf, final[e].z) - m.interpolate(uInf, final[e].z)) * final[e].h
 			}
-		}
-		if !allCurves {
-			subs = nil
 		}
 	}
 
@@ -97,14 +95,10 @@ func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path
 	tr.setMv(mv)
 
 	// Summary per layer.
-	sumLin, sumElog := 0.0, 0.0
+	sumLin := 0.0
 	r.Summary.Layers = make([]LayerSummary, len(p.Layers))
 	for i, l := range p.Layers {
 		ls := LayerSummary{Name: l.Name, Mv: mv[i], Cv: cvPerDay(l.K, mv[i], c.gw)}
-		if l.ECurve != nil {
-			ls.SettlementElog = ptr(elogLayer[i])
-			sumElog += elogLayer[i]
-		}
 		r.Summary.Layers[i] = ls
 		r.Steady.Layers[i].Cv = ptr(ls.Cv)
 	}
@@ -114,9 +108,6 @@ func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path
 		sumLin += layerLin[i]
 	}
 	r.Summary.SettlementLinear = ptr(sumLin)
-	if allCurves {
-		r.Summary.SettlementElog = ptr(sumElog)
-	}
 
 	// Time loop.
 	res := &Consolidation{Depth: append([]float64(nil), m.z...), Start: tr.startText()}
@@ -153,18 +144,20 @@ func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path
 			ser.Us = append(ser.Us, sNow/denS)
 			ser.Up = append(ser.Up, pNow/denP)
 		}
-		if subs != nil {
-			total := 0.0
-			for e := range subs {
-				s := &subs[e]
-				to := s.s0 + m.interpolate(tr.sigma, s.z) - m.interpolate(tr.u, s.z)
-				if to < 0 && !negWarned {
-					negWarned = true
-					warn("loads", fmt.Sprintf("the effective stress falls below zero at %.3g m near %.4g days: the soil would lose contact (heave); results there are not physical", s.z, t))
-				}
+		total := 0.0
+		for e := range subs {
+			s := &subs[e]
+			to := s.s0 + m.interpolate(tr.sigma, s.z) - m.interpolate(tr.u, s.z)
+			if to < 0 && !negWarned {
+				negWarned = true
+				warn("loads", fmt.Sprintf("the effective stress falls below zero at %.3g m near %.4g days: the soil would lose contact (heave); results there are not physical", s.z, t))
+			}
+			if s.curve != nil {
 				s.moveTo(to)
 				total += s.settlement()
 			}
+		}
+		if allCurves {
 			ser.SettlementElog = append(ser.SettlementElog, total)
 		}
 		for i := range piezo {
@@ -241,6 +234,25 @@ func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path
 				return ErrCanceled
 			}
 		}
+	}
+	// The e–log settlement follows the effective stress the consolidation
+	// gave at every step, so a surcharge removed early counts only for
+	// the compression it caused.
+	clear(elogLayer)
+	for e := range subs {
+		if subs[e].curve != nil {
+			elogLayer[m.layer[e]] += subs[e].settlement()
+		}
+	}
+	sumElog := 0.0
+	for i, l := range p.Layers {
+		if l.ECurve != nil {
+			r.Summary.Layers[i].SettlementElog = ptr(elogLayer[i])
+			sumElog += elogLayer[i]
+		}
+	}
+	if allCurves {
+		r.Summary.SettlementElog = ptr(sumElog)
 	}
 	r.Stats.Steps = steps
 	r.Stats.Factorizations = tr.factors
