@@ -122,11 +122,11 @@
 // consolidation gives at every step, so a surcharge removed before it has
 // consolidated counts only for the compression it caused; the final figure
 // is the value at the end of the simulation (a warning says when
-// consolidation is not complete by then). Where a layer gives no mv, it is the secant of its
-// e–log curve over the final stress change along the fully drained path
-// through every load breakpoint. Secondary compression (Mesri
-// 1973) is Cα H/(1+ep) log10(t/tp) per layer at Project.DesignLife, with tp
-// the time at which Us reaches 95 %.
+// consolidation is not complete by then). Where a layer gives no mv, it is
+// the secant of its e–log curve over the final stress change along the
+// fully drained path through every load breakpoint. Secondary compression
+// (Mesri 1973) is Cα H/(1+ep) log10(t/tp) per layer at Project.DesignLife,
+// with tp the time at which Us reaches 95 %.
 //
 // # File format
 //
