@@ -171,10 +171,10 @@ func PiezometersFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
 	for i, pz := range s.Piezometers {
 		at := "z = " + sig(pz.Depth, 3) + " m"
 		st := styleAt(i)
-		f.addSeries(pn, clip, at+", reading", st, s.Time, pz.Pore, readTime("u", " kPa", 3))
+		f.addSeries(pn, clip, at+", u", st, s.Time, pz.Pore, readTime("u", " kPa", 3))
 		ex := withDash(st, excessDash)
 		ex.Width = math.Max(1.25, st.Width-0.5)
-		f.addSeries(pn, clip, at+", excess", ex, s.Time, pz.Excess, readTime("Δu", " kPa", 3))
+		f.addSeries(pn, clip, at+", Δu excess", ex, s.Time, pz.Excess, readTime("Δu", " kPa", 3))
 	}
 	f.legend(f.W-legendW+8, timeTop+8, legendW-12, int((f.H-timeTop-20)/16), f.allSeries())
 	return f
