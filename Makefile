@@ -6,12 +6,13 @@ GOROOT  := $(shell $(GO) env GOROOT)
 BUILD   := static/build
 WASM    := $(BUILD)/porelight.wasm
 PAGE    := $(BUILD)/porelight.html
+WASMEXEC := $(GOROOT)/lib/wasm/go_js_wasm_exec
 
-.PHONY: all build run test test-native test-wasm vet gen gen-check bench clean
+.PHONY: all build page wasm run test test-native test-wasm vet gen gen-check e2e bench clean
 
 all: build
 
-test: vet test-native test-wasm
+test: vet test-native test-wasm gen-check page e2e
 
 vet:
 	@bad=$$(gofmt -l $$(git ls-files '*.go' 2>/dev/null || find . -name '*.go')); \
@@ -19,11 +20,45 @@ vet:
 	$(GO) vet ./...
 	GOOS=js GOARCH=wasm $(GO) vet ./...
 
+# -short skips the browser tests here; `e2e` runs them on the built page.
 test-native:
-	$(GO) test -count=1 ./...
+	$(GO) test -short -count=1 ./...
 
+# Package tests of the js/wasm build under node (skipped without node).
 test-wasm:
-	GOOS=js GOARCH=wasm $(GO) build -o /dev/null ./...
+	@if command -v node >/dev/null; then \
+		echo 'GOOS=js GOARCH=wasm $(GO) test -exec=$(WASMEXEC) ./wasm/... ./ui/...'; \
+		GOOS=js GOARCH=wasm $(GO) test -count=1 -exec="$(WASMEXEC)" ./wasm/... ./ui/...; \
+	else echo "node not found: skipping the js/wasm package tests"; fi
+
+# Regenerate the vugu components' Go code (committed; see DEVELOPERS.md).
+gen:
+	rm -f ui/*_gen.go ui/plot/*_gen.go
+	$(GO) generate ./ui/...
+
+# Fails when the committed generated code differs from a fresh generation.
+gen-check: gen
+	@git diff --exit-code -- ui || { echo "generated code is stale: run 'make gen' and commit"; exit 1; }
+	@untracked=$$(git ls-files --others --exclude-standard -- 'ui/*_gen.go'); \
+	if [ -n "$$untracked" ]; then echo "generated files not committed: $$untracked"; exit 1; fi
+
+wasm:
+	@mkdir -p $(BUILD)
+	GOOS=js GOARCH=wasm $(GO) build -trimpath -ldflags="-s -w" -o $(WASM) ./wasm
+
+page build: wasm
+	$(GO) run ./static/pack -wasm $(WASM) -wasmexec "$(GOROOT)/lib/wasm/wasm_exec.js" \
+		-vugu "$$($(GO) list -m -f '{{.Dir}}' github.com/vugu/vugu)" \
+		-demo testdata/demo.json -o $(PAGE)
+
+run: build
+	@if command -v xdg-open >/dev/null; then xdg-open $(PAGE) >/dev/null 2>&1 & \
+	else echo "open $(CURDIR)/$(PAGE) in a browser"; fi
+
+# Browser tests of the built page in headless Chromium. They skip when no
+# browser is found, and fail instead when CI or E2E is set.
+e2e:
+	$(GO) test -count=1 -run 'E2E' -v ./static
 
 bench:
 	$(GO) test -run '^$$' -bench . -benchmem ./solver

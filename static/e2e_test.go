@@ -1,0 +1,443 @@
+//go:build !(js && wasm)
+
+package static_test
+
+// Browser end-to-end tests of the built page (make page) in headless
+// Chromium. They skip in -short mode, and when no browser or no built page
+// is found, unless CI or E2E is set: then they fail instead.
+
+import (
+	"context"
+	"fmt"
+	"math"
+	"os"
+	"os/exec"
+	"path/filepath"
+	"slices"
+	"strconv"
+	"strings"
+	"sync"
+	"testing"
+	"time"
+
+	"github.com/chromedp/cdproto/cdp"
+	"github.com/chromedp/cdproto/emulation"
+	cdplog "github.com/chromedp/cdproto/log"
+	"github.com/chromedp/cdproto/network"
+	"github.com/chromedp/cdproto/runtime"
+	"github.com/chromedp/chromedp"
+
+	"porelight/solver"
+)
+
+const pagePath = "build/porelight.html"
+
+func required() bool { return os.Getenv("CI") != "" || os.Getenv("E2E") != "" }
+
+func findBrowser() string {
+	if p := os.Getenv("CHROME_PATH"); p != "" {
+		return p
+	}
+	for _, name := range []string{"chromium", "chromium-browser", "google-chrome", "google-chrome-stable"} {
+		if p, err := exec.LookPath(name); err == nil {
+			return p
+		}
+	}
+	return ""
+}
+
+// recorder collects what the page says and asks for while it runs.
+type recorder struct {
+	mu       sync.Mutex
+	requests []string
+	problems []string // console errors and warnings, exceptions, error log entries
+}
+
+func (r *recorder) listen(ev any) {
+	r.mu.Lock()
+	defer r.mu.Unlock()
+	switch e := ev.(type) {
+	case *network.EventRequestWillBeSent:
+		r.requests = append(r.requests, e.Request.URL)
+	case *runtime.EventConsoleAPICalled:
+		var parts []string
+		for _, a := range e.Args {
+			parts = append(parts, strings.Trim(string(a.Value), `"`)+a.Description)
+		}
+		msg := strings.Join(parts, " ")
+		if e.Type == runtime.ConsoleAPICalledTypeError || e.Type == runtime.ConsoleAPICalledTypeWarning ||
+			strings.Contains(msg, "panic") {
+			r.problems = append(r.problems, fmt.Sprintf("console.%s: %s", e.Type, msg))
+		}
+	case *runtime.EventExceptionThrown:
+		d := e.ExceptionDetails
+		msg := d.Text
+		if d.Exception != nil {
+			msg += " " + d.Exception.Description
+		}
+		r.problems = append(r.problems, "exception: "+msg)
+	case *cdplog.EventEntryAdded:
+		if e.Entry.Level == cdplog.EntryLevelError || e.Entry.Level == cdplog.EntryLevelWarning {
+			r.problems = append(r.problems, fmt.Sprintf("log %s: %s %s", e.Entry.Source, e.Entry.Text, e.Entry.URL))
+		}
+	}
+}
+
+// forget drops the problems that mention s.
+func (r *recorder) forget(s string) {
+	r.mu.Lock()
+	defer r.mu.Unlock()
+	r.problems = slices.DeleteFunc(r.problems, func(p string) bool { return strings.Contains(p, s) })
+}
+
+func (r *recorder) snapshot() (requests, problems []string) {
+	r.mu.Lock()
+	defer r.mu.Unlock()
+	return append([]string(nil), r.requests...), append([]string(nil), r.problems...)
+}
+
+// browser starts headless Chromium with a fresh profile and listens to
+// the page. The first action starts the browser and carries no timeout.
+func browser(t *testing.T, rec *recorder) context.Context {
+	t.Helper()
+	exe := findBrowser()
+	if exe == "" {
+		if required() {
+			t.Fatal("no Chromium found (set CHROME_PATH); CI/E2E require the browser tests")
+		}
+		t.Skip("no Chromium found; set CHROME_PATH, or CI=1 to require these tests")
+	}
+	profile, err := os.MkdirTemp("", "porelight-chromium-")
+	if err != nil {
+		t.Fatal(err)
+	}
+	alloc, cancelAlloc := chromedp.NewExecAllocator(context.Background(),
+		chromedp.ExecPath(exe), chromedp.Headless, chromedp.NoSandbox, chromedp.DisableGPU,
+		chromedp.NoFirstRun, chromedp.NoDefaultBrowserCheck,
+		chromedp.Flag("disable-quic", true),
+		chromedp.Flag("disable-background-networking", true),
+		chromedp.Flag("disable-component-update", true),
+		chromedp.Flag("disable-sync", true),
+		chromedp.WindowSize(1500, 1000),
+		chromedp.UserDataDir(profile))
+	ctx, cancel := chromedp.NewContext(alloc, chromedp.WithListener(rec.listen))
+	t.Cleanup(func() {
+		done := make(chan struct{})
+		go func() {
+			defer close(done)
+			cctx, ccancel := context.WithTimeout(ctx, 10*time.Second)
+			defer ccancel()
+			_ = chromedp.Cancel(cctx)
+		}()
+		select {
+		case <-done:
+		case <-time.After(15 * time.Second):
+			t.Log("the browser did not stop in time")
+		}
+		cancel()
+		cancelAlloc()
+		_ = os.RemoveAll(profile)
+	})
+	err = chromedp.Do(ctx, chromedp.Func(func(ctx context.Context, tg *chromedp.Target) error {
+		if _, err := cdp.Call(ctx, tg, network.Enable, network.EnableParams{}); err != nil {
+			return err
+		}
+		_, err := cdp.Call(ctx, tg, cdplog.Enable, cdp.Empty{})
+		return err
+	}))
+	if err != nil {
+		t.Fatal(err)
+	}
+	return ctx
+}
+
+// within runs actions with a time limit.
+func within(t *testing.T, ctx context.Context, d time.Duration, actions ...chromedp.Action[chromedp.Void]) {
+	t.Helper()
+	c, cancel := context.WithTimeout(ctx, d)
+	defer cancel()
+	if err := chromedp.Do(c, actions...); err != nil {
+		t.Fatal(err)
+	}
+}
+
+func eval[T any](t *testing.T, ctx context.Context, js string) T {
+	t.Helper()
+	c, cancel := context.WithTimeout(ctx, 20*time.Second)
+	defer cancel()
+	v, err := chromedp.Run(c, chromedp.Evaluate[T](js))
+	if err != nil {
+		t.Fatalf("%s: %v", js, err)
+	}
+	return v
+}
+
+// poll waits until the JavaScript expression is truthy and returns it.
+func poll[T any](t *testing.T, ctx context.Context, js string, d time.Duration) T {
+	t.Helper()
+	c, cancel := context.WithTimeout(ctx, d+5*time.Second)
+	defer cancel()
+	v, err := chromedp.Run(c, chromedp.Poll[T](js, chromedp.WithPollingTimeout(d)))
+	if err != nil {
+		t.Fatalf("waiting for %s: %v", js, err)
+	}
+	return v
+}
+
+// dataValue is the full-precision number behind a summary figure.
+func dataValue(t *testing.T, ctx context.Context, id string) float64 {
+	t.Helper()
+	s := eval[string](t, ctx, fmt.Sprintf(`document.getElementById(%q)?.dataset.value ?? ""`, id))
+	x, err := strconv.ParseFloat(s, 64)
+	if err != nil {
+		t.Fatalf("#%s data-value %q: %v", id, s, err)
+	}
+	return x
+}
+
+// typeInto replaces the text of an input as a user would: select it all,
+// then type.
+func typeInto(t *testing.T, ctx context.Context, id, text string) {
+	t.Helper()
+	within(t, ctx, 20*time.Second,
+		chromedp.Evaluate[chromedp.Void](fmt.Sprintf(`document.getElementById(%q).select()`, id)),
+		chromedp.SendKeys(chromedp.ID(id), text))
+}
+
+func screenshot(t *testing.T, ctx context.Context, dir, name string) {
+	t.Helper()
+	c, cancel := context.WithTimeout(ctx, 30*time.Second)
+	defer cancel()
+	png, err := chromedp.Run(c, chromedp.FullScreenshot(100))
+	if err != nil {
+		t.Fatal(err)
+	}
+	path := filepath.Join(dir, name)
+	if err := os.WriteFile(path, png, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	t.Logf("screenshot: %s", path)
+}
+
+func near(a, b, rel float64) bool {
+	return math.Abs(a-b) <= rel*math.Max(math.Abs(a), math.Abs(b))
+}
+
+// TestE2EPage opens the built page from disk and works it as a user would.
+func TestE2EPage(t *testing.T) {
+	if testing.Short() {
+		t.Skip("browser tests are skipped in -short mode")
+	}
+	pageBytes, err := os.ReadFile(pagePath) // also keys go test's cache on the page
+	if err != nil {
+		if required() {
+			t.Fatalf("%v: run `make page` first", err)
+		}
+		t.Skipf("%v: run `make page` first", err)
+	}
+	if !strings.Contains(string(pageBytes), `http-equiv="Content-Security-Policy"`) {
+		t.Fatal("the page has no Content-Security-Policy")
+	}
+	abs, err := filepath.Abs(pagePath)
+	if err != nil {
+		t.Fatal(err)
+	}
+	pageURL := "file://" + abs
+	demo, err := os.ReadFile("../testdata/demo.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	shots, err := os.MkdirTemp("", "porelight-e2e-")
+	if err != nil {
+		t.Fatal(err)
+	}
+	t.Logf("screenshots go to %s", shots)
+
+	rec := &recorder{}
+	ctx := browser(t, rec)
+	within(t, ctx, 60*time.Second, chromedp.Navigate(pageURL))
+	// The listener must hear the console, or "no console errors" below
+	// would pass on deaf ears: send a marked warning and wait for it.
+	eval[chromedp.Void](t, ctx, `console.warn("e2e-probe")`)
+	for deadline := time.Now().Add(5 * time.Second); ; {
+		if _, ps := rec.snapshot(); slices.ContainsFunc(ps, func(p string) bool { return strings.Contains(p, "e2e-probe") }) {
+			rec.forget("e2e-probe")
+			break
+		}
+		if time.Now().After(deadline) {
+			t.Fatal("the console listener did not hear a console.warn")
+		}
+		time.Sleep(50 * time.Millisecond)
+	}
+
+	// The demo renders: results, then a plot with drawn curves.
+	poll[bool](t, ctx, `!!document.getElementById("sum-flux")?.dataset.value`, 45*time.Second)
+	native, err := solver.Solve(mustDecode(t, demo), nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	plotID := "plot-steady"
+	if native.Consolidation != nil {
+		plotID = "plot-isochrones"
+	}
+	if n := poll[int](t, ctx, fmt.Sprintf(`document.querySelectorAll("#%s path[d^='M']").length`, plotID), 20*time.Second); n < 3 {
+		t.Errorf("#%s has %d drawn paths", plotID, n)
+	}
+	if got := eval[string](t, ctx, `document.getElementById("layers-1-name").value`); got != mustDecode(t, demo).Layers[1].Name {
+		t.Errorf("layer 2 name input shows %q", got)
+	}
+
+	t.Run("matches the native solver", func(t *testing.T) {
+		checks := []struct {
+			id   string
+			want *float64
+		}{
+			{"sum-flux", &native.Summary.Flux},
+			{"sum-settlement-linear", native.Summary.SettlementLinear},
+			{"sum-t90", native.Summary.T90},
+		}
+		for _, c := range checks {
+			if c.want == nil {
+				continue
+			}
+			if got := dataValue(t, ctx, c.id); !near(got, *c.want, 1e-9) {
+				t.Errorf("#%s = %g in the page, %g natively", c.id, got, *c.want)
+			}
+		}
+	})
+	screenshot(t, ctx, shots, "1-demo.png")
+
+	flux0 := dataValue(t, ctx, "sum-flux")
+	t.Run("an edit re-solves", func(t *testing.T) {
+		typeInto(t, ctx, "layers-1-k", "6e-9")
+		poll[bool](t, ctx, fmt.Sprintf(`document.getElementById("sum-flux").dataset.value !== %q`, strconv.FormatFloat(flux0, 'g', -1, 64)), 20*time.Second)
+		p := mustDecode(t, demo)
+		p.Layers[1].K = 6e-9
+		want, err := solver.Solve(p, nil)
+		if err != nil {
+			t.Fatal(err)
+		}
+		poll[bool](t, ctx, `document.getElementById("status").textContent.includes("up to date")`, 20*time.Second)
+		if got := dataValue(t, ctx, "sum-flux"); !near(got, want.Summary.Flux, 1e-9) {
+			t.Errorf("flux after the edit %g, natively %g", got, want.Summary.Flux)
+		}
+	})
+
+	t.Run("a wrong value keeps the results", func(t *testing.T) {
+		before := dataValue(t, ctx, "sum-flux")
+		typeInto(t, ctx, "layers-1-thickness", "4,5m")
+		msg := poll[string](t, ctx, `document.getElementById("layers-1-thickness-err")?.textContent`, 10*time.Second)
+		if msg != "not a number" {
+			t.Errorf("field error %q", msg)
+		}
+		if got := eval[string](t, ctx, `document.getElementById("layers-1-thickness").value`); got != "4,5m" {
+			t.Errorf("the input shows %q, not what was typed", got)
+		}
+		time.Sleep(600 * time.Millisecond) // longer than the pause before a solve
+		if got := dataValue(t, ctx, "sum-flux"); got != before {
+			t.Errorf("flux changed to %g while an input is wrong (was %g)", got, before)
+		}
+		if s := eval[string](t, ctx, `document.getElementById("status").textContent`); !strings.Contains(s, "last valid inputs") {
+			t.Errorf("status %q", s)
+		}
+		screenshot(t, ctx, shots, "2-field-error.png")
+		typeInto(t, ctx, "layers-1-thickness", "4")
+		poll[bool](t, ctx, `!document.getElementById("layers-1-thickness-err")`, 10*time.Second)
+	})
+
+	t.Run("a malformed file is refused", func(t *testing.T) {
+		bad := filepath.Join(t.TempDir(), "broken.json")
+		if err := os.WriteFile(bad, []byte(`{"format": "porelight/1", "layers": [`), 0o644); err != nil {
+			t.Fatal(err)
+		}
+		title := eval[string](t, ctx, `document.getElementById("title").value`)
+		within(t, ctx, 20*time.Second, chromedp.SetUploadFiles(chromedp.ID("open-file"), []string{bad}))
+		msg := poll[string](t, ctx, `[...document.querySelectorAll(".pl-notice-error")].map(e => e.textContent).join(" ")`, 10*time.Second)
+		if !strings.Contains(msg, "broken.json") || !strings.Contains(msg, "not valid JSON") {
+			t.Errorf("error notice %q", msg)
+		}
+		if got := eval[string](t, ctx, `document.getElementById("title").value`); got != title {
+			t.Errorf("title became %q", got)
+		}
+	})
+
+	t.Run("script API", func(t *testing.T) {
+		got := eval[string](t, ctx, `(() => {
+			const r = JSON.parse(porelight.solve(porelight.demo()));
+			const bad = JSON.parse(porelight.solve('{"format": "porelight/1", "layers": 3}'));
+			return porelight.version + "|" + (typeof r.summary.flux) + "|" + bad.error.problems[0].path;
+		})()`)
+		if parts := strings.Split(got, "|"); len(parts) != 3 || parts[0] == "" || parts[1] != "number" || parts[2] != "layers" {
+			t.Errorf("porelight API answered %q", got)
+		}
+	})
+
+	t.Run("share link", func(t *testing.T) {
+		within(t, ctx, 10*time.Second, chromedp.Click(chromedp.ID("share-link")))
+		link := poll[string](t, ctx, `document.getElementById("share-url")?.value`, 10*time.Second)
+		if !strings.HasPrefix(link, pageURL+"#p=") {
+			t.Fatalf("share link %.80q…", link)
+		}
+		k := eval[string](t, ctx, `document.getElementById("layers-1-k").value`)
+		within(t, ctx, 60*time.Second, chromedp.Navigate("about:blank"), chromedp.Navigate(link))
+		poll[bool](t, ctx, `!!document.getElementById("sum-flux")?.dataset.value`, 45*time.Second)
+		if got := eval[string](t, ctx, `document.getElementById("notices").textContent`); !strings.Contains(got, "from the link") {
+			t.Errorf("notices %q", got)
+		}
+		if got := eval[string](t, ctx, `document.getElementById("layers-1-k").value`); got != k {
+			t.Errorf("k from the link %q, want %q", got, k)
+		}
+		if got := eval[string](t, ctx, `location.hash`); got != "" {
+			t.Errorf("the fragment stayed after opening the link: %.40q", got)
+		}
+	})
+
+	t.Run("print view", func(t *testing.T) {
+		within(t, ctx, 10*time.Second, chromedp.Func(func(ctx context.Context, tg *chromedp.Target) error {
+			_, err := cdp.Call(ctx, tg, emulation.SetEmulatedMedia, emulation.SetEmulatedMediaParams{Media: "print"})
+			return err
+		}))
+		if got := eval[string](t, ctx, `getComputedStyle(document.querySelector(".pl-tools")).display`); got != "none" {
+			t.Errorf("the toolbar prints (display %s)", got)
+		}
+		screenshot(t, ctx, shots, "3-print.png")
+		within(t, ctx, 10*time.Second, chromedp.Func(func(ctx context.Context, tg *chromedp.Target) error {
+			_, err := cdp.Call(ctx, tg, emulation.SetEmulatedMedia, emulation.SetEmulatedMediaParams{Media: ""})
+			return err
+		}))
+	})
+
+	t.Run("sandboxed frame", func(t *testing.T) {
+		// The page inside <iframe sandbox="allow-scripts">: an opaque
+		// origin without storage. It must still start and solve.
+		wrap := filepath.Join(shots, "frame.html")
+		html := `<!doctype html><meta charset="utf-8"><title>frame</title><body style="margin:0">` +
+			`<iframe id="f" sandbox="allow-scripts" style="width:1480px;height:980px;border:0" src="` + pageURL + `"></iframe>`
+		if err := os.WriteFile(wrap, []byte(html), 0o644); err != nil {
+			t.Fatal(err)
+		}
+		within(t, ctx, 60*time.Second, chromedp.Navigate("file://"+wrap))
+		time.Sleep(4 * time.Second) // the frame is cross-origin: its DOM cannot be polled from here
+		screenshot(t, ctx, shots, "4-frame.png")
+	})
+
+	requests, problems := rec.snapshot()
+	for _, u := range requests {
+		if !strings.HasPrefix(u, "file://") && !strings.HasPrefix(u, "data:") && !strings.HasPrefix(u, "blob:") {
+			t.Errorf("network request to %s", u)
+		}
+	}
+	for _, p := range problems {
+		t.Errorf("%s", p)
+	}
+	t.Logf("%d requests, all local: %v", len(requests), requests)
+}
+
+func mustDecode(t *testing.T, data []byte) *solver.Project {
+	t.Helper()
+	p, err := solver.Decode(data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return p
+}

@@ -1,0 +1,162 @@
+// Package static builds the single self-contained Porelight page and
+// holds its browser end-to-end tests.
+//
+// Pack writes one HTML file that carries everything inline: the CSS, the
+// demo project, the renderer's helper script, Go's wasm_exec.js, the
+// gzipped and base64-encoded WebAssembly program and the boot script. A
+// Content-Security-Policy meta tag forbids every network request, so the
+// page works the same from disk, from a static server and in a sandboxed
+// frame. The command in ./pack runs it for `make page`.
+package static
+
+import (
+	"bytes"
+	"compress/gzip"
+	_ "embed"
+	"encoding/base64"
+	"errors"
+	"fmt"
+	"go/ast"
+	"go/parser"
+	"go/token"
+	"path/filepath"
+	"strconv"
+	"strings"
+	"text/template"
+)
+
+// CSP is the page's Content-Security-Policy: inline scripts and styles,
+// WebAssembly compilation, data: images and blob: workers; nothing else,
+// and in particular no connection of any kind. 'unsafe-eval' is not
+// needed: see HelperMark.
+const CSP = "default-src 'none'; script-src 'unsafe-inline' 'wasm-unsafe-eval'; style-src 'unsafe-inline'; " +
+	"img-src data: blob:; worker-src blob:; connect-src 'none'; form-action 'none'; base-uri 'none'"
+
+// HelperMark is how the vugu renderer's helper script starts. The page
+// runs the script inline, and the boot script answers the renderer's own
+// eval of it, so the page does without 'unsafe-eval'. Pack refuses a
+// helper that does not start so (a vugu upgrade that changed it).
+const HelperMark = "(function(){if(window.vuguRender)return;"
+
+var (
+	//go:embed shell/page.html
+	pageHTML string
+	//go:embed shell/page.css
+	pageCSS string
+	//go:embed shell/boot.js
+	bootJS string
+)
+
+// Inputs are the parts of the page.
+type Inputs struct {
+	Wasm       []byte // the js/wasm program, uncompressed
+	WasmExec   []byte // $(go env GOROOT)/lib/wasm/wasm_exec.js of the toolchain that built Wasm
+	VuguHelper string // the renderer's helper script (see HelperScript)
+	Demo       []byte // the demo project JSON
+}
+
+// Pack returns the page. It fails when a part would end its inline
+// <script> or <style> early.
+func Pack(in Inputs) ([]byte, error) {
+	if len(in.Wasm) < 8 || !bytes.Equal(in.Wasm[:4], []byte("\x00asm")) {
+		return nil, errors.New("pack: the program is not WebAssembly")
+	}
+	if !strings.HasPrefix(in.VuguHelper, HelperMark) {
+		return nil, errors.New("pack: the renderer's helper script does not start as expected; check the vugu version")
+	}
+	var gz bytes.Buffer
+	zw, err := gzip.NewWriterLevel(&gz, gzip.BestCompression)
+	if err != nil {
+		return nil, err
+	}
+	if _, err := zw.Write(in.Wasm); err != nil {
+		return nil, err
+	}
+	if err := zw.Close(); err != nil {
+		return nil, err
+	}
+	parts := map[string]string{
+		"demo project":  string(in.Demo),
+		"helper script": in.VuguHelper,
+		"wasm_exec.js":  string(in.WasmExec),
+		"boot script":   bootJS,
+		"stylesheet":    pageCSS,
+	}
+	for name, s := range parts {
+		if err := inlineSafe(s); err != nil {
+			return nil, fmt.Errorf("pack: %s: %w", name, err)
+		}
+	}
+	t, err := template.New("page").Parse(pageHTML)
+	if err != nil {
+		return nil, err
+	}
+	var out bytes.Buffer
+	err = t.Execute(&out, map[string]string{
+		"CSP":        CSP,
+		"CSS":        pageCSS,
+		"Demo":       strings.TrimSpace(string(in.Demo)),
+		"VuguHelper": in.VuguHelper,
+		"WasmExec":   string(in.WasmExec),
+		"WasmGz":     wrap(base64.StdEncoding.EncodeToString(gz.Bytes()), 120),
+		"Boot":       bootJS,
+	})
+	if err != nil {
+		return nil, err
+	}
+	return out.Bytes(), nil
+}
+
+// inlineSafe refuses text that would close its <script> or <style> early
+// or open an HTML comment inside a script.
+func inlineSafe(s string) error {
+	low := strings.ToLower(s)
+	for _, bad := range []string{"</script", "</style", "<!--"} {
+		if i := strings.Index(low, bad); i >= 0 {
+			return fmt.Errorf("contains %q at byte %d", bad, i)
+		}
+	}
+	return nil
+}
+
+func wrap(s string, n int) string {
+	var b strings.Builder
+	for len(s) > n {
+		b.WriteString(s[:n])
+		b.WriteByte('\n')
+		s = s[n:]
+	}
+	b.WriteString(s)
+	return b.String()
+}
+
+// HelperScript reads the renderer's helper script, the string constant
+// jsHelperScript in domrender/renderer-js-script.go of the vugu module at
+// vuguDir.
+func HelperScript(vuguDir string) (string, error) {
+	file := filepath.Join(vuguDir, "domrender", "renderer-js-script.go")
+	f, err := parser.ParseFile(token.NewFileSet(), file, nil, 0)
+	if err != nil {
+		return "", err
+	}
+	for _, d := range f.Decls {
+		g, ok := d.(*ast.GenDecl)
+		if !ok || g.Tok != token.CONST {
+			continue
+		}
+		for _, spec := range g.Specs {
+			vs := spec.(*ast.ValueSpec)
+			for i, name := range vs.Names {
+				if name.Name != "jsHelperScript" || i >= len(vs.Values) {
+					continue
+				}
+				lit, ok := vs.Values[i].(*ast.BasicLit)
+				if !ok || lit.Kind != token.STRING {
+					return "", fmt.Errorf("%s: jsHelperScript is not a string literal", file)
+				}
+				return strconv.Unquote(lit.Value)
+			}
+		}
+	}
+	return "", fmt.Errorf("%s: no constant jsHelperScript", file)
+}

@@ -1,0 +1,89 @@
+package ui
+
+import (
+	"reflect"
+
+	"github.com/vugu/vugu"
+)
+
+// Field is one input of the project: it shows the text typed (or the
+// value), its unit, and the problem with it, if any. Its element id is
+// IDOf(Path); the problem's is that plus "-err".
+type Field struct {
+	F    *Form  // the form the value lives in
+	Path string // field path, e.g. "layers[2].k"
+	// Label names the value for screen readers and tooltips; Unit is
+	// shown beside the input unless Bare (a table states it in the
+	// column head instead). Hint is an optional tooltip.
+	Label string
+	Unit  string
+	Hint  string
+	Bare  bool
+	Wide  bool
+	// Changed is called after every edit, valid or not.
+	Changed func()
+}
+
+func (c *Field) id() string      { return IDOf(c.Path) }
+func (c *Field) errID() string   { return IDOf(c.Path) + "-err" }
+func (c *Field) problem() string { return c.F.Problem(c.Path) }
+func (c *Field) showUnit() bool  { return c.Unit != "" && !c.Bare }
+
+func (c *Field) class() string {
+	s := "pl-field"
+	if c.Wide {
+		s += " pl-wide"
+	}
+	if leafKind(c.Path) == reflect.String {
+		s += " pl-textfield"
+	}
+	if c.problem() != "" {
+		s += " pl-bad"
+	}
+	return s
+}
+
+func (c *Field) inputMode() string {
+	if leafKind(c.Path) == reflect.String {
+		return "text"
+	}
+	return "decimal"
+}
+
+func (c *Field) placeholder() any {
+	if h, ok := defaultHint(c.Path); ok {
+		return h
+	}
+	if isPointerLeaf(c.Path) {
+		return "hydrostatic"
+	}
+	return nil
+}
+
+func (c *Field) ariaLabel() string {
+	if c.Unit == "" || c.Unit == "–" {
+		return c.Label
+	}
+	return c.Label + " (" + c.Unit + ")"
+}
+
+func (c *Field) invalid() any {
+	if c.problem() != "" {
+		return "true"
+	}
+	return nil
+}
+
+func (c *Field) describedBy() any {
+	if c.problem() != "" {
+		return c.errID()
+	}
+	return nil
+}
+
+func (c *Field) onInput(e vugu.DOMEvent) {
+	c.F.Edit(c.Path, e.PropString("target", "value"))
+	if c.Changed != nil {
+		c.Changed()
+	}
+}

@@ -1,0 +1,259 @@
+package ui
+
+import (
+	"fmt"
+	"reflect"
+	"strconv"
+	"strings"
+
+	"porelight/solver"
+)
+
+// A field path names one value of a solver.Project the way solver.Problem
+// does: JSON names joined by dots, list items by [index], e.g.
+// "layers[2].ecurve.cc". The editors key their raw text, their element ids
+// and their problems by it, so a problem from solver.Validate lands on the
+// input that shows the value.
+
+// pathStep is one part of a field path: a JSON name, then an optional index.
+type pathStep struct {
+	name  string
+	index int // -1 when the step has no [index]
+}
+
+func parsePath(path string) ([]pathStep, error) {
+	if path == "" {
+		return nil, fmt.Errorf("empty path")
+	}
+	var steps []pathStep
+	for part := range strings.SplitSeq(path, ".") {
+		st := pathStep{name: part, index: -1}
+		if i := strings.IndexByte(part, '['); i >= 0 {
+			if !strings.HasSuffix(part, "]") {
+				return nil, fmt.Errorf("path %q: unclosed [", path)
+			}
+			n, err := strconv.Atoi(part[i+1 : len(part)-1])
+			if err != nil || n < 0 {
+				return nil, fmt.Errorf("path %q: bad index", path)
+			}
+			st.name, st.index = part[:i], n
+		}
+		if st.name == "" {
+			return nil, fmt.Errorf("path %q: empty name", path)
+		}
+		steps = append(steps, st)
+	}
+	return steps, nil
+}
+
+// fieldByJSON returns the field of struct value v whose JSON name is name.
+func fieldByJSON(v reflect.Value, name string) (reflect.Value, bool) {
+	t := v.Type()
+	for i := range t.NumField() {
+		f := t.Field(i)
+		tag, _, _ := strings.Cut(f.Tag.Get("json"), ",")
+		if tag == name {
+			return v.Field(i), true
+		}
+	}
+	return reflect.Value{}, false
+}
+
+// locate walks p along path. With alloc it allocates nil pointers on the
+// way (to set a value); without, a nil pointer or a missing list item ends
+// the walk with ok == false and present == true only when the value exists.
+func locate(p *solver.Project, path string, alloc bool) (v reflect.Value, present bool, err error) {
+	steps, err := parsePath(path)
+	if err != nil {
+		return reflect.Value{}, false, err
+	}
+	v = reflect.ValueOf(p).Elem()
+	for _, st := range steps {
+		for v.Kind() == reflect.Pointer {
+			if v.IsNil() {
+				if !alloc {
+					return reflect.Value{}, false, nil
+				}
+				v.Set(reflect.New(v.Type().Elem()))
+			}
+			v = v.Elem()
+		}
+		if v.Kind() != reflect.Struct {
+			return reflect.Value{}, false, fmt.Errorf("path %q: %s is not an object", path, st.name)
+		}
+		f, ok := fieldByJSON(v, st.name)
+		if !ok {
+			return reflect.Value{}, false, fmt.Errorf("path %q: no field %s", path, st.name)
+		}
+		v = f
+		if st.index >= 0 {
+			if v.Kind() != reflect.Slice {
+				return reflect.Value{}, false, fmt.Errorf("path %q: %s is not a list", path, st.name)
+			}
+			if st.index >= v.Len() {
+				return reflect.Value{}, false, fmt.Errorf("path %q: no item %d", path, st.index)
+			}
+			v = v.Index(st.index)
+		}
+	}
+	if v.Kind() == reflect.Pointer {
+		if v.IsNil() {
+			if !alloc {
+				return reflect.Value{}, false, nil
+			}
+			v.Set(reflect.New(v.Type().Elem()))
+		}
+		v = v.Elem()
+	}
+	return v, true, nil
+}
+
+// leafKind is the reflect kind of the value at path (String, Float64, Int
+// or Bool), found from the types alone so that absent values have one too.
+func leafKind(path string) reflect.Kind {
+	steps, err := parsePath(path)
+	if err != nil {
+		return reflect.Invalid
+	}
+	t := reflect.TypeFor[solver.Project]()
+	for _, st := range steps {
+		for t.Kind() == reflect.Pointer {
+			t = t.Elem()
+		}
+		if t.Kind() != reflect.Struct {
+			return reflect.Invalid
+		}
+		var found bool
+		for i := range t.NumField() {
+			f := t.Field(i)
+			tag, _, _ := strings.Cut(f.Tag.Get("json"), ",")
+			if tag == st.name {
+				t, found = f.Type, true
+				break
+			}
+		}
+		if !found {
+			return reflect.Invalid
+		}
+		if st.index >= 0 {
+			if t.Kind() != reflect.Slice {
+				return reflect.Invalid
+			}
+			t = t.Elem()
+		}
+	}
+	for t.Kind() == reflect.Pointer {
+		t = t.Elem()
+	}
+	return t.Kind()
+}
+
+// isPointerLeaf reports whether the value at path is held by a pointer, so
+// that an empty entry means "absent" (nil) rather than zero.
+func isPointerLeaf(path string) bool {
+	// Only boundary heads are optional numbers held by pointer.
+	return path == "top.head" || path == "bottom.head"
+}
+
+// getNumber returns the number at path and whether it is present.
+func getNumber(p *solver.Project, path string) (float64, bool) {
+	v, ok, err := locate(p, path, false)
+	if err != nil || !ok {
+		return 0, false
+	}
+	switch v.Kind() {
+	case reflect.Float64:
+		return v.Float(), true
+	case reflect.Int:
+		return float64(v.Int()), true
+	}
+	return 0, false
+}
+
+// getString returns the text at path ("" when absent).
+func getString(p *solver.Project, path string) string {
+	v, ok, err := locate(p, path, false)
+	if err != nil || !ok || v.Kind() != reflect.String {
+		return ""
+	}
+	return v.String()
+}
+
+// setNumber stores x at path, allocating on the way. Setting an e–log
+// parameter creates the layer's ecurve; clearing its last one removes it.
+func setNumber(p *solver.Project, path string, x float64) error {
+	v, _, err := locate(p, path, true)
+	if err != nil {
+		return err
+	}
+	switch v.Kind() {
+	case reflect.Float64:
+		v.SetFloat(x)
+	case reflect.Int:
+		v.SetInt(int64(x))
+	default:
+		return fmt.Errorf("path %q is not a number", path)
+	}
+	tidyECurve(p, path)
+	return nil
+}
+
+// clearNumber makes the value at path absent: nil for a pointer, zero
+// otherwise.
+func clearNumber(p *solver.Project, path string) error {
+	if isPointerLeaf(path) {
+		end, _, _ := strings.Cut(path, ".")
+		b := boundary(p, end)
+		b.Head = nil
+		return nil
+	}
+	v, ok, err := locate(p, path, false)
+	if err != nil {
+		return err
+	}
+	if !ok {
+		return nil
+	}
+	v.Set(reflect.Zero(v.Type()))
+	tidyECurve(p, path)
+	return nil
+}
+
+func setString(p *solver.Project, path, s string) error {
+	v, _, err := locate(p, path, true)
+	if err != nil {
+		return err
+	}
+	if v.Kind() != reflect.String {
+		return fmt.Errorf("path %q is not text", path)
+	}
+	v.SetString(s)
+	return nil
+}
+
+// tidyECurve drops a layer's e–log curve when the edit at path left all of
+// its parameters zero: an empty row of e–log columns means "no curve".
+func tidyECurve(p *solver.Project, path string) {
+	var i int
+	if n, _ := fmt.Sscanf(path, "layers[%d].ecurve.", &i); n != 1 || i < 0 || i >= len(p.Layers) {
+		return
+	}
+	if c := p.Layers[i].ECurve; c != nil && *c == (solver.ECurve{}) {
+		p.Layers[i].ECurve = nil
+	}
+}
+
+func boundary(p *solver.Project, end string) *solver.Boundary {
+	if end == "bottom" {
+		return &p.Bottom
+	}
+	return &p.Top
+}
+
+// IDOf turns a field path into the element id of its input:
+// "layers[2].ecurve.cc" → "layers-2-ecurve-cc". Ids are stable, so browser
+// tests and labels can refer to them.
+func IDOf(path string) string {
+	r := strings.NewReplacer("[", "-", "]", "", ".", "-")
+	return r.Replace(path)
+}

@@ -1,0 +1,450 @@
+package ui
+
+import (
+	"bytes"
+	"encoding/json"
+	"errors"
+	"fmt"
+	"runtime/debug"
+	"strings"
+	"sync/atomic"
+	"time"
+
+	"github.com/vugu/vugu"
+
+	"porelight/solver"
+)
+
+// AutosaveKey is the browser storage key of the autosaved project.
+const AutosaveKey = "porelight.autosave"
+
+// Sources are the places a session can start from, in order of priority:
+// a project in the URL fragment, the autosave, the demo.
+type Sources struct {
+	Fragment    string // the URL fragment, with or without "#"
+	Autosave    string // the autosaved project JSON ("" when none)
+	AutosaveErr error  // storage could not be read
+	Demo        []byte // the demo project JSON
+}
+
+// Root is the page: editors on one side, results on the other. wasm/ sets
+// the exported fields before the first render and calls Start.
+type Root struct {
+	// Host provides storage, downloads and files; nil means none.
+	Host Host
+	// Env synchronises the solve goroutine with rendering. Nil runs each
+	// solve at once, inside the edit (tests).
+	Env vugu.EventEnv
+	// Solve computes results; nil means solver.Solve.
+	Solve func(*solver.Project, *solver.Options) (*solver.Result, error)
+	// Debounce is the pause after an edit before solving; zero is 200 ms.
+	Debounce time.Duration
+	// Version is shown in the footer.
+	Version string
+
+	form      *Form
+	demo      []byte
+	result    *solver.Result  // the last good results
+	resultFor *solver.Project // the model they belong to
+	solveErr  string
+	busy      bool
+	progress  float64
+	gen       atomic.Int64 // bumped by every committed edit; a solve of an older one is dropped
+	notices   []notice
+	shareURL  string
+}
+
+type notice struct {
+	Kind string // "info" or "error"
+	Text string
+}
+
+func (c *Root) host() Host {
+	if c.Host == nil {
+		return nopHost{}
+	}
+	return c.Host
+}
+
+// Form is the form the editors work on (nil before Start).
+func (c *Root) Form() *Form { return c.form }
+
+// Result is the last good result (nil before the first solve).
+func (c *Root) Result() *solver.Result { return c.result }
+
+// Start opens the first project from src and solves it: the project in
+// the link, else the autosave, else the demo. What could not be read is
+// said in a notice, and the next source is tried.
+func (c *Root) Start(src Sources) {
+	c.demo = src.Demo
+	c.form = NewForm(&solver.Project{Format: solver.Format})
+	opened := false
+	if data, err := DecodeFragment(src.Fragment); err == nil {
+		if p, ps := ReadProject(data); ps == nil {
+			c.open(p)
+			c.note("info", "Opened the project from the link.")
+			opened = true
+		} else {
+			c.note("error", "The project in the link could not be read: "+describeProblems(ps, 3))
+		}
+		c.host().SetFragment("") // from now on, a reload restores the autosave
+	} else if !errors.Is(err, ErrNoProject) {
+		c.note("error", err.Error())
+		c.host().SetFragment("")
+	}
+	if !opened && src.AutosaveErr != nil {
+		c.note("info", "This browser does not allow storage here, so nothing is autosaved: save the project to a file to keep it.")
+	}
+	if !opened && src.Autosave != "" {
+		if p, ps := ReadProject([]byte(src.Autosave)); ps == nil {
+			c.open(p)
+			c.note("info", "Restored the project autosaved in this browser.")
+			opened = true
+		} else {
+			c.note("error", "The autosaved project could not be read ("+describeProblems(ps, 3)+"); opened the demo project instead.")
+		}
+	}
+	if !opened {
+		if p, ps := ReadProject(src.Demo); ps == nil {
+			c.open(p)
+		} else {
+			c.note("error", "The demo project could not be read: "+describeProblems(ps, 3))
+		}
+	}
+}
+
+// open makes p the project and solves it now.
+func (c *Root) open(p *solver.Project) {
+	c.form.Reset(p)
+	c.shareURL = ""
+	c.commit(0)
+}
+
+// edited runs after every edit: a valid draft becomes the model and is
+// solved after a pause; an invalid one only shows its problems.
+func (c *Root) edited() {
+	if c.form.Valid() {
+		c.commit(c.debounce())
+	} else {
+		c.gen.Add(1) // a solve under way is for an outdated model
+		c.busy = false
+	}
+}
+
+func (c *Root) debounce() time.Duration {
+	if c.Debounce > 0 {
+		return c.Debounce
+	}
+	return 200 * time.Millisecond
+}
+
+// commit solves the current draft after wait, unless another edit comes
+// first. It runs with the render lock held (from a handler or Start).
+func (c *Root) commit(wait time.Duration) {
+	if !c.form.Valid() {
+		return
+	}
+	g := c.gen.Add(1)
+	model := c.form.Model()
+	if c.Env == nil {
+		res, err := c.run(g, model)
+		c.finish(g, model, res, err)
+		return
+	}
+	c.busy, c.progress = true, 0
+	go func() {
+		if wait > 0 {
+			time.Sleep(wait)
+			if c.gen.Load() != g {
+				return
+			}
+		}
+		res, err := c.run(g, model)
+		c.Env.Lock()
+		c.finish(g, model, res, err)
+		c.Env.UnlockRender()
+	}()
+}
+
+// run solves model, yielding to the browser every 40 ms or so and giving
+// up as soon as a newer edit arrives. A panic becomes an error: one
+// escaping would stop the whole page.
+func (c *Root) run(g int64, model *solver.Project) (res *solver.Result, err error) {
+	defer func() {
+		if r := recover(); r != nil {
+			err = fmt.Errorf("internal error in the solver: %v\n%s", r, debug.Stack())
+		}
+	}()
+	solve := c.Solve
+	if solve == nil {
+		solve = solver.Solve
+	}
+	last := time.Now()
+	opt := &solver.Options{Progress: func(f float64) bool {
+		if c.gen.Load() != g {
+			return false
+		}
+		if c.Env != nil && time.Since(last) > 40*time.Millisecond {
+			c.Env.Lock()
+			c.progress = f
+			c.Env.UnlockRender()
+			c.host().Yield()
+			last = time.Now()
+		}
+		return c.gen.Load() == g
+	}}
+	return solve(model, opt)
+}
+
+// finish takes the results of solve g, if it is still the latest.
+func (c *Root) finish(g int64, model *solver.Project, res *solver.Result, err error) {
+	if c.gen.Load() != g {
+		return
+	}
+	c.busy = false
+	switch {
+	case errors.Is(err, solver.ErrCanceled):
+		return
+	case err != nil:
+		c.solveErr = describeProblems(solver.AsProblems(err), 5)
+		return
+	}
+	c.result, c.resultFor, c.solveErr = res, model, ""
+	c.autosave(model)
+}
+
+func (c *Root) autosave(p *solver.Project) {
+	data, err := json.Marshal(p)
+	if err != nil {
+		return
+	}
+	_ = c.host().Store(AutosaveKey, string(data)) // said once at start when storage is off
+}
+
+func (c *Root) status() Status {
+	switch {
+	case c.form == nil:
+		return Status{"busy", "Starting…"}
+	case !c.form.Valid():
+		n := c.form.Count()
+		s := fmt.Sprintf("%d inputs need attention", n)
+		if n == 1 {
+			s = "1 input needs attention"
+		}
+		if c.result != nil {
+			s += "; the results shown are for the last valid inputs."
+		}
+		return Status{"stale", s}
+	case c.solveErr != "":
+		return Status{"error", "The solve failed: " + c.solveErr}
+	case c.busy:
+		return Status{"busy", fmt.Sprintf("Solving… %.0f %%", 100*c.progress)}
+	case c.result == nil:
+		return Status{"busy", "Solving…"}
+	}
+	return Status{"ok", "Results are up to date with the inputs."}
+}
+
+func (c *Root) note(kind, text string) {
+	c.notices = append(c.notices, notice{Kind: kind, Text: text})
+	if len(c.notices) > 4 {
+		c.notices = c.notices[len(c.notices)-4:]
+	}
+}
+
+func (c *Root) dismiss(i int) {
+	if i >= 0 && i < len(c.notices) {
+		c.notices = append(c.notices[:i], c.notices[i+1:]...)
+	}
+}
+
+// generalProblems are the problems no input and no section shows.
+func (c *Root) generalProblems() []string {
+	var out []string
+	for _, p := range c.form.Other() {
+		if strings.HasPrefix(p.Path, "top.") || strings.HasPrefix(p.Path, "bottom.") {
+			continue // the drainage section lists these
+		}
+		s := p.Message
+		if p.Path != "" {
+			s = p.Path + ": " + s
+		}
+		out = append(out, s)
+	}
+	return out
+}
+
+func (c *Root) editNotes(e vugu.DOMEvent) {
+	c.form.Edit("notes", e.PropString("target", "value"))
+	c.edited()
+}
+
+// openPicked reads the file chosen in the open dialogue.
+func (c *Root) openPicked() {
+	c.host().ReadFile("open-file", func(name string, data []byte, err error) {
+		if c.Env == nil {
+			c.openFile(name, data, err)
+			return
+		}
+		go func() {
+			c.Env.Lock()
+			c.openFile(name, data, err)
+			c.Env.UnlockRender()
+		}()
+	})
+}
+
+// openFile replaces the project with the file's, or says why not and
+// leaves the project as it was.
+func (c *Root) openFile(name string, data []byte, err error) {
+	if err != nil {
+		c.note("error", fmt.Sprintf("Could not read %s: %v. The project is unchanged.", orFile(name), err))
+		return
+	}
+	p, ps := ReadProject(data)
+	if ps != nil {
+		c.note("error", fmt.Sprintf("%s is not a project this page can open: %s The project is unchanged.",
+			orFile(name), strings.TrimSuffix(describeProblems(ps, 4), ".")+"."))
+		return
+	}
+	c.open(p)
+	c.note("info", "Opened "+orFile(name)+".")
+}
+
+func orFile(name string) string {
+	if name == "" {
+		return "The file"
+	}
+	return "“" + name + "”"
+}
+
+func (c *Root) openDemo() {
+	p, ps := ReadProject(c.demo)
+	if ps != nil {
+		c.note("error", "The demo project could not be read: "+describeProblems(ps, 3))
+		return
+	}
+	c.open(p)
+	c.note("info", "Opened the demo project; the previous project was replaced (save projects you want to keep).")
+}
+
+// saveable is the project to save or share: the model when the inputs
+// are valid, else nothing (with a notice).
+func (c *Root) saveable() *solver.Project {
+	if !c.form.Valid() {
+		c.note("error", "Some inputs need attention; fix them first, so that the file holds what you see.")
+		return nil
+	}
+	return c.form.Model()
+}
+
+func (c *Root) save() {
+	p := c.saveable()
+	if p == nil {
+		return
+	}
+	data, err := solver.Encode(p)
+	if err == nil {
+		err = c.host().Download(baseName(p)+".json", "application/json", append(data, '\n'))
+	}
+	if err != nil {
+		c.note("error", "Could not save: "+err.Error())
+	}
+}
+
+func (c *Root) share() {
+	p := c.saveable()
+	if p == nil {
+		return
+	}
+	frag, err := EncodeFragment(p)
+	if err != nil {
+		c.note("error", "Could not make the link: "+err.Error())
+		return
+	}
+	c.shareURL = c.host().PageURL() + "#" + frag
+}
+
+func (c *Root) copyShare() {
+	if err := c.host().CopyText("share-url"); err != nil {
+		c.note("info", "The link is selected: copy it with Ctrl+C (⌘C).")
+	}
+}
+
+func (c *Root) closeShare() { c.shareURL = "" }
+
+func (c *Root) print() { c.host().Print() }
+
+// export downloads results: "results.json", "series.csv" or "layers.csv".
+func (c *Root) export(what string) {
+	if c.result == nil || c.resultFor == nil {
+		c.note("error", "There are no results to export yet.")
+		return
+	}
+	var data []byte
+	var err error
+	mime := "text/csv"
+	switch what {
+	case "results.json":
+		mime = "application/json"
+		data, err = json.MarshalIndent(c.result, "", " ")
+	case "series.csv":
+		data, err = seriesCSV(c.result)
+	case "layers.csv":
+		data, err = layersCSV(c.result)
+	default:
+		err = fmt.Errorf("unknown export %q", what)
+	}
+	if err == nil {
+		err = c.host().Download(baseName(c.resultFor)+"-"+what, mime, data)
+	}
+	if err != nil {
+		c.note("error", "Could not export: "+err.Error())
+	}
+}
+
+// exportPlot downloads plot name ("isochrones", …) as "svg" or "csv".
+func (c *Root) exportPlot(name, format string) {
+	if c.result == nil || c.resultFor == nil {
+		c.note("error", "There are no results to export yet.")
+		return
+	}
+	data, mime, err := plotFile(name, format, c.resultFor, c.result)
+	if err == nil {
+		err = c.host().Download(baseName(c.resultFor)+"-"+name+"."+format, mime, data)
+	}
+	if err != nil {
+		c.note("error", "Could not export: "+err.Error())
+	}
+}
+
+// baseName makes a file name from the project title.
+func baseName(p *solver.Project) string {
+	var b bytes.Buffer
+	dash := false
+	for _, r := range strings.ToLower(p.Title) {
+		switch {
+		case r >= 'a' && r <= 'z' || r >= '0' && r <= '9':
+			b.WriteRune(r)
+			dash = false
+		case !dash && b.Len() > 0:
+			b.WriteByte('-')
+			dash = true
+		}
+		if b.Len() >= 48 {
+			break
+		}
+	}
+	s := strings.Trim(b.String(), "-")
+	if s == "" {
+		return "porelight-project"
+	}
+	return s
+}
+
+func (c *Root) printTitle() string {
+	if t := strings.TrimSpace(c.form.Draft().Title); t != "" {
+		return t
+	}
+	return "Untitled project"
+}

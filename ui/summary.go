@@ -1,0 +1,110 @@
+package ui
+
+import (
+	"fmt"
+	"math"
+
+	"porelight/solver"
+)
+
+// Status is the one-line state of the results: what is shown and why.
+type Status struct {
+	Kind string // "ok", "busy", "stale" or "error"; a CSS class suffix
+	Text string
+}
+
+// Summary shows the headline figures of the last good results, and the
+// caution that goes with them.
+type Summary struct {
+	R      *solver.Result  // nil before the first solve
+	P      *solver.Project // the project R belongs to
+	Status Status
+}
+
+type sumRow struct {
+	ID, Label, Value, Exact, Note, Class string
+}
+
+func (c *Summary) class() string {
+	if c.Status.Kind == "stale" || c.Status.Kind == "error" {
+		return "pl-sec pl-summary pl-stale"
+	}
+	return "pl-sec pl-summary"
+}
+
+// rows lists the figures; missing ones say why they are missing.
+func (c *Summary) rows() []sumRow {
+	if c.R == nil {
+		return []sumRow{{ID: "sum-none", Label: "Results", Value: "not yet computed"}}
+	}
+	s := c.R.Summary
+	noLoad := c.P != nil && len(c.P.Loads) == 0 && len(c.P.InitialExcess) == 0 &&
+		len(c.P.Top.Excess) == 0 && len(c.P.Bottom.Excess) == 0
+	why := "not computed"
+	switch {
+	case noLoad:
+		why = "no load"
+	case c.R.Consolidation != nil:
+		why = "not reached in the simulated time"
+	}
+	length := func(id, label string, v *float64, note string) sumRow {
+		r := sumRow{ID: id, Label: label, Value: "–", Note: why}
+		if v != nil {
+			r.Value, r.Exact, r.Note = mm(*v), exact(*v), note
+		}
+		return r
+	}
+	time := func(id, label string, v *float64) sumRow {
+		r := sumRow{ID: id, Label: label, Value: "–", Note: why}
+		if v != nil {
+			r.Value, r.Exact, r.Note = duration(*v), exact(*v), "after the start"
+		}
+		return r
+	}
+	target := s.TargetDegree
+	if target == 0 {
+		target = 0.95
+	}
+	life := s.DesignLife
+	if life == 0 {
+		life = 18262.5
+	}
+	rows := []sumRow{
+		length("sum-settlement-linear", "Final settlement, from mv", s.SettlementLinear, "primary, all stages"),
+		length("sum-settlement-elog", "Final settlement, e–log σ′", s.SettlementElog, "primary, all stages"),
+		time("sum-t50", "t50 (U = 50 %)", s.T50),
+		time("sum-t90", "t90 (U = 90 %)", s.T90),
+		time("sum-ttarget", fmt.Sprintf("Time to U = %s %%", sig(target*100, 3)), s.TTarget),
+		length("sum-secondary", "Secondary settlement", s.Secondary, "at "+sig(life/365.25, 3)+" yr design life"),
+	}
+	if s.SettlementElog == nil && !noLoad && c.R.Consolidation != nil {
+		rows[1].Note = "needs e–log parameters for every layer"
+	}
+	if s.Secondary == nil && !noLoad && c.R.Consolidation != nil {
+		rows[5].Note = "needs Cα (and e0) for a layer"
+	}
+	heave := sumRow{ID: "sum-heave", Label: "Least factor against heave (ic/i)", Value: "–", Note: "no upward flow"}
+	if f := s.MinHeaveFactor; f != nil {
+		heave.Value, heave.Exact, heave.Note = sig(*f, 3), exact(*f), "upward flow; compare with the factor your code requires"
+		if *f < 1 {
+			heave.Class = "pl-alarm"
+			heave.Note = "below 1: the upward gradient exceeds the critical gradient"
+		}
+	}
+	dir := "downward"
+	if s.Flux < 0 {
+		dir = "upward"
+	} else if s.Flux == 0 {
+		dir = "no flow"
+	}
+	flux := sumRow{ID: "sum-flux", Label: "Steady flow (Darcy velocity)", Value: sci(math.Abs(s.Flux), 3) + " m/s",
+		Exact: exact(s.Flux), Note: dir}
+	return append(rows, heave, flux)
+}
+
+func warningText(w solver.Warning) string {
+	if w.Path == "" {
+		return w.Message
+	}
+	return w.Path + ": " + w.Message
+}

@@ -1,0 +1,153 @@
+//go:build js && wasm
+
+package main
+
+import (
+	"encoding/json"
+	"fmt"
+	"runtime/debug"
+	"syscall/js"
+
+	"porelight/solver"
+)
+
+// api is the JavaScript API, globalThis.porelight:
+//
+//	porelight.version               // e.g. "0.1.0"
+//	porelight.solve(projectJSON)    // → result JSON, or {"error": {"problems": [{"path", "message"}…]}}
+//	porelight.validate(projectJSON) // → JSON list of problems, [] when the project is valid
+//	porelight.demo()                // → the demo project JSON
+//
+// A project may also be passed as an object; it is stringified first. No
+// call throws: every failure, a panic included, comes back as problems.
+// Calls run to completion before returning, so a long solve holds up the
+// page; the page itself solves in a goroutine instead.
+type api struct {
+	demo  []byte
+	solve func(*solver.Project, *solver.Options) (*solver.Result, error)
+}
+
+// errorJSON is the answer of solve to a project it cannot solve.
+type errorJSON struct {
+	Error struct {
+		Problems solver.Problems `json:"problems"`
+	} `json:"error"`
+}
+
+func problemsJSON(ps solver.Problems) string {
+	var e errorJSON
+	e.Error.Problems = ps
+	if e.Error.Problems == nil {
+		e.Error.Problems = solver.Problems{}
+	}
+	data, err := json.Marshal(e)
+	if err != nil { // a Problem is two strings; this cannot happen
+		return `{"error":{"problems":[{"path":"","message":"the problems could not be encoded"}]}}`
+	}
+	return string(data)
+}
+
+// Solve decodes, validates and solves one project.
+func (a *api) Solve(project string) (out string) {
+	defer func() {
+		if r := recover(); r != nil {
+			out = problemsJSON(solver.Problems{{Path: "", Message: fmt.Sprintf("internal error: %v", r)}})
+			println("porelight: solve panicked:", fmt.Sprint(r), string(debug.Stack()))
+		}
+	}()
+	p, err := solver.Decode([]byte(project))
+	if err != nil {
+		return problemsJSON(solver.AsProblems(err))
+	}
+	solve := a.solve
+	if solve == nil {
+		solve = solver.Solve
+	}
+	res, err := solve(p, nil)
+	if err != nil {
+		return problemsJSON(solver.AsProblems(err))
+	}
+	data, err := json.Marshal(res)
+	if err != nil {
+		return problemsJSON(solver.Problems{{Path: "", Message: "the result could not be encoded: " + err.Error()}})
+	}
+	return string(data)
+}
+
+// Validate returns the problems of a project as a JSON list.
+func (a *api) Validate(project string) (out string) {
+	defer func() {
+		if r := recover(); r != nil {
+			out = fmt.Sprintf(`[{"path":"","message":%q}]`, fmt.Sprintf("internal error: %v", r))
+		}
+	}()
+	ps := solver.Problems{}
+	p, err := solver.Decode([]byte(project))
+	if err != nil {
+		ps = solver.AsProblems(err)
+	} else if err := solver.Validate(p); err != nil {
+		ps = solver.AsProblems(err)
+	}
+	data, _ := json.Marshal(ps)
+	return string(data)
+}
+
+// register puts the API on obj (globalThis in the page). The functions
+// live as long as the program.
+func (a *api) register(obj js.Value) {
+	o := js.Global().Get("Object").New()
+	o.Set("version", version)
+	o.Set("solve", js.FuncOf(func(_ js.Value, args []js.Value) any {
+		s, bad := argJSON(args)
+		if bad != "" {
+			return problemsJSON(solver.Problems{{Path: "", Message: bad}})
+		}
+		return a.Solve(s)
+	}))
+	o.Set("validate", js.FuncOf(func(_ js.Value, args []js.Value) any {
+		s, bad := argJSON(args)
+		if bad != "" {
+			data, _ := json.Marshal(solver.Problems{{Path: "", Message: bad}})
+			return string(data)
+		}
+		return a.Validate(s)
+	}))
+	o.Set("demo", js.FuncOf(func(js.Value, []js.Value) any { return string(a.demo) }))
+	obj.Set("porelight", o)
+}
+
+// argJSON takes the project argument: a JSON string, or an object to
+// stringify.
+func argJSON(args []js.Value) (s, problem string) {
+	if len(args) == 0 {
+		return "", "pass the project as a JSON string"
+	}
+	switch v := args[0]; v.Type() {
+	case js.TypeString:
+		return v.String(), ""
+	case js.TypeObject:
+		var out string
+		err := catch(func() { out = js.Global().Get("JSON").Call("stringify", v).String() })
+		if err != nil {
+			return "", "the project object could not be turned into JSON: " + err.Error()
+		}
+		return out, ""
+	}
+	return "", "pass the project as a JSON string (got " + args[0].Type().String() + ")"
+}
+
+// catch runs f and turns a panic (a JavaScript exception from js.Value.Call
+// comes as one) into an error.
+func catch(f func()) (err error) {
+	defer func() {
+		if r := recover(); r != nil {
+			if e, ok := r.(error); ok {
+				err = e
+			} else {
+				err = fmt.Errorf("%v", r)
+			}
+		}
+	}()
+	f()
+	return nil
+}

@@ -1,0 +1,180 @@
+//go:build js && wasm
+
+package main
+
+import (
+	"errors"
+	"fmt"
+	"strings"
+	"syscall/js"
+
+	"porelight/solver"
+)
+
+// host gives the UI the browser: storage, downloads, files, yielding.
+// Every JavaScript call that may throw goes through js.Value.Call inside
+// catch (a throwing property read would end the Go program instead).
+type host struct{}
+
+// Yield waits for a setTimeout(0) callback, so that the browser can paint
+// and run event handlers; Go's scheduler returns to the browser only while
+// every goroutine is blocked.
+func (host) Yield() {
+	done := make(chan struct{})
+	f := js.FuncOf(func(js.Value, []js.Value) any { close(done); return nil })
+	defer f.Release()
+	js.Global().Call("setTimeout", f, 0)
+	<-done
+}
+
+// Download offers data as a file through a Blob and a temporary anchor.
+func (host) Download(name, mime string, data []byte) error {
+	return catch(func() {
+		g := js.Global()
+		arr := g.Get("Uint8Array").New(len(data))
+		js.CopyBytesToJS(arr, data)
+		opts := g.Get("Object").New()
+		opts.Set("type", mime)
+		blob := g.Get("Blob").New(g.Get("Array").Call("of", arr), opts)
+		urlAPI := g.Get("URL")
+		url := urlAPI.Call("createObjectURL", blob)
+		doc := g.Get("document")
+		a := doc.Call("createElement", "a")
+		a.Set("href", url)
+		a.Set("download", name)
+		a.Set("rel", "noopener")
+		a.Get("style").Set("display", "none")
+		doc.Get("body").Call("appendChild", a)
+		a.Call("click")
+		a.Call("remove")
+		// Give the browser time to start the download before letting go.
+		g.Call("setTimeout", urlAPI.Get("revokeObjectURL").Call("bind", urlAPI), 60000, url)
+	})
+}
+
+// storage returns window.localStorage, or an error where it is refused
+// (reading the property throws in a sandboxed frame).
+func storage() (js.Value, error) {
+	var s js.Value
+	err := catch(func() { s = js.Global().Get("Reflect").Call("get", js.Global(), "localStorage") })
+	if err == nil && (s.IsUndefined() || s.IsNull()) {
+		err = errors.New("no localStorage")
+	}
+	return s, err
+}
+
+func (host) Store(key, value string) error {
+	s, err := storage()
+	if err != nil {
+		return err
+	}
+	return catch(func() { s.Call("setItem", key, value) })
+}
+
+func (host) Recall(key string) (value string, ok bool, err error) {
+	s, err := storage()
+	if err != nil {
+		return "", false, err
+	}
+	err = catch(func() {
+		v := s.Call("getItem", key)
+		if v.Type() == js.TypeString {
+			value, ok = v.String(), true
+		}
+	})
+	return value, ok, err
+}
+
+func (host) PageURL() string {
+	href := js.Global().Get("location").Get("href").String()
+	base, _, _ := strings.Cut(href, "#")
+	return base
+}
+
+func fragment() string {
+	return js.Global().Get("location").Get("hash").String()
+}
+
+// SetFragment replaces the fragment in the address bar without a reload
+// or a history entry. Where the browser refuses (an opaque origin), the
+// address stays as it is.
+func (h host) SetFragment(frag string) {
+	url := h.PageURL()
+	if frag != "" {
+		url += "#" + strings.TrimPrefix(frag, "#")
+	}
+	_ = catch(func() { js.Global().Get("history").Call("replaceState", js.Null(), "", url) })
+}
+
+// ReadFile reads the file chosen in a file input. Nothing happens when no
+// file was chosen (the dialogue was cancelled).
+func (host) ReadFile(inputID string, done func(name string, data []byte, err error)) {
+	var file js.Value
+	var input js.Value
+	err := catch(func() {
+		input = js.Global().Get("document").Call("getElementById", inputID)
+		if input.IsNull() {
+			panic(fmt.Errorf("no file input #%s", inputID))
+		}
+		files := input.Get("files")
+		if files.IsNull() || files.Get("length").Int() == 0 {
+			return
+		}
+		file = files.Call("item", 0)
+	})
+	if err != nil {
+		done("", nil, err)
+		return
+	}
+	if file.IsUndefined() {
+		return
+	}
+	name := file.Get("name").String()
+	if size := file.Get("size").Float(); size > solver.MaxFileBytes {
+		input.Set("value", "")
+		done(name, nil, fmt.Errorf("the file has %.0f bytes; a project file has at most %d", size, solver.MaxFileBytes))
+		return
+	}
+	var ok, fail js.Func
+	release := func() { ok.Release(); fail.Release(); input.Set("value", "") }
+	ok = js.FuncOf(func(_ js.Value, args []js.Value) any {
+		arr := js.Global().Get("Uint8Array").New(args[0])
+		data := make([]byte, arr.Get("length").Int())
+		js.CopyBytesToGo(data, arr)
+		release()
+		done(name, data, nil)
+		return nil
+	})
+	fail = js.FuncOf(func(_ js.Value, args []js.Value) any {
+		msg := "the browser could not read it"
+		if len(args) > 0 {
+			msg = args[0].Call("toString").String()
+		}
+		release()
+		done(name, nil, errors.New(msg))
+		return nil
+	})
+	if err := catch(func() { file.Call("arrayBuffer").Call("then", ok, fail) }); err != nil {
+		release()
+		done(name, nil, err)
+	}
+}
+
+var ignore = js.FuncOf(func(js.Value, []js.Value) any { return nil })
+
+// CopyText selects the input's text and asks for the clipboard; browsers
+// that refuse leave the selection for the user to copy.
+func (host) CopyText(inputID string) error {
+	return catch(func() {
+		el := js.Global().Get("document").Call("getElementById", inputID)
+		el.Call("focus")
+		el.Call("select")
+		clip := js.Global().Get("navigator").Get("clipboard")
+		if clip.IsUndefined() || clip.IsNull() {
+			panic(errors.New("no clipboard"))
+		}
+		clip.Call("writeText", el.Get("value")).Call("catch", ignore)
+	})
+}
+
+func (host) Print() { _ = catch(func() { js.Global().Call("print") }) }
