@@ -356,3 +356,60 @@ func indexOf(xs []float64, x float64) int {
 	}
 	return -1
 }
+
+// TestDrainedEndPressureHistory lowers the pore pressure held at the
+// drained top of a clay layer sealed at its base (a drawdown), in one step
+// and as a ramp. Since the held change g(t) is uniform in depth, u − g
+// solves the loading problem with σ̇ = −ġ, so by superposition (Terzaghi
+// 1943; Olson 1977):
+//
+//	step of −p:               u = −p·(1 − TerzaghiExcess(Z, Tv))
+//	ramp to −p over Tc:       u = −p·min(Tv/Tc, 1) + p·OlsonExcess(Z, Tv, Tc)
+//
+// Isochrones within 0.5 % of p; the final settlement is mv·H·p.
+func TestDrainedEndPressureHistory(t *testing.T) {
+	t.Parallel()
+	const h, p = 6.0, 30.0
+	day := func(T float64) float64 { return T * h * h / clayCv }
+	tc := 0.4
+	tests := []struct {
+		name    string
+		history []TimeValue
+		want    func(Z, T float64) float64
+	}{
+		{"step drawdown", []TimeValue{{T: 0, Value: -p}}, func(Z, T float64) float64 {
+			return -p * (1 - series.TerzaghiExcess(Z, T))
+		}},
+		{"ramped drawdown", []TimeValue{{T: 0, Value: 0}, {T: day(tc), Value: -p}}, func(Z, T float64) float64 {
+			return -p*math.Min(T/tc, 1) + p*series.OlsonExcess(Z, T, tc)
+		}},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			t.Parallel()
+			pr := uniformClay(h, false)
+			pr.Loads = nil
+			pr.Top.Excess = tt.history
+			for _, T := range []float64{0.02, 0.1, 0.3, 0.6, 1.2} {
+				pr.Times = append(pr.Times, day(T))
+			}
+			r, err := Solve(pr, nil)
+			if err != nil {
+				t.Fatal(err)
+			}
+			for _, iso := range r.Consolidation.Isochrones {
+				T := clayCv * iso.Time / (h * h)
+				for j, z := range r.Consolidation.Depth {
+					if want := tt.want(z/h, T); math.Abs(iso.Excess[j]-want) > 0.005*p {
+						t.Errorf("u(z=%.3g, Tv=%.3g) = %.3f kPa, superposition %.3f kPa (tolerance 0.5 %% of %g kPa)", z, T, iso.Excess[j], want, p)
+						break
+					}
+				}
+			}
+			// Tolerance 1e-9 m: the final state is exact on any mesh.
+			if got, want := *r.Summary.SettlementLinear, 1e-3*h*p; math.Abs(got-want) > 1e-9 {
+				t.Errorf("final settlement %.9g m, want mv·H·p = %.9g m", got, want)
+			}
+		})
+	}
+}
