@@ -52,8 +52,10 @@ page build: wasm
 		-demo testdata/demo.json -o $(PAGE)
 
 run: build
-	@if command -v xdg-open >/dev/null; then xdg-open $(PAGE) >/dev/null 2>&1 & \
-	else echo "open $(CURDIR)/$(PAGE) in a browser"; fi
+	@echo "page: file://$(CURDIR)/$(PAGE)"
+	@if [ -n "$${DISPLAY}$${WAYLAND_DISPLAY}" ] && command -v xdg-open >/dev/null; then \
+		xdg-open "$(PAGE)" >/dev/null 2>&1 || echo "could not open a browser: open the file above"; \
+	else echo "no desktop session: open the file above in a browser"; fi
 
 # Browser tests of the built page in headless Chromium. They skip when no
 # browser is found, and fail instead when CI or E2E is set.
