@@ -1,7 +1,191 @@
 package solver
 
+import (
+	"fmt"
+	"math"
+	"time"
+)
+
+// Limits on field records, so that one project stays within what a
+// browser tab can check and fit.
+const (
+	MaxRecords  = 100     // plates and piezometers together
+	MaxReadings = 100_000 // readings in one record
+)
+
+// dateLayout is the calendar date of the file format: YYYY-MM-DD.
+const dateLayout = "2006-01-02"
+
+// parseDate reads a file-format date (YYYY-MM-DD, UTC midnight).
+func parseDate(s string) (time.Time, bool) {
+	t, err := time.Parse(dateLayout, s)
+	return t, err == nil
+}
+
+// daysBetween is the number of days from a to b (both UTC midnights).
+func daysBetween(a, b time.Time) float64 {
+	return b.Sub(a).Hours() / 24
+}
+
 // validMonitoring checks the field readings of a project: every problem
 // is added to ps with its path (monitoring.plates[0].readings[3].t …).
 // height is the column height, m (0 when unknown).
+//
+// A reading gives either t (days after day 0, ≥ 0) or date (YYYY-MM-DD,
+// which needs monitoring.start), not both; because t = 0 is the JSON zero
+// value, a reading with a date and t = 0 counts as giving the date only.
+// The times of one record must increase strictly: a time earlier than the
+// one before is ErrNotSorted, the same time again ErrDuplicate. Values
+// must be finite; a piezometer must lie within the column. A record may be
+// empty (a plate set up but not read yet).
 func validMonitoring(ps *Problems, m *Monitoring, height float64) {
+	v := monitorCheck{ps: ps, hasStart: m.Start != ""}
+	if v.hasStart {
+		if t, ok := parseDate(m.Start); ok {
+			v.start, v.startOK = t, true
+		} else {
+			ps.Add("monitoring.start", ErrDate, fmt.Sprintf("got %q", m.Start))
+		}
+	}
+	if n := len(m.Plates) + len(m.Piezometers); n > MaxRecords {
+		ps.Add("monitoring", ErrTooLarge, fmt.Sprintf("%d records, the limit is %d", n, MaxRecords))
+	}
+	for i, pl := range m.Plates {
+		v.readings(fmt.Sprintf("monitoring.plates[%d]", i), pl.Readings)
+	}
+	for i, pz := range m.Piezometers {
+		at := fmt.Sprintf("monitoring.piezometers[%d]", i)
+		if nonNegative(ps, at+".depth", pz.Depth) && height > 0 && pz.Depth > height*(1+1e-12) {
+			ps.Add(at+".depth", ErrOutOfRange, fmt.Sprintf("depth %g m is below the base of the column at %g m", pz.Depth, height))
+		}
+		v.readings(at, pz.Readings)
+	}
+	if v.dated != "" && !v.hasStart {
+		ps.Add("monitoring.start", ErrRequired, fmt.Sprintf("%s gives a date; dates count from the calendar date of day 0", v.dated))
+	}
+}
+
+// monitorCheck carries what the checks of every record share.
+type monitorCheck struct {
+	ps       *Problems
+	hasStart bool      // Start is given (valid or not)
+	start    time.Time // Start, when startOK
+	startOK  bool
+	dated    string // path of the first reading that gives a date
+}
+
+// readings checks one record's readings; at is the record's path.
+func (v *monitorCheck) readings(at string, rs []Reading) {
+	ps := v.ps
+	if len(rs) > MaxReadings {
+		ps.Add(at+".readings", ErrTooLarge, fmt.Sprintf("%d readings, the limit is %d", len(rs), MaxReadings))
+		return
+	}
+	prev, prevOK, prevText := 0.0, false, ""
+	for j, r := range rs {
+		rp := fmt.Sprintf("%s.readings[%d]", at, j)
+		t, ok, path, text := 0.0, false, rp+".t", ""
+		if r.Date != "" {
+			path, text = rp+".date", r.Date
+			if r.T != 0 {
+				ps.Add(rp+".t", ErrConflict, "give t or date, not both")
+			}
+			d, good := parseDate(r.Date)
+			switch {
+			case !good:
+				ps.Add(path, ErrDate, fmt.Sprintf("got %q", r.Date))
+			case !v.hasStart:
+				if v.dated == "" {
+					v.dated = path
+				}
+			case v.startOK:
+				t = daysBetween(v.start, d)
+				if t < 0 {
+					ps.Add(path, ErrOutOfRange, fmt.Sprintf("%s is before day 0, monitoring.start = %s", r.Date, v.start.Format(dateLayout)))
+				} else {
+					ok = true
+				}
+			}
+		} else if nonNegative(ps, path, r.T) {
+			t, ok, text = r.T, true, fmt.Sprintf("day %g", r.T)
+		}
+		finite(ps, rp+".value", r.Value)
+		if ok && prevOK {
+			switch {
+			case t < prev:
+				ps.Add(path, ErrNotSorted, fmt.Sprintf("%s follows %s", text, prevText))
+			case t == prev:
+				ps.Add(path, ErrDuplicate, fmt.Sprintf("%s again; give each time once", text))
+			}
+		}
+		if ok {
+			prev, prevOK, prevText = t, true, text
+		}
+	}
+}
+
+// ReadingTimes returns the time of each reading in days after day 0,
+// resolving dates against m.Start (m may be nil when no reading gives a
+// date). It reports, all at once as Problems with paths such as
+// "readings[3].date", every time that cannot be resolved: a malformed date
+// or Start, a date without Start, a date before Start, a t that is
+// negative or not finite. It does not check the order of the readings
+// (Validate does).
+func ReadingTimes(m *Monitoring, rs []Reading) ([]float64, error) {
+	var ps Problems
+	var start time.Time
+	startOK := false
+	if m != nil && m.Start != "" {
+		start, startOK = parseDate(m.Start)
+		if !startOK {
+			ps.Add("monitoring.start", ErrDate, fmt.Sprintf("got %q", m.Start))
+		}
+	}
+	ts := make([]float64, len(rs))
+	for j, r := range rs {
+		at := fmt.Sprintf("readings[%d]", j)
+		if r.Date == "" {
+			nonNegative(&ps, at+".t", r.T)
+			ts[j] = r.T
+			continue
+		}
+		d, ok := parseDate(r.Date)
+		switch {
+		case !ok:
+			ps.Add(at+".date", ErrDate, fmt.Sprintf("got %q", r.Date))
+		case m == nil || m.Start == "":
+			ps.Add(at+".date", ErrConflict, "a date needs monitoring.start, the calendar date of day 0")
+		case startOK:
+			ts[j] = daysBetween(start, d)
+			if ts[j] < 0 {
+				ps.Add(at+".date", ErrOutOfRange, fmt.Sprintf("%s is before day 0, monitoring.start = %s", r.Date, m.Start))
+			}
+		}
+	}
+	if err := ps.Err(); err != nil {
+		return nil, err
+	}
+	return ts, nil
+}
+
+// LastLoadChange returns the time, days, after which the loading of p no
+// longer changes: the end of the last load stage (start + ramp; the start
+// of an instantaneous one) or the last point of a pressure history at a
+// drained end, whichever is later. It is 0 for a project with neither.
+// Settlement readings after it follow consolidation under constant load,
+// which is what Asaoka's method assumes.
+func LastLoadChange(p *Project) float64 {
+	last := 0.0
+	for _, l := range p.Loads {
+		last = math.Max(last, l.Start+l.Ramp)
+	}
+	for _, b := range []Boundary{p.Top, p.Bottom} {
+		if !b.Drained {
+			continue
+		}
+		for _, tv := range b.Excess {
+			last = math.Max(last, tv.T)
+		}
+	}
+	return last
 }

@@ -21,6 +21,8 @@ var (
 	ErrSyntax      = errors.New("is not valid JSON")
 	ErrConflict    = errors.New("conflicts with another field")
 	ErrTooLarge    = errors.New("exceeds a limit")
+	ErrDate        = errors.New("is not a date (YYYY-MM-DD)")
+	ErrDuplicate   = errors.New("repeats the time of the reading before")
 )
 
 // Problem is one thing wrong with a project: where (a field path such as

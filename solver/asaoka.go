@@ -1,0 +1,329 @@
+package solver
+
+import (
+	"errors"
+	"fmt"
+	"math"
+
+	"gonum.org/v1/gonum/stat"
+)
+
+// Reasons Asaoka refuses a record. The error it returns wraps one of
+// these (or ErrNotFinite, ErrNotSorted, ErrDuplicate for bad input), so
+// callers may test with errors.Is; its message says what was found.
+var (
+	ErrTooFewPoints  = errors.New("too few points")
+	ErrDuringLoading = errors.New("the record lies within a loading stage")
+	ErrNoFinal       = errors.New("the record does not settle towards a final value")
+)
+
+// Defaults and limits of the resampling.
+const (
+	asaokaMinPoints = 4  // fewest resampled points (3 pairs, 1 degree of freedom)
+	asaokaAutoMin   = 6  // an automatic interval gives at least this many points
+	asaokaAutoMax   = 12 // and at most this many
+)
+
+// AsaokaOptions say which part of a settlement record Asaoka reads and
+// how to turn its rate into a coefficient of consolidation. The zero
+// value reads the whole record and reports no cv.
+type AsaokaOptions struct {
+	// AfterTime is the end of the last change of load, days (see
+	// LastLoadChange): the method assumes constant load, so readings
+	// before it are not used and a window starting before it is refused.
+	AfterTime float64
+	// From and To bound the readings used, days. Zero From means
+	// AfterTime; zero To means the last reading.
+	From, To float64
+	// Thickness is the thickness of the consolidating layer, m, and
+	// DrainedEnds the number of its drained faces (1 or 2). The drainage
+	// path is Thickness/DrainedEnds. Either zero: no cv is reported.
+	Thickness   float64
+	DrainedEnds int
+}
+
+// AsaokaOptionsFor returns the options that read a settlement record of
+// p: AfterTime = LastLoadChange(p), the whole column as the consolidating
+// layer and its drained ends. For a column of several compressible layers
+// the cv so found is an equivalent value for the column as a whole.
+func AsaokaOptionsFor(p *Project) AsaokaOptions {
+	o := AsaokaOptions{AfterTime: LastLoadChange(p)}
+	for _, l := range p.Layers {
+		o.Thickness += l.Thickness
+	}
+	for _, b := range []Boundary{p.Top, p.Bottom} {
+		if b.Drained {
+			o.DrainedEnds++
+		}
+	}
+	return o
+}
+
+// AsaokaResult is the outcome of Asaoka's method on one settlement
+// record. Settlements are in the record's unit (m in the file format),
+// times in days, cv in m²/day.
+type AsaokaResult struct {
+	// Interval is the equal time step Δt of the resampled record, days.
+	Interval float64 `json:"interval"`
+	// Times and Settlements are the resampled record: s_j at t_j = t_0 + jΔt,
+	// linearly interpolated between readings.
+	Times       []float64 `json:"times"`
+	Settlements []float64 `json:"settlements"`
+	// Fitted holds β0 + β1 s_(j−1) for j = 1 … n−1: plotted against
+	// Settlements[:n−1] it is the fitted line, and the measured pairs are
+	// (Settlements[j−1], Settlements[j]). The line meets s_j = s_(j−1) at
+	// Final.
+	Fitted []float64 `json:"fitted"`
+	// Beta0 (settlement unit) and Beta1 (dimensionless) are the least
+	// squares estimates of s_j = β0 + β1 s_(j−1), with their standard
+	// errors and the coefficient of determination of the fit.
+	Beta0    float64 `json:"beta0"`
+	Beta1    float64 `json:"beta1"`
+	Beta0SE  float64 `json:"beta0SE"`
+	Beta1SE  float64 `json:"beta1SE"`
+	RSquared float64 `json:"rSquared"`
+	// Final is the forecast final settlement β0/(1 − β1) and FinalSE its
+	// standard error (first-order propagation of the covariance of β0
+	// and β1).
+	Final   float64 `json:"final"`
+	FinalSE float64 `json:"finalSE"`
+	// DrainagePath is the length d of the drainage path, m (0 when the
+	// options give no thickness).
+	DrainagePath float64 `json:"drainagePath"`
+	// Cv is the coefficient of consolidation from the slowest Terzaghi
+	// mode, −4d² ln β1/(π² Δt), and CvSE its standard error; CvParabolic
+	// is Asaoka's parabolic-isochrone form −5d² ln β1/(12 Δt), about
+	// 2.8 % higher. All are 0 when DrainagePath is 0. See Asaoka.
+	Cv          float64 `json:"cv"`
+	CvSE        float64 `json:"cvSE"`
+	CvParabolic float64 `json:"cvParabolic"`
+}
+
+// Forecast returns the settlement the fitted relation predicts at t days:
+// s∞ − (s∞ − s_0) β1^((t − t_0)/Δt), with s_0 the first resampled point.
+func (a *AsaokaResult) Forecast(t float64) float64 {
+	return a.Final - (a.Final-a.Settlements[0])*math.Pow(a.Beta1, (t-a.Times[0])/a.Interval)
+}
+
+// Asaoka applies Asaoka's (1978) observational method to a settlement
+// record: times in days, strictly increasing, and the settlement at each.
+//
+// The readings from the first one at or after the start of the window
+// (From, or AfterTime) to the last one at or before To are resampled at
+// equal intervals Δt by linear interpolation: s_0 at the first of those
+// readings, s_j = s(t_0 + jΔt). An interval of 0 chooses Δt so that the
+// window holds as many points as readings, but at least 6 and at most 12.
+// The pairs (s_(j−1), s_j) are fitted by least squares with
+//
+//	s_j = β0 + β1 s_(j−1),
+//
+// and the final settlement is where this line meets s_j = s_(j−1):
+// s∞ = β0/(1 − β1). The standard errors are those of ordinary least
+// squares (residual variance with n − 3 degrees of freedom for n points);
+// they treat s_(j−1) as exact, which noise in the readings is not, so
+// they are indicative only.
+//
+// # Coefficient of consolidation
+//
+// Late in primary consolidation under constant load, the excess pore
+// pressure of a layer with one drainage path of length d (drained at
+// z = 0, closed at z = d) is dominated by its slowest mode (Terzaghi
+// 1943): u ∝ sin(πz/2d) exp(−λt) with λ = π²cv/(4d²). The settlement
+// then approaches s∞ as s∞ − s(t) ∝ exp(−λt), so at equal steps
+//
+//	s_j − s∞ = β1 (s_(j−1) − s∞),  β1 = exp(−λΔt),
+//
+// which is Asaoka's relation with β0 = s∞(1 − β1). Hence
+//
+//	cv = −4 d² ln β1 / (π² Δt)   (first mode).
+//
+// Asaoka instead describes the isochrone by a parabola,
+// u = A(t)(2ζ − ζ²) with ζ = z/d (zero at the drained face, zero gradient
+// at the closed one), and satisfies ∂u/∂t = cv ∂²u/∂z² in the weak sense
+// for the linear test function w = ζ, which vanishes at the drained face:
+//
+//	∫₀ᵈ ζ ∂u/∂t dz = −cv ∫₀ᵈ (1/d) ∂u/∂z dz = −cv A/d   (integrating by parts),
+//	∫₀ᵈ ζ (2ζ − ζ²) dz = d (2/3 − 1/4) = 5d/12,
+//
+// so dA/dt = −(12/5)(cv/d²) A, λ = 12cv/(5d²) and
+//
+//	cv = −5 d² ln β1 / (12 Δt)   (parabolic isochrone).
+//
+// Written with H the half-thickness of the layer, this is the form
+// usually quoted for double drainage (d = H), cv = −(5H²/12Δt) ln β1; for
+// single drainage d is the full thickness 2H. Whatever the notation, d is
+// the drainage path: with d the full thickness of a doubly drained layer
+// the cv would come out four times too large. The same parabola with the test function
+// w = 1 (the volume balance) would give λ = 3cv/d², and with w equal to
+// the parabola (Galerkin) λ = 5cv/(2d²): the value depends on the
+// approximation, while the exact slowest mode has λ = π²cv/(4d²) =
+// 2.467 cv/d². Cv therefore reports the first-mode form, which is exact
+// for the late-time exponential the method relies on; CvParabolic
+// (12/5 = 2.4 instead of π²/4, so 2.8 % higher for the same β1) is given
+// for comparison with values computed the parabolic way. Both need the
+// record to be late enough for the higher modes to have died out (time
+// factor above about 0.2, degree of consolidation above about 50 %);
+// earlier readings make β1, and so cv and s∞, depend on Δt.
+//
+// Readings before AfterTime are left out, not refused: a record that
+// starts with the construction is read from the end of the loading on.
+// Refusals (errors wrapping the reason) are:
+//
+//	fewer than 4 readings in the window, or fewer
+//	than 4 resampled points for the given interval   ErrTooFewPoints
+//	From before AfterTime, or no reading after it    ErrDuringLoading
+//	β1 outside (0, 1), or a flat record              ErrNoFinal
+//	a time or settlement not finite                  ErrNotFinite
+//	times not strictly increasing                    ErrNotSorted, ErrDuplicate
+//
+// Asaoka panics if times and settlements differ in length (a caller bug).
+func Asaoka(times, settlements []float64, interval float64, opt AsaokaOptions) (*AsaokaResult, error) {
+	if len(times) != len(settlements) {
+		panic("solver: Asaoka: times and settlements differ in length")
+	}
+	for j := range times {
+		if !finiteNum(times[j]) || !finiteNum(settlements[j]) {
+			return nil, fmt.Errorf("asaoka: reading %d: %w (day %g, settlement %g)", j, ErrNotFinite, times[j], settlements[j])
+		}
+		if j > 0 && times[j] < times[j-1] {
+			return nil, fmt.Errorf("asaoka: reading %d: times %w (day %g follows day %g)", j, ErrNotSorted, times[j], times[j-1])
+		}
+		if j > 0 && times[j] == times[j-1] {
+			return nil, fmt.Errorf("asaoka: reading %d: %w (day %g)", j, ErrDuplicate, times[j])
+		}
+	}
+	if !finiteNum(interval) || interval < 0 {
+		return nil, fmt.Errorf("asaoka: interval %w (got %g days)", ErrNegative, interval)
+	}
+	if opt.From != 0 && opt.From < opt.AfterTime {
+		return nil, fmt.Errorf("asaoka: %w: the window starts on day %g, before the load stops changing on day %g", ErrDuringLoading, opt.From, opt.AfterTime)
+	}
+	start := math.Max(opt.From, opt.AfterTime)
+	end := math.Inf(1)
+	if opt.To > 0 {
+		end = opt.To
+	}
+	first, last := -1, -1
+	for j, t := range times {
+		if t >= start && t <= end {
+			if first < 0 {
+				first = j
+			}
+			last = j
+		}
+	}
+	if first < 0 && (len(times) == 0 || times[len(times)-1] < start) {
+		what := "the record is empty"
+		if len(times) > 0 {
+			what = fmt.Sprintf("the last reading is on day %g", times[len(times)-1])
+		}
+		return nil, fmt.Errorf("asaoka: %w: %s, and the load changes until day %g", ErrDuringLoading, what, start)
+	}
+	inWindow := last - first + 1
+	if first < 0 {
+		inWindow = 0
+	}
+	if inWindow < asaokaMinPoints {
+		return nil, fmt.Errorf("asaoka: %w: %d readings between day %g and day %g; the method needs at least %d", ErrTooFewPoints, inWindow, start, math.Min(end, times[len(times)-1]), asaokaMinPoints)
+	}
+	t0, t1 := times[first], times[last]
+	span := t1 - t0
+	if interval == 0 {
+		n := min(max(inWindow, asaokaAutoMin), asaokaAutoMax)
+		interval = span / float64(n-1)
+	}
+	n := int(math.Floor(span/interval*(1+1e-12))) + 1
+	if n < asaokaMinPoints {
+		return nil, fmt.Errorf("asaoka: %w: an interval of %g days gives %d points between day %g and day %g; use at most %.4g days", ErrTooFewPoints, interval, n, t0, t1, span/float64(asaokaMinPoints-1))
+	}
+
+	a := &AsaokaResult{Interval: interval, Times: make([]float64, n), Settlements: make([]float64, n)}
+	k := first
+	for j := range n {
+		t := t0 + float64(j)*interval
+		if j == n-1 && t > t1 {
+			t = t1 // rounding
+		}
+		for k+1 < last && times[k+1] <= t {
+			k++
+		}
+		a.Times[j] = t
+		a.Settlements[j] = interpAt(times[k], settlements[k], times[k+1], settlements[k+1], t)
+	}
+
+	x, y := a.Settlements[:n-1], a.Settlements[1:]
+	m := float64(n - 1)
+	xm := stat.Mean(x, nil)
+	sxx := 0.0
+	for _, v := range x {
+		sxx += (v - xm) * (v - xm)
+	}
+	if !(sxx > 0) {
+		return nil, fmt.Errorf("asaoka: %w: the resampled settlements do not change (%g)", ErrNoFinal, x[0])
+	}
+	b0, b1 := stat.LinearRegression(x, y, nil, false)
+	a.Beta0, a.Beta1 = b0, b1
+	if !(b1 > 0 && b1 < 1) {
+		return nil, fmt.Errorf("asaoka: %w: β1 = %.4g is not between 0 and 1 (still loading, creep, heave or readings too noisy for Δt = %g days)", ErrNoFinal, b1, interval)
+	}
+	a.RSquared = stat.RSquared(x, y, nil, b0, b1)
+	a.Fitted = make([]float64, n-1)
+	sse := 0.0
+	for j := range x {
+		a.Fitted[j] = b0 + b1*x[j]
+		sse += (y[j] - a.Fitted[j]) * (y[j] - a.Fitted[j])
+	}
+	s2 := math.NaN()
+	if n-1 > 2 {
+		s2 = sse / (m - 2)
+	}
+	v1 := s2 / sxx
+	v0 := s2 * (1/m + xm*xm/sxx)
+	c01 := -xm * s2 / sxx
+	a.Beta0SE, a.Beta1SE = math.Sqrt(v0), math.Sqrt(v1)
+	a.Final = b0 / (1 - b1)
+	g0, g1 := 1/(1-b1), b0/((1-b1)*(1-b1))
+	a.FinalSE = math.Sqrt(math.Max(0, g0*g0*v0+g1*g1*v1+2*g0*g1*c01))
+
+	if opt.Thickness > 0 && (opt.DrainedEnds == 1 || opt.DrainedEnds == 2) {
+		d := opt.Thickness / float64(opt.DrainedEnds)
+		a.DrainagePath = d
+		a.Cv = -4 * d * d * math.Log(b1) / (math.Pi * math.Pi * interval)
+		a.CvSE = 4 * d * d / (math.Pi * math.Pi * interval) * a.Beta1SE / b1
+		a.CvParabolic = -5 * d * d * math.Log(b1) / (12 * interval)
+	}
+	return a, nil
+}
+
+// PlateAsaoka applies Asaoka to settlement plate i of p.Monitoring with
+// the options AsaokaOptionsFor(p), resolving dates against
+// Monitoring.Start.
+func PlateAsaoka(p *Project, i int, interval float64) (*AsaokaResult, error) {
+	if p.Monitoring == nil || i < 0 || i >= len(p.Monitoring.Plates) {
+		n := 0
+		if p.Monitoring != nil {
+			n = len(p.Monitoring.Plates)
+		}
+		return nil, fmt.Errorf("asaoka: no plate %d (the project has %d)", i, n)
+	}
+	pl := p.Monitoring.Plates[i]
+	ts, err := ReadingTimes(p.Monitoring, pl.Readings)
+	if err != nil {
+		return nil, err
+	}
+	vs := make([]float64, len(pl.Readings))
+	for j, r := range pl.Readings {
+		vs[j] = r.Value
+	}
+	return Asaoka(ts, vs, interval, AsaokaOptionsFor(p))
+}
+
+func finiteNum(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
+
+// interpAt interpolates linearly between (t0, v0) and (t1, v1) at t.
+func interpAt(t0, v0, t1, v1, t float64) float64 {
+	if t1 == t0 {
+		return v0
+	}
+	return v0 + (v1-v0)*(t-t0)/(t1-t0)
+}

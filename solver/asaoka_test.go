@@ -1,0 +1,366 @@
+package solver
+
+import (
+	"errors"
+	"math"
+	"strings"
+	"testing"
+
+	"gonum.org/v1/gonum/integrate/quad"
+	"gonum.org/v1/gonum/mat"
+
+	"porelight/solver/internal/series"
+)
+
+// The rate constants behind the two cv forms in the doc of Asaoka, by
+// quadrature of the weak form λ d²/cv = ∫ w' φ' dζ / ∫ w φ dζ on one
+// drainage path (ζ = z/d, drained at 0, closed at 1). Closed forms: the
+// parabola φ = 2ζ − ζ² with w = ζ gives 12/5 (Asaoka's 5/12 coefficient
+// as usually quoted, recalled from memory and derived in asaoka.go), with
+// w = 1 gives 3, with w = φ gives 5/2; the first Terzaghi (1943) mode
+// φ = w = sin(πζ/2) gives π²/4. Tolerance 1e-12 relative (10-point Gauss–Legendre is exact
+// for the polynomials and converged for the sine).
+func TestAsaokaRateConstants(t *testing.T) {
+	t.Parallel()
+	parab := func(z float64) float64 { return 2*z - z*z }
+	dparab := func(z float64) float64 { return 2 - 2*z }
+	sine := func(z float64) float64 { return math.Sin(math.Pi * z / 2) }
+	dsine := func(z float64) float64 { return math.Pi / 2 * math.Cos(math.Pi*z/2) }
+	cases := []struct {
+		name        string
+		phi, dphi   func(float64) float64
+		w, dw       func(float64) float64
+		want        float64
+		description string
+	}{
+		{"parabola, w = ζ", parab, dparab, func(z float64) float64 { return z }, func(float64) float64 { return 1 }, 12.0 / 5, "Asaoka's parabolic isochrone"},
+		{"parabola, w = 1", parab, dparab, func(float64) float64 { return 1 }, func(float64) float64 { return 0 }, 3, "volume balance"},
+		{"parabola, Galerkin", parab, dparab, parab, dparab, 5.0 / 2, "Galerkin"},
+		{"first mode", sine, dsine, sine, dsine, math.Pi * math.Pi / 4, "Terzaghi's slowest mode"},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			t.Parallel()
+			// ∫ w φ_t = −cv ∫ w' φ' + [w cv φ']₀¹: the boundary term vanishes
+			// where w(0) = 0 (drained face) and φ'(1) = 0 (closed face); for
+			// w = 1 it is the outflow cv φ'(0) at the drained face.
+			stiff := quad.Fixed(func(z float64) float64 { return c.dw(z) * c.dphi(z) }, 0, 1, 10, quad.Legendre{}, 0)
+			if c.w(0) != 0 {
+				stiff += c.w(0) * c.dphi(0)
+			}
+			mass := quad.Fixed(func(z float64) float64 { return c.w(z) * c.phi(z) }, 0, 1, 10, quad.Legendre{}, 0)
+			if got := stiff / mass; math.Abs(got/c.want-1) > 1e-12 {
+				t.Errorf("%s: λd²/cv = %.15g, want %.15g", c.description, got, c.want)
+			}
+		})
+	}
+}
+
+// terzaghiRecord is a settlement record s∞·U(cv t/d²) of one drainage
+// path d under an instantaneous load, read every step days up to Tv = 1
+// (Terzaghi 1943, summed by internal/series).
+func terzaghiRecord(sInf, cv, d, step float64) (ts, ss []float64) {
+	for t := 0.0; t <= d*d/cv*(1+1e-12); t += step {
+		ts = append(ts, t)
+		ss = append(ss, sInf*series.TerzaghiU(cv*t/(d*d)))
+	}
+	return ts, ss
+}
+
+// Asaoka on an exact Terzaghi record recovers the final settlement and,
+// with the first-mode form, cv; the parabolic form is 5π²/48 = 1.028
+// times higher (asaoka.go). Tolerances: the final settlement within 1 %
+// (an acceptance limit; the second mode alone moves it by about 0.1 % at
+// Tv0 = 0.2); cv within the share of the second mode in the decay rate at
+// the window start, 8·(1/9)·exp(−2π² Tv0), which is the only departure
+// from a single exponential larger than rounding (Terzaghi 1943: the modes
+// decay as exp(−M² Tv), M = π/2, 3π/2, … with weights 2/M²).
+func TestAsaokaTerzaghi(t *testing.T) {
+	t.Parallel()
+	const sInf, cv = 0.5, 0.02 // m, m²/day
+	cases := []struct {
+		name     string
+		d        float64 // drainage path, m
+		ends     int
+		tv0      float64 // window start, time factor
+		interval float64 // days; 0 automatic
+		step     float64 // reading interval, days
+	}{
+		{"single drainage, automatic interval", 4, 1, 0.2, 0, 10},
+		{"single drainage, 20 days", 4, 1, 0.2, 20, 10},
+		{"single drainage, 100 days", 4, 1, 0.2, 100, 10},
+		{"later window", 4, 1, 0.3, 0, 10},
+		{"double drainage", 3, 2, 0.2, 0, 7},
+		{"double drainage, sparse readings", 3, 2, 0.25, 0, 30},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			t.Parallel()
+			ts, ss := terzaghiRecord(sInf, cv, c.d, c.step)
+			opt := AsaokaOptions{From: c.tv0 * c.d * c.d / cv, Thickness: c.d * float64(c.ends), DrainedEnds: c.ends}
+			a, err := Asaoka(ts, ss, c.interval, opt)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if math.Abs(a.Final/sInf-1) > 0.01 {
+				t.Errorf("final %.5g m, want %.5g within 1 %%", a.Final, sInf)
+			}
+			tol := 8.0 / 9 * math.Exp(-2*math.Pi*math.Pi*c.tv0)
+			if math.Abs(a.Cv/cv-1) > tol {
+				t.Errorf("cv %.5g m²/day, want %.5g within %.2g", a.Cv, cv, tol)
+			}
+			parabolic := cv * 5 * math.Pi * math.Pi / 48
+			if math.Abs(a.CvParabolic/parabolic-1) > tol {
+				t.Errorf("parabolic cv %.5g m²/day, want %.5g within %.2g", a.CvParabolic, parabolic, tol)
+			}
+			if a.DrainagePath != c.d {
+				t.Errorf("drainage path %g m, want %g", a.DrainagePath, c.d)
+			}
+			if n := len(a.Times); n < 6 || len(a.Settlements) != n || len(a.Fitted) != n-1 {
+				t.Errorf("%d points, %d settlements, %d fitted", n, len(a.Settlements), len(a.Fitted))
+			}
+			// The forecast passes through the record's end within the same
+			// tolerance as the final settlement.
+			if end := ts[len(ts)-1]; math.Abs(a.Forecast(end)/ss[len(ss)-1]-1) > 0.01 {
+				t.Errorf("forecast at day %g: %.5g, record %.5g", end, a.Forecast(end), ss[len(ss)-1])
+			}
+		})
+	}
+}
+
+// Early readings (Tv below about 0.1, where the higher modes still matter)
+// bias Asaoka: the final settlement comes out low and cv high. This is
+// why the method reads only the later part of a record (Asaoka 1978).
+// The check: from Tv = 0.05 the error exceeds the 1 % of the late window,
+// in the known direction.
+func TestAsaokaEarlyBias(t *testing.T) {
+	t.Parallel()
+	const sInf, cv, d = 0.5, 0.02, 4.0
+	ts, ss := terzaghiRecord(sInf, cv, d, 10)
+	a, err := Asaoka(ts, ss, 0, AsaokaOptions{From: 0.05 * d * d / cv, Thickness: d, DrainedEnds: 1})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !(a.Final < 0.99*sInf && a.Cv > 1.05*cv) {
+		t.Errorf("from Tv = 0.05: final %.4g (true %.4g), cv %.4g (true %.4g): expected a low final and a high cv", a.Final, sInf, a.Cv, cv)
+	}
+}
+
+// The regression and its standard errors match an independent least
+// squares solve of [1 s_(j−1)] β = s_j by QR (gonum mat), with
+// cov = s²(XᵀX)⁻¹ (ordinary least squares; common practice). Tolerance
+// 1e-9 relative: two exact methods, rounding only.
+func TestAsaokaRegression(t *testing.T) {
+	t.Parallel()
+	// An exact geometric record s_j = 2 − 2·0.5^j (β0 = 1, β1 = 0.5,
+	// s∞ = 2) plus fixed disturbances, at days 0, 10, … 70.
+	dist := []float64{0, 0.01, -0.02, 0.015, 0, -0.01, 0.02, -0.005}
+	var ts, ss []float64
+	for j := range dist {
+		ts = append(ts, 10*float64(j))
+		ss = append(ss, 2-2*math.Pow(0.5, float64(j))+dist[j])
+	}
+	a, err := Asaoka(ts, ss, 10, AsaokaOptions{Thickness: 2, DrainedEnds: 2})
+	if err != nil {
+		t.Fatal(err)
+	}
+	n := len(ss) - 1
+	x := mat.NewDense(n, 2, nil)
+	y := mat.NewVecDense(n, ss[1:])
+	for j := range n {
+		x.Set(j, 0, 1)
+		x.Set(j, 1, ss[j])
+	}
+	var qr mat.QR
+	qr.Factorize(x)
+	var beta mat.VecDense
+	if err := qr.SolveVecTo(&beta, false, y); err != nil {
+		t.Fatal(err)
+	}
+	var res mat.VecDense
+	res.MulVec(x, &beta)
+	res.SubVec(y, &res)
+	s2 := mat.Dot(&res, &res) / float64(n-2)
+	var xtx, inv mat.Dense
+	xtx.Mul(x.T(), x)
+	if err := inv.Inverse(&xtx); err != nil {
+		t.Fatal(err)
+	}
+	want := map[string][2]float64{
+		"β0":    {a.Beta0, beta.AtVec(0)},
+		"β1":    {a.Beta1, beta.AtVec(1)},
+		"SE β0": {a.Beta0SE, math.Sqrt(s2 * inv.At(0, 0))},
+		"SE β1": {a.Beta1SE, math.Sqrt(s2 * inv.At(1, 1))},
+		"s∞":    {a.Final, beta.AtVec(0) / (1 - beta.AtVec(1))},
+		// cv = −4d² ln β1/(π²Δt) with d = 1 m, and its first-order error.
+		"cv":    {a.Cv, -4 * math.Log(beta.AtVec(1)) / (math.Pi * math.Pi * 10)},
+		"SE cv": {a.CvSE, 4 / (math.Pi * math.Pi * 10) * math.Sqrt(s2*inv.At(1, 1)) / beta.AtVec(1)},
+	}
+	for name, v := range want {
+		if math.Abs(v[0]/v[1]-1) > 1e-9 {
+			t.Errorf("%s = %.12g, want %.12g", name, v[0], v[1])
+		}
+	}
+	// The final settlement's standard error, first-order propagation
+	// g·C·g with g = (1/(1−β1), β0/(1−β1)²), against a central difference
+	// of s∞(β0, β1) (step 1e-6).
+	b0, b1 := beta.AtVec(0), beta.AtVec(1)
+	h := 1e-6
+	g := []float64{
+		((b0+h)/(1-b1) - (b0-h)/(1-b1)) / (2 * h),
+		(b0/(1-b1-h) - b0/(1-b1+h)) / (2 * h),
+	}
+	v := 0.0
+	for i := range 2 {
+		for j := range 2 {
+			v += g[i] * g[j] * s2 * inv.At(i, j)
+		}
+	}
+	if math.Abs(a.FinalSE/math.Sqrt(v)-1) > 1e-6 {
+		t.Errorf("SE s∞ = %.9g, want %.9g", a.FinalSE, math.Sqrt(v))
+	}
+	// A plain geometric record is fitted exactly: β1 = 0.5 to rounding.
+	for j := range ss {
+		ss[j] = 2 - 2*math.Pow(0.5, float64(j))
+	}
+	if a, err = Asaoka(ts, ss, 10, AsaokaOptions{}); err != nil || math.Abs(a.Beta1-0.5) > 1e-12 || math.Abs(a.Final-2) > 1e-12 || a.Cv != 0 {
+		t.Errorf("exact record: %+v, %v", a, err)
+	}
+}
+
+// The FE solver's own settlement series, read as plate records by date,
+// gives back cv = k/(mv γw) and the final settlement mv·q·H (Terzaghi
+// 1943; common practice) through PlateAsaoka and AsaokaOptionsFor.
+// Tolerance 1 %: the second-mode share at Tv0 = 0.3 is 0.24 % (see
+// TestAsaokaTerzaghi), the rest is the mesh and time-step error.
+func TestAsaokaSolverRecord(t *testing.T) {
+	t.Parallel()
+	cases := []struct {
+		name        string
+		top, bottom bool
+		thick, path float64
+		start, ramp float64
+	}{
+		{"single drainage, instant load", true, false, 5, 5, 0, 0},
+		{"double drainage, ramped load", true, true, 6, 3, 10, 20},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			t.Parallel()
+			const k, mv, q = 1e-9, 5e-4, 50.0
+			p := &Project{
+				Format:     Format,
+				Layers:     []Layer{{Name: "clay", Thickness: c.thick, GammaSat: 17, K: k, Mv: mv}},
+				Top:        Boundary{Drained: c.top},
+				Bottom:     Boundary{Drained: c.bottom},
+				Loads:      []Load{{Start: c.start, Ramp: c.ramp, Q: q}},
+				Mesh:       MeshSettings{MaxSize: 0.1},
+				Monitoring: &Monitoring{Start: "2023-04-01"},
+			}
+			r, err := Solve(p, nil)
+			if err != nil {
+				t.Fatal(err)
+			}
+			cv := k * secondsPerDay / (mv * DefaultGammaW)
+			tEnd := c.start + c.ramp
+			var pl Plate
+			ser := r.Consolidation.Series
+			day0, _ := parseDate(p.Monitoring.Start)
+			for day := 0; day <= int(tEnd+1.2*c.path*c.path/cv); day += 25 {
+				date := day0.AddDate(0, 0, day).Format(dateLayout)
+				pl.Readings = append(pl.Readings, Reading{Date: date, Value: fitSeriesAt(ser.Time, ser.Settlement, float64(day))})
+			}
+			p.Monitoring.Plates = []Plate{pl}
+			if err := Validate(p); err != nil {
+				t.Fatal(err)
+			}
+			// Read from Tv = 0.3 after the end of loading.
+			opt := AsaokaOptionsFor(p)
+			if opt.AfterTime != tEnd || opt.Thickness != c.thick {
+				t.Fatalf("options %+v", opt)
+			}
+			ts, _ := ReadingTimes(p.Monitoring, pl.Readings)
+			vs := make([]float64, len(ts))
+			for j, r := range pl.Readings {
+				vs[j] = r.Value
+			}
+			opt.From = tEnd + 0.3*c.path*c.path/cv
+			a, err := Asaoka(ts, vs, 0, opt)
+			if err != nil {
+				t.Fatal(err)
+			}
+			final := mv * q * c.thick
+			if math.Abs(a.Final/final-1) > 0.01 || math.Abs(a.Cv/cv-1) > 0.01 {
+				t.Errorf("final %.5g m (want %.5g), cv %.5g m²/day (want %.5g), both within 1 %%", a.Final, final, a.Cv, cv)
+			}
+			// PlateAsaoka reads the same plate with AsaokaOptionsFor(p): the
+			// whole record from the first reading (every 25 days) at or after
+			// the end of the load, resolved from its dates.
+			b, err := PlateAsaoka(p, 0, 0)
+			if err != nil {
+				t.Fatal(err)
+			}
+			direct, err := Asaoka(ts, vs, 0, AsaokaOptionsFor(p))
+			if err != nil {
+				t.Fatal(err)
+			}
+			if b.Times[0] < tEnd || b.Times[0] >= tEnd+25 || b.Final != direct.Final || b.Cv != direct.Cv {
+				t.Errorf("PlateAsaoka: starts on day %g (load ends %g), final %g and cv %g; direct %g and %g", b.Times[0], tEnd, b.Final, b.Cv, direct.Final, direct.Cv)
+			}
+			if _, err := PlateAsaoka(p, 1, 0); err == nil || !strings.Contains(err.Error(), "no plate 1 (the project has 1)") {
+				t.Errorf("plate 1: %v", err)
+			}
+		})
+	}
+}
+
+// Records the method cannot read are refused with the reason and the
+// figures that show it.
+func TestAsaokaRefuses(t *testing.T) {
+	t.Parallel()
+	geometric := func(n int, ratio float64) (ts, ss []float64) {
+		for j := range n {
+			ts = append(ts, 10*float64(j))
+			ss = append(ss, 1-math.Pow(ratio, float64(j)))
+		}
+		return ts, ss
+	}
+	ts8, ss8 := geometric(8, 0.6)
+	cases := []struct {
+		name     string
+		ts, ss   []float64
+		interval float64
+		opt      AsaokaOptions
+		reason   error
+		says     string
+	}{
+		{"one point", []float64{5}, []float64{0.1}, 0, AsaokaOptions{}, ErrTooFewPoints, "1 readings between day 0 and day 5"},
+		{"three readings after the load", ts8, ss8, 0, AsaokaOptions{AfterTime: 45}, ErrTooFewPoints, "3 readings between day 45 and day 70"},
+		{"interval too long", ts8, ss8, 30, AsaokaOptions{}, ErrTooFewPoints, "an interval of 30 days gives 3 points between day 0 and day 70; use at most 23.33 days"},
+		{"window during loading", ts8, ss8, 0, AsaokaOptions{AfterTime: 20, From: 10}, ErrDuringLoading, "starts on day 10, before the load stops changing on day 20"},
+		{"record ends before the load does", ts8, ss8, 0, AsaokaOptions{AfterTime: 100}, ErrDuringLoading, "the last reading is on day 70"},
+		{"empty record", nil, nil, 0, AsaokaOptions{}, ErrDuringLoading, "the record is empty"},
+		{"growing", ts8, func() []float64 { _, s := geometric(8, 1.2); return s }(), 0, AsaokaOptions{}, ErrNoFinal, "β1 = 1.2 is not between 0 and 1"},
+		{"oscillating", ts8, func() []float64 { _, s := geometric(8, -0.5); return s }(), 10, AsaokaOptions{}, ErrNoFinal, "β1 = -0.5 is not between 0 and 1"},
+		{"flat", ts8, make([]float64, 8), 0, AsaokaOptions{}, ErrNoFinal, "do not change"},
+		{"unsorted", []float64{0, 10, 5, 20}, ss8[:4], 0, AsaokaOptions{}, ErrNotSorted, "reading 2: times must be in increasing order (day 5 follows day 10)"},
+		{"repeated time", []float64{0, 10, 10, 20}, ss8[:4], 0, AsaokaOptions{}, ErrDuplicate, "reading 2: repeats the time of the reading before (day 10)"},
+		{"NaN settlement", ts8[:4], []float64{0, math.NaN(), 0.5, 0.6}, 0, AsaokaOptions{}, ErrNotFinite, "reading 1"},
+		{"negative interval", ts8, ss8, -5, AsaokaOptions{}, ErrNegative, "got -5 days"},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			t.Parallel()
+			a, err := Asaoka(c.ts, c.ss, c.interval, c.opt)
+			if err == nil {
+				t.Fatalf("no error; got %+v", a)
+			}
+			if !errors.Is(err, c.reason) {
+				t.Errorf("reason: got %v, want %v", err, c.reason)
+			}
+			if !strings.Contains(err.Error(), c.says) {
+				t.Errorf("message %q does not say %q", err.Error(), c.says)
+			}
+		})
+	}
+}

@@ -1,0 +1,757 @@
+package solver
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"slices"
+	"sort"
+	"strconv"
+	"strings"
+
+	"gonum.org/v1/gonum/mat"
+	"gonum.org/v1/gonum/optimize"
+)
+
+// FitData selects the records BackFit compares the prediction with.
+type FitData int
+
+const (
+	FitAll         FitData = iota // every plate and piezometer record
+	FitSettlements                // the plates only
+	FitPressures                  // the piezometers only
+)
+
+// Back-analysis constants.
+const (
+	defaultFitRuns = 200
+	fitStep        = 1e-4         // forward difference step in ln(multiplier)
+	maxLogMult     = 13.815510558 // ln 1e6: multipliers stay within 1e-6 … 1e6
+	fitTolerance   = 0.01         // stop when a Gauss–Newton step is below 1 % of the standard error
+	z95            = 1.959963985  // two-sided 95 % point of the normal distribution
+)
+
+// FitSpec says what BackFit adjusts and against which readings. The zero
+// value fits nothing and is refused: name at least one layer or Scale.
+type FitSpec struct {
+	// Layers are the indices of the layers whose permeability k is
+	// multiplied by a fitted factor; mv stays, so cv = k/(mv γw) takes
+	// the same factor. Each index at most once.
+	Layers []int `json:"layers,omitempty"`
+	// Scale, when true, also fits one factor S on the settlement: mv and
+	// k of every layer are both multiplied by S, so every cv and every
+	// excess pore pressure stays and the linear settlement curve scales
+	// by S (its final value too); it is the same as scaling the predicted
+	// curve, but done in the project so that the fitted project shows it.
+	// The steady flux through the column scales with S too, and under a
+	// fixed inflow at an undrained end so does the steady head loss (by
+	// 1/S); the fit sees this, as every prediction comes from Solve. The
+	// e–log σ' settlement is not scaled.
+	Scale bool `json:"scale,omitempty"`
+	// Data selects the records; the zero value uses all of them.
+	Data FitData `json:"data,omitempty"`
+	// From leaves out readings taken before this time, days (e.g. while
+	// the plates settled in). Zero uses every reading.
+	From float64 `json:"from,omitempty"`
+	// SettlementSigma (m) and PressureSigma (kPa) are the standard
+	// deviation of one reading. Zero means each record's own range of
+	// values (largest minus smallest reading; 0.01 m or 1 kPa if the
+	// record is flat): every record then counts in proportion to its
+	// number of readings whatever its unit.
+	SettlementSigma float64 `json:"settlementSigma,omitempty"`
+	PressureSigma   float64 `json:"pressureSigma,omitempty"`
+	// MaxRuns caps the number of solver runs. Zero means 200.
+	MaxRuns int `json:"maxRuns,omitempty"`
+}
+
+// FitResult is the outcome of BackFit.
+type FitResult struct {
+	// Params holds one entry per fitted layer, in the order of
+	// FitSpec.Layers, then the settlement scale when fitted.
+	Params []FitParam `json:"params"`
+	// Correlation is the correlation matrix of the fitted log
+	// multipliers, in the order of Params. Values near ±1 mean the
+	// records can hardly tell the two parameters apart; the row and
+	// column of a parameter that is not Determined are zero.
+	Correlation [][]float64 `json:"correlation"`
+	// Readings is the number of readings compared.
+	Readings int `json:"readings"`
+	// ResidualVariance is Σr²/(n − p) of the weighted residuals r
+	// (reading minus prediction, over its sigma) for n readings and p
+	// parameters: about 1 when the sigmas are right.
+	ResidualVariance float64 `json:"residualVariance"`
+	// RMSSettlement (m) and RMSPressure (kPa) are the root mean square
+	// differences between reading and prediction after the fit, and the
+	// Initial ones before it (nil when no such reading is compared).
+	RMSSettlement        *float64 `json:"rmsSettlement,omitempty"`
+	RMSPressure          *float64 `json:"rmsPressure,omitempty"`
+	InitialRMSSettlement *float64 `json:"initialRmsSettlement,omitempty"`
+	InitialRMSPressure   *float64 `json:"initialRmsPressure,omitempty"`
+	// Runs is the number of solver runs, the final one included.
+	Runs int `json:"runs"`
+	// Converged is true when the last Gauss–Newton step was smaller than
+	// 1 % of every determined parameter's standard error; Status says how
+	// the search ended.
+	Converged bool   `json:"converged"`
+	Status    string `json:"status"`
+	// Records holds, per record compared, the readings with the
+	// prediction before and after the fit at the reading times.
+	Records []FitRecord `json:"records"`
+	// Project is a copy of the project with the fitted values, and
+	// Result its solution (with the project's own outputs and stepping).
+	Project *Project `json:"-"`
+	Result  *Result  `json:"-"`
+}
+
+// FitParam is one fitted multiplier.
+type FitParam struct {
+	// Name is "layers[i].k" for a layer, "settlement scale" for S.
+	Name  string `json:"name"`
+	Layer int    `json:"layer"` // −1 for the settlement scale
+	// Multiplier is the fitted factor; SE its standard error (first-order,
+	// Multiplier × LogSE); LogSE the standard error of ln Multiplier; Low
+	// and High the approximate 95 % range m·exp(∓1.96 LogSE).
+	Multiplier float64 `json:"multiplier"`
+	// Determined is false when the readings cannot fix the parameter (its
+	// effect on them is nil, or it trades off exactly with another):
+	// Multiplier is then wherever the search left it and SE, LogSE, Low
+	// and High are 0.
+	Determined bool    `json:"determined"`
+	SE         float64 `json:"se"`
+	LogSE      float64 `json:"logSE"`
+	Low        float64 `json:"low"`
+	High       float64 `json:"high"`
+	// InitialCv and Cv are the layer's cv before and after the fit,
+	// m²/day (0 for the settlement scale).
+	InitialCv float64 `json:"initialCv,omitempty"`
+	Cv        float64 `json:"cv,omitempty"`
+}
+
+// FitRecord compares one record with the prediction.
+type FitRecord struct {
+	Path string `json:"path"` // "monitoring.plates[0]", "monitoring.piezometers[1]"
+	Name string `json:"name,omitempty"`
+	// Kind is "settlement" (m) or "pressure" (kPa, what the piezometer
+	// reads).
+	Kind  string  `json:"kind"`
+	Sigma float64 `json:"sigma"` // the weight's scale, m or kPa
+	// Times (days), the readings, and the prediction at those times
+	// before and after the fit.
+	Times    []float64 `json:"times"`
+	Measured []float64 `json:"measured"`
+	Initial  []float64 `json:"initial"`
+	Fitted   []float64 `json:"fitted"`
+	// RMS and InitialRMS are the root mean square differences, m or kPa.
+	RMS        float64 `json:"rms"`
+	InitialRMS float64 `json:"initialRms"`
+}
+
+// BackFit adjusts the permeability of chosen layers (and optionally a
+// settlement scale) so that the prediction of p best matches the field
+// readings in p.Monitoring, by weighted least squares.
+//
+// # Method
+//
+// The parameters are the natural logarithms of the multipliers, so the
+// multipliers stay positive; they start at 0 (the project as given). For
+// each trial the project is solved in full (Solve), the linear settlement
+// series and the pore pressure at each piezometer's depth are
+// interpolated linearly in time at the reading times, and the weighted
+// residuals r = (prediction − reading)/σ are formed, σ being the record's
+// sigma (see FitSpec). The sum ½Σr² is minimised by Gauss–Newton: the
+// Jacobian J of r is taken by forward differences (step 1e-4 in ln m, one
+// solver run per parameter), and gonum's optimize.Newton is given the
+// gradient Jᵀr and the Gauss–Newton Hessian JᵀJ, with a backtracking
+// (Armijo) line search. The search stops when the next Gauss–Newton step
+// would move every log multiplier by less than 1 % of its standard
+// error, or after FitSpec.MaxRuns runs. At the optimum the covariance of
+// the log multipliers is s²(JᵀJ)⁻¹ with s² = Σr²/(n − p) (Bates & Watts
+// 1988, Nonlinear Regression Analysis, ch. 2); the standard error of a
+// multiplier follows to first order.
+//
+// The runs of the search use the project's own mesh and stepping: no
+// coarsening. They end a little after the last reading (far enough that,
+// for a step growth up to about 1.5, the steps up to the last reading
+// are those of the full run, so the fitted curve is the one the final
+// run shows) and skip validating the monitoring records again. A fit of
+// one to three multipliers typically takes 7–25 runs.
+//
+// Progress (opt.Progress) is reported between and during runs as the
+// fraction of an expected number of runs; returning false stops the fit
+// with ErrCanceled.
+//
+// Refusals: a project that fails Validate (its Problems); no load or
+// pressure change; a layer index out of range or repeated; nothing to
+// fit; fewer readings than parameters + 1 (ErrTooFewPoints); readings
+// after stepping.endTime.
+func BackFit(p *Project, spec FitSpec, opt *Options) (*FitResult, error) {
+	if err := Validate(p); err != nil {
+		return nil, err
+	}
+	if !hasConsolidation(p) {
+		return nil, errors.New("backfit: the project has no load or pressure change, so nothing to compare with the readings")
+	}
+	f := &fitter{spec: spec, opt: opt, cache: map[string]*fitEval{}}
+	seen := map[int]bool{}
+	for i, li := range spec.Layers {
+		if li < 0 || li >= len(p.Layers) {
+			return nil, fmt.Errorf("backfit: layers[%d] = %d %w (the project has %d layers)", i, li, ErrOutOfRange, len(p.Layers))
+		}
+		if seen[li] {
+			return nil, fmt.Errorf("backfit: layer %d is named twice", li)
+		}
+		seen[li] = true
+	}
+	np := len(spec.Layers)
+	if spec.Scale {
+		np++
+	}
+	if np == 0 {
+		return nil, errors.New("backfit: nothing to fit: name at least one layer, or the settlement scale")
+	}
+	f.np = np
+	f.budget = spec.MaxRuns
+	if f.budget <= 0 {
+		f.budget = defaultFitRuns
+	}
+	f.expected = min(f.budget, 2+8*(np+1))
+	if err := f.collect(p); err != nil {
+		return nil, err
+	}
+	if f.n < np+1 {
+		return nil, fmt.Errorf("backfit: %w: %d readings for %d parameters; at least %d are needed", ErrTooFewPoints, f.n, np, np+1)
+	}
+
+	// The project every run starts from.
+	last := 0.0
+	for _, r := range f.recs {
+		last = math.Max(last, r.times[len(r.times)-1])
+	}
+	full := endTime(p)
+	if last > full {
+		return nil, fmt.Errorf("backfit: a reading on day %g is after the end of the simulation on day %g; set stepping.endTime later", last, full)
+	}
+	base := *p
+	base.Monitoring = nil
+	base.Piezometers = nil
+	for _, r := range f.recs {
+		if r.kind == kindPressure {
+			r.pz = len(base.Piezometers)
+			base.Piezometers = append(base.Piezometers, r.depth)
+		}
+	}
+	if p.Stepping.EndTime == 0 {
+		_, _, _, g := stepping(p)
+		if den := 1 - 1.25*(1-1/g); den > 0.2 {
+			base.Stepping.EndTime = math.Min(full, 1.05*last/den+1)
+		}
+	}
+	f.base = &base
+
+	// The project as given: predictions before the fit, cv and mv.
+	x0 := make([]float64, np)
+	r0, err := f.solve(&base)
+	if err != nil {
+		return nil, err
+	}
+	f.mv0 = make([]float64, len(p.Layers))
+	for i := range p.Layers {
+		f.mv0[i] = r0.Summary.Layers[i].Mv
+	}
+	f.store(x0, f.extract(r0))
+
+	prob := optimize.Problem{
+		Func: f.objective,
+		Grad: f.gradient,
+		Hess: f.hessian,
+		Status: func() (optimize.Status, error) {
+			switch {
+			case f.err != nil:
+				return optimize.Failure, f.err
+			case f.runs >= f.budget:
+				return optimize.FunctionEvaluationLimit, nil
+			}
+			return optimize.NotTerminated, nil
+		},
+	}
+	settings := &optimize.Settings{
+		Converger:       fitConverger{f},
+		MajorIterations: 100,
+	}
+	f.search = true
+	res, merr := optimize.Minimize(prob, x0, settings, &optimize.Newton{Linesearcher: &optimize.Backtracking{}})
+	f.search = false
+	if f.err != nil {
+		return nil, f.err
+	}
+	xs := x0
+	status := "not started"
+	if res != nil {
+		xs = res.X
+		status = res.Status.String()
+	}
+	if merr != nil {
+		status += ": " + merr.Error()
+	}
+
+	// Statistics at the optimum.
+	ev, err := f.eval(xs, true)
+	if err != nil {
+		if f.err != nil {
+			return nil, f.err
+		}
+		return nil, fmt.Errorf("backfit: at the fitted values: %w", err)
+	}
+	st := f.stats(ev)
+	out := &FitResult{Readings: f.n, ResidualVariance: st.s2, Converged: st.small, Status: status}
+	for i := range np {
+		m := math.Exp(xs[i])
+		fp := FitParam{Name: "settlement scale", Layer: -1, Multiplier: m, Determined: st.determined[i]}
+		if fp.Determined {
+			lse := math.Sqrt(st.cov.At(i, i))
+			fp.LogSE, fp.SE = lse, m*lse
+			fp.Low, fp.High = m*math.Exp(-z95*lse), m*math.Exp(z95*lse)
+		}
+		if i < len(spec.Layers) {
+			li := spec.Layers[i]
+			fp.Name, fp.Layer = fmt.Sprintf("layers[%d].k", li), li
+			fp.InitialCv = r0.Summary.Layers[li].Cv
+			fp.Cv = fp.InitialCv * m
+		}
+		out.Params = append(out.Params, fp)
+	}
+	out.Correlation = make([][]float64, np)
+	for i := range np {
+		out.Correlation[i] = make([]float64, np)
+		for j := range np {
+			if st.determined[i] && st.determined[j] {
+				out.Correlation[i][j] = st.cov.At(i, j) / math.Sqrt(st.cov.At(i, i)*st.cov.At(j, j))
+			}
+		}
+	}
+
+	// Records and RMS, before and after.
+	pred0 := f.cache[fitKey(x0)].pred
+	var sum [2][2]float64 // [kind][before, after]
+	var cnt [2]int
+	k := 0
+	for _, r := range f.recs {
+		fr := FitRecord{Path: r.path, Name: r.name, Kind: []string{"settlement", "pressure"}[r.kind], Sigma: r.sigma,
+			Times: r.times, Measured: r.values}
+		m := len(r.times)
+		fr.Initial = slices.Clone(pred0[k : k+m])
+		fr.Fitted = slices.Clone(ev.pred[k : k+m])
+		var s0, s1 float64
+		for j := range m {
+			s0 += fitSq(fr.Initial[j] - r.values[j])
+			s1 += fitSq(fr.Fitted[j] - r.values[j])
+		}
+		fr.InitialRMS, fr.RMS = math.Sqrt(s0/float64(m)), math.Sqrt(s1/float64(m))
+		sum[r.kind][0] += s0
+		sum[r.kind][1] += s1
+		cnt[r.kind] += m
+		out.Records = append(out.Records, fr)
+		k += m
+	}
+	if c := cnt[kindSettlement]; c > 0 {
+		out.InitialRMSSettlement = ptr(math.Sqrt(sum[kindSettlement][0] / float64(c)))
+		out.RMSSettlement = ptr(math.Sqrt(sum[kindSettlement][1] / float64(c)))
+	}
+	if c := cnt[kindPressure]; c > 0 {
+		out.InitialRMSPressure = ptr(math.Sqrt(sum[kindPressure][0] / float64(c)))
+		out.RMSPressure = ptr(math.Sqrt(sum[kindPressure][1] / float64(c)))
+	}
+
+	// The fitted project, solved as the user set it up.
+	fitted := *p
+	fitted.Layers = slices.Clone(p.Layers)
+	f.apply(fitted.Layers, xs)
+	out.Project = &fitted
+	out.Result, err = f.solve(&fitted)
+	if err != nil {
+		return nil, err
+	}
+	out.Runs = f.runs
+	if opt != nil && opt.Progress != nil && !opt.Progress(1) {
+		return nil, ErrCanceled
+	}
+	return out, nil
+}
+
+// Record kinds.
+const (
+	kindSettlement = iota
+	kindPressure
+)
+
+// fitRec is one record as compared: its readings from FitSpec.From on.
+type fitRec struct {
+	kind       int
+	path, name string
+	depth      float64 // piezometers
+	pz         int     // index in the run project's piezometers
+	sigma      float64
+	times      []float64
+	values     []float64
+}
+
+// fitEval is one point of the search: the predictions at the readings
+// and, once asked for, the Jacobian of the weighted residuals.
+type fitEval struct {
+	pred []float64
+	jac  *mat.Dense // n × np
+}
+
+// fitter holds the state of one back-analysis.
+type fitter struct {
+	spec     FitSpec
+	opt      *Options
+	base     *Project
+	recs     []*fitRec
+	n, np    int
+	mv0      []float64
+	cache    map[string]*fitEval
+	runs     int
+	budget   int
+	expected int
+	search   bool  // the search is running: MaxRuns applies
+	err      error // sticky: canceled or a failed run
+}
+
+// collect gathers the records of p.Monitoring chosen by the spec.
+func (f *fitter) collect(p *Project) error {
+	m := p.Monitoring
+	if m == nil {
+		return fmt.Errorf("backfit: %w: the project has no monitoring records", ErrTooFewPoints)
+	}
+	add := func(kind int, path, name string, depth float64, rs []Reading) error {
+		ts, err := ReadingTimes(m, rs)
+		if err != nil {
+			return err
+		}
+		r := &fitRec{kind: kind, path: path, name: name, depth: depth}
+		for j, t := range ts {
+			if t >= f.spec.From {
+				r.times = append(r.times, t)
+				r.values = append(r.values, rs[j].Value)
+			}
+		}
+		if len(r.times) == 0 {
+			return nil
+		}
+		lo, hi := slices.Min(r.values), slices.Max(r.values)
+		r.sigma = hi - lo
+		user, flat := f.spec.SettlementSigma, 0.01
+		if kind == kindPressure {
+			user, flat = f.spec.PressureSigma, 1
+		}
+		switch {
+		case user > 0:
+			r.sigma = user
+		case !(r.sigma > 0):
+			r.sigma = flat
+		}
+		f.recs = append(f.recs, r)
+		f.n += len(r.times)
+		return nil
+	}
+	if f.spec.Data != FitPressures {
+		for i, pl := range m.Plates {
+			if err := add(kindSettlement, fmt.Sprintf("monitoring.plates[%d]", i), pl.Name, 0, pl.Readings); err != nil {
+				return err
+			}
+		}
+	}
+	if f.spec.Data != FitSettlements {
+		for i, pz := range m.Piezometers {
+			if err := add(kindPressure, fmt.Sprintf("monitoring.piezometers[%d]", i), pz.Name, pz.Depth, pz.Readings); err != nil {
+				return err
+			}
+		}
+	}
+	if f.n == 0 {
+		return fmt.Errorf("backfit: %w: no reading to compare with", ErrTooFewPoints)
+	}
+	return nil
+}
+
+// apply multiplies the layers' k (and, with the scale, mv) by the
+// multipliers exp(x).
+func (f *fitter) apply(ls []Layer, x []float64) {
+	for i, li := range f.spec.Layers {
+		ls[li].K *= math.Exp(x[i])
+	}
+	if f.spec.Scale {
+		s := math.Exp(x[f.np-1])
+		for i := range ls {
+			ls[i].K *= s
+			ls[i].Mv = f.mv0[i] * s
+		}
+	}
+}
+
+// solve runs the solver once, counting the run and reporting progress.
+func (f *fitter) solve(p *Project) (*Result, error) {
+	var o *Options
+	if f.opt != nil && f.opt.Progress != nil {
+		outer := f.opt.Progress
+		done := float64(f.runs)
+		frac := func(part float64) float64 { return math.Min(0.99, (done+part)/float64(f.expected+1)) }
+		if !outer(frac(0)) {
+			return nil, ErrCanceled
+		}
+		o = &Options{Progress: func(part float64) bool { return outer(frac(part)) }}
+	}
+	f.runs++
+	r, err := Solve(p, o)
+	if err == nil && r.Consolidation == nil {
+		err = errors.New("backfit: the solve gave no consolidation result")
+	}
+	return r, err
+}
+
+// eval returns the predictions at x (and, when jac is set, the Jacobian),
+// running the solver for what the cache lacks. An error that ends the fit
+// is also kept in f.err.
+func (f *fitter) eval(x []float64, jac bool) (*fitEval, error) {
+	ev := f.cache[fitKey(x)]
+	if ev == nil {
+		pred, err := f.predict(x)
+		if err != nil {
+			return nil, err
+		}
+		ev = f.store(x, pred)
+	}
+	if jac && ev.jac == nil {
+		j := mat.NewDense(f.n, f.np, nil)
+		xp := slices.Clone(x)
+		for i := range f.np {
+			h := fitStep
+			if x[i]+h > maxLogMult {
+				h = -h // at the upper end of the range: a backward difference
+			}
+			xp[i] = x[i] + h
+			pred, err := f.predict(xp)
+			xp[i] = x[i]
+			if err != nil {
+				return nil, err
+			}
+			k := 0
+			for _, r := range f.recs {
+				for range r.times {
+					j.Set(k, i, (pred[k]-ev.pred[k])/(r.sigma*h))
+					k++
+				}
+			}
+		}
+		ev.jac = j
+	}
+	return ev, nil
+}
+
+func (f *fitter) store(x, pred []float64) *fitEval {
+	ev := &fitEval{pred: pred}
+	f.cache[fitKey(x)] = ev
+	return ev
+}
+
+// predict solves the project with the multipliers exp(x) and returns the
+// predictions at the readings.
+func (f *fitter) predict(x []float64) ([]float64, error) {
+	if f.err != nil {
+		return nil, f.err
+	}
+	for _, v := range x {
+		if !(math.Abs(v) <= maxLogMult) {
+			return nil, fmt.Errorf("a multiplier %w (%g)", ErrOutOfRange, math.Exp(v))
+		}
+	}
+	if f.search && f.runs >= f.budget {
+		return nil, fmt.Errorf("backfit: %d solver runs, the limit", f.budget)
+	}
+	q := *f.base
+	q.Layers = slices.Clone(f.base.Layers)
+	f.apply(q.Layers, x)
+	r, err := f.solve(&q)
+	if err != nil {
+		var ps Problems
+		if !errors.As(err, &ps) {
+			f.err = err // canceled, or the solver failed
+		}
+		return nil, err
+	}
+	return f.extract(r), nil
+}
+
+// extract interpolates the series of r at the reading times.
+func (f *fitter) extract(r *Result) []float64 {
+	ser := &r.Consolidation.Series
+	out := make([]float64, 0, f.n)
+	for _, rec := range f.recs {
+		ys := ser.Settlement
+		if rec.kind == kindPressure {
+			ys = ser.Piezometers[rec.pz].Pore
+		}
+		for _, t := range rec.times {
+			out = append(out, fitSeriesAt(ser.Time, ys, t))
+		}
+	}
+	return out
+}
+
+// fitSeriesAt interpolates ys(ts) linearly at t, constant beyond the ends.
+func fitSeriesAt(ts, ys []float64, t float64) float64 {
+	i := sort.SearchFloat64s(ts, t)
+	switch {
+	case i == 0:
+		return ys[0]
+	case i == len(ts):
+		return ys[len(ys)-1]
+	}
+	return interpAt(ts[i-1], ys[i-1], ts[i], ys[i], t)
+}
+
+// residuals returns (prediction − reading)/σ for every reading.
+func (f *fitter) residuals(pred []float64) []float64 {
+	r := make([]float64, 0, f.n)
+	k := 0
+	for _, rec := range f.recs {
+		for j := range rec.times {
+			r = append(r, (pred[k]-rec.values[j])/rec.sigma)
+			k++
+		}
+	}
+	return r
+}
+
+func (f *fitter) objective(x []float64) float64 {
+	ev, err := f.eval(x, false)
+	if err != nil {
+		return math.Inf(1)
+	}
+	s := 0.0
+	for _, v := range f.residuals(ev.pred) {
+		s += v * v
+	}
+	return s / 2
+}
+
+func (f *fitter) gradient(grad, x []float64) {
+	ev, err := f.eval(x, true)
+	if err != nil {
+		for i := range grad {
+			grad[i] = math.NaN()
+		}
+		return
+	}
+	g := mat.NewVecDense(len(grad), grad)
+	g.MulVec(ev.jac.T(), mat.NewVecDense(f.n, f.residuals(ev.pred)))
+}
+
+func (f *fitter) hessian(h *mat.SymDense, x []float64) {
+	ev, err := f.eval(x, true)
+	if err != nil {
+		for i := range f.np {
+			for j := i; j < f.np; j++ {
+				h.SetSym(i, j, math.NaN())
+			}
+		}
+		return
+	}
+	h.SymOuterK(1, ev.jac.T())
+}
+
+// fitStats are the least squares statistics at one point.
+type fitStats struct {
+	s2         float64       // residual variance Σr²/(n − p)
+	cov        *mat.SymDense // s²(JᵀJ)⁻¹ of the log multipliers (determined ones)
+	determined []bool        // the readings fix the parameter
+	small      bool          // the next Gauss–Newton step is within tolerance
+}
+
+// stats computes the statistics at an evaluated point with its Jacobian.
+// A parameter whose column of J is negligible (below 1e-6 of the largest:
+// the readings do not see it) is not determined and left out of the
+// covariance; if the rest still trade off (JᵀJ singular or its condition
+// number above 1e14) none is determined.
+func (f *fitter) stats(ev *fitEval) fitStats {
+	r := f.residuals(ev.pred)
+	ss := 0.0
+	for _, v := range r {
+		ss += v * v
+	}
+	st := fitStats{s2: ss / float64(f.n-f.np), cov: mat.NewSymDense(f.np, nil), determined: make([]bool, f.np)}
+	norms := make([]float64, f.np)
+	for i := range f.np {
+		norms[i] = mat.Norm(ev.jac.ColView(i), 2)
+	}
+	big := slices.Max(norms)
+	var keep []int
+	for i, v := range norms {
+		if v > 1e-6*big {
+			keep = append(keep, i)
+		}
+	}
+	if len(keep) == 0 {
+		return st
+	}
+	jk := mat.NewDense(f.n, len(keep), nil)
+	for a, i := range keep {
+		jk.SetCol(a, mat.Col(nil, i, ev.jac))
+	}
+	var h mat.SymDense
+	h.SymOuterK(1, jk.T())
+	var ch mat.Cholesky
+	if ok := ch.Factorize(&h); !ok || ch.Cond() > 1e14 {
+		return st
+	}
+	var inv mat.SymDense
+	if err := ch.InverseTo(&inv); err != nil {
+		return st
+	}
+	var g, d mat.VecDense
+	g.MulVec(jk.T(), mat.NewVecDense(f.n, r))
+	if err := ch.SolveVecTo(&d, &g); err != nil {
+		return st
+	}
+	st.small = true
+	for a, i := range keep {
+		st.determined[i] = true
+		for b, j := range keep {
+			st.cov.SetSym(i, j, st.s2*inv.At(a, b))
+		}
+		if math.Abs(d.AtVec(a)) > fitTolerance*math.Sqrt(st.cov.At(i, i))+1e-9 {
+			st.small = false
+		}
+	}
+	return st
+}
+
+// fitConverger stops the search when the next Gauss–Newton step is
+// within tolerance (see fitStats.small).
+type fitConverger struct{ f *fitter }
+
+func (fitConverger) Init(int) {}
+
+func (c fitConverger) Converged(loc *optimize.Location) optimize.Status {
+	ev := c.f.cache[fitKey(loc.X)]
+	if ev == nil || ev.jac == nil {
+		return optimize.NotTerminated
+	}
+	if c.f.stats(ev).small {
+		return optimize.StepConvergence
+	}
+	return optimize.NotTerminated
+}
+
+// fitKey identifies a point of the search exactly.
+func fitKey(x []float64) string {
+	var b strings.Builder
+	for _, v := range x {
+		b.WriteString(strconv.FormatUint(math.Float64bits(v), 16))
+		b.WriteByte(' ')
+	}
+	return b.String()
+}
+
+func fitSq(v float64) float64 { return v * v }
