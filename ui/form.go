@@ -4,7 +4,6 @@ import (
 	"fmt"
 	"math"
 	"reflect"
-	"regexp"
 	"slices"
 	"strconv"
 	"strings"
@@ -213,14 +212,67 @@ func inputFor(path string) (input, prefix string) {
 	return path, ""
 }
 
-var pageField = regexp.MustCompile(`^(title|notes|gammaW|waterTable|times|piezometers|targetDegree|designLife|` +
-	`layers\[\d+\]\.(name|thickness|gammaSat|gamma|k|mv|calpha|ecurve\.(e0|cc|cr|sigmaP|ocr))|` +
-	`(top|bottom)\.(head|inflow|excess\[\d+\]\.(t|value))|` +
-	`loads\[\d+\]\.(start|ramp|q)|` +
-	`mesh\.(order|maxSize|minPerLayer)|stepping\.(theta|dampedSteps|firstStep|growth|endTime))$`)
+// pageFields are the paths an input on the page edits, with every list
+// index written as "#" (see indexless).
+var pageFields = func() map[string]bool {
+	m := map[string]bool{}
+	add := func(prefix string, names ...string) {
+		for _, n := range names {
+			m[prefix+n] = true
+		}
+	}
+	add("", "title", "notes", "gammaW", "waterTable", "times", "piezometers", "targetDegree", "designLife")
+	add("layers[#].", "name", "thickness", "gammaSat", "gamma", "k", "mv", "calpha",
+		"ecurve.e0", "ecurve.cc", "ecurve.cr", "ecurve.sigmaP", "ecurve.ocr")
+	for _, end := range []string{"top.", "bottom."} {
+		add(end, "head", "inflow", "excess[#].t", "excess[#].value")
+	}
+	add("loads[#].", "start", "ramp", "q")
+	add("mesh.", "order", "maxSize", "minPerLayer")
+	add("stepping.", "theta", "dampedSteps", "firstStep", "growth", "endTime")
+	return m
+}()
+
+// indexless writes every list index of a field path as "#":
+// "layers[2].k" becomes "layers[#].k". A bracket holding anything but
+// digits is kept as it is.
+func indexless(path string) string {
+	var b strings.Builder
+	for {
+		i := strings.IndexByte(path, '[')
+		if i < 0 {
+			b.WriteString(path)
+			return b.String()
+		}
+		j := strings.IndexByte(path[i:], ']')
+		if j < 0 {
+			b.WriteString(path)
+			return b.String()
+		}
+		b.WriteString(path[:i])
+		if digits(path[i+1 : i+j]) {
+			b.WriteString("[#]")
+		} else {
+			b.WriteString(path[i : i+j+1])
+		}
+		path = path[i+j+1:]
+	}
+}
+
+func digits(s string) bool {
+	if s == "" {
+		return false
+	}
+	for _, r := range s {
+		if r < '0' || r > '9' {
+			return false
+		}
+	}
+	return true
+}
 
 // onPage reports whether an input on the page shows the value at path.
-func onPage(path string) bool { return pageField.MatchString(path) }
+func onPage(path string) bool { return pageFields[indexless(path)] }
 
 func isList(path string) bool { return path == "times" || path == "piezometers" }
 
@@ -377,24 +429,36 @@ func (f *Form) dropRaw(prefix string) {
 // after a structural edit: to(old) gives an item's new index, or -1 when
 // it was removed.
 func (f *Form) remap(list string, to func(old int) int) {
-	re := regexp.MustCompile(`^` + regexp.QuoteMeta(list) + `\[(\d+)\](.*)$`)
 	for _, m := range []map[string]string{f.raw, f.bad} {
 		moved := map[string]string{}
 		for k, v := range m {
-			sub := re.FindStringSubmatch(k)
-			if sub == nil {
+			old, rest, ok := listItem(k, list)
+			if !ok {
 				continue
 			}
 			delete(m, k)
-			old, _ := strconv.Atoi(sub[1])
 			if n := to(old); n >= 0 {
-				moved[fmt.Sprintf("%s[%d]%s", list, n, sub[2])] = v
+				moved[fmt.Sprintf("%s[%d]%s", list, n, rest)] = v
 			}
 		}
 		for k, v := range moved {
 			m[k] = v
 		}
 	}
+}
+
+// listItem splits a path "list[i]rest" into i and rest.
+func listItem(path, list string) (i int, rest string, ok bool) {
+	if !strings.HasPrefix(path, list+"[") {
+		return 0, "", false
+	}
+	tail := path[len(list)+1:]
+	j := strings.IndexByte(tail, ']')
+	if j < 0 || !digits(tail[:j]) {
+		return 0, "", false
+	}
+	i, err := strconv.Atoi(tail[:j])
+	return i, tail[j+1:], err == nil
 }
 
 // cloneProject makes a deep copy, so nothing is shared between the draft,

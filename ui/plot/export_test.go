@@ -183,3 +183,21 @@ func TestStandaloneSVG(t *testing.T) {
 		}
 	}
 }
+
+// TestEscapeText: user text lands in SVG as text, never markup, and the
+// characters XML cannot hold are replaced (XML 1.0 §2.2).
+func TestEscapeText(t *testing.T) {
+	t.Parallel()
+	for _, tc := range []struct{ in, want string }{
+		{`<b>"x" & 'y'</b>`, "&lt;b&gt;&#34;x&#34; &amp; &#39;y&#39;&lt;/b&gt;"},
+		{"a\tb\nc\rd", "a&#x9;b&#xA;c&#xD;d"},
+		{"bell\x07", "bell\uFFFD"},
+		{"σ'p γ ²", "σ&#39;p γ ²"},
+	} {
+		var b strings.Builder
+		esc(&b, tc.in)
+		if b.String() != tc.want {
+			t.Errorf("esc(%q) = %q, want %q", tc.in, b.String(), tc.want)
+		}
+	}
+}

@@ -1,8 +1,8 @@
 package plot
 
 import (
-	"encoding/xml"
 	"strings"
+	"unicode/utf8"
 
 	"porelight/solver"
 )
@@ -153,8 +153,34 @@ func attr(b *strings.Builder, name, value string) {
 	b.WriteString(`"`)
 }
 
+// esc writes s escaped for XML content and attribute values. Characters
+// XML 1.0 cannot hold (other control characters, invalid UTF-8) become
+// U+FFFD, as encoding/xml's EscapeText does.
 func esc(b *strings.Builder, s string) {
-	_ = xml.EscapeText(b, []byte(s)) // a strings.Builder never fails
+	for _, r := range s {
+		switch {
+		case r == '&':
+			b.WriteString("&amp;")
+		case r == '<':
+			b.WriteString("&lt;")
+		case r == '>':
+			b.WriteString("&gt;")
+		case r == '"':
+			b.WriteString("&#34;")
+		case r == '\'':
+			b.WriteString("&#39;")
+		case r == '\t':
+			b.WriteString("&#x9;")
+		case r == '\n':
+			b.WriteString("&#xA;")
+		case r == '\r':
+			b.WriteString("&#xD;")
+		case r < 0x20 || r == utf8.RuneError || (r >= 0xFFFE && r <= 0xFFFF):
+			b.WriteRune('\uFFFD')
+		default:
+			b.WriteRune(r)
+		}
+	}
 }
 
 // IsochronesSVG returns the isochrone plot as a standalone SVG file; see
