@@ -2,6 +2,7 @@ package plot
 
 import (
 	"math"
+	"strings"
 	"testing"
 )
 
@@ -51,5 +52,47 @@ func TestNearest(t *testing.T) {
 	}
 	if got, _ := nearest(nil, 0, 0); got != -1 {
 		t.Errorf("nearest(nil) = %d; want -1", got)
+	}
+}
+
+// TestThin: a curve of 200,000 points (a fine mesh) is written with at
+// most maxPathPoints points, every dropped point within a pixel of the
+// drawn line, and gaps in the source stay gaps.
+func TestThin(t *testing.T) {
+	t.Parallel()
+	var pts []Pt
+	for i := range 200_000 {
+		if i == 120_000 {
+			continue // a dropped value breaks the curve
+		}
+		x := float64(i) / 200_000 * 600
+		pts = append(pts, Pt{X: x, Y: 200 + 150*math.Sin(x/40), I: i})
+	}
+	out := thin(pts, maxPathPoints)
+	if len(out) > maxPathPoints || len(out) < 20 {
+		t.Fatalf("%d points kept, want 20 … %d", len(out), maxPathPoints)
+	}
+	d := pathD(pts)
+	if n := strings.Count(d, "M"); n != 2 {
+		t.Errorf("%d moves in the thinned path, want 2 (one gap)", n)
+	}
+	if len(d) > 16<<10 {
+		t.Errorf("path data %d bytes, want < 16 KB", len(d))
+	}
+	// Every source point lies within 1 px of the polyline through the
+	// kept points of its run (here: compare with the kept neighbours' chord).
+	j := 0
+	for _, p := range pts {
+		for j+1 < len(out) && out[j+1].X <= p.X {
+			j++
+		}
+		if j+1 >= len(out) || out[j+1].I != out[j].I+1 {
+			continue
+		}
+		a, b := out[j], out[j+1]
+		y := a.Y + (b.Y-a.Y)*(p.X-a.X)/(b.X-a.X)
+		if math.Abs(y-p.Y) > 1 {
+			t.Fatalf("point at x=%.2f is %.2f px from the drawn line", p.X, math.Abs(y-p.Y))
+		}
 	}
 }
