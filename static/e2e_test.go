@@ -22,8 +22,10 @@ import (
 
 	"github.com/chromedp/cdproto/cdp"
 	"github.com/chromedp/cdproto/emulation"
+	"github.com/chromedp/cdproto/fetch"
 	cdplog "github.com/chromedp/cdproto/log"
 	"github.com/chromedp/cdproto/network"
+	"github.com/chromedp/cdproto/page"
 	"github.com/chromedp/cdproto/runtime"
 	"github.com/chromedp/chromedp"
 
@@ -51,12 +53,29 @@ type recorder struct {
 	mu       sync.Mutex
 	requests []string
 	problems []string // console errors and warnings, exceptions, error log entries
+	// With interception on (intercept), every request pauses: local ones
+	// go on, all others fail and are listed in blocked.
+	fetchCtx context.Context
+	blocked  []string
+	dialogs  []string // messages of alert, confirm and prompt dialogues (dismissed)
 }
 
 func (r *recorder) listen(ev any) {
 	r.mu.Lock()
 	defer r.mu.Unlock()
 	switch e := ev.(type) {
+	case *fetch.EventRequestPaused:
+		if !local(e.Request.URL) {
+			r.blocked = append(r.blocked, e.Request.URL)
+		}
+		go r.answer(r.fetchCtx, e) // no commands from a listener
+	case *page.EventJavascriptDialogOpening:
+		r.dialogs = append(r.dialogs, e.Message)
+		go func(ctx context.Context) {
+			c, cancel := context.WithTimeout(ctx, 10*time.Second)
+			defer cancel()
+			_, _ = chromedp.Call(c, page.HandleJavaScriptDialog, page.HandleJavaScriptDialogParams{Accept: false})
+		}(r.fetchCtx)
 	case *network.EventRequestWillBeSent:
 		r.requests = append(r.requests, e.Request.URL)
 	case *runtime.EventConsoleAPICalled:
@@ -90,6 +109,57 @@ func (r *recorder) forget(s string) {
 	r.problems = slices.DeleteFunc(r.problems, func(p string) bool { return strings.Contains(p, s) })
 }
 
+// local reports whether a request stays on this machine.
+func local(url string) bool {
+	for _, p := range []string{"file:", "data:", "blob:", "about:"} {
+		if strings.HasPrefix(url, p) {
+			return true
+		}
+	}
+	return false
+}
+
+// answer lets a paused local request go on and fails any other.
+func (r *recorder) answer(ctx context.Context, e *fetch.EventRequestPaused) {
+	c, cancel := context.WithTimeout(ctx, 10*time.Second)
+	defer cancel()
+	if local(e.Request.URL) {
+		_, _ = chromedp.Call(c, fetch.ContinueRequest, fetch.ContinueRequestParams{RequestID: e.RequestID})
+		return
+	}
+	_, _ = chromedp.Call(c, fetch.FailRequest, fetch.FailRequestParams{RequestID: e.RequestID, ErrorReason: network.ErrorReasonBlockedByClient})
+}
+
+// intercept pauses every request of the page from now on; see recorder.
+func intercept(t *testing.T, ctx context.Context) {
+	t.Helper()
+	within(t, ctx, 10*time.Second, chromedp.Func(func(ctx context.Context, tg *chromedp.Target) error {
+		_, err := cdp.Call(ctx, tg, fetch.Enable, fetch.EnableParams{Patterns: []*fetch.RequestPattern{{URLPattern: "*"}}})
+		return err
+	}))
+}
+
+func (r *recorder) blockedRequests() []string {
+	r.mu.Lock()
+	defer r.mu.Unlock()
+	return append([]string(nil), r.blocked...)
+}
+
+func (r *recorder) dialogMessages() []string {
+	r.mu.Lock()
+	defer r.mu.Unlock()
+	return append([]string(nil), r.dialogs...)
+}
+
+// forgetRequests drops the requests and blocked requests to url.
+func (r *recorder) forgetRequests(url string) {
+	r.mu.Lock()
+	defer r.mu.Unlock()
+	same := func(u string) bool { return u == url }
+	r.requests = slices.DeleteFunc(r.requests, same)
+	r.blocked = slices.DeleteFunc(r.blocked, same)
+}
+
 func (r *recorder) snapshot() (requests, problems []string) {
 	r.mu.Lock()
 	defer r.mu.Unlock()
@@ -98,7 +168,7 @@ func (r *recorder) snapshot() (requests, problems []string) {
 
 // browser starts headless Chromium with a fresh profile and listens to
 // the page. The first action starts the browser and carries no timeout.
-func browser(t *testing.T, rec *recorder) context.Context {
+func browser(t *testing.T, rec *recorder, extra ...chromedp.ExecAllocatorOption) context.Context {
 	t.Helper()
 	exe := findBrowser()
 	if exe == "" {
@@ -111,7 +181,7 @@ func browser(t *testing.T, rec *recorder) context.Context {
 	if err != nil {
 		t.Fatal(err)
 	}
-	alloc, cancelAlloc := chromedp.NewExecAllocator(context.Background(),
+	opts := append([]chromedp.ExecAllocatorOption{
 		chromedp.ExecPath(exe), chromedp.Headless, chromedp.NoSandbox, chromedp.DisableGPU,
 		chromedp.NoFirstRun, chromedp.NoDefaultBrowserCheck,
 		chromedp.Flag("disable-quic", true),
@@ -119,8 +189,12 @@ func browser(t *testing.T, rec *recorder) context.Context {
 		chromedp.Flag("disable-component-update", true),
 		chromedp.Flag("disable-sync", true),
 		chromedp.WindowSize(1500, 1000),
-		chromedp.UserDataDir(profile))
+		chromedp.UserDataDir(profile)}, extra...)
+	alloc, cancelAlloc := chromedp.NewExecAllocator(context.Background(), opts...)
 	ctx, cancel := chromedp.NewContext(alloc, chromedp.WithListener(rec.listen))
+	rec.mu.Lock()
+	rec.fetchCtx = ctx
+	rec.mu.Unlock()
 	t.Cleanup(func() {
 		done := make(chan struct{})
 		go func() {
@@ -440,4 +514,73 @@ func mustDecode(t *testing.T, data []byte) *solver.Project {
 		t.Fatal(err)
 	}
 	return p
+}
+
+// TestE2EMonitoring opens the demo, whose project carries field records:
+// the settlement plot marks the readings of both plates, and Asaoka's
+// method gives the forecast the native solver gives.
+func TestE2EMonitoring(t *testing.T) {
+	if testing.Short() {
+		t.Skip("browser tests are skipped in -short mode")
+	}
+	if _, err := os.ReadFile(pagePath); err != nil {
+		if required() {
+			t.Fatalf("%v: run `make page` first", err)
+		}
+		t.Skipf("%v: run `make page` first", err)
+	}
+	abs, err := filepath.Abs(pagePath)
+	if err != nil {
+		t.Fatal(err)
+	}
+	demo, err := os.ReadFile("../testdata/demo.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	p := mustDecode(t, demo)
+	if p.Monitoring == nil || len(p.Monitoring.Plates) < 2 {
+		t.Fatal("the demo has no settlement plates")
+	}
+	want, err := solver.PlateAsaoka(p, 0, 0)
+	if err != nil {
+		t.Fatalf("Asaoka natively: %v", err)
+	}
+
+	rec := &recorder{}
+	ctx := browser(t, rec)
+	within(t, ctx, 60*time.Second, chromedp.Navigate("file://"+abs))
+	poll[bool](t, ctx, `!!document.getElementById("sum-flux")?.dataset.value`, 45*time.Second)
+
+	// Each plate is a legend entry and a path of marks, one per reading
+	// after day 0 (a log time axis has no day 0).
+	legend := poll[string](t, ctx, `document.getElementById("plot-settlement")?.textContent`, 10*time.Second)
+	squeeze := func(s string) string { return strings.Join(strings.Fields(s), "") } // a long name breaks onto two lines
+	for _, pl := range p.Monitoring.Plates {
+		if !strings.Contains(squeeze(legend), squeeze("plate "+pl.Name)) {
+			t.Errorf("the settlement plot's legend lacks plate %q: %.300q", pl.Name, legend)
+		}
+	}
+	marks := eval[[]int](t, ctx, `[...document.querySelectorAll("#plot-settlement path")].map(e => (e.getAttribute("d").match(/M/g) || []).length).filter(n => n > 20)`)
+	for i, pl := range p.Monitoring.Plates {
+		n := len(pl.Readings) - 1
+		if !slices.Contains(marks, n) {
+			t.Errorf("no path of %d marks for plate %d; paths with many subpaths: %v", n, i+1, marks)
+		}
+	}
+
+	got := poll[string](t, ctx, `document.getElementById("asaoka-0-final")?.dataset.value`, 10*time.Second)
+	final, err := strconv.ParseFloat(got, 64)
+	if err != nil || !near(final, want.Final, 1e-9) {
+		t.Errorf("Asaoka forecast in the page %q, natively %g", got, want.Final)
+	}
+	if s := eval[string](t, ctx, `document.getElementById("asaoka-0-final").textContent`); !strings.HasSuffix(s, " mm") {
+		t.Errorf("forecast shows %q", s)
+	}
+	if n := eval[int](t, ctx, `document.querySelectorAll("#plot-asaoka-0 path").length`); n < 5 {
+		t.Errorf("the Asaoka plot has %d paths", n)
+	}
+	_, problems := rec.snapshot()
+	for _, pr := range problems {
+		t.Errorf("%s", pr)
+	}
 }

@@ -85,6 +85,9 @@ func (f *Form) Text(path string) string {
 	if s, ok := f.raw[path]; ok {
 		return s
 	}
+	if r, ok := readingAt(&f.draft, path); ok && strings.HasSuffix(path, ".t") {
+		return readingTimeText(*r)
+	}
 	if kind := leafKind(path); kind == reflect.String {
 		return getString(&f.draft, path)
 	}
@@ -138,6 +141,9 @@ func (f *Form) SetBool(path string, on bool) {
 func (f *Form) apply(path, text string) (changed bool, problem string) {
 	before := getAny(&f.draft, path)
 	s := strings.TrimSpace(text)
+	if msg, handled := f.applyRecord(path, s); handled {
+		return msg == "" && getAny(&f.draft, path) != before, msg
+	}
 	switch {
 	case leafKind(path) == reflect.String:
 		if err := setString(&f.draft, path, text); err != nil {
@@ -166,6 +172,9 @@ func (f *Form) apply(path, text string) (changed bool, problem string) {
 }
 
 func getAny(p *solver.Project, path string) string {
+	if r, ok := readingAt(p, path); ok && strings.HasSuffix(path, ".t") {
+		return fmt.Sprint(r.T, r.Date)
+	}
 	if isList(path) {
 		return fmt.Sprint(listOf(p, path))
 	}
@@ -201,6 +210,9 @@ func (f *Form) check() {
 // inputFor maps a problem path to the input showing it: list items of
 // times and piezometers share one input, and name the item in the message.
 func inputFor(path string) (input, prefix string) {
+	if strings.HasPrefix(path, "monitoring.") && strings.HasSuffix(path, ".date") {
+		return strings.TrimSuffix(path, ".date") + ".t", "" // one input shows t or date
+	}
 	for _, list := range []string{"times", "piezometers"} {
 		if strings.HasPrefix(path, list+"[") {
 			var i int
@@ -230,6 +242,9 @@ var pageFields = func() map[string]bool {
 	add("loads[#].", "start", "ramp", "q")
 	add("mesh.", "order", "maxSize", "minPerLayer")
 	add("stepping.", "theta", "dampedSteps", "firstStep", "growth", "endTime")
+	add("monitoring.", "start")
+	add("monitoring.plates[#].", "name", "readings[#].t", "readings[#].value")
+	add("monitoring.piezometers[#].", "name", "depth", "readings[#].t", "readings[#].value")
 	return m
 }()
 
@@ -350,6 +365,9 @@ func scaleOf(path string) float64 {
 		return 100 // fraction → %
 	case "designLife":
 		return 1 / 365.25 // day → year
+	}
+	if strings.HasPrefix(path, "monitoring.plates[") && strings.HasSuffix(path, ".value") {
+		return 1000 // settlement readings: m → mm
 	}
 	return 1
 }
@@ -485,6 +503,7 @@ func cloneProject(p *solver.Project) *solver.Project {
 	q.InitialExcess = slices.Clone(p.InitialExcess)
 	q.Times = slices.Clone(p.Times)
 	q.Piezometers = slices.Clone(p.Piezometers)
+	q.Monitoring = cloneMonitoring(p.Monitoring)
 	return &q
 }
 

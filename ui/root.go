@@ -41,6 +41,9 @@ type Root struct {
 	Debounce time.Duration
 	// Version is shown in the footer.
 	Version string
+	// BackFit fits the project to its field records; nil means
+	// solver.BackFit (monitor_root.go).
+	BackFit func(*solver.Project, solver.FitSpec, *solver.Options) (*solver.FitResult, error)
 
 	form      *Form
 	demo      []byte
@@ -48,10 +51,12 @@ type Root struct {
 	resultFor *solver.Project // the model they belong to
 	solveErr  string
 	busy      bool
+	canceled  bool // the last solve was cancelled (cancel.go)
 	progress  float64
 	gen       atomic.Int64 // bumped by every committed edit; a solve of an older one is dropped
 	notices   []notice
 	shareURL  string
+	fit       *fitState // back-analysis of the field records (monitor_root.go)
 }
 
 type notice struct {
@@ -146,6 +151,13 @@ func (c *Root) commit(wait time.Duration) {
 	}
 	g := c.gen.Add(1)
 	model := c.form.Model()
+	c.canceled = false
+	// Autosave what is valid now, not once solved: an edit followed at
+	// once by a reload, or a cancelled solve, must not be lost.
+	c.autosave(model)
+	if c.reuse(model) {
+		return // only the field records changed: the results stand
+	}
 	if c.Env == nil {
 		res, err := c.run(g, model)
 		c.finish(g, model, res, err)
@@ -193,7 +205,7 @@ func (c *Root) run(g int64, model *solver.Project) (res *solver.Result, err erro
 		}
 		return c.gen.Load() == g
 	}}
-	return solve(model, opt)
+	return solve(solveInput(model), opt)
 }
 
 // finish takes the results of solve g, if it is still the latest.
@@ -210,7 +222,6 @@ func (c *Root) finish(g int64, model *solver.Project, res *solver.Result, err er
 		return
 	}
 	c.result, c.resultFor, c.solveErr = res, model, ""
-	c.autosave(model)
 }
 
 func (c *Root) autosave(p *solver.Project) {
@@ -237,6 +248,8 @@ func (c *Root) status() Status {
 		return Status{"stale", s}
 	case c.solveErr != "":
 		return Status{"error", "The solve failed: " + c.solveErr}
+	case c.canceled:
+		return c.canceledStatus()
 	case c.busy:
 		return Status{"busy", fmt.Sprintf("Solving… %.0f %%", 100*c.progress)}
 	case c.result == nil:
@@ -409,7 +422,7 @@ func (c *Root) exportPlot(name, format string) {
 		c.note("error", "There are no results to export yet.")
 		return
 	}
-	data, mime, err := plotFile(name, format, c.resultFor, c.result)
+	data, mime, err := plotFile(name, format, c.resultFor, c.result, c.fitOverlay())
 	if err == nil {
 		err = c.host().Download(baseName(c.resultFor)+"-"+name+"."+format, mime, data)
 	}

@@ -19,6 +19,8 @@ type Summary struct {
 	R      *solver.Result  // nil before the first solve
 	P      *solver.Project // the project R belongs to
 	Status Status
+	// Cancel stops the solve under way; nil hides the control.
+	Cancel func()
 }
 
 type sumRow struct {

@@ -53,6 +53,9 @@
 		var bytes = await new Response(stream).arrayBuffer();
 		var go = new Go();
 		var result = await WebAssembly.instantiate(bytes, go.importObject);
+		// The program's linear memory, read-only, for diagnostics and the
+		// browser benchmark (its buffer's byteLength is the wasm heap).
+		Object.defineProperty(globalThis, "porelightMemory", {value: result.instance.exports.mem});
 		go.run(result.instance).then(function () {
 			fail("The solver stopped after an internal error. Reload the page; the last valid inputs are autosaved where the browser allows.");
 		});

@@ -31,28 +31,31 @@ type Degree struct {
 // Figure builds the figure drawn for the current props.
 func (c *Degree) Figure() *Figure { return DegreeFigure(c.Project, c.Result, c.Width, c.Height) }
 
-// Settlement draws SettlementFigure.
+// Settlement draws SettlementFitFigure: Fit, when set, is the result of a
+// back-fitted project drawn beside the prediction.
 type Settlement struct {
 	Project       *solver.Project
 	Result        *solver.Result
+	Fit           *solver.Result
 	Width, Height int
 }
 
 // Figure builds the figure drawn for the current props.
 func (c *Settlement) Figure() *Figure {
-	return SettlementFigure(c.Project, c.Result, c.Width, c.Height)
+	return SettlementFitFigure(c.Project, c.Result, c.Fit, c.Width, c.Height)
 }
 
-// Piezometers draws PiezometersFigure.
+// Piezometers draws PiezometersFitFigure; Fit as for Settlement.
 type Piezometers struct {
 	Project       *solver.Project
 	Result        *solver.Result
+	Fit           *solver.Result
 	Width, Height int
 }
 
 // Figure builds the figure drawn for the current props.
 func (c *Piezometers) Figure() *Figure {
-	return PiezometersFigure(c.Project, c.Result, c.Width, c.Height)
+	return PiezometersFitFigure(c.Project, c.Result, c.Fit, c.Width, c.Height)
 }
 
 // SteadyProfiles draws SteadyFigure.

@@ -305,28 +305,69 @@ func (f *Figure) dot(x, y float64, fill, clip string) {
 }
 
 // legend lists the series of all panels in a column starting at (x, y),
-// at most maxRows rows; extra entries are summarised on the last row.
+// at most maxRows rows; extra entries are summarised on the last row. A
+// name too long for one row breaks after a comma or space onto a second.
 func (f *Figure) legend(x, y, width float64, maxRows int, series []*Series) {
 	if len(series) == 0 || maxRows < 1 {
 		return
 	}
 	const row = 16
-	shown := series
-	if len(series) > maxRows {
-		shown = series[:maxRows-1]
+	lines := make([][]string, len(series))
+	total := 0
+	for i, s := range series {
+		lines[i] = legendLines(s.Name, width-32, 11)
+		total += len(lines[i])
 	}
-	for i, s := range shown {
-		yy := y + float64(i)*row
-		f.path("M"+coord(x)+" "+coord(yy)+" h26", s.Style.Stroke, s.Style.Dash, s.Style.Width)
-		if s.Style.Marker {
-			f.dot(x+13, yy, s.Style.Stroke, "")
+	used := 0
+	for i, s := range series {
+		n := len(lines[i])
+		// Keep the last row for the summary unless everything fits.
+		if used+n > maxRows || (total > maxRows && used+n > maxRows-1) {
+			yy := y + float64(used)*row
+			f.text(x+32, yy+4, "+"+itoa(len(series)-i)+" more", "start", 11, inkMuted)
+			return
 		}
-		f.text(x+32, yy+4, fit(s.Name, width-32, 11), "start", 11, inkText)
+		yy := y + float64(used)*row
+		switch {
+		case s.Style.Shape != "":
+			f.marks([]Pt{{X: x + 13, Y: yy}}, s.Style, "")
+		default:
+			f.path("M"+coord(x)+" "+coord(yy)+" h26", s.Style.Stroke, s.Style.Dash, s.Style.Width)
+			if s.Style.Marker {
+				f.dot(x+13, yy, s.Style.Stroke, "")
+			}
+		}
+		for k, l := range lines[i] {
+			f.text(x+32, yy+4+float64(k)*row*0.8, l, "start", 11, inkText)
+		}
+		used += n
 	}
-	if len(shown) < len(series) {
-		yy := y + float64(len(shown))*row
-		f.text(x+32, yy+4, "+"+itoa(len(series)-len(shown))+" more", "start", 11, inkMuted)
+}
+
+// legendLines breaks a legend name into one or two lines of the width
+// given, at the last comma or space that fits; the second line is
+// shortened if need be.
+func legendLines(name string, width, size float64) []string {
+	if textWidth(name, size) <= width {
+		return []string{name}
 	}
+	r := []rune(name)
+	n := min(len(r), int(width/(size*0.56)))
+	split := func(k int) []string {
+		return []string{strings.TrimSpace(string(r[:k])), fit(strings.TrimSpace(string(r[k:])), width, size)}
+	}
+	// After a comma when the rest then fits, else at the last space.
+	for k := n - 1; k > 1; k-- {
+		if r[k] == ' ' && r[k-1] == ',' && textWidth(strings.TrimSpace(string(r[k:])), size) <= width {
+			return split(k)
+		}
+	}
+	for k := n - 1; k > 0; k-- {
+		if r[k] == ' ' {
+			return split(k)
+		}
+	}
+	return []string{fit(name, width, size)}
 }
 
 // allSeries lists the series of every panel in order.

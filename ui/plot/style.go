@@ -9,6 +9,11 @@ type Style struct {
 	// Marker is true for styles whose data points are also marked with a
 	// small dot (used when a curve has few points).
 	Marker bool
+	// Shape, when set, draws the series as marks only, with no line:
+	// "circle", "square", "triangle", "diamond", "down" (a triangle
+	// pointing down) or "cross". Open marks are white inside.
+	Shape string
+	Open  bool
 }
 
 // palette is Porelight's curve scheme. Neighbours differ in lightness as
@@ -25,6 +30,26 @@ var palette = []Style{
 	{Stroke: "#7a3b1d", Dash: "4 2", Width: 1.5},         // umber, short dash
 	{Stroke: "#a7a59a", Dash: "12 4", Width: 2.5},        // stone, long dash
 	{Stroke: "#0f3f4a", Dash: "6 2 2 2 2 2", Width: 1.5}, // deep teal, dash-dot-dot
+}
+
+// markStyles mark measured points. Shape and fill (open or solid) vary
+// with the colour, so that records stay apart in a greyscale print and
+// never look like a predicted curve.
+var markStyles = []Style{
+	{Stroke: "#16233a", Width: 1.3, Shape: "circle", Open: true},
+	{Stroke: "#c0571f", Width: 1.3, Shape: "square"},
+	{Stroke: "#4a2c5e", Width: 1.3, Shape: "triangle", Open: true},
+	{Stroke: "#5f8f3e", Width: 1.3, Shape: "diamond"},
+	{Stroke: "#0f3f4a", Width: 1.6, Shape: "cross"},
+	{Stroke: "#7a3b1d", Width: 1.3, Shape: "down", Open: true},
+}
+
+// markAt returns the i-th style of measured points, cycling.
+func markAt(i int) Style {
+	if i < 0 {
+		i = -i
+	}
+	return markStyles[i%len(markStyles)]
 }
 
 // styleAt returns the i-th style of the scheme, cycling; past one cycle the

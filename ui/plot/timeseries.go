@@ -120,22 +120,46 @@ func (f *Figure) markTime(pn *Panel, t *float64, y float64, name string) {
 
 // SettlementFigure builds the plot of primary settlement (m, growing
 // downward) against log time, from mv and, when present, from the e–log σ′
-// curves.
+// curves, with the readings of the settlement plates in p.Monitoring as
+// marks.
 func SettlementFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
+	return SettlementFitFigure(p, r, nil, w, h)
+}
+
+// SettlementFitFigure is SettlementFigure plus, when fit is not nil, the
+// settlement from mv of a back-fitted project.
+func SettlementFitFigure(p *solver.Project, r, fit *solver.Result, w, h int) *Figure {
 	f := newFigure("plot-settlement", "Settlement", w, h)
 	s, msg := consolidationSeries(r)
 	if s == nil {
 		return f.message(msg)
 	}
-	lo, hi, ok := finiteRange(s.Settlement, s.SettlementElog)
+	recs := plateRecords(p)
+	all := [][]float64{s.Settlement, s.SettlementElog}
+	var fs *solver.Series
+	if fit != nil && fit.Consolidation != nil {
+		fs = &fit.Consolidation.Series
+		all = append(all, fs.Settlement)
+	}
+	for _, m := range recs {
+		all = append(all, m.vs)
+	}
+	lo, hi, ok := finiteRange(all...)
 	if !ok {
 		return f.message("No settlement results in this solve.")
 	}
 	tlo, thi, _ := positiveTimeRange(s.Time)
+	tlo, thi = readingSpan(tlo, thi, recs)
 	lo, hi = padRange(math.Min(0, lo), math.Max(0, hi))
 	pn, clip := f.timeFigure(tlo, thi, lo, hi, "Settlement, m", true)
 	f.addSeries(pn, clip, "From mv", styleAt(0), s.Time, s.Settlement, readTime("s", " m", 3))
 	f.addSeries(pn, clip, "From e–log σ′", styleAt(1), s.Time, s.SettlementElog, readTime("s", " m", 3))
+	if fs != nil {
+		f.addSeries(pn, clip, "From mv, back-fitted", styleAt(4), fs.Time, fs.Settlement, readTime("s", " m", 3))
+	}
+	for i, m := range recs {
+		f.addPoints(pn, clip, "plate "+m.name+", measured", markAt(i), m.ts, m.vs, readTime("measured s", " m", 3))
+	}
 	f.legend(f.W-legendW+8, timeTop+8, legendW-12, int((f.H-timeTop-20)/16), f.allSeries())
 	return f
 }
@@ -146,22 +170,42 @@ const excessDash = "1.5 3"
 
 // PiezometersFigure builds the plot of pore pressure (kPa) against log time
 // at every piezometer: the reading (steady plus excess) in the piezometer's
-// own style and the excess alone dotted, thinner, in the same colour.
+// own style and the excess alone dotted, thinner, in the same colour. The
+// readings of the piezometer records in p.Monitoring are drawn as marks in
+// the colour of the curve at their depth.
 func PiezometersFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
+	return PiezometersFitFigure(p, r, nil, w, h)
+}
+
+// PiezometersFitFigure is PiezometersFigure plus, when fit is not nil, the
+// pore pressure of a back-fitted project at the depths of the records.
+func PiezometersFitFigure(p *solver.Project, r, fit *solver.Result, w, h int) *Figure {
 	f := newFigure("plot-piezometers", "Piezometers: pore pressure against time", w, h)
 	s, msg := consolidationSeries(r)
 	if s == nil {
 		return f.message(msg)
 	}
+	recs := piezometerRecords(p)
 	var all [][]float64
 	for _, pz := range s.Piezometers {
 		all = append(all, pz.Pore, pz.Excess)
+	}
+	var fs *solver.Series
+	if fit != nil && fit.Consolidation != nil {
+		fs = &fit.Consolidation.Series
+	}
+	for _, m := range recs {
+		all = append(all, m.vs)
+		if fz := depthIndex(fs, m.depth); fz >= 0 {
+			all = append(all, fs.Piezometers[fz].Pore)
+		}
 	}
 	lo, hi, ok := finiteRange(all...)
 	if !ok {
 		return f.message(msgNoPiezometers)
 	}
 	tlo, thi, _ := positiveTimeRange(s.Time)
+	tlo, thi = readingSpan(tlo, thi, recs)
 	lo, hi = padRange(math.Min(0, lo), math.Max(0, hi))
 	pn, clip := f.timeFigure(tlo, thi, lo, hi, "Pore pressure, kPa", false)
 	if lo < 0 {
@@ -176,9 +220,25 @@ func PiezometersFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
 		ex.Width = math.Max(1.25, st.Width-0.5)
 		f.addSeries(pn, clip, at+", Δu excess", ex, s.Time, pz.Excess, readTime("Δu", " kPa", 3))
 	}
+	for j, m := range recs {
+		k := depthIndex(s, m.depth)
+		if fz := depthIndex(fs, m.depth); fz >= 0 {
+			st := withDash(styleAt(max(k, 0)), fitDash)
+			st.Width = 1.5
+			f.addSeries(pn, clip, "z = "+sig(m.depth, 3)+" m, u back-fitted", st, fs.Time, fs.Piezometers[fz].Pore, readTime("u", " kPa", 3))
+		}
+		mk := markAt(j)
+		if k >= 0 {
+			mk.Stroke = styleAt(k).Stroke
+		}
+		f.addPoints(pn, clip, "piezometer "+m.name+", measured", mk, m.ts, m.vs, readTime("measured u", " kPa", 3))
+	}
 	f.legend(f.W-legendW+8, timeTop+8, legendW-12, int((f.H-timeTop-20)/16), f.allSeries())
 	return f
 }
+
+// fitDash marks a back-fitted companion of a predicted curve.
+const fitDash = "7 2 1.5 2"
 
 // SteadyFigure builds the steady state profiles against depth beside the
 // layer strip: total head (m) in the left panel; pore pressure, total and

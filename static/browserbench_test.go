@@ -1,0 +1,277 @@
+//go:build !(js && wasm)
+
+package static_test
+
+// The page's browser benchmark: figures, never pass/fail on time. It runs
+// only when PORELIGHT_BENCH_OUT names the JSON file to write (make bench):
+//
+//	PORELIGHT_BENCH_OUT=build/browser.json go test -count=1 -run BrowserBench -v ./static
+//
+// PORELIGHT_BENCH_RUNS sets the number of cold opens (default 7). The
+// machine is described in the file, load average included: on a shared
+// machine the cold open varies by a factor of two or more.
+
+import (
+	"bufio"
+	"context"
+	"encoding/json"
+	"fmt"
+	"os"
+	"runtime"
+	"slices"
+	"strconv"
+	"strings"
+	"testing"
+	"time"
+
+	cdpbrowser "github.com/chromedp/cdproto/browser"
+	"github.com/chromedp/cdproto/cdp"
+	"github.com/chromedp/cdproto/heapprofiler"
+	"github.com/chromedp/chromedp"
+)
+
+// browserBench is the file the benchmark writes; solver/internal/benchtab
+// reads it (-browser).
+type browserBench struct {
+	FirstPlotMs            float64 `json:"firstPlotMs"`            // navigation start → first isochrone path in the DOM, median of cold opens
+	EditToPlotMs           float64 `json:"editToPlotMs"`           // input event → summary and plot updated, median, including the 200 ms pause before a solve
+	EditToPlotNoDebounceMs float64 `json:"editToPlotNoDebounceMs"` // the same from the end of that pause: solve plus re-render
+	HeapBeforeBytes        float64 `json:"heapBeforeBytes"`        // wasm memory before the solves
+	HeapAfterBytes         float64 `json:"heapAfterBytes"`         // and after
+	Solves                 int     `json:"solves"`
+	JSHeapBeforeBytes      float64 `json:"jsHeapBeforeBytes"` // performance.memory.usedJSHeapSize after a collection; 0 when unavailable
+	JSHeapAfterBytes       float64 `json:"jsHeapAfterBytes"`
+	Machine                string  `json:"machine"`
+}
+
+// firstPlotProbe runs before the page's own scripts and notes, against
+// navigation start, when the page is up and when the first isochrone
+// curve (a clipped path) is in the DOM and then painted.
+const firstPlotProbe = `(() => {
+	const mark = k => { if (!(k in window.__bench)) window.__bench[k] = performance.now(); };
+	window.__bench = {};
+	document.addEventListener("porelight:ready", () => mark("ready"));
+	const curve = "#plot-isochrones path[clip-path^='url(']";
+	const obs = new MutationObserver(() => {
+		if (document.querySelector(curve)) {
+			obs.disconnect();
+			mark("plot");
+			requestAnimationFrame(() => mark("frame"));
+		}
+	});
+	obs.observe(document, {subtree: true, childList: true, attributes: true, attributeFilter: ["d", "clip-path"]});
+})()`
+
+// editProbe notes input events, every timeout the page sets with the
+// time it fired (Go wakes from its timers, the pause before a solve among
+// them, through these), and each change of the summary's flux with the
+// isochrones drawn and the next frame.
+const editProbe = `(() => {
+	const E = window.__edits = {inputs: [], timers: [], changes: []};
+	document.addEventListener("input", () => E.inputs.push(performance.now()), true);
+	const setTimeout0 = window.setTimeout;
+	window.setTimeout = function (fn, delay, ...args) {
+		if (typeof fn === "function") {
+			const rec = {set: performance.now(), delay, fired: 0};
+			E.timers.push(rec);
+			const f = fn;
+			fn = function (...a) { rec.fired = performance.now(); return f.apply(this, a); };
+		}
+		return setTimeout0.call(this, fn, delay, ...args);
+	};
+	const curve = () => [...document.querySelectorAll("#plot-isochrones path[clip-path^='url(']")].map(p => p.getAttribute("d")).join("|");
+	let flux = document.getElementById("sum-flux").dataset.value;
+	new MutationObserver(() => {
+		const v = document.getElementById("sum-flux")?.dataset.value;
+		if (v === flux) return;
+		flux = v;
+		const c = {at: performance.now(), frame: 0, curve: curve()};
+		E.changes.push(c);
+		requestAnimationFrame(() => { c.frame = performance.now(); });
+	}).observe(document.querySelector(".pl-results"), {subtree: true, attributes: true, childList: true, characterData: true});
+})()`
+
+// debounceMs is the page's pause after an edit before it solves
+// (ui.Root.Debounce, default).
+const debounceMs = 200
+
+func TestBrowserBench(t *testing.T) {
+	out := os.Getenv("PORELIGHT_BENCH_OUT")
+	if out == "" {
+		t.Skip("set PORELIGHT_BENCH_OUT=file.json to run the browser benchmark")
+	}
+	pageURL, _ := builtPage(t)
+	runs := 7
+	if s := os.Getenv("PORELIGHT_BENCH_RUNS"); s != "" {
+		n, err := strconv.Atoi(s)
+		if err != nil || n < 1 {
+			t.Fatalf("PORELIGHT_BENCH_RUNS=%q", s)
+		}
+		runs = n
+	}
+	var b browserBench
+	var product string
+
+	// 1. Cold open, each in a fresh browser with a fresh profile.
+	var plots []float64
+	for i := range runs {
+		t.Run(fmt.Sprintf("cold open %d", i+1), func(t *testing.T) {
+			ctx := browser(t, &recorder{})
+			onNewDocument(t, ctx, firstPlotProbe)
+			within(t, ctx, 60*time.Second, chromedp.Navigate(pageURL))
+			type marks struct {
+				Ready float64 `json:"ready"`
+				Plot  float64 `json:"plot"`
+				Frame float64 `json:"frame"`
+			}
+			m := poll[marks](t, ctx, `window.__bench.frame && window.__bench`, 60*time.Second)
+			t.Logf("navigation start → page up %.0f ms, first isochrone in the DOM %.0f ms, painted %.0f ms", m.Ready, m.Plot, m.Frame)
+			plots = append(plots, m.Plot)
+		})
+	}
+	if len(plots) != runs {
+		t.Fatal("a cold open failed")
+	}
+	b.FirstPlotMs = median(plots)
+	t.Logf("first plot over %d cold opens: median %.0f ms (min %.0f, max %.0f)", runs, b.FirstPlotMs, slices.Min(plots), slices.Max(plots))
+
+	// 2 and 3 in one more browser, which reports its JS heap precisely.
+	ctx := browser(t, &recorder{}, chromedp.Flag("enable-precise-memory-info", true))
+	if v, err := chromedp.CallBrowser(ctx, cdpbrowser.GetVersion, cdp.Empty{}); err == nil {
+		product = v.Product
+	}
+	onNewDocument(t, ctx, firstPlotProbe)
+	within(t, ctx, 60*time.Second, chromedp.Navigate(pageURL))
+	poll[bool](t, ctx, `!!window.__bench.frame && document.getElementById("status").textContent.includes("up to date")`, 60*time.Second)
+
+	t.Run("edit to plot", func(t *testing.T) {
+		eval[chromedp.Void](t, ctx, editProbe)
+		time.Sleep(500 * time.Millisecond) // let the page settle after its first solve
+		const warm, edits = 3, 20
+		var with, without, frames []float64
+		for i := range warm + edits {
+			k := fmt.Sprintf("%.3ge-9", 1.8*(1+0.1*float64(i+1))) // a new value, and plot, every time
+			paste(t, ctx, "layers-1-k", k)
+			type edit struct {
+				Input   float64 `json:"input"`
+				Fired   float64 `json:"fired"`
+				At      float64 `json:"at"`
+				Frame   float64 `json:"frame"`
+				Changed bool    `json:"changed"`
+			}
+			// The results of this edit are the first change of the flux at
+			// least debounceMs after its input event, and the pause ended
+			// at the first wake of Go from then on (its timer was due).
+			e := poll[edit](t, ctx, fmt.Sprintf(`(() => {
+				const E = window.__edits, input = E.inputs[E.inputs.length - 1];
+				const j = E.changes.findIndex(c => c.at >= input + %[1]d - 2);
+				const c = E.changes[j];
+				if (!c || !c.frame) return null;
+				const wakes = E.timers.filter(r => r.fired >= input + %[1]d - 2 && r.fired <= c.at).map(r => r.fired);
+				return {input, fired: wakes.length ? Math.min(...wakes) : 0, at: c.at, frame: c.frame,
+					changed: j === 0 || c.curve !== E.changes[j - 1].curve};
+			})()`, debounceMs), 20*time.Second)
+			if e.Fired == 0 {
+				t.Fatalf("edit %d: no timeout fired between the end of the pause and the new results (input at %.1f ms, results at %.1f ms; timeouts %s)",
+					i+1, e.Input, e.At, eval[string](t, ctx, `JSON.stringify(window.__edits.timers.slice(-8))`))
+			}
+			if !e.Changed {
+				t.Errorf("edit %d: the flux changed but not the isochrones", i+1)
+			}
+			if i >= warm {
+				with = append(with, e.At-e.Input)
+				without = append(without, e.At-e.Fired)
+				frames = append(frames, e.Frame-e.Input)
+			}
+			time.Sleep(100 * time.Millisecond)
+		}
+		b.EditToPlotMs, b.EditToPlotNoDebounceMs = median(with), median(without)
+		t.Logf("over %d edits: input → results in the DOM median %.1f ms (min %.1f, max %.1f), → next frame %.1f ms; "+
+			"from the end of the %d ms pause %.1f ms (min %.1f, max %.1f; the median less the nominal pause: %.1f ms)",
+			edits, median(with), slices.Min(with), slices.Max(with), median(frames),
+			debounceMs, median(without), slices.Min(without), slices.Max(without), median(with)-debounceMs)
+	})
+
+	t.Run("1000 solves", func(t *testing.T) {
+		type heap struct {
+			Wasm float64 `json:"wasm"`
+			JS   float64 `json:"js"`
+		}
+		read := func() heap {
+			within(t, ctx, 30*time.Second, chromedp.Func(func(ctx context.Context, tg *chromedp.Target) error {
+				_, err := cdp.Call(ctx, tg, heapprofiler.CollectGarbage, cdp.Empty{})
+				return err
+			}))
+			return eval[heap](t, ctx, `({wasm: porelightMemory.buffer.byteLength, js: performance.memory ? performance.memory.usedJSHeapSize : 0})`)
+		}
+		before := read()
+		b.Solves = 1000
+		var times []float64
+		for done := 0; done < b.Solves; done += 50 {
+			ms := eval[[]float64](t, ctx, `(() => {
+				const demo = porelight.demo(), times = [];
+				for (let i = 0; i < 50; i++) {
+					const t0 = performance.now();
+					const r = porelight.solve(demo);
+					times.push(performance.now() - t0);
+					if (r.startsWith('{"error"')) throw new Error(r);
+				}
+				return times;
+			})()`)
+			times = append(times, ms...)
+		}
+		after := read()
+		b.HeapBeforeBytes, b.HeapAfterBytes = before.Wasm, after.Wasm
+		b.JSHeapBeforeBytes, b.JSHeapAfterBytes = before.JS, after.JS
+		t.Logf("porelight.solve(demo) ×%d: median %.1f ms; wasm memory %.2f → %.2f MB; JS heap %.2f → %.2f MB",
+			len(times), median(times), before.Wasm/1e6, after.Wasm/1e6, before.JS/1e6, after.JS/1e6)
+	})
+
+	b.Machine = machine(product)
+	data, err := json.MarshalIndent(b, "", "  ")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := os.WriteFile(out, append(data, '\n'), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	t.Logf("wrote %s:\n%s", out, data)
+}
+
+func median(xs []float64) float64 {
+	s := slices.Sorted(slices.Values(xs))
+	n := len(s)
+	if n == 0 {
+		return 0
+	}
+	if n%2 == 1 {
+		return s[n/2]
+	}
+	return (s[n/2-1] + s[n/2]) / 2
+}
+
+// machine describes where the figures were measured.
+func machine(product string) string {
+	cpu := "unknown CPU"
+	if f, err := os.Open("/proc/cpuinfo"); err == nil {
+		sc := bufio.NewScanner(f)
+		for sc.Scan() {
+			if k, v, ok := strings.Cut(sc.Text(), ":"); ok && strings.TrimSpace(k) == "model name" {
+				cpu = strings.TrimSpace(v)
+				break
+			}
+		}
+		f.Close()
+	}
+	if product == "" {
+		product = "unknown browser"
+	}
+	load := "load average unknown"
+	if b, err := os.ReadFile("/proc/loadavg"); err == nil {
+		if f := strings.Fields(string(b)); len(f) >= 3 {
+			load = "load average " + strings.Join(f[:3], " ")
+		}
+	}
+	return fmt.Sprintf("%s, %d cores, %s/%s, %s headless, %s, %s, %s", cpu, runtime.NumCPU(), runtime.GOOS, runtime.GOARCH,
+		strings.Replace(product, "/", " ", 1), runtime.Version(), load, time.Now().UTC().Format("2006-01-02 15:04 UTC"))
+}

@@ -1,0 +1,259 @@
+package ui
+
+import (
+	"fmt"
+	"math"
+	"strings"
+
+	"github.com/vugu/vugu"
+
+	"porelight/solver"
+	"porelight/ui/plot"
+)
+
+// Comparison sets the field records against the prediction: the
+// differences reading by reading, and Asaoka's forecast for each
+// settlement plate.
+type Comparison struct {
+	P        *solver.Project // the project R belongs to, records included
+	R        *solver.Result
+	Download func(name, mime string, data []byte)
+
+	from, to string          // Asaoka window as typed, days ("" = default)
+	shown    map[string]bool // record path → its reading table unfolded
+
+	res  []resRecord // for the inputs in made
+	asa  []asaoka
+	made compKey
+}
+
+// compKey is what the comparisons depend on.
+type compKey struct {
+	p        *solver.Project
+	r        *solver.Result
+	from, to string
+}
+
+// Init prepares the private state.
+func (c *Comparison) Init(vugu.InitCtx) { c.shown = map[string]bool{} }
+
+// Compute works out the comparisons for the coming build, when their
+// inputs changed: most renders follow edits that solve again first.
+func (c *Comparison) Compute() {
+	k := compKey{c.P, c.R, c.from, c.to}
+	if k == c.made && c.res != nil {
+		return
+	}
+	c.res, c.asa, c.made = residuals(c.P, c.R), c.asaokas(), k
+}
+
+func (c *Comparison) recs() []resRecord { return c.res }
+
+// figure formats a value of a record in its unit.
+func figure(v float64, unit string) string {
+	if math.IsNaN(v) {
+		return "–"
+	}
+	if unit == "mm" {
+		return fmt.Sprintf("%.1f", v)
+	}
+	return sig(v, 3)
+}
+
+func (c *Comparison) kind(r resRecord) string {
+	if r.Kind == kindPiezos {
+		return "pore pressure at " + sig(r.Depth, 4) + " m"
+	}
+	return "settlement"
+}
+
+func (c *Comparison) compared(r resRecord) string {
+	if r.Problem != "" {
+		return r.Problem
+	}
+	s := fmt.Sprintf("%d of %d", r.N, len(r.Rows))
+	if r.N == len(r.Rows) {
+		s = fmt.Sprint(r.N)
+	}
+	return s
+}
+
+func (c *Comparison) rms(r resRecord) string  { return figure(r.RMS, r.Unit) }
+func (c *Comparison) mean(r resRecord) string { return signed(r.Mean, r.Unit) }
+
+// signed writes a difference with its sign.
+func signed(v float64, unit string) string {
+	s := figure(v, unit)
+	if v > 0 && s != "–" {
+		return "+" + s
+	}
+	return s
+}
+
+func (c *Comparison) isShown(r resRecord) bool { return c.shown[r.Path] }
+
+func (c *Comparison) toggled(r resRecord, e vugu.DOMEvent) {
+	c.shown[r.Path] = e.PropBool("target", "open")
+}
+
+func (c *Comparison) when(row resRow) string {
+	s := formatNumber(math.Round(row.T*100) / 100)
+	if row.Date != "" {
+		s += " (" + row.Date + ")"
+	}
+	return s
+}
+
+func (c *Comparison) exportResiduals() {
+	data, err := residualsCSV(residuals(c.P, c.R))
+	if err == nil && c.Download != nil {
+		c.Download("residuals.csv", "text/csv", data)
+	}
+}
+
+// predictedFinal is the prediction's final settlement from mv, for
+// comparison with the forecasts.
+func (c *Comparison) predictedFinal() string {
+	if c.R == nil || c.R.Summary.SettlementLinear == nil {
+		return "–"
+	}
+	return fmt.Sprintf("%.0f mm", *c.R.Summary.SettlementLinear*1000)
+}
+
+// Asaoka's method.
+
+// window reads the typed window; msg says what is wrong with it.
+func (c *Comparison) window() (from, to float64, fromMsg, toMsg string) {
+	read := func(s string) (float64, string) {
+		if strings.TrimSpace(s) == "" {
+			return 0, ""
+		}
+		x, msg := parseNumber(s, false)
+		if msg == "" && x < 0 {
+			msg = "must not be negative"
+		}
+		return x, msg
+	}
+	from, fromMsg = read(c.from)
+	to, toMsg = read(c.to)
+	if fromMsg == "" && toMsg == "" && to > 0 && to <= from {
+		toMsg = "must be after the start of the window"
+	}
+	return from, to, fromMsg, toMsg
+}
+
+func (c *Comparison) fromProblem() string { _, _, m, _ := c.window(); return m }
+func (c *Comparison) toProblem() string   { _, _, _, m := c.window(); return m }
+
+func (c *Comparison) setFrom(e vugu.DOMEvent) { c.from = e.PropString("target", "value") }
+func (c *Comparison) setTo(e vugu.DOMEvent)   { c.to = e.PropString("target", "value") }
+
+// lastChange is the day the load last changes in the project.
+func (c *Comparison) lastChange() float64 {
+	if c.P == nil {
+		return 0
+	}
+	return solver.LastLoadChange(c.P)
+}
+
+func (c *Comparison) fromHint() string {
+	return sig(c.lastChange(), 4) + " (load)"
+}
+
+// asaoka is the outcome of Asaoka's method for one plate.
+type asaoka struct {
+	I        int
+	ID, Name string
+	Res      *solver.AsaokaResult
+	Refusal  string
+}
+
+// asaokas applies Asaoka's method to every plate of P, with the options
+// solver.AsaokaOptionsFor gives and the window typed.
+func (c *Comparison) asaokas() []asaoka {
+	if c.P == nil || c.P.Monitoring == nil {
+		return nil
+	}
+	from, to, fm, tm := c.window()
+	var out []asaoka
+	for i, pl := range c.P.Monitoring.Plates {
+		a := asaoka{I: i, ID: fmt.Sprintf("asaoka-%d", i), Name: recordName(pl.Name, "Plate", i)}
+		switch {
+		case fm != "" || tm != "":
+			a.Refusal = "the window of readings above needs attention"
+		default:
+			a.Res, a.Refusal = plateAsaoka(c.P, pl, from, to)
+		}
+		out = append(out, a)
+	}
+	return out
+}
+
+// plateAsaoka applies Asaoka's method to one plate of p over the readings
+// from day from to day to (zero: the defaults), or says why not.
+func plateAsaoka(p *solver.Project, pl solver.Plate, from, to float64) (*solver.AsaokaResult, string) {
+	ts, err := solver.ReadingTimes(p.Monitoring, pl.Readings)
+	if err != nil {
+		return nil, describeProblems(solver.AsProblems(err), 3)
+	}
+	vs := make([]float64, len(pl.Readings))
+	for j, r := range pl.Readings {
+		vs[j] = r.Value
+	}
+	opt := solver.AsaokaOptionsFor(p)
+	opt.From, opt.To = from, to
+	a, err := solver.Asaoka(ts, vs, 0, opt)
+	if err != nil {
+		return nil, strings.TrimPrefix(err.Error(), "asaoka: ")
+	}
+	return a, ""
+}
+
+func (c *Comparison) final(a asaoka) string {
+	return pm(a.Res.Final*1000, a.Res.FinalSE*1000) + " mm"
+}
+
+func (c *Comparison) cv(a asaoka) string {
+	if a.Res.DrainagePath == 0 {
+		return "– (the column has no drained end)"
+	}
+	return pm(a.Res.Cv, a.Res.CvSE) + " m²/day"
+}
+
+func (c *Comparison) cvNote(a asaoka) string {
+	if a.Res.DrainagePath == 0 {
+		return ""
+	}
+	return fmt.Sprintf("an equivalent value for the whole column, drainage path %s m; the parabolic-isochrone form gives %s",
+		sig(a.Res.DrainagePath, 3), sig(a.Res.CvParabolic, 3))
+}
+
+func (c *Comparison) betas(a asaoka) string {
+	return fmt.Sprintf("β0 = %s mm, β1 = %s", pm(a.Res.Beta0*1000, a.Res.Beta0SE*1000), pm(a.Res.Beta1, a.Res.Beta1SE))
+}
+
+func (c *Comparison) windowText(a asaoka) string {
+	r := a.Res
+	n := len(r.Times)
+	return fmt.Sprintf("day %s to %s, %d points every %s days", sig(r.Times[0], 4), sig(r.Times[n-1], 4), n, sig(r.Interval, 3))
+}
+
+func (c *Comparison) exportAsaoka(a asaoka, format string) {
+	if c.Download == nil || a.Res == nil {
+		return
+	}
+	name := fmt.Sprintf("asaoka-plate-%d.%s", a.I+1, format)
+	if format == "svg" {
+		c.Download(name, "image/svg+xml", []byte(plot.AsaokaSVG("plot-"+a.ID, "Asaoka: "+a.Name, a.Res)))
+		return
+	}
+	c.Download(name, "text/csv", []byte(plot.AsaokaCSV(a.Res)))
+}
+
+// badClass is the class suffix of an input with a problem.
+func badClass(problem string) string {
+	if problem != "" {
+		return " pl-bad"
+	}
+	return ""
+}

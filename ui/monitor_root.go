@@ -1,0 +1,289 @@
+package ui
+
+import (
+	"errors"
+	"fmt"
+	"reflect"
+	"runtime/debug"
+	"slices"
+	"strings"
+	"sync/atomic"
+	"time"
+
+	"porelight/solver"
+)
+
+// Field monitoring in the page: what the solve needs from the records,
+// and the back-analysis run from the results column.
+//
+// A piezometer record whose depth is not among the project's output
+// depths (Project.Piezometers) is added to the depths of the solve, not
+// to the project: the prediction at the instrument is then always there
+// to compare with, the project file keeps the depths the user chose, and
+// the piezometer plot shows the extra depth like the others. Editing the
+// records alone does not solve again: only the comparison changes.
+
+// solveInput is the project solved for model: model itself, or a copy
+// with the depths of its piezometer records added to the output depths.
+func solveInput(model *solver.Project) *solver.Project {
+	m := model.Monitoring
+	if m == nil || len(m.Piezometers) == 0 {
+		return model
+	}
+	var extra []float64
+	for _, r := range m.Piezometers {
+		if !slices.ContainsFunc(model.Piezometers, func(z float64) bool { return sameDepth(z, r.Depth) }) &&
+			!slices.ContainsFunc(extra, func(z float64) bool { return sameDepth(z, r.Depth) }) {
+			extra = append(extra, r.Depth)
+		}
+	}
+	if len(extra) == 0 {
+		return model
+	}
+	q := *model
+	q.Piezometers = append(slices.Clone(model.Piezometers), extra...)
+	return &q
+}
+
+// sameSolve reports whether a and b solve to the same results: they
+// differ at most in their field records (beyond the depths those add).
+func sameSolve(a, b *solver.Project) bool {
+	if a == nil || b == nil {
+		return false
+	}
+	x, y := *solveInput(a), *solveInput(b)
+	x.Monitoring, y.Monitoring = nil, nil
+	return reflect.DeepEqual(&x, &y)
+}
+
+// reuse takes model as the project of the results shown when only its
+// field records changed, and reports whether it did. It runs in commit,
+// with the render lock held.
+func (c *Root) reuse(model *solver.Project) bool {
+	if c.busy || c.result == nil || c.solveErr != "" || !sameSolve(model, c.resultFor) {
+		return false
+	}
+	c.resultFor = model
+	return true
+}
+
+// hasRecords reports whether the project of the results has field
+// records to compare with.
+func (c *Root) hasRecords() bool {
+	if c.resultFor == nil || c.resultFor.Monitoring == nil {
+		return false
+	}
+	m := c.resultFor.Monitoring
+	return len(m.Plates)+len(m.Piezometers) > 0
+}
+
+// download offers a file made by a monitoring panel.
+func (c *Root) download(name, mime string, data []byte) {
+	base := "porelight-project"
+	if c.resultFor != nil {
+		base = baseName(c.resultFor)
+	}
+	if err := c.host().Download(base+"-"+name, mime, data); err != nil {
+		c.note("error", "Could not export: "+err.Error())
+	}
+}
+
+// fitState is the back-analysis: what to fit, the run under way and its
+// outcome. Root owns it, so that it outlives renders and the plots can
+// draw the fitted prediction.
+type fitState struct {
+	layers map[int]bool // layers whose k is fitted
+	scale  bool         // also fit the settlement scale
+	data   solver.FitData
+
+	gen      atomic.Int64 // bumped by every run and cancel; an older run stops
+	busy     bool
+	progress float64
+	canceled bool
+	err      string
+	model    *solver.Project // the model of the last run
+	res      *solver.FitResult
+	// applied is set once the fitted values are in the project; before
+	// holds the layers as they were, for Revert.
+	applied bool
+	before  []solver.Layer
+}
+
+func (c *Root) fitState() *fitState {
+	if c.fit == nil {
+		c.fit = &fitState{layers: map[int]bool{}}
+	}
+	return c.fit
+}
+
+// spec is the FitSpec of the choices made.
+func (s *fitState) spec(nLayers int) solver.FitSpec {
+	spec := solver.FitSpec{Scale: s.scale, Data: s.data}
+	for i := range nLayers {
+		if s.layers[i] {
+			spec.Layers = append(spec.Layers, i)
+		}
+	}
+	return spec
+}
+
+// runFit starts the back-analysis of the current inputs. Like a solve, it
+// runs in a goroutine that yields to the browser every 40 ms or so, and
+// stops when cancelled.
+func (c *Root) runFit() {
+	s := c.fitState()
+	if s.busy {
+		return
+	}
+	if !c.form.Valid() {
+		s.err, s.res = "Some inputs need attention: fix them first, so that the fit works on what you see.", nil
+		return
+	}
+	model := c.form.Model()
+	spec := s.spec(len(model.Layers))
+	if len(spec.Layers) == 0 && !spec.Scale {
+		s.err, s.res = "Choose at least one layer, or the settlement scale, to fit.", nil
+		return
+	}
+	g := s.gen.Add(1)
+	s.busy, s.progress, s.canceled, s.err = true, 0, false, ""
+	s.res, s.model, s.applied, s.before = nil, model, false, nil
+	fit := c.BackFit
+	if fit == nil {
+		fit = solver.BackFit
+	}
+	work := func() (res *solver.FitResult, err error) {
+		defer func() {
+			if r := recover(); r != nil {
+				err = fmt.Errorf("internal error in the back-analysis: %v\n%s", r, debug.Stack())
+			}
+		}()
+		last := time.Now()
+		opt := &solver.Options{Progress: func(f float64) bool {
+			if s.gen.Load() != g {
+				return false
+			}
+			if c.Env != nil && time.Since(last) > 40*time.Millisecond {
+				c.Env.Lock()
+				s.progress = f
+				c.Env.UnlockRender()
+				c.host().Yield()
+				last = time.Now()
+			}
+			return s.gen.Load() == g
+		}}
+		return fit(solveInput(model), spec, opt)
+	}
+	if c.Env == nil {
+		res, err := work()
+		s.finish(g, res, err)
+		return
+	}
+	go func() {
+		res, err := work()
+		c.Env.Lock()
+		s.finish(g, res, err)
+		c.Env.UnlockRender()
+	}()
+}
+
+// finish takes the outcome of run g, if it is still the latest.
+func (s *fitState) finish(g int64, res *solver.FitResult, err error) {
+	if s.gen.Load() != g {
+		return
+	}
+	s.busy = false
+	switch {
+	case errors.Is(err, solver.ErrCanceled):
+		s.canceled = true
+	case err != nil:
+		s.err = fitError(err)
+	case res == nil:
+		s.err = "the back-analysis returned nothing"
+	default:
+		s.res = res
+	}
+}
+
+// fitError says why a fit was refused, in the solver's words.
+func fitError(err error) string {
+	ps := solver.AsProblems(err)
+	if len(ps) == 1 && ps[0].Path == "" {
+		return strings.TrimPrefix(err.Error(), "backfit: ")
+	}
+	return describeProblems(ps, 5)
+}
+
+func (c *Root) cancelFit() {
+	s := c.fitState()
+	if !s.busy {
+		return
+	}
+	s.gen.Add(1)
+	s.busy, s.progress, s.canceled = false, 0, true
+}
+
+// fitOverlay is the fitted result to draw beside the prediction: while
+// the fit is not applied and was made for the inputs of the results shown.
+func (c *Root) fitOverlay() *solver.Result {
+	s := c.fit
+	if s == nil || s.res == nil || s.applied || !sameSolve(s.model, c.resultFor) {
+		return nil
+	}
+	return s.res.Result
+}
+
+// applyFit copies the fitted k (and, with the settlement scale, mv) into
+// the project: an edit like any other, which solves again. The layers as
+// they were are kept for revertFit.
+func (c *Root) applyFit() {
+	s := c.fitState()
+	if s.res == nil || s.res.Project == nil || s.applied {
+		return
+	}
+	d := c.form.Draft()
+	if !reflect.DeepEqual(d.Layers, s.model.Layers) || len(s.res.Project.Layers) != len(d.Layers) {
+		c.note("error", "The layers were edited after the fit; run the fit again before applying it.")
+		return
+	}
+	s.before = slices.Clone(d.Layers)
+	for i, l := range s.res.Project.Layers {
+		if l.K != d.Layers[i].K {
+			c.form.Edit(lp(i, "k"), formatNumber(l.K))
+		}
+		if l.Mv != d.Layers[i].Mv {
+			c.form.Edit(lp(i, "mv"), formatNumber(l.Mv))
+		}
+	}
+	s.applied = true
+	c.note("info", "Applied the fitted values to the layers; “Revert” puts the previous k and mv back.")
+	c.edited()
+}
+
+// revertFit puts back the k and mv the layers had before applyFit.
+func (c *Root) revertFit() {
+	s := c.fitState()
+	if !s.applied || s.before == nil {
+		return
+	}
+	d := c.form.Draft()
+	if len(d.Layers) != len(s.before) {
+		c.note("error", "Layers were added or removed since the fit was applied, so it cannot be reverted; set k and mv by hand.")
+		return
+	}
+	for i, l := range s.before {
+		if l.K != d.Layers[i].K {
+			c.form.Edit(lp(i, "k"), formatNumber(l.K))
+		}
+		if l.Mv != d.Layers[i].Mv {
+			text := ""
+			if l.Mv != 0 {
+				text = formatNumber(l.Mv)
+			}
+			c.form.Edit(lp(i, "mv"), text)
+		}
+	}
+	s.applied, s.before = false, nil
+	c.note("info", "Reverted: the layers have the k and mv they had before the fit was applied.")
+	c.edited()
+}

@@ -1,0 +1,355 @@
+package ui
+
+import (
+	"fmt"
+	"slices"
+	"strings"
+
+	"github.com/vugu/vugu"
+
+	"porelight/solver"
+)
+
+// Monitoring edits the field records: the calendar date of day 0, the
+// settlement plates and the piezometers, each with its readings table and
+// a box to paste two columns from a spreadsheet.
+type Monitoring struct {
+	F       *Form
+	Changed func()
+
+	open  map[string]bool   // record path → readings table shown
+	all   map[string]bool   // record path → every row shown, however many
+	paste map[string]string // record path → the text in its paste box
+	// undo holds, per record path, the readings a paste replaced.
+	undo map[string][]solver.Reading
+	// parsedAs caches the reading of each paste box, as a render asks
+	// for it several times.
+	parsedAs map[string]pasteParse
+}
+
+type pasteParse struct {
+	text string
+	rs   []solver.Reading
+	errs []string
+}
+
+// shownRows is how many readings a table shows before "Show all": every
+// render rebuilds every row.
+const shownRows = 150
+
+// monRec is one record as the editor lists it.
+type monRec struct {
+	Kind  string // kindPlates or kindPiezos
+	I     int
+	Path  string
+	ID    string // element id prefix
+	Name  string
+	Unit  string // of the values: "mm" or "kPa"
+	Noun  string // "settlement" or "pore pressure"
+	Count int
+}
+
+// Init prepares the private state.
+func (c *Monitoring) Init(vugu.InitCtx) {
+	c.open, c.all = map[string]bool{}, map[string]bool{}
+	c.paste, c.undo = map[string]string{}, map[string][]solver.Reading{}
+	c.parsedAs = map[string]pasteParse{}
+}
+
+func (c *Monitoring) recs() []monRec {
+	var out []monRec
+	m := c.F.Draft().Monitoring
+	if m == nil {
+		return nil
+	}
+	for i, pl := range m.Plates {
+		p := recordPath(kindPlates, i)
+		out = append(out, monRec{kindPlates, i, p, IDOf(p), pl.Name, "mm", "settlement", len(pl.Readings)})
+	}
+	for i, pz := range m.Piezometers {
+		p := recordPath(kindPiezos, i)
+		out = append(out, monRec{kindPiezos, i, p, IDOf(p), pz.Name, "kPa", "pore pressure", len(pz.Readings)})
+	}
+	return out
+}
+
+func (c *Monitoring) title(r monRec) string {
+	what := "Settlement plate"
+	if r.Kind == kindPiezos {
+		what = "Piezometer"
+	}
+	return fmt.Sprintf("%s %d", what, r.I+1)
+}
+
+// span summarises a record's readings: how many, from when to when.
+func (c *Monitoring) span(r monRec) string {
+	rs := c.F.readings(r.Kind, r.I)
+	switch len(rs) {
+	case 0:
+		return "no readings yet"
+	case 1:
+		return "1 reading, " + readingWhen(rs[0])
+	}
+	return fmt.Sprintf("%d readings, %s to %s", len(rs), readingWhen(rs[0]), readingWhen(rs[len(rs)-1]))
+}
+
+func readingWhen(r solver.Reading) string {
+	if r.Date != "" {
+		return r.Date
+	}
+	return "day " + formatNumber(r.T)
+}
+
+// problems lists what is wrong inside record r, so that a folded table
+// still says so.
+func (c *Monitoring) problems(r monRec) []fieldProblem {
+	return c.F.problemsUnder(r.Path)
+}
+
+// isOpen says whether r's readings table shows: when unfolded, or while
+// one of its readings has a problem.
+func (c *Monitoring) isOpen(r monRec) bool {
+	if c.open[r.Path] {
+		return true
+	}
+	for _, p := range c.problems(r) {
+		if strings.Contains(p.Path, ".readings[") {
+			return true
+		}
+	}
+	return false
+}
+
+func (c *Monitoring) toggle(r monRec) { c.open[r.Path] = !c.isOpen(r) }
+
+func (c *Monitoring) toggleLabel(r monRec) string {
+	if c.isOpen(r) {
+		return "Hide readings"
+	}
+	return "Show readings"
+}
+
+// rows are the indices of the readings the table shows.
+func (c *Monitoring) rows(r monRec) []int {
+	n := r.Count
+	if !c.all[r.Path] {
+		n = min(n, shownRows)
+	}
+	out := make([]int, n)
+	for j := range out {
+		out[j] = j
+	}
+	return out
+}
+
+func (c *Monitoring) hidden(r monRec) int {
+	if c.all[r.Path] {
+		return 0
+	}
+	return max(0, r.Count-shownRows)
+}
+
+// hiddenProblems lists the problems of readings the table does not show.
+func (c *Monitoring) hiddenProblems(r monRec) []string {
+	if c.hidden(r) == 0 {
+		return nil
+	}
+	var out []string
+	for _, p := range c.problems(r) {
+		var j int
+		rest := strings.TrimPrefix(p.Path, r.Path+".readings")
+		if _, err := fmt.Sscanf(rest, "[%d]", &j); err == nil && j >= shownRows {
+			out = append(out, fmt.Sprintf("reading %d: %s", j+1, p.Message))
+		}
+	}
+	return out
+}
+
+func (c *Monitoring) showAll(r monRec) { c.all[r.Path] = true }
+
+func (c *Monitoring) readingPath(r monRec, j int, leaf string) string {
+	return readingPath(r.Kind, r.I, j, leaf)
+}
+
+func (c *Monitoring) addPlate() { c.F.AddPlate(); c.openLast(kindPlates); c.Changed() }
+func (c *Monitoring) addPiezometer() {
+	c.F.AddPiezometerRecord()
+	c.openLast(kindPiezos)
+	c.Changed()
+}
+
+func (c *Monitoring) openLast(kind string) {
+	if n := c.F.records(kind); n > 0 {
+		c.open[recordPath(kind, n-1)] = true
+	}
+}
+
+// remove deletes a record; what the editor keeps per record moves with
+// the records after it.
+func (c *Monitoring) remove(r monRec) {
+	c.F.RemoveRecord(r.Kind, r.I)
+	list := "monitoring." + r.Kind
+	remapKeys(c.open, list, shiftOut(r.I))
+	remapKeys(c.all, list, shiftOut(r.I))
+	remapKeys(c.paste, list, shiftOut(r.I))
+	remapKeys(c.undo, list, shiftOut(r.I))
+	remapKeys(c.parsedAs, list, shiftOut(r.I))
+	c.Changed()
+}
+
+func (c *Monitoring) addReading(r monRec) {
+	c.F.AddReading(r.Kind, r.I)
+	c.open[r.Path] = true
+	c.Changed()
+}
+
+func (c *Monitoring) removeReading(r monRec, j int) {
+	c.F.RemoveReading(r.Kind, r.I, j)
+	c.Changed()
+}
+
+// Paste box.
+
+func (c *Monitoring) pasteText(r monRec) string { return c.paste[r.Path] }
+
+func (c *Monitoring) editPaste(r monRec, e vugu.DOMEvent) {
+	c.paste[r.Path] = e.PropString("target", "value")
+}
+
+// parsed reads the paste box of r: the readings in the file's units, or
+// the problems, one per line and column.
+func (c *Monitoring) parsed(r monRec) ([]solver.Reading, []string) {
+	text := c.paste[r.Path]
+	if strings.TrimSpace(text) == "" {
+		return nil, nil
+	}
+	if got, ok := c.parsedAs[r.Path]; ok && got.text == text {
+		return got.rs, got.errs
+	}
+	rs, err := solver.ParseReadings(text)
+	var errs []string
+	if err != nil {
+		rs, errs = nil, pasteMessages(err)
+	}
+	if r.Kind == kindPlates {
+		for j := range rs {
+			rs[j].Value /= 1000 // typed in mm
+		}
+	}
+	c.parsedAs[r.Path] = pasteParse{text, rs, errs}
+	return rs, errs
+}
+
+// pasteMessages splits the joined errors of ParseReadings.
+func pasteMessages(err error) []string {
+	var out []string
+	if j, ok := err.(interface{ Unwrap() []error }); ok {
+		for _, e := range j.Unwrap() {
+			out = append(out, e.Error())
+		}
+	} else {
+		out = append(out, err.Error())
+	}
+	if len(out) == 20 {
+		out = append(out, "… and perhaps more: fix these first.")
+	}
+	return out
+}
+
+func (c *Monitoring) pasteErrors(r monRec) []string {
+	_, errs := c.parsed(r)
+	return errs
+}
+
+// pasteSummary says what the paste box holds and what using it will do.
+func (c *Monitoring) pasteSummary(r monRec) string {
+	rs, errs := c.parsed(r)
+	switch {
+	case len(errs) > 0 || len(rs) == 0:
+		return ""
+	case len(rs) == 1:
+		return "Reads 1 reading, " + readingWhen(rs[0]) + "."
+	}
+	return fmt.Sprintf("Reads %d readings, %s to %s.", len(rs), readingWhen(rs[0]), readingWhen(rs[len(rs)-1]))
+}
+
+func (c *Monitoring) canUse(r monRec) bool {
+	rs, errs := c.parsed(r)
+	return len(errs) == 0 && len(rs) > 0
+}
+
+func (c *Monitoring) useLabel(r monRec) string {
+	if r.Count == 0 {
+		return "Use these readings"
+	}
+	return fmt.Sprintf("Replace the %d readings with these", r.Count)
+}
+
+// usePaste replaces r's readings with the pasted ones; the old ones can
+// be restored.
+func (c *Monitoring) usePaste(r monRec) {
+	rs, errs := c.parsed(r)
+	if len(errs) > 0 || len(rs) == 0 {
+		return
+	}
+	old := c.F.ReplaceReadings(r.Kind, r.I, slices.Clone(rs))
+	c.undo[r.Path] = old
+	c.open[r.Path] = true
+	c.paste[r.Path] = ""
+	c.Changed()
+}
+
+func (c *Monitoring) canUndo(r monRec) bool {
+	_, ok := c.undo[r.Path]
+	return ok
+}
+
+func (c *Monitoring) undoLabel(r monRec) string {
+	n := len(c.undo[r.Path])
+	switch n {
+	case 0:
+		return "Undo the paste (the record was empty)"
+	case 1:
+		return "Undo the paste: restore the 1 reading it replaced"
+	}
+	return fmt.Sprintf("Undo the paste: restore the %d readings it replaced", n)
+}
+
+func (c *Monitoring) undoPaste(r monRec) {
+	old, ok := c.undo[r.Path]
+	if !ok {
+		return
+	}
+	c.F.ReplaceReadings(r.Kind, r.I, old)
+	delete(c.undo, r.Path)
+	c.Changed()
+}
+
+func (c *Monitoring) pasteHint(r monRec) string {
+	return "Two columns copied from a spreadsheet: time (days after day 0, or a date) and " + r.Noun + " in " + r.Unit +
+		". Tabs, semicolons or commas between columns; a header line is skipped."
+}
+
+// remapKeys renumbers the keys "LIST[i]…" of m after a structural edit, as
+// Form.remap does for typed text.
+func remapKeys[V any](m map[string]V, list string, to func(int) int) {
+	moved := map[string]V{}
+	for k, v := range m {
+		rest, ok := strings.CutPrefix(k, list+"[")
+		if !ok {
+			continue
+		}
+		num, tail, ok := strings.Cut(rest, "]")
+		var old int
+		if _, err := fmt.Sscanf(num, "%d", &old); !ok || err != nil {
+			continue
+		}
+		delete(m, k)
+		if n := to(old); n >= 0 {
+			moved[fmt.Sprintf("%s[%d]%s", list, n, tail)] = v
+		}
+	}
+	for k, v := range moved {
+		m[k] = v
+	}
+}
