@@ -238,12 +238,30 @@ func (tr *transient) factorFor(theta, dt float64) (*factor, error) {
 	if f, ok := tr.cache[key]; ok {
 		return f, nil
 	}
-	for i := range tr.a.ab {
-		tr.a.ab[i] = tr.mass.ab[i] + theta*dt*tr.k.ab[i]
-	}
 	f := new(factor)
-	if err := factorize(f, tr.a, tr.lo, tr.hi); err != nil {
-		return nil, err
+	c := theta * dt
+	if tr.k.kd == 1 {
+		// Tridiagonal: form D and E of the free block in one pass.
+		n := tr.hi - tr.lo
+		f.n, f.kd, f.lo = n, 1, tr.lo
+		f.d, f.e = make([]float64, n), make([]float64, max(n-1, 0))
+		mab, kab := tr.mass.ab[2*tr.lo:2*tr.hi], tr.k.ab[2*tr.lo:2*tr.hi]
+		for i := range n {
+			f.d[i] = mab[2*i] + c*kab[2*i]
+			if i+1 < n {
+				f.e[i] = mab[2*i+1] + c*kab[2*i+1]
+			}
+		}
+		if n > 0 && !lapack.Dpttrf(n, f.d, f.e) {
+			return nil, notDefinite(f.d)
+		}
+	} else {
+		for i := range tr.a.ab {
+			tr.a.ab[i] = tr.mass.ab[i] + c*tr.k.ab[i]
+		}
+		if err := factorize(f, tr.a, tr.lo, tr.hi); err != nil {
+			return nil, err
+		}
 	}
 	tr.factors++
 	size := len(f.d) + len(f.e) + len(f.ab)

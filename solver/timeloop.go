@@ -130,6 +130,21 @@ func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path
 	denP := dot(tr.wLength, sigInf) - dot(tr.wLength, uInf)
 	defined := math.Abs(denS) > 1e-12*math.Max(1, math.Abs(sumLin)) && len(tr.held) > 0
 	negWarned := false
+	capacity := estimateSteps(p) + len(bps) + 2
+	ser.Time = make([]float64, 0, capacity)
+	ser.Load = make([]float64, 0, capacity)
+	ser.Settlement = make([]float64, 0, capacity)
+	if defined {
+		ser.Us = make([]float64, 0, capacity)
+		ser.Up = make([]float64, 0, capacity)
+	}
+	if allCurves {
+		ser.SettlementElog = make([]float64, 0, capacity)
+	}
+	for i := range ser.Piezometers {
+		ser.Piezometers[i].Pore = make([]float64, 0, capacity)
+		ser.Piezometers[i].Excess = make([]float64, 0, capacity)
+	}
 	record := func(t float64) {
 		ser.Time = append(ser.Time, t)
 		ser.Load = append(ser.Load, surcharge(p.Loads, t))
@@ -147,7 +162,7 @@ func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path
 		total := 0.0
 		for e := range subs {
 			s := &subs[e]
-			to := s.s0 + m.interpolate(tr.sigma, s.z) - m.interpolate(tr.u, s.z)
+			to := s.s0 + m.centre(tr.sigma, e) - m.centre(tr.u, e)
 			if to < 0 && !negWarned {
 				negWarned = true
 				warn("loads", fmt.Sprintf("the effective stress falls below zero at %.3g m near %.4g days: the soil would lose contact (heave); results there are not physical", s.z, t))

@@ -13,9 +13,9 @@ const (
 	MaxPiezometers = 100
 	MaxLoads       = 200
 	MaxSteps       = 20_000
-	// MaxWork caps nodes × time steps of one solve: about 2 s natively
-	// and 10 s in a browser.
-	MaxWork = 200_000_000
+	// MaxWork caps nodes × time steps of one solve: 100,000 quadratic
+	// elements over 1,000 steps, a few seconds natively.
+	MaxWork = 250_000_000
 )
 
 // Validate checks every value of p and returns all problems at once (as
