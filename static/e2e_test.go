@@ -249,13 +249,29 @@ func eval[T any](t *testing.T, ctx context.Context, js string) T {
 // poll waits until the JavaScript expression is truthy and returns it.
 func poll[T any](t *testing.T, ctx context.Context, js string, d time.Duration) T {
 	t.Helper()
-	c, cancel := context.WithTimeout(ctx, d+5*time.Second)
-	defer cancel()
-	v, err := chromedp.Run(c, chromedp.Poll[T](js, chromedp.WithPollingTimeout(d)))
-	if err != nil {
+	deadline := time.Now().Add(d)
+	for {
+		c, cancel := context.WithTimeout(ctx, time.Until(deadline)+5*time.Second)
+		v, err := chromedp.Run(c, chromedp.Poll[T](js, chromedp.WithPollingTimeout(time.Until(deadline))))
+		cancel()
+		if err == nil {
+			return v
+		}
+		// A navigation (a share link, a reload) destroys the context
+		// the poll runs in; poll again in the new page.
+		if navigating(err) && time.Now().Before(deadline) {
+			time.Sleep(100 * time.Millisecond)
+			continue
+		}
 		t.Fatalf("waiting for %s: %v", js, err)
 	}
-	return v
+}
+
+// navigating reports whether err comes from a page that was navigating
+// away while a script ran in it.
+func navigating(err error) bool {
+	s := err.Error()
+	return strings.Contains(s, "Cannot find context") || strings.Contains(s, "Execution context was destroyed")
 }
 
 // dataValue is the full-precision number behind a summary figure.

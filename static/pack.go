@@ -3,7 +3,7 @@
 //
 // Pack writes one HTML file that carries everything inline: the CSS, the
 // demo project, the renderer's helper script, Go's wasm_exec.js, the
-// gzipped and base64-encoded WebAssembly program and the boot script. A
+// gzipped WebAssembly program in base 85 (see Encode85) and the boot script. A
 // Content-Security-Policy meta tag forbids every network request, so the
 // page works the same from disk, from a static server and in a sandboxed
 // frame. The command in ./pack runs it for `make page`.
@@ -13,7 +13,6 @@ import (
 	"bytes"
 	"compress/gzip"
 	_ "embed"
-	"encoding/base64"
 	"errors"
 	"fmt"
 	"go/ast"
@@ -98,7 +97,8 @@ func Pack(in Inputs) ([]byte, error) {
 		"Demo":       strings.TrimSpace(string(in.Demo)),
 		"VuguHelper": in.VuguHelper,
 		"WasmExec":   string(in.WasmExec),
-		"WasmGz":     wrap(base64.StdEncoding.EncodeToString(gz.Bytes()), 120),
+		"WasmGz":     wrap(Encode85(gz.Bytes()), 120),
+		"WasmLen":    strconv.Itoa(gz.Len()),
 		"Boot":       bootJS,
 	})
 	if err != nil {
@@ -159,4 +159,67 @@ func HelperScript(vuguDir string) (string, error) {
 		}
 	}
 	return "", fmt.Errorf("%s: no constant jsHelperScript", file)
+}
+
+// Alphabet85 is the alphabet of Encode85: the printable ASCII characters
+// from '!' on, less the seven that HTML or JavaScript treat specially
+// and the braces
+// (" & ' < > \ and the backquote), in code order. Without '<' no run of
+// them can close the script element that holds them or open a comment.
+const Alphabet85 = "!#$%()*+,-./0123456789:;=?@ABCDEFGHIJKLMNOPQRSTUVWXYZ[]^_abcdefghijklmnopqrstuvwxyz|~"
+
+// Encode85 writes b in base 85: every 4 bytes (big-endian, the last group
+// padded with zero bytes) become 5 digits of Alphabet85, most significant
+// first. The text is 25 % longer than b, against 33 % for base 64; the
+// decoder needs the length of b to drop the padding.
+func Encode85(b []byte) string {
+	var out strings.Builder
+	out.Grow((len(b) + 3) / 4 * 5)
+	var group [4]byte
+	var digits [5]byte
+	for i := 0; i < len(b); i += 4 {
+		group = [4]byte{}
+		copy(group[:], b[i:])
+		v := uint32(group[0])<<24 | uint32(group[1])<<16 | uint32(group[2])<<8 | uint32(group[3])
+		for j := 4; j >= 0; j-- {
+			digits[j] = Alphabet85[v%85]
+			v /= 85
+		}
+		out.Write(digits[:])
+	}
+	return out.String()
+}
+
+// Decode85 reverses Encode85 for n bytes, skipping white space; it is the
+// Go twin of the page's decoder, used by the tests.
+func Decode85(s string, n int) ([]byte, error) {
+	var idx [256]int16
+	for i := range idx {
+		idx[i] = -1
+	}
+	for i := 0; i < len(Alphabet85); i++ {
+		idx[Alphabet85[i]] = int16(i)
+	}
+	out := make([]byte, 0, (len(s)/5+1)*4)
+	var v uint32
+	k := 0
+	for i := 0; i < len(s); i++ {
+		c := s[i]
+		if c == ' ' || c == '\n' || c == '\r' || c == '\t' {
+			continue
+		}
+		d := idx[c]
+		if d < 0 {
+			return nil, fmt.Errorf("pack: %q is not a base-85 digit", c)
+		}
+		v = v*85 + uint32(d)
+		if k++; k == 5 {
+			out = append(out, byte(v>>24), byte(v>>16), byte(v>>8), byte(v))
+			v, k = 0, 0
+		}
+	}
+	if k != 0 || n > len(out) || len(out)-n > 3 {
+		return nil, fmt.Errorf("pack: base-85 text of %d bytes does not hold %d bytes", len(out), n)
+	}
+	return out[:n], nil
 }

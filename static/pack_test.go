@@ -3,10 +3,10 @@ package static
 import (
 	"bytes"
 	"compress/gzip"
-	"encoding/base64"
 	"io"
 	"os/exec"
 	"regexp"
+	"strconv"
 	"strings"
 	"testing"
 )
@@ -46,11 +46,12 @@ func TestPack(t *testing.T) {
 		t.Errorf("page refers outside: %s", m)
 	}
 	// The embedded program unpacks to the original bytes.
-	m := regexp.MustCompile(`(?s)<script id="wasm-gz" type="application/octet-stream">(.*?)</script>`).FindStringSubmatch(s)
+	m := regexp.MustCompile(`(?s)<script id="wasm-gz" type="application/octet-stream" data-bytes="(\d+)">(.*?)</script>`).FindStringSubmatch(s)
 	if m == nil {
 		t.Fatal("no wasm-gz script")
 	}
-	gz, err := base64.StdEncoding.DecodeString(strings.ReplaceAll(strings.TrimSpace(m[1]), "\n", ""))
+	n, _ := strconv.Atoi(m[1])
+	gz, err := Decode85(m[2], n)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -109,5 +110,38 @@ func TestHelperScript(t *testing.T) {
 	}
 	if _, err := HelperScript(t.TempDir()); err == nil {
 		t.Error("no error for a folder without the renderer")
+	}
+}
+
+// TestBase85 round-trips every length modulo 4 and every byte value, and
+// checks that the alphabet holds no character HTML or JavaScript treats
+// specially, so no encoded text can close its script element.
+func TestBase85(t *testing.T) {
+	if len(Alphabet85) != 85 {
+		t.Fatalf("alphabet has %d characters", len(Alphabet85))
+	}
+	if strings.ContainsAny(Alphabet85, "\"&'<>\\` \t\n") {
+		t.Fatalf("alphabet holds a special character: %q", Alphabet85)
+	}
+	all := make([]byte, 1027)
+	for i := range all {
+		all[i] = byte(i * 7)
+	}
+	all[0], all[1], all[2], all[3] = 255, 255, 255, 255 // the largest group
+	for _, n := range []int{0, 1, 2, 3, 4, 5, 1023, 1024, 1025, 1026, 1027} {
+		enc := Encode85(all[:n])
+		if len(enc) != (n+3)/4*5 {
+			t.Errorf("%d bytes: %d characters, want %d", n, len(enc), (n+3)/4*5)
+		}
+		got, err := Decode85(wrap(enc, 120), n)
+		if err != nil || !bytes.Equal(got, all[:n]) {
+			t.Errorf("%d bytes: round trip failed (%v)", n, err)
+		}
+	}
+	if _, err := Decode85("!!!!", 0); err == nil {
+		t.Error("a truncated group was accepted")
+	}
+	if _, err := Decode85("!!!!<", 4); err == nil {
+		t.Error("a character outside the alphabet was accepted")
 	}
 }

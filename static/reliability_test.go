@@ -447,8 +447,14 @@ func TestE2EReliability(t *testing.T) {
 		status := poll[string](t, ctx, `document.getElementById("solve-cancel") && /Solving… [1-9]/.test(document.getElementById("status").textContent) && document.getElementById("status").textContent`, 20*time.Second)
 		t.Logf("status while solving: %q", status)
 		screenshot(t, ctx, shots, "5-solving.png")
-		within(t, ctx, 10*time.Second, chromedp.Click(chromedp.ID("solve-cancel")))
-		poll[bool](t, ctx, `document.getElementById("status").textContent.includes("cancelled")`, 5*time.Second)
+		// Click through the DOM until the status says so: a re-render
+		// between finding the button and a synthetic mouse click could
+		// otherwise swallow the click on a loaded machine.
+		poll[bool](t, ctx, `(() => {
+			const b = document.getElementById("solve-cancel");
+			if (b) b.click();
+			return document.getElementById("status").textContent.includes("cancelled");
+		})()`, 10*time.Second)
 		time.Sleep(1500 * time.Millisecond) // the cancelled solve must not come back
 		if s := eval[string](t, ctx, `document.getElementById("status").textContent`); !strings.Contains(s, "cancelled") {
 			t.Errorf("status %q after the cancel", s)

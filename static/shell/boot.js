@@ -31,16 +31,39 @@
 		return realEval(src);
 	};
 
-	function fromBase64(b64) {
-		if (Uint8Array.fromBase64) {
-			return Uint8Array.fromBase64(b64);
+	// The gzipped program is written in base 85 (static/pack.go, Encode85):
+	// 5 digits of the alphabet below hold 4 bytes, most significant first.
+	var alphabet85 = "!#$%()*+,-./0123456789:;=?@ABCDEFGHIJKLMNOPQRSTUVWXYZ[]^_abcdefghijklmnopqrstuvwxyz|~";
+	function from85(text, n) {
+		var idx = new Int16Array(128).fill(-1);
+		for (var i = 0; i < alphabet85.length; i++) {
+			idx[alphabet85.charCodeAt(i)] = i;
 		}
-		var bin = atob(b64);
-		var out = new Uint8Array(bin.length);
-		for (var i = 0; i < bin.length; i++) {
-			out[i] = bin.charCodeAt(i);
+		var out = new Uint8Array(Math.ceil(text.length / 5) * 4);
+		var o = 0, v = 0, k = 0;
+		for (var j = 0; j < text.length; j++) {
+			var c = text.charCodeAt(j);
+			if (c <= 32) {
+				continue; // white space from line wrapping
+			}
+			var d = c < 128 ? idx[c] : -1;
+			if (d < 0) {
+				throw new Error("the embedded program is damaged (character " + j + ")");
+			}
+			v = v * 85 + d;
+			if (++k === 5) {
+				out[o++] = v >>> 24;
+				out[o++] = (v >>> 16) & 255;
+				out[o++] = (v >>> 8) & 255;
+				out[o++] = v & 255;
+				v = 0;
+				k = 0;
+			}
 		}
-		return out;
+		if (k !== 0 || o < n) {
+			throw new Error("the embedded program is truncated");
+		}
+		return out.subarray(0, n);
 	}
 
 	async function start() {
@@ -48,7 +71,8 @@
 			fail("this browser lacks WebAssembly or DecompressionStream; use a current Chromium, Firefox or Safari.");
 			return;
 		}
-		var gz = fromBase64(document.getElementById("wasm-gz").textContent.trim());
+		var holder = document.getElementById("wasm-gz");
+		var gz = from85(holder.textContent, Number(holder.getAttribute("data-bytes")));
 		var stream = new Blob([gz]).stream().pipeThrough(new DecompressionStream("gzip"));
 		var bytes = await new Response(stream).arrayBuffer();
 		var go = new Go();
