@@ -47,3 +47,22 @@ func BenchmarkLargeColumn(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkLargeColumnQuadratic is BenchmarkLargeColumn with 100,000
+// quadratic elements (200,001 nodes).
+func BenchmarkLargeColumnQuadratic(b *testing.B) {
+	p := &Project{
+		Format: Format,
+		Layers: []Layer{{Thickness: 100, GammaSat: 18, K: 1e-9, Mv: 1e-3}},
+		Top:    Boundary{Drained: true}, Bottom: Boundary{Drained: true},
+		Loads:    []Load{{Start: 0, Q: 100}},
+		Mesh:     MeshSettings{Order: 2, MaxSize: 100.0 / 100_000},
+		Stepping: Stepping{FirstStep: 10, Growth: 1, EndTime: 10_000, DampedSteps: -1},
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := Solve(p, nil); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

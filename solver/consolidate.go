@@ -301,20 +301,7 @@ func (tr *transient) step(theta, t0, dt float64) error {
 	if tr.mass.kd == 1 && tr.lumped {
 		thetaRHS(rhs, u, ds, tr.mass.ab, tr.k.ab, c)
 	} else {
-		if ds != nil {
-			for i := range tmp {
-				tmp[i] += u[i]
-			}
-			tr.mass.mulVec(rhs, tmp)
-		} else {
-			tr.mass.mulVec(rhs, u)
-		}
-		if c != 0 {
-			tr.k.mulVec(tmp, u)
-			for i := range rhs {
-				rhs[i] -= c * tmp[i]
-			}
-		}
+		bandThetaRHS(rhs, u, ds, tr.mass, tr.k, c)
 	}
 	tr.setHeld(u, t0+dt, true)
 	for _, j := range tr.held {
@@ -459,4 +446,28 @@ func estimateSteps(p *Project) int {
 		}
 	}
 	return int(n)
+}
+
+// bandThetaRHS sets dst = M (u + ds) − c·K u for symmetric band matrices M
+// and K of the same shape, in one pass over their storage. ds may be nil.
+func bandThetaRHS(dst, u, ds []float64, m, k *band, c float64) {
+	n, ld := m.n, m.kd+1
+	clear(dst[:n])
+	for i := range n {
+		mi, ki := m.ab[i*ld:i*ld+ld], k.ab[i*ld:i*ld+ld]
+		vi := u[i]
+		if ds != nil {
+			vi += ds[i]
+		}
+		acc := mi[0]*vi - c*ki[0]*u[i]
+		for j := 1; j < ld && i+j < n; j++ {
+			vj := u[i+j]
+			if ds != nil {
+				vj += ds[i+j]
+			}
+			acc += mi[j]*vj - c*ki[j]*u[i+j]
+			dst[i+j] += mi[j]*vi - c*ki[j]*u[i]
+		}
+		dst[i] += acc
+	}
 }

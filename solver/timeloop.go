@@ -145,6 +145,19 @@ func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path
 		ser.Piezometers[i].Pore = make([]float64, 0, capacity)
 		ser.Piezometers[i].Excess = make([]float64, 0, capacity)
 	}
+	// The effective stress is followed element by element where an e–log
+	// curve needs it, and where it may fall: under a load removal or a
+	// rising pressure at a drained end. Under loading alone σ' = σ'0 + σ − u
+	// cannot drop below σ'0, since u ≤ σ.
+	followStress := anyCurve
+	for _, l := range p.Loads {
+		followStress = followStress || l.Q < 0
+	}
+	for _, b := range []Boundary{p.Top, p.Bottom} {
+		for _, tv := range b.Excess {
+			followStress = followStress || tv.Value > 0
+		}
+	}
 	record := func(t float64) {
 		ser.Time = append(ser.Time, t)
 		ser.Load = append(ser.Load, surcharge(p.Loads, t))
@@ -161,6 +174,9 @@ func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path
 		}
 		total := 0.0
 		for e := range subs {
+			if !followStress {
+				break
+			}
 			s := &subs[e]
 			to := s.s0 + m.centre(tr.sigma, e) - m.centre(tr.u, e)
 			if to < 0 && !negWarned {

@@ -1,0 +1,58 @@
+package main
+
+import (
+	"encoding/json"
+	"fmt"
+	"os"
+)
+
+// browserFigures are the page's own measurements, written by its browser
+// benchmark as JSON. The first five keys are required; the others are
+// shown when present, and keys this program does not know are ignored
+// (the page's benchmark owns the format).
+type browserFigures struct {
+	FirstPlotMs     *float64 `json:"firstPlotMs"`     // opening the page to the first plot
+	EditToPlotMs    *float64 `json:"editToPlotMs"`    // an input event to the updated plot
+	HeapBeforeBytes *float64 `json:"heapBeforeBytes"` // wasm memory before the solves
+	HeapAfterBytes  *float64 `json:"heapAfterBytes"`  // and after them
+	Solves          *int     `json:"solves"`
+
+	EditToPlotNoDebounceMs *float64 `json:"editToPlotNoDebounceMs"` // the same from the end of the page's pause before a solve
+	JSHeapBeforeBytes      *float64 `json:"jsHeapBeforeBytes"`      // JavaScript heap; 0 when unavailable
+	JSHeapAfterBytes       *float64 `json:"jsHeapAfterBytes"`
+	Machine                string   `json:"machine"`
+}
+
+// Goals of section 5.
+const (
+	firstPlotGoalMs  = 1500
+	editToPlotGoalMs = 50
+	heapGrowthGoal   = 5_000_000 // bytes (10⁶ to the MB), over heapSolves solves
+	heapSolves       = 1000
+)
+
+// readBrowser decodes the browser benchmark's file and requires its five
+// keys.
+func readBrowser(name string) (*browserFigures, error) {
+	data, err := os.ReadFile(name)
+	if err != nil {
+		return nil, err
+	}
+	var b browserFigures
+	if err := json.Unmarshal(data, &b); err != nil {
+		return nil, fmt.Errorf("%s: %w", name, err)
+	}
+	for _, k := range []struct {
+		key string
+		ok  bool
+	}{
+		{"firstPlotMs", b.FirstPlotMs != nil}, {"editToPlotMs", b.EditToPlotMs != nil},
+		{"heapBeforeBytes", b.HeapBeforeBytes != nil}, {"heapAfterBytes", b.HeapAfterBytes != nil},
+		{"solves", b.Solves != nil},
+	} {
+		if !k.ok {
+			return nil, fmt.Errorf("%s: missing %q", name, k.key)
+		}
+	}
+	return &b, nil
+}
