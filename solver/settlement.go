@@ -44,22 +44,54 @@ func preconsolidation(c *ECurve, s0 float64) float64 {
 }
 
 // sublayer is the e–log σ' state of one element, evaluated at its centre.
+// Its current and largest stresses are also kept as base-10 logarithms,
+// so that following the curve costs one logarithm per step.
 type sublayer struct {
 	curve     *ECurve
 	z, h      float64 // centre depth and thickness, m
 	s0        float64 // in-situ effective stress, kPa
 	sig, peak float64 // current effective stress and largest so far
 	de        float64 // compression so far (Δe, positive down)
+	lsig      float64 // log10(max(sig, minEffective))
+	lpeak     float64 // log10(max(peak, sig, minEffective))
+	started   bool    // lsig and lpeak are set
 }
 
 // settlement is this sublayer's settlement so far, m.
 func (s *sublayer) settlement() float64 { return s.de / (1 + s.curve.E0) * s.h }
 
-// moveTo follows the curve to effective stress to.
+// moveTo follows the curve to effective stress to; it matches compress
+// (tested) with the logarithms of the stresses carried along.
 func (s *sublayer) moveTo(to float64) {
-	de, peak := compress(s.curve, s.sig, to, s.peak)
-	s.de += de
-	s.sig, s.peak = math.Max(to, minEffective), peak
+	if !s.started {
+		s.lsig = math.Log10(max(s.sig, minEffective))
+		s.lpeak = max(math.Log10(max(s.peak, minEffective)), s.lsig)
+		s.started = true
+	}
+	to = max(to, minEffective)
+	if to == s.sig {
+		return
+	}
+	var lto float64
+	if d := (to - s.sig) / s.sig; d > -1e-4 && d < 1e-4 {
+		// Small steps (most of them, late in consolidation): the series
+		// log10(1+d) = (d − d²/2 + d³/3)/ln 10 is exact to 1e-17 here.
+		lto = s.lsig + d*(1-d*(0.5-d/3))/math.Ln10
+	} else {
+		lto = math.Log10(to)
+	}
+	c := s.curve
+	switch {
+	case lto <= s.lsig:
+		s.de -= c.Cr * (s.lsig - lto)
+	case lto <= s.lpeak:
+		s.de += c.Cr * (lto - s.lsig)
+	default:
+		s.de += c.Cr*(s.lpeak-s.lsig) + c.Cc*(lto-s.lpeak)
+		s.lpeak = lto
+		s.peak = to
+	}
+	s.sig, s.lsig = to, lto
 }
 
 // secondary is the secondary compression of a layer (Mesri 1973):

@@ -116,3 +116,22 @@ func TestElogSettlement(t *testing.T) {
 		})
 	}
 }
+
+// TestSublayerFollowsCompress: the log-space path of a sublayer equals the
+// compress formula (Terzaghi & Peck 1967) step by step, through loading
+// across σ'p, unloading, reloading and past the old peak (±1e-12).
+func TestSublayerFollowsCompress(t *testing.T) {
+	t.Parallel()
+	c := &ECurve{E0: 1.2, Cc: 0.45, Cr: 0.05}
+	s := sublayer{curve: c, h: 1, s0: 40, sig: 40, peak: 60}
+	sig, peak, want := 40.0, 60.0, 0.0
+	for _, to := range []float64{45, 55, 60, 80, 100, 100, 70, 50, 90, 120, 0.01, 30} {
+		de, p := compress(c, sig, to, peak)
+		want += de
+		sig, peak = max(to, minEffective), p
+		s.moveTo(to)
+		if math.Abs(s.de-want) > 1e-12 {
+			t.Fatalf("after moving to %g kPa: Δe = %.15f, compress gives %.15f", to, s.de, want)
+		}
+	}
+}
