@@ -46,7 +46,8 @@ gen-check: gen
 # 0.28 MB of the gzipped program (the page must stay under 2.5 MB) and the
 # UI's speed does not rest on it.
 WASMFLAGS := -trimpath -ldflags="-s -w" -gcflags=all=-l \
-	-gcflags=porelight/solver/...= -gcflags=gonum.org/v1/gonum/...=
+	-gcflags=porelight/solver/...= -gcflags=gonum.org/v1/gonum/...= \
+	-gcflags=github.com/vugu/...= -gcflags=runtime= -gcflags=syscall/js=
 
 wasm:
 	@mkdir -p $(BUILD)

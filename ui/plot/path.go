@@ -81,18 +81,24 @@ func nearest(pts []Pt, x, y float64) (int, float64) {
 // plot's width in pixels can show.
 const maxPathPoints = 900
 
+// thinTolerance is the farthest, in pixels, a dropped point may lie from
+// the drawn line. A quarter pixel cannot be seen, and it cuts a smooth
+// time series of hundreds of steps to a few dozen points: every render
+// sends every path to the browser again, so short paths keep the page
+// quick to answer an edit.
+const thinTolerance = 0.25
+
 // thin returns at most max points of pts that draw the same curve to
 // within a fraction of a pixel: each unbroken run (consecutive source
 // indices) is simplified by the Douglas–Peucker algorithm with a tolerance
-// that doubles from 0.1 px until the count fits. The kept points are
-// renumbered so that runs stay unbroken and gaps stay gaps. pts itself is
-// returned when it is short enough.
+// of thinTolerance, doubled until the count fits. The kept points are
+// renumbered so that runs stay unbroken and gaps stay gaps.
 func thin(pts []Pt, max int) []Pt {
-	if len(pts) <= max {
+	if len(pts) <= 2 {
 		return pts
 	}
 	keep := make([]bool, len(pts))
-	for tol := 0.1; ; tol *= 2 {
+	for tol := thinTolerance; ; tol *= 2 {
 		clear(keep)
 		n := 0
 		for lo := 0; lo < len(pts); {

@@ -17,10 +17,11 @@ func TestPathD(t *testing.T) {
 		sx     Scale
 		want   string
 	}{
-		{"line", []float64{0, 10, 20.25}, []float64{5, 6, 7}, id, "M0 5 L10 6 L20.3 7"},
+		{"line", []float64{0, 10, 20.25}, []float64{5, 6.5, 7}, id, "M0 5 L10 6.5 L20.3 7"},
+		{"a point on the line is dropped", []float64{0, 10, 20}, []float64{5, 6, 7}, id, "M0 5 L20 7"},
 		{"gap at NaN", []float64{0, 1, nan, 3, 4}, []float64{0, 1, 2, 3, 4}, id, "M0 0 L1 1 M3 3 L4 4"},
 		{"NaN in y", []float64{0, 1, 2}, []float64{0, nan, 2}, id, "M0 0 M2 2"},
-		{"log drops zero time", []float64{0, 1, 10, 100}, []float64{1, 2, 3, 4}, lg, "M0 2 L100 3 L200 4"},
+		{"log drops zero time", []float64{0, 1, 10, 100}, []float64{1, 2, 3.5, 4}, lg, "M0 2 L100 3.5 L200 4"},
 		{"same pixel skipped", []float64{0, 0.01, 5}, []float64{0, 0.01, 5}, id, "M0 0 L5 5"},
 		{"shorter slice sets length", []float64{1, 2, 3}, []float64{1, 2}, id, "M1 1 L2 2"},
 		{"empty", nil, nil, id, ""},
