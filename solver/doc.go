@@ -128,6 +128,23 @@
 // (Mesri 1973) is Cα H/(1+ep) log10(t/tp) per layer at Project.DesignLife,
 // with tp the time at which Us reaches 95 %.
 //
+// # Field monitoring
+//
+// Project.Monitoring holds settlement plates and piezometer records, each a
+// list of readings at days after day 0 or at dates counted from
+// Monitoring.Start; Validate checks them with the rest of the project.
+// ParseReadings reads two columns pasted from a spreadsheet (tab, comma or
+// semicolon separated; decimal point or comma; days or dates) and names
+// the line and column of every problem. Asaoka applies Asaoka's (1978)
+// observational method to one settlement record: resampled at equal
+// intervals after the last load change, s_j = β0 + β1 s_(j−1) is fitted by
+// least squares, s∞ = β0/(1 − β1), and cv follows from the first Terzaghi
+// mode, cv = −4d² ln β1/(π² Δt) with d the drainage path (the parabolic
+// isochrone form 5d²/12 is reported beside it). BackFit fits multipliers on
+// k (so on cv) of chosen layers, and optionally one scale on settlement, to
+// the records by least squares with gonum/optimize on the real solver,
+// with standard errors from the Jacobian.
+//
 // # File format
 //
 // One project is one JSON object; the field names of Project and its parts
