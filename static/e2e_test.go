@@ -435,6 +435,53 @@ func TestE2EPage(t *testing.T) {
 		poll[bool](t, ctx, `!document.getElementById("layers-1-thickness-err")`, 10*time.Second)
 	})
 
+	t.Run("folds open and close", func(t *testing.T) {
+		// The secondary sections are folded: a line says what they hold,
+		// and nothing else of them is in the DOM.
+		for _, id := range []string{"steady-table", "settlement-table", "records-body", "plot-asaoka-0"} {
+			if eval[bool](t, ctx, fmt.Sprintf(`!!document.getElementById(%q)`, id)) {
+				t.Errorf("#%s is in the page before its fold is opened", id)
+			}
+		}
+		if got := eval[string](t, ctx, `document.getElementById("tables-hint").textContent`); !strings.Contains(got, "steady seepage") {
+			t.Errorf("tables hint %q", got)
+		}
+		p := mustDecode(t, demo)
+		if got := eval[string](t, ctx, `document.getElementById("records-summary").textContent`); !strings.HasPrefix(got, fmt.Sprintf("%d settlement plates", len(p.Monitoring.Plates))) {
+			t.Errorf("records summary %q", got)
+		}
+		within(t, ctx, 10*time.Second, chromedp.Click(chromedp.ID("tables-toggle")))
+		if n := poll[int](t, ctx, `document.querySelectorAll("#steady-table tbody tr").length`, 10*time.Second); n != len(native.Steady.Layers) {
+			t.Errorf("the steady table has %d rows, want %d", n, len(native.Steady.Layers))
+		}
+		within(t, ctx, 10*time.Second, chromedp.Click(chromedp.ID("records-toggle")))
+		name := poll[string](t, ctx, `document.getElementById("monitoring-plates-0-name")?.value`, 10*time.Second)
+		if name != p.Monitoring.Plates[0].Name {
+			t.Errorf("the first plate's name shows %q, want %q", name, p.Monitoring.Plates[0].Name)
+		}
+		within(t, ctx, 10*time.Second, chromedp.Click(chromedp.ID("asaoka-plots-toggle")))
+		poll[bool](t, ctx, `document.querySelectorAll("#plot-asaoka-0 path").length > 0`, 10*time.Second)
+		screenshot(t, ctx, shots, "2b-folds-open.png")
+		for _, id := range []string{"tables-toggle", "records-toggle", "asaoka-plots-toggle"} {
+			within(t, ctx, 10*time.Second, chromedp.Click(chromedp.ID(id)))
+		}
+		poll[bool](t, ctx, `!document.getElementById("steady-table") && !document.getElementById("records-body") && !document.getElementById("plot-asaoka-0")`, 10*time.Second)
+	})
+
+	t.Run("print report opens every fold", func(t *testing.T) {
+		// window.print, stood in for, notes what is missing when called.
+		eval[chromedp.Void](t, ctx, `window.__printed = null; window.print = () => {
+			window.__printed = ["steady-table", "settlement-table", "records-body", "monitoring-plates-0-name",
+				"plot-asaoka-0", "res-monitoring-plates-0-table", "caution", "mon-caution"].filter(id => !document.getElementById(id));
+		}`)
+		within(t, ctx, 10*time.Second, chromedp.Click(chromedp.ID("print-report")))
+		if missing := poll[[]string](t, ctx, `window.__printed`, 10*time.Second); len(missing) > 0 {
+			t.Errorf("missing when print was called: %v", missing)
+		}
+		// Then the folds close again.
+		poll[bool](t, ctx, `!document.getElementById("steady-table") && !document.getElementById("records-body") && !!document.getElementById("tables-foldnote")`, 10*time.Second)
+	})
+
 	t.Run("a malformed file is refused", func(t *testing.T) {
 		bad := filepath.Join(t.TempDir(), "broken.json")
 		if err := os.WriteFile(bad, []byte(`{"format": "porelight/1", "layers": [`), 0o644); err != nil {
@@ -490,11 +537,27 @@ func TestE2EPage(t *testing.T) {
 		if got := eval[string](t, ctx, `getComputedStyle(document.querySelector(".pl-tools")).display`); got != "none" {
 			t.Errorf("the toolbar prints (display %s)", got)
 		}
+		// A printout made with the browser's own Print says where a
+		// section was folded.
+		for _, id := range []string{"tables-foldnote", "records-foldnote", "monitoring-foldnote"} {
+			if got := eval[string](t, ctx, fmt.Sprintf(`getComputedStyle(document.getElementById(%q)).display`, id)); got == "none" {
+				t.Errorf("#%s does not print", id)
+			}
+		}
 		screenshot(t, ctx, shots, "3-print.png")
+		// What Print report prints: every fold open.
+		for _, id := range []string{"tables-toggle", "records-toggle", "asaoka-plots-toggle"} {
+			eval[chromedp.Void](t, ctx, fmt.Sprintf(`document.getElementById(%q).click()`, id))
+		}
+		poll[bool](t, ctx, `!!document.getElementById("steady-table") && !!document.getElementById("records-body") && !!document.getElementById("plot-asaoka-0")`, 10*time.Second)
+		screenshot(t, ctx, shots, "3b-print-open.png")
 		within(t, ctx, 10*time.Second, chromedp.Func(func(ctx context.Context, tg *chromedp.Target) error {
 			_, err := cdp.Call(ctx, tg, emulation.SetEmulatedMedia, emulation.SetEmulatedMediaParams{Media: ""})
 			return err
 		}))
+		if n := eval[int](t, ctx, `[...document.querySelectorAll(".pl-foldnote")].filter(e => getComputedStyle(e).display !== "none").length`); n != 0 {
+			t.Errorf("%d fold notes show on screen", n)
+		}
 	})
 
 	t.Run("sandboxed frame", func(t *testing.T) {
@@ -592,7 +655,12 @@ func TestE2EMonitoring(t *testing.T) {
 	if s := eval[string](t, ctx, `document.getElementById("asaoka-0-final").textContent`); !strings.HasSuffix(s, " mm") {
 		t.Errorf("forecast shows %q", s)
 	}
-	if n := eval[int](t, ctx, `document.querySelectorAll("#plot-asaoka-0 path").length`); n < 5 {
+	// The Asaoka plots are folded: open them.
+	if eval[bool](t, ctx, `!!document.getElementById("plot-asaoka-0")`) {
+		t.Error("the Asaoka plot is built before its fold is opened")
+	}
+	within(t, ctx, 10*time.Second, chromedp.Click(chromedp.ID("asaoka-plots-toggle")))
+	if n := poll[int](t, ctx, `document.querySelectorAll("#plot-asaoka-0 path").length`, 10*time.Second); n < 5 {
 		t.Errorf("the Asaoka plot has %d paths", n)
 	}
 	_, problems := rec.snapshot()

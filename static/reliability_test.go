@@ -21,6 +21,7 @@ import (
 	"time"
 
 	"github.com/chromedp/cdproto/cdp"
+	"github.com/chromedp/cdproto/emulation"
 	"github.com/chromedp/cdproto/input"
 	"github.com/chromedp/cdproto/page"
 	"github.com/chromedp/chromedp"
@@ -245,7 +246,11 @@ func TestE2EReliability(t *testing.T) {
 	const k = "7.7e-9" // the edit that must survive
 	t.Run("autosave survives a reload", func(t *testing.T) {
 		typeInto(t, ctx, "layers-1-k", k)
-		// Reload at once, before the pause and the solve are over.
+		// Reload as soon as the page has taken the last keystroke (the
+		// autosave is written when a valid edit is committed), before the
+		// pause and the solve are over. Without this wait the reload can
+		// overtake the keystroke itself, which no page can keep.
+		poll[bool](t, ctx, `(localStorage.getItem("porelight.autosave") || "").includes('"k":7.7e-9')`, 10*time.Second)
 		within(t, ctx, 60*time.Second, chromedp.Reload())
 		poll[bool](t, ctx, `!!document.getElementById("layers-1-k")`, 45*time.Second)
 		if got := value(t, ctx, "layers-1-k"); got != k {
@@ -344,6 +349,12 @@ func TestE2EReliability(t *testing.T) {
 
 	const evil = `<img src=x onerror=alert(1)><b>bold</b>`
 	t.Run("typed text stays text", func(t *testing.T) {
+		// Open the folds, so that the check covers the tables by layer,
+		// the records editor and the Asaoka plots too.
+		for _, id := range []string{"tables-toggle", "records-toggle", "asaoka-plots-toggle"} {
+			within(t, ctx, 10*time.Second, chromedp.Click(chromedp.ID(id)))
+		}
+		poll[bool](t, ctx, `!!document.getElementById("steady-table") && !!document.getElementById("monitoring-plates-0-name") && !!document.getElementById("plot-asaoka-0")`, 10*time.Second)
 		markup := `document.querySelectorAll("img, b, [onerror], script:not([id])").length`
 		if n := eval[int](t, ctx, markup); n != 0 {
 			t.Fatalf("the page has %d img/b/script elements before typing", n)
@@ -357,7 +368,8 @@ func TestE2EReliability(t *testing.T) {
 			t.Fatalf("the markup check counted %d elements for one probe", n)
 		}
 
-		for _, id := range []string{"title", "layers-0-name", "notes"} {
+		typed := []string{"title", "layers-0-name", "notes", "monitoring-plates-0-name"}
+		for _, id := range typed {
 			paste(t, ctx, id, evil)
 		}
 		poll[bool](t, ctx, `document.getElementById("status").textContent.includes("up to date")`, 20*time.Second)
@@ -366,7 +378,7 @@ func TestE2EReliability(t *testing.T) {
 		if n := eval[int](t, ctx, markup); n != 0 {
 			t.Errorf("typing markup created %d elements", n)
 		}
-		for _, id := range []string{"title", "layers-0-name", "notes"} {
+		for _, id := range typed {
 			if got := value(t, ctx, id); got != evil {
 				t.Errorf("#%s shows %q", id, got)
 			}
@@ -375,6 +387,10 @@ func TestE2EReliability(t *testing.T) {
 			{"print title", `document.querySelector(".pl-print-title").textContent`},
 			{"print notes", `document.querySelector(".pl-print-notes").textContent`},
 			{"isochrone strip", `document.getElementById("plot-isochrones").textContent`},
+			{"steady table", `document.getElementById("steady-table").textContent`},
+			{"comparison", `document.getElementById("residuals").textContent`},
+			{"Asaoka heading", `document.querySelector("#asaoka-0 h4").textContent`},
+			{"Asaoka plot", `document.getElementById("plot-asaoka-0").textContent`},
 		}
 		for _, c := range checks {
 			if got := eval[string](t, ctx, c.js); !strings.Contains(got, "<img") && !strings.Contains(got, "<b>") {
@@ -385,6 +401,11 @@ func TestE2EReliability(t *testing.T) {
 		if d := rec.dialogMessages(); len(d) > 0 {
 			t.Errorf("dialogues opened: %v", d)
 		}
+		// Fold them again, as the page was.
+		for _, id := range []string{"tables-toggle", "records-toggle", "asaoka-plots-toggle"} {
+			within(t, ctx, 10*time.Second, chromedp.Click(chromedp.ID(id)))
+		}
+		poll[bool](t, ctx, `!document.getElementById("steady-table") && !document.getElementById("records-body") && !document.getElementById("plot-asaoka-0")`, 10*time.Second)
 	})
 
 	t.Run("too large a project", func(t *testing.T) {
@@ -443,6 +464,16 @@ func TestE2EReliability(t *testing.T) {
 
 	t.Run("a long solve shows progress and can be cancelled", func(t *testing.T) {
 		flux := eval[string](t, ctx, `document.getElementById("sum-flux").dataset.value`)
+		// Slow the page down, as on a weaker machine: on a fast one the
+		// solve below can finish between the first progress and the click.
+		throttle := func(rate float64) {
+			within(t, ctx, 10*time.Second, chromedp.Func(func(ctx context.Context, tg *chromedp.Target) error {
+				_, err := cdp.Call(ctx, tg, emulation.SetCPUThrottlingRate, emulation.SetCPUThrottlingRateParams{Rate: rate})
+				return err
+			}))
+		}
+		throttle(6)
+		defer throttle(1)
 		typeInto(t, ctx, "mesh-maxSize", "0.002") // about 1.4 s natively, several in the page
 		status := poll[string](t, ctx, `document.getElementById("solve-cancel") && /Solving… [1-9]/.test(document.getElementById("status").textContent) && document.getElementById("status").textContent`, 20*time.Second)
 		t.Logf("status while solving: %q", status)
@@ -465,6 +496,7 @@ func TestE2EReliability(t *testing.T) {
 		if eval[bool](t, ctx, `!!document.getElementById("solve-cancel")`) {
 			t.Error("the Cancel button stayed")
 		}
+		throttle(1)
 		screenshot(t, ctx, shots, "6-cancelled.png")
 		typeInto(t, ctx, "mesh-maxSize", "0.1")
 		poll[bool](t, ctx, `document.getElementById("status").textContent.includes("up to date")`, 20*time.Second)

@@ -973,23 +973,32 @@ func (c *Comparison) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 			_ = vgiterkey
 			r := r
 			_ = r
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "details", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-resdetail"}}}
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-resdetail"}}}
 			vgparent.AppendChild(vgn)
 			vgn.AddAttrInterface("id", "res-"+r.ID+"-detail")
-			vgn.AddAttrInterface("open", c.isShown(r))
-			vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
-				EventType: "toggle",
-				Func:      func(event vugu.DOMEvent) { c.toggled(r, event) },
-				// TODO: implement capture, etc. mostly need to decide syntax
-			})
 			{
 				vgparent := vgn
 				_ = vgparent
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "summary", Attr: []vugu.VGAttribute(nil)}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute(nil)}
 				vgparent.AppendChild(vgn)
-				vgn.SetInnerHTML("Reading by reading: " + r.Name)
+				vgn.AddAttrInterface("class", "pl-foldline"+noprintIf(!c.isShown(r)))
+				{
+					vgparent := vgn
+					_ = vgparent
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-fold"}}}
+					vgparent.AppendChild(vgn)
+					vgn.AddAttrInterface("aria-controls", "res-"+r.ID+"-table")
+					vgn.AddAttrInterface("aria-expanded", fmt.Sprint(c.isShown(r)))
+					vgn.AddAttrInterface("id", "res-"+r.ID+"-toggle")
+					vgn.SetInnerHTML(c.rowsLabel(r))
+					vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+						EventType: "click",
+						Func:      func(event vugu.DOMEvent) { c.toggleRows(r) },
+						// TODO: implement capture, etc. mostly need to decide syntax
+					})
+				}
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
 				if c.isShown(r) {
@@ -1228,6 +1237,32 @@ func (c *Comparison) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 		}
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
+		if len(c.asa) > 0 {
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-foldline"}}}
+			vgparent.AppendChild(vgn)
+			{
+				vgparent := vgn
+				_ = vgparent
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "asaoka-plots-hint"}}}
+				vgparent.AppendChild(vgn)
+				vgn.SetInnerHTML(c.plotsHint())
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: " "}
+				vgparent.AppendChild(vgn)
+				if c.anyPlot() {
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "asaoka-plots-toggle"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-fold pl-noprint"}}}
+					vgparent.AppendChild(vgn)
+					vgn.AddAttrInterface("aria-expanded", fmt.Sprint(c.PlotsOpen))
+					vgn.SetInnerHTML(c.plotsLabel())
+					vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+						EventType: "click",
+						Func:      func(event vugu.DOMEvent) { c.TogglePlots() },
+						// TODO: implement capture, etc. mostly need to decide syntax
+					})
+				}
+			}
+		}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
 		for vgiterkeyt, a := range c.asa {
 			var vgiterkey interface{} = vgiterkeyt
 			_ = vgiterkey
@@ -1394,80 +1429,94 @@ func (c *Comparison) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 						}
 						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 						vgparent.AppendChild(vgn)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "figure", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-figure"}}}
-						vgparent.AppendChild(vgn)
-						{
-							vgparent := vgn
-							_ = vgparent
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-							vgparent.AppendChild(vgn)
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "figcaption", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-figtools pl-noprint"}}}
+						if c.PlotsOpen {
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "figure", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-figure"}}}
 							vgparent.AppendChild(vgn)
 							{
 								vgparent := vgn
 								_ = vgparent
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "figcaption", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-figtools pl-noprint"}}}
 								vgparent.AppendChild(vgn)
 								{
 									vgparent := vgn
 									_ = vgparent
-									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-mini"}, vugu.VGAttribute{Namespace: "", Key: "title", Val: "Download the Asaoka plot as SVG"}}}
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
 									vgparent.AppendChild(vgn)
-									vgn.AddAttrInterface("id", a.ID+"-svg")
-									vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
-										EventType: "click",
-										Func:      func(event vugu.DOMEvent) { c.exportAsaoka(a, "svg") },
-										// TODO: implement capture, etc. mostly need to decide syntax
-									})
 									{
 										vgparent := vgn
 										_ = vgparent
-										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "SVG"}
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-mini"}, vugu.VGAttribute{Namespace: "", Key: "title", Val: "Download the Asaoka plot as SVG"}}}
 										vgparent.AppendChild(vgn)
+										vgn.AddAttrInterface("id", a.ID+"-svg")
+										vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+											EventType: "click",
+											Func:      func(event vugu.DOMEvent) { c.exportAsaoka(a, "svg") },
+											// TODO: implement capture, etc. mostly need to decide syntax
+										})
+										{
+											vgparent := vgn
+											_ = vgparent
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "SVG"}
+											vgparent.AppendChild(vgn)
+										}
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-mini"}, vugu.VGAttribute{Namespace: "", Key: "title", Val: "Download the resampled readings and the fitted line as CSV"}}}
+										vgparent.AppendChild(vgn)
+										vgn.AddAttrInterface("id", a.ID+"-csv")
+										vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+											EventType: "click",
+											Func:      func(event vugu.DOMEvent) { c.exportAsaoka(a, "csv") },
+											// TODO: implement capture, etc. mostly need to decide syntax
+										})
+										{
+											vgparent := vgn
+											_ = vgparent
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "CSV"}
+											vgparent.AppendChild(vgn)
+										}
 									}
-									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-mini"}, vugu.VGAttribute{Namespace: "", Key: "title", Val: "Download the resampled readings and the fitted line as CSV"}}}
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								{
+									vgcompKey := vugu.MakeCompKey(0x17D8B6DB1D19CED3^vgin.CurrentPositionHash(), vgiterkey)
+									// ask BuildEnv for prior instance of this specific component
+									vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*plot.Asaoka)
+									if vgcomp == nil {
+										// create new one if needed
+										vgcomp = new(plot.Asaoka)
+										vgin.BuildEnv.WireComponent(vgcomp)
+									}
+									vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+									vgcomp.ID = "plot-" + a.ID
+									vgcomp.Result = a.Res
+									vgcomp.Title = "Asaoka: plate " + a.Name
+									vgout.Components = append(vgout.Components, vgcomp)
+									vgn = &vugu.VGNode{Component: vgcomp}
 									vgparent.AppendChild(vgn)
-									vgn.AddAttrInterface("id", a.ID+"-csv")
-									vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
-										EventType: "click",
-										Func:      func(event vugu.DOMEvent) { c.exportAsaoka(a, "csv") },
-										// TODO: implement capture, etc. mostly need to decide syntax
-									})
-									{
-										vgparent := vgn
-										_ = vgparent
-										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "CSV"}
-										vgparent.AppendChild(vgn)
-									}
 								}
-							}
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-							vgparent.AppendChild(vgn)
-							{
-								vgcompKey := vugu.MakeCompKey(0x17D8B6DB1D19CED3^vgin.CurrentPositionHash(), vgiterkey)
-								// ask BuildEnv for prior instance of this specific component
-								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*plot.Asaoka)
-								if vgcomp == nil {
-									// create new one if needed
-									vgcomp = new(plot.Asaoka)
-									vgin.BuildEnv.WireComponent(vgcomp)
-								}
-								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-								vgcomp.ID = "plot-" + a.ID
-								vgcomp.Result = a.Res
-								vgcomp.Title = "Asaoka: plate " + a.Name
-								vgout.Components = append(vgout.Components, vgcomp)
-								vgn = &vugu.VGNode{Component: vgcomp}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 								vgparent.AppendChild(vgn)
 							}
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-							vgparent.AppendChild(vgn)
 						}
 						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 						vgparent.AppendChild(vgn)
 					}
 				}
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+			}
+		}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+		if c.folded() {
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-foldnote"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "monitoring-foldnote"}}}
+			vgparent.AppendChild(vgn)
+			{
+				vgparent := vgn
+				_ = vgparent
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Reading-by-reading tables or Asaoka plots were folded when printed: use Print report for the full report."}
 				vgparent.AppendChild(vgn)
 			}
 		}
@@ -2796,94 +2845,75 @@ func (c *Monitoring) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 		vgn.SetInnerHTML(vugu.HTML("The results column compares the readings with the prediction: measured points on the plots, the differences, Asaoka\x26#39;s method and a back-analysis of k."))
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
-		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pairs"}}}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-foldline"}}}
 		vgparent.AppendChild(vgn)
 		{
 			vgparent := vgn
 			_ = vgparent
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "records-summary"}}}
 			vgparent.AppendChild(vgn)
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "monitoring-start"}}}
+			vgn.SetInnerHTML(c.held())
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: " "}
 			vgparent.AppendChild(vgn)
-			{
-				vgparent := vgn
-				_ = vgparent
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "records-toggle"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-fold pl-noprint"}, vugu.VGAttribute{Namespace: "", Key: "aria-controls", Val: "records-body"}}}
+			vgparent.AppendChild(vgn)
+			vgn.AddAttrInterface("aria-expanded", fmt.Sprint(c.Open))
+			vgn.SetInnerHTML(c.toggleAllLabel())
+			vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+				EventType: "click",
+				Func:      func(event vugu.DOMEvent) { c.toggleAll() },
+				// TODO: implement capture, etc. mostly need to decide syntax
+			})
+			if c.Held {
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note pl-noprint"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "records-held"}}}
 				vgparent.AppendChild(vgn)
-				vgn.SetInnerHTML(vugu.HTML("Day 0 is"))
 				{
-					vgcompKey := vugu.MakeCompKey(0x2A724EDB9B897D50^vgin.CurrentPositionHash(), vgiterkey)
-					// ask BuildEnv for prior instance of this specific component
-					vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-					if vgcomp == nil {
-						// create new one if needed
-						vgcomp = new(Field)
-						vgin.BuildEnv.WireComponent(vgcomp)
-					}
-					vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-					vgcomp.Changed = c.Changed
-					vgcomp.F = c.F
-					vgcomp.Hint = "YYYY-MM-DD (or DD/MM/YYYY); needed only when readings give dates instead of days"
-					vgcomp.Label = "Calendar date of day 0, the start of construction"
-					vgcomp.Path = "monitoring.start"
-					vgout.Components = append(vgout.Components, vgcomp)
-					vgn = &vugu.VGNode{Component: vgcomp}
+					vgparent := vgn
+					_ = vgparent
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: " (stays open while a record needs attention)"}
 					vgparent.AppendChild(vgn)
 				}
 			}
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-			vgparent.AppendChild(vgn)
 		}
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
-		if len(c.recs()) == 0 {
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
+		if !c.Open {
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-foldnote"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "records-foldnote"}}}
 			vgparent.AppendChild(vgn)
 			{
 				vgparent := vgn
 				_ = vgparent
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "No records yet: add a settlement plate or a piezometer, then type or paste its readings."}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Field records were folded when printed: use Print report for the full report."}
 				vgparent.AppendChild(vgn)
 			}
 		}
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
-		for vgiterkeyt, r := range c.recs() {
-			var vgiterkey interface{} = vgiterkeyt
-			_ = vgiterkey
-			r := r
-			_ = r
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-record"}}}
+		if c.Open {
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "records-body"}}}
 			vgparent.AppendChild(vgn)
-			vgn.AddAttrInterface("id", r.ID)
 			{
 				vgparent := vgn
 				_ = vgparent
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-rechead"}}}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pairs"}}}
 				vgparent.AppendChild(vgn)
 				{
 					vgparent := vgn
 					_ = vgparent
 					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 					vgparent.AppendChild(vgn)
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "strong", Attr: []vugu.VGAttribute(nil)}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "monitoring-start"}}}
 					vgparent.AppendChild(vgn)
-					vgn.SetInnerHTML(c.title(r))
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-					vgparent.AppendChild(vgn)
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}}}
-					vgparent.AppendChild(vgn)
-					vgn.AddAttrInterface("for", r.ID+"-name")
 					{
 						vgparent := vgn
 						_ = vgparent
 						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
 						vgparent.AppendChild(vgn)
-						vgn.SetInnerHTML(vugu.HTML("Name"))
+						vgn.SetInnerHTML(vugu.HTML("Day 0 is"))
 						{
-							vgcompKey := vugu.MakeCompKey(0x622677E2CCE20E71^vgin.CurrentPositionHash(), vgiterkey)
+							vgcompKey := vugu.MakeCompKey(0x2A724EDB9B897D50^vgin.CurrentPositionHash(), vgiterkey)
 							// ask BuildEnv for prior instance of this specific component
 							vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 							if vgcomp == nil {
@@ -2894,9 +2924,9 @@ func (c *Monitoring) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
 							vgcomp.Changed = c.Changed
 							vgcomp.F = c.F
-							vgcomp.Label = c.title(r) + ": name"
-							vgcomp.Path = r.Path + ".name"
-							vgcomp.Wide = true
+							vgcomp.Hint = "YYYY-MM-DD (or DD/MM/YYYY); needed only when readings give dates instead of days"
+							vgcomp.Label = "Calendar date of day 0, the start of construction"
+							vgcomp.Path = "monitoring.start"
 							vgout.Components = append(vgout.Components, vgcomp)
 							vgn = &vugu.VGNode{Component: vgcomp}
 							vgparent.AppendChild(vgn)
@@ -2904,421 +2934,496 @@ func (c *Monitoring) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 					}
 					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 					vgparent.AppendChild(vgn)
-					if r.Kind == "piezometers" {
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}}}
-						vgparent.AppendChild(vgn)
-						vgn.AddAttrInterface("for", r.ID+"-depth")
-						{
-							vgparent := vgn
-							_ = vgparent
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
-							vgparent.AppendChild(vgn)
-							vgn.SetInnerHTML(vugu.HTML("Depth"))
-							{
-								vgcompKey := vugu.MakeCompKey(0x60DE20BAD5C5EDA3^vgin.CurrentPositionHash(), vgiterkey)
-								// ask BuildEnv for prior instance of this specific component
-								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-								if vgcomp == nil {
-									// create new one if needed
-									vgcomp = new(Field)
-									vgin.BuildEnv.WireComponent(vgcomp)
-								}
-								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-								vgcomp.Changed = c.Changed
-								vgcomp.F = c.F
-								vgcomp.Label = c.title(r) + ": depth below the top of the column"
-								vgcomp.Path = r.Path + ".depth"
-								vgcomp.Unit = "m"
-								vgout.Components = append(vgout.Components, vgcomp)
-								vgn = &vugu.VGNode{Component: vgcomp}
-								vgparent.AppendChild(vgn)
-							}
-						}
-					}
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-					vgparent.AppendChild(vgn)
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note pl-recspan"}}}
-					vgparent.AppendChild(vgn)
-					vgn.AddAttrInterface("id", r.ID+"-span")
-					vgn.SetInnerHTML(c.span(r))
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-					vgparent.AppendChild(vgn)
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-recbtns pl-noprint"}}}
+				}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+				if len(c.recs()) == 0 {
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
 					vgparent.AppendChild(vgn)
 					{
 						vgparent := vgn
 						_ = vgparent
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}}}
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "No records yet: add a settlement plate or a piezometer, then type or paste its readings."}
 						vgparent.AppendChild(vgn)
-						vgn.AddAttrInterface("aria-expanded", fmt.Sprint(c.isOpen(r)))
-						vgn.AddAttrInterface("id", r.ID+"-toggle")
-						vgn.SetInnerHTML(c.toggleLabel(r))
-						vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
-							EventType: "click",
-							Func:      func(event vugu.DOMEvent) { c.toggle(r) },
-							// TODO: implement capture, etc. mostly need to decide syntax
-						})
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}}}
-						vgparent.AppendChild(vgn)
-						vgn.AddAttrInterface("id", r.ID+"-remove")
-						vgn.AddAttrInterface("title", "Remove "+c.title(r)+" and its readings")
-						vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
-							EventType: "click",
-							Func:      func(event vugu.DOMEvent) { c.remove(r) },
-							// TODO: implement capture, etc. mostly need to decide syntax
-						})
-						{
-							vgparent := vgn
-							_ = vgparent
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Remove"}
-							vgparent.AppendChild(vgn)
-						}
 					}
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-					vgparent.AppendChild(vgn)
 				}
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
-				if !c.isOpen(r) && len(c.problems(r)) > 0 {
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-recproblems"}}}
+				for vgiterkeyt, r := range c.recs() {
+					var vgiterkey interface{} = vgiterkeyt
+					_ = vgiterkey
+					r := r
+					_ = r
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-record"}}}
 					vgparent.AppendChild(vgn)
-					vgn.SetInnerHTML(fmt.Sprintf("%d inputs of this record need attention.", len(c.problems(r))))
-				}
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-				vgparent.AppendChild(vgn)
-				if c.isOpen(r) {
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-recbody pl-noprint"}}}
-					vgparent.AppendChild(vgn)
+					vgn.AddAttrInterface("id", r.ID)
 					{
 						vgparent := vgn
 						_ = vgparent
 						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 						vgparent.AppendChild(vgn)
-						if r.Count > 0 {
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-grid pl-readings"}}}
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-rechead"}}}
+						vgparent.AppendChild(vgn)
+						{
+							vgparent := vgn
+							_ = vgparent
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 							vgparent.AppendChild(vgn)
-							vgn.AddAttrInterface("id", r.ID+"-readings")
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "strong", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							vgn.SetInnerHTML(c.title(r))
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}}}
+							vgparent.AppendChild(vgn)
+							vgn.AddAttrInterface("for", r.ID+"-name")
+							{
+								vgparent := vgn
+								_ = vgparent
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+								vgparent.AppendChild(vgn)
+								vgn.SetInnerHTML(vugu.HTML("Name"))
+								{
+									vgcompKey := vugu.MakeCompKey(0x622677E2CCE20E71^vgin.CurrentPositionHash(), vgiterkey)
+									// ask BuildEnv for prior instance of this specific component
+									vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+									if vgcomp == nil {
+										// create new one if needed
+										vgcomp = new(Field)
+										vgin.BuildEnv.WireComponent(vgcomp)
+									}
+									vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+									vgcomp.Changed = c.Changed
+									vgcomp.F = c.F
+									vgcomp.Label = c.title(r) + ": name"
+									vgcomp.Path = r.Path + ".name"
+									vgcomp.Wide = true
+									vgout.Components = append(vgout.Components, vgcomp)
+									vgn = &vugu.VGNode{Component: vgcomp}
+									vgparent.AppendChild(vgn)
+								}
+							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							if r.Kind == "piezometers" {
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}}}
+								vgparent.AppendChild(vgn)
+								vgn.AddAttrInterface("for", r.ID+"-depth")
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+									vgparent.AppendChild(vgn)
+									vgn.SetInnerHTML(vugu.HTML("Depth"))
+									{
+										vgcompKey := vugu.MakeCompKey(0x60DE20BAD5C5EDA3^vgin.CurrentPositionHash(), vgiterkey)
+										// ask BuildEnv for prior instance of this specific component
+										vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+										if vgcomp == nil {
+											// create new one if needed
+											vgcomp = new(Field)
+											vgin.BuildEnv.WireComponent(vgcomp)
+										}
+										vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+										vgcomp.Changed = c.Changed
+										vgcomp.F = c.F
+										vgcomp.Label = c.title(r) + ": depth below the top of the column"
+										vgcomp.Path = r.Path + ".depth"
+										vgcomp.Unit = "m"
+										vgout.Components = append(vgout.Components, vgcomp)
+										vgn = &vugu.VGNode{Component: vgcomp}
+										vgparent.AppendChild(vgn)
+									}
+								}
+							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note pl-recspan"}}}
+							vgparent.AppendChild(vgn)
+							vgn.AddAttrInterface("id", r.ID+"-span")
+							vgn.SetInnerHTML(c.span(r))
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-recbtns pl-noprint"}}}
+							vgparent.AppendChild(vgn)
+							{
+								vgparent := vgn
+								_ = vgparent
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}}}
+								vgparent.AppendChild(vgn)
+								vgn.AddAttrInterface("aria-expanded", fmt.Sprint(c.isOpen(r)))
+								vgn.AddAttrInterface("id", r.ID+"-toggle")
+								vgn.SetInnerHTML(c.toggleLabel(r))
+								vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+									EventType: "click",
+									Func:      func(event vugu.DOMEvent) { c.toggle(r) },
+									// TODO: implement capture, etc. mostly need to decide syntax
+								})
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}}}
+								vgparent.AppendChild(vgn)
+								vgn.AddAttrInterface("id", r.ID+"-remove")
+								vgn.AddAttrInterface("title", "Remove "+c.title(r)+" and its readings")
+								vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+									EventType: "click",
+									Func:      func(event vugu.DOMEvent) { c.remove(r) },
+									// TODO: implement capture, etc. mostly need to decide syntax
+								})
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Remove"}
+									vgparent.AppendChild(vgn)
+								}
+							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+						}
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+						vgparent.AppendChild(vgn)
+						if !c.isOpen(r) && len(c.problems(r)) > 0 {
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-recproblems"}}}
+							vgparent.AppendChild(vgn)
+							vgn.SetInnerHTML(fmt.Sprintf("%d inputs of this record need attention.", len(c.problems(r))))
+						}
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+						vgparent.AppendChild(vgn)
+						if c.isOpen(r) {
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-recbody pl-noprint"}}}
+							vgparent.AppendChild(vgn)
 							{
 								vgparent := vgn
 								_ = vgparent
 								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 								vgparent.AppendChild(vgn)
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
+								if r.Count > 0 {
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-grid pl-readings"}}}
+									vgparent.AppendChild(vgn)
+									vgn.AddAttrInterface("id", r.ID+"-readings")
+									{
+										vgparent := vgn
+										_ = vgparent
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+										vgparent.AppendChild(vgn)
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
+										vgparent.AppendChild(vgn)
+										{
+											vgparent := vgn
+											_ = vgparent
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											{
+												vgparent := vgn
+												_ = vgparent
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-num"}}}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(vugu.HTML("#"))
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(vugu.HTML("Time\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Eday or date\x3C/span\x3E"))
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+												vgparent.AppendChild(vgn)
+												{
+													vgparent := vgn
+													_ = vgparent
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+													vgparent.AppendChild(vgn)
+													vgn.SetInnerHTML(strings.ToUpper(r.Noun[:1]) + r.Noun[1:])
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "br", Attr: []vugu.VGAttribute(nil)}
+													vgparent.AppendChild(vgn)
+													vgn.SetInnerHTML(vugu.HTML(""))
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-u"}}}
+													vgparent.AppendChild(vgn)
+													vgn.SetInnerHTML(r.Unit)
+												}
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(vugu.HTML("\x3Cspan class=\"pl-vh\"\x3ERemove\x3C/span\x3E"))
+											}
+										}
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+										vgparent.AppendChild(vgn)
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
+										vgparent.AppendChild(vgn)
+										{
+											vgparent := vgn
+											_ = vgparent
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+											vgparent.AppendChild(vgn)
+											for vgiterkeyt, j := range c.rows(r) {
+												var vgiterkey interface{} = vgiterkeyt
+												_ = vgiterkey
+												j := j
+												_ = j
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
+												vgparent.AppendChild(vgn)
+												{
+													vgparent := vgn
+													_ = vgparent
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+													vgparent.AppendChild(vgn)
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-num"}}}
+													vgparent.AppendChild(vgn)
+													vgn.SetInnerHTML(j + 1)
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+													vgparent.AppendChild(vgn)
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+													vgparent.AppendChild(vgn)
+													{
+														vgparent := vgn
+														_ = vgparent
+														{
+															vgcompKey := vugu.MakeCompKey(0x3ECE77F0556E32A9^vgin.CurrentPositionHash(), vgiterkey)
+															// ask BuildEnv for prior instance of this specific component
+															vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+															if vgcomp == nil {
+																// create new one if needed
+																vgcomp = new(Field)
+																vgin.BuildEnv.WireComponent(vgcomp)
+															}
+															vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+															vgcomp.Bare = true
+															vgcomp.Changed = c.Changed
+															vgcomp.F = c.F
+															vgcomp.Label = fmt.Sprintf("%s, reading %d: days after day 0, or a date", c.title(r), j+1)
+															vgcomp.Path = c.readingPath(r, j, "t")
+															vgout.Components = append(vgout.Components, vgcomp)
+															vgn = &vugu.VGNode{Component: vgcomp}
+															vgparent.AppendChild(vgn)
+														}
+													}
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+													vgparent.AppendChild(vgn)
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+													vgparent.AppendChild(vgn)
+													{
+														vgparent := vgn
+														_ = vgparent
+														{
+															vgcompKey := vugu.MakeCompKey(0x2D97E846B71C4191^vgin.CurrentPositionHash(), vgiterkey)
+															// ask BuildEnv for prior instance of this specific component
+															vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+															if vgcomp == nil {
+																// create new one if needed
+																vgcomp = new(Field)
+																vgin.BuildEnv.WireComponent(vgcomp)
+															}
+															vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+															vgcomp.Bare = true
+															vgcomp.Changed = c.Changed
+															vgcomp.F = c.F
+															vgcomp.Label = fmt.Sprintf("%s, reading %d: %s", c.title(r), j+1, r.Noun)
+															vgcomp.Path = c.readingPath(r, j, "value")
+															vgcomp.Unit = r.Unit
+															vgout.Components = append(vgout.Components, vgcomp)
+															vgn = &vugu.VGNode{Component: vgcomp}
+															vgparent.AppendChild(vgn)
+														}
+													}
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+													vgparent.AppendChild(vgn)
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+													vgparent.AppendChild(vgn)
+													{
+														vgparent := vgn
+														_ = vgparent
+														vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-icon"}}}
+														vgparent.AppendChild(vgn)
+														vgn.AddAttrInterface("id", fmt.Sprintf("%s-readings-%d-remove", r.ID, j))
+														vgn.AddAttrInterface("title", fmt.Sprintf("Remove reading %d", j+1))
+														vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+															EventType: "click",
+															Func:      func(event vugu.DOMEvent) { c.removeReading(r, j) },
+															// TODO: implement capture, etc. mostly need to decide syntax
+														})
+														{
+															vgparent := vgn
+															_ = vgparent
+															vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "×"}
+															vgparent.AppendChild(vgn)
+														}
+													}
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+													vgparent.AppendChild(vgn)
+												}
+											}
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+											vgparent.AppendChild(vgn)
+										}
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+										vgparent.AppendChild(vgn)
+									}
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 								vgparent.AppendChild(vgn)
-								{
-									vgparent := vgn
-									_ = vgparent
-									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
+								if c.hidden(r) > 0 {
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
 									vgparent.AppendChild(vgn)
 									{
 										vgparent := vgn
 										_ = vgparent
-										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-num"}}}
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
 										vgparent.AppendChild(vgn)
-										vgn.SetInnerHTML(vugu.HTML("#"))
-										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+										vgn.SetInnerHTML(fmt.Sprintf("%d more readings are not shown. ", c.hidden(r)))
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}}}
 										vgparent.AppendChild(vgn)
-										vgn.SetInnerHTML(vugu.HTML("Time\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Eday or date\x3C/span\x3E"))
-										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
-										vgparent.AppendChild(vgn)
+										vgn.AddAttrInterface("id", r.ID+"-all")
+										vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+											EventType: "click",
+											Func:      func(event vugu.DOMEvent) { c.showAll(r) },
+											// TODO: implement capture, etc. mostly need to decide syntax
+										})
 										{
 											vgparent := vgn
 											_ = vgparent
-											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Show all"}
 											vgparent.AppendChild(vgn)
-											vgn.SetInnerHTML(strings.ToUpper(r.Noun[:1]) + r.Noun[1:])
-											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "br", Attr: []vugu.VGAttribute(nil)}
-											vgparent.AppendChild(vgn)
-											vgn.SetInnerHTML(vugu.HTML(""))
-											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-u"}}}
-											vgparent.AppendChild(vgn)
-											vgn.SetInnerHTML(r.Unit)
 										}
-										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
-										vgparent.AppendChild(vgn)
-										vgn.SetInnerHTML(vugu.HTML("\x3Cspan class=\"pl-vh\"\x3ERemove\x3C/span\x3E"))
 									}
 								}
 								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 								vgparent.AppendChild(vgn)
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
-								vgparent.AppendChild(vgn)
-								{
-									vgparent := vgn
-									_ = vgparent
-									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								if len(c.hiddenProblems(r)) > 0 {
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "ul", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-problems"}}}
 									vgparent.AppendChild(vgn)
-									for vgiterkeyt, j := range c.rows(r) {
-										var vgiterkey interface{} = vgiterkeyt
-										_ = vgiterkey
-										j := j
-										_ = j
-										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
-										vgparent.AppendChild(vgn)
-										{
-											vgparent := vgn
-											_ = vgparent
-											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+									{
+										vgparent := vgn
+										_ = vgparent
+										for vgiterkeyt, m := range c.hiddenProblems(r) {
+											var vgiterkey interface{} = vgiterkeyt
+											_ = vgiterkey
+											m := m
+											_ = m
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "li", Attr: []vugu.VGAttribute(nil)}
 											vgparent.AppendChild(vgn)
-											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-num"}}}
-											vgparent.AppendChild(vgn)
-											vgn.SetInnerHTML(j + 1)
-											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-											vgparent.AppendChild(vgn)
-											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-											vgparent.AppendChild(vgn)
-											{
-												vgparent := vgn
-												_ = vgparent
-												{
-													vgcompKey := vugu.MakeCompKey(0x3ECE77F0556E32A9^vgin.CurrentPositionHash(), vgiterkey)
-													// ask BuildEnv for prior instance of this specific component
-													vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-													if vgcomp == nil {
-														// create new one if needed
-														vgcomp = new(Field)
-														vgin.BuildEnv.WireComponent(vgcomp)
-													}
-													vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-													vgcomp.Bare = true
-													vgcomp.Changed = c.Changed
-													vgcomp.F = c.F
-													vgcomp.Label = fmt.Sprintf("%s, reading %d: days after day 0, or a date", c.title(r), j+1)
-													vgcomp.Path = c.readingPath(r, j, "t")
-													vgout.Components = append(vgout.Components, vgcomp)
-													vgn = &vugu.VGNode{Component: vgcomp}
-													vgparent.AppendChild(vgn)
-												}
-											}
-											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-											vgparent.AppendChild(vgn)
-											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-											vgparent.AppendChild(vgn)
-											{
-												vgparent := vgn
-												_ = vgparent
-												{
-													vgcompKey := vugu.MakeCompKey(0x2D97E846B71C4191^vgin.CurrentPositionHash(), vgiterkey)
-													// ask BuildEnv for prior instance of this specific component
-													vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-													if vgcomp == nil {
-														// create new one if needed
-														vgcomp = new(Field)
-														vgin.BuildEnv.WireComponent(vgcomp)
-													}
-													vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-													vgcomp.Bare = true
-													vgcomp.Changed = c.Changed
-													vgcomp.F = c.F
-													vgcomp.Label = fmt.Sprintf("%s, reading %d: %s", c.title(r), j+1, r.Noun)
-													vgcomp.Path = c.readingPath(r, j, "value")
-													vgcomp.Unit = r.Unit
-													vgout.Components = append(vgout.Components, vgcomp)
-													vgn = &vugu.VGNode{Component: vgcomp}
-													vgparent.AppendChild(vgn)
-												}
-											}
-											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-											vgparent.AppendChild(vgn)
-											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-											vgparent.AppendChild(vgn)
-											{
-												vgparent := vgn
-												_ = vgparent
-												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-icon"}}}
-												vgparent.AppendChild(vgn)
-												vgn.AddAttrInterface("id", fmt.Sprintf("%s-readings-%d-remove", r.ID, j))
-												vgn.AddAttrInterface("title", fmt.Sprintf("Remove reading %d", j+1))
-												vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
-													EventType: "click",
-													Func:      func(event vugu.DOMEvent) { c.removeReading(r, j) },
-													// TODO: implement capture, etc. mostly need to decide syntax
-												})
-												{
-													vgparent := vgn
-													_ = vgparent
-													vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "×"}
-													vgparent.AppendChild(vgn)
-												}
-											}
-											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(m)
 										}
 									}
-									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-									vgparent.AppendChild(vgn)
 								}
 								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 								vgparent.AppendChild(vgn)
-							}
-						}
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-						vgparent.AppendChild(vgn)
-						if c.hidden(r) > 0 {
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
-							vgparent.AppendChild(vgn)
-							{
-								vgparent := vgn
-								_ = vgparent
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
-								vgparent.AppendChild(vgn)
-								vgn.SetInnerHTML(fmt.Sprintf("%d more readings are not shown. ", c.hidden(r)))
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}}}
-								vgparent.AppendChild(vgn)
-								vgn.AddAttrInterface("id", r.ID+"-all")
-								vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
-									EventType: "click",
-									Func:      func(event vugu.DOMEvent) { c.showAll(r) },
-									// TODO: implement capture, etc. mostly need to decide syntax
-								})
-								{
-									vgparent := vgn
-									_ = vgparent
-									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Show all"}
-									vgparent.AppendChild(vgn)
-								}
-							}
-						}
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-						vgparent.AppendChild(vgn)
-						if len(c.hiddenProblems(r)) > 0 {
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "ul", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-problems"}}}
-							vgparent.AppendChild(vgn)
-							{
-								vgparent := vgn
-								_ = vgparent
-								for vgiterkeyt, m := range c.hiddenProblems(r) {
-									var vgiterkey interface{} = vgiterkeyt
-									_ = vgiterkey
-									m := m
-									_ = m
-									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "li", Attr: []vugu.VGAttribute(nil)}
-									vgparent.AppendChild(vgn)
-									vgn.SetInnerHTML(m)
-								}
-							}
-						}
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-						vgparent.AppendChild(vgn)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-row"}}}
-						vgparent.AppendChild(vgn)
-						{
-							vgparent := vgn
-							_ = vgparent
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}}}
-							vgparent.AppendChild(vgn)
-							vgn.AddAttrInterface("id", r.ID+"-add")
-							vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
-								EventType: "click",
-								Func:      func(event vugu.DOMEvent) { c.addReading(r) },
-								// TODO: implement capture, etc. mostly need to decide syntax
-							})
-							{
-								vgparent := vgn
-								_ = vgparent
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Add reading"}
-								vgparent.AppendChild(vgn)
-							}
-						}
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-						vgparent.AppendChild(vgn)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-paste"}}}
-						vgparent.AppendChild(vgn)
-						{
-							vgparent := vgn
-							_ = vgparent
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-							vgparent.AppendChild(vgn)
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-block"}}}
-							vgparent.AppendChild(vgn)
-							vgn.AddAttrInterface("for", r.ID+"-paste")
-							{
-								vgparent := vgn
-								_ = vgparent
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-row"}}}
 								vgparent.AppendChild(vgn)
 								{
 									vgparent := vgn
 									_ = vgparent
-									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Paste readings "}
-									vgparent.AppendChild(vgn)
-									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-sub"}}}
-									vgparent.AppendChild(vgn)
-									vgn.SetInnerHTML(c.pasteHint(r))
-								}
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "textarea", Attr: []vugu.VGAttribute{{Namespace: "", Key: "rows", Val: "3"}, vugu.VGAttribute{Namespace: "", Key: "spellcheck", Val: "false"}, vugu.VGAttribute{Namespace: "", Key: "autocomplete", Val: "off"}}}
-								vgparent.AppendChild(vgn)
-								vgn.AddAttrInterface("aria-invalid", fmt.Sprint(len(c.pasteErrors(r)) > 0))
-								vgn.AddAttrInterface("id", r.ID+"-paste")
-								vgn.AddAttrInterface("placeholder", "day\t"+r.Unit+"\n0\t0\n14\t12,5\n2024-05-02\t18")
-								{
-									b, err := vjson.Marshal(c.pasteText(r))
-									if err != nil {
-										panic(err)
-									}
-									vgn.Prop = append(vgn.Prop, vugu.VGProperty{Key: "value", JSONVal: vjson.RawMessage(b)})
-								}
-								vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
-									EventType: "input",
-									Func:      func(event vugu.DOMEvent) { c.editPaste(r, event) },
-									// TODO: implement capture, etc. mostly need to decide syntax
-								})
-							}
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-							vgparent.AppendChild(vgn)
-							if len(c.pasteErrors(r)) > 0 {
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "ul", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-problems"}, vugu.VGAttribute{Namespace: "", Key: "aria-live", Val: "polite"}}}
-								vgparent.AppendChild(vgn)
-								vgn.AddAttrInterface("id", r.ID+"-paste-err")
-								{
-									vgparent := vgn
-									_ = vgparent
-									for vgiterkeyt, m := range c.pasteErrors(r) {
-										var vgiterkey interface{} = vgiterkeyt
-										_ = vgiterkey
-										m := m
-										_ = m
-										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "li", Attr: []vugu.VGAttribute(nil)}
-										vgparent.AppendChild(vgn)
-										vgn.SetInnerHTML(m)
-									}
-								}
-							}
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-							vgparent.AppendChild(vgn)
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-row"}}}
-							vgparent.AppendChild(vgn)
-							{
-								vgparent := vgn
-								_ = vgparent
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}}}
-								vgparent.AppendChild(vgn)
-								vgn.AddAttrInterface("disabled", !c.canUse(r))
-								vgn.AddAttrInterface("id", r.ID+"-paste-use")
-								vgn.SetInnerHTML(c.useLabel(r))
-								vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
-									EventType: "click",
-									Func:      func(event vugu.DOMEvent) { c.usePaste(r) },
-									// TODO: implement capture, etc. mostly need to decide syntax
-								})
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
-								vgparent.AppendChild(vgn)
-								vgn.AddAttrInterface("id", r.ID+"-paste-note")
-								vgn.SetInnerHTML(c.pasteSummary(r))
-								if c.canUndo(r) {
 									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}}}
 									vgparent.AppendChild(vgn)
-									vgn.AddAttrInterface("id", r.ID+"-paste-undo")
-									vgn.SetInnerHTML(c.undoLabel(r))
+									vgn.AddAttrInterface("id", r.ID+"-add")
 									vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
 										EventType: "click",
-										Func:      func(event vugu.DOMEvent) { c.undoPaste(r) },
+										Func:      func(event vugu.DOMEvent) { c.addReading(r) },
 										// TODO: implement capture, etc. mostly need to decide syntax
 									})
+									{
+										vgparent := vgn
+										_ = vgparent
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Add reading"}
+										vgparent.AppendChild(vgn)
+									}
 								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-paste"}}}
+								vgparent.AppendChild(vgn)
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+									vgparent.AppendChild(vgn)
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-block"}}}
+									vgparent.AppendChild(vgn)
+									vgn.AddAttrInterface("for", r.ID+"-paste")
+									{
+										vgparent := vgn
+										_ = vgparent
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+										vgparent.AppendChild(vgn)
+										{
+											vgparent := vgn
+											_ = vgparent
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Paste readings "}
+											vgparent.AppendChild(vgn)
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-sub"}}}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(c.pasteHint(r))
+										}
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "textarea", Attr: []vugu.VGAttribute{{Namespace: "", Key: "rows", Val: "3"}, vugu.VGAttribute{Namespace: "", Key: "spellcheck", Val: "false"}, vugu.VGAttribute{Namespace: "", Key: "autocomplete", Val: "off"}}}
+										vgparent.AppendChild(vgn)
+										vgn.AddAttrInterface("aria-invalid", fmt.Sprint(len(c.pasteErrors(r)) > 0))
+										vgn.AddAttrInterface("id", r.ID+"-paste")
+										vgn.AddAttrInterface("placeholder", "day\t"+r.Unit+"\n0\t0\n14\t12,5\n2024-05-02\t18")
+										{
+											b, err := vjson.Marshal(c.pasteText(r))
+											if err != nil {
+												panic(err)
+											}
+											vgn.Prop = append(vgn.Prop, vugu.VGProperty{Key: "value", JSONVal: vjson.RawMessage(b)})
+										}
+										vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+											EventType: "input",
+											Func:      func(event vugu.DOMEvent) { c.editPaste(r, event) },
+											// TODO: implement capture, etc. mostly need to decide syntax
+										})
+									}
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+									vgparent.AppendChild(vgn)
+									if len(c.pasteErrors(r)) > 0 {
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "ul", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-problems"}, vugu.VGAttribute{Namespace: "", Key: "aria-live", Val: "polite"}}}
+										vgparent.AppendChild(vgn)
+										vgn.AddAttrInterface("id", r.ID+"-paste-err")
+										{
+											vgparent := vgn
+											_ = vgparent
+											for vgiterkeyt, m := range c.pasteErrors(r) {
+												var vgiterkey interface{} = vgiterkeyt
+												_ = vgiterkey
+												m := m
+												_ = m
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "li", Attr: []vugu.VGAttribute(nil)}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(m)
+											}
+										}
+									}
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+									vgparent.AppendChild(vgn)
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-row"}}}
+									vgparent.AppendChild(vgn)
+									{
+										vgparent := vgn
+										_ = vgparent
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}}}
+										vgparent.AppendChild(vgn)
+										vgn.AddAttrInterface("disabled", !c.canUse(r))
+										vgn.AddAttrInterface("id", r.ID+"-paste-use")
+										vgn.SetInnerHTML(c.useLabel(r))
+										vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+											EventType: "click",
+											Func:      func(event vugu.DOMEvent) { c.usePaste(r) },
+											// TODO: implement capture, etc. mostly need to decide syntax
+										})
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
+										vgparent.AppendChild(vgn)
+										vgn.AddAttrInterface("id", r.ID+"-paste-note")
+										vgn.SetInnerHTML(c.pasteSummary(r))
+										if c.canUndo(r) {
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}}}
+											vgparent.AppendChild(vgn)
+											vgn.AddAttrInterface("id", r.ID+"-paste-undo")
+											vgn.SetInnerHTML(c.undoLabel(r))
+											vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+												EventType: "click",
+												Func:      func(event vugu.DOMEvent) { c.undoPaste(r) },
+												// TODO: implement capture, etc. mostly need to decide syntax
+											})
+										}
+									}
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+									vgparent.AppendChild(vgn)
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
 							}
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-							vgparent.AppendChild(vgn)
 						}
 						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 						vgparent.AppendChild(vgn)
@@ -4128,7 +4233,7 @@ func (c *Root) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 				}
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "print-report"}, vugu.VGAttribute{Namespace: "", Key: "title", Val: "Print the inputs, results, assumptions and cautions"}}}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "print-report"}, vugu.VGAttribute{Namespace: "", Key: "title", Val: "Print the inputs, results, assumptions and cautions, with every folded section opened"}}}
 				vgparent.AppendChild(vgn)
 				vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
 					EventType: "click",
@@ -4464,6 +4569,9 @@ func (c *Root) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 						vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
 						vgcomp.Changed = c.edited
 						vgcomp.F = c.form
+						vgcomp.Held = c.recordProblems()
+						vgcomp.Open = c.recordsOpen()
+						vgcomp.SetOpen = c.setRecordsOpen
 						vgout.Components = append(vgout.Components, vgcomp)
 						vgn = &vugu.VGNode{Component: vgcomp}
 						vgparent.AppendChild(vgn)
@@ -4533,7 +4641,10 @@ func (c *Root) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
 							vgcomp.Download = c.download
 							vgcomp.P = c.resultFor
+							vgcomp.PlotsOpen = c.asaokaOpen()
+							vgcomp.Printing = c.printing
 							vgcomp.R = c.result
+							vgcomp.TogglePlots = c.toggleAsaoka
 							vgout.Components = append(vgout.Components, vgcomp)
 							vgn = &vugu.VGNode{Component: vgcomp}
 							vgparent.AppendChild(vgn)
@@ -4576,7 +4687,9 @@ func (c *Root) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 						}
 						vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
 						vgcomp.Export = c.export
+						vgcomp.Open = c.tablesOpen()
 						vgcomp.R = c.result
+						vgcomp.Toggle = c.toggleTables
 						vgout.Components = append(vgout.Components, vgcomp)
 						vgn = &vugu.VGNode{Component: vgcomp}
 						vgparent.AppendChild(vgn)
@@ -4812,7 +4925,7 @@ func (c *Tables) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 				{
 					vgparent := vgn
 					_ = vgparent
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Steady seepage by layer "}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Results by layer "}
 					vgparent.AppendChild(vgn)
 					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "export-layers-csv"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-mini pl-noprint"}, vugu.VGAttribute{Namespace: "", Key: "title", Val: "Download the figures of every layer (seepage and settlement) as CSV"}}}
 					vgparent.AppendChild(vgn)
@@ -4830,70 +4943,25 @@ func (c *Tables) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 				}
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "steady-table"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid pl-out"}}}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-foldline"}}}
 				vgparent.AppendChild(vgn)
 				{
 					vgparent := vgn
 					_ = vgparent
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "tables-hint"}}}
 					vgparent.AppendChild(vgn)
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
+					vgn.SetInnerHTML(c.hint())
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: " "}
 					vgparent.AppendChild(vgn)
-					vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth\x3ELayer\x3C/th\x3E\x3Cth\x3ETop\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EBase\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EFlow\x3C/th\x3E\x3Cth\x3EGradient i\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECritical ic\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eic/i\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Ecv\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em²/day\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "tables-toggle"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-fold pl-noprint"}, vugu.VGAttribute{Namespace: "", Key: "aria-controls", Val: "tables-body"}}}
 					vgparent.AppendChild(vgn)
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
-					vgparent.AppendChild(vgn)
-					{
-						vgparent := vgn
-						_ = vgparent
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-						vgparent.AppendChild(vgn)
-						for vgiterkeyt, l := range c.R.Steady.Layers {
-							var vgiterkey interface{} = vgiterkeyt
-							_ = vgiterkey
-							l := l
-							_ = l
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
-							vgparent.AppendChild(vgn)
-							{
-								vgparent := vgn
-								_ = vgparent
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-								vgparent.AppendChild(vgn)
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-name"}}}
-								vgparent.AppendChild(vgn)
-								vgn.SetInnerHTML(l.Name)
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-								vgparent.AppendChild(vgn)
-								vgn.SetInnerHTML(sig(l.Top, 4))
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-								vgparent.AppendChild(vgn)
-								vgn.SetInnerHTML(sig(l.Bottom, 4))
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-								vgparent.AppendChild(vgn)
-								vgn.SetInnerHTML(flowWord(l))
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-								vgparent.AppendChild(vgn)
-								vgn.SetInnerHTML(sig(l.Gradient, 3))
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-								vgparent.AppendChild(vgn)
-								vgn.SetInnerHTML(sig(l.CriticalGradient, 3))
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-								vgparent.AppendChild(vgn)
-								vgn.SetInnerHTML(optSig(l.HeaveFactor, 3))
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-								vgparent.AppendChild(vgn)
-								vgn.SetInnerHTML(optSig(l.Cv, 3))
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-								vgparent.AppendChild(vgn)
-							}
-						}
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-						vgparent.AppendChild(vgn)
-					}
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-					vgparent.AppendChild(vgn)
+					vgn.AddAttrInterface("aria-expanded", fmt.Sprint(c.Open))
+					vgn.SetInnerHTML(c.toggleLabel())
+					vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+						EventType: "click",
+						Func:      func(event vugu.DOMEvent) { c.Toggle() },
+						// TODO: implement capture, etc. mostly need to decide syntax
+					})
 				}
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
@@ -4912,8 +4980,20 @@ func (c *Tables) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 				}
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
-				if len(c.R.Steady.Uplift) > 0 {
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute(nil)}
+				if !c.Open {
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-foldnote"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "tables-foldnote"}}}
+					vgparent.AppendChild(vgn)
+					{
+						vgparent := vgn
+						_ = vgparent
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Result tables were folded when printed: use Print report for the full report."}
+						vgparent.AppendChild(vgn)
+					}
+				}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+				if c.Open {
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "tables-body"}}}
 					vgparent.AppendChild(vgn)
 					{
 						vgparent := vgn
@@ -4922,10 +5002,10 @@ func (c *Tables) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 						vgparent.AppendChild(vgn)
 						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "h3", Attr: []vugu.VGAttribute(nil)}
 						vgparent.AppendChild(vgn)
-						vgn.SetInnerHTML(vugu.HTML("Uplift under low-permeability layers"))
+						vgn.SetInnerHTML(vugu.HTML("Steady seepage"))
 						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 						vgparent.AppendChild(vgn)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "uplift-table"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid pl-out"}}}
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "steady-table"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid pl-out"}}}
 						vgparent.AppendChild(vgn)
 						{
 							vgparent := vgn
@@ -4934,7 +5014,7 @@ func (c *Tables) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent.AppendChild(vgn)
 							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
 							vgparent.AppendChild(vgn)
-							vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth\x3EBase of layer\x3C/th\x3E\x3Cth\x3EDepth\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ETotal stress\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EWater pressure\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ERatio\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
+							vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth\x3ELayer\x3C/th\x3E\x3Cth\x3ETop\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EBase\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EFlow\x3C/th\x3E\x3Cth\x3EGradient i\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECritical ic\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eic/i\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Ecv\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em²/day\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
 							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 							vgparent.AppendChild(vgn)
 							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
@@ -4944,82 +5024,7 @@ func (c *Tables) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 								_ = vgparent
 								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 								vgparent.AppendChild(vgn)
-								for vgiterkeyt, u := range c.R.Steady.Uplift {
-									var vgiterkey interface{} = vgiterkeyt
-									_ = vgiterkey
-									u := u
-									_ = u
-									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
-									vgparent.AppendChild(vgn)
-									{
-										vgparent := vgn
-										_ = vgparent
-										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-										vgparent.AppendChild(vgn)
-										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-name"}}}
-										vgparent.AppendChild(vgn)
-										vgn.SetInnerHTML(c.layerName(u.Layer))
-										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-										vgparent.AppendChild(vgn)
-										vgn.SetInnerHTML(sig(u.Depth, 4))
-										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-										vgparent.AppendChild(vgn)
-										vgn.SetInnerHTML(sig(u.Total, 4))
-										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-										vgparent.AppendChild(vgn)
-										vgn.SetInnerHTML(sig(u.Pore, 4))
-										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-										vgparent.AppendChild(vgn)
-										vgn.SetInnerHTML(optSig(u.Factor, 3))
-										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-										vgparent.AppendChild(vgn)
-									}
-								}
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-								vgparent.AppendChild(vgn)
-							}
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-							vgparent.AppendChild(vgn)
-						}
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-						vgparent.AppendChild(vgn)
-					}
-				}
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-				vgparent.AppendChild(vgn)
-				if c.hasSettlement() {
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute(nil)}
-					vgparent.AppendChild(vgn)
-					{
-						vgparent := vgn
-						_ = vgparent
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-						vgparent.AppendChild(vgn)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "h2", Attr: []vugu.VGAttribute(nil)}
-						vgparent.AppendChild(vgn)
-						vgn.SetInnerHTML(vugu.HTML("Settlement by layer"))
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-						vgparent.AppendChild(vgn)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "settlement-table"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid pl-out"}}}
-						vgparent.AppendChild(vgn)
-						{
-							vgparent := vgn
-							_ = vgparent
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-							vgparent.AppendChild(vgn)
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
-							vgparent.AppendChild(vgn)
-							vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth\x3ELayer\x3C/th\x3E\x3Cth\x3Emv used\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E1/kPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Ecv\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em²/day\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EFrom mv\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Emm\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Ee–log σ′\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Emm\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ESecondary\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Emm\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-							vgparent.AppendChild(vgn)
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
-							vgparent.AppendChild(vgn)
-							{
-								vgparent := vgn
-								_ = vgparent
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-								vgparent.AppendChild(vgn)
-								for vgiterkeyt, l := range c.R.Summary.Layers {
+								for vgiterkeyt, l := range c.R.Steady.Layers {
 									var vgiterkey interface{} = vgiterkeyt
 									_ = vgiterkey
 									l := l
@@ -5036,19 +5041,25 @@ func (c *Tables) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 										vgn.SetInnerHTML(l.Name)
 										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
 										vgparent.AppendChild(vgn)
-										vgn.SetInnerHTML(sci(l.Mv, 3))
+										vgn.SetInnerHTML(sig(l.Top, 4))
 										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
 										vgparent.AppendChild(vgn)
-										vgn.SetInnerHTML(sig(l.Cv, 3))
+										vgn.SetInnerHTML(sig(l.Bottom, 4))
 										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
 										vgparent.AppendChild(vgn)
-										vgn.SetInnerHTML(sig(l.SettlementLinear*1000, 3))
+										vgn.SetInnerHTML(flowWord(l))
 										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
 										vgparent.AppendChild(vgn)
-										vgn.SetInnerHTML(optMM(l.SettlementElog))
+										vgn.SetInnerHTML(sig(l.Gradient, 3))
 										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
 										vgparent.AppendChild(vgn)
-										vgn.SetInnerHTML(optMM(l.Secondary))
+										vgn.SetInnerHTML(sig(l.CriticalGradient, 3))
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+										vgparent.AppendChild(vgn)
+										vgn.SetInnerHTML(optSig(l.HeaveFactor, 3))
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+										vgparent.AppendChild(vgn)
+										vgn.SetInnerHTML(optSig(l.Cv, 3))
 										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 										vgparent.AppendChild(vgn)
 									}
@@ -5061,20 +5072,173 @@ func (c *Tables) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 						}
 						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 						vgparent.AppendChild(vgn)
+						if len(c.R.Steady.Uplift) > 0 {
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							{
+								vgparent := vgn
+								_ = vgparent
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "h3", Attr: []vugu.VGAttribute(nil)}
+								vgparent.AppendChild(vgn)
+								vgn.SetInnerHTML(vugu.HTML("Uplift under low-permeability layers"))
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "uplift-table"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid pl-out"}}}
+								vgparent.AppendChild(vgn)
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+									vgparent.AppendChild(vgn)
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
+									vgparent.AppendChild(vgn)
+									vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth\x3EBase of layer\x3C/th\x3E\x3Cth\x3EDepth\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ETotal stress\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EWater pressure\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ERatio\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+									vgparent.AppendChild(vgn)
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
+									vgparent.AppendChild(vgn)
+									{
+										vgparent := vgn
+										_ = vgparent
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+										vgparent.AppendChild(vgn)
+										for vgiterkeyt, u := range c.R.Steady.Uplift {
+											var vgiterkey interface{} = vgiterkeyt
+											_ = vgiterkey
+											u := u
+											_ = u
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											{
+												vgparent := vgn
+												_ = vgparent
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+												vgparent.AppendChild(vgn)
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-name"}}}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(c.layerName(u.Layer))
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(sig(u.Depth, 4))
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(sig(u.Total, 4))
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(sig(u.Pore, 4))
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(optSig(u.Factor, 3))
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+												vgparent.AppendChild(vgn)
+											}
+										}
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+										vgparent.AppendChild(vgn)
+									}
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+									vgparent.AppendChild(vgn)
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+							}
+						}
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+						vgparent.AppendChild(vgn)
+						if c.hasSettlement() {
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							{
+								vgparent := vgn
+								_ = vgparent
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "h3", Attr: []vugu.VGAttribute(nil)}
+								vgparent.AppendChild(vgn)
+								vgn.SetInnerHTML(vugu.HTML("Settlement by layer"))
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "settlement-table"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid pl-out"}}}
+								vgparent.AppendChild(vgn)
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+									vgparent.AppendChild(vgn)
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
+									vgparent.AppendChild(vgn)
+									vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth\x3ELayer\x3C/th\x3E\x3Cth\x3Emv used\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E1/kPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Ecv\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em²/day\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EFrom mv\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Emm\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Ee–log σ′\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Emm\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ESecondary\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Emm\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+									vgparent.AppendChild(vgn)
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
+									vgparent.AppendChild(vgn)
+									{
+										vgparent := vgn
+										_ = vgparent
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+										vgparent.AppendChild(vgn)
+										for vgiterkeyt, l := range c.R.Summary.Layers {
+											var vgiterkey interface{} = vgiterkeyt
+											_ = vgiterkey
+											l := l
+											_ = l
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											{
+												vgparent := vgn
+												_ = vgparent
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+												vgparent.AppendChild(vgn)
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-name"}}}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(l.Name)
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(sci(l.Mv, 3))
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(sig(l.Cv, 3))
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(sig(l.SettlementLinear*1000, 3))
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(optMM(l.SettlementElog))
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(optMM(l.Secondary))
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+												vgparent.AppendChild(vgn)
+											}
+										}
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+										vgparent.AppendChild(vgn)
+									}
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+									vgparent.AppendChild(vgn)
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+							}
+						}
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+						vgparent.AppendChild(vgn)
+						if c.R.Consolidation != nil {
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
+							vgparent.AppendChild(vgn)
+							vgn.SetInnerHTML("Time stepping: " + c.R.Consolidation.Start + ".")
+						}
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+						vgparent.AppendChild(vgn)
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "stats"}}}
+						vgparent.AppendChild(vgn)
+						vgn.SetInnerHTML(c.stats())
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+						vgparent.AppendChild(vgn)
 					}
 				}
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-				vgparent.AppendChild(vgn)
-				if c.R.Consolidation != nil {
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
-					vgparent.AppendChild(vgn)
-					vgn.SetInnerHTML("Time stepping: " + c.R.Consolidation.Start + ".")
-				}
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-				vgparent.AppendChild(vgn)
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "stats"}}}
-				vgparent.AppendChild(vgn)
-				vgn.SetInnerHTML(c.stats())
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
 			}

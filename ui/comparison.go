@@ -14,10 +14,20 @@ import (
 // Comparison sets the field records against the prediction: the
 // differences reading by reading, and Asaoka's forecast for each
 // settlement plate.
+//
+// The bulky parts are folded (folds.go): the reading-by-reading tables,
+// each on its own, and the Asaoka plots, all together. The figures stay
+// in view.
 type Comparison struct {
 	P        *solver.Project // the project R belongs to, records included
 	R        *solver.Result
 	Download func(name, mime string, data []byte)
+	// PlotsOpen says whether the Asaoka plots show; TogglePlots asks the
+	// Root to open or close them.
+	PlotsOpen   bool
+	TogglePlots func()
+	// Printing opens every fold, for Print report.
+	Printing bool
 
 	from, to string          // Asaoka window as typed, days ("" = default)
 	shown    map[string]bool // record path → its reading table unfolded
@@ -90,10 +100,64 @@ func signed(v float64, unit string) string {
 	return s
 }
 
-func (c *Comparison) isShown(r resRecord) bool { return c.shown[r.Path] }
+func (c *Comparison) isShown(r resRecord) bool { return c.shown[r.Path] || c.Printing }
 
-func (c *Comparison) toggled(r resRecord, e vugu.DOMEvent) {
-	c.shown[r.Path] = e.PropBool("target", "open")
+func (c *Comparison) toggleRows(r resRecord) { c.shown[r.Path] = !c.shown[r.Path] }
+
+// rowsLabel names the reading-by-reading table of r, on its fold.
+func (c *Comparison) rowsLabel(r resRecord) string {
+	n := len(r.Rows)
+	if n == 1 {
+		return "Reading by reading: " + r.Name + " (1 reading)"
+	}
+	return fmt.Sprintf("Reading by reading: %s (%d readings)", r.Name, n)
+}
+
+// folded says whether anything of the panel is folded, for the note a
+// printout made with the browser's own Print shows.
+func (c *Comparison) folded() bool {
+	if !c.PlotsOpen && len(c.asa) > 0 {
+		return true
+	}
+	for _, r := range c.res {
+		if !c.isShown(r) {
+			return true
+		}
+	}
+	return false
+}
+
+func (c *Comparison) plotsLabel() string {
+	if c.PlotsOpen {
+		return "hide"
+	}
+	return "show"
+}
+
+// plotsHint says what the folded Asaoka plots hold.
+func (c *Comparison) plotsHint() string {
+	n := 0
+	for _, a := range c.asa {
+		if a.Res != nil {
+			n++
+		}
+	}
+	switch n {
+	case 0:
+		return "No Asaoka plot: no plate gives a forecast."
+	case 1:
+		return "The Asaoka plot of the plate: each resampled settlement against the one before, with the fitted line and the 45° line"
+	}
+	return fmt.Sprintf("The Asaoka plots of the %d plates with a forecast: each resampled settlement against the one before, with the fitted line and the 45° line", n)
+}
+
+func (c *Comparison) anyPlot() bool {
+	for _, a := range c.asa {
+		if a.Res != nil {
+			return true
+		}
+	}
+	return false
 }
 
 func (c *Comparison) when(row resRow) string {
@@ -254,6 +318,14 @@ func (c *Comparison) exportAsaoka(a asaoka, format string) {
 func badClass(problem string) string {
 	if problem != "" {
 		return " pl-bad"
+	}
+	return ""
+}
+
+// noprintIf is the class suffix that keeps an element out of print.
+func noprintIf(b bool) string {
+	if b {
+		return " pl-noprint"
 	}
 	return ""
 }

@@ -13,9 +13,18 @@ import (
 // Monitoring edits the field records: the calendar date of day 0, the
 // settlement plates and the piezometers, each with its readings table and
 // a box to paste two columns from a spreadsheet.
+//
+// The editor is folded (folds.go): while Open is false only a one-line
+// account of the records and the buttons that add one are built.
 type Monitoring struct {
 	F       *Form
 	Changed func()
+	// Open says whether the editor shows; SetOpen asks the Root to open
+	// or close it. Root keeps it open while a record has a problem.
+	Open    bool
+	SetOpen func(bool)
+	// Held says that Open is forced by a problem in the records.
+	Held bool
 
 	open  map[string]bool   // record path → readings table shown
 	all   map[string]bool   // record path → every row shown, however many
@@ -171,11 +180,71 @@ func (c *Monitoring) readingPath(r monRec, j int, leaf string) string {
 	return readingPath(r.Kind, r.I, j, leaf)
 }
 
-func (c *Monitoring) addPlate() { c.F.AddPlate(); c.openLast(kindPlates); c.Changed() }
+func (c *Monitoring) addPlate() {
+	c.F.AddPlate()
+	c.openLast(kindPlates)
+	c.SetOpen(true)
+	c.Changed()
+}
+
 func (c *Monitoring) addPiezometer() {
 	c.F.AddPiezometerRecord()
 	c.openLast(kindPiezos)
+	c.SetOpen(true)
 	c.Changed()
+}
+
+func (c *Monitoring) toggleAll() { c.SetOpen(!c.Open) }
+
+func (c *Monitoring) toggleAllLabel() string {
+	if c.Open {
+		return "hide"
+	}
+	return "edit"
+}
+
+// held says in one line what the records hold, for the folded editor:
+// "2 settlement plates (134 readings), 1 piezometer (79 readings)".
+func (c *Monitoring) held() string {
+	m := c.F.Draft().Monitoring
+	if m == nil || len(m.Plates)+len(m.Piezometers) == 0 {
+		return "No field records yet."
+	}
+	count := func(n int, one, many string, readings int) string {
+		s := fmt.Sprintf("%d %s", n, many)
+		if n == 1 {
+			s = "1 " + one
+		}
+		if readings == 1 {
+			return s + " (1 reading)"
+		}
+		return s + fmt.Sprintf(" (%d readings)", readings)
+	}
+	var parts []string
+	if n := len(m.Plates); n > 0 {
+		r := 0
+		for _, pl := range m.Plates {
+			r += len(pl.Readings)
+		}
+		parts = append(parts, count(n, "settlement plate", "settlement plates", r))
+	}
+	if n := len(m.Piezometers); n > 0 {
+		r := 0
+		for _, pz := range m.Piezometers {
+			r += len(pz.Readings)
+		}
+		parts = append(parts, count(n, "piezometer", "piezometers", r))
+	}
+	s := strings.Join(parts, ", ")
+	if m.Start != "" {
+		s += "; day 0 is " + m.Start
+	}
+	for _, text := range c.paste {
+		if strings.TrimSpace(text) != "" {
+			return s + "; a paste box holds text not yet used."
+		}
+	}
+	return s + "."
 }
 
 func (c *Monitoring) openLast(kind string) {

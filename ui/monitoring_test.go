@@ -55,6 +55,7 @@ func TestMonitoringPasteFillsRecord(t *testing.T) {
 	pr := monColumn()
 	pr.Monitoring.Start = "2024-01-01"
 	p := monPage(t, pr)
+	p.fire("records-toggle", "click", nil) // the records editor is folded
 	p.fire("monitoring-plates-0-toggle", "click", nil)
 	paste := "Day\tSettlement (mm)\n0\t0\n7\t12,5\n2024-01-15\t20\n"
 	p.fire("monitoring-plates-0-paste", "input", map[string]any{"value": paste})
@@ -94,6 +95,7 @@ func TestMonitoringPasteFillsRecord(t *testing.T) {
 // box, keeps the text, and leaves the record alone.
 func TestMonitoringBadPaste(t *testing.T) {
 	p := monPage(t, monColumn())
+	p.fire("records-toggle", "click", nil) // the records editor is folded
 	p.fire("monitoring-piezometers-0-toggle", "click", nil)
 	paste := "0;40\n7;4x\n5;41\n"
 	p.fire("monitoring-piezometers-0-paste", "input", map[string]any{"value": paste})
@@ -126,6 +128,7 @@ func TestMonitoringFieldProblems(t *testing.T) {
 		solves++
 		return solver.Solve(q, o)
 	}
+	p.fire("records-toggle", "click", nil) // the records editor is folded
 	p.fire("monitoring-plates-0-toggle", "click", nil)
 	p.fire("monitoring-plates-0-add", "click", nil)
 	p.typeInto("monitoring-plates-0-readings-1-value", "15")

@@ -7,6 +7,7 @@ import (
 	"html"
 	"os"
 	"strings"
+	"sync/atomic"
 	"testing"
 
 	"github.com/vugu/vugu"
@@ -184,6 +185,8 @@ type fakeHost struct {
 	file      []byte
 	fileName  string
 	fileErr   error
+	yields    atomic.Int64 // calls of Yield
+	onPrint   func()       // called by Print, if set
 }
 
 type download struct {
@@ -191,7 +194,7 @@ type download struct {
 	data       []byte
 }
 
-func (h *fakeHost) Yield() {}
+func (h *fakeHost) Yield() { h.yields.Add(1) }
 func (h *fakeHost) Download(name, mime string, data []byte) error {
 	h.downloads = append(h.downloads, download{name, mime, data})
 	return nil
@@ -204,7 +207,11 @@ func (h *fakeHost) Recall(k string) (string, bool, error) {
 func (h *fakeHost) PageURL() string       { return "file:///tmp/porelight.html" }
 func (h *fakeHost) SetFragment(f string)  { h.fragment = f }
 func (h *fakeHost) CopyText(string) error { return errors.New("no clipboard") }
-func (h *fakeHost) Print()                {}
+func (h *fakeHost) Print() {
+	if h.onPrint != nil {
+		h.onPrint()
+	}
+}
 func (h *fakeHost) ReadFile(_ string, done func(string, []byte, error)) {
 	done(h.fileName, h.file, h.fileErr)
 }

@@ -57,6 +57,8 @@ type Root struct {
 	notices   []notice
 	shareURL  string
 	fit       *fitState // back-analysis of the field records (monitor_root.go)
+	fold      folds     // which secondary sections are unfolded (folds.go)
+	printing  bool      // Print report is under way: every fold is open
 }
 
 type notice struct {
@@ -128,6 +130,7 @@ func (c *Root) open(p *solver.Project) {
 // edited runs after every edit: a valid draft becomes the model and is
 // solved after a pause; an invalid one only shows its problems.
 func (c *Root) edited() {
+	c.revealProblems()
 	if c.form.Valid() {
 		c.commit(c.debounce())
 	} else {
@@ -385,8 +388,6 @@ func (c *Root) copyShare() {
 }
 
 func (c *Root) closeShare() { c.shareURL = "" }
-
-func (c *Root) print() { c.host().Print() }
 
 // export downloads results: "results.json", "series.csv" or "layers.csv".
 func (c *Root) export(what string) {

@@ -6,10 +6,44 @@ import (
 	"porelight/solver"
 )
 
-// Tables shows the results layer by layer.
+// Tables shows the results layer by layer, folded: the tables are built
+// only while Open (folds.go).
 type Tables struct {
 	R      *solver.Result
 	Export func(what string) // asks the root to download a table
+	Open   bool
+	Toggle func()
+}
+
+// hint says in one line what the folded tables hold.
+func (c *Tables) hint() string {
+	parts := []string{"steady seepage (gradients, heave factors, cv)"}
+	if len(c.R.Steady.Uplift) > 0 {
+		parts = append(parts, "uplift")
+	}
+	if c.hasSettlement() {
+		parts = append(parts, "settlement")
+	}
+	n := len(c.R.Steady.Layers)
+	layers := fmt.Sprintf("%d layers", n)
+	if n == 1 {
+		layers = "the layer"
+	}
+	s := "Tables for " + layers + ": " + parts[0]
+	switch len(parts) {
+	case 2:
+		s += " and " + parts[1]
+	case 3:
+		s += ", " + parts[1] + " and " + parts[2]
+	}
+	return s
+}
+
+func (c *Tables) toggleLabel() string {
+	if c.Open {
+		return "hide"
+	}
+	return "show"
 }
 
 func flowWord(l solver.SteadyLayer) string {
