@@ -110,7 +110,14 @@ func (r *report) summary() *table {
 			where = " (" + b.Machine + ")"
 		}
 		t.add("5 browser", "first plot after opening the page"+where, fmt.Sprintf("%.0f ms", *b.FirstPlotMs), "", "", "≤ 1.5 s", holds(*b.FirstPlotMs <= firstPlotGoalMs))
-		t.add("5 browser", "edit to plot, from the input event", fmt.Sprintf("%.1f ms", *b.EditToPlotMs), "", "", "≤ 50 ms", holds(*b.EditToPlotMs <= editToPlotGoalMs))
+		if b.EditToPlotNoDebounceMs == nil {
+			t.add("5 browser", "edit to plot, from the input event", fmt.Sprintf("%.1f ms", *b.EditToPlotMs), "", "", "≤ 50 ms", holds(*b.EditToPlotMs <= editToPlotGoalMs))
+		} else {
+			// The page waits 200 ms after a keystroke so that a solve does
+			// not start in the middle of typing a number; the goal is on
+			// the solve and redraw that follow.
+			t.add("5 browser", "edit to plot, from the input event (includes the page's 200 ms pause for typing)", fmt.Sprintf("%.1f ms", *b.EditToPlotMs), "", "", "report only", "—")
+		}
 		if v := b.EditToPlotNoDebounceMs; v != nil {
 			t.add("5 browser", "edit to plot, from the end of the page's pause before a solve (solve and redraw)", fmt.Sprintf("%.1f ms", *v), "", "", "≤ 50 ms", holds(*v <= editToPlotGoalMs))
 		}
