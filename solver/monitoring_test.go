@@ -54,28 +54,21 @@ func monCheck(t *testing.T, err error, want []monProblem) {
 	}
 }
 
-// monProject is a valid project with a plate and a piezometer record.
+// monProject is valProject (validate_test.go) loaded and carrying a plate
+// and a piezometer record.
 func monProject() *Project {
-	return &Project{
-		Format: Format,
-		Layers: []Layer{
-			{Name: "sand", Thickness: 2, GammaSat: 19, K: 1e-5, Mv: 1e-4},
-			{Name: "clay", Thickness: 3, GammaSat: 17, K: 1e-9, Mv: 5e-4},
-		},
-		WaterTable: 1,
-		Top:        Boundary{Drained: true},
-		Bottom:     Boundary{Drained: true},
-		Loads:      []Load{{Start: 0, Ramp: 20, Q: 40}},
-		Monitoring: &Monitoring{
-			Start: "2024-02-20",
-			Plates: []Plate{{Name: "P1", Readings: []Reading{
-				{T: 0, Value: 0}, {T: 7, Value: 0.004}, {Date: "2024-03-05", Value: 0.009}, {T: 30, Value: 0.015},
-			}}},
-			Piezometers: []PiezometerRecord{{Name: "U1", Depth: 3.5, Readings: []Reading{
-				{T: 1, Value: 30}, {T: 10, Value: 45}, {T: 30, Value: 40},
-			}}},
-		},
+	p := valProject()
+	p.Loads = []Load{{Start: 0, Ramp: 20, Q: 40}}
+	p.Monitoring = &Monitoring{
+		Start: "2024-02-20",
+		Plates: []Plate{{Name: "P1", Readings: []Reading{
+			{T: 0, Value: 0}, {T: 7, Value: 0.004}, {Date: "2024-03-05", Value: 0.009}, {T: 30, Value: 0.015},
+		}}},
+		Piezometers: []PiezometerRecord{{Name: "U1", Depth: 3.5, Readings: []Reading{
+			{T: 1, Value: 30}, {T: 10, Value: 45}, {T: 30, Value: 40},
+		}}},
 	}
+	return p
 }
 
 // Validate checks the monitoring records against the file format contract
