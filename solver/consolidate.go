@@ -105,7 +105,9 @@ func newTransient(c *column, opt *Options) *transient {
 	}
 	tr.k = newBand(n, m.order)
 	tr.mass = newBand(n, m.order)
-	tr.a = newBand(n, m.order)
+	if m.order > 1 {
+		tr.a = newBand(n, m.order) // scratch for M + θΔt·K; linear elements form it in factorFor
+	}
 	gw := c.gw
 	m.assemble(tr.k, func(e int, _ float64) float64 { return p.Layers[m.layer[e]].K * secondsPerDay / gw }, false)
 	tr.wLength = make([]float64, n)
@@ -304,13 +306,9 @@ func (tr *transient) step(theta, t0, dt float64) error {
 		bandThetaRHS(rhs, u, ds, tr.mass, tr.k, c)
 	}
 	tr.setHeld(u, t0+dt, true)
-	for _, j := range tr.held {
-		for i := max(j-tr.k.kd, 0); i <= min(j+tr.k.kd, len(u)-1); i++ {
-			if i != j {
-				rhs[i] -= (tr.mass.at(i, j) + theta*dt*tr.k.at(i, j)) * u[j]
-			}
-		}
-	}
+	moveHeld(rhs, u, tr.held, tr.k.kd, func(i, j int) float64 {
+		return tr.mass.at(i, j) + theta*dt*tr.k.at(i, j)
+	})
 	f.solve(rhs)
 	copy(u[tr.lo:tr.hi], rhs[tr.lo:tr.hi])
 	return nil

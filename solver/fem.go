@@ -246,12 +246,20 @@ func grow(s []float64, n int) []float64 {
 // right-hand side: rhs[i] -= A[i][j]·g[j] for every held node j and free
 // node i. held lists the held node indices.
 func dirichletRHS(rhs []float64, a *band, u []float64, held []int) {
+	moveHeld(rhs, u, held, a.kd, a.at)
+}
+
+// moveHeld is dirichletRHS for a symmetric band matrix with kd
+// super-diagonals given by its entries, entry(i, j) = A[i][j], so that a
+// combination of assembled matrices need not be formed.
+func moveHeld(rhs, u []float64, held []int, kd int, entry func(i, j int) float64) {
+	n := len(u)
 	for _, j := range held {
-		for i := max(j-a.kd, 0); i <= min(j+a.kd, a.n-1); i++ {
+		for i := max(j-kd, 0); i <= min(j+kd, n-1); i++ {
 			// A held row keeps its value: with one element both ends are
 			// held and lie within the band of each other.
 			if i != j && !slices.Contains(held, i) {
-				rhs[i] -= a.at(i, j) * u[j]
+				rhs[i] -= entry(i, j) * u[j]
 			}
 		}
 	}

@@ -35,7 +35,7 @@ func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path
 	for e := range ne {
 		_, z0, z1 := m.span(e)
 		zc := (z0 + z1) / 2
-		s0 := math.Max(m.interpolate(st.Effective, zc), minEffective)
+		s0 := math.Max(m.centre(st.Effective, e), minEffective)
 		subs[e] = sublayer{z: zc, h: z1 - z0, s0: s0, sig: s0}
 		l := &p.Layers[m.layer[e]]
 		if l.ECurve == nil {
@@ -57,15 +57,16 @@ func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path
 			tr.stressAt(stress, b.t, false)
 			for e := range final {
 				if final[e].curve != nil {
-					final[e].moveTo(final[e].s0 + m.interpolate(stress, final[e].z) - m.interpolate(uInf, final[e].z))
+					final[e].moveTo(final[e].s0 + m.centre(stress, e) - m.centre(uInf, e))
 				}
 			}
 		}
 		for e := range final {
 			if final[e].curve != nil {
-				final[e].moveTo(final[e].s0 + m.interpolate(sigInf, final[e].z) - m.interpolate(uInf, final[e].z))
+				d := m.centre(sigInf, e) - m.centre(uInf, e)
+				final[e].moveTo(final[e].s0 + d)
 				elogLayer[m.layer[e]] += final[e].settlement()
-				drainedDelta[m.layer[e]] += (m.interpolate(sigInf, final[e].z) - m.interpolate(uInf, final[e].z)) * final[e].h
+				drainedDelta[m.layer[e]] += d * final[e].h
 			}
 		}
 	}
