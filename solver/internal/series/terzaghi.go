@@ -142,18 +142,9 @@ func excessFourier(Z, s float64) float64 {
 // excessImage is 1 − Σ (−1)ⁿ [erfc((2n+Z)/c) + erfc((2n+2−Z)/c)], c = 2√s.
 func excessImage(Z, s float64) float64 {
 	c := 2 * math.Sqrt(s)
-	var sum float64
-	sign := 1.0
-	for n := 0; ; n++ {
-		a := (2*float64(n) + Z) / c
-		t := math.Erfc(a) + math.Erfc((2*float64(n)+2-Z)/c)
-		sum += sign * t
-		sign = -sign
-		if t < negligible {
-			break
-		}
-	}
-	return 1 - sum
+	return 1 - alternating(0, func(n float64) float64 {
+		return math.Erfc((2*n+Z)/c) + math.Erfc((2*n+2-Z)/c)
+	})
 }
 
 // rampFourier is G(Z, s) = ∫₀ˢ u/u0 dτ = g(Z) − Σ (2/M³) sin(M Z) exp(−M² s)
@@ -177,17 +168,9 @@ func rampFourier(Z, s float64) float64 {
 // ∫₀ˢ erfc(a/(2√τ)) dτ = 4s i²erfc(a/(2√s)).
 func rampImage(Z, s float64) float64 {
 	c := 2 * math.Sqrt(s)
-	var sum float64
-	sign := 1.0
-	for n := 0; ; n++ {
-		t := i2erfc((2*float64(n)+Z)/c) + i2erfc((2*float64(n)+2-Z)/c)
-		sum += sign * t
-		sign = -sign
-		if t < negligible {
-			break
-		}
-	}
-	return s - 4*s*sum
+	return s - 4*s*alternating(0, func(n float64) float64 {
+		return i2erfc((2*n+Z)/c) + i2erfc((2*n+2-Z)/c)
+	})
 }
 
 // ramp is G(Z, s) = ∫₀ˢ TerzaghiExcess(Z, τ) dτ for s ≥ 0.
@@ -219,17 +202,7 @@ func uFourier(s float64) float64 {
 // integrated over Z with ∫ erfc(x/c) dx = −c ierfc(x/c).
 func uImage(s float64) float64 {
 	r := math.Sqrt(s)
-	var sum float64
-	sign := -1.0
-	for n := 1; ; n++ {
-		t := ierfc(float64(n) / r)
-		sum += sign * t
-		sign = -sign
-		if t < negligible {
-			break
-		}
-	}
-	return 2*r/math.SqrtPi + 4*r*sum
+	return 2*r/math.SqrtPi + 4*r*alternating(1, func(n float64) float64 { return ierfc(n / r) })
 }
 
 // bFourier is B(s) = ∫₀ˢ U dτ = s − 1/3 + Σ (2/M⁴) exp(−M² s), using
@@ -252,17 +225,7 @@ func bFourier(s float64) float64 {
 // rampImage integrated over Z.
 func bImage(s float64) float64 {
 	r := math.Sqrt(s)
-	var sum float64
-	sign := -1.0
-	for n := 1; ; n++ {
-		t := i3erfc(float64(n) / r)
-		sum += sign * t
-		sign = -sign
-		if t < negligible {
-			break
-		}
-	}
-	return 8 * s * r * (1/(6*math.SqrtPi) + 2*sum)
+	return 8 * s * r * (1/(6*math.SqrtPi) + 2*alternating(1, func(n float64) float64 { return i3erfc(n / r) }))
 }
 
 // avgU is B(s) = ∫₀ˢ TerzaghiU(τ) dτ for s ≥ 0.
@@ -293,4 +256,22 @@ func i2erfc(x float64) float64 {
 
 func i3erfc(x float64) float64 {
 	return (ierfc(x) - 2*x*i2erfc(x)) / 6
+}
+
+// alternating sums Σ (−1)ⁿ term(n) over n = from, from+1, … up to and
+// including the first term below negligible: the image series here have
+// positive terms that fall faster than geometrically.
+func alternating(from int, term func(n float64) float64) float64 {
+	var sum float64
+	for n := from; ; n++ {
+		t := term(float64(n))
+		if n%2 == 0 {
+			sum += t
+		} else {
+			sum -= t
+		}
+		if t < negligible {
+			return sum
+		}
+	}
 }
