@@ -73,7 +73,6 @@ type transient struct {
 	c        *column
 	mv       []float64 // per layer, 1/kPa
 	k, mass  *band     // conductivity (k/γw, m²/(kPa·day)) and mv-mass
-	a        *band     // scratch: mass + θΔt·k
 	lo, hi   int       // free unknowns
 	held     []int
 	cache    map[stepKey]*factor
@@ -105,9 +104,6 @@ func newTransient(c *column, opt *Options) *transient {
 	}
 	tr.k = newBand(n, m.order)
 	tr.mass = newBand(n, m.order)
-	if m.order > 1 {
-		tr.a = newBand(n, m.order) // scratch for M + θΔt·K; linear elements form it in factorFor
-	}
 	gw := c.gw
 	m.assemble(tr.k, func(e int, _ float64) float64 { return p.Layers[m.layer[e]].K * secondsPerDay / gw }, false)
 	tr.wLength = make([]float64, n)
@@ -241,32 +237,11 @@ func (tr *transient) factorFor(theta, dt float64) (*factor, error) {
 		return f, nil
 	}
 	f := new(factor)
-	c := theta * dt
-	if tr.k.kd == 1 {
-		// Tridiagonal: form D and E of the free block in one pass.
-		n := tr.hi - tr.lo
-		f.n, f.kd, f.lo = n, 1, tr.lo
-		f.d, f.e = make([]float64, n), make([]float64, max(n-1, 0))
-		mab, kab := tr.mass.ab[2*tr.lo:2*tr.hi], tr.k.ab[2*tr.lo:2*tr.hi]
-		for i := range n {
-			f.d[i] = mab[2*i] + c*kab[2*i]
-			if i+1 < n {
-				f.e[i] = mab[2*i+1] + c*kab[2*i+1]
-			}
-		}
-		if n > 0 && !lapack.Dpttrf(n, f.d, f.e) {
-			return nil, notDefinite(f.d)
-		}
-	} else {
-		for i := range tr.a.ab {
-			tr.a.ab[i] = tr.mass.ab[i] + c*tr.k.ab[i]
-		}
-		if err := factorize(f, tr.a, tr.lo, tr.hi); err != nil {
-			return nil, err
-		}
+	if err := factorizeSum(f, tr.mass, tr.k, theta*dt, tr.lo, tr.hi); err != nil {
+		return nil, err
 	}
 	tr.factors++
-	size := len(f.d) + len(f.e) + len(f.ab)
+	size := len(f.d) + len(f.e) + len(f.ab) + len(f.s)
 	if tr.cached+size > factorCacheFloats {
 		clear(tr.cache)
 		tr.cached = 0

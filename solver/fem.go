@@ -128,19 +128,32 @@ var lapack gonum.Implementation
 // storage when it is large enough. It costs O(n·kd²) and returns an error
 // naming the row when the block is not positive definite.
 func factorize(dst *factor, a *band, lo, hi int) error {
+	return factorizeSum(dst, a, nil, 0, lo, hi)
+}
+
+// factorizeSum is factorize for a + c·b, formed on the way into dst's
+// storage (b nil means a alone), so that M + θΔt·K needs no scratch band.
+// a and b must have the same shape.
+func factorizeSum(dst *factor, a, b *band, c float64, lo, hi int) error {
 	n := hi - lo
 	dst.n, dst.kd, dst.lo = n, a.kd, lo
 	if n <= 0 {
 		return nil
 	}
 	ld := a.kd + 1
+	entry := func(i int) float64 {
+		if b == nil {
+			return a.ab[i]
+		}
+		return a.ab[i] + c*b.ab[i]
+	}
 	if a.kd == 1 {
 		dst.d = grow(dst.d, n)
 		dst.e = grow(dst.e, max(n-1, 0))
 		for i := range n {
-			dst.d[i] = a.ab[(lo+i)*ld]
+			dst.d[i] = entry((lo + i) * ld)
 			if i < n-1 {
-				dst.e[i] = a.ab[(lo+i)*ld+1]
+				dst.e[i] = entry((lo+i)*ld + 1)
 			}
 		}
 		if !lapack.Dpttrf(n, dst.d, dst.e) {
@@ -149,7 +162,9 @@ func factorize(dst *factor, a *band, lo, hi int) error {
 		return nil
 	}
 	dst.ab = grow(dst.ab, n*ld)
-	copy(dst.ab, a.ab[lo*ld:hi*ld])
+	for i := range dst.ab {
+		dst.ab[i] = entry(lo*ld + i)
+	}
 	if !lapack.Dpbtrf(blas.Upper, n, a.kd, dst.ab, ld) {
 		return fmt.Errorf("solver: the system matrix is not positive definite (check for zero or non-finite k or mv)")
 	}
