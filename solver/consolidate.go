@@ -3,444 +3,487 @@ package solver
 import (
 	"fmt"
 	"math"
+
+	"porelight/solver/fem"
+	"porelight/solver/soil"
 )
 
-// Time stepping defaults.
-const (
-	defaultTheta       = 0.5
-	defaultDampedSteps = 4
-	defaultFirstStep   = 1.0 / 1440 // one minute, in days
-	defaultGrowth      = 1.1
-	defaultSettleTime  = 36525 // days simulated after the last breakpoint: 100 years
-	factorCacheFloats  = 4 << 20
-)
-
-// stepping resolves the time stepping settings of p.
-func stepping(p *Project) (theta float64, damped int, first, growth float64) {
-	s := p.Stepping
-	theta, damped, first, growth = s.Theta, s.DampedSteps, s.FirstStep, s.Growth
-	if theta == 0 {
-		theta = defaultTheta
-	}
-	switch {
-	case damped == 0:
-		damped = defaultDampedSteps
-	case damped < 0:
-		damped = 0
-	}
-	if first == 0 {
-		first = defaultFirstStep
-	}
-	if growth == 0 {
-		growth = defaultGrowth
-	}
-	return
-}
-
-// endTime is the last time simulated: Stepping.EndTime when set, else 100
-// years after the last breakpoint or the last output time if later.
-func endTime(p *Project) float64 {
-	if p.Stepping.EndTime > 0 {
-		return p.Stepping.EndTime
-	}
-	last := 0.0
-	for _, l := range p.Loads {
-		last = math.Max(last, l.Start+l.Ramp)
-	}
-	for _, b := range []Boundary{p.Top, p.Bottom} {
-		for _, tv := range b.Excess {
-			last = math.Max(last, tv.T)
-		}
-	}
-	end := last + defaultSettleTime
-	if n := len(p.Times); n > 0 {
-		end = math.Max(end, p.Times[n-1])
-	}
-	return end
-}
-
-// hasConsolidation reports whether p changes anything in time.
-func hasConsolidation(p *Project) bool {
-	return len(p.Loads) > 0 || len(p.InitialExcess) > 0 ||
-		(p.Top.Drained && len(p.Top.Excess) > 0) || (p.Bottom.Drained && len(p.Bottom.Excess) > 0)
-}
-
-type stepKey struct{ theta, dt float64 }
-
-// transient holds the matrices and the workspace of one consolidation
-// run, so that the time loop allocates nothing.
-type transient struct {
-	c        *column
-	mv       []float64 // per layer, 1/kPa
-	k, mass  *band     // conductivity (k/γw, m²/(kPa·day)) and mv-mass
-	lo, hi   int       // free unknowns
-	held     []int
-	cache    map[stepKey]*factor
-	cached   int // floats held by the cache
-	factors  int
-	u, rhs   []float64
-	tmp      []float64
-	sigma    []float64   // total stress change at the nodes, kPa
-	shapes   [][]float64 // per load stage: Q·factor at the nodes
-	wMass    []float64   // ∫ mv Nᵢ dz
-	wLength  []float64   // ∫ Nᵢ dz
-	lumped   bool        // mass is diagonal
-	theta    float64
-	damped   int
-	first    float64
-	growth   float64
-	progress func(float64) bool
-}
-
-// newTransient assembles the conductivity matrix of c and sizes the
-// workspace; setMv must be called before stepping.
-func newTransient(c *column, opt *Options) *transient {
-	m, p := c.m, c.p
-	n := m.nodes()
-	tr := &transient{c: c, cache: map[stepKey]*factor{}}
-	tr.theta, tr.damped, tr.first, tr.growth = stepping(p)
-	if opt != nil {
-		tr.progress = opt.Progress
-	}
-	tr.k = newBand(n, m.order)
-	tr.mass = newBand(n, m.order)
-	gw := c.gw
-	m.assemble(tr.k, func(e int, _ float64) float64 { return p.Layers[m.layer[e]].K * secondsPerDay / gw }, false)
-	tr.wLength = make([]float64, n)
-	m.load(tr.wLength, func(float64) float64 { return 1 })
-
-	tr.lo, tr.hi = 0, n
-	if p.Top.Drained {
-		tr.lo = 1
-		tr.held = append(tr.held, 0)
-	}
-	if p.Bottom.Drained {
-		tr.hi = n - 1
-		tr.held = append(tr.held, n-1)
-	}
-	tr.u = make([]float64, n)
-	tr.rhs = make([]float64, n)
-	tr.tmp = make([]float64, n)
-	tr.sigma = make([]float64, n)
-	tr.shapes = make([][]float64, len(p.Loads))
-	for i, l := range p.Loads {
-		f := make([]float64, n)
-		for j, z := range m.z {
-			f[j] = l.Q * profileAt(l.Profile, z, 1)
-		}
-		tr.shapes[i] = f
-	}
-	return tr
-}
-
-// setMv assembles the mass matrix ∫ mv Nᵢ Nⱼ dz for mv per layer.
-func (tr *transient) setMv(mv []float64) {
-	m := tr.c.m
-	tr.mv = mv
-	clear(tr.mass.ab)
-	m.assemble(tr.mass, func(e int, _ float64) float64 { return mv[m.layer[e]] }, true)
-	ones := make([]float64, m.nodes())
-	for i := range ones {
-		ones[i] = 1
-	}
-	tr.wMass = make([]float64, m.nodes())
-	tr.mass.mulVec(tr.wMass, ones)
-	// Linear elements lump the capacity matrix by rows. The consistent
-	// matrix lets the
-	// pressure next to a drained end dip below its final value just after
-	// an instantaneous load when the step is small against h²/cv (the
-	// discrete maximum principle fails); the dip raises σ' past its final
-	// value and, on the e–log σ' curve, leaves irreversible virgin
-	// compression. With a diagonal capacity matrix, M + θΔt·K is an
-	// M-matrix for linear elements and the pressure stays between its
-	// bounds under backward Euler steps; the accuracy stays O(h²).
-	// Quadratic elements keep the consistent matrix, which their O(h³)
-	// accuracy needs.
-	tr.lumped = m.order == 1
-	if tr.lumped {
-		clear(tr.mass.ab)
-		for i, w := range tr.wMass {
-			tr.mass.ab[i*(tr.mass.kd+1)] = w
-		}
-	}
-	clear(tr.cache)
-	tr.cached = 0
-}
-
-// layerSettlement returns each layer's settlement ∫ mv (σ − u) dz, m, for
-// nodal total stress and pore pressure changes sigma and u.
-func (tr *transient) layerSettlement(sigma, u []float64) []float64 {
-	m := tr.c.m
-	out := make([]float64, len(tr.mv))
-	np := m.order + 1
-	for e := range m.elements() {
-		n0, z0, z1 := m.span(e)
-		jac := (z1 - z0) / 2
-		mv := tr.mv[m.layer[e]]
-		for q := range m.gx {
-			v := 0.0
-			for a := range np {
-				v += m.shape[q*np+a] * (sigma[n0+a] - u[n0+a])
-			}
-			out[m.layer[e]] += mv * v * m.gw[q] * jac
-		}
-	}
-	return out
-}
-
-// boundary returns the prescribed pore pressure change at a drained end.
-// With left set it is the limit from the left at a step of the history.
-func (tr *transient) boundary(top bool, t float64, left bool) float64 {
-	if top {
-		return historyAt(tr.c.p.Top.Excess, t, left)
-	}
-	return historyAt(tr.c.p.Bottom.Excess, t, left)
-}
-
-// setHeld writes the prescribed values at time t into the held nodes of u
-// (limits from the left with left set).
-func (tr *transient) setHeld(u []float64, t float64, left bool) {
-	n := len(u)
-	if tr.c.p.Top.Drained {
-		u[0] = tr.boundary(true, t, left)
-	}
-	if tr.c.p.Bottom.Drained {
-		u[n-1] = tr.boundary(false, t, left)
-	}
-}
-
-// stressAt writes the total stress change at time t to dst: every ramp at
-// its fraction, instantaneous stages once started (once past, with left
-// set), and the initial excess.
-func (tr *transient) stressAt(dst []float64, t float64, left bool) {
-	p := tr.c.p
-	clear(dst)
-	for i, l := range p.Loads {
-		if f := l.fraction(t, left); f != 0 {
-			for j, v := range tr.shapes[i] {
-				dst[j] += f * v
-			}
-		}
-	}
-	if len(p.InitialExcess) > 0 {
-		for j, z := range tr.c.m.z {
-			dst[j] += profileAt(p.InitialExcess, z, 0)
-		}
-	}
-}
-
-// factorFor returns the factorisation of mass + θΔt·k on the free block,
-// computing it once per distinct (θ, Δt).
-func (tr *transient) factorFor(theta, dt float64) (*factor, error) {
-	key := stepKey{theta, dt}
-	if f, ok := tr.cache[key]; ok {
-		return f, nil
-	}
-	f := new(factor)
-	if err := factorizeSum(f, tr.mass, tr.k, theta*dt, tr.lo, tr.hi); err != nil {
-		return nil, err
-	}
-	tr.factors++
-	size := len(f.d) + len(f.e) + len(f.ab) + len(f.s)
-	if tr.cached+size > factorCacheFloats {
-		clear(tr.cache)
-		tr.cached = 0
-	}
-	tr.cache[key] = f
-	tr.cached += size
-	return f, nil
-}
-
-// step advances u from t0 to t1 = t0+dt with the θ-method:
+// consolidation is one transient analysis of a column, from the steady
+// state to the end of the simulation. Its phases, in order:
 //
-//	(M + θΔt K) u¹ = (M − (1−θ)Δt K) u⁰ + M (σ¹ − σ⁰)
+//  1. finalState: the stress and pore pressure change once all has
+//     drained, and the breakpoints of the time loop;
+//  2. sublayers: the e–log σ' state of every element, and the fully
+//     drained e–log settlement along every breakpoint;
+//  3. deriveMv: mv per layer, as given or the secant of the curve;
+//  4. linearSummary: cv and the linear final settlement per layer;
+//  5. march: the time loop, recording the series and the isochrones;
+//  6. elogSummary, degreeTimes, secondary and the warnings.
 //
-// with u¹ held at the drained ends. sigma holds σ⁰ on entry and σ¹ on
-// return. No allocation once the factor for (θ, Δt) is cached.
-func (tr *transient) step(theta, t0, dt float64) error {
-	f, err := tr.factorFor(theta, dt)
-	if err != nil {
+// Everything the time loop writes to is sized before it starts.
+type consolidation struct {
+	c    *column
+	st   *Steady
+	r    *Result
+	warn func(path, msg string)
+	tr   *transient
+
+	sigInf, uInf []float64 // final total stress and pore pressure change
+	bps          []breakpoint
+
+	points         []soil.Point // e–log state per element
+	curved         []bool       // the element's layer has an e–log curve
+	allCurves      bool
+	anyCurve       bool
+	elogDrained    []float64 // per layer: e–log settlement along the drained path
+	drainedDelta   []float64 // per layer: ∫ Δσ'∞ dz
+	mv             []float64 // per layer
+	followStress   bool      // the time loop follows σ' element by element
+	defined        bool      // Us and Up have a non-zero denominator
+	denS, denP     float64
+	negativeWarned bool
+	probes         []probe
+	steps          int
+}
+
+// probe is a piezometer: where to read the excess, and the steady pore
+// pressure there.
+type probe struct {
+	at     fem.Probe
+	steady float64
+}
+
+// consolidate runs the transient analysis of c from the steady state st
+// and fills r.Consolidation, the settlement summary and warnings.
+func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path, msg string)) error {
+	k := &consolidation{c: c, st: st, r: r, warn: warn, tr: newTransient(c, opt)}
+	if err := k.finalState(); err != nil {
 		return err
 	}
-	u, rhs, tmp, sig := tr.u, tr.rhs, tr.tmp, tr.sigma
-	// tmp = σ¹ − σ⁰, keeping σ¹ in sigma. Changes at t1 that are
-	// instantaneous belong to jump, not to the step.
-	ds := []float64(nil)
-	if tr.ramping(t0, t0+dt) {
-		copy(tmp, sig)
-		tr.stressAt(sig, t0+dt, true)
-		for i := range tmp {
-			tmp[i] = sig[i] - tmp[i]
-		}
-		ds = tmp
+	k.sublayers()
+	k.deriveMv()
+	k.linearSummary()
+	if err := k.march(); err != nil {
+		return err
 	}
-	c := (1 - theta) * dt
-	if tr.mass.kd == 1 && tr.lumped {
-		thetaRHS(rhs, u, ds, tr.mass.ab, tr.k.ab, c)
-	} else {
-		bandThetaRHS(rhs, u, ds, tr.mass, tr.k, c)
-	}
-	tr.setHeld(u, t0+dt, true)
-	moveHeld(rhs, u, tr.held, tr.k.kd, func(i, j int) float64 {
-		return tr.mass.at(i, j) + theta*dt*tr.k.at(i, j)
-	})
-	f.solve(rhs)
-	copy(u[tr.lo:tr.hi], rhs[tr.lo:tr.hi])
+	k.elogSummary()
+	k.degreeTimes()
+	k.secondary()
+	c.meshWarnings(k.mv, warn)
+	k.earlyTimes()
 	return nil
 }
 
-// jump applies the instantaneous changes at time t: the undrained response
-// to every instantaneous load stage starting at t (the excess pressure rises
-// by the stress change at every free node), the initial excess at t = 0,
-// and the boundary values from t on.
-func (tr *transient) jump(t float64) {
-	p := tr.c.p
-	for i, l := range p.Loads {
-		if l.Ramp == 0 && l.Start == t {
-			for j := tr.lo; j < tr.hi; j++ {
-				tr.u[j] += tr.shapes[i][j]
-			}
-		}
+// finalState computes the fully drained final state and the breakpoints.
+func (k *consolidation) finalState() error {
+	var err error
+	k.sigInf, k.uInf, err = k.tr.final()
+	if err != nil {
+		return err
 	}
-	if t == 0 && len(p.InitialExcess) > 0 {
-		for j := tr.lo; j < tr.hi; j++ {
-			tr.u[j] += profileAt(p.InitialExcess, tr.c.m.z[j], 0)
-		}
+	k.bps = breakpoints(k.c.p, k.tr.set.EndTime)
+	if len(k.tr.held) == 0 {
+		k.warn("", "both ends are undrained: the excess pore pressure cannot drain, so no consolidation settlement develops")
 	}
-	tr.stressAt(tr.sigma, t, false)
-	tr.setHeld(tr.u, t, false)
+	return nil
 }
 
-// final returns the pore pressure change when everything has drained: the
-// steady solution of K u = 0 with the final boundary values, or, with both
-// ends undrained, the undrained response (nothing drains).
-func (tr *transient) final() (sigma, u []float64, err error) {
-	n := len(tr.u)
-	sigma = make([]float64, n)
-	tr.stressAt(sigma, math.Inf(1), false)
-	u = make([]float64, n)
-	if len(tr.held) == 0 {
-		copy(u, sigma)
-		return sigma, u, nil
+// sublayers sets up the e–log σ' state of every element (a sublayer, at
+// its centre) from the steady effective stress, and follows the fully
+// drained path through every breakpoint to the final state: the secant mv
+// of layers that give none comes from it.
+func (k *consolidation) sublayers() {
+	p, m := k.c.p, k.c.m
+	ne := m.Elements()
+	k.allCurves = true
+	for _, l := range p.Layers {
+		k.allCurves = k.allCurves && l.ECurve != nil
+		k.anyCurve = k.anyCurve || l.ECurve != nil
 	}
-	tr.setHeld(u, math.Inf(1), false)
-	rhs := make([]float64, n)
-	copy(rhs, u)
-	clear(rhs[tr.lo:tr.hi])
-	dirichletRHS(rhs, tr.k, u, tr.held)
-	var f factor
-	if err := factorize(&f, tr.k, tr.lo, tr.hi); err != nil {
-		return nil, nil, err
-	}
-	f.solve(rhs)
-	copy(u[tr.lo:tr.hi], rhs[tr.lo:tr.hi])
-	return sigma, u, nil
-}
-
-func dot(a, b []float64) float64 {
-	s := 0.0
-	for i := range a {
-		s += a[i] * b[i]
-	}
-	return s
-}
-
-// startText describes the damped start for the result.
-func (tr *transient) startText() string {
-	scheme := fmt.Sprintf("θ-method with θ = %g", tr.theta)
-	if tr.theta == 0.5 {
-		scheme = "Crank–Nicolson (θ = 0.5)"
-	} else if tr.theta == 1 {
-		scheme = "backward Euler (θ = 1)"
-	}
-	if tr.damped == 0 || tr.theta == 1 {
-		return scheme + " throughout"
-	}
-	return fmt.Sprintf("%d backward Euler steps after each instantaneous change, then %s", tr.damped, scheme)
-}
-
-// ramping reports whether a ramped load stage changes during (t0, t1).
-func (tr *transient) ramping(t0, t1 float64) bool {
-	for _, l := range tr.c.p.Loads {
-		if l.Ramp > 0 && l.Start < t1 && l.Start+l.Ramp > t0 {
-			return true
-		}
-	}
-	return false
-}
-
-// thetaRHS sets dst = D (u + ds) − c·K u for a diagonal D (the first
-// column of the band storage d) and a tridiagonal K (band storage k, kd =
-// 1), in one pass. ds may be nil (no stress change).
-func thetaRHS(dst, u, ds, d, k []float64, c float64) {
-	n := len(u)
-	if n == 0 {
-		return
-	}
-	// Row i of K·u is k[2(i-1)+1]·u[i-1] + k[2i]·u[i] + k[2i+1]·u[i+1].
-	prev := 0.0 // k[i-1][i]·u[i-1]
-	for i := range n {
-		ku := prev + k[2*i]*u[i]
-		if i+1 < n {
-			ku += k[2*i+1] * u[i+1]
-			prev = k[2*i+1] * u[i]
-		}
-		v := u[i]
-		if ds != nil {
-			v += ds[i]
-		}
-		dst[i] = d[2*i]*v - c*ku
-	}
-}
-
-// estimateSteps is the number of time steps a solve of p takes, to within
-// a few: between restarts the steps grow geometrically from the first one,
-// and every output time may cut one more.
-func estimateSteps(p *Project) int {
-	_, _, first, growth := stepping(p)
-	bps := breakpoints(p, endTime(p))
-	n, last := 0.0, 0.0
-	for _, b := range bps {
-		if b.kind&(bpRestart|bpJump) == 0 && b.t != bps[len(bps)-1].t {
-			n++
+	k.points = make([]soil.Point, ne)
+	k.curved = make([]bool, ne)
+	k.elogDrained = make([]float64, len(p.Layers))
+	k.drainedDelta = make([]float64, len(p.Layers))
+	warned := make([]bool, len(p.Layers))
+	for e := range ne {
+		_, z0, z1 := m.Span(e)
+		zc := (z0 + z1) / 2
+		s0 := math.Max(m.Centre(k.st.Effective, e), soil.MinEffective)
+		li := m.Layer[e]
+		l := &p.Layers[li]
+		k.points[e] = soil.NewPoint(soil.Curve{}, z1-z0, s0, s0)
+		if l.ECurve == nil {
 			continue
 		}
-		span := b.t - last
-		if span > 0 {
-			if growth > 1 {
-				n += math.Ceil(math.Log1p(span*(growth-1)/first) / math.Log(growth))
-			} else {
-				n += math.Ceil(span / first)
-			}
+		ec := l.ECurve
+		if ec.SigmaP > 0 && ec.SigmaP < s0 && !warned[li] {
+			warned[li] = true
+			k.warn(fmt.Sprintf("layers[%d].ecurve.sigmaP", li), fmt.Sprintf("σ'p = %g kPa is below the in-situ effective stress (%.3g kPa at %.3g m); taken as normally consolidated there", ec.SigmaP, s0, zc))
 		}
-		last = b.t
-		if n > math.MaxInt32 {
-			return math.MaxInt32
+		k.points[e] = soil.NewPoint(curveOf(ec), z1-z0, s0, soil.Preconsolidation(ec.SigmaP, ec.OCR, s0))
+		k.curved[e] = true
+	}
+	if !k.anyCurve {
+		return
+	}
+	final := append([]soil.Point(nil), k.points...)
+	stress := make([]float64, m.Nodes())
+	for _, b := range k.bps {
+		k.tr.stressAt(stress, b.t, false)
+		for e := range final {
+			if k.curved[e] {
+				final[e].MoveTo(final[e].S0 + m.Centre(stress, e) - m.Centre(k.uInf, e))
+			}
 		}
 	}
-	return int(n)
+	for e := range final {
+		if k.curved[e] {
+			d := m.Centre(k.sigInf, e) - m.Centre(k.uInf, e)
+			final[e].MoveTo(final[e].S0 + d)
+			k.elogDrained[m.Layer[e]] += final[e].Settlement()
+			k.drainedDelta[m.Layer[e]] += d * final[e].H
+		}
+	}
 }
 
-// bandThetaRHS sets dst = M (u + ds) − c·K u for symmetric band matrices M
-// and K of the same shape, in one pass over their storage. ds may be nil.
-func bandThetaRHS(dst, u, ds []float64, m, k *band, c float64) {
-	n, ld := m.n, m.kd+1
-	clear(dst[:n])
-	for i := range n {
-		mi, ki := m.ab[i*ld:i*ld+ld], k.ab[i*ld:i*ld+ld]
-		vi := u[i]
-		if ds != nil {
-			vi += ds[i]
+// curveOf is the soil package's view of a layer's e–log parameters.
+func curveOf(c *ECurve) soil.Curve { return soil.Curve{E0: c.E0, Cc: c.Cc, Cr: c.Cr} }
+
+// deriveMv sets mv per layer: as given, or the secant of the e–log curve
+// over the final stress change (the tangent at σ'0 when there is none),
+// and assembles the capacity matrix from it.
+func (k *consolidation) deriveMv() {
+	p, m := k.c.p, k.c.m
+	k.mv = make([]float64, len(p.Layers))
+	for i, l := range p.Layers {
+		k.mv[i] = l.Mv
+		if k.mv[i] > 0 {
+			continue
 		}
-		acc := mi[0]*vi - c*ki[0]*u[i]
-		for j := 1; j < ld && i+j < n; j++ {
-			vj := u[i+j]
-			if ds != nil {
-				vj += ds[i+j]
+		if k.drainedDelta[i] > 1e-9*l.Thickness && k.elogDrained[i] > 0 {
+			k.mv[i] = k.elogDrained[i] / k.drainedDelta[i]
+		} else {
+			zc := k.c.tops[i] + l.Thickness/2
+			s0 := math.Max(m.Interpolate(k.st.Effective, zc), soil.MinEffective)
+			ec := l.ECurve
+			k.mv[i] = soil.TangentMv(curveOf(ec), s0, soil.Preconsolidation(ec.SigmaP, ec.OCR, s0))
+		}
+		k.warn(fmt.Sprintf("layers[%d].mv", i), fmt.Sprintf("mv derived from the e–log curve: %.3g 1/kPa", k.mv[i]))
+	}
+	k.tr.setMv(k.mv)
+}
+
+// linearSummary fills cv and the linear final settlement of every layer.
+func (k *consolidation) linearSummary() {
+	p, r := k.c.p, k.r
+	r.Summary.Layers = make([]LayerSummary, len(p.Layers))
+	for i, l := range p.Layers {
+		ls := LayerSummary{Name: l.Name, Mv: k.mv[i], Cv: soil.Cv(l.K, k.mv[i], k.c.gw)}
+		r.Summary.Layers[i] = ls
+		r.Steady.Layers[i].Cv = ptr(ls.Cv)
+	}
+	sum := 0.0
+	for i, s := range k.tr.layerSettlement(k.sigInf, k.uInf) {
+		r.Summary.Layers[i].SettlementLinear = s
+		sum += s
+	}
+	r.Summary.SettlementLinear = ptr(sum)
+}
+
+// prepareSeries sizes every series for the steps the loop will take and
+// places the piezometers.
+func (k *consolidation) prepareSeries() *Consolidation {
+	p, m, tr := k.c.p, k.c.m, k.tr
+	res := &Consolidation{Depth: append([]float64(nil), m.Z...), Start: tr.startText()}
+	k.r.Consolidation = res
+	ser := &res.Series
+	k.probes = make([]probe, len(p.Piezometers))
+	for i, z := range p.Piezometers {
+		k.probes[i] = probe{at: m.ProbeAt(z), steady: m.Interpolate(k.st.Pore, z)}
+		ser.Piezometers = append(ser.Piezometers, Piezometer{Depth: z})
+	}
+	k.denS = dot(tr.wMass, k.sigInf) - dot(tr.wMass, k.uInf)
+	k.denP = dot(tr.wLength, k.sigInf) - dot(tr.wLength, k.uInf)
+	k.defined = math.Abs(k.denS) > 1e-12*math.Max(1, math.Abs(*k.r.Summary.SettlementLinear)) && len(tr.held) > 0
+	capacity := estimateSteps(p) + len(k.bps) + 2
+	ser.Time = make([]float64, 0, capacity)
+	ser.Load = make([]float64, 0, capacity)
+	ser.Settlement = make([]float64, 0, capacity)
+	if k.defined {
+		ser.Us = make([]float64, 0, capacity)
+		ser.Up = make([]float64, 0, capacity)
+	}
+	if k.allCurves {
+		ser.SettlementElog = make([]float64, 0, capacity)
+	}
+	for i := range ser.Piezometers {
+		ser.Piezometers[i].Pore = make([]float64, 0, capacity)
+		ser.Piezometers[i].Excess = make([]float64, 0, capacity)
+	}
+	// The effective stress is followed element by element where an e–log
+	// curve needs it, and where it may fall: under a load removal or a
+	// rising pressure at a drained end. Under loading alone σ' = σ'0 + σ − u
+	// cannot drop below σ'0, since u ≤ σ.
+	k.followStress = k.anyCurve
+	for _, l := range p.Loads {
+		k.followStress = k.followStress || l.Q < 0
+	}
+	for _, b := range []Boundary{p.Top, p.Bottom} {
+		for _, tv := range b.Excess {
+			k.followStress = k.followStress || tv.Value > 0
+		}
+	}
+	return res
+}
+
+// record appends the state at time t to the series. It allocates nothing
+// beyond the capacity prepareSeries gave.
+func (k *consolidation) record(ser *Series, t float64) {
+	p, m, tr := k.c.p, k.c.m, k.tr
+	ser.Time = append(ser.Time, t)
+	ser.Load = append(ser.Load, surcharge(p.Loads, t))
+	var sNow, pNow float64
+	for i, w := range tr.wMass {
+		d := tr.sigma[i] - tr.u[i]
+		sNow += w * d
+		pNow += tr.wLength[i] * d
+	}
+	ser.Settlement = append(ser.Settlement, sNow)
+	if k.defined {
+		ser.Us = append(ser.Us, sNow/k.denS)
+		ser.Up = append(ser.Up, pNow/k.denP)
+	}
+	if k.followStress {
+		total := 0.0
+		for e := range k.points {
+			s := &k.points[e]
+			to := s.S0 + m.Centre(tr.sigma, e) - m.Centre(tr.u, e)
+			if to < 0 && !k.negativeWarned {
+				k.negativeWarned = true
+				_, z0, z1 := m.Span(e)
+				k.warn("loads", fmt.Sprintf("the effective stress falls below zero at %.3g m near %.4g days: the soil would lose contact (heave); results there are not physical", (z0+z1)/2, t))
 			}
-			acc += mi[j]*vj - c*ki[j]*u[i+j]
-			dst[i+j] += mi[j]*vi - c*ki[j]*u[i]
+			if k.curved[e] {
+				s.MoveTo(to)
+				total += s.Settlement()
+			}
 		}
-		dst[i] += acc
+		if k.allCurves {
+			ser.SettlementElog = append(ser.SettlementElog, total)
+		}
+	}
+	for i := range k.probes {
+		pz := &k.probes[i]
+		ex := pz.at.Read(tr.u)
+		ser.Piezometers[i].Excess = append(ser.Piezometers[i].Excess, ex)
+		ser.Piezometers[i].Pore = append(ser.Piezometers[i].Pore, pz.steady+ex)
+	}
+}
+
+// march runs the time loop from 0 through every breakpoint: steps grow
+// geometrically from Stepping.FirstStep after each restart and land on
+// every breakpoint, instantaneous changes are applied between steps and
+// followed by the damped steps, and every step is recorded.
+func (k *consolidation) march() error {
+	tr := k.tr
+	res := k.prepareSeries()
+	ser := &res.Series
+	bps := k.bps
+	t, dt, damp := 0.0, tr.set.FirstStep, 0
+	tr.stressAt(tr.sigma, 0, true)
+	bi := 0
+	if bps[0].t == 0 {
+		if bps[0].kind&bpJump != 0 {
+			tr.jump(0)
+			damp = tr.set.DampedSteps
+		}
+		bi = 1
+	}
+	k.record(ser, 0)
+	end := bps[len(bps)-1].t
+	lastReport := 0
+	for bi < len(bps) {
+		target := bps[bi].t
+		h := math.Min(dt, target-t)
+		grown := h == dt
+		if rest := target - t - h; rest > 0 && rest < 0.25*dt {
+			h, grown = target-t, false
+		}
+		theta := tr.set.Theta
+		if damp > 0 {
+			theta = 1
+			damp--
+		}
+		if err := tr.step(theta, t, h); err != nil {
+			return err
+		}
+		k.steps++
+		if k.steps > MaxSteps {
+			var ps Problems
+			ps.Add("stepping.firstStep", ErrTooLarge, fmt.Sprintf("more than %d time steps; use a larger stepping.firstStep or stepping.growth", MaxSteps))
+			return ps
+		}
+		if grown {
+			dt *= tr.set.Growth
+		}
+		t += h
+		if t >= target-1e-12*math.Max(1, target) {
+			t = target
+			b := bps[bi]
+			bi++
+			if b.kind&bpJump != 0 {
+				tr.jump(t)
+				damp = tr.set.DampedSteps
+			}
+			if b.kind&(bpRestart|bpJump) != 0 {
+				dt = tr.set.FirstStep
+			}
+			if b.kind&bpOutput != 0 {
+				res.Isochrones = append(res.Isochrones, Isochrone{Time: t, Excess: append([]float64(nil), tr.u...)})
+			}
+		}
+		k.record(ser, t)
+		if tr.progress != nil && k.steps-lastReport >= 20 {
+			lastReport = k.steps
+			if !tr.progress(math.Log1p(t) / math.Log1p(end)) {
+				return ErrCanceled
+			}
+		}
+	}
+	k.r.Stats.Steps = k.steps
+	k.r.Stats.Factorizations = tr.stepper.Factorizations()
+	k.r.Stats.Scheme = res.Start
+	return nil
+}
+
+// elogSummary takes the final e–log settlement from the effective stress
+// the consolidation gave at every step, so that a surcharge removed early
+// counts only for the compression it caused.
+func (k *consolidation) elogSummary() {
+	p, m, r := k.c.p, k.c.m, k.r
+	layer := make([]float64, len(p.Layers))
+	for e := range k.points {
+		if k.curved[e] {
+			layer[m.Layer[e]] += k.points[e].Settlement()
+		}
+	}
+	sum := 0.0
+	for i, l := range p.Layers {
+		if l.ECurve != nil {
+			r.Summary.Layers[i].SettlementElog = ptr(layer[i])
+			sum += layer[i]
+		}
+	}
+	if k.allCurves {
+		r.Summary.SettlementElog = ptr(sum)
+	}
+}
+
+// degreeTimes finds t50, t90 and the time to the target degree, and warns
+// when consolidation is not complete at the end of the simulation.
+func (k *consolidation) degreeTimes() {
+	p, r := k.c.p, k.r
+	r.Summary.TargetDegree = ResolveTargetDegree(p)
+	r.Summary.DesignLife = ResolveDesignLife(p)
+	if !k.defined {
+		return
+	}
+	ser := &r.Consolidation.Series
+	r.Summary.T50 = crossing(ser.Time, ser.Us, 0.5)
+	r.Summary.T90 = crossing(ser.Time, ser.Us, 0.9)
+	r.Summary.TTarget = crossing(ser.Time, ser.Us, r.Summary.TargetDegree)
+	if u := ser.Us[len(ser.Us)-1]; math.Abs(u-1) > 0.01 {
+		k.warn("stepping.endTime", fmt.Sprintf("consolidation is %.1f %% complete at the end of the simulation (%.4g days)", 100*u, k.bps[len(k.bps)-1].t))
+	}
+}
+
+// endOfPrimary is the degree of consolidation taken as the end of primary
+// consolidation, where secondary compression starts.
+const endOfPrimary = 0.95
+
+// secondary estimates the secondary compression of every layer with a Cα
+// at the design life (Mesri 1973), from the time Us reaches endOfPrimary.
+func (k *consolidation) secondary() {
+	p, r := k.c.p, k.r
+	if !k.defined {
+		return
+	}
+	ser := &r.Consolidation.Series
+	tp := crossing(ser.Time, ser.Us, endOfPrimary)
+	sec, any := 0.0, false
+	for i, l := range p.Layers {
+		if l.Calpha <= 0 || l.ECurve == nil {
+			continue
+		}
+		any = true
+		if tp == nil {
+			continue
+		}
+		strain := r.Summary.Layers[i].SettlementLinear / l.Thickness
+		if s := r.Summary.Layers[i].SettlementElog; s != nil {
+			strain = *s / l.Thickness
+		}
+		ep := l.ECurve.E0 - strain*(1+l.ECurve.E0)
+		s := soil.Secondary(l.Calpha, l.Thickness, ep, r.Summary.DesignLife, *tp)
+		r.Summary.Layers[i].Secondary = ptr(s)
+		sec += s
+	}
+	if !any {
+		return
+	}
+	if tp == nil {
+		k.warn("designLife", "primary consolidation does not reach 95 % in the simulated time: no secondary compression estimate")
+		return
+	}
+	r.Summary.Secondary = ptr(sec)
+}
+
+// earlyTimes warns about output times before anything changes.
+func (k *consolidation) earlyTimes() {
+	first := math.Inf(1)
+	for _, b := range k.bps {
+		if b.kind&(bpJump|bpRestart) != 0 {
+			first = b.t
+			break
+		}
+	}
+	for i, t := range k.c.p.Times {
+		if t < first {
+			k.warn(fmt.Sprintf("times[%d]", i), fmt.Sprintf("%g days is before the first load or boundary change (%g days): its isochrone is zero", t, first))
+		}
+	}
+}
+
+// crossing returns the first time at which ys reaches y, interpolating
+// linearly in log time between samples (linearly from t = 0), or nil.
+func crossing(ts, ys []float64, y float64) *float64 {
+	for i := 1; i < len(ys); i++ {
+		if ys[i] >= y && ys[i-1] < y {
+			t0, t1 := ts[i-1], ts[i]
+			f := (y - ys[i-1]) / (ys[i] - ys[i-1])
+			if t0 <= 0 {
+				return ptr(t0 + f*(t1-t0))
+			}
+			return ptr(t0 * math.Pow(t1/t0, f))
+		}
+	}
+	return nil
+}
+
+// meshWarnings flags layers whose elements are too coarse to resolve the
+// isochrones at the first output time: the time for pressure to diffuse
+// across one element, h²/cv, exceeds it.
+func (c *column) meshWarnings(mv []float64, warn func(path, msg string)) {
+	p, m := c.p, c.m
+	if len(p.Times) == 0 {
+		return
+	}
+	t1 := p.Times[0]
+	for i, l := range p.Layers {
+		h := l.Thickness / float64(m.First[i+1]-m.First[i])
+		tres := h * h / soil.Cv(l.K, mv[i], c.gw)
+		if tres > t1 {
+			warn(fmt.Sprintf("layers[%d]", i), fmt.Sprintf("the mesh (elements of %.3g m) cannot resolve the pressure in %q before about %.3g days; the isochrone at %g days is coarse there; use a smaller mesh.maxSize", h, l.Name, tres, t1))
+		}
 	}
 }

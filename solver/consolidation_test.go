@@ -1,6 +1,8 @@
 package solver
 
 import (
+	"porelight/solver/soil"
+
 	"fmt"
 	"math"
 	"testing"
@@ -21,7 +23,7 @@ func uniformClay(h float64, bottomDrained bool) *Project {
 	}
 }
 
-var clayCv = cvPerDay(1e-9, 1e-3, 9.81) // m²/day
+var clayCv = soil.Cv(1e-9, 1e-3, 9.81) // m²/day
 
 // TestTerzaghiUniform compares the solver with default numerical settings
 // against Terzaghi's (1943) series for a uniform initial excess pressure
@@ -230,11 +232,11 @@ func TestConvergenceOrder(t *testing.T) {
 		var x, w [5]float64
 		quad.Legendre{}.FixedLocations(x[:], w[:], -1, 1)
 		sum := 0.0
-		for e := range c.m.elements() {
-			_, z0, z1 := c.m.span(e)
+		for e := range c.m.Elements() {
+			_, z0, z1 := c.m.Span(e)
 			for q := range x {
 				z := z0 + (x[q]+1)*(z1-z0)/2
-				d := c.m.interpolate(u, z) - 100*series.TerzaghiExcess(z/h, 0.2)
+				d := c.m.Interpolate(u, z) - 100*series.TerzaghiExcess(z/h, 0.2)
 				sum += d * d * w[q] * (z1 - z0) / 2
 			}
 		}

@@ -42,7 +42,7 @@ func FuzzDecodeSolve(f *testing.F) {
 		}
 		// Keep each run quick: large but valid projects are the
 		// benchmarks' business.
-		if elementCount(p) > 1000 || (hasConsolidation(p) && estimateSteps(p) > 2000) {
+		if elementCount(p) > 1000 || (HasConsolidation(p) && estimateSteps(p) > 2000) {
 			return
 		}
 		r, err := Solve(p, nil)

@@ -4,10 +4,6 @@ package solver
 // A file with another tag is refused by Decode rather than misread.
 const Format = "porelight/1"
 
-// DefaultGammaW is the unit weight of water used when a project leaves
-// gammaW out, in kN/m³ (common practice).
-const DefaultGammaW = 9.81
-
 // Project is one soil column with its groundwater, drainage, loading and
 // requested outputs. It is plain data: the JSON field names are the file
 // format (see the package documentation) and the zero value of every

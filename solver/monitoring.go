@@ -2,7 +2,6 @@ package solver
 
 import (
 	"fmt"
-	"math"
 	"time"
 )
 
@@ -13,12 +12,13 @@ const (
 	MaxReadings = 100_000 // readings in one record
 )
 
-// dateLayout is the calendar date of the file format: YYYY-MM-DD.
-const dateLayout = "2006-01-02"
+// DateLayout is the calendar date of the file format, YYYY-MM-DD, as a
+// time layout.
+const DateLayout = "2006-01-02"
 
 // parseDate reads a file-format date (YYYY-MM-DD, UTC midnight).
 func parseDate(s string) (time.Time, bool) {
-	t, err := time.Parse(dateLayout, s)
+	t, err := time.Parse(DateLayout, s)
 	return t, err == nil
 }
 
@@ -101,7 +101,7 @@ func (v *monitorCheck) readings(at string, rs []Reading) {
 			case v.startOK:
 				t = daysBetween(v.start, d)
 				if t < 0 {
-					ps.Add(path, ErrOutOfRange, fmt.Sprintf("%s is before day 0, monitoring.start = %s", r.Date, v.start.Format(dateLayout)))
+					ps.Add(path, ErrOutOfRange, fmt.Sprintf("%s is before day 0, monitoring.start = %s", r.Date, v.start.Format(DateLayout)))
 				} else {
 					ok = true
 				}
@@ -166,26 +166,4 @@ func ReadingTimes(m *Monitoring, rs []Reading) ([]float64, error) {
 		return nil, err
 	}
 	return ts, nil
-}
-
-// LastLoadChange returns the time, days, after which the loading of p no
-// longer changes: the end of the last load stage (start + ramp; the start
-// of an instantaneous one) or the last point of a pressure history at a
-// drained end, whichever is later. It is 0 for a project with neither.
-// Settlement readings after it follow consolidation under constant load,
-// which is what Asaoka's method assumes.
-func LastLoadChange(p *Project) float64 {
-	last := 0.0
-	for _, l := range p.Loads {
-		last = math.Max(last, l.Start+l.Ramp)
-	}
-	for _, b := range []Boundary{p.Top, p.Bottom} {
-		if !b.Drained {
-			continue
-		}
-		for _, tv := range b.Excess {
-			last = math.Max(last, tv.T)
-		}
-	}
-	return last
 }

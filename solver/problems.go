@@ -23,6 +23,11 @@ var (
 	ErrTooLarge    = errors.New("exceeds a limit")
 	ErrDate        = errors.New("is not a date (YYYY-MM-DD)")
 	ErrDuplicate   = errors.New("repeats the time of the reading before")
+	// ErrNumerical marks a project that passed validation but whose
+	// equations or results could not be computed in floating point (a
+	// matrix that is not positive definite, an output that is not
+	// finite). The path names the field most likely at fault.
+	ErrNumerical = errors.New("could not be computed")
 )
 
 // Problem is one thing wrong with a project: where (a field path such as
@@ -34,7 +39,14 @@ type Problem struct {
 	Err     error  `json:"-"`
 }
 
-func (p Problem) Error() string { return p.Path + ": " + p.Message }
+// Error is "path: message", or the message alone for a problem of the
+// whole project (an empty path).
+func (p Problem) Error() string {
+	if p.Path == "" {
+		return p.Message
+	}
+	return p.Path + ": " + p.Message
+}
 
 // Unwrap returns the reason, so errors.Is(p, ErrNotPositive) works.
 func (p Problem) Unwrap() error { return p.Err }

@@ -1,29 +1,26 @@
 package solver
 
 import (
+	"errors"
 	"fmt"
 	"math"
-)
 
-// secondsPerDay converts permeabilities in m/s to the m/day used in time
-// integration.
-const secondsPerDay = 86400
+	"porelight/solver/fem"
+	"porelight/solver/soil"
+)
 
 // column is a validated project with its defaults filled in and its mesh.
 type column struct {
 	p      *Project
 	gw     float64
-	m      *mesh
+	m      *fem.Mesh
 	height float64
 	tops   []float64 // depth of the top of each layer, plus the base
 }
 
 // newColumn fills in the defaults of a validated project and meshes it.
 func newColumn(p *Project) *column {
-	c := &column{p: p, gw: p.GammaW}
-	if c.gw == 0 {
-		c.gw = DefaultGammaW
-	}
+	c := &column{p: p, gw: ResolveGammaW(p)}
 	th := make([]float64, len(p.Layers))
 	c.tops = make([]float64, len(p.Layers)+1)
 	for i, l := range p.Layers {
@@ -31,8 +28,8 @@ func newColumn(p *Project) *column {
 		c.tops[i+1] = c.tops[i] + l.Thickness
 	}
 	c.height = c.tops[len(p.Layers)]
-	order, maxSize, minPer := meshSize(p)
-	c.m = newMesh(th, order, maxSize, minPer)
+	ms := ResolveMesh(p)
+	c.m = fem.NewMesh(th, ms.Order, ms.MaxSize, ms.MinPerLayer)
 	return c
 }
 
@@ -45,10 +42,12 @@ func newColumn(p *Project) *column {
 //	∫ k w' h' dz = w(0)·q_top + w(H)·q_bottom
 //
 // for every w that vanishes at drained ends, q being the inflow (Darcy
-// velocity into the column) at an undrained end.
-func (c *column) steady(warn func(path, msg string)) Steady {
+// velocity into the column) at an undrained end. A system that cannot be
+// factorised is returned as a Problem naming the depth (see
+// column.numerical); nothing is computed from a bad factor.
+func (c *column) steady(warn func(path, msg string)) (Steady, error) {
 	p, m := c.p, c.m
-	n := m.nodes()
+	n := m.Nodes()
 	h := make([]float64, n)
 	hydro := -p.WaterTable
 	switch {
@@ -60,8 +59,8 @@ func (c *column) steady(warn func(path, msg string)) Steady {
 		}
 		warn("", "neither end is drained: the steady state is taken as hydrostatic with the given water table")
 	default:
-		k := newBand(n, m.order)
-		m.assemble(k, func(e int, _ float64) float64 { return p.Layers[m.layer[e]].K }, false)
+		k := fem.NewBand(n, m.Order)
+		m.Assemble(k, func(e int, _ float64) float64 { return p.Layers[m.Layer[e]].K }, false)
 		lo, hi := 0, n
 		var held []int
 		if p.Top.Drained {
@@ -77,24 +76,21 @@ func (c *column) steady(warn func(path, msg string)) Steady {
 			h[n-1] += p.Bottom.Inflow
 		}
 		inflow := append([]float64(nil), h...) // right-hand side before the held ends move into it
-		dirichletRHS(h, k, h, held)
-		var f factor
-		err := factorize(&f, k, lo, hi)
-		if err != nil {
-			warn("layers", err.Error())
+		fem.MoveHeld(h, k, h, held)
+		var f fem.Factor
+		if err := fem.Factorize(&f, k, lo, hi); err != nil {
+			return Steady{}, c.numerical(err, "the steady seepage equations")
 		}
-		f.solve(h)
-		if err == nil {
-			refineHeads(h, inflow, k, &f, lo, hi)
-		}
+		f.Solve(h)
+		fem.Refine(h, inflow, k, &f, lo, hi)
 	}
 
-	s := Steady{Depth: append([]float64(nil), m.z...), Head: h}
+	s := Steady{Depth: append([]float64(nil), m.Z...), Head: h}
 	s.Pore = make([]float64, n)
 	s.Total = make([]float64, n)
 	s.Effective = make([]float64, n)
 	suction, negative := -1.0, -1.0
-	for i, z := range m.z {
+	for i, z := range m.Z {
 		u := c.gw * (h[i] + z)
 		s.Pore[i] = u
 		s.Total[i] = c.totalStress(z)
@@ -120,7 +116,7 @@ func (c *column) steady(warn func(path, msg string)) Steady {
 	sumHk := 0.0
 	for i, l := range p.Layers {
 		top, bot := c.tops[i], c.tops[i+1]
-		ht, hb := h[m.order*m.first[i]], h[m.order*m.first[i+1]]
+		ht, hb := h[m.Order*m.First[i]], h[m.Order*m.First[i+1]]
 		sumHk += l.Thickness / l.K
 		flux := -l.K * (hb - ht) / l.Thickness // Darcy velocity, down positive
 		sl := SteadyLayer{
@@ -134,13 +130,13 @@ func (c *column) steady(warn func(path, msg string)) Steady {
 			sl.HeaveFactor = ptr(sl.CriticalGradient / sl.Gradient)
 		}
 		if l.Mv > 0 {
-			sl.Cv = ptr(cvPerDay(l.K, l.Mv, c.gw))
+			sl.Cv = ptr(soil.Cv(l.K, l.Mv, c.gw))
 		}
 		s.Layers = append(s.Layers, sl)
 		s.Flux += flux * l.Thickness / c.height
 
 		if i+1 < len(p.Layers) && l.K*100 <= p.Layers[i+1].K {
-			j := m.order * m.first[i+1]
+			j := m.Order * m.First[i+1]
 			uc := UpliftCheck{Layer: i, Depth: bot, Total: s.Total[j], Pore: s.Pore[j]}
 			if uc.Pore > 0 {
 				uc.Factor = ptr(uc.Total / uc.Pore)
@@ -149,50 +145,7 @@ func (c *column) steady(warn func(path, msg string)) Steady {
 		}
 	}
 	s.KEquivalent = c.height / sumHk
-	return s
-}
-
-// maxRefine is the most steps of iterative refinement refineHeads takes.
-const maxRefine = 3
-
-// refineHeads improves the heads h of K h = rhs by iterative refinement
-// (Wilkinson 1963), reusing the factor f of the free rows lo … hi-1. The
-// held rows of rhs are ignored and those of h stay as they are.
-//
-// The factorisation computes its pivots as differences of conductances
-// k/Δz, and where a permeable layer lies beside a much less permeable one
-// the difference that carries the resistance of the tight layer is lost
-// to rounding: with a contrast of 1e5 the heads, and so the layer fluxes,
-// come out with relative errors near 1e-7. The residual is therefore
-// computed in flux form, rᵢ = rhsᵢ − Σⱼ Kᵢⱼ (hⱼ − hᵢ) over j ≠ i, which
-// equals rhs − K h because every row of a stiffness matrix sums to zero;
-// the head differences are exact where heads are close, so the residual
-// is accurate element by element and each step shrinks the error by the
-// factor's relative accuracy. O(n·kd) per step.
-func refineHeads(h, rhs []float64, a *band, f *factor, lo, hi int) {
-	r := make([]float64, len(h))
-	for range maxRefine {
-		for i := lo; i < hi; i++ {
-			s := rhs[i]
-			for j := max(i-a.kd, 0); j <= min(i+a.kd, a.n-1); j++ {
-				if j != i {
-					s -= a.at(i, j) * (h[j] - h[i])
-				}
-			}
-			r[i] = s
-		}
-		f.solve(r)
-		done := true
-		for i := lo; i < hi; i++ {
-			h[i] += r[i]
-			if math.Abs(r[i]) > 1e-15*math.Abs(h[i]) {
-				done = false
-			}
-		}
-		if done {
-			return
-		}
-	}
+	return s, nil
 }
 
 // totalStress is the vertical total stress at depth z before loading, kPa:
@@ -219,9 +172,6 @@ func (c *column) totalStress(z float64) float64 {
 	return s
 }
 
-// cvPerDay is the coefficient of consolidation k/(mv γw) in m²/day.
-func cvPerDay(k, mv, gw float64) float64 { return k * secondsPerDay / (mv * gw) }
-
 func headOr(h *float64, def float64) float64 {
 	if h != nil {
 		return *h
@@ -230,3 +180,37 @@ func headOr(h *float64, def float64) float64 {
 }
 
 func ptr(v float64) *float64 { return &v }
+
+// numerical turns a failure of the finite element core into a Problem
+// naming the layer and depth where it happened; what says which equations
+// failed. Any other error is returned as it is.
+func (c *column) numerical(err error, what string) error {
+	var nd *fem.NotDefiniteError
+	if !errors.As(err, &nd) {
+		return err
+	}
+	z := c.m.Z[min(max(nd.Node, 0), c.m.Nodes()-1)]
+	layer := c.layerAt(z)
+	var ps Problems
+	ps.Add(fmt.Sprintf("layers[%d].k", layer), ErrNumerical,
+		fmt.Sprintf("%s cannot be solved at %.4g m depth (in layer %d%s): the matrix is not positive definite there; check k and mv of the layers near that depth for values that are extreme for soil", what, z, layer+1, quoted(c.p.Layers[layer].Name)))
+	return ps
+}
+
+// layerAt is the index of the layer that contains depth z (the upper one
+// at a boundary).
+func (c *column) layerAt(z float64) int {
+	for i := range c.p.Layers {
+		if z <= c.tops[i+1] {
+			return i
+		}
+	}
+	return len(c.p.Layers) - 1
+}
+
+func quoted(name string) string {
+	if name == "" {
+		return ""
+	}
+	return fmt.Sprintf(", %q", name)
+}

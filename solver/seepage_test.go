@@ -7,7 +7,7 @@ import (
 	"strings"
 	"testing"
 
-	"gonum.org/v1/gonum/integrate/quad"
+	"porelight/solver/fem"
 )
 
 // Tests of steady seepage: the equivalent permeability and the single flux
@@ -244,55 +244,6 @@ func TestSeepageFluxContinuity(t *testing.T) {
 	}
 }
 
-// The factorisation loses the resistance of a tight layer to rounding when
-// a much more permeable layer lies beside it; refineHeads recovers it. This
-// solves the same column with the internal core with and without the
-// refinement and checks that the layer fluxes improve by at least 100
-// times and then meet the tolerance of TestSeepageFluxContinuity (1e-6 for
-// a contrast of 1e8, closed form as there; Darcy 1856).
-func TestRefineHeadsHelps(t *testing.T) {
-	t.Parallel()
-	th := []float64{2, 3, 1.5, 0.7}
-	k := []float64{1e-9, 1e-1, 1e-9, 1e-1} // contrast 1e8
-	m := newMesh(th, 1, 0.01, 4)
-	n := m.nodes()
-	a := newBand(n, 1)
-	m.assemble(a, func(e int, _ float64) float64 { return k[m.layer[e]] }, false)
-	ht, hb := -1.3, 5.7
-	r := 0.0
-	for i := range th {
-		r += th[i] / k[i]
-	}
-	q := (ht - hb) / r
-	worst := func(h []float64) float64 {
-		w := 0.0
-		for l := range th {
-			top, bot := h[m.first[l]], h[m.first[l+1]]
-			w = max(w, spRelErr(-k[l]*(bot-top)/th[l], q))
-		}
-		return w
-	}
-	h := make([]float64, n)
-	h[0], h[n-1] = ht, hb
-	rhs := slices.Clone(h)
-	dirichletRHS(h, a, h, []int{0, n - 1})
-	var f factor
-	if err := factorize(&f, a, 1, n-1); err != nil {
-		t.Fatal(err)
-	}
-	f.solve(h)
-	plain := worst(h)
-	refineHeads(h, rhs, a, &f, 1, n-1)
-	refined := worst(h)
-	t.Logf("largest relative layer flux error: %.2g without refinement, %.2g with", plain, refined)
-	if refined > 1e-6 || refined*100 > plain {
-		t.Errorf("refinement took the flux error from %.2g to %.2g; want ≤ 1e-6 and 100 times smaller", plain, refined)
-	}
-	if h[0] != ht || h[n-1] != hb {
-		t.Errorf("refinement moved the held heads to %g, %g; want %g, %g", h[0], h[n-1], ht, hb)
-	}
-}
-
 // Property check on random columns (fixed seed, testlapack style): the
 // residual of the finite element equations, K h − f at the free nodes,
 // normalised componentwise by Σⱼ|Kᵢⱼ||hⱼ| + |fᵢ|, is at rounding level
@@ -315,22 +266,22 @@ func TestSeepageRandomColumns(t *testing.T) {
 		}
 		s := spSolve(t, p).Steady
 		c := newColumn(p)
-		kb := newBand(c.m.nodes(), order)
-		c.m.assemble(kb, func(e int, _ float64) float64 { return p.Layers[c.m.layer[e]].K }, false)
-		n := c.m.nodes()
+		kb := fem.NewBand(c.m.Nodes(), order)
+		c.m.Assemble(kb, func(e int, _ float64) float64 { return p.Layers[c.m.Layer[e]].K }, false)
+		n := c.m.Nodes()
 		lo, hi := 1, n-1
 		if !p.Bottom.Drained {
 			hi = n
 		}
 		kh := make([]float64, n)
-		kb.mulVec(kh, s.Head)
+		kb.MulVec(kh, s.Head)
 		for i := lo; i < hi; i++ {
 			f, scale := 0.0, 0.0
 			if i == n-1 {
 				f = p.Bottom.Inflow
 			}
 			for j := max(i-order, 0); j <= min(i+order, n-1); j++ {
-				scale += math.Abs(kb.at(i, j) * s.Head[j])
+				scale += math.Abs(kb.At(i, j) * s.Head[j])
 			}
 			scale += math.Abs(f)
 			if res := math.Abs(kh[i]-f) / scale; res > 64*spEps {
@@ -672,25 +623,25 @@ func TestMesh(t *testing.T) {
 	for _, tc := range cases {
 		t.Run(tc.name, func(t *testing.T) {
 			t.Parallel()
-			m := newMesh(tc.th, tc.order, tc.maxSize, tc.minPer)
-			if tc.want >= 0 && m.elements() != tc.want {
-				t.Errorf("%d elements, want %d", m.elements(), tc.want)
+			m := fem.NewMesh(tc.th, tc.order, tc.maxSize, tc.minPer)
+			if tc.want >= 0 && m.Elements() != tc.want {
+				t.Errorf("%d elements, want %d", m.Elements(), tc.want)
 			}
-			if m.nodes() != tc.order*m.elements()+1 {
-				t.Errorf("%d nodes for %d elements of order %d", m.nodes(), m.elements(), tc.order)
+			if m.Nodes() != tc.order*m.Elements()+1 {
+				t.Errorf("%d nodes for %d elements of order %d", m.Nodes(), m.Elements(), tc.order)
 			}
 			layers := make([]Layer, len(tc.th))
 			for i, h := range tc.th {
 				layers[i] = spLayer(h, 1e-6)
 			}
 			p := &Project{Layers: layers, Mesh: MeshSettings{Order: tc.order, MaxSize: tc.maxSize, MinPerLayer: tc.minPer}}
-			if n := elementCount(p); n != m.elements() {
-				t.Errorf("elementCount = %d, the mesh has %d", n, m.elements())
+			if n := elementCount(p); n != m.Elements() {
+				t.Errorf("elementCount = %d, the mesh has %d", n, m.Elements())
 			}
 			top := 0.0
 			for l, h := range tc.th {
-				first, last := m.first[l], m.first[l+1]
-				if got := m.z[tc.order*first]; got != top {
+				first, last := m.First[l], m.First[l+1]
+				if got := m.Z[tc.order*first]; got != top {
 					t.Errorf("layer %d top node at %.17g, want %.17g", l, got, top)
 				}
 				ne := last - first
@@ -701,18 +652,18 @@ func TestMesh(t *testing.T) {
 					t.Errorf("layer %d has %d elements; %d would do", l, ne, ne-1)
 				}
 				for e := first; e < last; e++ {
-					if m.layer[e] != l {
-						t.Fatalf("element %d in layer %d, want %d", e, m.layer[e], l)
+					if m.Layer[e] != l {
+						t.Fatalf("element %d in layer %d, want %d", e, m.Layer[e], l)
 					}
-					n0, z0, z1 := m.span(e)
+					n0, z0, z1 := m.Span(e)
 					if z1-z0 > tc.maxSize*(1+1e-9) {
 						t.Fatalf("element %d is %g m long > maxSize %g", e, z1-z0, tc.maxSize)
 					}
 					if math.Abs((z1-z0)-h/float64(ne)) > 1e-12*h {
 						t.Fatalf("element %d is %.17g m long, the layer's spacing is %.17g", e, z1-z0, h/float64(ne))
 					}
-					if tc.order == 2 && math.Abs(m.z[n0+1]-(z0+z1)/2) > 1e-12*h {
-						t.Fatalf("element %d middle node at %.17g, centre %.17g", e, m.z[n0+1], (z0+z1)/2)
+					if tc.order == 2 && math.Abs(m.Z[n0+1]-(z0+z1)/2) > 1e-12*h {
+						t.Fatalf("element %d middle node at %.17g, centre %.17g", e, m.Z[n0+1], (z0+z1)/2)
 					}
 					if !(z1 > z0) {
 						t.Fatalf("element %d has ends %g, %g", e, z0, z1)
@@ -720,18 +671,18 @@ func TestMesh(t *testing.T) {
 				}
 				top += h
 			}
-			if got := m.z[len(m.z)-1]; got != top {
+			if got := m.Z[len(m.Z)-1]; got != top {
 				t.Errorf("base node at %.17g, want %.17g", got, top)
 			}
 			// interpolate reproduces a linear field exactly (rounding),
 			// including at nodes, ends and outside the column (clamped).
-			u := make([]float64, m.nodes())
-			for i, z := range m.z {
+			u := make([]float64, m.Nodes())
+			for i, z := range m.Z {
 				u[i] = 2 - 3*z
 			}
 			for _, z := range []float64{-1, 0, top / 3, top / 2, 0.999 * top, top, top + 1} {
 				zc := min(max(z, 0), top)
-				if got := m.interpolate(u, z); math.Abs(got-(2-3*zc)) > 1e-12*(2+3*top) {
+				if got := m.Interpolate(u, z); math.Abs(got-(2-3*zc)) > 1e-12*(2+3*top) {
 					t.Errorf("interpolate at %g = %.15g, want %.15g", z, got, 2-3*zc)
 				}
 			}
@@ -744,120 +695,11 @@ func TestMesh(t *testing.T) {
 func TestMeshDefaults(t *testing.T) {
 	t.Parallel()
 	p := &Project{Layers: []Layer{spLayer(0.1, 1e-6), spLayer(9.9, 1e-6)}}
-	order, maxSize, minPer := meshSize(p)
-	if order != 1 || maxSize != 10.0/200 || minPer != 4 {
+	ms := ResolveMesh(p)
+	if order, maxSize, minPer := ms.Order, ms.MaxSize, ms.MinPerLayer; order != 1 || maxSize != 10.0/200 || minPer != 4 {
 		t.Errorf("defaults (%d, %g, %d), want (1, 0.05, 4)", order, maxSize, minPer)
 	}
 	if n := elementCount(p); n != 4+198 {
 		t.Errorf("default mesh has %d elements, want 4 + 198", n)
 	}
-}
-
-// Manufactured solution with variable k, for the observed order of
-// convergence of the finite element core (Strang & Fix 1973; Hughes 2000):
-// on [0, 2], split into layers of 0.8 and 1.2 m,
-//
-//	k(z) = 1 + z²,  h(z) = sin z,
-//	f = −(k h')' = −(2z cos z − (1 + z²) sin z) = (1 + z²) sin z − 2z cos z.
-//
-// The L2 error ‖h − h_FE‖ is integrated with 8 Gauss points per element
-// (more than the elements' own 2 or 3) and its order fitted by least
-// squares in log–log over four nested meshes, h = 0.2, 0.1, 0.05, 0.025 m
-// in both layers (meshes that do not halve every element mix two error
-// constants and blur the order). Linear elements must show
-// 2 ± 0.15 and quadratic 3 ± 0.15. The boundary conditions are a fixed
-// head at both ends, or a fixed head at one end and the flux k h' at the
-// other (natural condition, weak form in doc.go).
-func TestFEConvergence(t *testing.T) {
-	t.Parallel()
-	const length = 2.0
-	kf := func(z float64) float64 { return 1 + z*z }
-	exact := func(z float64) float64 { return math.Sin(z) }
-	dexact := func(z float64) float64 { return math.Cos(z) }
-	src := func(z float64) float64 { return (1+z*z)*math.Sin(z) - 2*z*math.Cos(z) }
-	cases := []struct {
-		name             string
-		order            int
-		heldTop, heldBot bool
-	}{
-		{"linear, heads at both ends", 1, true, true},
-		{"linear, head at top, flux at base", 1, true, false},
-		{"linear, flux at top, head at base", 1, false, true},
-		{"quadratic, heads at both ends", 2, true, true},
-		{"quadratic, head at top, flux at base", 2, true, false},
-		{"quadratic, flux at top, head at base", 2, false, true},
-	}
-	gx, gw := make([]float64, 8), make([]float64, 8)
-	quad.Legendre{}.FixedLocations(gx, gw, -1, 1)
-	for _, tc := range cases {
-		t.Run(tc.name, func(t *testing.T) {
-			t.Parallel()
-			var lh, le []float64
-			for _, size := range []float64{0.2, 0.1, 0.05, 0.025} {
-				m := newMesh([]float64{0.8, 1.2}, tc.order, size, 1)
-				n := m.nodes()
-				a := newBand(n, tc.order)
-				m.assemble(a, func(_ int, z float64) float64 { return kf(z) }, false)
-				x := make([]float64, n)
-				m.load(x, src)
-				var held []int
-				lo, hi := 0, n
-				if tc.heldTop {
-					x[0], held, lo = exact(0), append(held, 0), 1
-				} else {
-					x[0] += -kf(0) * dexact(0) // inflow at the top: −k h'(0)
-				}
-				if tc.heldBot {
-					x[n-1], held, hi = exact(length), append(held, n-1), n-1
-				} else {
-					x[n-1] += kf(length) * dexact(length) // inflow at the base: k h'(H)
-				}
-				dirichletRHS(x, a, x, held)
-				var f factor
-				if err := factorize(&f, a, lo, hi); err != nil {
-					t.Fatal(err)
-				}
-				f.solve(x)
-				// L2 error by 8-point Gauss quadrature on every element.
-				sum, hmax := 0.0, 0.0
-				var nn, dn [3]float64
-				for e := range m.elements() {
-					n0, z0, z1 := m.span(e)
-					jac := (z1 - z0) / 2
-					hmax = max(hmax, z1-z0)
-					for q, xi := range gx {
-						lagrange(tc.order, xi, nn[:], dn[:])
-						fe := 0.0
-						for b := 0; b <= tc.order; b++ {
-							fe += nn[b] * x[n0+b]
-						}
-						d := fe - exact(z0+(xi+1)*jac)
-						sum += gw[q] * jac * d * d
-					}
-				}
-				lh, le = append(lh, math.Log(hmax)), append(le, math.Log(math.Sqrt(sum)))
-			}
-			// Least-squares slope of log e against log h.
-			mh, me := spMean(lh), spMean(le)
-			num, den := 0.0, 0.0
-			for i := range lh {
-				num += (lh[i] - mh) * (le[i] - me)
-				den += (lh[i] - mh) * (lh[i] - mh)
-			}
-			rate := num / den
-			want := float64(tc.order + 1)
-			t.Logf("observed L2 order %.3f (errors %.3g … %.3g)", rate, math.Exp(le[0]), math.Exp(le[len(le)-1]))
-			if math.Abs(rate-want) > 0.15 {
-				t.Errorf("observed L2 order %.3f, want %g ± 0.15 (Strang & Fix 1973)", rate, want)
-			}
-		})
-	}
-}
-
-func spMean(x []float64) float64 {
-	s := 0.0
-	for _, v := range x {
-		s += v
-	}
-	return s / float64(len(x))
 }

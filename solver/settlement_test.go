@@ -5,41 +5,6 @@ import (
 	"testing"
 )
 
-// TestCompress checks the e–log σ' path against the compression index
-// formulas of Terzaghi & Peck (1967): s = C·H/(1+e0)·log10(σ'b/σ'a) with
-// Cr below the preconsolidation stress and Cc beyond it, Cr on unloading.
-func TestCompress(t *testing.T) {
-	t.Parallel()
-	c := &ECurve{E0: 1.2, Cc: 0.45, Cr: 0.05}
-	tests := []struct {
-		name           string
-		from, to, peak float64
-		want, wantPeak float64 // Δe and the largest stress afterwards
-	}{
-		// Hand-worked: 0.05·log10(60/40) + 0.45·log10(100/60)
-		// = 0.05·0.176091 + 0.45·0.221849 = 0.0088046 + 0.0998320.
-		{"crossing σ'p", 40, 100, 60, 0.1086366, 100},
-		// Normally consolidated: 0.45·log10(2) = 0.1354634.
-		{"virgin", 50, 100, 50, 0.1354634, 100},
-		// Recompression only: 0.05·log10(55/40) = 0.0069152.
-		{"below σ'p", 40, 55, 60, 0.0069152, 60},
-		// Unloading swells along Cr: −0.05·log10(100/70) = −0.0077451.
-		{"unloading", 100, 70, 100, -0.0077451, 100},
-		{"no change", 40, 40, 60, 0, 60},
-	}
-	for _, tt := range tests {
-		t.Run(tt.name, func(t *testing.T) {
-			t.Parallel()
-			de, peak := compress(c, tt.from, tt.to, tt.peak)
-			// Tolerance 1e-7: the hand values are rounded to 7 decimals.
-			if math.Abs(de-tt.want) > 1e-7 || peak != tt.wantPeak {
-				t.Errorf("compress(%g→%g, peak %g) = %.7f, %g; want %.7f, %g (Terzaghi & Peck 1967, hand-worked, ±1e-7)",
-					tt.from, tt.to, tt.peak, de, peak, tt.want, tt.wantPeak)
-			}
-		})
-	}
-}
-
 // elogColumn is a thin clay layer at 4 m under sand with γ' = 10 kN/m³, so
 // that the clay's in-situ effective stress is 40 kPa at its centre.
 func elogColumn(loads []Load) *Project {
@@ -114,24 +79,5 @@ func TestElogSettlement(t *testing.T) {
 				t.Errorf("e–log series ends at %.7f m, want %.7f m (±0.02 %%)", last, tt.elog)
 			}
 		})
-	}
-}
-
-// TestSublayerFollowsCompress: the log-space path of a sublayer equals the
-// compress formula (Terzaghi & Peck 1967) step by step, through loading
-// across σ'p, unloading, reloading and past the old peak (±1e-12).
-func TestSublayerFollowsCompress(t *testing.T) {
-	t.Parallel()
-	c := &ECurve{E0: 1.2, Cc: 0.45, Cr: 0.05}
-	s := sublayer{curve: c, h: 1, s0: 40, sig: 40, peak: 60}
-	sig, peak, want := 40.0, 60.0, 0.0
-	for _, to := range []float64{45, 55, 60, 80, 100, 100, 70, 50, 90, 120, 0.01, 30} {
-		de, p := compress(c, sig, to, peak)
-		want += de
-		sig, peak = max(to, minEffective), p
-		s.moveTo(to)
-		if math.Abs(s.de-want) > 1e-12 {
-			t.Fatalf("after moving to %g kPa: Δe = %.15f, compress gives %.15f", to, s.de, want)
-		}
 	}
 }

@@ -1,6 +1,12 @@
 package solver
 
-import "errors"
+import (
+	"errors"
+	"fmt"
+	"math"
+	"reflect"
+	"strings"
+)
 
 // ErrCanceled is returned by Solve when Options.Progress asks it to stop.
 var ErrCanceled = errors.New("solve canceled")
@@ -16,8 +22,13 @@ type Options struct {
 }
 
 // Solve validates p and computes the steady seepage state and, when the
-// project has loads, the consolidation and settlement results. A project
-// that fails validation returns its Problems; Solve does not change p.
+// project has loads, the consolidation and settlement results. Solve does
+// not change p.
+//
+// Every error but ErrCanceled is a Problems list: the validation problems
+// of p, or a problem with reason ErrNumerical when the equations cannot be
+// factorised (naming the layer and depth) or an output is not finite. A
+// Result that is returned holds only finite numbers.
 func Solve(p *Project, opt *Options) (*Result, error) {
 	if err := Validate(p); err != nil {
 		return nil, err
@@ -26,10 +37,14 @@ func Solve(p *Project, opt *Options) (*Result, error) {
 	r := &Result{Warnings: []Warning{}}
 	warn := func(path, msg string) { r.Warnings = append(r.Warnings, Warning{Path: path, Message: msg}) }
 	oddValues(p, warn)
-	r.Steady = c.steady(warn)
-	r.Stats = Stats{Nodes: c.m.nodes(), Elements: c.m.elements(), Order: c.m.order}
+	st, err := c.steady(warn)
+	if err != nil {
+		return nil, err
+	}
+	r.Steady = st
+	r.Stats = Stats{Nodes: c.m.Nodes(), Elements: c.m.Elements(), Order: c.m.Order}
 	r.Summary.Flux = r.Steady.Flux
-	if hasConsolidation(p) {
+	if HasConsolidation(p) {
 		if err := c.consolidate(&r.Steady, r, opt, warn); err != nil {
 			return nil, err
 		}
@@ -39,5 +54,51 @@ func Solve(p *Project, opt *Options) (*Result, error) {
 			r.Summary.MinHeaveFactor = ptr(*l.HeaveFactor)
 		}
 	}
+	if path, v, ok := firstNonFinite(reflect.ValueOf(r).Elem(), ""); ok {
+		var ps Problems
+		ps.Add("", ErrNumerical, fmt.Sprintf("the result %s came out as %g; the inputs are legal but too extreme for floating point — look for unit weights, permeabilities or loads far outside the range of soils", path, v))
+		return nil, ps
+	}
 	return r, nil
+}
+
+// firstNonFinite walks v (a Result or a part of it) and returns the JSON
+// path of its first NaN or ±Inf float, with the value. O(size of v).
+func firstNonFinite(v reflect.Value, path string) (string, float64, bool) {
+	switch v.Kind() {
+	case reflect.Float64:
+		if f := v.Float(); math.IsNaN(f) || math.IsInf(f, 0) {
+			return path, f, true
+		}
+	case reflect.Pointer:
+		if !v.IsNil() {
+			return firstNonFinite(v.Elem(), path)
+		}
+	case reflect.Struct:
+		t := v.Type()
+		for i := range t.NumField() {
+			name, _, _ := strings.Cut(t.Field(i).Tag.Get("json"), ",")
+			if name == "" || name == "-" {
+				continue
+			}
+			if p, f, ok := firstNonFinite(v.Field(i), join(path, name)); ok {
+				return p, f, true
+			}
+		}
+	case reflect.Slice:
+		if xs, ok := v.Interface().([]float64); ok {
+			for i, f := range xs {
+				if math.IsNaN(f) || math.IsInf(f, 0) {
+					return fmt.Sprintf("%s[%d]", path, i), f, true
+				}
+			}
+			return "", 0, false
+		}
+		for i := range v.Len() {
+			if p, f, ok := firstNonFinite(v.Index(i), fmt.Sprintf("%s[%d]", path, i)); ok {
+				return p, f, true
+			}
+		}
+	}
+	return "", 0, false
 }

@@ -3,6 +3,8 @@ package solver
 import (
 	"fmt"
 	"math"
+
+	"porelight/solver/soil"
 )
 
 // Limits that keep one solve within what a browser tab can do.
@@ -39,11 +41,9 @@ func Validate(p *Project) error {
 			}
 		}
 	}
-	gw := p.GammaW
+	gw := ResolveGammaW(p)
 	if p.GammaW != 0 {
 		positive(&ps, "gammaW", p.GammaW)
-	} else {
-		gw = DefaultGammaW
 	}
 	finite(&ps, "waterTable", p.WaterTable)
 
@@ -179,7 +179,7 @@ func Validate(p *Project) error {
 	if s.EndTime != 0 {
 		positive(&ps, "stepping.endTime", s.EndTime)
 	}
-	if len(ps) == 0 && hasConsolidation(p) {
+	if len(ps) == 0 && HasConsolidation(p) {
 		steps := estimateSteps(p)
 		nodes := elementCount(p)*max(p.Mesh.Order, 1) + 1
 		switch {
@@ -270,18 +270,15 @@ const (
 // permeability outside 1e-13 … 1 m/s, a fine-grained layer's cv outside
 // 0.01 … 1000 m²/year, and a layer thinner than the mesh's element size.
 func oddValues(p *Project, warn func(path, msg string)) {
-	gw := p.GammaW
-	if gw == 0 {
-		gw = DefaultGammaW
-	}
-	_, maxSize, _ := meshSize(p)
+	gw := ResolveGammaW(p)
+	maxSize := ResolveMesh(p).MaxSize
 	for i, l := range p.Layers {
 		at := fmt.Sprintf("layers[%d]", i)
 		if l.K < typicalKMin || l.K > typicalKMax {
 			warn(at+".k", fmt.Sprintf("k = %g m/s is outside the usual range of soils (%g to %g m/s)", l.K, typicalKMin, typicalKMax))
 		}
 		if l.Mv > 0 && l.K < 1e-7 {
-			cv := cvPerDay(l.K, l.Mv, gw) * 365.25
+			cv := soil.Cv(l.K, l.Mv, gw) * DaysPerYear
 			if cv < typicalCvMin || cv > typicalCvMax {
 				warn(at+".mv", fmt.Sprintf("cv = k/(mv γw) = %.3g m²/year is outside the usual range of fine-grained soils (%g to %g m²/year); check k and mv", cv, typicalCvMin, typicalCvMax))
 			}

@@ -30,6 +30,7 @@ import (
 	"github.com/chromedp/chromedp"
 
 	"porelight/solver"
+	"porelight/solver/monitor"
 )
 
 const pagePath = "build/porelight.html"
@@ -620,7 +621,7 @@ func TestE2EMonitoring(t *testing.T) {
 	if p.Monitoring == nil || len(p.Monitoring.Plates) < 2 {
 		t.Fatal("the demo has no settlement plates")
 	}
-	want, err := solver.PlateAsaoka(p, 0, 0)
+	want, err := monitor.PlateAsaoka(p, 0, 0)
 	if err != nil {
 		t.Fatalf("Asaoka natively: %v", err)
 	}

@@ -5,9 +5,9 @@ import (
 	"math"
 	"strconv"
 
-	"github.com/vugu/vugu"
+	"porelight/solver/monitor"
 
-	"porelight/solver"
+	"github.com/vugu/vugu"
 )
 
 // Backfit is the back-analysis panel: which layers' k (and whether the
@@ -39,9 +39,9 @@ func (c *Backfit) setScale(e vugu.DOMEvent) { c.S.scale = e.PropBool("target", "
 // dataValue and setData map the record choice to the select's values.
 func (c *Backfit) dataValue() string {
 	switch c.S.data {
-	case solver.FitSettlements:
+	case monitor.FitSettlements:
 		return "plates"
-	case solver.FitPressures:
+	case monitor.FitPressures:
 		return "piezometers"
 	}
 	return "all"
@@ -50,11 +50,11 @@ func (c *Backfit) dataValue() string {
 func (c *Backfit) setData(e vugu.DOMEvent) {
 	switch e.PropString("target", "value") {
 	case "plates":
-		c.S.data = solver.FitSettlements
+		c.S.data = monitor.FitSettlements
 	case "piezometers":
-		c.S.data = solver.FitPressures
+		c.S.data = monitor.FitPressures
 	default:
-		c.S.data = solver.FitAll
+		c.S.data = monitor.FitAll
 	}
 }
 

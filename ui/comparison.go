@@ -8,6 +8,7 @@ import (
 	"github.com/vugu/vugu"
 
 	"porelight/solver"
+	"porelight/solver/monitor"
 	"porelight/ui/plot"
 )
 
@@ -228,12 +229,12 @@ func (c *Comparison) fromHint() string {
 type asaoka struct {
 	I        int
 	ID, Name string
-	Res      *solver.AsaokaResult
+	Res      *monitor.AsaokaResult
 	Refusal  string
 }
 
 // asaokas applies Asaoka's method to every plate of P, with the options
-// solver.AsaokaOptionsFor gives and the window typed.
+// monitor.AsaokaOptionsFor gives and the window typed.
 func (c *Comparison) asaokas() []asaoka {
 	if c.P == nil || c.P.Monitoring == nil {
 		return nil
@@ -255,7 +256,7 @@ func (c *Comparison) asaokas() []asaoka {
 
 // plateAsaoka applies Asaoka's method to one plate of p over the readings
 // from day from to day to (zero: the defaults), or says why not.
-func plateAsaoka(p *solver.Project, pl solver.Plate, from, to float64) (*solver.AsaokaResult, string) {
+func plateAsaoka(p *solver.Project, pl solver.Plate, from, to float64) (*monitor.AsaokaResult, string) {
 	ts, err := solver.ReadingTimes(p.Monitoring, pl.Readings)
 	if err != nil {
 		return nil, describeProblems(solver.AsProblems(err), 3)
@@ -264,9 +265,9 @@ func plateAsaoka(p *solver.Project, pl solver.Plate, from, to float64) (*solver.
 	for j, r := range pl.Readings {
 		vs[j] = r.Value
 	}
-	opt := solver.AsaokaOptionsFor(p)
+	opt := monitor.AsaokaOptionsFor(p)
 	opt.From, opt.To = from, to
-	a, err := solver.Asaoka(ts, vs, 0, opt)
+	a, err := monitor.Asaoka(ts, vs, 0, opt)
 	if err != nil {
 		return nil, strings.TrimPrefix(err.Error(), "asaoka: ")
 	}

@@ -30,7 +30,7 @@ func readingPath(kind string, i, j int, leaf string) string {
 }
 
 // dateLayouts are the forms a typed or pasted date may take (those of
-// solver.ParseReadings); the file holds the first.
+// monitor.ParseReadings); the file holds the first.
 var dateLayouts = []string{"2006-01-02", "2/1/2006", "2.1.2006"}
 
 // parseDate reads a date in one of dateLayouts and returns it as

@@ -11,6 +11,7 @@ import (
 	"time"
 
 	"porelight/solver"
+	"porelight/solver/monitor"
 )
 
 // Field monitoring in the page: what the solve needs from the records,
@@ -94,7 +95,7 @@ func (c *Root) download(name, mime string, data []byte) {
 type fitState struct {
 	layers map[int]bool // layers whose k is fitted
 	scale  bool         // also fit the settlement scale
-	data   solver.FitData
+	data   monitor.FitData
 
 	gen      atomic.Int64 // bumped by every run and cancel; an older run stops
 	busy     bool
@@ -102,7 +103,7 @@ type fitState struct {
 	canceled bool
 	err      string
 	model    *solver.Project // the model of the last run
-	res      *solver.FitResult
+	res      *monitor.FitResult
 	// applied is set once the fitted values are in the project; before
 	// holds the layers as they were, for Revert.
 	applied bool
@@ -117,8 +118,8 @@ func (c *Root) fitState() *fitState {
 }
 
 // spec is the FitSpec of the choices made.
-func (s *fitState) spec(nLayers int) solver.FitSpec {
-	spec := solver.FitSpec{Scale: s.scale, Data: s.data}
+func (s *fitState) spec(nLayers int) monitor.FitSpec {
+	spec := monitor.FitSpec{Scale: s.scale, Data: s.data}
 	for i := range nLayers {
 		if s.layers[i] {
 			spec.Layers = append(spec.Layers, i)
@@ -150,9 +151,9 @@ func (c *Root) runFit() {
 	s.res, s.model, s.applied, s.before = nil, model, false, nil
 	fit := c.BackFit
 	if fit == nil {
-		fit = solver.BackFit
+		fit = monitor.BackFit
 	}
-	work := func() (res *solver.FitResult, err error) {
+	work := func() (res *monitor.FitResult, err error) {
 		defer func() {
 			if r := recover(); r != nil {
 				err = fmt.Errorf("internal error in the back-analysis: %v\n%s", r, debug.Stack())
@@ -188,7 +189,7 @@ func (c *Root) runFit() {
 }
 
 // finish takes the outcome of run g, if it is still the latest.
-func (s *fitState) finish(g int64, res *solver.FitResult, err error) {
+func (s *fitState) finish(g int64, res *monitor.FitResult, err error) {
 	if s.gen.Load() != g {
 		return
 	}

@@ -8,6 +8,7 @@ import (
 	"github.com/vugu/vugu"
 
 	"porelight/solver"
+	"porelight/solver/monitor"
 )
 
 // Monitoring edits the field records: the calendar date of day 0, the
@@ -295,7 +296,7 @@ func (c *Monitoring) parsed(r monRec) ([]solver.Reading, []string) {
 	if got, ok := c.parsedAs[r.Path]; ok && got.text == text {
 		return got.rs, got.errs
 	}
-	rs, err := solver.ParseReadings(text)
+	rs, err := monitor.ParseReadings(text)
 	var errs []string
 	if err != nil {
 		rs, errs = nil, pasteMessages(err)

@@ -8,6 +8,7 @@ import (
 	"testing"
 
 	"porelight/solver"
+	"porelight/solver/monitor"
 	"porelight/ui/plot"
 )
 
@@ -341,7 +342,7 @@ func TestFitApplyRevert(t *testing.T) {
 func TestFitCancel(t *testing.T) {
 	p := monPage(t, monColumn())
 	var stopped bool
-	p.root.BackFit = func(q *solver.Project, spec solver.FitSpec, o *solver.Options) (*solver.FitResult, error) {
+	p.root.BackFit = func(q *solver.Project, spec monitor.FitSpec, o *solver.Options) (*monitor.FitResult, error) {
 		if !o.Progress(0.1) {
 			t.Error("Progress stopped a fit that was not cancelled")
 		}

@@ -13,6 +13,7 @@ import (
 	"github.com/vugu/vugu"
 
 	"porelight/solver"
+	"porelight/solver/monitor"
 )
 
 // AutosaveKey is the browser storage key of the autosaved project.
@@ -42,8 +43,8 @@ type Root struct {
 	// Version is shown in the footer.
 	Version string
 	// BackFit fits the project to its field records; nil means
-	// solver.BackFit (monitor_root.go).
-	BackFit func(*solver.Project, solver.FitSpec, *solver.Options) (*solver.FitResult, error)
+	// monitor.BackFit (monitor_root.go).
+	BackFit func(*solver.Project, monitor.FitSpec, *solver.Options) (*monitor.FitResult, error)
 
 	form      *Form
 	demo      []byte

@@ -3,7 +3,7 @@ package plot
 import (
 	"math"
 
-	"porelight/solver"
+	"porelight/solver/monitor"
 )
 
 // AsaokaFigure builds the plot of Asaoka's method for one settlement
@@ -12,7 +12,7 @@ import (
 // s(j) = s(j−1); and the forecast final settlement where the two meet.
 // Both axes share one scale, so the 45° line is drawn at 45°. id is the
 // id of the root svg (one per record on a page).
-func AsaokaFigure(id, title string, a *solver.AsaokaResult, w, h int) *Figure {
+func AsaokaFigure(id, title string, a *monitor.AsaokaResult, w, h int) *Figure {
 	f := newFigure(id, title, w, h)
 	if a == nil || len(a.Settlements) < 2 || len(a.Fitted) != len(a.Settlements)-1 {
 		return f.message("No forecast: Asaoka's method did not give one for this record.")
@@ -68,14 +68,14 @@ func AsaokaFigure(id, title string, a *solver.AsaokaResult, w, h int) *Figure {
 }
 
 // AsaokaSVG returns the Asaoka plot of a record as a standalone SVG.
-func AsaokaSVG(id, title string, a *solver.AsaokaResult) string {
+func AsaokaSVG(id, title string, a *monitor.AsaokaResult) string {
 	return AsaokaFigure(id, title, a, 0, 0).SVG()
 }
 
 // AsaokaCSV returns the resampled record of Asaoka's method as CSV: time,
 // s(j), s(j−1) and the fitted s(j), in days and mm (the first row has no
 // previous step).
-func AsaokaCSV(a *solver.AsaokaResult) string {
+func AsaokaCSV(a *monitor.AsaokaResult) string {
 	header := []string{"time t(j) (day)", "settlement s(j) (mm)", "previous settlement s(j-1) (mm)", "fitted s(j) (mm)"}
 	if a == nil {
 		return writeCSV(header, nil)
@@ -100,7 +100,7 @@ func AsaokaCSV(a *solver.AsaokaResult) string {
 // Asaoka draws AsaokaFigure for one record; ID is the svg's id.
 type Asaoka struct {
 	ID, Title     string
-	Result        *solver.AsaokaResult
+	Result        *monitor.AsaokaResult
 	Width, Height int
 
 	fig  *Figure   // built for the props in made
@@ -109,7 +109,7 @@ type Asaoka struct {
 
 type asaokaKey struct {
 	id, title string
-	a         *solver.AsaokaResult
+	a         *monitor.AsaokaResult
 	w, h      int
 }
 

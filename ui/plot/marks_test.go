@@ -7,6 +7,7 @@ import (
 	"testing"
 
 	"porelight/solver"
+	"porelight/solver/monitor"
 )
 
 // A long legend name breaks after a comma when the rest fits, else at a
@@ -65,7 +66,7 @@ func TestMeasuredMarks(t *testing.T) {
 // The forecast point of the Asaoka plot lies on the 45° line (both axes
 // share one scale) and on the fitted line: s∞ = β0/(1 − β1).
 func TestAsaokaFigureGeometry(t *testing.T) {
-	a := &solver.AsaokaResult{Interval: 10, Times: []float64{0, 10, 20, 30},
+	a := &monitor.AsaokaResult{Interval: 10, Times: []float64{0, 10, 20, 30},
 		Settlements: []float64{0.1, 0.15, 0.175, 0.1875}, Beta0: 0.1, Beta1: 0.5, Final: 0.2, FinalSE: 0.001}
 	for j := 1; j < 4; j++ {
 		a.Fitted = append(a.Fitted, a.Beta0+a.Beta1*a.Settlements[j-1])

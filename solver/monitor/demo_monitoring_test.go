@@ -1,6 +1,8 @@
-package solver
+package monitor
 
 import (
+	"porelight/solver"
+
 	"flag"
 	"fmt"
 	"math"
@@ -15,7 +17,7 @@ import (
 // the solver (go test -run TestDemoMonitoring -update-demo ./solver).
 var updateDemo = flag.Bool("update-demo", false, "rewrite the monitoring record of testdata/demo.json from the solver")
 
-const demoFile = "../testdata/demo.json"
+const demoFile = "../../testdata/demo.json"
 
 // Demo record: invented, made by this solver with the permeability of
 // the upper soft clay (layer 1) multiplied by demoKFactor, plus seeded
@@ -59,7 +61,7 @@ func writeDemoMonitoring(t *testing.T) {
 	if i := strings.Index(text, ",\n  \"monitoring\":"); i >= 0 {
 		text = text[:i] + "\n}\n"
 	}
-	p, err := Decode([]byte(text))
+	p, err := solver.Decode([]byte(text))
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -68,7 +70,7 @@ func writeDemoMonitoring(t *testing.T) {
 	q.Layers[1].K *= demoKFactor
 	q.Piezometers = []float64{demoPiezo}
 	q.Stepping.EndTime = demoEnd + 10
-	r, err := Solve(&q, nil)
+	r, err := solver.Solve(&q, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -83,7 +85,7 @@ func writeDemoMonitoring(t *testing.T) {
 	}
 	var p1, p2, u1 []string
 	for _, d := range demoSchedule(0, 7, 14, 28) { // read by date
-		p1 = append(p1, fmt.Sprintf(`{"date": %q, "value": %.3f}`, day0.AddDate(0, 0, d).Format(dateLayout), settle(d)))
+		p1 = append(p1, fmt.Sprintf(`{"date": %q, "value": %.3f}`, day0.AddDate(0, 0, d).Format(solver.DateLayout), settle(d)))
 	}
 	for _, d := range demoSchedule(0, 14, 21, 35) { // read by days
 		p2 = append(p2, fmt.Sprintf(`{"t": %d, "value": %.3f}`, d, settle(d)))
@@ -128,11 +130,11 @@ func TestDemoMonitoring(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	p, err := Decode(data)
+	p, err := solver.Decode(data)
 	if err != nil {
 		t.Fatal(err)
 	}
-	if err := Validate(p); err != nil {
+	if err := solver.Validate(p); err != nil {
 		t.Fatal(err)
 	}
 	m := p.Monitoring
@@ -142,7 +144,7 @@ func TestDemoMonitoring(t *testing.T) {
 	if m.Start != demoStart {
 		t.Errorf("start %q, want %q", m.Start, demoStart)
 	}
-	r, err := Solve(p, nil)
+	r, err := solver.Solve(p, nil)
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -1,6 +1,8 @@
-package solver
+package monitor
 
 import (
+	"porelight/solver"
+
 	"errors"
 	"fmt"
 	"math"
@@ -99,8 +101,8 @@ type FitResult struct {
 	Records []FitRecord `json:"records"`
 	// Project is a copy of the project with the fitted values, and
 	// Result its solution (with the project's own outputs and stepping).
-	Project *Project `json:"-"`
-	Result  *Result  `json:"-"`
+	Project *solver.Project `json:"-"`
+	Result  *solver.Result  `json:"-"`
 }
 
 // FitParam is one fitted multiplier.
@@ -184,18 +186,18 @@ type FitRecord struct {
 // pressure change; a layer index out of range or repeated; nothing to
 // fit; fewer readings than parameters + 1 (ErrTooFewPoints); readings
 // after stepping.endTime.
-func BackFit(p *Project, spec FitSpec, opt *Options) (*FitResult, error) {
-	if err := Validate(p); err != nil {
+func BackFit(p *solver.Project, spec FitSpec, opt *solver.Options) (*FitResult, error) {
+	if err := solver.Validate(p); err != nil {
 		return nil, err
 	}
-	if !hasConsolidation(p) {
+	if !solver.HasConsolidation(p) {
 		return nil, errors.New("backfit: the project has no load or pressure change, so nothing to compare with the readings")
 	}
 	f := &fitter{spec: spec, opt: opt, cache: map[string]*fitEval{}}
 	seen := map[int]bool{}
 	for i, li := range spec.Layers {
 		if li < 0 || li >= len(p.Layers) {
-			return nil, fmt.Errorf("backfit: layers[%d] = %d %w (the project has %d layers)", i, li, ErrOutOfRange, len(p.Layers))
+			return nil, fmt.Errorf("backfit: layers[%d] = %d %w (the project has %d layers)", i, li, solver.ErrOutOfRange, len(p.Layers))
 		}
 		if seen[li] {
 			return nil, fmt.Errorf("backfit: layer %d is named twice", li)
@@ -227,7 +229,7 @@ func BackFit(p *Project, spec FitSpec, opt *Options) (*FitResult, error) {
 	for _, r := range f.recs {
 		last = math.Max(last, r.times[len(r.times)-1])
 	}
-	full := endTime(p)
+	full := solver.EndTime(p)
 	if last > full {
 		return nil, fmt.Errorf("backfit: a reading on day %g is after the end of the simulation on day %g; set stepping.endTime later", last, full)
 	}
@@ -241,7 +243,7 @@ func BackFit(p *Project, spec FitSpec, opt *Options) (*FitResult, error) {
 		}
 	}
 	if p.Stepping.EndTime == 0 {
-		_, _, _, g := stepping(p)
+		g := solver.ResolveStepping(p).Growth
 		if den := 1 - 1.25*(1-1/g); den > 0.2 {
 			base.Stepping.EndTime = math.Min(full, 1.05*last/den+1)
 		}
@@ -373,7 +375,7 @@ func BackFit(p *Project, spec FitSpec, opt *Options) (*FitResult, error) {
 	}
 	out.Runs = f.runs
 	if opt != nil && opt.Progress != nil && !opt.Progress(1) {
-		return nil, ErrCanceled
+		return nil, solver.ErrCanceled
 	}
 	return out, nil
 }
@@ -405,8 +407,8 @@ type fitEval struct {
 // fitter holds the state of one back-analysis.
 type fitter struct {
 	spec     FitSpec
-	opt      *Options
-	base     *Project
+	opt      *solver.Options
+	base     *solver.Project
 	recs     []*fitRec
 	n, np    int
 	mv0      []float64
@@ -419,13 +421,13 @@ type fitter struct {
 }
 
 // collect gathers the records of p.Monitoring chosen by the spec.
-func (f *fitter) collect(p *Project) error {
+func (f *fitter) collect(p *solver.Project) error {
 	m := p.Monitoring
 	if m == nil {
 		return fmt.Errorf("backfit: %w: the project has no monitoring records", ErrTooFewPoints)
 	}
-	add := func(kind int, path, name string, depth float64, rs []Reading) error {
-		ts, err := ReadingTimes(m, rs)
+	add := func(kind int, path, name string, depth float64, rs []solver.Reading) error {
+		ts, err := solver.ReadingTimes(m, rs)
 		if err != nil {
 			return err
 		}
@@ -477,7 +479,7 @@ func (f *fitter) collect(p *Project) error {
 
 // apply multiplies the layers' k (and, with the scale, mv) by the
 // multipliers exp(x).
-func (f *fitter) apply(ls []Layer, x []float64) {
+func (f *fitter) apply(ls []solver.Layer, x []float64) {
 	for i, li := range f.spec.Layers {
 		ls[li].K *= math.Exp(x[i])
 	}
@@ -491,19 +493,19 @@ func (f *fitter) apply(ls []Layer, x []float64) {
 }
 
 // solve runs the solver once, counting the run and reporting progress.
-func (f *fitter) solve(p *Project) (*Result, error) {
-	var o *Options
+func (f *fitter) solve(p *solver.Project) (*solver.Result, error) {
+	var o *solver.Options
 	if f.opt != nil && f.opt.Progress != nil {
 		outer := f.opt.Progress
 		done := float64(f.runs)
 		frac := func(part float64) float64 { return math.Min(0.99, (done+part)/float64(f.expected+1)) }
 		if !outer(frac(0)) {
-			return nil, ErrCanceled
+			return nil, solver.ErrCanceled
 		}
-		o = &Options{Progress: func(part float64) bool { return outer(frac(part)) }}
+		o = &solver.Options{Progress: func(part float64) bool { return outer(frac(part)) }}
 	}
 	f.runs++
-	r, err := Solve(p, o)
+	r, err := solver.Solve(p, o)
 	if err == nil && r.Consolidation == nil {
 		err = errors.New("backfit: the solve gave no consolidation result")
 	}
@@ -563,7 +565,7 @@ func (f *fitter) predict(x []float64) ([]float64, error) {
 	}
 	for _, v := range x {
 		if !(math.Abs(v) <= maxLogMult) {
-			return nil, fmt.Errorf("a multiplier %w (%g)", ErrOutOfRange, math.Exp(v))
+			return nil, fmt.Errorf("a multiplier %w (%g)", solver.ErrOutOfRange, math.Exp(v))
 		}
 	}
 	if f.search && f.runs >= f.budget {
@@ -574,7 +576,7 @@ func (f *fitter) predict(x []float64) ([]float64, error) {
 	f.apply(q.Layers, x)
 	r, err := f.solve(&q)
 	if err != nil {
-		var ps Problems
+		var ps solver.Problems
 		if !errors.As(err, &ps) {
 			f.err = err // canceled, or the solver failed
 		}
@@ -584,7 +586,7 @@ func (f *fitter) predict(x []float64) ([]float64, error) {
 }
 
 // extract interpolates the series of r at the reading times.
-func (f *fitter) extract(r *Result) []float64 {
+func (f *fitter) extract(r *solver.Result) []float64 {
 	ser := &r.Consolidation.Series
 	out := make([]float64, 0, f.n)
 	for _, rec := range f.recs {
@@ -755,3 +757,5 @@ func fitKey(x []float64) string {
 }
 
 func fitSq(v float64) float64 { return v * v }
+
+func ptr(v float64) *float64 { return &v }

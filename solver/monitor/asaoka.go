@@ -1,6 +1,8 @@
-package solver
+package monitor
 
 import (
+	"porelight/solver"
+
 	"errors"
 	"fmt"
 	"math"
@@ -46,12 +48,12 @@ type AsaokaOptions struct {
 // p: AfterTime = LastLoadChange(p), the whole column as the consolidating
 // layer and its drained ends. For a column of several compressible layers
 // the cv so found is an equivalent value for the column as a whole.
-func AsaokaOptionsFor(p *Project) AsaokaOptions {
-	o := AsaokaOptions{AfterTime: LastLoadChange(p)}
+func AsaokaOptionsFor(p *solver.Project) AsaokaOptions {
+	o := AsaokaOptions{AfterTime: solver.LastLoadChange(p)}
 	for _, l := range p.Layers {
 		o.Thickness += l.Thickness
 	}
-	for _, b := range []Boundary{p.Top, p.Bottom} {
+	for _, b := range []solver.Boundary{p.Top, p.Bottom} {
 		if b.Drained {
 			o.DrainedEnds++
 		}
@@ -183,17 +185,17 @@ func Asaoka(times, settlements []float64, interval float64, opt AsaokaOptions) (
 	}
 	for j := range times {
 		if !finiteNum(times[j]) || !finiteNum(settlements[j]) {
-			return nil, fmt.Errorf("asaoka: reading %d: %w (day %g, settlement %g)", j, ErrNotFinite, times[j], settlements[j])
+			return nil, fmt.Errorf("asaoka: reading %d: %w (day %g, settlement %g)", j, solver.ErrNotFinite, times[j], settlements[j])
 		}
 		if j > 0 && times[j] < times[j-1] {
-			return nil, fmt.Errorf("asaoka: reading %d: times %w (day %g follows day %g)", j, ErrNotSorted, times[j], times[j-1])
+			return nil, fmt.Errorf("asaoka: reading %d: times %w (day %g follows day %g)", j, solver.ErrNotSorted, times[j], times[j-1])
 		}
 		if j > 0 && times[j] == times[j-1] {
-			return nil, fmt.Errorf("asaoka: reading %d: %w (day %g)", j, ErrDuplicate, times[j])
+			return nil, fmt.Errorf("asaoka: reading %d: %w (day %g)", j, solver.ErrDuplicate, times[j])
 		}
 	}
 	if !finiteNum(interval) || interval < 0 {
-		return nil, fmt.Errorf("asaoka: interval %w (got %g days)", ErrNegative, interval)
+		return nil, fmt.Errorf("asaoka: interval %w (got %g days)", solver.ErrNegative, interval)
 	}
 	if opt.From != 0 && opt.From < opt.AfterTime {
 		return nil, fmt.Errorf("asaoka: %w: the window starts on day %g, before the load stops changing on day %g", ErrDuringLoading, opt.From, opt.AfterTime)
@@ -298,7 +300,7 @@ func Asaoka(times, settlements []float64, interval float64, opt AsaokaOptions) (
 // PlateAsaoka applies Asaoka to settlement plate i of p.Monitoring with
 // the options AsaokaOptionsFor(p), resolving dates against
 // Monitoring.Start.
-func PlateAsaoka(p *Project, i int, interval float64) (*AsaokaResult, error) {
+func PlateAsaoka(p *solver.Project, i int, interval float64) (*AsaokaResult, error) {
 	if p.Monitoring == nil || i < 0 || i >= len(p.Monitoring.Plates) {
 		n := 0
 		if p.Monitoring != nil {
@@ -307,7 +309,7 @@ func PlateAsaoka(p *Project, i int, interval float64) (*AsaokaResult, error) {
 		return nil, fmt.Errorf("asaoka: no plate %d (the project has %d)", i, n)
 	}
 	pl := p.Monitoring.Plates[i]
-	ts, err := ReadingTimes(p.Monitoring, pl.Readings)
+	ts, err := solver.ReadingTimes(p.Monitoring, pl.Readings)
 	if err != nil {
 		return nil, err
 	}

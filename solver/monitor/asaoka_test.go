@@ -1,6 +1,10 @@
-package solver
+package monitor
 
 import (
+	"porelight/solver/soil"
+
+	"porelight/solver"
+
 	"errors"
 	"math"
 	"strings"
@@ -248,30 +252,30 @@ func TestAsaokaSolverRecord(t *testing.T) {
 		t.Run(c.name, func(t *testing.T) {
 			t.Parallel()
 			const k, mv, q = 1e-9, 5e-4, 50.0
-			p := &Project{
-				Format:     Format,
-				Layers:     []Layer{{Name: "clay", Thickness: c.thick, GammaSat: 17, K: k, Mv: mv}},
-				Top:        Boundary{Drained: c.top},
-				Bottom:     Boundary{Drained: c.bottom},
-				Loads:      []Load{{Start: c.start, Ramp: c.ramp, Q: q}},
-				Mesh:       MeshSettings{MaxSize: 0.1},
-				Monitoring: &Monitoring{Start: "2023-04-01"},
+			p := &solver.Project{
+				Format:     solver.Format,
+				Layers:     []solver.Layer{{Name: "clay", Thickness: c.thick, GammaSat: 17, K: k, Mv: mv}},
+				Top:        solver.Boundary{Drained: c.top},
+				Bottom:     solver.Boundary{Drained: c.bottom},
+				Loads:      []solver.Load{{Start: c.start, Ramp: c.ramp, Q: q}},
+				Mesh:       solver.MeshSettings{MaxSize: 0.1},
+				Monitoring: &solver.Monitoring{Start: "2023-04-01"},
 			}
-			r, err := Solve(p, nil)
+			r, err := solver.Solve(p, nil)
 			if err != nil {
 				t.Fatal(err)
 			}
-			cv := k * secondsPerDay / (mv * DefaultGammaW)
+			cv := k * soil.SecondsPerDay / (mv * solver.DefaultGammaW)
 			tEnd := c.start + c.ramp
-			var pl Plate
+			var pl solver.Plate
 			ser := r.Consolidation.Series
 			day0, _ := parseDate(p.Monitoring.Start)
 			for day := 0; day <= int(tEnd+1.2*c.path*c.path/cv); day += 25 {
-				date := day0.AddDate(0, 0, day).Format(dateLayout)
-				pl.Readings = append(pl.Readings, Reading{Date: date, Value: fitSeriesAt(ser.Time, ser.Settlement, float64(day))})
+				date := day0.AddDate(0, 0, day).Format(solver.DateLayout)
+				pl.Readings = append(pl.Readings, solver.Reading{Date: date, Value: fitSeriesAt(ser.Time, ser.Settlement, float64(day))})
 			}
-			p.Monitoring.Plates = []Plate{pl}
-			if err := Validate(p); err != nil {
+			p.Monitoring.Plates = []solver.Plate{pl}
+			if err := solver.Validate(p); err != nil {
 				t.Fatal(err)
 			}
 			// Read from Tv = 0.3 after the end of loading.
@@ -279,7 +283,7 @@ func TestAsaokaSolverRecord(t *testing.T) {
 			if opt.AfterTime != tEnd || opt.Thickness != c.thick {
 				t.Fatalf("options %+v", opt)
 			}
-			ts, _ := ReadingTimes(p.Monitoring, pl.Readings)
+			ts, _ := solver.ReadingTimes(p.Monitoring, pl.Readings)
 			vs := make([]float64, len(ts))
 			for j, r := range pl.Readings {
 				vs[j] = r.Value
@@ -343,10 +347,10 @@ func TestAsaokaRefuses(t *testing.T) {
 		{"growing", ts8, func() []float64 { _, s := geometric(8, 1.2); return s }(), 0, AsaokaOptions{}, ErrNoFinal, "β1 = 1.2 is not between 0 and 1"},
 		{"oscillating", ts8, func() []float64 { _, s := geometric(8, -0.5); return s }(), 10, AsaokaOptions{}, ErrNoFinal, "β1 = -0.5 is not between 0 and 1"},
 		{"flat", ts8, make([]float64, 8), 0, AsaokaOptions{}, ErrNoFinal, "do not change"},
-		{"unsorted", []float64{0, 10, 5, 20}, ss8[:4], 0, AsaokaOptions{}, ErrNotSorted, "reading 2: times must be in increasing order (day 5 follows day 10)"},
-		{"repeated time", []float64{0, 10, 10, 20}, ss8[:4], 0, AsaokaOptions{}, ErrDuplicate, "reading 2: repeats the time of the reading before (day 10)"},
-		{"NaN settlement", ts8[:4], []float64{0, math.NaN(), 0.5, 0.6}, 0, AsaokaOptions{}, ErrNotFinite, "reading 1"},
-		{"negative interval", ts8, ss8, -5, AsaokaOptions{}, ErrNegative, "got -5 days"},
+		{"unsorted", []float64{0, 10, 5, 20}, ss8[:4], 0, AsaokaOptions{}, solver.ErrNotSorted, "reading 2: times must be in increasing order (day 5 follows day 10)"},
+		{"repeated time", []float64{0, 10, 10, 20}, ss8[:4], 0, AsaokaOptions{}, solver.ErrDuplicate, "reading 2: repeats the time of the reading before (day 10)"},
+		{"NaN settlement", ts8[:4], []float64{0, math.NaN(), 0.5, 0.6}, 0, AsaokaOptions{}, solver.ErrNotFinite, "reading 1"},
+		{"negative interval", ts8, ss8, -5, AsaokaOptions{}, solver.ErrNegative, "got -5 days"},
 	}
 	for _, c := range cases {
 		t.Run(c.name, func(t *testing.T) {

@@ -1,6 +1,8 @@
-package solver
+package monitor
 
 import (
+	"porelight/solver"
+
 	"encoding/json"
 	"errors"
 	"math"
@@ -15,18 +17,18 @@ import (
 // fitProject is an invented column: two soft clay layers drained at both
 // ends under a 60 kPa fill placed over 30 days. cv = 0.0220 and 0.0176
 // m²/day; the drainage path of 3.5 m gives d²/cv of about 600 days.
-func fitProject() *Project {
-	return &Project{
-		Format: Format,
-		Layers: []Layer{
+func fitProject() *solver.Project {
+	return &solver.Project{
+		Format: solver.Format,
+		Layers: []solver.Layer{
 			{Name: "upper clay", Thickness: 3, GammaSat: 17, K: 2e-9, Mv: 8e-4},
 			{Name: "lower clay", Thickness: 4, GammaSat: 17.5, K: 1e-9, Mv: 5e-4},
 		},
 		WaterTable: 0.5,
-		Top:        Boundary{Drained: true},
-		Bottom:     Boundary{Drained: true},
-		Loads:      []Load{{Start: 0, Ramp: 30, Q: 60}},
-		Mesh:       MeshSettings{MaxSize: 0.25},
+		Top:        solver.Boundary{Drained: true},
+		Bottom:     solver.Boundary{Drained: true},
+		Loads:      []solver.Load{{Start: 0, Ramp: 30, Q: 60}},
+		Mesh:       solver.MeshSettings{MaxSize: 0.25},
 	}
 }
 
@@ -43,7 +45,7 @@ type truth struct {
 
 // synthesize fills p.Monitoring with the record truth describes, made by
 // the solver itself (the method of manufactured data).
-func synthesize(t testing.TB, p *Project, tr truth) {
+func synthesize(t testing.TB, p *solver.Project, tr truth) {
 	t.Helper()
 	q := *p
 	q.Layers = slices.Clone(p.Layers)
@@ -56,19 +58,19 @@ func synthesize(t testing.TB, p *Project, tr truth) {
 		q.Layers[i].Mv *= s
 	}
 	q.Piezometers = []float64{5}
-	r, err := Solve(&q, nil)
+	r, err := solver.Solve(&q, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
 	rng := rand.New(rand.NewPCG(tr.Seed, 7))
 	ser := r.Consolidation.Series
-	pl := Plate{Name: "P1"}
-	pz := PiezometerRecord{Name: "U1", Depth: 5}
+	pl := solver.Plate{Name: "P1"}
+	pz := solver.PiezometerRecord{Name: "U1", Depth: 5}
 	for d := 10.0; d <= 600; d += 10 {
-		pl.Readings = append(pl.Readings, Reading{T: d, Value: fitSeriesAt(ser.Time, ser.Settlement, d) + tr.SigmaS*rng.NormFloat64()})
-		pz.Readings = append(pz.Readings, Reading{T: d, Value: fitSeriesAt(ser.Time, ser.Piezometers[0].Pore, d) + tr.SigmaU*rng.NormFloat64()})
+		pl.Readings = append(pl.Readings, solver.Reading{T: d, Value: fitSeriesAt(ser.Time, ser.Settlement, d) + tr.SigmaS*rng.NormFloat64()})
+		pz.Readings = append(pz.Readings, solver.Reading{T: d, Value: fitSeriesAt(ser.Time, ser.Piezometers[0].Pore, d) + tr.SigmaU*rng.NormFloat64()})
 	}
-	p.Monitoring = &Monitoring{Plates: []Plate{pl}, Piezometers: []PiezometerRecord{pz}}
+	p.Monitoring = &solver.Monitoring{Plates: []solver.Plate{pl}, Piezometers: []solver.PiezometerRecord{pz}}
 }
 
 // BackFit recovers the multipliers a synthetic record was made with
@@ -193,7 +195,7 @@ func TestBackFitStandardError(t *testing.T) {
 		q.Piezometers = []float64{5}
 		q.Layers = slices.Clone(p.Layers)
 		q.Layers[1].K *= m
-		r, err := Solve(&q, nil)
+		r, err := solver.Solve(&q, nil)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -319,24 +321,24 @@ func TestBackFitRefuses(t *testing.T) {
 	t.Parallel()
 	cases := []struct {
 		name   string
-		change func(p *Project)
+		change func(p *solver.Project)
 		spec   FitSpec
 		reason error
 		says   string
 	}{
-		{"no monitoring", func(p *Project) { p.Monitoring = nil }, FitSpec{Layers: []int{0}}, ErrTooFewPoints, "no monitoring records"},
-		{"layer out of range", nil, FitSpec{Layers: []int{0, 5}}, ErrOutOfRange, "layers[1] = 5 is out of range (the project has 2 layers)"},
+		{"no monitoring", func(p *solver.Project) { p.Monitoring = nil }, FitSpec{Layers: []int{0}}, ErrTooFewPoints, "no monitoring records"},
+		{"layer out of range", nil, FitSpec{Layers: []int{0, 5}}, solver.ErrOutOfRange, "layers[1] = 5 is out of range (the project has 2 layers)"},
 		{"layer twice", nil, FitSpec{Layers: []int{1, 1}}, nil, "layer 1 is named twice"},
 		{"nothing to fit", nil, FitSpec{}, nil, "nothing to fit"},
-		{"no load", func(p *Project) { p.Loads = nil }, FitSpec{Layers: []int{0}}, nil, "no load or pressure change"},
-		{"too few readings", func(p *Project) {
+		{"no load", func(p *solver.Project) { p.Loads = nil }, FitSpec{Layers: []int{0}}, nil, "no load or pressure change"},
+		{"too few readings", func(p *solver.Project) {
 			p.Monitoring.Plates[0].Readings = p.Monitoring.Plates[0].Readings[:2]
 			p.Monitoring.Piezometers = nil
 		}, FitSpec{Layers: []int{0, 1}, Scale: true}, ErrTooFewPoints, "2 readings for 3 parameters; at least 4 are needed"},
 		{"no reading after From", nil, FitSpec{Layers: []int{0}, From: 1000}, ErrTooFewPoints, "no reading to compare with"},
-		{"unsorted readings", func(p *Project) { p.Monitoring.Plates[0].Readings[3].T = 5 }, FitSpec{Layers: []int{0}}, ErrNotSorted,
+		{"unsorted readings", func(p *solver.Project) { p.Monitoring.Plates[0].Readings[3].T = 5 }, FitSpec{Layers: []int{0}}, solver.ErrNotSorted,
 			"monitoring.plates[0].readings[3].t"},
-		{"readings after the end", func(p *Project) { p.Stepping.EndTime = 300 }, FitSpec{Layers: []int{0}}, nil,
+		{"readings after the end", func(p *solver.Project) { p.Stepping.EndTime = 300 }, FitSpec{Layers: []int{0}}, nil,
 			"a reading on day 600 is after the end of the simulation on day 300"},
 	}
 	base := fitProject()
@@ -374,7 +376,7 @@ func TestBackFitProgress(t *testing.T) {
 	synthesize(t, p, truth{K: []float64{1, 2}, SigmaS: 0.002, SigmaU: 1, Seed: 13})
 	spec := FitSpec{Layers: []int{1}, SettlementSigma: 0.002, PressureSigma: 1}
 	var seen []float64
-	_, err := BackFit(p, spec, &Options{Progress: func(f float64) bool { seen = append(seen, f); return true }})
+	_, err := BackFit(p, spec, &solver.Options{Progress: func(f float64) bool { seen = append(seen, f); return true }})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -382,8 +384,8 @@ func TestBackFitProgress(t *testing.T) {
 		t.Errorf("progress %v", seen)
 	}
 	calls := 0
-	fr, err := BackFit(p, spec, &Options{Progress: func(float64) bool { calls++; return calls < 4 }})
-	if !errors.Is(err, ErrCanceled) || fr != nil {
+	fr, err := BackFit(p, spec, &solver.Options{Progress: func(float64) bool { calls++; return calls < 4 }})
+	if !errors.Is(err, solver.ErrCanceled) || fr != nil {
 		t.Errorf("canceled fit: %v, %v", fr, err)
 	}
 }

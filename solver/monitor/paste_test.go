@@ -1,6 +1,8 @@
-package solver
+package monitor
 
 import (
+	"porelight/solver"
+
 	"errors"
 	"reflect"
 	"strings"
@@ -13,11 +15,11 @@ import (
 // DD.MM.YYYY forms common in practice); an optional header.
 func TestParseReadings(t *testing.T) {
 	t.Parallel()
-	days := []Reading{{T: 0, Value: 0}, {T: 12.5, Value: 0.034}, {T: 30, Value: -0.002}}
-	dates := []Reading{{Date: "2024-03-05", Value: 0.01}, {Date: "2024-03-19", Value: 0.0125}}
+	days := []solver.Reading{{T: 0, Value: 0}, {T: 12.5, Value: 0.034}, {T: 30, Value: -0.002}}
+	dates := []solver.Reading{{Date: "2024-03-05", Value: 0.01}, {Date: "2024-03-19", Value: 0.0125}}
 	cases := []struct {
 		name, text string
-		want       []Reading
+		want       []solver.Reading
 	}{
 		{"tab, decimal point", "0\t0\n12.5\t0.034\n30\t-0.002\n", days},
 		{"tab, decimal comma", "0\t0\n12,5\t0,034\n30\t-0,002", days},
@@ -36,8 +38,8 @@ func TestParseReadings(t *testing.T) {
 		{"day/month/year", "05/03/2024;0,01\n19/03/2024;0,0125", dates},
 		{"day.month.year", "5.3.2024;0,01\n19.03.2024;0,0125", dates},
 		{"dates with a header, comma", "date,settlement\n2024-03-05,0.01\n2024-03-19,0.0125", dates},
-		{"one reading", "3\t0.5", []Reading{{T: 3, Value: 0.5}}},
-		{"days and dates mixed", "0\t0\n2024-03-19\t0.0125", []Reading{{T: 0, Value: 0}, {Date: "2024-03-19", Value: 0.0125}}},
+		{"one reading", "3\t0.5", []solver.Reading{{T: 3, Value: 0.5}}},
+		{"days and dates mixed", "0\t0\n2024-03-19\t0.0125", []solver.Reading{{T: 0, Value: 0}, {Date: "2024-03-19", Value: 0.0125}}},
 	}
 	for _, c := range cases {
 		t.Run(c.name, func(t *testing.T) {
@@ -66,11 +68,11 @@ func TestParseReadingsErrors(t *testing.T) {
 		{"text in a time", "0;0\nlater;0,01",
 			[]string{`line 2, column 1: "later" is not a number of days or a date (YYYY-MM-DD, DD/MM/YYYY or DD.MM.YYYY)`}, []error{ErrNotTime}},
 		{"unsorted days", "0\t0\n10\t0.01\n7\t0.02",
-			[]string{`line 3, column 1: "7" must be in increasing order (day 7 follows day 10 on line 2)`}, []error{ErrNotSorted}},
+			[]string{`line 3, column 1: "7" must be in increasing order (day 7 follows day 10 on line 2)`}, []error{solver.ErrNotSorted}},
 		{"repeated day", "0\t0\n10\t0.01\n10\t0.02",
-			[]string{`line 3, column 1: "10" repeats the time of the reading before (day 10 repeats day 10 on line 2)`}, []error{ErrDuplicate}},
+			[]string{`line 3, column 1: "10" repeats the time of the reading before (day 10 repeats day 10 on line 2)`}, []error{solver.ErrDuplicate}},
 		{"unsorted dates", "2024-03-19\t0.01\n05/03/2024\t0.02",
-			[]string{`line 2, column 1: "05/03/2024" must be in increasing order (2024-03-05 follows 2024-03-19 on line 1)`}, []error{ErrNotSorted}},
+			[]string{`line 2, column 1: "05/03/2024" must be in increasing order (2024-03-05 follows 2024-03-19 on line 1)`}, []error{solver.ErrNotSorted}},
 		{"three columns", "0\t0\t1\n5\t0.01",
 			[]string{`line 1: does not have two columns (time or date, value) (found 3)`}, []error{ErrColumns}},
 		{"decimal commas with comma columns", "0,0\n12,5,0,034",
@@ -80,16 +82,16 @@ func TestParseReadingsErrors(t *testing.T) {
 		{"missing value", "0\t0\n\t0.5",
 			[]string{`line 2, column 1: "" is not a number of days or a date (YYYY-MM-DD, DD/MM/YYYY or DD.MM.YYYY)`}, []error{ErrNotTime}},
 		{"not finite", "0\t0\n1\tNaN\n2\tinf",
-			[]string{`line 2, column 2: "NaN" must be a finite number`, `line 3, column 2: "inf" must be a finite number`}, []error{ErrNotFinite, ErrNotFinite}},
+			[]string{`line 2, column 2: "NaN" must be a finite number`, `line 3, column 2: "inf" must be a finite number`}, []error{solver.ErrNotFinite, solver.ErrNotFinite}},
 		{"negative days", "-1\t0",
-			[]string{`line 1, column 1: "-1" must be ≥ 0 (days after day 0)`}, []error{ErrNegative}},
+			[]string{`line 1, column 1: "-1" must be ≥ 0 (days after day 0)`}, []error{solver.ErrNegative}},
 		{"impossible date", "2024-02-30\t0",
 			[]string{`line 1, column 1: "2024-02-30" is not a number of days or a date (YYYY-MM-DD, DD/MM/YYYY or DD.MM.YYYY)`}, []error{ErrNotTime}},
 		{"thousands separator", "0;0\n1.000,5;2",
 			[]string{`line 2, column 1: "1.000,5" is not a number of days or a date (YYYY-MM-DD, DD/MM/YYYY or DD.MM.YYYY)`}, []error{ErrNotTime}},
 		{"every fault at once", "day\tvalue\n0\t0\n5\tx\n4\t0.2\n",
 			[]string{`line 3, column 2: "x" is not a number`, `line 4, column 1: "4" must be in increasing order (day 4 follows day 5 on line 3)`},
-			[]error{ErrNotNumber, ErrNotSorted}},
+			[]error{ErrNotNumber, solver.ErrNotSorted}},
 		{"nothing", "\n \n", []string{"no readings found"}, []error{ErrNoReadings}},
 		{"only a header", "day\tsettlement", []string{"no readings found"}, []error{ErrNoReadings}},
 	}

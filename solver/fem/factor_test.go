@@ -1,4 +1,4 @@
-package solver
+package fem
 
 import (
 	"math"
@@ -17,27 +17,27 @@ func TestSolveBand2(t *testing.T) {
 	t.Parallel()
 	rnd := rand.New(rand.NewPCG(1, 1))
 	for _, n := range []int{1, 2, 3, 4, 5, 10, 51, 100, 1001} {
-		a := newBand(n, 2)
+		a := NewBand(n, 2)
 		for i := range n {
-			a.add(i, i, 5+rnd.Float64())
+			a.Add(i, i, 5+rnd.Float64())
 			for j := i + 1; j <= min(i+2, n-1); j++ {
-				a.add(i, j, rnd.Float64()-0.5)
+				a.Add(i, j, rnd.Float64()-0.5)
 			}
 		}
 		b := make([]float64, n)
 		for i := range b {
 			b[i] = rnd.NormFloat64()
 		}
-		var f factor
-		if err := factorize(&f, a, 0, n); err != nil {
+		var f Factor
+		if err := Factorize(&f, a, 0, n); err != nil {
 			t.Fatal(err)
 		}
 		x := append([]float64(nil), b...)
-		f.solve(x)
+		f.Solve(x)
 		want := append([]float64(nil), b...)
 		lapack.Dpbtrs(blas.Upper, n, 2, 1, f.ab, 3, want, 1)
 		ax := make([]float64, n)
-		a.mulVec(ax, x)
+		a.MulVec(ax, x)
 		var res, norm, xn float64
 		for i := range n {
 			if math.Abs(x[i]-want[i]) > 1e-12*math.Max(1, math.Abs(want[i])) {

@@ -1,6 +1,8 @@
-package solver
+package monitor
 
 import (
+	"porelight/solver"
+
 	"errors"
 	"fmt"
 	"math"
@@ -70,7 +72,7 @@ func (e *PasteError) Unwrap() error { return e.Err }
 // each is a *PasteError naming the line and the column, e.g.
 // `line 4, column 2: "abc" is not a number`. A text with no reading
 // returns ErrNoReadings.
-func ParseReadings(text string) ([]Reading, error) {
+func ParseReadings(text string) ([]solver.Reading, error) {
 	lines := strings.Split(text, "\n")
 	for i := range lines {
 		lines[i] = strings.TrimRight(lines[i], "\r")
@@ -79,7 +81,7 @@ func ParseReadings(text string) ([]Reading, error) {
 	decimalComma := sep != ","
 
 	var (
-		out      []Reading
+		out      []solver.Reading
 		errs     []error
 		header   = true // the next non-blank line may be a header
 		prevDays = math.NaN()
@@ -107,7 +109,7 @@ func ParseReadings(text string) ([]Reading, error) {
 			add(&PasteError{Line: n, Err: ErrColumns, Detail: fmt.Sprintf("found %d", len(fields))})
 			continue
 		}
-		var r Reading
+		var r solver.Reading
 		ok := true
 		days, date, kind := parseTime(fields[0], decimalComma)
 		switch kind {
@@ -115,11 +117,11 @@ func ParseReadings(text string) ([]Reading, error) {
 			add(&PasteError{Line: n, Column: 1, Text: fields[0], Err: ErrNotTime})
 			ok = false
 		case timeBad:
-			add(&PasteError{Line: n, Column: 1, Text: fields[0], Err: ErrNotFinite})
+			add(&PasteError{Line: n, Column: 1, Text: fields[0], Err: solver.ErrNotFinite})
 			ok = false
 		case timeDays:
 			if days < 0 {
-				add(&PasteError{Line: n, Column: 1, Text: fields[0], Err: ErrNegative, Detail: "days after day 0"})
+				add(&PasteError{Line: n, Column: 1, Text: fields[0], Err: solver.ErrNegative, Detail: "days after day 0"})
 				ok = false
 				break
 			}
@@ -133,11 +135,11 @@ func ParseReadings(text string) ([]Reading, error) {
 			}
 			prevDays, prevLine[0] = days, n
 		case timeDate:
-			r.Date = date.Format(dateLayout)
+			r.Date = date.Format(solver.DateLayout)
 			if prevLine[1] > 0 {
 				if e := orderError(date.Before(prevDate), date.Equal(prevDate)); e != nil {
 					e.Line, e.Column, e.Text = n, 1, fields[0]
-					e.Detail = fmt.Sprintf("%s %s %s on line %d", r.Date, e.Detail, prevDate.Format(dateLayout), prevLine[1])
+					e.Detail = fmt.Sprintf("%s %s %s on line %d", r.Date, e.Detail, prevDate.Format(solver.DateLayout), prevLine[1])
 					add(e)
 				}
 			}
@@ -167,9 +169,9 @@ func ParseReadings(text string) ([]Reading, error) {
 func orderError(before, same bool) *PasteError {
 	switch {
 	case before:
-		return &PasteError{Err: ErrNotSorted, Detail: "follows"}
+		return &PasteError{Err: solver.ErrNotSorted, Detail: "follows"}
 	case same:
-		return &PasteError{Err: ErrDuplicate, Detail: "repeats"}
+		return &PasteError{Err: solver.ErrDuplicate, Detail: "repeats"}
 	}
 	return nil
 }
@@ -241,7 +243,7 @@ const (
 )
 
 // pasteDateLayouts are the date forms the first column may take.
-var pasteDateLayouts = []string{dateLayout, "2/1/2006", "2.1.2006"}
+var pasteDateLayouts = []string{solver.DateLayout, "2/1/2006", "2.1.2006"}
 
 // parseTime reads the first column: elapsed days or a date.
 func parseTime(s string, decimalComma bool) (days float64, date time.Time, kind int) {
@@ -249,7 +251,7 @@ func parseTime(s string, decimalComma bool) (days float64, date time.Time, kind 
 	switch {
 	case err == nil:
 		return v, time.Time{}, timeDays
-	case errors.Is(err, ErrNotFinite):
+	case errors.Is(err, solver.ErrNotFinite):
 		return 0, time.Time{}, timeBad
 	}
 	for _, l := range pasteDateLayouts {
@@ -274,7 +276,7 @@ func parseNumber(s string, decimalComma bool) (float64, error) {
 	lower := strings.ToLower(s)
 	if strings.Contains(lower, "inf") || strings.Contains(lower, "nan") {
 		if _, err := strconv.ParseFloat(s, 64); err == nil {
-			return 0, ErrNotFinite
+			return 0, solver.ErrNotFinite
 		}
 		return 0, ErrNotNumber
 	}
@@ -286,7 +288,7 @@ func parseNumber(s string, decimalComma bool) (float64, error) {
 	v, err := strconv.ParseFloat(s, 64)
 	switch {
 	case math.IsInf(v, 0):
-		return 0, ErrNotFinite
+		return 0, solver.ErrNotFinite
 	case err != nil && !errors.Is(err, strconv.ErrRange):
 		return 0, ErrNotNumber
 	}

@@ -1,0 +1,156 @@
+package fem
+
+// stepKey identifies one factorisation of M + θΔt·K.
+type stepKey struct{ theta, dt float64 }
+
+// factorCacheFloats bounds the floats a Stepper's factor cache holds;
+// past it the cache is emptied and refilled.
+const factorCacheFloats = 4 << 20
+
+// Stepper advances M u̇ + K u = M ṡ in time by the θ-method,
+//
+//	(M + θΔt K) u¹ = (M − (1−θ)Δt K) u⁰ + M (s¹ − s⁰),
+//
+// with u¹ given at the held nodes. M and K are symmetric band matrices of
+// one shape; the free unknowns are Lo … Hi-1 and Held lists the held
+// nodes (at most the two ends). A diagonal M (Lumped) with a tridiagonal K
+// takes a fused one-pass right-hand side. Each distinct (θ, Δt) is
+// factorised once and reused.
+type Stepper struct {
+	M, K   *Band
+	Lo, Hi int
+	Held   []int
+	// Lumped says M is diagonal (only its first band column is used).
+	Lumped bool
+
+	cache   map[stepKey]*Factor
+	cached  int
+	factors int
+	rhs     []float64
+}
+
+// NewStepper returns a stepper for capacity m and conductivity k with the
+// given held nodes, which must be 0 and/or N-1. It panics when m and k
+// differ in shape.
+func NewStepper(m, k *Band, held []int, lumped bool) *Stepper {
+	if m.N != k.N || m.KD != k.KD {
+		panic("fem: capacity and conductivity differ in shape")
+	}
+	s := &Stepper{M: m, K: k, Lo: 0, Hi: m.N, Held: held, Lumped: lumped,
+		cache: map[stepKey]*Factor{}, rhs: make([]float64, m.N)}
+	for _, j := range held {
+		switch j {
+		case 0:
+			s.Lo = 1
+		case m.N - 1:
+			s.Hi = m.N - 1
+		default:
+			panic("fem: only the end nodes may be held")
+		}
+	}
+	return s
+}
+
+// Factorizations is the number of factorisations made so far.
+func (s *Stepper) Factorizations() int { return s.factors }
+
+// Reset forgets the cached factors, after M or K changed.
+func (s *Stepper) Reset() {
+	clear(s.cache)
+	s.cached = 0
+}
+
+// factorFor returns the factorisation of M + θΔt·K on the free block,
+// computing it once per distinct (θ, Δt).
+func (s *Stepper) factorFor(theta, dt float64) (*Factor, error) {
+	key := stepKey{theta, dt}
+	if f, ok := s.cache[key]; ok {
+		return f, nil
+	}
+	f := new(Factor)
+	if err := FactorizeSum(f, s.M, s.K, theta*dt, s.Lo, s.Hi); err != nil {
+		return nil, err
+	}
+	s.factors++
+	if size := f.Floats(); s.cached+size > factorCacheFloats {
+		s.Reset()
+	}
+	s.cache[key] = f
+	s.cached += f.Floats()
+	return f, nil
+}
+
+// Step advances u by one step of length dt.
+//
+// On entry u holds u⁰ at every node, ds the change of the source s over
+// the step at every node (nil: none) and next the values u¹ of the held
+// nodes, in the order of Held. On return u holds u¹. No allocation once
+// the factor for (θ, Δt) is cached; O(n·kd).
+func (s *Stepper) Step(u, ds, next []float64, theta, dt float64) error {
+	f, err := s.factorFor(theta, dt)
+	if err != nil {
+		return err
+	}
+	rhs := s.rhs
+	c := (1 - theta) * dt
+	if s.Lumped && s.M.KD == 1 {
+		ThetaRHS(rhs, u, ds, s.M.AB, s.K.AB, c)
+	} else {
+		BandThetaRHS(rhs, u, ds, s.M, s.K, c)
+	}
+	for i, j := range s.Held {
+		u[j] = next[i]
+	}
+	MoveHeldSum(rhs, s.M, s.K, theta*dt, u, s.Held)
+	f.Solve(rhs)
+	copy(u[s.Lo:s.Hi], rhs[s.Lo:s.Hi])
+	return nil
+}
+
+// ThetaRHS sets dst = D (u + ds) − c·K u for a diagonal D (the first
+// column of the band storage d) and a tridiagonal K (band storage k, kd =
+// 1), in one pass. ds may be nil (no source change).
+func ThetaRHS(dst, u, ds, d, k []float64, c float64) {
+	n := len(u)
+	if n == 0 {
+		return
+	}
+	// Row i of K·u is k[2(i-1)+1]·u[i-1] + k[2i]·u[i] + k[2i+1]·u[i+1].
+	prev := 0.0 // k[i-1][i]·u[i-1]
+	for i := range n {
+		ku := prev + k[2*i]*u[i]
+		if i+1 < n {
+			ku += k[2*i+1] * u[i+1]
+			prev = k[2*i+1] * u[i]
+		}
+		v := u[i]
+		if ds != nil {
+			v += ds[i]
+		}
+		dst[i] = d[2*i]*v - c*ku
+	}
+}
+
+// BandThetaRHS sets dst = M (u + ds) − c·K u for symmetric band matrices M
+// and K of the same shape, in one pass over their storage. ds may be nil.
+func BandThetaRHS(dst, u, ds []float64, m, k *Band, c float64) {
+	n, ld := m.N, m.KD+1
+	clear(dst[:n])
+	for i := range n {
+		mi, ki := m.AB[i*ld:i*ld+ld], k.AB[i*ld:i*ld+ld]
+		vi := u[i]
+		if ds != nil {
+			vi += ds[i]
+		}
+		acc := mi[0]*vi - c*ki[0]*u[i]
+		for j := 1; j < ld && i+j < n; j++ {
+			vj := u[i+j]
+			if ds != nil {
+				vj += ds[i+j]
+			}
+			acc += mi[j]*vj - c*ki[j]*u[i+j]
+			dst[i+j] += mi[j]*vi - c*ki[j]*u[i]
+		}
+		dst[i] += acc
+	}
+}
