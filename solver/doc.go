@@ -17,6 +17,30 @@
 // SI: m, kPa, kN/m³, day, m/s, 1/kPa. Every function leaves its arguments
 // unchanged unless its documentation says otherwise.
 //
+// # Packages
+//
+// The solver is a small family of packages, one concept each:
+//
+//	solver          the column model, file format, Decode, Validate, defaults, Solve, Result
+//	solver/fem      mesh, elements, assembly, band factorisation, held ends, θ-stepping;
+//	                speaks of c(z), m(z), sources and boundary values, not of soil
+//	solver/soil     soil behaviour: the e–log σ' curve, preconsolidation, secondary
+//	                compression, cv (new soil laws go here)
+//	solver/monitor  pasted readings, Asaoka's method, the back-fit
+//
+// Package solver turns a column into the coefficients of package fem
+// (seepage.go: steady state; transient.go and consolidate.go: the
+// consolidation, one method per phase) and follows every element's soil
+// state (package soil) along the stresses the consolidation gives.
+//
+// # Defaults
+//
+// Every field whose zero value means a default has an exported Default*
+// constant and, where it depends on the project, a Resolve* function
+// (ResolveGammaW, ResolveMesh, ResolveStepping, ResolveTargetDegree,
+// ResolveDesignLife, EndTime). The page's placeholders read the same
+// constants.
+//
 // # Equations
 //
 // Steady seepage solves d/dz (k dh/dz) = 0 for the total head h, with a
@@ -132,18 +156,9 @@
 //
 // Project.Monitoring holds settlement plates and piezometer records, each a
 // list of readings at days after day 0 or at dates counted from
-// Monitoring.Start; Validate checks them with the rest of the project.
-// ParseReadings reads two columns pasted from a spreadsheet (tab, comma or
-// semicolon separated; decimal point or comma; days or dates) and names
-// the line and column of every problem. Asaoka applies Asaoka's (1978)
-// observational method to one settlement record: resampled at equal
-// intervals after the last load change, s_j = β0 + β1 s_(j−1) is fitted by
-// least squares, s∞ = β0/(1 − β1), and cv follows from the first Terzaghi
-// mode, cv = −4d² ln β1/(π² Δt) with d the drainage path (the parabolic
-// isochrone form 5d²/12 is reported beside it). BackFit fits multipliers on
-// k (so on cv) of chosen layers, and optionally one scale on settlement, to
-// the records by least squares with gonum/optimize on the real solver,
-// with standard errors from the Jacobian.
+// Monitoring.Start (DateLayout); Validate checks them with the rest of the
+// project and ReadingTimes resolves their dates. Pasting readings,
+// Asaoka's method and the back-fit live in package solver/monitor.
 //
 // # File format
 //

@@ -1,0 +1,36 @@
+// Package monitor reads field monitoring against a Porelight column: it
+// parses readings pasted from a spreadsheet, applies observational methods
+// to settlement records, and back-fits the column's parameters to the
+// records by least squares on the real solver.
+//
+// # Overview
+//
+// Records live in the project file (solver.Monitoring: settlement plates
+// and piezometers, each a list of readings by day or by date counted from
+// Monitoring.Start) and are validated with the rest of the project by
+// solver.Validate. This package works on them:
+//
+//	rs, err := monitor.ParseReadings(text)            // pasted two-column text
+//	a, err := monitor.PlateAsaoka(p, 0, 0)             // Asaoka on plate 0
+//	fr, err := monitor.BackFit(p, monitor.FitSpec{Layers: []int{1}}, nil)
+//
+// ParseReadings reads tab-, comma-, semicolon- or space-separated columns
+// with a decimal point or comma and days or dates, and names the line and
+// column of every problem (*PasteError).
+//
+// Asaoka applies Asaoka's (1978) observational method to one settlement
+// record: resampled at equal intervals after the last load change, s_j =
+// β0 + β1 s_(j−1) is fitted by least squares, s∞ = β0/(1 − β1), and cv
+// follows from the first Terzaghi mode, cv = −4d² ln β1/(π² Δt), with d
+// the drainage path (the parabolic isochrone form 5d²/12 is reported
+// beside it).
+//
+// BackFit fits multipliers on k (so on cv) of chosen layers, and
+// optionally one scale on settlement, to the records by Gauss–Newton with
+// gonum/optimize, solving the whole column for each trial, with standard
+// errors from the Jacobian (Bates & Watts 1988).
+//
+// The package uses only solver's exported API, so it sees the column as
+// the page and the JavaScript API do. Units: m, kPa, day, m²/day.
+// Functions leave their arguments unchanged.
+package monitor
