@@ -63,12 +63,16 @@ func Pack(in Inputs) ([]byte, error) {
 	if !strings.HasPrefix(in.VuguHelper, HelperMark) {
 		return nil, errors.New("pack: the renderer's helper script does not start as expected; check the vugu version")
 	}
+	wasm, err := CapMemory(in.Wasm, MaxMemoryPages)
+	if err != nil {
+		return nil, err
+	}
 	var gz bytes.Buffer
 	zw, err := gzip.NewWriterLevel(&gz, gzip.BestCompression)
 	if err != nil {
 		return nil, err
 	}
-	if _, err := zw.Write(in.Wasm); err != nil {
+	if _, err := zw.Write(wasm); err != nil {
 		return nil, err
 	}
 	if err := zw.Close(); err != nil {
