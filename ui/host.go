@@ -104,10 +104,18 @@ func (c *Root) solveElsewhere(g int64, s Solver, model *solver.Project) (*solver
 			}
 		}
 	}()
+	// Re-render for progress only when the shown percentage changes, and
+	// at most every 150 ms: each render rebuilds the whole page, and on a
+	// slow machine back-to-back renders would starve the page's frames.
+	var last time.Time
+	shown := -1
 	out, err := s.Solve(ctx, data, func(f float64) {
-		c.Env.Lock()
-		c.progress = f
-		c.Env.UnlockRender()
+		if pc := int(100*f + 0.5); pc != shown && time.Since(last) >= 150*time.Millisecond {
+			shown, last = pc, time.Now()
+			c.Env.Lock()
+			c.progress = f
+			c.Env.UnlockRender()
+		}
 	})
 	switch {
 	case ctx.Err() != nil:

@@ -16,8 +16,9 @@ import (
 	"porelight/solver"
 )
 
-// progressEvery is the least time between two progress messages.
-const progressEvery = 50 * time.Millisecond
+// progressEvery is the least time between two progress messages (a
+// variable for the tests).
+var progressEvery = 50 * time.Millisecond
 
 // serveWorker registers globalThis.goCall(op, projectJSON, progress):
 //
