@@ -21,7 +21,9 @@ import (
 // A project may also be passed as an object; it is stringified first. No
 // call throws: every failure, a panic included, comes back as problems.
 // Calls run to completion before returning, so a long solve holds up the
-// page; the page itself solves in a goroutine instead.
+// page. The page's boot script adds porelight.solveAsync(project), a
+// Promise of the same answer computed in a Web Worker (worker.go); the
+// page itself solves there too.
 type api struct {
 	demo  []byte
 	solve func(*solver.Project, *solver.Options) (*solver.Result, error)
