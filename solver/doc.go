@@ -191,8 +191,9 @@
 // (ErrUnknown), values of the wrong JSON type and a different "format"
 // (ErrFormat). Limits protect a browser tab: at most MaxLayers layers,
 // MaxElements elements, MaxTimes output times, MaxPiezometers piezometers,
-// MaxLoads load stages, MaxSteps time steps and MaxWork nodes × steps
-// (ErrTooLarge, reported at mesh.maxSize or stepping.firstStep).
+// MaxLoads load stages, MaxSteps time steps, MaxWork nodes × steps and
+// MaxStored numbers in one result (ErrTooLarge, reported at mesh.maxSize,
+// stepping.firstStep or times).
 //
 //	field                     unit    allowed                         error when not
 //	format                    –       "porelight/1"                   ErrFormat
@@ -222,6 +223,8 @@
 //	loads[j].profile[k].z     m       finite, increasing              ErrNotFinite, ErrNotSorted
 //	initialExcess[k].z        m       finite, increasing              ErrNotFinite, ErrNotSorted
 //	times[j]                  day     > 0, increasing                 ErrNotPositive, ErrNotSorted
+//	times                     –       nodes × (count + 7) + steps ×   ErrTooLarge
+//	                                  (6 + 2 piezometers) ≤ MaxStored
 //	piezometers[j]            m       0 … column height               ErrNegative, ErrOutOfRange
 //	targetDegree              –       0 < value < 1 (absent: 0.95)    ErrOutOfRange
 //	designLife                day     > 0 (absent: 50 years)          ErrNotPositive

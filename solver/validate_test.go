@@ -84,6 +84,17 @@ func TestValidateRefuses(t *testing.T) {
 			[]decProblem{{"mesh.maxSize", ErrNotFinite}}},
 		{"mesh too fine", func(p *Project) { p.Mesh.MaxSize = 1e-6 },
 			[]decProblem{{"mesh.maxSize", ErrTooLarge}}},
+		// 20,000 linear elements (5 m / 0.00025 m) × 200 output times
+		// hold about 4.1·10⁶ numbers, just over MaxStored; each alone is
+		// well inside MaxElements and MaxTimes.
+		{"result too large", func(p *Project) {
+			p.Mesh.MaxSize = 0.00025
+			p.Loads = []Load{{Q: 10}}
+			p.Times = nil
+			for i := range 200 {
+				p.Times = append(p.Times, float64(i+1))
+			}
+		}, []decProblem{{"times", ErrTooLarge}}},
 		{"negative minPerLayer", func(p *Project) { p.Mesh.MinPerLayer = -1 },
 			[]decProblem{{"mesh.minPerLayer", ErrNegative}}},
 		{"theta below 0.5", func(p *Project) { p.Stepping.Theta = 0.4 },

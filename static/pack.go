@@ -3,7 +3,9 @@
 //
 // Pack writes one HTML file that carries everything inline: the CSS, the
 // demo project, the renderer's helper script, Go's wasm_exec.js, the
-// gzipped WebAssembly program in base 85 (see Encode85) and the boot script. A
+// solve workers' script (inert text until the boot script makes workers
+// of it), the gzipped WebAssembly program in base 85 (see Encode85), its
+// memory capped at MaxMemoryPages, and the boot script. A
 // Content-Security-Policy meta tag forbids every network request, so the
 // page works the same from disk, from a static server and in a sandboxed
 // frame. The command in ./pack runs it for `make page`.
@@ -44,6 +46,8 @@ var (
 	pageCSS string
 	//go:embed shell/boot.js
 	bootJS string
+	//go:embed shell/worker.js
+	workerJS string
 )
 
 // Inputs are the parts of the page.
@@ -63,12 +67,16 @@ func Pack(in Inputs) ([]byte, error) {
 	if !strings.HasPrefix(in.VuguHelper, HelperMark) {
 		return nil, errors.New("pack: the renderer's helper script does not start as expected; check the vugu version")
 	}
+	wasm, err := CapMemory(in.Wasm, MaxMemoryPages)
+	if err != nil {
+		return nil, err
+	}
 	var gz bytes.Buffer
 	zw, err := gzip.NewWriterLevel(&gz, gzip.BestCompression)
 	if err != nil {
 		return nil, err
 	}
-	if _, err := zw.Write(in.Wasm); err != nil {
+	if _, err := zw.Write(wasm); err != nil {
 		return nil, err
 	}
 	if err := zw.Close(); err != nil {
@@ -79,6 +87,7 @@ func Pack(in Inputs) ([]byte, error) {
 		"helper script": in.VuguHelper,
 		"wasm_exec.js":  string(in.WasmExec),
 		"boot script":   bootJS,
+		"worker script": workerJS,
 		"stylesheet":    pageCSS,
 	}
 	for name, s := range parts {
@@ -100,6 +109,7 @@ func Pack(in Inputs) ([]byte, error) {
 		"WasmGz":     wrap(Encode85(gz.Bytes()), 120),
 		"WasmLen":    strconv.Itoa(gz.Len()),
 		"Boot":       bootJS,
+		"WorkerShim": workerJS,
 	})
 	if err != nil {
 		return nil, err

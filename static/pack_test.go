@@ -3,6 +3,7 @@ package static
 import (
 	"bytes"
 	"compress/gzip"
+	"fmt"
 	"io"
 	"os/exec"
 	"regexp"
@@ -11,9 +12,27 @@ import (
 	"testing"
 )
 
+// module is a WebAssembly module of a custom section holding payload and
+// the memory section mem (omitted when nil), as Go's linker lays out
+// its memory: one memory, its section size padded to five bytes.
+func module(payload []byte, mem []byte) []byte {
+	b := []byte("\x00asm\x01\x00\x00\x00")
+	b = append(b, 0)
+	b = appendULEB(b, uint32(1+4+len(payload)))
+	b = append(b, 4)
+	b = append(b, "test"...)
+	b = append(b, payload...)
+	if mem != nil {
+		n := uint32(len(mem))
+		b = append(b, 5, byte(n)|0x80, 0x80, 0x80, 0x80, 0)
+		b = append(b, mem...)
+	}
+	return b
+}
+
 func testInputs() Inputs {
 	return Inputs{
-		Wasm:       append([]byte("\x00asm\x01\x00\x00\x00"), bytes.Repeat([]byte("program"), 100)...),
+		Wasm:       module(bytes.Repeat([]byte("program"), 100), []byte{1, 0, 0x43}),
 		WasmExec:   []byte("globalThis.Go = class {};"),
 		VuguHelper: HelperMark + "window.vuguRender=function(){};})()",
 		Demo:       []byte(`{"format": "porelight/1", "title": "A & B <i>"}`),
@@ -63,8 +82,12 @@ func TestPack(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if !bytes.Equal(got, in.Wasm) {
-		t.Error("the embedded program differs from the input")
+	want, err := CapMemory(in.Wasm, MaxMemoryPages)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !bytes.Equal(got, want) {
+		t.Error("the embedded program differs from the input with its memory capped")
 	}
 }
 
@@ -143,5 +166,94 @@ func TestBase85(t *testing.T) {
 	}
 	if _, err := Decode85("!!!!<", 4); err == nil {
 		t.Error("a character outside the alphabet was accepted")
+	}
+}
+
+// TestCapMemory rewrites the memory limits of small modules; the byte
+// strings follow the binary format of WebAssembly 2.0 (§5.3.5 limits,
+// §5.5.8 memory section, §5.1 LEB128).
+func TestCapMemory(t *testing.T) {
+	payload := []byte("code and data stay as they were")
+	tests := []struct {
+		name    string
+		mem     []byte // the memory section's body before
+		max     uint32
+		want    []byte // after; nil when CapMemory must fail
+		wantErr string
+	}{
+		{"Go's layout: no maximum", []byte{1, 0, 0x43}, 16384, []byte{1, 1, 0x43, 0x80, 0x80, 0x01}, ""},
+		{"a two-byte minimum", []byte{1, 0, 0x80, 0x01}, 16384, []byte{1, 1, 0x80, 0x01, 0x80, 0x80, 0x01}, ""},
+		{"a larger maximum is lowered", []byte{1, 1, 2, 0x80, 0x80, 0x04}, 16384, []byte{1, 1, 2, 0x80, 0x80, 0x01}, ""},
+		{"a smaller maximum is kept", []byte{1, 1, 2, 10}, 16384, []byte{1, 1, 2, 10}, ""},
+		{"minimum above the cap", []byte{1, 0, 0x80, 0x02}, 200, nil, "more than the cap"},
+		{"two memories", []byte{2, 0, 1, 0, 1}, 16384, nil, "2 memories"},
+		{"shared memory", []byte{1, 3, 1, 2}, 16384, nil, "not supported"},
+		{"truncated limits", []byte{1, 0}, 16384, nil, "truncated"},
+		{"trailing bytes", []byte{1, 0, 1, 9}, 16384, nil, "unexpected bytes"},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			got, err := CapMemory(module(payload, tt.mem), tt.max)
+			if tt.want == nil {
+				if err == nil || !strings.Contains(err.Error(), tt.wantErr) {
+					t.Fatalf("error %v, want one saying %q", err, tt.wantErr)
+				}
+				return
+			}
+			if err != nil {
+				t.Fatal(err)
+			}
+			want := module(payload, nil)
+			want = append(want, 5)
+			want = appendULEB(want, uint32(len(tt.want)))
+			want = append(want, tt.want...)
+			if !bytes.Equal(got, want) {
+				t.Errorf("got  % x\nwant % x", got, want)
+			}
+		})
+	}
+	for _, bad := range [][]byte{
+		[]byte("MZ not a module"),
+		module(payload, nil),                                    // no memory
+		append(module(payload, []byte{1, 0, 1}), 5, 3, 1, 0, 1), // two memory sections
+		append(module(payload, []byte{1, 0, 1}), 0, 9, 1),       // a section past the end
+	} {
+		if _, err := CapMemory(bad, 16384); err == nil {
+			t.Errorf("no error for % x", bad)
+		}
+	}
+}
+
+// TestCapMemoryValid has node compile the capped module and grow its
+// memory: up to the cap it grows, one page more fails. Skipped without
+// node.
+func TestCapMemoryValid(t *testing.T) {
+	node, err := exec.LookPath("node")
+	if err != nil {
+		t.Skip("node not found")
+	}
+	// An export section (id 7) exports memory 0 as "mem".
+	m := module(nil, []byte{1, 0, 1})
+	m = append(m, 7, 7, 1, 3, 'm', 'e', 'm', 2, 0)
+	capped, err := CapMemory(m, 4)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var hex strings.Builder
+	for _, c := range capped {
+		fmt.Fprintf(&hex, "%02x", c)
+	}
+	js := `const b = Buffer.from("` + hex.String() + `", "hex");
+const mem = new WebAssembly.Instance(new WebAssembly.Module(b)).exports.mem;
+mem.grow(3);
+let over = "grew";
+try { mem.grow(1); } catch (e) { over = e.constructor.name; }
+console.log(mem.buffer.byteLength / 65536, over);`
+	out, err := exec.Command(node, "-e", js).CombinedOutput()
+	if err != nil {
+		t.Fatalf("node: %v\n%s", err, out)
+	}
+	if got := strings.TrimSpace(string(out)); got != "4 RangeError" {
+		t.Errorf("node says %q, want 4 pages and a RangeError past the cap", got)
 	}
 }

@@ -1,6 +1,14 @@
 package ui
 
-import "errors"
+import (
+	"bytes"
+	"context"
+	"encoding/json"
+	"errors"
+	"time"
+
+	"porelight/solver"
+)
 
 // Host is what the page around the components provides: the browser's
 // storage, downloads, files and the time slices of a long solve. wasm/
@@ -48,3 +56,96 @@ func (nopHost) ReadFile(_ string, done func(string, []byte, error)) {
 }
 
 var errNoHost = errors.New("not available outside the browser")
+
+// Solver is a Host that can solve away from the page's own thread; wasm/
+// runs each solve in a Web Worker running the same program, so that a
+// solve that runs out of memory or never ends takes only its worker with
+// it. Root uses it when its Host has it and Root.Solve is nil, and solves
+// in-process otherwise (native tests, or where the browser gives no
+// worker).
+type Solver interface {
+	// Solve solves the project JSON and returns the result JSON, as the
+	// JavaScript API's solve does: a result, or {"error": {"problems":
+	// [...]}} for a project that cannot be solved, a crashed worker or a
+	// solve that ran too long. It blocks until then, so it is called from
+	// the solve goroutine only; progress receives fractions of the solve
+	// on that goroutine. Cancelling ctx abandons the solve (the worker is
+	// stopped) and returns ctx's error. ErrNoWorker means nothing was
+	// solved: solve in-process instead.
+	Solve(ctx context.Context, project []byte, progress func(float64)) (result []byte, err error)
+}
+
+// ErrNoWorker is the error of Solver.Solve when the browser cannot run
+// workers here.
+var ErrNoWorker = errors.New("no solve worker")
+
+// solveElsewhere solves model through s. A newer edit or Cancel (a new
+// generation) stops it. The error is ErrNoWorker, solver.ErrCanceled or
+// the problems of the answer.
+func (c *Root) solveElsewhere(g int64, s Solver, model *solver.Project) (*solver.Result, error) {
+	data, err := json.Marshal(solveInput(model))
+	if err != nil {
+		return nil, err
+	}
+	ctx, stop := context.WithCancel(context.Background())
+	defer stop()
+	go func() {
+		tick := time.NewTicker(50 * time.Millisecond)
+		defer tick.Stop()
+		for {
+			select {
+			case <-ctx.Done():
+				return
+			case <-tick.C:
+				if c.gen.Load() != g {
+					stop()
+					return
+				}
+			}
+		}
+	}()
+	// Re-render for progress only when the shown percentage changes, and
+	// at most every 150 ms: each render rebuilds the whole page, and on a
+	// slow machine back-to-back renders would starve the page's frames.
+	var last time.Time
+	shown := -1
+	out, err := s.Solve(ctx, data, func(f float64) {
+		if pc := int(100*f + 0.5); pc != shown && time.Since(last) >= 150*time.Millisecond {
+			shown, last = pc, time.Now()
+			c.Env.Lock()
+			c.progress = f
+			c.Env.UnlockRender()
+		}
+	})
+	switch {
+	case ctx.Err() != nil:
+		return nil, solver.ErrCanceled
+	case err != nil:
+		return nil, err
+	}
+	return decodeAnswer(out)
+}
+
+// decodeAnswer reads a solve answer: a result, or the problems of
+// {"error": {"problems": [...]}}.
+func decodeAnswer(out []byte) (*solver.Result, error) {
+	if bytes.HasPrefix(bytes.TrimSpace(out), []byte(`{"error"`)) {
+		var e struct {
+			Error struct {
+				Problems solver.Problems `json:"problems"`
+			} `json:"error"`
+		}
+		if err := json.Unmarshal(out, &e); err != nil {
+			return nil, errors.New("the solver's answer could not be read: " + err.Error())
+		}
+		if len(e.Error.Problems) == 0 {
+			return nil, errors.New("the solver failed without saying why")
+		}
+		return nil, e.Error.Problems
+	}
+	var r solver.Result
+	if err := json.Unmarshal(out, &r); err != nil {
+		return nil, errors.New("the solver's answer could not be read: " + err.Error())
+	}
+	return &r, nil
+}

@@ -182,8 +182,9 @@ func (c *Root) commit(wait time.Duration) {
 	}()
 }
 
-// run solves model, yielding to the browser every 40 ms or so and giving
-// up as soon as a newer edit arrives. A panic becomes an error: one
+// run solves model in the host's worker, or else in-process, yielding
+// to the browser every 40 ms or so; either way it gives up as soon as a
+// newer edit arrives. A panic becomes an error: one
 // escaping would stop the whole page.
 func (c *Root) run(g int64, model *solver.Project) (res *solver.Result, err error) {
 	defer func() {
@@ -191,6 +192,12 @@ func (c *Root) run(g int64, model *solver.Project) (res *solver.Result, err erro
 			err = fmt.Errorf("internal error in the solver: %v\n%s", r, debug.Stack())
 		}
 	}()
+	if s, ok := c.host().(Solver); ok && c.Solve == nil && c.Env != nil {
+		res, err := c.solveElsewhere(g, s, model)
+		if !errors.Is(err, ErrNoWorker) {
+			return res, err
+		}
+	}
 	solve := c.Solve
 	if solve == nil {
 		solve = solver.Solve

@@ -21,7 +21,9 @@ import (
 // A project may also be passed as an object; it is stringified first. No
 // call throws: every failure, a panic included, comes back as problems.
 // Calls run to completion before returning, so a long solve holds up the
-// page; the page itself solves in a goroutine instead.
+// page. The page's boot script adds porelight.solveAsync(project), a
+// Promise of the same answer computed in a Web Worker (worker.go); the
+// page itself solves there too.
 type api struct {
 	demo  []byte
 	solve func(*solver.Project, *solver.Options) (*solver.Result, error)
@@ -48,30 +50,40 @@ func problemsJSON(ps solver.Problems) string {
 }
 
 // Solve decodes, validates and solves one project.
-func (a *api) Solve(project string) (out string) {
+func (a *api) Solve(project string) string {
+	return string(a.solveJSON([]byte(project), nil))
+}
+
+// solveJSON is Solve on bytes; progress, when not nil, receives the
+// solver's progress (fractions of the simulated time).
+func (a *api) solveJSON(project []byte, progress func(float64)) (out []byte) {
 	defer func() {
 		if r := recover(); r != nil {
-			out = problemsJSON(solver.Problems{{Path: "", Message: fmt.Sprintf("internal error: %v", r)}})
-			println("porelight: solve panicked:", fmt.Sprint(r), string(debug.Stack()))
+			out = []byte(problemsJSON(solver.Problems{{Path: "", Message: fmt.Sprintf("internal error: %v", r)}}))
+			println("porelight: solve failed:", fmt.Sprint(r), string(debug.Stack()))
 		}
 	}()
-	p, err := solver.Decode([]byte(project))
+	p, err := solver.Decode(project)
 	if err != nil {
-		return problemsJSON(solver.AsProblems(err))
+		return []byte(problemsJSON(solver.AsProblems(err)))
 	}
 	solve := a.solve
 	if solve == nil {
 		solve = solver.Solve
 	}
-	res, err := solve(p, nil)
+	var opt *solver.Options
+	if progress != nil {
+		opt = &solver.Options{Progress: func(f float64) bool { progress(f); return true }}
+	}
+	res, err := solve(p, opt)
 	if err != nil {
-		return problemsJSON(solver.AsProblems(err))
+		return []byte(problemsJSON(solver.AsProblems(err)))
 	}
 	data, err := json.Marshal(res)
 	if err != nil {
-		return problemsJSON(solver.Problems{{Path: "", Message: "the result could not be encoded: " + err.Error()}})
+		return []byte(problemsJSON(solver.Problems{{Path: "", Message: "the result could not be encoded: " + err.Error()}}))
 	}
-	return string(data)
+	return data
 }
 
 // Validate returns the problems of a project as a JSON list.

@@ -3,12 +3,14 @@
 package main
 
 import (
+	"context"
 	"errors"
 	"fmt"
 	"strings"
 	"syscall/js"
 
 	"porelight/solver"
+	"porelight/ui"
 )
 
 // host gives the UI the browser: storage, downloads, files, yielding.
@@ -178,3 +180,76 @@ func (host) CopyText(inputID string) error {
 }
 
 func (host) Print() { _ = catch(func() { js.Global().Call("print") }) }
+
+// Solve runs the solve in the page's worker pool (globalThis.porelightWorkers,
+// kept by the boot script; see ui.Solver). Answers come through JavaScript
+// callbacks, which only hand them to channels: the solve goroutine waits
+// here, the browser's event loop never does.
+func (host) Solve(ctx context.Context, project []byte, progress func(float64)) ([]byte, error) {
+	pool := js.Global().Get("porelightWorkers")
+	if pool.Type() != js.TypeObject {
+		return nil, ui.ErrNoWorker
+	}
+	type answer struct {
+		data     []byte
+		noWorker string
+	}
+	done := make(chan answer, 1)
+	fractions := make(chan float64, 1)
+	onProgress := js.FuncOf(func(_ js.Value, args []js.Value) any {
+		if len(args) == 0 || args[0].Type() != js.TypeNumber {
+			return nil
+		}
+		f := args[0].Float()
+		select { // keep only the newest
+		case <-fractions:
+		default:
+		}
+		select {
+		case fractions <- f:
+		default:
+		}
+		return nil
+	})
+	onDone := js.FuncOf(func(_ js.Value, args []js.Value) any {
+		var a answer
+		switch {
+		case len(args) > 1 && args[1].Truthy():
+			a.noWorker = args[1].String()
+		case len(args) > 0 && args[0].InstanceOf(js.Global().Get("Uint8Array")):
+			a.data = make([]byte, args[0].Get("length").Int())
+			js.CopyBytesToGo(a.data, args[0])
+		default:
+			a.noWorker = "the worker pool gave no answer"
+		}
+		select {
+		case done <- a:
+		default:
+		}
+		return nil
+	})
+	// The pool calls neither function after it has answered or the
+	// solve was cancelled, so releasing them on return is safe.
+	defer onProgress.Release()
+	defer onDone.Release()
+	var cancel js.Value
+	if err := catch(func() { cancel = pool.Call("call", "solve", string(project), onProgress, onDone) }); err != nil {
+		return nil, fmt.Errorf("%w: %v", ui.ErrNoWorker, err)
+	}
+	for {
+		select {
+		case f := <-fractions:
+			progress(f)
+		case a := <-done:
+			if a.noWorker != "" {
+				return nil, fmt.Errorf("%w: %s", ui.ErrNoWorker, a.noWorker)
+			}
+			return a.data, nil
+		case <-ctx.Done():
+			if cancel.Type() == js.TypeFunction {
+				_ = catch(func() { cancel.Invoke() })
+			}
+			return nil, ctx.Err()
+		}
+	}
+}

@@ -23,7 +23,8 @@ func main() {
 	a.register(js.Global())
 	doc := js.Global().Get("document")
 	if doc.IsUndefined() {
-		select {} // a worker or node: the API only
+		serveWorker(a) // a worker or node: the API and goCall only
+		select {}
 	}
 	run(a.demo)
 }

@@ -1,0 +1,106 @@
+//go:build js && wasm
+
+package main
+
+// Worker mode. The page runs solves in Web Workers that run this same
+// program (static/shell/worker.js is the worker's script; boot.js keeps
+// the pool). Where there is no document, main registers goCall and tells
+// the worker script it is ready; every call runs to completion inside
+// goCall, which holds up only its own worker.
+
+import (
+	"fmt"
+	"syscall/js"
+	"time"
+
+	"porelight/solver"
+)
+
+// progressEvery is the least time between two progress messages (a
+// variable for the tests).
+var progressEvery = 50 * time.Millisecond
+
+// serveWorker registers globalThis.goCall(op, projectJSON, progress):
+//
+//	op "solve"     → the result JSON, as porelight.solve returns it
+//	op "validate"  → the problems JSON, as porelight.validate returns it
+//	op "fault-oom", "fault-hang", "fault-panic" → run out of memory,
+//	               loop for ever, panic outside any recover: the browser
+//	               tests' way to check that the page survives its workers
+//
+// The answer is a Uint8Array of UTF-8 JSON (the worker script transfers
+// its buffer to the page). progress, a function or undefined, receives
+// fractions of the solve at most every progressEvery. Then it calls
+// globalThis.goReady, if defined.
+func serveWorker(a *api) {
+	js.Global().Set("goCall", js.FuncOf(func(_ js.Value, args []js.Value) any {
+		op, project, progress := "", "", js.Undefined()
+		if len(args) > 0 && args[0].Type() == js.TypeString {
+			op = args[0].String()
+		}
+		if len(args) > 1 && args[1].Type() == js.TypeString {
+			project = args[1].String()
+		}
+		if len(args) > 2 {
+			progress = args[2]
+		}
+		return toJS(a.call(op, []byte(project), progress))
+	}))
+	if ready := js.Global().Get("goReady"); ready.Type() == js.TypeFunction {
+		ready.Invoke()
+	}
+}
+
+// call answers one goCall.
+func (a *api) call(op string, project []byte, progress js.Value) []byte {
+	switch op {
+	case "solve":
+		var report func(float64)
+		if progress.Type() == js.TypeFunction {
+			last := time.Now()
+			report = func(f float64) {
+				if now := time.Now(); now.Sub(last) >= progressEvery {
+					last = now
+					_ = catch(func() { progress.Invoke(f) })
+				}
+			}
+		}
+		return a.solveJSON(project, report)
+	case "validate":
+		return []byte(a.Validate(string(project)))
+	case "fault-oom":
+		exhaustMemory()
+	case "fault-hang":
+		for {
+			spins++
+		}
+	case "fault-panic":
+		// A panic escaping goCall ends the program, as a bug would.
+		panic("porelight: the fault-panic test hook")
+	}
+	return []byte(problemsJSON(solver.Problems{{Path: "", Message: fmt.Sprintf("unknown worker call %q", op)}}))
+}
+
+var (
+	hoard [][]byte // what exhaustMemory holds on to
+	spins int
+)
+
+// exhaustMemory allocates 32 MiB blocks, writing to each, until the Go
+// runtime runs out of memory and ends the program.
+func exhaustMemory() {
+	for {
+		b := make([]byte, 32<<20)
+		for i := 0; i < len(b); i += 4096 {
+			b[i] = 1
+		}
+		hoard = append(hoard, b)
+	}
+}
+
+// toJS copies b into a new Uint8Array.
+func toJS(b []byte) js.Value {
+	arr := js.Global().Get("Uint8Array").New(len(b))
+	js.CopyBytesToJS(arr, b)
+	return arr
+}
