@@ -24,11 +24,13 @@ vet:
 test-native:
 	$(GO) test -short -count=1 ./...
 
-# Package tests of the js/wasm build under node (skipped without node).
+# Package tests of the js/wasm build under node. Without node they are
+# skipped, except under CI (CI set), where a skip would pass unseen.
 test-wasm:
 	@if command -v node >/dev/null; then \
 		echo 'GOOS=js GOARCH=wasm $(GO) test -exec=$(WASMEXEC) ./wasm/... ./ui/...'; \
 		GOOS=js GOARCH=wasm $(GO) test -count=1 -exec="$(WASMEXEC)" ./wasm/... ./ui/...; \
+	elif [ -n "$$CI" ]; then echo "node not found, and CI is set: the js/wasm package tests cannot run"; exit 1; \
 	else echo "node not found: skipping the js/wasm package tests"; fi
 
 # Regenerate the vugu components' Go code (committed; see DEVELOPERS.md).

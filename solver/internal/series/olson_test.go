@@ -7,9 +7,10 @@ import (
 	"gonum.org/v1/gonum/integrate/quad"
 )
 
-// olsonPrinted sums Olson's (1977) series for U as printed (PUBLISHED.md),
-// term by term with 200000 terms: the terms fall as 1/M⁴, so the tail is
-// below 1e-17. (exp(M²Tc) − 1) exp(−M²Tv) is evaluated as
+// olsonPrinted sums the series for U as printed by Olson, R.E. (1977),
+// Consolidation under time-dependent loading, J. Geotech. Eng. Div., ASCE,
+// 103(GT1), 55–60, term by term with 200000 terms: the terms fall as 1/M⁴,
+// so the tail is below 1e-17. (exp(M²Tc) − 1) exp(−M²Tv) is evaluated as
 // exp(−M²(Tv−Tc)) − exp(−M²Tv) to avoid overflow.
 func olsonPrinted(Tv, Tc float64) float64 {
 	var sum float64

@@ -7,8 +7,9 @@ import (
 	"gonum.org/v1/gonum/integrate/quad"
 )
 
-// TestTerzaghiUTable checks the U–Tv table of Terzaghi (1943) as reproduced
-// in most soil mechanics texts (PUBLISHED.md, from memory). The series is
+// TestTerzaghiUTable checks the U–Tv table of Terzaghi, K. (1943),
+// Theoretical Soil Mechanics, Wiley, as reproduced in most soil mechanics
+// texts, whose digits are checked here rather than trusted. The series is
 // the reference: TvForU(U) must round to the printed three decimals, that
 // is lie within 0.0005 of them. For U = 60 % the series gives 0.28640, so
 // 0.286 is the correctly rounded value; the 0.287 of some texts is 0.0006
@@ -76,8 +77,9 @@ func TestTerzaghiUClosedForms(t *testing.T) {
 	}
 }
 
-// TestTerzaghiApproximations checks the approximations quoted in texts
-// (PUBLISHED.md, from memory) against the series. Tv = (π/4)U² is the
+// TestTerzaghiApproximations checks the approximations to Terzaghi's (1943)
+// series quoted in soil mechanics texts, which have no single original
+// source, against the series. Tv = (π/4)U² is the
 // first image term alone, so it is exact to 1e-6 (relative) up to U = 0.3;
 // it errs by 0.2 % at U = 0.5 and 1.3 % at U = 0.6 (values from the
 // series, printed on failure). Tv = 1.781 − 0.933 log10(100 − U%) is the
