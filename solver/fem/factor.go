@@ -47,7 +47,8 @@ func Factorize(dst *Factor, a *Band, lo, hi int) error {
 
 // FactorizeSum is Factorize for a + c·b, formed on the way into dst's
 // storage (b nil means a alone), so that M + θΔt·K needs no scratch band.
-// a and b must have the same shape.
+// a and b must have the same shape. After an error dst holds no usable
+// factor and must not be solved with.
 func FactorizeSum(dst *Factor, a, b *Band, c float64, lo, hi int) error {
 	if b != nil && (b.N != a.N || b.KD != a.KD) {
 		panic("fem: FactorizeSum of bands of different shapes")

@@ -20,7 +20,10 @@ type Stepper struct {
 	M, K   *Band
 	Lo, Hi int
 	Held   []int
-	// Lumped says M is diagonal (only its first band column is used).
+	// Lumped says M is diagonal (its off-diagonal band entries are
+	// zero), which lets a tridiagonal K take the fused right-hand side
+	// that reads only M's diagonal. Setting it for a non-diagonal M gives
+	// inconsistent equations.
 	Lumped bool
 
 	cache   map[stepKey]*Factor
