@@ -1,5 +1,7 @@
 package solver
 
+import "sort"
+
 // Result is everything one solve computes. It is plain data and encodes to
 // the JSON that the page and the JavaScript API hand out. Units as in
 // Project: m, kPa, day, m/s.
@@ -123,6 +125,24 @@ type Series struct {
 	// Piezometers holds the pore pressure histories at the requested
 	// depths, in the order given.
 	Piezometers []Piezometer `json:"piezometers,omitempty"`
+}
+
+// SeriesAt is the value at time t of a history ys recorded at the times
+// ts (a Series' Time with one of its columns), interpolated linearly
+// between the recorded times and held at the first and last values
+// beyond them. Where a time appears twice (a jump), SeriesAt gives the
+// first of its two values. ts must increase and have the length of ys,
+// at least 1; otherwise SeriesAt panics or returns nonsense. O(log n).
+func SeriesAt(ts, ys []float64, t float64) float64 {
+	i := sort.SearchFloat64s(ts, t)
+	switch {
+	case i == 0:
+		return ys[0]
+	case i == len(ts):
+		return ys[len(ys)-1]
+	}
+	t0, t1 := ts[i-1], ts[i]
+	return ys[i-1] + (ys[i]-ys[i-1])*(t-t0)/(t1-t0)
 }
 
 // Piezometer is a pore pressure history at one depth.
