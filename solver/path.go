@@ -51,7 +51,8 @@ var ErrPath = errors.New("not a field path")
 //
 // Special cases are: "" (the whole project), an empty name ("a..b",
 // "[1]"), a bracket not closed at the end of its step ("a[1", "a[1]b"),
-// an index that is not a decimal number ≥ 0 ("a[-1]", "a[x]", "a[]") and
+// an index that is not a decimal number ≥ 0 written as IndexPath writes
+// it ("a[-1]", "a[x]", "a[]", "a[01]") and
 // two indices in one step ("a[1][2]") are refused with an error wrapping
 // ErrPath.
 func ParsePath(path string) ([]PathStep, error) {
@@ -80,9 +81,10 @@ func ParsePath(path string) ([]PathStep, error) {
 	return steps, nil
 }
 
-// index reads a list index: decimal digits only (no sign, no space).
+// index reads a list index: decimal digits only, without a sign, a space
+// or a leading zero, so that IndexPath writes it back the same.
 func index(s string) (int, bool) {
-	if s == "" {
+	if s == "" || len(s) > 1 && s[0] == '0' {
 		return 0, false
 	}
 	for _, r := range s {

@@ -42,6 +42,8 @@ func TestParsePath(t *testing.T) {
 		{"a[]", nil},
 		{"a[-1]", nil},
 		{"a[+1]", nil},
+		{"a[01]", nil}, // would rebuild as "a[1]"
+		{"a[0]", []PathStep{{"a", 0}}},
 		{"a[ 1]", nil},
 		{"a[x]", nil},
 		{"a[1][2]", nil},
