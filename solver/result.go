@@ -1,6 +1,9 @@
 package solver
 
-import "sort"
+import (
+	"math"
+	"sort"
+)
 
 // Result is everything one solve computes. It is plain data and encodes to
 // the JSON that the page and the JavaScript API hand out. Units as in
@@ -143,6 +146,15 @@ func SeriesAt(ts, ys []float64, t float64) float64 {
 	}
 	t0, t1 := ts[i-1], ts[i]
 	return ys[i-1] + (ys[i]-ys[i-1])*(t-t0)/(t1-t0)
+}
+
+// SameDepth reports whether two depths, m, name the same point of the
+// column, such as a piezometer record's depth and one of Project.Piezometers
+// (so one of Series.Piezometers): |a − b| ≤ 1e-9·max(1 m, |a|), far below
+// what a depth is typed to and above the rounding it picks up on the way
+// through a file.
+func SameDepth(a, b float64) bool {
+	return math.Abs(a-b) <= 1e-9*math.Max(1, math.Abs(a))
 }
 
 // Piezometer is a pore pressure history at one depth.

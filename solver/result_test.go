@@ -38,3 +38,25 @@ func TestSeriesAt(t *testing.T) {
 		t.Errorf("one point: got %g, want 2", got)
 	}
 }
+
+// SameDepth's tolerance is 1e-9 of the depth, at least 1e-9 m (its doc).
+func TestSameDepth(t *testing.T) {
+	t.Parallel()
+	cases := []struct {
+		a, b float64
+		want bool
+	}{
+		{3, 3, true},
+		{3, 3 + 2e-9, true},    // within 3e-9 m
+		{3, 3 + 4e-9, false},   // beyond it
+		{0, 9e-10, true},       // near the top: 1e-9 m
+		{0, 2e-9, false},       //
+		{0.1 + 0.2, 0.3, true}, // rounding of a typed sum
+		{2, 2.001, false},      // a millimetre apart
+	}
+	for _, tc := range cases {
+		if got := SameDepth(tc.a, tc.b); got != tc.want {
+			t.Errorf("SameDepth(%.17g, %.17g) = %v, want %v", tc.a, tc.b, got, tc.want)
+		}
+	}
+}
