@@ -1,14 +1,17 @@
-package ui
+package form
 
 import (
 	"fmt"
 	"slices"
+	"strings"
 
 	"porelight/solver"
 )
 
 // Structural edits of the draft: rows of the layer, load and pressure
-// history tables. Each keeps the typed text with its row.
+// history tables (the field records' are in records.go). Each keeps the
+// typed text with its row: the text typed into layers[3].k follows the
+// layer when a row above it is removed and becomes layers[2].k.
 
 // AddLayer inserts a layer below row i (at the top when i < 0), a copy of
 // row i so that the new row starts from plausible values.
@@ -39,7 +42,7 @@ func (f *Form) RemoveLayer(i int) {
 		return
 	}
 	f.draft.Layers = slices.Delete(f.draft.Layers, i, i+1)
-	f.remap("layers", shiftOut(i))
+	f.remap("layers", Removed(i))
 	f.check()
 }
 
@@ -80,13 +83,13 @@ func (f *Form) RemoveLoad(i int) {
 		return
 	}
 	f.draft.Loads = slices.Delete(f.draft.Loads, i, i+1)
-	f.remap("loads", shiftOut(i))
+	f.remap("loads", Removed(i))
 	f.check()
 }
 
 // AddExcess appends a point to the pressure history of a drained end.
 func (f *Form) AddExcess(end string) {
-	b := boundary(&f.draft, end)
+	b := Boundary(&f.draft, end)
 	tv := solver.TimeValue{}
 	if n := len(b.Excess); n > 0 {
 		tv = solver.TimeValue{T: b.Excess[n-1].T + 30, Value: b.Excess[n-1].Value}
@@ -97,7 +100,7 @@ func (f *Form) AddExcess(end string) {
 
 // RemoveExcess deletes point i of the pressure history of an end.
 func (f *Form) RemoveExcess(end string, i int) {
-	b := boundary(&f.draft, end)
+	b := Boundary(&f.draft, end)
 	if i < 0 || i >= len(b.Excess) {
 		return
 	}
@@ -105,12 +108,13 @@ func (f *Form) RemoveExcess(end string, i int) {
 	if len(b.Excess) == 0 {
 		b.Excess = nil
 	}
-	f.remap(end+".excess", shiftOut(i))
+	f.remap(solver.JoinPath(end, "excess"), Removed(i))
 	f.check()
 }
 
-// shiftOut renumbers the rows after removing row i.
-func shiftOut(i int) func(int) int {
+// Removed is the renumbering of RemapKeys after row i of a list was
+// removed: row i goes (−1), the rows after it move up by one.
+func Removed(i int) func(old int) int {
 	return func(old int) int {
 		switch {
 		case old == i:
@@ -120,4 +124,80 @@ func shiftOut(i int) func(int) int {
 		}
 		return old
 	}
+}
+
+// dropRaw forgets typed text at path and below it.
+func (f *Form) dropRaw(prefix string) {
+	for _, m := range []map[string]string{f.raw, f.bad} {
+		for k := range m {
+			if under(k, prefix) {
+				delete(m, k)
+			}
+		}
+	}
+}
+
+// under reports whether path is prefix or a value inside it.
+func under(path, prefix string) bool {
+	return path == prefix || strings.HasPrefix(path, prefix+".") || strings.HasPrefix(path, prefix+"[")
+}
+
+// remap renumbers the typed text of the items of list (e.g. "layers")
+// after a structural edit.
+func (f *Form) remap(list string, to func(old int) int) {
+	RemapKeys(f.raw, list, to)
+	RemapKeys(f.bad, list, to)
+}
+
+// RemapKeys renumbers the keys of m that are field paths into items of
+// list after a structural edit of that list: the key of item old moves to
+// item to(old), or is deleted when to(old) < 0. With list
+// "monitoring.plates", the key "monitoring.plates[2].readings[0].t" moves
+// to "monitoring.plates[1].readings[0].t" under Removed(0). Other keys stay.
+// Components keep their own per-row state in such maps, keyed like the
+// form's typed text.
+func RemapKeys[V any](m map[string]V, list string, to func(old int) int) {
+	moved := map[string]V{}
+	for k, v := range m {
+		old, rest, ok := itemOf(k, list)
+		if !ok {
+			continue
+		}
+		delete(m, k)
+		if n := to(old); n >= 0 {
+			moved[solver.IndexPath(list, n)+rest] = v
+		}
+	}
+	for k, v := range moved {
+		m[k] = v
+	}
+}
+
+// itemOf splits a field path into the index of its item of list and the
+// rest of the path after that item: itemOf("layers[2].ecurve.cc",
+// "layers") is 2, ".ecurve.cc". ok is false when path is not inside an
+// item of list.
+func itemOf(path, list string) (i int, rest string, ok bool) {
+	steps, err := solver.ParsePath(path)
+	if err != nil {
+		return 0, "", false
+	}
+	at := ""
+	for _, st := range steps {
+		at = solver.JoinPath(at, st.Name)
+		if at == list {
+			if st.Index < 0 {
+				return 0, "", false
+			}
+			// ParsePath's paths rebuild exactly, so the item is a prefix.
+			return st.Index, path[len(solver.IndexPath(at, st.Index)):], true
+		}
+		if st.Index >= 0 {
+			at = solver.IndexPath(at, st.Index)
+		}
+		if len(at) >= len(list) {
+			return 0, "", false
+		}
+	}
+	return 0, "", false
 }
