@@ -12,17 +12,16 @@ import (
 // the JSON names of the solver's types, so that a field added to
 // solver.Project can be edited without a change here.
 
-// fieldByJSON returns the field of struct value v whose JSON name is name.
-func fieldByJSON(v reflect.Value, name string) (reflect.Value, bool) {
-	t := v.Type()
+// fieldByJSON returns the field of struct type t whose JSON name is name.
+func fieldByJSON(t reflect.Type, name string) (reflect.StructField, bool) {
 	for i := range t.NumField() {
 		f := t.Field(i)
 		tag, _, _ := strings.Cut(f.Tag.Get("json"), ",")
 		if tag == name {
-			return v.Field(i), true
+			return f, true
 		}
 	}
-	return reflect.Value{}, false
+	return reflect.StructField{}, false
 }
 
 // locate walks p along path. With alloc it allocates nil pointers on the
@@ -35,23 +34,17 @@ func locate(p *solver.Project, path string, alloc bool) (v reflect.Value, presen
 	}
 	v = reflect.ValueOf(p).Elem()
 	for _, st := range steps {
-		for v.Kind() == reflect.Pointer {
-			if v.IsNil() {
-				if !alloc {
-					return reflect.Value{}, false, nil
-				}
-				v.Set(reflect.New(v.Type().Elem()))
-			}
-			v = v.Elem()
+		if v, present = deref(v, alloc); !present {
+			return reflect.Value{}, false, nil
 		}
 		if v.Kind() != reflect.Struct {
 			return reflect.Value{}, false, fmt.Errorf("path %q: %s is not an object", path, st.Name)
 		}
-		f, ok := fieldByJSON(v, st.Name)
+		f, ok := fieldByJSON(v.Type(), st.Name)
 		if !ok {
 			return reflect.Value{}, false, fmt.Errorf("path %q: no field %s", path, st.Name)
 		}
-		v = f
+		v = v.FieldByIndex(f.Index)
 		if st.Index >= 0 {
 			if v.Kind() != reflect.Slice {
 				return reflect.Value{}, false, fmt.Errorf("path %q: %s is not a list", path, st.Name)
@@ -62,16 +55,25 @@ func locate(p *solver.Project, path string, alloc bool) (v reflect.Value, presen
 			v = v.Index(st.Index)
 		}
 	}
-	if v.Kind() == reflect.Pointer {
+	if v, present = deref(v, alloc); !present {
+		return reflect.Value{}, false, nil
+	}
+	return v, true, nil
+}
+
+// deref follows the pointers from v, allocating the nil ones on the way
+// when alloc is set; without, a nil pointer gives ok == false.
+func deref(v reflect.Value, alloc bool) (_ reflect.Value, ok bool) {
+	for v.Kind() == reflect.Pointer {
 		if v.IsNil() {
 			if !alloc {
-				return reflect.Value{}, false, nil
+				return reflect.Value{}, false
 			}
 			v.Set(reflect.New(v.Type().Elem()))
 		}
 		v = v.Elem()
 	}
-	return v, true, nil
+	return v, true
 }
 
 // leafKind is the reflect kind of the value at path (String, Float64, Int
@@ -89,18 +91,11 @@ func leafKind(path string) reflect.Kind {
 		if t.Kind() != reflect.Struct {
 			return reflect.Invalid
 		}
-		var found bool
-		for i := range t.NumField() {
-			f := t.Field(i)
-			tag, _, _ := strings.Cut(f.Tag.Get("json"), ",")
-			if tag == st.Name {
-				t, found = f.Type, true
-				break
-			}
-		}
-		if !found {
+		f, ok := fieldByJSON(t, st.Name)
+		if !ok {
 			return reflect.Invalid
 		}
+		t = f.Type
 		if st.Index >= 0 {
 			if t.Kind() != reflect.Slice {
 				return reflect.Invalid
