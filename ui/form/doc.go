@@ -7,9 +7,9 @@
 //
 //	f := form.New(p)                     // a deep copy of p: p is not changed
 //	f.Edit("layers[1].k", "2,5e-9")      // the text as typed, decimal comma and all
-//	f.Text("layers[1].k")                // "2,5e-9", shown as typed while it reads
+//	f.Text("layers[1].k")                // "2,5e-9": what the input shows, as typed
 //	f.Problem("layers[1].k")             // "" or the message beside the input
-//	if f.Valid() { solve(f.Model()) }   // a deep copy, safe to hand to a solve
+//	if f.Valid() { solve(f.Model()) }    // a deep copy, safe to hand to a solve
 //
 // # Field paths
 //
@@ -22,7 +22,9 @@
 //
 // # Typed text is kept per path
 //
-// What was typed stays as typed: Text returns it until the form is Reset.
+// What was typed stays as typed: Text returns it until the form is Reset
+// or the edit of another input replaces the value as a whole (a paste of
+// readings, switching an end between drained and undrained).
 // The draft (Draft) takes the value as soon as the text reads as one
 // (ParseNumber; a list of numbers for "times" and "piezometers"; days or
 // a date for a reading's time). Text that does not read is a problem of
