@@ -100,7 +100,7 @@ func checkShape(ps *Problems, path string, v any, t reflect.Type) {
 			return
 		}
 		for i, el := range arr {
-			checkShape(ps, fmt.Sprintf("%s[%d]", path, i), el, t.Elem())
+			checkShape(ps, IndexPath(path, i), el, t.Elem())
 		}
 	case reflect.String:
 		if _, ok := v.(string); !ok {
@@ -132,10 +132,7 @@ func checkShape(ps *Problems, path string, v any, t reflect.Type) {
 }
 
 func join(path, key string) string {
-	if path == "" {
-		return key
-	}
-	return path + "." + key
+	return JoinPath(path, key)
 }
 
 func jsonKind(v any) string {

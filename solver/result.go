@@ -1,5 +1,10 @@
 package solver
 
+import (
+	"math"
+	"sort"
+)
+
 // Result is everything one solve computes. It is plain data and encodes to
 // the JSON that the page and the JavaScript API hand out. Units as in
 // Project: m, kPa, day, m/s.
@@ -123,6 +128,33 @@ type Series struct {
 	// Piezometers holds the pore pressure histories at the requested
 	// depths, in the order given.
 	Piezometers []Piezometer `json:"piezometers,omitempty"`
+}
+
+// SeriesAt is the value at time t of a history ys recorded at the times
+// ts (a Series' Time with one of its columns), interpolated linearly
+// between the recorded times and held at the first and last values
+// beyond them. Where a time appears twice (a jump), SeriesAt gives the
+// first of its two values. ts must increase and have the length of ys,
+// at least 1; otherwise SeriesAt panics or returns nonsense. O(log n).
+func SeriesAt(ts, ys []float64, t float64) float64 {
+	i := sort.SearchFloat64s(ts, t)
+	switch {
+	case i == 0:
+		return ys[0]
+	case i == len(ts):
+		return ys[len(ys)-1]
+	}
+	t0, t1 := ts[i-1], ts[i]
+	return ys[i-1] + (ys[i]-ys[i-1])*(t-t0)/(t1-t0)
+}
+
+// SameDepth reports whether two depths, m, name the same point of the
+// column, such as a piezometer record's depth and one of Project.Piezometers
+// (so one of Series.Piezometers): |a − b| ≤ 1e-9·max(1 m, |a|), far below
+// what a depth is typed to and above the rounding it picks up on the way
+// through a file.
+func SameDepth(a, b float64) bool {
+	return math.Abs(a-b) <= 1e-9*math.Max(1, math.Abs(a))
 }
 
 // Piezometer is a pore pressure history at one depth.

@@ -81,7 +81,7 @@ func firstNonFinite(v reflect.Value, path string) (string, float64, bool) {
 			if name == "" || name == "-" {
 				continue
 			}
-			if p, f, ok := firstNonFinite(v.Field(i), join(path, name)); ok {
+			if p, f, ok := firstNonFinite(v.Field(i), JoinPath(path, name)); ok {
 				return p, f, true
 			}
 		}
@@ -89,13 +89,13 @@ func firstNonFinite(v reflect.Value, path string) (string, float64, bool) {
 		if xs, ok := v.Interface().([]float64); ok {
 			for i, f := range xs {
 				if math.IsNaN(f) || math.IsInf(f, 0) {
-					return fmt.Sprintf("%s[%d]", path, i), f, true
+					return IndexPath(path, i), f, true
 				}
 			}
 			return "", 0, false
 		}
 		for i := range v.Len() {
-			if p, f, ok := firstNonFinite(v.Index(i), fmt.Sprintf("%s[%d]", path, i)); ok {
+			if p, f, ok := firstNonFinite(v.Index(i), IndexPath(path, i)); ok {
 				return p, f, true
 			}
 		}

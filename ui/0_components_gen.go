@@ -1886,7 +1886,7 @@ func (c *Ground) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 														vgcomp.Changed = c.Changed
 														vgcomp.F = c.F
 														vgcomp.Label = fmt.Sprintf("Time of point %d at the %s", i+1, end)
-														vgcomp.Path = fmt.Sprintf("%s.excess[%d].t", end, i)
+														vgcomp.Path = excessPath(end, i, "t")
 														vgcomp.Unit = "day"
 														vgout.Components = append(vgout.Components, vgcomp)
 														vgn = &vugu.VGNode{Component: vgcomp}
@@ -1914,7 +1914,7 @@ func (c *Ground) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 														vgcomp.Changed = c.Changed
 														vgcomp.F = c.F
 														vgcomp.Label = fmt.Sprintf("Pressure change of point %d at the %s", i+1, end)
-														vgcomp.Path = fmt.Sprintf("%s.excess[%d].value", end, i)
+														vgcomp.Path = excessPath(end, i, "value")
 														vgcomp.Unit = "kPa"
 														vgout.Components = append(vgout.Components, vgcomp)
 														vgn = &vugu.VGNode{Component: vgcomp}
@@ -2665,7 +2665,7 @@ func (c *Loads) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 									vgcomp.Changed = c.Changed
 									vgcomp.F = c.F
 									vgcomp.Label = fmt.Sprintf("Start of stage %d", i+1)
-									vgcomp.Path = fmt.Sprintf("loads[%d].start", i)
+									vgcomp.Path = loadPath(i, "start")
 									vgcomp.Unit = "day"
 									vgout.Components = append(vgout.Components, vgcomp)
 									vgn = &vugu.VGNode{Component: vgcomp}
@@ -2694,7 +2694,7 @@ func (c *Loads) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 									vgcomp.F = c.F
 									vgcomp.Hint = "0: applied at once"
 									vgcomp.Label = fmt.Sprintf("Ramp time of stage %d", i+1)
-									vgcomp.Path = fmt.Sprintf("loads[%d].ramp", i)
+									vgcomp.Path = loadPath(i, "ramp")
 									vgcomp.Unit = "day"
 									vgout.Components = append(vgout.Components, vgcomp)
 									vgn = &vugu.VGNode{Component: vgcomp}
@@ -2722,7 +2722,7 @@ func (c *Loads) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 									vgcomp.Changed = c.Changed
 									vgcomp.F = c.F
 									vgcomp.Label = fmt.Sprintf("Pressure change of stage %d", i+1)
-									vgcomp.Path = fmt.Sprintf("loads[%d].q", i)
+									vgcomp.Path = loadPath(i, "q")
 									vgcomp.Unit = "kPa"
 									vgout.Components = append(vgout.Components, vgcomp)
 									vgn = &vugu.VGNode{Component: vgcomp}

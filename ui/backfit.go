@@ -6,6 +6,7 @@ import (
 	"strconv"
 
 	"porelight/solver/monitor"
+	"porelight/ui/form"
 
 	"github.com/vugu/vugu"
 )
@@ -16,7 +17,7 @@ import (
 // Apply / Revert. The run itself belongs to Root (monitor_root.go).
 type Backfit struct {
 	S *fitState
-	F *Form
+	F *form.Form
 	// Run starts a fit, Cancel stops it, Apply copies the fitted values
 	// into the project and Revert puts the previous ones back.
 	Run, Cancel, Apply, Revert func()

@@ -1,6 +1,7 @@
 package ui
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"strings"
@@ -9,6 +10,7 @@ import (
 
 	"porelight/solver"
 	"porelight/solver/monitor"
+	"porelight/ui/form"
 	"porelight/ui/plot"
 )
 
@@ -72,7 +74,7 @@ func figure(v float64, unit string) string {
 }
 
 func (c *Comparison) kind(r resRecord) string {
-	if r.Kind == kindPiezos {
+	if r.Kind == form.Piezometers {
 		return "pore pressure at " + sig(r.Depth, 4) + " m"
 	}
 	return "settlement"
@@ -162,7 +164,7 @@ func (c *Comparison) anyPlot() bool {
 }
 
 func (c *Comparison) when(row resRow) string {
-	s := formatNumber(math.Round(row.T*100) / 100)
+	s := form.FormatNumber(math.Round(row.T*100) / 100)
 	if row.Date != "" {
 		s += " (" + row.Date + ")"
 	}
@@ -193,7 +195,7 @@ func (c *Comparison) window() (from, to float64, fromMsg, toMsg string) {
 		if strings.TrimSpace(s) == "" {
 			return 0, ""
 		}
-		x, msg := parseNumber(s, false)
+		x, msg := form.ParseNumber(s, false)
 		if msg == "" && x < 0 {
 			msg = "must not be negative"
 		}
@@ -247,27 +249,20 @@ func (c *Comparison) asaokas() []asaoka {
 		case fm != "" || tm != "":
 			a.Refusal = "the window of readings above needs attention"
 		default:
-			a.Res, a.Refusal = plateAsaoka(c.P, pl, from, to)
+			a.Res, a.Refusal = plateAsaoka(c.P, i, from, to)
 		}
 		out = append(out, a)
 	}
 	return out
 }
 
-// plateAsaoka applies Asaoka's method to one plate of p over the readings
+// plateAsaoka applies Asaoka's method to plate i of p over the readings
 // from day from to day to (zero: the defaults), or says why not.
-func plateAsaoka(p *solver.Project, pl solver.Plate, from, to float64) (*monitor.AsaokaResult, string) {
-	ts, err := solver.ReadingTimes(p.Monitoring, pl.Readings)
-	if err != nil {
-		return nil, describeProblems(solver.AsProblems(err), 3)
+func plateAsaoka(p *solver.Project, i int, from, to float64) (*monitor.AsaokaResult, string) {
+	a, err := monitor.PlateAsaokaWindow(p, i, 0, from, to)
+	if ps := solver.Problems(nil); errors.As(err, &ps) {
+		return nil, describeProblems(ps, 3) // reading times that cannot be resolved
 	}
-	vs := make([]float64, len(pl.Readings))
-	for j, r := range pl.Readings {
-		vs[j] = r.Value
-	}
-	opt := monitor.AsaokaOptionsFor(p)
-	opt.From, opt.To = from, to
-	a, err := monitor.Asaoka(ts, vs, 0, opt)
 	if err != nil {
 		return nil, strings.TrimPrefix(err.Error(), "asaoka: ")
 	}

@@ -1,17 +1,17 @@
 package ui
 
 import (
-	"reflect"
-
 	"github.com/vugu/vugu"
+
+	"porelight/ui/form"
 )
 
 // Field is one input of the project: it shows the text typed (or the
 // value), its unit, and the problem with it, if any. Its element id is
-// IDOf(Path); the problem's is that plus "-err".
+// form.IDOf(Path); the problem's is that plus "-err".
 type Field struct {
-	F    *Form  // the form the value lives in
-	Path string // field path, e.g. "layers[2].k"
+	F    *form.Form // the form the value lives in
+	Path string     // field path, e.g. "layers[2].k"
 	// Label names the value for screen readers and tooltips; Unit is
 	// shown beside the input unless Bare (a table states it in the
 	// column head instead). Hint is an optional tooltip.
@@ -24,8 +24,8 @@ type Field struct {
 	Changed func()
 }
 
-func (c *Field) id() string      { return IDOf(c.Path) }
-func (c *Field) errID() string   { return IDOf(c.Path) + "-err" }
+func (c *Field) id() string      { return form.IDOf(c.Path) }
+func (c *Field) errID() string   { return form.IDOf(c.Path) + "-err" }
 func (c *Field) problem() string { return c.F.Problem(c.Path) }
 func (c *Field) showUnit() bool  { return c.Unit != "" && !c.Bare }
 
@@ -34,7 +34,7 @@ func (c *Field) class() string {
 	if c.Wide {
 		s += " pl-wide"
 	}
-	if leafKind(c.Path) == reflect.String {
+	if form.IsText(c.Path) {
 		s += " pl-textfield"
 	}
 	if c.problem() != "" {
@@ -44,18 +44,15 @@ func (c *Field) class() string {
 }
 
 func (c *Field) inputMode() string {
-	if leafKind(c.Path) == reflect.String {
+	if form.IsText(c.Path) {
 		return "text"
 	}
 	return "decimal"
 }
 
 func (c *Field) placeholder() any {
-	if h, ok := defaultHint(c.Path); ok {
+	if h, ok := form.Placeholder(c.Path); ok {
 		return h
-	}
-	if isPointerLeaf(c.Path) {
-		return "hydrostatic"
 	}
 	return nil
 }

@@ -39,7 +39,7 @@ func (c *Root) recordProblems() bool {
 	if c.form == nil {
 		return false
 	}
-	if len(c.form.problemsUnder("monitoring")) > 0 {
+	if len(c.form.ProblemsUnder("monitoring")) > 0 {
 		return true
 	}
 	for _, p := range c.form.Other() {

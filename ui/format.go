@@ -4,6 +4,8 @@ import (
 	"math"
 	"strconv"
 	"strings"
+
+	"porelight/solver"
 )
 
 // Number formats for the page. Values in the solver's units come in; the
@@ -68,8 +70,8 @@ func duration(d float64) string {
 		return "–"
 	}
 	s := sig(d, 3) + " days"
-	if d >= 365.25 {
-		s += " (" + sig(d/365.25, 3) + " yr)"
+	if d >= solver.DaysPerYear {
+		s += " (" + sig(d/solver.DaysPerYear, 3) + " yr)"
 	}
 	return s
 }

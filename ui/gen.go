@@ -2,7 +2,9 @@
 // editors, the summary and tables of results, and the page around them.
 //
 // The components see the numerics only through the solver's exported
-// types (Project, Result, Problem). Everything that needs the browser
+// types and functions (Project, Result, Problem, the defaults, soil.Cv,
+// SeriesAt, monitor.PlateAsaokaWindow), and edit the project through
+// package form, which keeps the typed text. Everything that needs the browser
 // (storage, downloads, files, letting the page breathe during a solve)
 // comes through the Host interface, which wasm/ implements, so the
 // package builds and tests natively.

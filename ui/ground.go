@@ -6,15 +6,22 @@ import (
 	"github.com/vugu/vugu"
 
 	"porelight/solver"
+	"porelight/ui/form"
 )
 
 // Ground edits the water table and the condition at each end.
 type Ground struct {
-	F       *Form
+	F       *form.Form
 	Changed func()
 }
 
-func (c *Ground) b(end string) *solver.Boundary { return boundary(c.F.Draft(), end) }
+func (c *Ground) b(end string) *solver.Boundary { return form.Boundary(c.F.Draft(), end) }
+
+// excessPath is the path of a value of point i of the pressure history
+// at an end: excessPath("top", 1, "t") is "top.excess[1].t".
+func excessPath(end string, i int, leaf string) string {
+	return solver.JoinPath(solver.IndexPath(solver.JoinPath(end, "excess"), i), leaf)
+}
 
 func endTitle(end string) string {
 	if end == "bottom" {

@@ -3,13 +3,20 @@ package ui
 import (
 	"fmt"
 	"strings"
+
+	"porelight/solver"
+	"porelight/ui/form"
 )
 
 // Loads edits the surcharge stages.
 type Loads struct {
-	F       *Form
+	F       *form.Form
 	Changed func()
 }
+
+// loadPath is the path of a value of stage i: loadPath(0, "q") is
+// "loads[0].q".
+func loadPath(i int, leaf string) string { return solver.JoinPath(solver.IndexPath("loads", i), leaf) }
 
 func (c *Loads) add()         { c.F.AddLoad(); c.Changed() }
 func (c *Loads) remove(i int) { c.F.RemoveLoad(i); c.Changed() }

@@ -12,6 +12,7 @@ import (
 
 	"porelight/solver"
 	"porelight/solver/monitor"
+	"porelight/ui/form"
 )
 
 // Field monitoring in the page: what the solve needs from the records,
@@ -33,8 +34,8 @@ func solveInput(model *solver.Project) *solver.Project {
 	}
 	var extra []float64
 	for _, r := range m.Piezometers {
-		if !slices.ContainsFunc(model.Piezometers, func(z float64) bool { return sameDepth(z, r.Depth) }) &&
-			!slices.ContainsFunc(extra, func(z float64) bool { return sameDepth(z, r.Depth) }) {
+		if !slices.ContainsFunc(model.Piezometers, func(z float64) bool { return solver.SameDepth(z, r.Depth) }) &&
+			!slices.ContainsFunc(extra, func(z float64) bool { return solver.SameDepth(z, r.Depth) }) {
 			extra = append(extra, r.Depth)
 		}
 	}
@@ -250,10 +251,10 @@ func (c *Root) applyFit() {
 	s.before = slices.Clone(d.Layers)
 	for i, l := range s.res.Project.Layers {
 		if l.K != d.Layers[i].K {
-			c.form.Edit(lp(i, "k"), formatNumber(l.K))
+			c.form.Edit(lp(i, "k"), form.FormatNumber(l.K))
 		}
 		if l.Mv != d.Layers[i].Mv {
-			c.form.Edit(lp(i, "mv"), formatNumber(l.Mv))
+			c.form.Edit(lp(i, "mv"), form.FormatNumber(l.Mv))
 		}
 	}
 	s.applied = true
@@ -274,12 +275,12 @@ func (c *Root) revertFit() {
 	}
 	for i, l := range s.before {
 		if l.K != d.Layers[i].K {
-			c.form.Edit(lp(i, "k"), formatNumber(l.K))
+			c.form.Edit(lp(i, "k"), form.FormatNumber(l.K))
 		}
 		if l.Mv != d.Layers[i].Mv {
 			text := ""
 			if l.Mv != 0 {
-				text = formatNumber(l.Mv)
+				text = form.FormatNumber(l.Mv)
 			}
 			c.form.Edit(lp(i, "mv"), text)
 		}

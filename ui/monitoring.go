@@ -9,6 +9,7 @@ import (
 
 	"porelight/solver"
 	"porelight/solver/monitor"
+	"porelight/ui/form"
 )
 
 // Monitoring edits the field records: the calendar date of day 0, the
@@ -18,7 +19,7 @@ import (
 // The editor is folded (folds.go): while Open is false only a one-line
 // account of the records and the buttons that add one are built.
 type Monitoring struct {
-	F       *Form
+	F       *form.Form
 	Changed func()
 	// Open says whether the editor shows; SetOpen asks the Root to open
 	// or close it. Root keeps it open while a record has a problem.
@@ -49,7 +50,7 @@ const shownRows = 150
 
 // monRec is one record as the editor lists it.
 type monRec struct {
-	Kind  string // kindPlates or kindPiezos
+	Kind  string // form.Plates or form.Piezometers
 	I     int
 	Path  string
 	ID    string // element id prefix
@@ -73,19 +74,19 @@ func (c *Monitoring) recs() []monRec {
 		return nil
 	}
 	for i, pl := range m.Plates {
-		p := recordPath(kindPlates, i)
-		out = append(out, monRec{kindPlates, i, p, IDOf(p), pl.Name, "mm", "settlement", len(pl.Readings)})
+		p := form.RecordPath(form.Plates, i)
+		out = append(out, monRec{form.Plates, i, p, form.IDOf(p), pl.Name, "mm", "settlement", len(pl.Readings)})
 	}
 	for i, pz := range m.Piezometers {
-		p := recordPath(kindPiezos, i)
-		out = append(out, monRec{kindPiezos, i, p, IDOf(p), pz.Name, "kPa", "pore pressure", len(pz.Readings)})
+		p := form.RecordPath(form.Piezometers, i)
+		out = append(out, monRec{form.Piezometers, i, p, form.IDOf(p), pz.Name, "kPa", "pore pressure", len(pz.Readings)})
 	}
 	return out
 }
 
 func (c *Monitoring) title(r monRec) string {
 	what := "Settlement plate"
-	if r.Kind == kindPiezos {
+	if r.Kind == form.Piezometers {
 		what = "Piezometer"
 	}
 	return fmt.Sprintf("%s %d", what, r.I+1)
@@ -93,7 +94,7 @@ func (c *Monitoring) title(r monRec) string {
 
 // span summarises a record's readings: how many, from when to when.
 func (c *Monitoring) span(r monRec) string {
-	rs := c.F.readings(r.Kind, r.I)
+	rs := c.F.Readings(r.Kind, r.I)
 	switch len(rs) {
 	case 0:
 		return "no readings yet"
@@ -107,13 +108,13 @@ func readingWhen(r solver.Reading) string {
 	if r.Date != "" {
 		return r.Date
 	}
-	return "day " + formatNumber(r.T)
+	return "day " + form.FormatNumber(r.T)
 }
 
 // problems lists what is wrong inside record r, so that a folded table
 // still says so.
-func (c *Monitoring) problems(r monRec) []fieldProblem {
-	return c.F.problemsUnder(r.Path)
+func (c *Monitoring) problems(r monRec) []form.FieldProblem {
+	return c.F.ProblemsUnder(r.Path)
 }
 
 // isOpen says whether r's readings table shows: when unfolded, or while
@@ -166,10 +167,10 @@ func (c *Monitoring) hiddenProblems(r monRec) []string {
 	}
 	var out []string
 	for _, p := range c.problems(r) {
-		var j int
-		rest := strings.TrimPrefix(p.Path, r.Path+".readings")
-		if _, err := fmt.Sscanf(rest, "[%d]", &j); err == nil && j >= shownRows {
-			out = append(out, fmt.Sprintf("reading %d: %s", j+1, p.Message))
+		// monitoring.KIND[i].readings[j]…
+		steps, err := solver.ParsePath(p.Path)
+		if err == nil && len(steps) > 2 && steps[2].Name == "readings" && steps[2].Index >= shownRows {
+			out = append(out, fmt.Sprintf("reading %d: %s", steps[2].Index+1, p.Message))
 		}
 	}
 	return out
@@ -178,19 +179,19 @@ func (c *Monitoring) hiddenProblems(r monRec) []string {
 func (c *Monitoring) showAll(r monRec) { c.all[r.Path] = true }
 
 func (c *Monitoring) readingPath(r monRec, j int, leaf string) string {
-	return readingPath(r.Kind, r.I, j, leaf)
+	return form.ReadingPath(r.Kind, r.I, j, leaf)
 }
 
 func (c *Monitoring) addPlate() {
 	c.F.AddPlate()
-	c.openLast(kindPlates)
+	c.openLast(form.Plates)
 	c.SetOpen(true)
 	c.Changed()
 }
 
 func (c *Monitoring) addPiezometer() {
 	c.F.AddPiezometerRecord()
-	c.openLast(kindPiezos)
+	c.openLast(form.Piezometers)
 	c.SetOpen(true)
 	c.Changed()
 }
@@ -249,8 +250,8 @@ func (c *Monitoring) held() string {
 }
 
 func (c *Monitoring) openLast(kind string) {
-	if n := c.F.records(kind); n > 0 {
-		c.open[recordPath(kind, n-1)] = true
+	if n := c.F.Records(kind); n > 0 {
+		c.open[form.RecordPath(kind, n-1)] = true
 	}
 }
 
@@ -258,12 +259,12 @@ func (c *Monitoring) openLast(kind string) {
 // the records after it.
 func (c *Monitoring) remove(r monRec) {
 	c.F.RemoveRecord(r.Kind, r.I)
-	list := "monitoring." + r.Kind
-	remapKeys(c.open, list, shiftOut(r.I))
-	remapKeys(c.all, list, shiftOut(r.I))
-	remapKeys(c.paste, list, shiftOut(r.I))
-	remapKeys(c.undo, list, shiftOut(r.I))
-	remapKeys(c.parsedAs, list, shiftOut(r.I))
+	list := solver.JoinPath("monitoring", r.Kind)
+	form.RemapKeys(c.open, list, form.Removed(r.I))
+	form.RemapKeys(c.all, list, form.Removed(r.I))
+	form.RemapKeys(c.paste, list, form.Removed(r.I))
+	form.RemapKeys(c.undo, list, form.Removed(r.I))
+	form.RemapKeys(c.parsedAs, list, form.Removed(r.I))
 	c.Changed()
 }
 
@@ -301,7 +302,7 @@ func (c *Monitoring) parsed(r monRec) ([]solver.Reading, []string) {
 	if err != nil {
 		rs, errs = nil, pasteMessages(err)
 	}
-	if r.Kind == kindPlates {
+	if r.Kind == form.Plates {
 		for j := range rs {
 			rs[j].Value /= 1000 // typed in mm
 		}
@@ -310,7 +311,8 @@ func (c *Monitoring) parsed(r monRec) ([]solver.Reading, []string) {
 	return rs, errs
 }
 
-// pasteMessages splits the joined errors of ParseReadings.
+// pasteMessages splits the joined errors of ParseReadings; when there are
+// as many as it reports at most, it says there may be more.
 func pasteMessages(err error) []string {
 	var out []string
 	if j, ok := err.(interface{ Unwrap() []error }); ok {
@@ -320,7 +322,7 @@ func pasteMessages(err error) []string {
 	} else {
 		out = append(out, err.Error())
 	}
-	if len(out) == 20 {
+	if len(out) == monitor.MaxPasteErrors {
 		out = append(out, "… and perhaps more: fix these first.")
 	}
 	return out
@@ -398,28 +400,4 @@ func (c *Monitoring) undoPaste(r monRec) {
 func (c *Monitoring) pasteHint(r monRec) string {
 	return "Two columns copied from a spreadsheet: time (days after day 0, or a date) and " + r.Noun + " in " + r.Unit +
 		". Tabs, semicolons or commas between columns; a header line is skipped."
-}
-
-// remapKeys renumbers the keys "LIST[i]…" of m after a structural edit, as
-// Form.remap does for typed text.
-func remapKeys[V any](m map[string]V, list string, to func(int) int) {
-	moved := map[string]V{}
-	for k, v := range m {
-		rest, ok := strings.CutPrefix(k, list+"[")
-		if !ok {
-			continue
-		}
-		num, tail, ok := strings.Cut(rest, "]")
-		var old int
-		if _, err := fmt.Sscanf(num, "%d", &old); !ok || err != nil {
-			continue
-		}
-		delete(m, k)
-		if n := to(old); n >= 0 {
-			moved[fmt.Sprintf("%s[%d]%s", list, n, tail)] = v
-		}
-	}
-	for k, v := range moved {
-		m[k] = v
-	}
 }

@@ -279,9 +279,9 @@ func synthRecords(t *testing.T, p *solver.Project, kf float64) {
 	pl, pz := &p.Monitoring.Plates[0], &p.Monitoring.Piezometers[0]
 	pl.Readings, pz.Readings = nil, nil
 	for d := 10.0; d <= 600; d += 10 {
-		pl.Readings = append(pl.Readings, solver.Reading{T: d, Value: seriesAt(s.Time, s.Settlement, d)})
+		pl.Readings = append(pl.Readings, solver.Reading{T: d, Value: solver.SeriesAt(s.Time, s.Settlement, d)})
 		if int(d)%20 == 0 {
-			pz.Readings = append(pz.Readings, solver.Reading{T: d, Value: seriesAt(s.Time, s.Piezometers[0].Pore, d)})
+			pz.Readings = append(pz.Readings, solver.Reading{T: d, Value: solver.SeriesAt(s.Time, s.Piezometers[0].Pore, d)})
 		}
 	}
 }

@@ -4,11 +4,13 @@ import (
 	"strings"
 
 	"github.com/vugu/vugu"
+
+	"porelight/ui/form"
 )
 
 // Outputs edits what is reported, and (folded) the mesh and time stepping.
 type Outputs struct {
-	F       *Form
+	F       *form.Form
 	Changed func()
 
 	expanded bool

@@ -295,7 +295,7 @@ func TestPageEditsAndProblems(t *testing.T) {
 	}
 	p.typeInto("layers-1-ecurve-cr", cr0)
 	if !p.root.form.Valid() {
-		t.Errorf("form still has problems: %v %v %v", p.root.form.bad, p.root.form.probs, p.root.form.Other())
+		t.Errorf("form still has problems: %v %v", p.root.form.ProblemsUnder(""), p.root.form.Other())
 	}
 	if got := p.attr("sum-flux", "data-value"); got != flux0 {
 		t.Errorf("flux %s after restoring the inputs, want the first %s", got, flux0)
@@ -326,7 +326,7 @@ func TestPageLayerRows(t *testing.T) {
 		t.Errorf("%d layers after adding one, want %d", got, n)
 	}
 	if !p.root.form.Valid() {
-		t.Errorf("problems after row edits: %v %v", p.root.form.probs, p.root.form.Other())
+		t.Errorf("problems after row edits: %v %v", p.root.form.ProblemsUnder(""), p.root.form.Other())
 	}
 }
 

@@ -3,16 +3,16 @@ package ui
 import (
 	"fmt"
 	"math"
-	"sort"
 
 	"porelight/solver"
+	"porelight/ui/form"
 )
 
 // Residuals: each reading against the prediction at its time. The
 // prediction is the settlement from mv (Series.Settlement) for a plate
 // and the pore pressure at the record's depth (Piezometer.Pore) for a
-// piezometer, interpolated linearly in time between the solver's steps,
-// as the back-analysis does. Settlements are shown in mm, pressures in kPa.
+// piezometer, interpolated linearly in time between the solver's steps
+// with solver.SeriesAt, as the back-analysis does. Settlements are shown in mm, pressures in kPa.
 
 // resRow is one reading compared.
 type resRow struct {
@@ -28,7 +28,7 @@ type resRow struct {
 // resRecord is one record compared.
 type resRecord struct {
 	Path, ID, Name string
-	Kind           string // kindPlates or kindPiezos
+	Kind           string // form.Plates or form.Piezometers
 	Unit           string // "mm" or "kPa"
 	Depth          float64
 	Rows           []resRow
@@ -49,7 +49,7 @@ func residuals(p *solver.Project, r *solver.Result) []resRecord {
 	}
 	var out []resRecord
 	for i, pl := range m.Plates {
-		rec := resRecord{Path: recordPath(kindPlates, i), Name: recordName(pl.Name, "Plate", i), Kind: kindPlates, Unit: "mm"}
+		rec := resRecord{Path: form.RecordPath(form.Plates, i), Name: recordName(pl.Name, "Plate", i), Kind: form.Plates, Unit: "mm"}
 		var ys []float64
 		if ser != nil {
 			ys = ser.Settlement
@@ -58,11 +58,11 @@ func residuals(p *solver.Project, r *solver.Result) []resRecord {
 		out = append(out, rec)
 	}
 	for i, pz := range m.Piezometers {
-		rec := resRecord{Path: recordPath(kindPiezos, i), Name: recordName(pz.Name, "Piezometer", i), Kind: kindPiezos, Unit: "kPa", Depth: pz.Depth}
+		rec := resRecord{Path: form.RecordPath(form.Piezometers, i), Name: recordName(pz.Name, "Piezometer", i), Kind: form.Piezometers, Unit: "kPa", Depth: pz.Depth}
 		var ys []float64
 		if ser != nil {
 			for _, s := range ser.Piezometers {
-				if sameDepth(s.Depth, pz.Depth) {
+				if solver.SameDepth(s.Depth, pz.Depth) {
 					ys = s.Pore
 				}
 			}
@@ -74,7 +74,7 @@ func residuals(p *solver.Project, r *solver.Result) []resRecord {
 		out = append(out, rec)
 	}
 	for i := range out {
-		out[i].ID = IDOf(out[i].Path)
+		out[i].ID = form.IDOf(out[i].Path)
 	}
 	return out
 }
@@ -109,7 +109,7 @@ func compare(rec *resRecord, m *solver.Monitoring, rs []solver.Reading, ser *sol
 		case ts[j] > ser.Time[len(ser.Time)-1]:
 			row.Note = "after the simulated time"
 		default:
-			row.Predicted = seriesAt(ser.Time, ys, ts[j]) * scale
+			row.Predicted = solver.SeriesAt(ser.Time, ys, ts[j]) * scale
 			row.Diff = row.Measured - row.Predicted
 			row.OK = true
 			ss += row.Diff * row.Diff
@@ -124,29 +124,12 @@ func compare(rec *resRecord, m *solver.Monitoring, rs []solver.Reading, ser *sol
 	}
 }
 
-// seriesAt interpolates ys(ts) linearly at t (ts increasing), holding the
-// end values beyond the ends.
-func seriesAt(ts, ys []float64, t float64) float64 {
-	i := sort.SearchFloat64s(ts, t)
-	switch {
-	case i == 0:
-		return ys[0]
-	case i == len(ts):
-		return ys[len(ys)-1]
-	}
-	t0, t1 := ts[i-1], ts[i]
-	if t1 == t0 {
-		return ys[i]
-	}
-	return ys[i-1] + (ys[i]-ys[i-1])*(t-t0)/(t1-t0)
-}
-
 // residualsCSV writes every comparison: one row per reading.
 func residualsCSV(recs []resRecord) ([]byte, error) {
 	rows := [][]string{{"record", "kind", "depth (m)", "time (day)", "date", "measured", "predicted", "measured - predicted", "unit"}}
 	for _, rec := range recs {
 		kind, depth := "settlement plate", ""
-		if rec.Kind == kindPiezos {
+		if rec.Kind == form.Piezometers {
 			kind, depth = "piezometer", exact(rec.Depth)
 		}
 		for _, r := range rec.Rows {

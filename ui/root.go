@@ -14,6 +14,7 @@ import (
 
 	"porelight/solver"
 	"porelight/solver/monitor"
+	"porelight/ui/form"
 )
 
 // AutosaveKey is the browser storage key of the autosaved project.
@@ -46,7 +47,7 @@ type Root struct {
 	// monitor.BackFit (monitor_root.go).
 	BackFit func(*solver.Project, monitor.FitSpec, *solver.Options) (*monitor.FitResult, error)
 
-	form      *Form
+	form      *form.Form
 	demo      []byte
 	result    *solver.Result  // the last good results
 	resultFor *solver.Project // the model they belong to
@@ -75,7 +76,7 @@ func (c *Root) host() Host {
 }
 
 // Form is the form the editors work on (nil before Start).
-func (c *Root) Form() *Form { return c.form }
+func (c *Root) Form() *form.Form { return c.form }
 
 // Result is the last good result (nil before the first solve).
 func (c *Root) Result() *solver.Result { return c.result }
@@ -85,7 +86,7 @@ func (c *Root) Result() *solver.Result { return c.result }
 // said in a notice, and the next source is tried.
 func (c *Root) Start(src Sources) {
 	c.demo = src.Demo
-	c.form = NewForm(&solver.Project{Format: solver.Format})
+	c.form = form.New(&solver.Project{Format: solver.Format})
 	opened := false
 	if data, err := DecodeFragment(src.Fragment); err == nil {
 		if p, ps := ReadProject(data); ps == nil {

@@ -40,8 +40,7 @@ func (c *Summary) rows() []sumRow {
 		return []sumRow{{ID: "sum-none", Label: "Results", Value: "not yet computed"}}
 	}
 	s := c.R.Summary
-	noLoad := c.P != nil && len(c.P.Loads) == 0 && len(c.P.InitialExcess) == 0 &&
-		len(c.P.Top.Excess) == 0 && len(c.P.Bottom.Excess) == 0
+	noLoad := c.P != nil && !solver.HasConsolidation(c.P)
 	why := "not computed"
 	switch {
 	case noLoad:
@@ -63,13 +62,19 @@ func (c *Summary) rows() []sumRow {
 		}
 		return r
 	}
-	target := s.TargetDegree
+	// Without consolidation the result does not carry them: the project's.
+	target, life := s.TargetDegree, s.DesignLife
 	if target == 0 {
-		target = 0.95
+		target = solver.DefaultTargetDegree
+		if c.P != nil {
+			target = solver.ResolveTargetDegree(c.P)
+		}
 	}
-	life := s.DesignLife
 	if life == 0 {
-		life = 18262.5
+		life = solver.DefaultDesignLife
+		if c.P != nil {
+			life = solver.ResolveDesignLife(c.P)
+		}
 	}
 	rows := []sumRow{
 		length("sum-settlement-linear", "Final settlement, from mv", s.SettlementLinear, "primary, all stages"),
@@ -77,7 +82,7 @@ func (c *Summary) rows() []sumRow {
 		time("sum-t50", "t50 (U = 50 %)", s.T50),
 		time("sum-t90", "t90 (U = 90 %)", s.T90),
 		time("sum-ttarget", fmt.Sprintf("Time to U = %s %%", sig(target*100, 3)), s.TTarget),
-		length("sum-secondary", "Secondary settlement", s.Secondary, "at "+sig(life/365.25, 3)+" yr design life"),
+		length("sum-secondary", "Secondary settlement", s.Secondary, "at "+sig(life/solver.DaysPerYear, 3)+" yr design life"),
 	}
 	if s.SettlementElog == nil && !noLoad && c.R.Consolidation != nil {
 		rows[1].Note = "needs e–log parameters for every layer"

@@ -301,6 +301,14 @@ func Asaoka(times, settlements []float64, interval float64, opt AsaokaOptions) (
 // the options AsaokaOptionsFor(p), resolving dates against
 // Monitoring.Start.
 func PlateAsaoka(p *solver.Project, i int, interval float64) (*AsaokaResult, error) {
+	return PlateAsaokaWindow(p, i, interval, 0, 0)
+}
+
+// PlateAsaokaWindow is PlateAsaoka reading only the readings from day
+// from to day to (AsaokaOptions.From and To; zero keeps their defaults).
+// A reading time that cannot be resolved is reported as the
+// solver.Problems of solver.ReadingTimes.
+func PlateAsaokaWindow(p *solver.Project, i int, interval, from, to float64) (*AsaokaResult, error) {
 	if p.Monitoring == nil || i < 0 || i >= len(p.Monitoring.Plates) {
 		n := 0
 		if p.Monitoring != nil {
@@ -317,7 +325,9 @@ func PlateAsaoka(p *solver.Project, i int, interval float64) (*AsaokaResult, err
 	for j, r := range pl.Readings {
 		vs[j] = r.Value
 	}
-	return Asaoka(ts, vs, interval, AsaokaOptionsFor(p))
+	opt := AsaokaOptionsFor(p)
+	opt.From, opt.To = from, to
+	return Asaoka(ts, vs, interval, opt)
 }
 
 func finiteNum(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }

@@ -272,7 +272,7 @@ func TestAsaokaSolverRecord(t *testing.T) {
 			day0, _ := parseDate(p.Monitoring.Start)
 			for day := 0; day <= int(tEnd+1.2*c.path*c.path/cv); day += 25 {
 				date := day0.AddDate(0, 0, day).Format(solver.DateLayout)
-				pl.Readings = append(pl.Readings, solver.Reading{Date: date, Value: fitSeriesAt(ser.Time, ser.Settlement, float64(day))})
+				pl.Readings = append(pl.Readings, solver.Reading{Date: date, Value: solver.SeriesAt(ser.Time, ser.Settlement, float64(day))})
 			}
 			p.Monitoring.Plates = []solver.Plate{pl}
 			if err := solver.Validate(p); err != nil {
@@ -310,6 +310,16 @@ func TestAsaokaSolverRecord(t *testing.T) {
 			}
 			if b.Times[0] < tEnd || b.Times[0] >= tEnd+25 || b.Final != direct.Final || b.Cv != direct.Cv {
 				t.Errorf("PlateAsaoka: starts on day %g (load ends %g), final %g and cv %g; direct %g and %g", b.Times[0], tEnd, b.Final, b.Cv, direct.Final, direct.Cv)
+			}
+			// PlateAsaokaWindow with the window of a gives a, exactly: the
+			// same readings through the same arithmetic.
+			w, err := PlateAsaokaWindow(p, 0, 0, opt.From, 0)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if w.Final != a.Final || w.Cv != a.Cv || w.Times[0] != a.Times[0] || w.Times[0] < opt.From {
+				t.Errorf("PlateAsaokaWindow from day %g: starts on day %g, final %g and cv %g; direct %g, %g and %g",
+					opt.From, w.Times[0], w.Final, w.Cv, a.Times[0], a.Final, a.Cv)
 			}
 			if _, err := PlateAsaoka(p, 1, 0); err == nil || !strings.Contains(err.Error(), "no plate 1 (the project has 1)") {
 				t.Errorf("plate 1: %v", err)

@@ -7,7 +7,6 @@ import (
 	"fmt"
 	"math"
 	"slices"
-	"sort"
 	"strconv"
 	"strings"
 
@@ -595,22 +594,10 @@ func (f *fitter) extract(r *solver.Result) []float64 {
 			ys = ser.Piezometers[rec.pz].Pore
 		}
 		for _, t := range rec.times {
-			out = append(out, fitSeriesAt(ser.Time, ys, t))
+			out = append(out, solver.SeriesAt(ser.Time, ys, t))
 		}
 	}
 	return out
-}
-
-// fitSeriesAt interpolates ys(ts) linearly at t, constant beyond the ends.
-func fitSeriesAt(ts, ys []float64, t float64) float64 {
-	i := sort.SearchFloat64s(ts, t)
-	switch {
-	case i == 0:
-		return ys[0]
-	case i == len(ts):
-		return ys[len(ys)-1]
-	}
-	return interpAt(ts[i-1], ys[i-1], ts[i], ys[i], t)
 }
 
 // residuals returns (prediction − reading)/σ for every reading.

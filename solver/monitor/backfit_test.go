@@ -67,8 +67,8 @@ func synthesize(t testing.TB, p *solver.Project, tr truth) {
 	pl := solver.Plate{Name: "P1"}
 	pz := solver.PiezometerRecord{Name: "U1", Depth: 5}
 	for d := 10.0; d <= 600; d += 10 {
-		pl.Readings = append(pl.Readings, solver.Reading{T: d, Value: fitSeriesAt(ser.Time, ser.Settlement, d) + tr.SigmaS*rng.NormFloat64()})
-		pz.Readings = append(pz.Readings, solver.Reading{T: d, Value: fitSeriesAt(ser.Time, ser.Piezometers[0].Pore, d) + tr.SigmaU*rng.NormFloat64()})
+		pl.Readings = append(pl.Readings, solver.Reading{T: d, Value: solver.SeriesAt(ser.Time, ser.Settlement, d) + tr.SigmaS*rng.NormFloat64()})
+		pz.Readings = append(pz.Readings, solver.Reading{T: d, Value: solver.SeriesAt(ser.Time, ser.Piezometers[0].Pore, d) + tr.SigmaU*rng.NormFloat64()})
 	}
 	p.Monitoring = &solver.Monitoring{Plates: []solver.Plate{pl}, Piezometers: []solver.PiezometerRecord{pz}}
 }
@@ -207,7 +207,7 @@ func TestBackFitStandardError(t *testing.T) {
 				ys, sigma = ser.Piezometers[0].Pore, 1
 			}
 			for _, tt := range rec.Times {
-				out = append(out, fitSeriesAt(ser.Time, ys, tt)/sigma)
+				out = append(out, solver.SeriesAt(ser.Time, ys, tt)/sigma)
 			}
 		}
 		return out
@@ -258,7 +258,7 @@ func TestBackFitFittedProject(t *testing.T) {
 			ys = ser.Piezometers[1].Pore
 		}
 		for j, tt := range rec.Times {
-			if got := fitSeriesAt(ser.Time, ys, tt); math.Abs(got-rec.Fitted[j]) > 1e-9*math.Abs(rec.Fitted[j]) {
+			if got := solver.SeriesAt(ser.Time, ys, tt); math.Abs(got-rec.Fitted[j]) > 1e-9*math.Abs(rec.Fitted[j]) {
 				t.Fatalf("%s day %g: final run %.12g, fitted %.12g", rec.Path, tt, got, rec.Fitted[j])
 			}
 		}

@@ -81,7 +81,7 @@ func writeDemoMonitoring(t *testing.T) {
 		if d == 0 {
 			return 0 // the plate's zero reading
 		}
-		return math.Round((fitSeriesAt(ser.Time, ser.Settlement, float64(d))+demoNoiseS*rng.NormFloat64())*1000) / 1000
+		return math.Round((solver.SeriesAt(ser.Time, ser.Settlement, float64(d))+demoNoiseS*rng.NormFloat64())*1000) / 1000
 	}
 	var p1, p2, u1 []string
 	for _, d := range demoSchedule(0, 7, 14, 28) { // read by date
@@ -91,7 +91,7 @@ func writeDemoMonitoring(t *testing.T) {
 		p2 = append(p2, fmt.Sprintf(`{"t": %d, "value": %.3f}`, d, settle(d)))
 	}
 	for _, d := range demoSchedule(1, 7, 14, 28) {
-		u := fitSeriesAt(ser.Time, ser.Piezometers[0].Pore, float64(d)) + demoNoiseU*rng.NormFloat64()
+		u := solver.SeriesAt(ser.Time, ser.Piezometers[0].Pore, float64(d)) + demoNoiseU*rng.NormFloat64()
 		u1 = append(u1, fmt.Sprintf(`{"t": %d, "value": %.1f}`, d, u))
 	}
 	join := func(xs []string) string { return strings.Join(xs, ",\n      ") }

@@ -21,8 +21,8 @@ var (
 	ErrNoReadings = errors.New("no readings found")
 )
 
-// maxPasteErrors caps the errors ParseReadings reports for one text.
-const maxPasteErrors = 20
+// MaxPasteErrors caps the errors ParseReadings reports for one text.
+const MaxPasteErrors = 20
 
 // PasteError is one thing wrong with pasted readings. Line and Column are
 // 1-indexed positions in the pasted text (Column 0: the whole line; Line 0:
@@ -68,7 +68,7 @@ func (e *PasteError) Unwrap() error { return e.Err }
 // strictly down the text (among readings of the same kind: days with days,
 // dates with dates).
 //
-// All errors are returned together (up to 20), joined with errors.Join;
+// All errors are returned together (up to MaxPasteErrors), joined with errors.Join;
 // each is a *PasteError naming the line and the column, e.g.
 // `line 4, column 2: "abc" is not a number`. A text with no reading
 // returns ErrNoReadings.
@@ -89,7 +89,7 @@ func ParseReadings(text string) ([]solver.Reading, error) {
 		prevLine [2]int // line of the previous days / date reading
 	)
 	add := func(e *PasteError) {
-		if len(errs) < maxPasteErrors {
+		if len(errs) < MaxPasteErrors {
 			errs = append(errs, e)
 		}
 	}
@@ -242,8 +242,22 @@ const (
 	timeDate
 )
 
-// pasteDateLayouts are the date forms the first column may take.
-var pasteDateLayouts = []string{solver.DateLayout, "2/1/2006", "2.1.2006"}
+// dateLayouts are the date forms ParseDate reads; the first is the file
+// format's.
+var dateLayouts = []string{solver.DateLayout, "2/1/2006", "2.1.2006"}
+
+// ParseDate reads a calendar date in one of the forms ParseReadings
+// takes: YYYY-MM-DD (the file format, solver.DateLayout), DD/MM/YYYY or
+// DD.MM.YYYY, with one-digit days and months allowed in the last two. Write
+// the result with solver.DateLayout for the file.
+func ParseDate(s string) (time.Time, bool) {
+	for _, l := range dateLayouts {
+		if d, err := time.Parse(l, s); err == nil {
+			return d, true
+		}
+	}
+	return time.Time{}, false
+}
 
 // parseTime reads the first column: elapsed days or a date.
 func parseTime(s string, decimalComma bool) (days float64, date time.Time, kind int) {
@@ -254,10 +268,8 @@ func parseTime(s string, decimalComma bool) (days float64, date time.Time, kind 
 	case errors.Is(err, solver.ErrNotFinite):
 		return 0, time.Time{}, timeBad
 	}
-	for _, l := range pasteDateLayouts {
-		if d, err := time.Parse(l, s); err == nil {
-			return 0, d, timeDate
-		}
+	if d, ok := ParseDate(s); ok {
+		return 0, d, timeDate
 	}
 	return 0, time.Time{}, timeNone
 }

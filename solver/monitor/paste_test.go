@@ -122,12 +122,41 @@ func TestParseReadingsErrors(t *testing.T) {
 }
 
 // At most 20 errors are listed, however long the paste.
+// ParseDate reads the three date forms of ParseReadings, and nothing else.
+func TestParseDate(t *testing.T) {
+	t.Parallel()
+	cases := []struct {
+		in, want string // want "" for a refusal
+	}{
+		{"2024-03-05", "2024-03-05"},
+		{"05/03/2024", "2024-03-05"},
+		{"5/3/2024", "2024-03-05"},
+		{"05.03.2024", "2024-03-05"},
+		{"5.3.2024", "2024-03-05"},
+		{"2024-3-5", ""},
+		{"03/05/24", ""},
+		{"31/02/2024", ""},
+		{"12.5", ""},
+		{"", ""},
+	}
+	for _, tc := range cases {
+		d, ok := ParseDate(tc.in)
+		got := ""
+		if ok {
+			got = d.Format(solver.DateLayout)
+		}
+		if got != tc.want {
+			t.Errorf("ParseDate(%q) = %q, %v; want %q", tc.in, got, ok, tc.want)
+		}
+	}
+}
+
 func TestParseReadingsErrorCap(t *testing.T) {
 	t.Parallel()
 	text := strings.Repeat("1\tx\n", 50)
 	_, err := ParseReadings(text)
-	if n := len(err.(interface{ Unwrap() []error }).Unwrap()); n != maxPasteErrors {
-		t.Errorf("%d errors, want %d", n, maxPasteErrors)
+	if n := len(err.(interface{ Unwrap() []error }).Unwrap()); n != MaxPasteErrors {
+		t.Errorf("%d errors, want %d", n, MaxPasteErrors)
 	}
 }
 

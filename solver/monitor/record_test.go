@@ -55,12 +55,12 @@ func writeMonitoringRecord(t *testing.T) {
 	for d := 0; d <= 600; d += 7 {
 		v := 0.0 // the plate's zero reading
 		if d > 0 {
-			v = fitSeriesAt(ser.Time, ser.Settlement, float64(d)) + 0.002*rng.NormFloat64()
+			v = solver.SeriesAt(ser.Time, ser.Settlement, float64(d)) + 0.002*rng.NormFloat64()
 		}
 		plate = append(plate, fmt.Sprintf(`{"date": %q, "value": %.4f}`, day0.AddDate(0, 0, d).Format(solver.DateLayout), v))
 	}
 	for d := 2; d <= 600; d += 10 {
-		v := fitSeriesAt(ser.Time, ser.Piezometers[0].Pore, float64(d)) + 1*rng.NormFloat64()
+		v := solver.SeriesAt(ser.Time, ser.Piezometers[0].Pore, float64(d)) + 1*rng.NormFloat64()
 		piezo = append(piezo, fmt.Sprintf(`{"t": %d, "value": %.2f}`, d, v))
 	}
 	body, err := json.MarshalIndent(p, "", "  ")

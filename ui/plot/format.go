@@ -4,13 +4,12 @@ import (
 	"math"
 	"strconv"
 	"strings"
+
+	"porelight/solver"
 )
 
 // minus is the typographic minus sign used in drawn labels (CSV keeps '-').
 const minus = "\u2212"
-
-// daysPerYear converts days to years for time labels.
-const daysPerYear = 365.25
 
 // coord formats a pixel coordinate with at most one decimal and no trailing
 // ".0", e.g. 12.5, 40, -3.2.
@@ -99,8 +98,8 @@ func timeLabel(days float64) string {
 	if !isFinite(days) {
 		return "–"
 	}
-	if math.Abs(days) >= daysPerYear {
-		return sig(days/daysPerYear, 3) + " yr"
+	if math.Abs(days) >= solver.DaysPerYear {
+		return sig(days/solver.DaysPerYear, 3) + " yr"
 	}
 	return sig(days, 3) + " d"
 }

@@ -83,7 +83,7 @@ func depthIndex(s *solver.Series, z float64) int {
 		return -1
 	}
 	for i, pz := range s.Piezometers {
-		if math.Abs(pz.Depth-z) <= 1e-9*math.Max(1, math.Abs(z)) {
+		if solver.SameDepth(z, pz.Depth) {
 			return i
 		}
 	}

@@ -1,4 +1,4 @@
-package ui
+package form
 
 import (
 	"fmt"
@@ -8,6 +8,7 @@ import (
 	"time"
 
 	"porelight/solver"
+	"porelight/solver/monitor"
 )
 
 // The monitoring records in the form: paths such as
@@ -17,31 +18,29 @@ import (
 
 // Record kinds, as named in the paths.
 const (
-	kindPlates = "plates"
-	kindPiezos = "piezometers"
+	Plates      = "plates"
+	Piezometers = "piezometers"
 )
 
-// recordPath is the path of record i of a kind: "monitoring.plates[0]".
-func recordPath(kind string, i int) string { return fmt.Sprintf("monitoring.%s[%d]", kind, i) }
-
-// readingPath is the path of a leaf of reading j of a record.
-func readingPath(kind string, i, j int, leaf string) string {
-	return fmt.Sprintf("monitoring.%s[%d].readings[%d].%s", kind, i, j, leaf)
+// RecordPath is the path of record i of a kind: "monitoring.plates[0]".
+func RecordPath(kind string, i int) string {
+	return solver.IndexPath(solver.JoinPath("monitoring", kind), i)
 }
 
-// dateLayouts are the forms a typed or pasted date may take (those of
-// monitor.ParseReadings); the file holds the first.
-var dateLayouts = []string{"2006-01-02", "2/1/2006", "2.1.2006"}
+// ReadingPath is the path of a leaf ("t" or "value") of reading j of
+// record i of a kind: "monitoring.plates[0].readings[3].t".
+func ReadingPath(kind string, i, j int, leaf string) string {
+	return solver.JoinPath(solver.IndexPath(solver.JoinPath(RecordPath(kind, i), "readings"), j), leaf)
+}
 
-// parseDate reads a date in one of dateLayouts and returns it as
-// YYYY-MM-DD.
+// parseDate reads a date in any form monitor.ParseDate takes and returns
+// it in the file's form.
 func parseDate(s string) (string, bool) {
-	for _, l := range dateLayouts {
-		if d, err := time.Parse(l, s); err == nil {
-			return d.Format(dateLayouts[0]), true
-		}
+	d, ok := monitor.ParseDate(s)
+	if !ok {
+		return "", false
 	}
-	return "", false
+	return d.Format(solver.DateLayout), true
 }
 
 // readingAt returns the reading a path of the form
@@ -50,19 +49,19 @@ func readingAt(p *solver.Project, path string) (*solver.Reading, bool) {
 	if !strings.HasPrefix(path, "monitoring.") || p.Monitoring == nil {
 		return nil, false
 	}
-	steps, err := parsePath(path)
-	if err != nil || len(steps) != 4 || steps[2].name != "readings" || steps[1].index < 0 || steps[2].index < 0 {
+	steps, err := solver.ParsePath(path)
+	if err != nil || len(steps) != 4 || steps[2].Name != "readings" || steps[1].Index < 0 || steps[2].Index < 0 {
 		return nil, false
 	}
-	i, j := steps[1].index, steps[2].index
+	i, j := steps[1].Index, steps[2].Index
 	var rs []solver.Reading
-	switch steps[1].name {
-	case kindPlates:
+	switch steps[1].Name {
+	case Plates:
 		if i >= len(p.Monitoring.Plates) {
 			return nil, false
 		}
 		rs = p.Monitoring.Plates[i].Readings
-	case kindPiezos:
+	case Piezometers:
 		if i >= len(p.Monitoring.Piezometers) {
 			return nil, false
 		}
@@ -81,7 +80,7 @@ func readingTimeText(r solver.Reading) string {
 	if r.Date != "" {
 		return r.Date
 	}
-	return formatNumber(r.T)
+	return FormatNumber(r.T)
 }
 
 // applyRecord takes the text typed into a monitoring input whose reading
@@ -112,7 +111,7 @@ func (f *Form) applyRecord(path, s string) (problem string, handled bool) {
 	if !ok {
 		return "no such reading", true
 	}
-	if x, msg := parseNumber(s, false); msg == "" {
+	if x, msg := ParseNumber(s, false); msg == "" {
 		r.T, r.Date = x, ""
 		return "", true
 	}
@@ -123,23 +122,6 @@ func (f *Form) applyRecord(path, s string) (problem string, handled bool) {
 	return "not a number of days or a date (YYYY-MM-DD, DD/MM/YYYY or DD.MM.YYYY)", true
 }
 
-// cloneMonitoring copies the records deeply (nil stays nil).
-func cloneMonitoring(m *solver.Monitoring) *solver.Monitoring {
-	if m == nil {
-		return nil
-	}
-	c := *m
-	c.Plates = slices.Clone(m.Plates)
-	for i := range c.Plates {
-		c.Plates[i].Readings = slices.Clone(c.Plates[i].Readings)
-	}
-	c.Piezometers = slices.Clone(m.Piezometers)
-	for i := range c.Piezometers {
-		c.Piezometers[i].Readings = slices.Clone(c.Piezometers[i].Readings)
-	}
-	return &c
-}
-
 // mon returns the draft's monitoring records, creating them if need be.
 func (f *Form) mon() *solver.Monitoring {
 	if f.draft.Monitoring == nil {
@@ -148,14 +130,14 @@ func (f *Form) mon() *solver.Monitoring {
 	return f.draft.Monitoring
 }
 
-// readings returns the readings of record i of a kind (nil when absent).
-func (f *Form) readings(kind string, i int) []solver.Reading {
+// Readings returns the readings of record i of a kind (nil when absent).
+func (f *Form) Readings(kind string, i int) []solver.Reading {
 	m := f.draft.Monitoring
 	switch {
 	case m == nil || i < 0:
-	case kind == kindPlates && i < len(m.Plates):
+	case kind == Plates && i < len(m.Plates):
 		return m.Plates[i].Readings
-	case kind == kindPiezos && i < len(m.Piezometers):
+	case kind == Piezometers && i < len(m.Piezometers):
 		return m.Piezometers[i].Readings
 	}
 	return nil
@@ -163,20 +145,20 @@ func (f *Form) readings(kind string, i int) []solver.Reading {
 
 func (f *Form) setReadings(kind string, i int, rs []solver.Reading) {
 	m := f.mon()
-	if kind == kindPlates {
+	if kind == Plates {
 		m.Plates[i].Readings = rs
 	} else {
 		m.Piezometers[i].Readings = rs
 	}
 }
 
-// records is the number of records of a kind.
-func (f *Form) records(kind string) int {
+// Records is the number of records of a kind.
+func (f *Form) Records(kind string) int {
 	m := f.draft.Monitoring
 	switch {
 	case m == nil:
 		return 0
-	case kind == kindPlates:
+	case kind == Plates:
 		return len(m.Plates)
 	}
 	return len(m.Piezometers)
@@ -193,12 +175,9 @@ func (f *Form) AddPlate() {
 // output depth no record uses yet, else at mid-height of the column.
 func (f *Form) AddPiezometerRecord() {
 	m := f.mon()
-	depth := 0.0
-	for _, l := range f.draft.Layers {
-		depth += l.Thickness / 2
-	}
+	depth := solver.ColumnHeight(&f.draft) / 2
 	for _, z := range f.draft.Piezometers {
-		if !slices.ContainsFunc(m.Piezometers, func(r solver.PiezometerRecord) bool { return sameDepth(r.Depth, z) }) {
+		if !slices.ContainsFunc(m.Piezometers, func(r solver.PiezometerRecord) bool { return solver.SameDepth(r.Depth, z) }) {
 			depth = z
 			break
 		}
@@ -210,16 +189,16 @@ func (f *Form) AddPiezometerRecord() {
 
 // RemoveRecord deletes record i of a kind with its readings.
 func (f *Form) RemoveRecord(kind string, i int) {
-	if i < 0 || i >= f.records(kind) {
+	if i < 0 || i >= f.Records(kind) {
 		return
 	}
 	m := f.mon()
-	if kind == kindPlates {
+	if kind == Plates {
 		m.Plates = slices.Delete(m.Plates, i, i+1)
 	} else {
 		m.Piezometers = slices.Delete(m.Piezometers, i, i+1)
 	}
-	f.remap("monitoring."+kind, shiftOut(i))
+	f.remap(solver.JoinPath("monitoring", kind), Removed(i))
 	f.tidyMonitoring()
 	f.check()
 }
@@ -227,15 +206,15 @@ func (f *Form) RemoveRecord(kind string, i int) {
 // AddReading appends a reading a week after the last one of record i,
 // with the same value, so that the row starts from something plausible.
 func (f *Form) AddReading(kind string, i int) {
-	if i < 0 || i >= f.records(kind) {
+	if i < 0 || i >= f.Records(kind) {
 		return
 	}
-	rs := f.readings(kind, i)
+	rs := f.Readings(kind, i)
 	r := solver.Reading{}
 	if n := len(rs); n > 0 {
 		r = rs[n-1]
-		if d, err := time.Parse(dateLayouts[0], r.Date); err == nil {
-			r.Date = d.AddDate(0, 0, 7).Format(dateLayouts[0])
+		if d, err := time.Parse(solver.DateLayout, r.Date); err == nil {
+			r.Date = d.AddDate(0, 0, 7).Format(solver.DateLayout)
 		} else {
 			r.T += 7
 		}
@@ -246,24 +225,24 @@ func (f *Form) AddReading(kind string, i int) {
 
 // RemoveReading deletes reading j of record i.
 func (f *Form) RemoveReading(kind string, i, j int) {
-	rs := f.readings(kind, i)
+	rs := f.Readings(kind, i)
 	if j < 0 || j >= len(rs) {
 		return
 	}
 	f.setReadings(kind, i, slices.Delete(rs, j, j+1))
-	f.remap(recordPath(kind, i)+".readings", shiftOut(j))
+	f.remap(solver.JoinPath(RecordPath(kind, i), "readings"), Removed(j))
 	f.check()
 }
 
 // ReplaceReadings makes rs the readings of record i and returns the ones
 // it replaced.
 func (f *Form) ReplaceReadings(kind string, i int, rs []solver.Reading) []solver.Reading {
-	if i < 0 || i >= f.records(kind) {
+	if i < 0 || i >= f.Records(kind) {
 		return nil
 	}
-	old := f.readings(kind, i)
+	old := f.Readings(kind, i)
 	f.setReadings(kind, i, rs)
-	f.dropRaw(recordPath(kind, i) + ".readings")
+	f.dropRaw(solver.JoinPath(RecordPath(kind, i), "readings"))
 	f.check()
 	return old
 }
@@ -276,18 +255,20 @@ func (f *Form) tidyMonitoring() {
 	}
 }
 
-// fieldProblem is a problem with one input.
-type fieldProblem struct{ Path, Message string }
+// FieldProblem is a problem with one input: its path and the message
+// shown beside it.
+type FieldProblem struct{ Path, Message string }
 
-// problemsUnder lists the problems of the inputs at prefix and below, in
-// path order.
-func (f *Form) problemsUnder(prefix string) []fieldProblem {
-	var out []fieldProblem
+// ProblemsUnder lists the problems of the inputs at prefix and below
+// (every input for ""), in path order. Problems no input shows are in
+// Other.
+func (f *Form) ProblemsUnder(prefix string) []FieldProblem {
+	var out []FieldProblem
 	seen := map[string]bool{}
 	add := func(path string) {
-		if !seen[path] && (path == prefix || strings.HasPrefix(path, prefix+".") || strings.HasPrefix(path, prefix+"[")) {
+		if !seen[path] && (prefix == "" || under(path, prefix)) {
 			seen[path] = true
-			out = append(out, fieldProblem{path, f.Problem(path)})
+			out = append(out, FieldProblem{path, f.Problem(path)})
 		}
 	}
 	for p := range f.bad {
@@ -298,13 +279,4 @@ func (f *Form) problemsUnder(prefix string) []fieldProblem {
 	}
 	sort.Slice(out, func(a, b int) bool { return out[a].Path < out[b].Path })
 	return out
-}
-
-// sameDepth reports whether two depths name the same point of the column.
-func sameDepth(a, b float64) bool {
-	d := a - b
-	if d < 0 {
-		d = -d
-	}
-	return d <= 1e-9*max(1, a, -a)
 }

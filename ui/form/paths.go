@@ -1,117 +1,85 @@
-package ui
+package form
 
 import (
 	"fmt"
 	"reflect"
-	"strconv"
 	"strings"
 
 	"porelight/solver"
 )
 
-// A field path names one value of a solver.Project the way solver.Problem
-// does: JSON names joined by dots, list items by [index], e.g.
-// "layers[2].ecurve.cc". The editors key their raw text, their element ids
-// and their problems by it, so a problem from solver.Validate lands on the
-// input that shows the value.
+// Values of the draft by field path (solver.ParsePath), found through
+// the JSON names of the solver's types, so that a field added to
+// solver.Project can be edited without a change here.
 
-// pathStep is one part of a field path: a JSON name, then an optional index.
-type pathStep struct {
-	name  string
-	index int // -1 when the step has no [index]
-}
-
-func parsePath(path string) ([]pathStep, error) {
-	if path == "" {
-		return nil, fmt.Errorf("empty path")
-	}
-	var steps []pathStep
-	for part := range strings.SplitSeq(path, ".") {
-		st := pathStep{name: part, index: -1}
-		if i := strings.IndexByte(part, '['); i >= 0 {
-			if !strings.HasSuffix(part, "]") {
-				return nil, fmt.Errorf("path %q: unclosed [", path)
-			}
-			n, err := strconv.Atoi(part[i+1 : len(part)-1])
-			if err != nil || n < 0 {
-				return nil, fmt.Errorf("path %q: bad index", path)
-			}
-			st.name, st.index = part[:i], n
-		}
-		if st.name == "" {
-			return nil, fmt.Errorf("path %q: empty name", path)
-		}
-		steps = append(steps, st)
-	}
-	return steps, nil
-}
-
-// fieldByJSON returns the field of struct value v whose JSON name is name.
-func fieldByJSON(v reflect.Value, name string) (reflect.Value, bool) {
-	t := v.Type()
+// fieldByJSON returns the field of struct type t whose JSON name is name.
+func fieldByJSON(t reflect.Type, name string) (reflect.StructField, bool) {
 	for i := range t.NumField() {
 		f := t.Field(i)
 		tag, _, _ := strings.Cut(f.Tag.Get("json"), ",")
 		if tag == name {
-			return v.Field(i), true
+			return f, true
 		}
 	}
-	return reflect.Value{}, false
+	return reflect.StructField{}, false
 }
 
 // locate walks p along path. With alloc it allocates nil pointers on the
 // way (to set a value); without, a nil pointer or a missing list item ends
 // the walk with ok == false and present == true only when the value exists.
 func locate(p *solver.Project, path string, alloc bool) (v reflect.Value, present bool, err error) {
-	steps, err := parsePath(path)
+	steps, err := solver.ParsePath(path)
 	if err != nil {
 		return reflect.Value{}, false, err
 	}
 	v = reflect.ValueOf(p).Elem()
 	for _, st := range steps {
-		for v.Kind() == reflect.Pointer {
-			if v.IsNil() {
-				if !alloc {
-					return reflect.Value{}, false, nil
-				}
-				v.Set(reflect.New(v.Type().Elem()))
-			}
-			v = v.Elem()
+		if v, present = deref(v, alloc); !present {
+			return reflect.Value{}, false, nil
 		}
 		if v.Kind() != reflect.Struct {
-			return reflect.Value{}, false, fmt.Errorf("path %q: %s is not an object", path, st.name)
+			return reflect.Value{}, false, fmt.Errorf("path %q: %s is not an object", path, st.Name)
 		}
-		f, ok := fieldByJSON(v, st.name)
+		f, ok := fieldByJSON(v.Type(), st.Name)
 		if !ok {
-			return reflect.Value{}, false, fmt.Errorf("path %q: no field %s", path, st.name)
+			return reflect.Value{}, false, fmt.Errorf("path %q: no field %s", path, st.Name)
 		}
-		v = f
-		if st.index >= 0 {
+		v = v.FieldByIndex(f.Index)
+		if st.Index >= 0 {
 			if v.Kind() != reflect.Slice {
-				return reflect.Value{}, false, fmt.Errorf("path %q: %s is not a list", path, st.name)
+				return reflect.Value{}, false, fmt.Errorf("path %q: %s is not a list", path, st.Name)
 			}
-			if st.index >= v.Len() {
-				return reflect.Value{}, false, fmt.Errorf("path %q: no item %d", path, st.index)
+			if st.Index >= v.Len() {
+				return reflect.Value{}, false, fmt.Errorf("path %q: no item %d", path, st.Index)
 			}
-			v = v.Index(st.index)
+			v = v.Index(st.Index)
 		}
 	}
-	if v.Kind() == reflect.Pointer {
+	if v, present = deref(v, alloc); !present {
+		return reflect.Value{}, false, nil
+	}
+	return v, true, nil
+}
+
+// deref follows the pointers from v, allocating the nil ones on the way
+// when alloc is set; without, a nil pointer gives ok == false.
+func deref(v reflect.Value, alloc bool) (_ reflect.Value, ok bool) {
+	for v.Kind() == reflect.Pointer {
 		if v.IsNil() {
 			if !alloc {
-				return reflect.Value{}, false, nil
+				return reflect.Value{}, false
 			}
 			v.Set(reflect.New(v.Type().Elem()))
 		}
 		v = v.Elem()
 	}
-	return v, true, nil
+	return v, true
 }
 
 // leafKind is the reflect kind of the value at path (String, Float64, Int
 // or Bool), found from the types alone so that absent values have one too.
 func leafKind(path string) reflect.Kind {
-	steps, err := parsePath(path)
+	steps, err := solver.ParsePath(path)
 	if err != nil {
 		return reflect.Invalid
 	}
@@ -123,19 +91,12 @@ func leafKind(path string) reflect.Kind {
 		if t.Kind() != reflect.Struct {
 			return reflect.Invalid
 		}
-		var found bool
-		for i := range t.NumField() {
-			f := t.Field(i)
-			tag, _, _ := strings.Cut(f.Tag.Get("json"), ",")
-			if tag == st.name {
-				t, found = f.Type, true
-				break
-			}
-		}
-		if !found {
+		f, ok := fieldByJSON(t, st.Name)
+		if !ok {
 			return reflect.Invalid
 		}
-		if st.index >= 0 {
+		t = f.Type
+		if st.Index >= 0 {
 			if t.Kind() != reflect.Slice {
 				return reflect.Invalid
 			}
@@ -147,6 +108,10 @@ func leafKind(path string) reflect.Kind {
 	}
 	return t.Kind()
 }
+
+// IsText reports whether the value at path is text (a name, the title,
+// the notes) rather than a number.
+func IsText(path string) bool { return leafKind(path) == reflect.String }
 
 // isPointerLeaf reports whether the value at path is held by a pointer, so
 // that an empty entry means "absent" (nil) rather than zero.
@@ -203,8 +168,7 @@ func setNumber(p *solver.Project, path string, x float64) error {
 func clearNumber(p *solver.Project, path string) error {
 	if isPointerLeaf(path) {
 		end, _, _ := strings.Cut(path, ".")
-		b := boundary(p, end)
-		b.Head = nil
+		Boundary(p, end).Head = nil
 		return nil
 	}
 	v, ok, err := locate(p, path, false)
@@ -234,8 +198,12 @@ func setString(p *solver.Project, path, s string) error {
 // tidyECurve drops a layer's e–log curve when the edit at path left all of
 // its parameters zero: an empty row of e–log columns means "no curve".
 func tidyECurve(p *solver.Project, path string) {
-	var i int
-	if n, _ := fmt.Sscanf(path, "layers[%d].ecurve.", &i); n != 1 || i < 0 || i >= len(p.Layers) {
+	steps, err := solver.ParsePath(path)
+	if err != nil || len(steps) < 2 || steps[0].Name != "layers" || steps[1].Name != "ecurve" {
+		return
+	}
+	i := steps[0].Index
+	if i < 0 || i >= len(p.Layers) {
 		return
 	}
 	if c := p.Layers[i].ECurve; c != nil && *c == (solver.ECurve{}) {
@@ -243,7 +211,9 @@ func tidyECurve(p *solver.Project, path string) {
 	}
 }
 
-func boundary(p *solver.Project, end string) *solver.Boundary {
+// Boundary is the end of p that end names: "bottom" for the base, else
+// the top.
+func Boundary(p *solver.Project, end string) *solver.Boundary {
 	if end == "bottom" {
 		return &p.Bottom
 	}

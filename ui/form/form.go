@@ -1,11 +1,8 @@
-package ui
+package form
 
 import (
 	"fmt"
-	"math"
 	"reflect"
-	"slices"
-	"strconv"
 	"strings"
 
 	"porelight/solver"
@@ -28,8 +25,8 @@ type Form struct {
 	other []solver.Problem    // problems that no input shows
 }
 
-// NewForm starts a form on a copy of p.
-func NewForm(p *solver.Project) *Form {
+// New starts a form on a copy of p.
+func New(p *solver.Project) *Form {
 	f := &Form{}
 	f.Reset(p)
 	return f
@@ -88,7 +85,7 @@ func (f *Form) Text(path string) string {
 	if r, ok := readingAt(&f.draft, path); ok && strings.HasSuffix(path, ".t") {
 		return readingTimeText(*r)
 	}
-	if kind := leafKind(path); kind == reflect.String {
+	if leafKind(path) == reflect.String {
 		return getString(&f.draft, path)
 	}
 	if isList(path) {
@@ -98,7 +95,7 @@ func (f *Form) Text(path string) string {
 	if !ok || (v == 0 && zeroIsDefault(path)) {
 		return ""
 	}
-	return formatNumber(v * scaleOf(path))
+	return FormatNumber(v * scaleOf(path))
 }
 
 // Edit takes the text typed into the input at path. It reports whether
@@ -119,7 +116,7 @@ func (f *Form) Edit(path, text string) bool {
 // drained drops its inflow, as the two cannot go together.
 func (f *Form) SetBool(path string, on bool) {
 	end, _, _ := strings.Cut(path, ".")
-	b := boundary(&f.draft, end)
+	b := Boundary(&f.draft, end)
 	if b.Drained == on {
 		return
 	}
@@ -160,7 +157,7 @@ func (f *Form) apply(path, text string) (changed bool, problem string) {
 			return false, err.Error()
 		}
 	default:
-		x, msg := parseNumber(s, leafKind(path) == reflect.Int)
+		x, msg := ParseNumber(s, leafKind(path) == reflect.Int)
 		if msg != "" {
 			return false, msg
 		}
@@ -213,13 +210,8 @@ func inputFor(path string) (input, prefix string) {
 	if strings.HasPrefix(path, "monitoring.") && strings.HasSuffix(path, ".date") {
 		return strings.TrimSuffix(path, ".date") + ".t", "" // one input shows t or date
 	}
-	for _, list := range []string{"times", "piezometers"} {
-		if strings.HasPrefix(path, list+"[") {
-			var i int
-			if _, err := fmt.Sscanf(path[len(list):], "[%d]", &i); err == nil {
-				return list, fmt.Sprintf("value %d: ", i+1)
-			}
-		}
+	if steps, err := solver.ParsePath(path); err == nil && len(steps) == 1 && steps[0].Index >= 0 && isList(steps[0].Name) {
+		return steps[0].Name, fmt.Sprintf("value %d: ", steps[0].Index+1)
 	}
 	return path, ""
 }
@@ -249,41 +241,21 @@ var pageFields = func() map[string]bool {
 }()
 
 // indexless writes every list index of a field path as "#":
-// "layers[2].k" becomes "layers[#].k". A bracket holding anything but
-// digits is kept as it is.
+// "layers[2].k" becomes "layers[#].k". A text that is not a field path
+// (solver.ParsePath) is returned as it is, so no input matches it.
 func indexless(path string) string {
-	var b strings.Builder
-	for {
-		i := strings.IndexByte(path, '[')
-		if i < 0 {
-			b.WriteString(path)
-			return b.String()
-		}
-		j := strings.IndexByte(path[i:], ']')
-		if j < 0 {
-			b.WriteString(path)
-			return b.String()
-		}
-		b.WriteString(path[:i])
-		if digits(path[i+1 : i+j]) {
-			b.WriteString("[#]")
-		} else {
-			b.WriteString(path[i : i+j+1])
-		}
-		path = path[i+j+1:]
+	steps, err := solver.ParsePath(path)
+	if err != nil {
+		return path
 	}
-}
-
-func digits(s string) bool {
-	if s == "" {
-		return false
-	}
-	for _, r := range s {
-		if r < '0' || r > '9' {
-			return false
+	out := ""
+	for _, st := range steps {
+		out = solver.JoinPath(out, st.Name)
+		if st.Index >= 0 {
+			out += "[#]"
 		}
 	}
-	return true
+	return out
 }
 
 // onPage reports whether an input on the page shows the value at path.
@@ -304,214 +276,4 @@ func setList(p *solver.Project, path string, xs []float64) {
 	} else {
 		p.Piezometers = xs
 	}
-}
-
-// zeroIsDefault reports whether a zero at path means "use the default",
-// so the input shows empty (with the default as its placeholder).
-func zeroIsDefault(path string) bool {
-	_, ok := defaultHint(path)
-	return ok
-}
-
-// defaultHint is the placeholder of an input whose empty value means a
-// default, and whether there is one.
-func defaultHint(path string) (string, bool) {
-	i := strings.LastIndexByte(path, '.')
-	leaf := path[i+1:]
-	switch {
-	case path == "gammaW":
-		return "9.81", true
-	case path == "targetDegree":
-		return "95", true
-	case path == "designLife":
-		return "50", true
-	case path == "mesh.order":
-		return "1", true
-	case path == "mesh.maxSize":
-		return "H/200", true
-	case path == "mesh.minPerLayer":
-		return "4", true
-	case path == "stepping.theta":
-		return "0.5", true
-	case path == "stepping.dampedSteps":
-		return "4", true
-	case path == "stepping.firstStep":
-		return "1 min", true
-	case path == "stepping.growth":
-		return "1.2", true
-	case path == "stepping.endTime":
-		return "auto", true
-	case strings.HasPrefix(path, "layers["):
-		switch leaf {
-		case "gamma":
-			return "= γsat", true
-		case "mv":
-			return "from e–log", true
-		case "calpha":
-			return "none", true
-		case "sigmaP", "ocr":
-			return "–", true
-		}
-	case leaf == "inflow":
-		return "0 (sealed)", true
-	}
-	return "", false
-}
-
-// scaleOf is the factor from the file's unit to the unit an input shows.
-func scaleOf(path string) float64 {
-	switch path {
-	case "targetDegree":
-		return 100 // fraction → %
-	case "designLife":
-		return 1 / 365.25 // day → year
-	}
-	if strings.HasPrefix(path, "monitoring.plates[") && strings.HasSuffix(path, ".value") {
-		return 1000 // settlement readings: m → mm
-	}
-	return 1
-}
-
-// parseNumber reads one number as typed: a decimal comma is accepted, as
-// is an exponent ("1.5e-9").
-func parseNumber(s string, whole bool) (float64, string) {
-	s = strings.ReplaceAll(strings.TrimSpace(s), ",", ".")
-	s = strings.ReplaceAll(s, "−", "-") // a typographic minus
-	x, err := strconv.ParseFloat(s, 64)
-	if err != nil || math.IsNaN(x) || math.IsInf(x, 0) {
-		return 0, "not a number"
-	}
-	if whole && x != math.Trunc(x) {
-		return 0, "must be a whole number"
-	}
-	return x, ""
-}
-
-// parseList reads numbers separated by commas, semicolons or spaces. With
-// a comma as separator, decimals take a point.
-func parseList(s string) ([]float64, string) {
-	fields := strings.FieldsFunc(s, func(r rune) bool { return r == ',' || r == ';' || r == ' ' || r == '\t' || r == '\n' })
-	xs := make([]float64, 0, len(fields))
-	for i, w := range fields {
-		w = strings.ReplaceAll(w, "−", "-")
-		x, err := strconv.ParseFloat(w, 64)
-		if err != nil || math.IsNaN(x) || math.IsInf(x, 0) {
-			return nil, fmt.Sprintf("value %d (%q) is not a number", i+1, w)
-		}
-		xs = append(xs, x)
-	}
-	if len(xs) == 0 {
-		return nil, ""
-	}
-	return xs, ""
-}
-
-// formatNumber writes x briefly and exactly enough to read back the same:
-// 1.5e-09 → "1.5e-9", 0.30000000000000004 → "0.3".
-func formatNumber(x float64) string {
-	s := strconv.FormatFloat(x, 'g', 12, 64)
-	if mant, exp, ok := strings.Cut(s, "e"); ok {
-		sign := ""
-		if exp[0] == '-' || exp[0] == '+' {
-			if exp[0] == '-' {
-				sign = "-"
-			}
-			exp = exp[1:]
-		}
-		exp = strings.TrimLeft(exp, "0")
-		return mant + "e" + sign + exp
-	}
-	return s
-}
-
-func formatList(xs []float64) string {
-	parts := make([]string, len(xs))
-	for i, x := range xs {
-		parts[i] = formatNumber(x)
-	}
-	return strings.Join(parts, ", ")
-}
-
-// dropRaw forgets typed text at path and below it.
-func (f *Form) dropRaw(prefix string) {
-	for _, m := range []map[string]string{f.raw, f.bad} {
-		for k := range m {
-			if k == prefix || strings.HasPrefix(k, prefix+".") || strings.HasPrefix(k, prefix+"[") {
-				delete(m, k)
-			}
-		}
-	}
-}
-
-// remap renumbers the typed text of the items of list (e.g. "layers")
-// after a structural edit: to(old) gives an item's new index, or -1 when
-// it was removed.
-func (f *Form) remap(list string, to func(old int) int) {
-	for _, m := range []map[string]string{f.raw, f.bad} {
-		moved := map[string]string{}
-		for k, v := range m {
-			old, rest, ok := listItem(k, list)
-			if !ok {
-				continue
-			}
-			delete(m, k)
-			if n := to(old); n >= 0 {
-				moved[fmt.Sprintf("%s[%d]%s", list, n, rest)] = v
-			}
-		}
-		for k, v := range moved {
-			m[k] = v
-		}
-	}
-}
-
-// listItem splits a path "list[i]rest" into i and rest.
-func listItem(path, list string) (i int, rest string, ok bool) {
-	if !strings.HasPrefix(path, list+"[") {
-		return 0, "", false
-	}
-	tail := path[len(list)+1:]
-	j := strings.IndexByte(tail, ']')
-	if j < 0 || !digits(tail[:j]) {
-		return 0, "", false
-	}
-	i, err := strconv.Atoi(tail[:j])
-	return i, tail[j+1:], err == nil
-}
-
-// cloneProject makes a deep copy, so nothing is shared between the draft,
-// the model and a solve in progress.
-func cloneProject(p *solver.Project) *solver.Project {
-	q := *p
-	if p.Units != nil {
-		u := *p.Units
-		q.Units = &u
-	}
-	q.Layers = slices.Clone(p.Layers)
-	for i, l := range q.Layers {
-		if l.ECurve != nil {
-			c := *l.ECurve
-			q.Layers[i].ECurve = &c
-		}
-	}
-	q.Top = cloneBoundary(p.Top)
-	q.Bottom = cloneBoundary(p.Bottom)
-	q.Loads = slices.Clone(p.Loads)
-	for i := range q.Loads {
-		q.Loads[i].Profile = slices.Clone(q.Loads[i].Profile)
-	}
-	q.InitialExcess = slices.Clone(p.InitialExcess)
-	q.Times = slices.Clone(p.Times)
-	q.Piezometers = slices.Clone(p.Piezometers)
-	q.Monitoring = cloneMonitoring(p.Monitoring)
-	return &q
-}
-
-func cloneBoundary(b solver.Boundary) solver.Boundary {
-	if b.Head != nil {
-		h := *b.Head
-		b.Head = &h
-	}
-	b.Excess = slices.Clone(b.Excess)
-	return b
 }
