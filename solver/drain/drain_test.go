@@ -14,9 +14,9 @@ func TestBarron(t *testing.T) {
 	t.Parallel()
 	for _, c := range []struct{ n, want, tol float64 }{
 		{20, 2.254, 5e-4}, // Barron (1948), F(20) ≈ 2.254, computed from the formula
-		{5, 25.0 / 24 * math.Log(5) - 74.0/100, 1e-12},
-		{10, 100.0 / 99 * math.Log(10) - 299.0/400, 1e-12},
-		{50, 2500.0 / 2499 * math.Log(50) - 7499.0/10000, 1e-12},
+		{5, 25.0/24*math.Log(5) - 74.0/100, 1e-12},
+		{10, 100.0/99*math.Log(10) - 299.0/400, 1e-12},
+		{50, 2500.0/2499*math.Log(50) - 7499.0/10000, 1e-12},
 	} {
 		if got := Barron(c.n); math.Abs(got-c.want) > c.tol {
 			t.Errorf("F(%g) = %.6f, want %.6f ± %g", c.n, got, c.want, c.tol)
