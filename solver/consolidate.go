@@ -82,7 +82,7 @@ func (k *consolidation) finalState() error {
 		return err
 	}
 	k.bps = breakpoints(k.c.p, k.tr.set.EndTime)
-	if len(k.tr.held) == 0 {
+	if len(k.tr.held) == 0 && k.c.drains == nil {
 		k.warn("", "both ends are undrained: the excess pore pressure cannot drain, so no consolidation settlement develops")
 	}
 	return nil
@@ -204,7 +204,7 @@ func (k *consolidation) prepareSeries() *Consolidation {
 	}
 	k.denS = dot(tr.wMass, k.sigInf) - dot(tr.wMass, k.uInf)
 	k.denP = dot(tr.wLength, k.sigInf) - dot(tr.wLength, k.uInf)
-	k.defined = math.Abs(k.denS) > 1e-12*math.Max(1, math.Abs(*k.r.Summary.SettlementLinear)) && len(tr.held) > 0
+	k.defined = math.Abs(k.denS) > 1e-12*math.Max(1, math.Abs(*k.r.Summary.SettlementLinear)) && (len(tr.held) > 0 || k.c.drains != nil)
 	capacity := estimateSteps(p) + len(k.bps) + 2
 	ser.Time = make([]float64, 0, capacity)
 	ser.Load = make([]float64, 0, capacity)

@@ -37,6 +37,7 @@ func Solve(p *Project, opt *Options) (*Result, error) {
 	r := &Result{Warnings: []Warning{}}
 	warn := func(path, msg string) { r.Warnings = append(r.Warnings, Warning{Path: path, Message: msg}) }
 	oddValues(p, warn)
+	drainWarnings(p, warn)
 	st, err := c.steady(warn)
 	if err != nil {
 		return nil, err
@@ -45,8 +46,19 @@ func Solve(p *Project, opt *Options) (*Result, error) {
 	r.Stats = Stats{Nodes: c.m.Nodes(), Elements: c.m.Elements(), Order: c.m.Order}
 	r.Summary.Flux = r.Steady.Flux
 	if HasConsolidation(p) {
-		if err := c.consolidate(&r.Steady, r, opt, warn); err != nil {
+		main, ref := opt, opt
+		if c.drains != nil && opt != nil && opt.Progress != nil {
+			// Half the work is the reference solve without drains.
+			main = &Options{Progress: func(f float64) bool { return opt.Progress(f / 2) }}
+			ref = &Options{Progress: func(f float64) bool { return opt.Progress(0.5 + f/2) }}
+		}
+		if err := c.consolidate(&r.Steady, r, main, warn); err != nil {
 			return nil, err
+		}
+		if c.drains != nil {
+			if err := c.drainReference(&r.Steady, r, ref); err != nil {
+				return nil, err
+			}
 		}
 	}
 	for _, l := range r.Steady.Layers {

@@ -16,6 +16,8 @@ type transient struct {
 	c        *column
 	mv       []float64 // per layer, 1/kPa
 	k, mass  *fem.Band // conductivity (k/γw, m²/(kPa·day)) and mv-mass
+	sink     *fem.Band // the drains' radial sink (nil without drains)
+	kSink    *fem.Band // k + sink, what the stepper steps with drains
 	stepper  *fem.Stepper
 	held     []int
 	lo, hi   int // free unknowns
@@ -97,7 +99,18 @@ func (tr *transient) setMv(mv []float64) {
 	if lumped {
 		tr.mass.Lump()
 	}
-	tr.stepper = fem.NewStepper(tr.mass, tr.k, tr.held, lumped)
+	k := tr.k
+	if tr.c.drains != nil {
+		// The unit cell's sink mv·8ch/(De²μ)·ū joins the conductivity: the
+		// same band, so a step costs what it did.
+		tr.sink = tr.c.assembleSink(mv, lumped)
+		tr.kSink = fem.NewBand(tr.k.N, tr.k.KD)
+		for i := range tr.kSink.AB {
+			tr.kSink.AB[i] = tr.k.AB[i] + tr.sink.AB[i]
+		}
+		k = tr.kSink
+	}
+	tr.stepper = fem.NewStepper(tr.mass, k, tr.held, lumped)
 }
 
 // layerSettlement returns each layer's settlement ∫ mv (σ − u) dz, m, for
@@ -214,7 +227,11 @@ func (tr *transient) final() (sigma, u []float64, err error) {
 	tr.stressAt(sigma, math.Inf(1), false)
 	u = make([]float64, n)
 	if len(tr.held) == 0 {
-		copy(u, sigma)
+		if tr.c.drains == nil {
+			copy(u, sigma)
+		}
+		// With drains (and no pressure history at an end, which Validate
+		// refuses with drains) everything drains to u = 0.
 		return sigma, u, nil
 	}
 	tr.setHeld(u, math.Inf(1), false)

@@ -1,0 +1,448 @@
+package solver
+
+import (
+	"fmt"
+	"math"
+	"sort"
+
+	"porelight/solver/drain"
+	"porelight/solver/fem"
+	"porelight/solver/soil"
+)
+
+// Defaults of a drain layout (see Drains).
+const (
+	// DefaultEquivalent is how a band drain's equivalent diameter is
+	// taken: the circle of equal perimeter, 2(a+b)/π (Hansbo 1979).
+	DefaultEquivalent = string(drain.Perimeter)
+	// DefaultDischarge is where the drains let their water out.
+	DefaultDischarge = string(drain.Top)
+	// DefaultKhKv is the ratio kh/kv of a layer that gives neither ch nor
+	// khKv.
+	DefaultKhKv = 1.0
+	// DefaultSmearRatio and DefaultSmearK mean no smear.
+	DefaultSmearRatio = 1.0
+	DefaultSmearK     = 1.0
+)
+
+// DrainCell is a drain layout resolved for a project: the unit cell and
+// the drained depth range.
+type DrainCell struct {
+	// De is the diameter of the unit cell, m: CellFactor × spacing.
+	De float64 `json:"de"`
+	// Dw is the drain's (equivalent) diameter, m.
+	Dw float64 `json:"dw"`
+	// N is De/Dw.
+	N float64 `json:"n"`
+	// Top and Tip are the depths of the drains' ends, m.
+	Top float64 `json:"top"`
+	Tip float64 `json:"tip"`
+	// Mu0 is μ without well resistance: Barron's F(n) with no smear.
+	Mu0 float64 `json:"mu0"`
+	// Equivalent and Discharge are the resolved choices.
+	Equivalent string `json:"equivalent,omitempty"`
+	Discharge  string `json:"discharge"`
+
+	cell drain.Cell
+	qw   float64
+}
+
+// ResolveDrains returns the resolved drain layout of p, or nil when p has
+// no drains. p must be valid.
+func ResolveDrains(p *Project) *DrainCell {
+	d := p.Drains
+	if d == nil {
+		return nil
+	}
+	dc := &DrainCell{De: drain.CellFactor(drain.Pattern(d.Pattern)) * d.Spacing, Top: d.Top, Discharge: d.Discharge}
+	if dc.Discharge == "" {
+		dc.Discharge = DefaultDischarge
+	}
+	dc.Dw = d.Diameter
+	if d.Diameter == 0 {
+		dc.Equivalent = d.Equivalent
+		if dc.Equivalent == "" {
+			dc.Equivalent = DefaultEquivalent
+		}
+		dc.Dw = drain.EquivalentDiameter(d.Width, d.Thickness, drain.Equivalent(dc.Equivalent))
+	}
+	dc.N = dc.De / dc.Dw
+	dc.Tip = drainTip(p)
+	s, kr := d.SmearRatio, d.SmearK
+	if s == 0 {
+		s = DefaultSmearRatio
+	}
+	if kr == 0 {
+		kr = DefaultSmearK
+	}
+	dc.cell = drain.Cell{N: dc.N, S: s, KRatio: kr}
+	dc.Mu0 = dc.cell.Mu()
+	dc.qw = d.Qw
+	return dc
+}
+
+// drainTip is the depth of the drains' tip: Depth, the base of layer
+// ToLayer, or the base of the column.
+func drainTip(p *Project) float64 {
+	d := p.Drains
+	switch {
+	case d.Depth > 0:
+		return d.Depth
+	case d.ToLayer != nil:
+		z := 0.0
+		for _, l := range p.Layers[:*d.ToLayer+1] {
+			z += l.Thickness
+		}
+		return z
+	}
+	return ColumnHeight(p)
+}
+
+// drainBreaks are the depths the mesh must have nodes at for p's drains.
+func drainBreaks(p *Project) []float64 {
+	if p.Drains == nil {
+		return nil
+	}
+	return []float64{p.Drains.Top, drainTip(p)}
+}
+
+// Mu is μ at depth z (in the drained range) for horizontal permeability
+// kh, m/s: Mu0 plus the well resistance (Hansbo 1981).
+func (dc *DrainCell) Mu(z, kh float64) float64 {
+	dist, l := drain.FromOutlet(z, dc.Top, dc.Tip, drain.Discharge(dc.Discharge))
+	return dc.Mu0 + drain.WellTerm(dist, l, kh, dc.qw, dc.N)
+}
+
+// Reaches reports whether the drains run through depth z.
+func (dc *DrainCell) Reaches(z float64) bool { return z >= dc.Top && z <= dc.Tip }
+
+// LayerCh is the horizontal coefficient of consolidation of layer l for
+// volume compressibility mv, m²/day, and its horizontal permeability,
+// m/s: Ch as given (kh = ch·mv·γw), or KhKv (default 1) times cv and k.
+func LayerCh(l *Layer, mv, gw float64) (ch, kh float64) {
+	if l.Ch > 0 {
+		return l.Ch, l.Ch * mv * gw / soil.SecondsPerDay
+	}
+	r := l.KhKv
+	if r == 0 {
+		r = DefaultKhKv
+	}
+	return r * soil.Cv(l.K, mv, gw), r * l.K
+}
+
+// sinkCoefficient fills, for every element, the horizontal coefficient
+// of consolidation ch (m²/day; 0 outside the drained range) and the
+// horizontal permeability kh (m/s) for mv per layer. They are per element
+// so that a soil model may change them element by element.
+func (c *column) sinkCoefficient(mv []float64) (ch, kh []float64) {
+	m := c.m
+	ch = make([]float64, m.Elements())
+	kh = make([]float64, m.Elements())
+	for e := range ch {
+		_, z0, z1 := m.Span(e)
+		if !c.drains.Reaches((z0 + z1) / 2) {
+			continue
+		}
+		l := m.Layer[e]
+		ch[e], kh[e] = LayerCh(&c.p.Layers[l], mv[l], c.gw)
+	}
+	return ch, kh
+}
+
+// assembleSink returns the matrix of the radial sink of the unit cell,
+// ∫ w mv (8 ch/(De² μ(z))) u dz, for mv per layer, lumped by rows for
+// linear elements as the capacity matrix is (transient.setMv), with μ
+// at the Gauss points (it varies with depth under well resistance).
+func (c *column) assembleSink(mv []float64, lumped bool) *fem.Band {
+	m, dc := c.m, c.drains
+	ch, kh := c.sinkCoefficient(mv)
+	r := fem.NewBand(m.Nodes(), m.Order)
+	m.Assemble(r, func(e int, z float64) float64 {
+		if ch[e] == 0 {
+			return 0
+		}
+		return mv[m.Layer[e]] * drain.Rate(ch[e], dc.De, dc.Mu(z, kh[e]))
+	}, true)
+	if lumped {
+		r.Lump()
+	}
+	return r
+}
+
+// validDrains checks p.Drains and the layers' ch and khKv.
+func validDrains(ps *Problems, p *Project, height float64) {
+	for i, l := range p.Layers {
+		at := IndexPath("layers", i)
+		if l.Ch != 0 {
+			positive(ps, JoinPath(at, "ch"), l.Ch)
+		}
+		if l.KhKv != 0 {
+			positive(ps, JoinPath(at, "khKv"), l.KhKv)
+		}
+		if l.Ch != 0 && l.KhKv != 0 {
+			ps.Add(JoinPath(at, "khKv"), ErrConflict, "give ch or khKv, not both")
+		}
+	}
+	d := p.Drains
+	if d == nil {
+		return
+	}
+	at := func(name string) string { return JoinPath("drains", name) }
+	factor := drain.CellFactor(drain.Pattern(d.Pattern))
+	if d.Pattern == "" {
+		ps.Add(at("pattern"), ErrRequired, `"triangular" or "square"`)
+	} else if factor == 0 {
+		ps.Add(at("pattern"), ErrOutOfRange, fmt.Sprintf(`must be "triangular" or "square" (got %q)`, d.Pattern))
+	}
+	spacingOK := positive(ps, at("spacing"), d.Spacing)
+	dw := 0.0
+	band := d.Width != 0 || d.Thickness != 0
+	switch {
+	case d.Diameter != 0 && band:
+		ps.Add(at("diameter"), ErrConflict, "give a diameter, or a band's width and thickness, not both")
+	case d.Diameter != 0:
+		if positive(ps, at("diameter"), d.Diameter) {
+			dw = d.Diameter
+		}
+		if d.Equivalent != "" {
+			ps.Add(at("equivalent"), ErrConflict, "the equivalent diameter is for a band drain; a round drain has its diameter")
+		}
+	case band:
+		a, b := positive(ps, at("width"), d.Width), positive(ps, at("thickness"), d.Thickness)
+		if a && b && d.Thickness > d.Width {
+			ps.Add(at("thickness"), ErrOutOfRange, fmt.Sprintf("must not exceed the width %g m (got %g)", d.Width, d.Thickness))
+		}
+		e := d.Equivalent
+		if e == "" {
+			e = DefaultEquivalent
+		}
+		if dw = drain.EquivalentDiameter(d.Width, d.Thickness, drain.Equivalent(e)); dw == 0 {
+			ps.Add(at("equivalent"), ErrOutOfRange, fmt.Sprintf(`must be "perimeter" or "mean" (got %q)`, d.Equivalent))
+		}
+		if !a || !b {
+			dw = 0
+		}
+	default:
+		ps.Add(at("diameter"), ErrRequired, "give the drain's diameter, or a band's width and thickness")
+	}
+	de := factor * d.Spacing
+	if spacingOK && factor > 0 && dw > 0 && dw >= de {
+		ps.Add(at("spacing"), ErrOutOfRange, fmt.Sprintf("the unit cell (De = %.3g m) must be wider than the drain (%.3g m)", de, dw))
+		dw = 0
+	}
+	if d.SmearRatio != 0 && finite(ps, at("smearRatio"), d.SmearRatio) {
+		switch {
+		case d.SmearRatio < 1:
+			ps.Add(at("smearRatio"), ErrOutOfRange, "ds/dw must be ≥ 1 "+paren(num(d.SmearRatio)))
+		case dw > 0 && d.SmearRatio*dw >= de:
+			ps.Add(at("smearRatio"), ErrOutOfRange, fmt.Sprintf("the smear zone (%.3g m) must lie inside the unit cell (De = %.3g m)", d.SmearRatio*dw, de))
+		}
+	}
+	if d.SmearK != 0 && finite(ps, at("smearK"), d.SmearK) && d.SmearK < 1 {
+		ps.Add(at("smearK"), ErrOutOfRange, "kh/ks must be ≥ 1: smear lowers the permeability "+paren(num(d.SmearK)))
+	}
+	if d.Qw != 0 {
+		positive(ps, at("qw"), d.Qw)
+	}
+	switch drain.Discharge(d.Discharge) {
+	case "", drain.Top, drain.Base, drain.Both:
+	default:
+		ps.Add(at("discharge"), ErrOutOfRange, fmt.Sprintf(`must be "top", "base" or "both" (got %q)`, d.Discharge))
+	}
+	topOK := nonNegative(ps, at("top"), d.Top)
+	tip := height
+	switch {
+	case d.Depth != 0 && d.ToLayer != nil:
+		ps.Add(at("toLayer"), ErrConflict, "give the tip's depth or its layer, not both")
+		tip = math.NaN()
+	case d.Depth != 0:
+		tip = math.NaN()
+		if positive(ps, at("depth"), d.Depth) {
+			if height > 0 && d.Depth > height*(1+1e-12) {
+				ps.Add(at("depth"), ErrOutOfRange, fmt.Sprintf("depth %g m is below the base of the column at %g m", d.Depth, height))
+			} else {
+				tip = d.Depth
+			}
+		}
+	case d.ToLayer != nil:
+		tip = math.NaN()
+		if i := *d.ToLayer; i < 0 || i >= len(p.Layers) {
+			ps.Add(at("toLayer"), ErrOutOfRange, fmt.Sprintf("no layer %d (the column has %d, numbered from 0)", i, len(p.Layers)))
+		} else {
+			tip = 0
+			for _, l := range p.Layers[:i+1] {
+				tip += l.Thickness
+			}
+		}
+	}
+	if topOK && !math.IsNaN(tip) && d.Top >= tip {
+		ps.Add(at("top"), ErrOutOfRange, fmt.Sprintf("the drains must start above their tip at %g m (got %g)", tip, d.Top))
+	}
+	if (drain.Discharge(d.Discharge) == drain.Base || drain.Discharge(d.Discharge) == drain.Both) && !math.IsNaN(tip) && height > 0 && tip < height*(1-1e-12) {
+		ps.Add(at("discharge"), ErrConflict, fmt.Sprintf("drains ending at %g m, above the base at %g m, cannot discharge at the base", tip, height))
+	}
+	for _, b := range []struct {
+		at string
+		b  Boundary
+	}{{"top.excess", p.Top}, {"bottom.excess", p.Bottom}} {
+		if len(b.b.Excess) > 0 {
+			ps.Add(b.at, ErrConflict, "a pressure history at a drained end is not modelled together with drains (the drains would carry it too); remove one of them")
+		}
+	}
+}
+
+// drainWarnings flags a discharge end that the column leaves undrained:
+// the drains are then taken to discharge freely there (into a blanket
+// outside the column).
+func drainWarnings(p *Project, warn func(path, msg string)) {
+	d := p.Drains
+	if d == nil {
+		return
+	}
+	disc := d.Discharge
+	if disc == "" {
+		disc = DefaultDischarge
+	}
+	if (disc == "top" || disc == "both") && !p.Top.Drained {
+		warn("drains.discharge", "the drains discharge at the top, which is undrained for vertical flow: they are taken to let their water out freely there (a blanket or sump outside the column)")
+	}
+	if (disc == "base" || disc == "both") && !p.Bottom.Drained {
+		warn("drains.discharge", "the drains discharge at the base, which is undrained for vertical flow: they are taken to let their water out freely there")
+	}
+	if d.Top > 0 && (disc == "top" || disc == "both") {
+		warn("drains.top", fmt.Sprintf("the drains start at %g m: the soil above is taken to pass their water to the top freely", d.Top))
+	}
+}
+
+// DrainResult holds what the drains do.
+type DrainResult struct {
+	// Cell is the resolved unit cell and drained range.
+	Cell DrainCell `json:"cell"`
+	// Layers gives each layer's ch, m²/day, and kh, m/s, where the drains
+	// reach it (0 elsewhere).
+	Layers []DrainLayer `json:"layers"`
+	// Depth and Mu give μ along the drains (with well resistance it grows
+	// away from the discharging end), m and dimensionless.
+	Depth []float64 `json:"depth"`
+	Mu    []float64 `json:"mu"`
+	// Uv is the average degree of consolidation (by settlement) of the
+	// same column without drains, at the times of Consolidation.Series;
+	// Uh = 1 − (1 − Us)/(1 − Uv) is the radial degree implied by
+	// Carrillo's (1942) relation: exactly the unit cell's radial degree
+	// when the drains reach through the whole column with one μ, and the
+	// share the drains add otherwise.
+	Uv []float64 `json:"uv"`
+	Uh []float64 `json:"uh"`
+	// AtTimes gives U (= Us), Uv and Uh at the output times.
+	AtTimes []DrainDegree `json:"atTimes"`
+	// T90Vertical and TTargetVertical are the times to 90 % and to the
+	// target degree without drains, days (nil when not reached).
+	T90Vertical     *float64 `json:"t90Vertical,omitempty"`
+	TTargetVertical *float64 `json:"tTargetVertical,omitempty"`
+}
+
+// DrainLayer is one layer's horizontal flow figures.
+type DrainLayer struct {
+	Ch float64 `json:"ch"` // m²/day
+	Kh float64 `json:"kh"` // m/s
+}
+
+// DrainDegree is the degree of consolidation at one output time.
+type DrainDegree struct {
+	Time float64 `json:"time"` // day
+	U    float64 `json:"u"`
+	Uv   float64 `json:"uv"`
+	Uh   float64 `json:"uh"`
+}
+
+// drainReference solves the same column without drains (on the same mesh
+// and time steps) and fills r.Drains.
+func (c *column) drainReference(st *Steady, r *Result, opt *Options) error {
+	dc := c.drains
+	ref := *c
+	ref.drains = nil
+	rr := &Result{Steady: *st}
+	rr.Steady.Layers = append([]SteadyLayer(nil), st.Layers...)
+	if err := ref.consolidate(&rr.Steady, rr, opt, func(string, string) {}); err != nil {
+		return err
+	}
+	dr := &DrainResult{Cell: *dc}
+	r.Drains = dr
+	mv := make([]float64, len(r.Summary.Layers))
+	for i, l := range r.Summary.Layers {
+		mv[i] = l.Mv
+	}
+	for i := range c.p.Layers {
+		z0, z1 := c.tops[i], c.tops[i+1]
+		var dl DrainLayer
+		if z1 > dc.Top && z0 < dc.Tip {
+			dl.Ch, dl.Kh = LayerCh(&c.p.Layers[i], mv[i], c.gw)
+		}
+		dr.Layers = append(dr.Layers, dl)
+	}
+	m := c.m
+	for e := range m.Elements() {
+		_, z0, z1 := m.Span(e)
+		if !dc.Reaches((z0 + z1) / 2) {
+			continue
+		}
+		kh := dr.Layers[m.Layer[e]].Kh
+		if len(dr.Depth) == 0 {
+			dr.Depth, dr.Mu = append(dr.Depth, z0), append(dr.Mu, dc.Mu(z0, kh))
+		}
+		dr.Depth, dr.Mu = append(dr.Depth, z1), append(dr.Mu, dc.Mu(z1, kh))
+	}
+	ser, rs := &r.Consolidation.Series, &rr.Consolidation.Series
+	if len(ser.Us) == 0 || len(rs.Us) == 0 {
+		return nil
+	}
+	dr.Uv = make([]float64, len(ser.Time))
+	dr.Uh = make([]float64, len(ser.Time))
+	for i, t := range ser.Time {
+		uv := interpolateSeries(rs.Time, rs.Us, t)
+		dr.Uv[i] = uv
+		dr.Uh[i] = carrilloRadial(ser.Us[i], uv)
+	}
+	for _, t := range c.p.Times {
+		u := interpolateSeries(ser.Time, ser.Us, t)
+		uv := interpolateSeries(rs.Time, rs.Us, t)
+		dr.AtTimes = append(dr.AtTimes, DrainDegree{Time: t, U: u, Uv: uv, Uh: carrilloRadial(u, uv)})
+	}
+	dr.T90Vertical = rr.Summary.T90
+	dr.TTargetVertical = rr.Summary.TTarget
+	return nil
+}
+
+// carrilloRadial is 1 − (1 − u)/(1 − uv), the radial degree Carrillo's
+// (1942) relation implies; 1 once the vertical degree is complete.
+func carrilloRadial(u, uv float64) float64 {
+	if 1-uv < 1e-12 {
+		return 1
+	}
+	return 1 - (1-u)/(1-uv)
+}
+
+// interpolateSeries reads ys at time t, linear between the samples ts
+// (increasing) and constant beyond them.
+func interpolateSeries(ts, ys []float64, t float64) float64 {
+	i := sort.SearchFloat64s(ts, t)
+	switch {
+	case i == 0:
+		return ys[0]
+	case i == len(ts):
+		return ys[len(ys)-1]
+	case ts[i] == t:
+		return ys[i]
+	}
+	f := (t - ts[i-1]) / (ts[i] - ts[i-1])
+	return ys[i-1] + f*(ys[i]-ys[i-1])
+}
+
+// drainSeries is the number of series per time step the drains add to a
+// result (Uv and Uh).
+func drainSeries(p *Project) int {
+	if p.Drains == nil {
+		return 0
+	}
+	return 2
+}
