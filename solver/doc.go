@@ -152,6 +152,39 @@
 // (Mesri 1973) is Cα H/(1+ep) log10(t/tp) per layer at Project.DesignLife,
 // with tp the time at which Us reaches 95 %.
 //
+// # Vertical drains
+//
+// Project.Drains puts a pattern of vertical drains (triangular or square,
+// spacing s) from Drains.Top down to the tip (a depth, the base of a
+// layer, or the base of the column). Each drain drains its unit cell
+// (Barron 1948), of diameter De = 1.050 s (triangular) or 1.128 s
+// (square), equal plan area; a band drain a × b counts as a round drain
+// of diameter 2(a+b)/π (Hansbo 1979) or (a+b)/2 (Rixner et al. 1986).
+// Under equal strain the cell-averaged excess pore pressure ū obeys
+//
+//	mv ∂ū/∂t = ∂/∂z((k/γw) ∂ū/∂z) − mv (8 ch / (De² μ(z))) ū + mv ∂σ/∂t
+//
+// where the drains reach, and the vertical equation alone below the tip.
+// μ is the unit cell's factor with a smear zone (ds/dw, kh/ks) and well
+// resistance (qw, discharge at the top, the base or both), derived as in
+// Hansbo (1981) and kept exact in n = De/dw (package solver/drain): with
+// no smear and no well resistance it is Barron's F(n); with well
+// resistance it grows along the drain away from its outlet. In weak form
+// the sink adds ∫ w mv (8 ch/(De² μ)) u dz to the conductivity matrix
+// (lumped by rows for linear elements, like the capacity): the band and
+// the cost of a step do not change, and the mesh has nodes at the drains'
+// ends. ch is a layer's Ch, or KhKv·cv (kh = KhKv·k); the well term uses
+// kh = ch mv γw.
+//
+// The drains hold the excess pore pressure at zero at their outlet (they
+// discharge freely); a pressure history at a drained end is refused with
+// drains. Result.Drains gives the cell, μ along the drains, and Uv, the
+// degree of the same column without drains (a second solve on the same
+// mesh), with Uh = 1 − (1 − Us)/(1 − Uv), the radial degree Carrillo's
+// (1942) relation 1 − U = (1 − Uv)(1 − Uh) implies. Not modelled: drain
+// clogging, folding or crimping, installation effects beyond the smear
+// zone, and drains that lose contact with the blanket.
+//
 // # Field monitoring
 //
 // Project.Monitoring holds settlement plates and piezometer records, each a
@@ -181,8 +214,13 @@
 //	  "loads":  [{"start": 0, "ramp": 30, "q": 60}, {"start": 200, "q": -20}],
 //	  "times":  [1, 10, 30, 100, 365, 1000],
 //	  "piezometers": [2.5, 6.0],
-//	  "mesh": {"order": 1, "maxSize": 0.1, "minPerLayer": 4}
+//	  "mesh": {"order": 1, "maxSize": 0.1, "minPerLayer": 4},
+//	  "drains": {"pattern": "triangular", "spacing": 1.5, "width": 0.1, "thickness": 0.004,
+//	             "equivalent": "perimeter", "smearRatio": 3, "smearK": 3, "qw": 3e-6,
+//	             "discharge": "top", "depth": 12}
 //	}
+//
+// A layer may also give "ch" (m²/day) or "khKv" for the drains.
 //
 // # Input contract
 //
@@ -236,6 +274,22 @@
 //	stepping.growth           –       1 … 10 (absent: 1.1)            ErrOutOfRange
 //	stepping.endTime          day     > 0 (absent: see Stepping)      ErrNotPositive
 //	monitoring.*              see Monitoring and its validation
+//	layers[i].ch              m²/day  > 0 (absent: khKv·cv)           ErrNotPositive
+//	layers[i].khKv            –       > 0 (absent: 1); not with ch    ErrNotPositive, ErrConflict
+//	drains.pattern            –       "triangular" or "square"        ErrRequired, ErrOutOfRange
+//	drains.spacing            m       > 0, cell wider than the drain  ErrNotPositive, ErrOutOfRange
+//	drains.diameter           m       > 0; or width and thickness     ErrNotPositive, ErrRequired, ErrConflict
+//	drains.width, .thickness  m       > 0, thickness ≤ width          ErrNotPositive, ErrOutOfRange
+//	drains.equivalent         –       "perimeter" or "mean" (band)    ErrOutOfRange, ErrConflict
+//	drains.smearRatio         –       ≥ 1, smear zone inside the cell ErrOutOfRange
+//	drains.smearK             –       ≥ 1 (absent: 1)                 ErrOutOfRange
+//	drains.qw                 m³/s    > 0 (absent: no well resistance) ErrNotPositive
+//	drains.discharge          –       "top", "base", "both"; base     ErrOutOfRange, ErrConflict
+//	                                  needs drains to the base
+//	drains.top                m       ≥ 0, above the tip              ErrNegative, ErrOutOfRange
+//	drains.depth              m       0 … column height               ErrNotPositive, ErrOutOfRange
+//	drains.toLayer            –       a layer index; not with depth   ErrOutOfRange, ErrConflict
+//	top|bottom.excess         –       not with drains                 ErrConflict
 //
 // Legal but unusual values give warnings in the Result, never errors: a
 // permeability outside 1e-13 … 1 m/s, a fine-grained layer (k < 1e-7 m/s)
@@ -246,9 +300,10 @@
 // # Scope
 //
 // The column is saturated, one-dimensional and small strain; flow follows
-// Darcy's law; k and mv are constant in each layer and in time. Results are
-// not valid for unsaturated soil, large strains, creep-dominated soils,
-// two- or three-dimensional flow or stress spread, or loads that fail the
+// Darcy's law (toward drains: the unit cell under equal strain); k and mv
+// are constant in each layer and in time. Results are not valid for
+// unsaturated soil, large strains, creep-dominated soils, two- or
+// three-dimensional flow or stress spread, or loads that fail the
 // ground. They are estimates for qualified engineers; local codes and
 // licensed engineering practice govern any design.
 package solver
