@@ -281,6 +281,12 @@ func validDrains(ps *Problems, p *Project, height float64) {
 	if (drain.Discharge(d.Discharge) == drain.Base || drain.Discharge(d.Discharge) == drain.Both) && !math.IsNaN(tip) && height > 0 && tip < height*(1-1e-12) {
 		ps.Add(at("discharge"), ErrConflict, fmt.Sprintf("drains ending at %g m, above the base at %g m, cannot discharge at the base", tip, height))
 	}
+	if des := d.Design; des != nil {
+		if des.Degree != 0 && !(des.Degree > 0 && des.Degree < 1) {
+			ps.Add(at("design.degree"), ErrOutOfRange, "must be a fraction between 0 and 1 "+paren(num(des.Degree)))
+		}
+		positive(ps, at("design.time"), des.Time)
+	}
 	for _, b := range []struct {
 		at string
 		b  Boundary

@@ -268,4 +268,18 @@ type Drains struct {
 	// ToLayer, when given, puts the tip at the base of layer ToLayer
 	// (0-based).
 	ToLayer *int `json:"toLayer,omitempty"`
+	// Design, when given, is the question of the design helper
+	// (DrainSpacing): which spacing reaches a degree by a time. Solve
+	// ignores it.
+	Design *DrainDesign `json:"design,omitempty"`
+}
+
+// DrainDesign asks for the spacing that reaches a degree of
+// consolidation by a time.
+type DrainDesign struct {
+	// Degree is the target average degree of consolidation (by
+	// settlement), a fraction in (0, 1). Zero means 0.9.
+	Degree float64 `json:"degree,omitempty"`
+	// Time is when it must be reached, days after day 0, > 0.
+	Time float64 `json:"time"`
 }

@@ -19,6 +19,10 @@ type Options struct {
 	// solve, which then returns ErrCanceled. A browser caller uses it to
 	// let the page breathe.
 	Progress func(fraction float64) (carryOn bool)
+
+	// noReference skips the solve without drains (the design helper
+	// needs only Us).
+	noReference bool
 }
 
 // Solve validates p and computes the steady seepage state and, when the
@@ -55,7 +59,7 @@ func Solve(p *Project, opt *Options) (*Result, error) {
 		if err := c.consolidate(&r.Steady, r, main, warn); err != nil {
 			return nil, err
 		}
-		if c.drains != nil {
+		if c.drains != nil && (opt == nil || !opt.noReference) {
 			if err := c.drainReference(&r.Steady, r, ref); err != nil {
 				return nil, err
 			}
