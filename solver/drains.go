@@ -361,17 +361,10 @@ type DrainDegree struct {
 	Uh   float64 `json:"uh"`
 }
 
-// drainReference solves the same column without drains (on the same mesh
-// and time steps) and fills r.Drains.
-func (c *column) drainReference(st *Steady, r *Result, opt *Options) error {
+// drainReference fills r.Drains and, with vertical set, solves the same
+// column without drains (on the same mesh and time steps) for Uv and Uh.
+func (c *column) drainReference(st *Steady, r *Result, opt *Options, vertical bool) error {
 	dc := c.drains
-	ref := *c
-	ref.drains = nil
-	rr := &Result{Steady: *st}
-	rr.Steady.Layers = append([]SteadyLayer(nil), st.Layers...)
-	if err := ref.consolidate(&rr.Steady, rr, opt, func(string, string) {}); err != nil {
-		return err
-	}
 	dr := &DrainResult{Cell: *dc}
 	r.Drains = dr
 	mv := make([]float64, len(r.Summary.Layers))
@@ -397,6 +390,16 @@ func (c *column) drainReference(st *Steady, r *Result, opt *Options) error {
 			dr.Depth, dr.Mu = append(dr.Depth, z0), append(dr.Mu, dc.Mu(z0, kh))
 		}
 		dr.Depth, dr.Mu = append(dr.Depth, z1), append(dr.Mu, dc.Mu(z1, kh))
+	}
+	if !vertical {
+		return nil
+	}
+	ref := *c
+	ref.drains = nil
+	rr := &Result{Steady: *st}
+	rr.Steady.Layers = append([]SteadyLayer(nil), st.Layers...)
+	if err := ref.consolidate(&rr.Steady, rr, opt, func(string, string) {}); err != nil {
+		return err
 	}
 	ser, rs := &r.Consolidation.Series, &rr.Consolidation.Series
 	if len(ser.Us) == 0 || len(rs.Us) == 0 {

@@ -44,7 +44,7 @@ type SpacingRow struct {
 // degree (nil when not reached). p is not changed.
 func DegreeAt(p *Project, spacing, t, degree float64, opt *Options) (u float64, tDegree *float64, err error) {
 	q := designCopy(p, spacing, t, degree)
-	o := &Options{noReference: true}
+	o := &Options{NoDrainReference: true}
 	if opt != nil {
 		o.Progress = opt.Progress
 	}

@@ -19,10 +19,10 @@ type Options struct {
 	// solve, which then returns ErrCanceled. A browser caller uses it to
 	// let the page breathe.
 	Progress func(fraction float64) (carryOn bool)
-
-	// noReference skips the solve without drains (the design helper
-	// needs only Us).
-	noReference bool
+	// NoDrainReference skips the second solve, without drains, that
+	// gives Result.Drains its Uv and Uh (they stay empty); the rest of
+	// Result.Drains is filled. The design helper needs only Us.
+	NoDrainReference bool
 }
 
 // Solve validates p and computes the steady seepage state and, when the
@@ -55,12 +55,15 @@ func Solve(p *Project, opt *Options) (*Result, error) {
 			// Half the work is the reference solve without drains.
 			main = &Options{Progress: func(f float64) bool { return opt.Progress(f / 2) }}
 			ref = &Options{Progress: func(f float64) bool { return opt.Progress(0.5 + f/2) }}
+			if opt.NoDrainReference {
+				main = opt
+			}
 		}
 		if err := c.consolidate(&r.Steady, r, main, warn); err != nil {
 			return nil, err
 		}
-		if c.drains != nil && (opt == nil || !opt.noReference) {
-			if err := c.drainReference(&r.Steady, r, ref); err != nil {
+		if c.drains != nil {
+			if err := c.drainReference(&r.Steady, r, ref, opt == nil || !opt.NoDrainReference); err != nil {
 				return nil, err
 			}
 		}
