@@ -42,6 +42,9 @@ type DrainCell struct {
 	// Equivalent and Discharge are the resolved choices.
 	Equivalent string `json:"equivalent,omitempty"`
 	Discharge  string `json:"discharge"`
+	// SmearRatio (ds/dw) and SmearK (kh/ks) are resolved (1: no smear).
+	SmearRatio float64 `json:"smearRatio"`
+	SmearK     float64 `json:"smearK"`
 
 	cell drain.Cell
 	qw   float64
@@ -75,6 +78,7 @@ func ResolveDrains(p *Project) *DrainCell {
 	if kr == 0 {
 		kr = DefaultSmearK
 	}
+	dc.SmearRatio, dc.SmearK = s, kr
 	dc.cell = drain.Cell{N: dc.N, S: s, KRatio: kr}
 	dc.Mu0 = dc.cell.Mu()
 	dc.qw = d.Qw

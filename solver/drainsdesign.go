@@ -9,6 +9,14 @@ import (
 // helper aims at when DrainDesign.Degree is left out.
 const DefaultDesignDegree = 0.9
 
+// ResolveDesignDegree is the degree the design question d asks for.
+func ResolveDesignDegree(d *DrainDesign) float64 {
+	if d == nil || d.Degree == 0 {
+		return DefaultDesignDegree
+	}
+	return d.Degree
+}
+
 // SpacingAnswer is what DrainSpacing finds.
 type SpacingAnswer struct {
 	// Degree and Time are the question, resolved.
@@ -105,10 +113,7 @@ func DrainSpacing(p *Project, opt *Options) (*SpacingAnswer, error) {
 		return nil, ps
 	}
 	des := p.Drains.Design
-	a := &SpacingAnswer{Degree: des.Degree, Time: des.Time}
-	if a.Degree == 0 {
-		a.Degree = DefaultDesignDegree
-	}
+	a := &SpacingAnswer{Degree: ResolveDesignDegree(des), Time: des.Time}
 	dc := ResolveDrains(p)
 	factor := dc.De / p.Drains.Spacing
 	// The closest spacing: a cell twice the smear zone (or the drain).
