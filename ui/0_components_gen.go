@@ -1533,6 +1533,925 @@ var _ vjson.RawMessage
 var _ js.Value
 var _ log.Logger
 
+func (c *Drains) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
+
+	vgout = &vugu.BuildOut{}
+
+	var vgiterkey interface{}
+	_ = vgiterkey
+	var vgn *vugu.VGNode
+	vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "section", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "sec-drains"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-sec"}}}
+	vgout.Out = append(vgout.Out, vgn) // root for output
+	{
+		vgparent := vgn
+		_ = vgparent
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "h2", Attr: []vugu.VGAttribute(nil)}
+		vgparent.AppendChild(vgn)
+		vgn.SetInnerHTML(vugu.HTML("Vertical drains \x3Cspan class=\"pl-sub\"\x3Eunit cell, equal strain (Barron 1948, Hansbo 1981)\x3C/span\x3E"))
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair pl-noprint"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-on"}}}
+		vgparent.AppendChild(vgn)
+		{
+			vgparent := vgn
+			_ = vgparent
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "input", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "checkbox"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "drains-on"}}}
+			vgparent.AppendChild(vgn)
+			vgn.AddAttrInterface("checked", c.on())
+			vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+				EventType: "change",
+				Func:      func(event vugu.DOMEvent) { c.toggle(event) },
+				// TODO: implement capture, etc. mostly need to decide syntax
+			})
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+			vgparent.AppendChild(vgn)
+			vgn.SetInnerHTML(vugu.HTML("Drains in the column"))
+		}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+		if c.on() {
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute(nil)}
+			vgparent.AppendChild(vgn)
+			{
+				vgparent := vgn
+				_ = vgparent
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pairs"}}}
+				vgparent.AppendChild(vgn)
+				{
+					vgparent := vgn
+					_ = vgparent
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-pattern"}}}
+					vgparent.AppendChild(vgn)
+					{
+						vgparent := vgn
+						_ = vgparent
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+						vgparent.AppendChild(vgn)
+						vgn.SetInnerHTML(vugu.HTML("Pattern"))
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "select", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "drains-pattern"}}}
+						vgparent.AppendChild(vgn)
+						{
+							b, err := vjson.Marshal(c.value("pattern", "triangular"))
+							if err != nil {
+								panic(err)
+							}
+							vgn.Prop = append(vgn.Prop, vugu.VGProperty{Key: "value", JSONVal: vjson.RawMessage(b)})
+						}
+						vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+							EventType: "change",
+							Func:      func(event vugu.DOMEvent) { c.pick("pattern", event) },
+							// TODO: implement capture, etc. mostly need to decide syntax
+						})
+						{
+							vgparent := vgn
+							_ = vgparent
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "triangular"}}}
+							vgparent.AppendChild(vgn)
+							vgn.AddAttrInterface("selected", c.d().Pattern == "triangular")
+							{
+								vgparent := vgn
+								_ = vgparent
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "triangular (De = 1.05 s)"}
+								vgparent.AppendChild(vgn)
+							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "square"}}}
+							vgparent.AppendChild(vgn)
+							vgn.AddAttrInterface("selected", c.d().Pattern == "square")
+							{
+								vgparent := vgn
+								_ = vgparent
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "square (De = 1.128 s)"}
+								vgparent.AppendChild(vgn)
+							}
+						}
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-spacing"}}}
+					vgparent.AppendChild(vgn)
+					{
+						vgparent := vgn
+						_ = vgparent
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+						vgparent.AppendChild(vgn)
+						vgn.SetInnerHTML(vugu.HTML("Spacing s"))
+						{
+							vgcompKey := vugu.MakeCompKey(0xFBA077A7AD895559^vgin.CurrentPositionHash(), vgiterkey)
+							// ask BuildEnv for prior instance of this specific component
+							vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+							if vgcomp == nil {
+								// create new one if needed
+								vgcomp = new(Field)
+								vgin.BuildEnv.WireComponent(vgcomp)
+							}
+							vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+							vgcomp.Changed = c.Changed
+							vgcomp.F = c.F
+							vgcomp.Label = "Drain spacing"
+							vgcomp.Path = "drains.spacing"
+							vgcomp.Unit = "m"
+							vgout.Components = append(vgout.Components, vgcomp)
+							vgn = &vugu.VGNode{Component: vgcomp}
+							vgparent.AppendChild(vgn)
+						}
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-size"}}}
+					vgparent.AppendChild(vgn)
+					{
+						vgparent := vgn
+						_ = vgparent
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+						vgparent.AppendChild(vgn)
+						vgn.SetInnerHTML(vugu.HTML("Drain"))
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "select", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "drains-size"}}}
+						vgparent.AppendChild(vgn)
+						vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+							EventType: "change",
+							Func:      func(event vugu.DOMEvent) { c.setSize(event) },
+							// TODO: implement capture, etc. mostly need to decide syntax
+						})
+						{
+							vgparent := vgn
+							_ = vgparent
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "band"}}}
+							vgparent.AppendChild(vgn)
+							vgn.AddAttrInterface("selected", c.band())
+							{
+								vgparent := vgn
+								_ = vgparent
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "band a × b"}
+								vgparent.AppendChild(vgn)
+							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "round"}}}
+							vgparent.AppendChild(vgn)
+							vgn.AddAttrInterface("selected", !c.band())
+							{
+								vgparent := vgn
+								_ = vgparent
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "round, diameter"}
+								vgparent.AppendChild(vgn)
+							}
+						}
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					if c.band() {
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-width"}}}
+						vgparent.AppendChild(vgn)
+						{
+							vgparent := vgn
+							_ = vgparent
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							vgn.SetInnerHTML(vugu.HTML("Width a"))
+							{
+								vgcompKey := vugu.MakeCompKey(0xB4E5FA1E614B7CF9^vgin.CurrentPositionHash(), vgiterkey)
+								// ask BuildEnv for prior instance of this specific component
+								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+								if vgcomp == nil {
+									// create new one if needed
+									vgcomp = new(Field)
+									vgin.BuildEnv.WireComponent(vgcomp)
+								}
+								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+								vgcomp.Changed = c.Changed
+								vgcomp.F = c.F
+								vgcomp.Label = "Band drain width"
+								vgcomp.Path = "drains.width"
+								vgcomp.Unit = "m"
+								vgout.Components = append(vgout.Components, vgcomp)
+								vgn = &vugu.VGNode{Component: vgcomp}
+								vgparent.AppendChild(vgn)
+							}
+						}
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					if c.band() {
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-thickness"}}}
+						vgparent.AppendChild(vgn)
+						{
+							vgparent := vgn
+							_ = vgparent
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							vgn.SetInnerHTML(vugu.HTML("Thickness b"))
+							{
+								vgcompKey := vugu.MakeCompKey(0x2441398B0B6B108E^vgin.CurrentPositionHash(), vgiterkey)
+								// ask BuildEnv for prior instance of this specific component
+								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+								if vgcomp == nil {
+									// create new one if needed
+									vgcomp = new(Field)
+									vgin.BuildEnv.WireComponent(vgcomp)
+								}
+								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+								vgcomp.Changed = c.Changed
+								vgcomp.F = c.F
+								vgcomp.Label = "Band drain thickness"
+								vgcomp.Path = "drains.thickness"
+								vgcomp.Unit = "m"
+								vgout.Components = append(vgout.Components, vgcomp)
+								vgn = &vugu.VGNode{Component: vgcomp}
+								vgparent.AppendChild(vgn)
+							}
+						}
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					if c.band() {
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-equivalent"}}}
+						vgparent.AppendChild(vgn)
+						{
+							vgparent := vgn
+							_ = vgparent
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							vgn.SetInnerHTML(vugu.HTML("Equivalent dw"))
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "select", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "drains-equivalent"}}}
+							vgparent.AppendChild(vgn)
+							vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+								EventType: "change",
+								Func:      func(event vugu.DOMEvent) { c.pick("equivalent", event) },
+								// TODO: implement capture, etc. mostly need to decide syntax
+							})
+							{
+								vgparent := vgn
+								_ = vgparent
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "perimeter"}}}
+								vgparent.AppendChild(vgn)
+								vgn.AddAttrInterface("selected", c.d().Equivalent != "mean")
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "2(a+b)/π (Hansbo 1979)"}
+									vgparent.AppendChild(vgn)
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "mean"}}}
+								vgparent.AppendChild(vgn)
+								vgn.AddAttrInterface("selected", c.d().Equivalent == "mean")
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "(a+b)/2 (Rixner et al. 1986)"}
+									vgparent.AppendChild(vgn)
+								}
+							}
+						}
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					if !c.band() {
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-diameter"}}}
+						vgparent.AppendChild(vgn)
+						{
+							vgparent := vgn
+							_ = vgparent
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							vgn.SetInnerHTML(vugu.HTML("Diameter dw"))
+							{
+								vgcompKey := vugu.MakeCompKey(0x411FBB2C99BC69E8^vgin.CurrentPositionHash(), vgiterkey)
+								// ask BuildEnv for prior instance of this specific component
+								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+								if vgcomp == nil {
+									// create new one if needed
+									vgcomp = new(Field)
+									vgin.BuildEnv.WireComponent(vgcomp)
+								}
+								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+								vgcomp.Changed = c.Changed
+								vgcomp.F = c.F
+								vgcomp.Label = "Drain diameter"
+								vgcomp.Path = "drains.diameter"
+								vgcomp.Unit = "m"
+								vgout.Components = append(vgout.Components, vgcomp)
+								vgn = &vugu.VGNode{Component: vgcomp}
+								vgparent.AppendChild(vgn)
+							}
+						}
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-smearRatio"}}}
+					vgparent.AppendChild(vgn)
+					{
+						vgparent := vgn
+						_ = vgparent
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+						vgparent.AppendChild(vgn)
+						vgn.SetInnerHTML(vugu.HTML("Smear ds/dw"))
+						{
+							vgcompKey := vugu.MakeCompKey(0x3C08A330E5BB9F68^vgin.CurrentPositionHash(), vgiterkey)
+							// ask BuildEnv for prior instance of this specific component
+							vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+							if vgcomp == nil {
+								// create new one if needed
+								vgcomp = new(Field)
+								vgin.BuildEnv.WireComponent(vgcomp)
+							}
+							vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+							vgcomp.Changed = c.Changed
+							vgcomp.F = c.F
+							vgcomp.Hint = "Diameter of the zone disturbed by the mandrel over the drain diameter; 1: no smear"
+							vgcomp.Label = "Smear zone diameter over drain diameter"
+							vgcomp.Path = "drains.smearRatio"
+							vgcomp.Unit = "–"
+							vgout.Components = append(vgout.Components, vgcomp)
+							vgn = &vugu.VGNode{Component: vgcomp}
+							vgparent.AppendChild(vgn)
+						}
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-smearK"}}}
+					vgparent.AppendChild(vgn)
+					{
+						vgparent := vgn
+						_ = vgparent
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+						vgparent.AppendChild(vgn)
+						vgn.SetInnerHTML(vugu.HTML("kh/ks"))
+						{
+							vgcompKey := vugu.MakeCompKey(0x5838E5813628623B^vgin.CurrentPositionHash(), vgiterkey)
+							// ask BuildEnv for prior instance of this specific component
+							vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+							if vgcomp == nil {
+								// create new one if needed
+								vgcomp = new(Field)
+								vgin.BuildEnv.WireComponent(vgcomp)
+							}
+							vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+							vgcomp.Changed = c.Changed
+							vgcomp.F = c.F
+							vgcomp.Label = "Undisturbed over smeared horizontal permeability"
+							vgcomp.Path = "drains.smearK"
+							vgcomp.Unit = "–"
+							vgout.Components = append(vgout.Components, vgcomp)
+							vgn = &vugu.VGNode{Component: vgcomp}
+							vgparent.AppendChild(vgn)
+						}
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-qw"}}}
+					vgparent.AppendChild(vgn)
+					{
+						vgparent := vgn
+						_ = vgparent
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+						vgparent.AppendChild(vgn)
+						vgn.SetInnerHTML(vugu.HTML("Discharge capacity qw"))
+						{
+							vgcompKey := vugu.MakeCompKey(0xC393B99192E523CD^vgin.CurrentPositionHash(), vgiterkey)
+							// ask BuildEnv for prior instance of this specific component
+							vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+							if vgcomp == nil {
+								// create new one if needed
+								vgcomp = new(Field)
+								vgin.BuildEnv.WireComponent(vgcomp)
+							}
+							vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+							vgcomp.Changed = c.Changed
+							vgcomp.F = c.F
+							vgcomp.Hint = "Flow the drain carries under unit gradient; empty: no well resistance"
+							vgcomp.Label = "Drain discharge capacity"
+							vgcomp.Path = "drains.qw"
+							vgcomp.Unit = "m³/yr"
+							vgout.Components = append(vgout.Components, vgcomp)
+							vgn = &vugu.VGNode{Component: vgcomp}
+							vgparent.AppendChild(vgn)
+						}
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-discharge"}}}
+					vgparent.AppendChild(vgn)
+					{
+						vgparent := vgn
+						_ = vgparent
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+						vgparent.AppendChild(vgn)
+						vgn.SetInnerHTML(vugu.HTML("Discharge at"))
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "select", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "drains-discharge"}}}
+						vgparent.AppendChild(vgn)
+						vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+							EventType: "change",
+							Func:      func(event vugu.DOMEvent) { c.pick("discharge", event) },
+							// TODO: implement capture, etc. mostly need to decide syntax
+						})
+						{
+							vgparent := vgn
+							_ = vgparent
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "top"}}}
+							vgparent.AppendChild(vgn)
+							vgn.AddAttrInterface("selected", c.d().Discharge == "" || c.d().Discharge == "top")
+							{
+								vgparent := vgn
+								_ = vgparent
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "top"}
+								vgparent.AppendChild(vgn)
+							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "base"}}}
+							vgparent.AppendChild(vgn)
+							vgn.AddAttrInterface("selected", c.d().Discharge == "base")
+							{
+								vgparent := vgn
+								_ = vgparent
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "base"}
+								vgparent.AppendChild(vgn)
+							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "both"}}}
+							vgparent.AppendChild(vgn)
+							vgn.AddAttrInterface("selected", c.d().Discharge == "both")
+							{
+								vgparent := vgn
+								_ = vgparent
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "top and base"}
+								vgparent.AppendChild(vgn)
+							}
+						}
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-top"}}}
+					vgparent.AppendChild(vgn)
+					{
+						vgparent := vgn
+						_ = vgparent
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+						vgparent.AppendChild(vgn)
+						vgn.SetInnerHTML(vugu.HTML("From depth"))
+						{
+							vgcompKey := vugu.MakeCompKey(0xB914C38AA812C3EF^vgin.CurrentPositionHash(), vgiterkey)
+							// ask BuildEnv for prior instance of this specific component
+							vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+							if vgcomp == nil {
+								// create new one if needed
+								vgcomp = new(Field)
+								vgin.BuildEnv.WireComponent(vgcomp)
+							}
+							vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+							vgcomp.Changed = c.Changed
+							vgcomp.F = c.F
+							vgcomp.Label = "Depth where the drains start"
+							vgcomp.Path = "drains.top"
+							vgcomp.Unit = "m"
+							vgout.Components = append(vgout.Components, vgcomp)
+							vgn = &vugu.VGNode{Component: vgcomp}
+							vgparent.AppendChild(vgn)
+						}
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-tip"}}}
+					vgparent.AppendChild(vgn)
+					{
+						vgparent := vgn
+						_ = vgparent
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+						vgparent.AppendChild(vgn)
+						vgn.SetInnerHTML(vugu.HTML("Down to"))
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "select", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "drains-tip"}}}
+						vgparent.AppendChild(vgn)
+						vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+							EventType: "change",
+							Func:      func(event vugu.DOMEvent) { c.setTip(event) },
+							// TODO: implement capture, etc. mostly need to decide syntax
+						})
+						{
+							vgparent := vgn
+							_ = vgparent
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "depth"}}}
+							vgparent.AppendChild(vgn)
+							vgn.AddAttrInterface("selected", c.tip() == "depth")
+							{
+								vgparent := vgn
+								_ = vgparent
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "a depth"}
+								vgparent.AppendChild(vgn)
+							}
+							for i := range c.F.Draft().Layers {
+								var vgiterkey interface{} = i
+								_ = vgiterkey
+								i := i
+								_ = i
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute(nil)}
+								vgparent.AppendChild(vgn)
+								vgn.AddAttrInterface("selected", c.tip() == fmt.Sprint(i))
+								vgn.AddAttrInterface("value", i)
+								vgn.SetInnerHTML("base of " + c.layerName(i))
+							}
+						}
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					if c.tip() == "depth" {
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-depth"}}}
+						vgparent.AppendChild(vgn)
+						{
+							vgparent := vgn
+							_ = vgparent
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							vgn.SetInnerHTML(vugu.HTML("Tip depth"))
+							{
+								vgcompKey := vugu.MakeCompKey(0x578F9E9F0435831F^vgin.CurrentPositionHash(), vgiterkey)
+								// ask BuildEnv for prior instance of this specific component
+								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+								if vgcomp == nil {
+									// create new one if needed
+									vgcomp = new(Field)
+									vgin.BuildEnv.WireComponent(vgcomp)
+								}
+								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+								vgcomp.Changed = c.Changed
+								vgcomp.F = c.F
+								vgcomp.Label = "Depth of the drains tip"
+								vgcomp.Path = "drains.depth"
+								vgcomp.Unit = "m"
+								vgout.Components = append(vgout.Components, vgcomp)
+								vgn = &vugu.VGNode{Component: vgcomp}
+								vgparent.AppendChild(vgn)
+							}
+						}
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+				}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+				if len(c.problems()) > 0 {
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "ul", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-problems"}}}
+					vgparent.AppendChild(vgn)
+					{
+						vgparent := vgn
+						_ = vgparent
+						for vgiterkeyt, m := range c.problems() {
+							var vgiterkey interface{} = vgiterkeyt
+							_ = vgiterkey
+							m := m
+							_ = m
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "li", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							vgn.SetInnerHTML(m)
+						}
+					}
+				}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "drains-cell"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-note"}}}
+				vgparent.AppendChild(vgn)
+				vgn.SetInnerHTML(c.cell())
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "figure", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "fig-drain-plan"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-figure pl-plan"}}}
+				vgparent.AppendChild(vgn)
+				{
+					vgparent := vgn
+					_ = vgparent
+					{
+						vgcompKey := vugu.MakeCompKey(0xE32B382EFAE2DB39^vgin.CurrentPositionHash(), vgiterkey)
+						// ask BuildEnv for prior instance of this specific component
+						vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*plot.Chart)
+						if vgcomp == nil {
+							// create new one if needed
+							vgcomp = new(plot.Chart)
+							vgin.BuildEnv.WireComponent(vgcomp)
+						}
+						vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+						vgcomp.Fig = c.plan()
+						vgout.Components = append(vgout.Components, vgcomp)
+						vgn = &vugu.VGNode{Component: vgcomp}
+						vgparent.AppendChild(vgn)
+					}
+				}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "drains-layers"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid pl-small"}}}
+				vgparent.AppendChild(vgn)
+				{
+					vgparent := vgn
+					_ = vgparent
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
+					vgparent.AppendChild(vgn)
+					vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth\x3ELayer\x3C/th\x3E\x3Cth\x3Ech\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em²/yr\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Ekh/kv\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
+					vgparent.AppendChild(vgn)
+					{
+						vgparent := vgn
+						_ = vgparent
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+						vgparent.AppendChild(vgn)
+						for i := range c.F.Draft().Layers {
+							var vgiterkey interface{} = i
+							_ = vgiterkey
+							i := i
+							_ = i
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							{
+								vgparent := vgn
+								_ = vgparent
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+								vgparent.AppendChild(vgn)
+								vgn.SetInnerHTML(c.layerName(i))
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+								vgparent.AppendChild(vgn)
+								{
+									vgparent := vgn
+									_ = vgparent
+									{
+										vgcompKey := vugu.MakeCompKey(0xDD0140F03A589D2^vgin.CurrentPositionHash(), vgiterkey)
+										// ask BuildEnv for prior instance of this specific component
+										vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+										if vgcomp == nil {
+											// create new one if needed
+											vgcomp = new(Field)
+											vgin.BuildEnv.WireComponent(vgcomp)
+										}
+										vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+										vgcomp.Bare = true
+										vgcomp.Changed = c.Changed
+										vgcomp.F = c.F
+										vgcomp.Label = fmt.Sprintf("Horizontal coefficient of consolidation of layer %d", i+1)
+										vgcomp.Path = layerField(i, "ch")
+										vgcomp.Unit = "m²/yr"
+										vgout.Components = append(vgout.Components, vgcomp)
+										vgn = &vugu.VGNode{Component: vgcomp}
+										vgparent.AppendChild(vgn)
+									}
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+								vgparent.AppendChild(vgn)
+								{
+									vgparent := vgn
+									_ = vgparent
+									{
+										vgcompKey := vugu.MakeCompKey(0x836AB2EB471A3F75^vgin.CurrentPositionHash(), vgiterkey)
+										// ask BuildEnv for prior instance of this specific component
+										vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+										if vgcomp == nil {
+											// create new one if needed
+											vgcomp = new(Field)
+											vgin.BuildEnv.WireComponent(vgcomp)
+										}
+										vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+										vgcomp.Bare = true
+										vgcomp.Changed = c.Changed
+										vgcomp.F = c.F
+										vgcomp.Label = fmt.Sprintf("kh/kv of layer %d", i+1)
+										vgcomp.Path = layerField(i, "khKv")
+										vgcomp.Unit = "–"
+										vgout.Components = append(vgout.Components, vgcomp)
+										vgn = &vugu.VGNode{Component: vgcomp}
+										vgparent.AppendChild(vgn)
+									}
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+							}
+						}
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+						vgparent.AppendChild(vgn)
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+				}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
+				vgparent.AppendChild(vgn)
+				vgn.SetInnerHTML(vugu.HTML("Give ch, or kh/kv (ch = kh/kv × cv). Below the tip the column drains only vertically. Not modelled: clogging, folding, the loss of qw with time and lateral pressure, and installation effects beyond the smear zone."))
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-design pl-noprint"}}}
+				vgparent.AppendChild(vgn)
+				{
+					vgparent := vgn
+					_ = vgparent
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-design-on"}}}
+					vgparent.AppendChild(vgn)
+					{
+						vgparent := vgn
+						_ = vgparent
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "input", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "checkbox"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "drains-design-on"}}}
+						vgparent.AppendChild(vgn)
+						vgn.AddAttrInterface("checked", c.designOn())
+						vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+							EventType: "change",
+							Func:      func(event vugu.DOMEvent) { c.toggleDesign(event) },
+							// TODO: implement capture, etc. mostly need to decide syntax
+						})
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+						vgparent.AppendChild(vgn)
+						vgn.SetInnerHTML(vugu.HTML("Find the spacing for a target"))
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					if c.designOn() {
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute(nil)}
+						vgparent.AppendChild(vgn)
+						{
+							vgparent := vgn
+							_ = vgparent
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pairs"}}}
+							vgparent.AppendChild(vgn)
+							{
+								vgparent := vgn
+								_ = vgparent
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-design-degree"}}}
+								vgparent.AppendChild(vgn)
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+									vgparent.AppendChild(vgn)
+									vgn.SetInnerHTML(vugu.HTML("Degree U"))
+									{
+										vgcompKey := vugu.MakeCompKey(0x9DFB86E8CF262ECA^vgin.CurrentPositionHash(), vgiterkey)
+										// ask BuildEnv for prior instance of this specific component
+										vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+										if vgcomp == nil {
+											// create new one if needed
+											vgcomp = new(Field)
+											vgin.BuildEnv.WireComponent(vgcomp)
+										}
+										vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+										vgcomp.Changed = c.Changed
+										vgcomp.F = c.F
+										vgcomp.Label = "Target degree of consolidation"
+										vgcomp.Path = "drains.design.degree"
+										vgcomp.Unit = "%"
+										vgout.Components = append(vgout.Components, vgcomp)
+										vgn = &vugu.VGNode{Component: vgcomp}
+										vgparent.AppendChild(vgn)
+									}
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-design-time"}}}
+								vgparent.AppendChild(vgn)
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+									vgparent.AppendChild(vgn)
+									vgn.SetInnerHTML(vugu.HTML("by day"))
+									{
+										vgcompKey := vugu.MakeCompKey(0x6127AA944D2EA980^vgin.CurrentPositionHash(), vgiterkey)
+										// ask BuildEnv for prior instance of this specific component
+										vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+										if vgcomp == nil {
+											// create new one if needed
+											vgcomp = new(Field)
+											vgin.BuildEnv.WireComponent(vgcomp)
+										}
+										vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+										vgcomp.Changed = c.Changed
+										vgcomp.F = c.F
+										vgcomp.Label = "Time by which the degree is reached"
+										vgcomp.Path = "drains.design.time"
+										vgcomp.Unit = "day"
+										vgout.Components = append(vgout.Components, vgcomp)
+										vgn = &vugu.VGNode{Component: vgcomp}
+										vgparent.AppendChild(vgn)
+									}
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "drains-design-run"}}}
+								vgparent.AppendChild(vgn)
+								vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+									EventType: "click",
+									Func:      func(event vugu.DOMEvent) { c.Run() },
+									// TODO: implement capture, etc. mostly need to decide syntax
+								})
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Find spacing"}
+									vgparent.AppendChild(vgn)
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "drains-design-status"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-note"}}}
+							vgparent.AppendChild(vgn)
+							vgn.SetInnerHTML(c.designStatus())
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							if len(c.rows()) > 0 {
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "drains-design-table"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid pl-small"}}}
+								vgparent.AppendChild(vgn)
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+									vgparent.AppendChild(vgn)
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
+									vgparent.AppendChild(vgn)
+									vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth\x3ESpacing\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EU at the date\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E%\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ETime to the target\x3C/th\x3E\x3C/tr\x3E"))
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+									vgparent.AppendChild(vgn)
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
+									vgparent.AppendChild(vgn)
+									{
+										vgparent := vgn
+										_ = vgparent
+										for vgiterkeyt, r := range c.rows() {
+											var vgiterkey interface{} = vgiterkeyt
+											_ = vgiterkey
+											r := r
+											_ = r
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											{
+												vgparent := vgn
+												_ = vgparent
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(sig(r.Spacing, 3))
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(sig(100*r.U, 3))
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(c.rowTime(r))
+											}
+										}
+									}
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+									vgparent.AppendChild(vgn)
+								}
+							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							if len(c.rows()) > 0 {
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "drains-design-use"}}}
+								vgparent.AppendChild(vgn)
+								vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+									EventType: "click",
+									Func:      func(event vugu.DOMEvent) { c.useFound() },
+									// TODO: implement capture, etc. mostly need to decide syntax
+								})
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Use the spacing found"}
+									vgparent.AppendChild(vgn)
+								}
+							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+						}
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+				}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+			}
+		}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+	}
+	return vgout
+}
+
+// 'fix' unused imports
+var _ fmt.Stringer
+var _ reflect.Type
+var _ vjson.RawMessage
+var _ js.Value
+var _ log.Logger
+
 func (c *Field) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 
 	vgout = &vugu.BuildOut{}
@@ -4540,6 +5459,27 @@ func (c *Root) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 					vgparent.AppendChild(vgn)
 					{
+						vgcompKey := vugu.MakeCompKey(0xF5394084D7DA3AA3^vgin.CurrentPositionHash(), vgiterkey)
+						// ask BuildEnv for prior instance of this specific component
+						vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Drains)
+						if vgcomp == nil {
+							// create new one if needed
+							vgcomp = new(Drains)
+							vgin.BuildEnv.WireComponent(vgcomp)
+						}
+						vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+						vgcomp.Changed = c.edited
+						vgcomp.D = c.designState()
+						vgcomp.F = c.form
+						vgcomp.Run = c.runDesign
+						vgcomp.Use = c.useSpacing
+						vgout.Components = append(vgout.Components, vgcomp)
+						vgn = &vugu.VGNode{Component: vgcomp}
+						vgparent.AppendChild(vgn)
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					{
 						vgcompKey := vugu.MakeCompKey(0xA8B298B789A46E71^vgin.CurrentPositionHash(), vgiterkey)
 						// ask BuildEnv for prior instance of this specific component
 						vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Outputs)
@@ -4852,6 +5792,78 @@ func (c *Summary) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 			}
 			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 			vgparent.AppendChild(vgn)
+		}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+		if len(c.drainRows()) > 0 {
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "sum-drains"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-drains-sum"}}}
+			vgparent.AppendChild(vgn)
+			{
+				vgparent := vgn
+				_ = vgparent
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "h3", Attr: []vugu.VGAttribute(nil)}
+				vgparent.AppendChild(vgn)
+				vgn.SetInnerHTML(vugu.HTML("With drains"))
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-grid pl-small"}}}
+				vgparent.AppendChild(vgn)
+				{
+					vgparent := vgn
+					_ = vgparent
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
+					vgparent.AppendChild(vgn)
+					vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth\x3ETime\x3C/th\x3E\x3Cth\x3EU\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E%\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EUv, no drains\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E%\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EUh, radial\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E%\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
+					vgparent.AppendChild(vgn)
+					{
+						vgparent := vgn
+						_ = vgparent
+						for i, r := range c.drainRows() {
+							var vgiterkey interface{} = i
+							_ = vgiterkey
+							i := i
+							_ = i
+							r := r
+							_ = r
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							vgn.AddAttrInterface("id", fmt.Sprintf("sum-drains-%d", i))
+							{
+								vgparent := vgn
+								_ = vgparent
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+								vgparent.AppendChild(vgn)
+								vgn.SetInnerHTML(duration(r.Time))
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+								vgparent.AppendChild(vgn)
+								vgn.SetInnerHTML(sig(100*r.U, 3))
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+								vgparent.AppendChild(vgn)
+								vgn.SetInnerHTML(sig(100*r.Uv, 3))
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+								vgparent.AppendChild(vgn)
+								vgn.SetInnerHTML(sig(100*r.Uh, 3))
+							}
+						}
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+				}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
+				vgparent.AppendChild(vgn)
+				vgn.SetInnerHTML(vugu.HTML("U: with drains, by settlement. Uv: the same column without drains. Uh = 1 − (1 − U)/(1 − Uv), the radial degree Carrillo\x26#39;s (1942) relation implies; exactly the unit cell\x26#39;s when the drains reach through the whole column."))
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+			}
 		}
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)

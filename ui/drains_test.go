@@ -1,0 +1,66 @@
+package ui
+
+import (
+	"strconv"
+	"strings"
+	"testing"
+)
+
+// Drains on the demo: switching them on solves with them, the summary
+// gives U, Uv and Uh at the output times with U ≥ Uv (drains only add
+// drainage), the plan is drawn, a bad spacing is shown at its input and
+// keeps the last good results, and the design helper finds a spacing
+// that the page can take.
+func TestPageDrains(t *testing.T) {
+	p := newPage(t, Sources{})
+	if p.find("drains-spacing") != nil {
+		t.Fatal("drain inputs before the drains are switched on")
+	}
+	p.fire("drains-on", "change", map[string]any{"checked": true})
+	if p.root.form.Draft().Drains == nil {
+		t.Fatal("the drains did not switch on")
+	}
+	r := p.root.result
+	if r == nil || r.Drains == nil || len(r.Drains.AtTimes) == 0 {
+		t.Fatalf("no drain results after switching them on: %+v", p.root.solveErr)
+	}
+	for _, a := range r.Drains.AtTimes {
+		if a.U < a.Uv-1e-9 {
+			t.Errorf("t = %g: U %.4f below Uv %.4f", a.Time, a.U, a.Uv)
+		}
+	}
+	if p.find("sum-drains-0") == nil || p.find("fig-drain-plan") == nil {
+		t.Error("no drain summary table or plan")
+	}
+	if !strings.Contains(p.text("drains-cell"), "De = ") {
+		t.Errorf("cell text %q", p.text("drains-cell"))
+	}
+	p.typeInto("drains-spacing", "0.01")
+	if !strings.Contains(p.html(), "drains-spacing-err") {
+		t.Error("a spacing narrower than the drain shows no problem at its input")
+	}
+	if p.root.result != r {
+		t.Error("a bad input replaced the last good results")
+	}
+	p.typeInto("drains-spacing", "1.5")
+	p.fire("drains-design-on", "change", map[string]any{"checked": true})
+	p.typeInto("drains-design-degree", "50")
+	p.typeInto("drains-design-time", "100")
+	p.fire("drains-design-run", "click", nil)
+	st := p.text("drains-design-status")
+	if p.root.design.res == nil {
+		t.Fatalf("the design helper found nothing: %q", st)
+	}
+	p.fire("drains-design-use", "click", nil)
+	got := p.root.form.Draft().Drains.Spacing
+	if want := p.root.design.res.Spacing; !(got <= want && got > want-0.0011) {
+		t.Errorf("spacing taken %g, found %g", got, want)
+	}
+	if !strings.Contains(st, strconv.Itoa(p.root.design.res.Solves)+" solves") {
+		t.Errorf("status %q", st)
+	}
+	p.fire("drains-on", "change", map[string]any{"checked": false})
+	if p.root.form.Draft().Drains != nil || p.root.result.Drains != nil {
+		t.Error("drains stay after switching them off")
+	}
+}
