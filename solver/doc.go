@@ -178,10 +178,12 @@
 //
 // The drains hold the excess pore pressure at zero at their outlet (they
 // discharge freely); a pressure history at a drained end is refused with
-// drains. Result.Drains gives the cell, μ along the drains, and Uv, the
-// degree of the same column without drains (a second solve on the same
-// mesh), with Uh = 1 − (1 − Us)/(1 − Uv), the radial degree Carrillo's
-// (1942) relation 1 − U = (1 − Uv)(1 − Uh) implies. Not modelled: drain
+// drains. Result.Drains gives the cell, μ along the drains, and the
+// degrees Uv (vertical flow alone, no drains) and Uh (radial flow to the
+// drains alone, no vertical flow), two more solves on the same mesh and
+// steps, relative to the same final state as Us; under one instantaneous
+// load with fully penetrating drains and one μ they obey Carrillo's
+// (1942) 1 − U = (1 − Uv)(1 − Uh). Not modelled: drain
 // clogging, folding or crimping, installation effects beyond the smear
 // zone, and drains that lose contact with the blanket.
 //

@@ -335,12 +335,15 @@ type DrainResult struct {
 	// away from the discharging end), m and dimensionless.
 	Depth []float64 `json:"depth"`
 	Mu    []float64 `json:"mu"`
-	// Uv is the average degree of consolidation (by settlement) of the
-	// same column without drains, at the times of Consolidation.Series;
-	// Uh = 1 − (1 − Us)/(1 − Uv) is the radial degree implied by
-	// Carrillo's (1942) relation: exactly the unit cell's radial degree
-	// when the drains reach through the whole column with one μ, and the
-	// share the drains add otherwise.
+	// Uv and Uh are the average degrees of consolidation (by settlement,
+	// relative to the same final state as Us) of the same column and
+	// loads with vertical flow alone (no drains) and with radial flow to
+	// the drains alone (no vertical flow, no drained end), at the times
+	// of Consolidation.Series: two more solves on the same mesh and
+	// steps. Below a partly penetrating drain's tip nothing consolidates
+	// radially, so Uh stays below 1 there. Under one instantaneous load
+	// with fully penetrating drains and one μ, 1 − Us = (1 − Uv)(1 − Uh)
+	// (Carrillo 1942).
 	Uv []float64 `json:"uv"`
 	Uh []float64 `json:"uh"`
 	// AtTimes gives U (= Us), Uv and Uh at the output times.
@@ -349,6 +352,8 @@ type DrainResult struct {
 	// target degree without drains, days (nil when not reached).
 	T90Vertical     *float64 `json:"t90Vertical,omitempty"`
 	TTargetVertical *float64 `json:"tTargetVertical,omitempty"`
+	// T90Radial is the time to 90 % by radial flow alone, days.
+	T90Radial *float64 `json:"t90Radial,omitempty"`
 }
 
 // DrainLayer is one layer's horizontal flow figures.
@@ -365,9 +370,11 @@ type DrainDegree struct {
 	Uh   float64 `json:"uh"`
 }
 
-// drainReference fills r.Drains and, with vertical set, solves the same
-// column without drains (on the same mesh and time steps) for Uv and Uh.
-func (c *column) drainReference(st *Steady, r *Result, opt *Options, vertical bool) error {
+// drainReference fills r.Drains and, with both set, solves the same
+// column with vertical flow alone and with radial flow alone (on the
+// same mesh and time steps) for Uv and Uh. The progress of the two
+// solves is reported through opt.
+func (c *column) drainReference(st *Steady, r *Result, opt *Options, both bool) error {
 	dc := c.drains
 	dr := &DrainResult{Cell: *dc}
 	r.Drains = dr
@@ -395,44 +402,52 @@ func (c *column) drainReference(st *Steady, r *Result, opt *Options, vertical bo
 		}
 		dr.Depth, dr.Mu = append(dr.Depth, z1), append(dr.Mu, dc.Mu(z1, kh))
 	}
-	if !vertical {
+	ser := &r.Consolidation.Series
+	if !both || len(ser.Us) == 0 {
 		return nil
 	}
-	ref := *c
-	ref.drains = nil
-	rr := &Result{Steady: *st}
-	rr.Steady.Layers = append([]SteadyLayer(nil), st.Layers...)
-	if err := ref.consolidate(&rr.Steady, rr, opt, func(string, string) {}); err != nil {
+	solveAs := func(drains *DrainCell, radial bool, o *Options) (*Result, error) {
+		ref := *c
+		ref.drains, ref.radialOnly = drains, radial
+		rr := &Result{Steady: *st}
+		rr.Steady.Layers = append([]SteadyLayer(nil), st.Layers...)
+		if err := ref.consolidate(&rr.Steady, rr, o, func(string, string) {}); err != nil {
+			return nil, err
+		}
+		return rr, nil
+	}
+	half := func(from float64) *Options {
+		if opt == nil || opt.Progress == nil {
+			return opt
+		}
+		return &Options{Progress: func(f float64) bool { return opt.Progress(from + f/2) }}
+	}
+	rv, err := solveAs(nil, false, half(0))
+	if err != nil {
 		return err
 	}
-	ser, rs := &r.Consolidation.Series, &rr.Consolidation.Series
-	if len(ser.Us) == 0 || len(rs.Us) == 0 {
+	rh, err := solveAs(dc, true, half(0.5))
+	if err != nil {
+		return err
+	}
+	sv, sh := &rv.Consolidation.Series, &rh.Consolidation.Series
+	if len(sv.Us) == 0 || len(sh.Us) == 0 {
 		return nil
 	}
 	dr.Uv = make([]float64, len(ser.Time))
 	dr.Uh = make([]float64, len(ser.Time))
 	for i, t := range ser.Time {
-		uv := interpolateSeries(rs.Time, rs.Us, t)
-		dr.Uv[i] = uv
-		dr.Uh[i] = carrilloRadial(ser.Us[i], uv)
+		dr.Uv[i] = interpolateSeries(sv.Time, sv.Us, t)
+		dr.Uh[i] = interpolateSeries(sh.Time, sh.Us, t)
 	}
 	for _, t := range c.p.Times {
-		u := interpolateSeries(ser.Time, ser.Us, t)
-		uv := interpolateSeries(rs.Time, rs.Us, t)
-		dr.AtTimes = append(dr.AtTimes, DrainDegree{Time: t, U: u, Uv: uv, Uh: carrilloRadial(u, uv)})
+		dr.AtTimes = append(dr.AtTimes, DrainDegree{Time: t,
+			U: interpolateSeries(ser.Time, ser.Us, t), Uv: interpolateSeries(sv.Time, sv.Us, t), Uh: interpolateSeries(sh.Time, sh.Us, t)})
 	}
-	dr.T90Vertical = rr.Summary.T90
-	dr.TTargetVertical = rr.Summary.TTarget
+	dr.T90Vertical = rv.Summary.T90
+	dr.TTargetVertical = rv.Summary.TTarget
+	dr.T90Radial = rh.Summary.T90
 	return nil
-}
-
-// carrilloRadial is 1 − (1 − u)/(1 − uv), the radial degree Carrillo's
-// (1942) relation implies; 1 once the vertical degree is complete.
-func carrilloRadial(u, uv float64) float64 {
-	if 1-uv < 1e-12 {
-		return 1
-	}
-	return 1 - (1-u)/(1-uv)
 }
 
 // interpolateSeries reads ys at time t, linear between the samples ts

@@ -210,6 +210,11 @@ func TestDrainsPartial(t *testing.T) {
 			t.Errorf("t = %g days: u(base) = %.3f kPa, hardly below the undrained-column %.3f", d, got, none)
 		}
 	}
+	// Radial flow alone consolidates only the drained third (one mv):
+	// Uh → 5/15 by hand, within 0.005.
+	if a := r.Drains.AtTimes[len(r.Drains.AtTimes)-1]; math.Abs(a.Uh-1.0/3) > 0.005 {
+		t.Errorf("Uh at %g days = %.4f, want 1/3 (the drained part)", a.Time, a.Uh)
+	}
 	// Above the tip the mesh has a node exactly at 5 m.
 	found := false
 	for _, z := range r.Consolidation.Depth {

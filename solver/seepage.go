@@ -17,6 +17,9 @@ type column struct {
 	height float64
 	tops   []float64  // depth of the top of each layer, plus the base
 	drains *DrainCell // nil without drains
+	// radialOnly solves the consolidation with the drains alone: no
+	// vertical flow and no drained end (drainReference's Uh).
+	radialOnly bool
 }
 
 // newColumn fills in the defaults of a validated project and meshes it.

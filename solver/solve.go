@@ -19,9 +19,10 @@ type Options struct {
 	// solve, which then returns ErrCanceled. A browser caller uses it to
 	// let the page breathe.
 	Progress func(fraction float64) (carryOn bool)
-	// NoDrainReference skips the second solve, without drains, that
-	// gives Result.Drains its Uv and Uh (they stay empty); the rest of
-	// Result.Drains is filled. The design helper needs only Us.
+	// NoDrainReference skips the two extra solves, vertical flow alone
+	// and radial flow alone, that give Result.Drains its Uv and Uh (they
+	// stay empty); the rest of Result.Drains is filled. The design
+	// helper needs only Us.
 	NoDrainReference bool
 }
 
@@ -51,13 +52,11 @@ func Solve(p *Project, opt *Options) (*Result, error) {
 	r.Summary.Flux = r.Steady.Flux
 	if HasConsolidation(p) {
 		main, ref := opt, opt
-		if c.drains != nil && opt != nil && opt.Progress != nil {
-			// Half the work is the reference solve without drains.
-			main = &Options{Progress: func(f float64) bool { return opt.Progress(f / 2) }}
-			ref = &Options{Progress: func(f float64) bool { return opt.Progress(0.5 + f/2) }}
-			if opt.NoDrainReference {
-				main = opt
-			}
+		if c.drains != nil && opt != nil && opt.Progress != nil && !opt.NoDrainReference {
+			// Two thirds of the work are the solves with vertical flow
+			// alone and with radial flow alone.
+			main = &Options{Progress: func(f float64) bool { return opt.Progress(f / 3) }}
+			ref = &Options{Progress: func(f float64) bool { return opt.Progress(1.0/3 + 2*f/3) }}
 		}
 		if err := c.consolidate(&r.Steady, r, main, warn); err != nil {
 			return nil, err

@@ -44,16 +44,18 @@ func newTransient(c *column, opt *Options) *transient {
 	tr.k = fem.NewBand(n, m.Order)
 	tr.mass = fem.NewBand(n, m.Order)
 	gw := c.gw
-	m.Assemble(tr.k, func(e int, _ float64) float64 { return p.Layers[m.Layer[e]].K * soil.SecondsPerDay / gw }, false)
+	if !c.radialOnly {
+		m.Assemble(tr.k, func(e int, _ float64) float64 { return p.Layers[m.Layer[e]].K * soil.SecondsPerDay / gw }, false)
+	}
 	tr.wLength = make([]float64, n)
 	m.Load(tr.wLength, func(float64) float64 { return 1 })
 
 	tr.lo, tr.hi = 0, n
-	if p.Top.Drained {
+	if p.Top.Drained && !c.radialOnly {
 		tr.lo = 1
 		tr.held = append(tr.held, 0)
 	}
-	if p.Bottom.Drained {
+	if p.Bottom.Drained && !c.radialOnly {
 		tr.hi = n - 1
 		tr.held = append(tr.held, n-1)
 	}

@@ -5817,7 +5817,7 @@ func (c *Summary) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 					vgparent.AppendChild(vgn)
 					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
 					vgparent.AppendChild(vgn)
-					vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth\x3ETime\x3C/th\x3E\x3Cth\x3EU\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E%\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EUv, no drains\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E%\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EUh, radial\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E%\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
+					vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth\x3ETime\x3C/th\x3E\x3Cth\x3EU\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E%\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EUv, vertical only\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E%\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EUh, radial only\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E%\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
 					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 					vgparent.AppendChild(vgn)
 					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
@@ -5860,7 +5860,7 @@ func (c *Summary) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 				vgparent.AppendChild(vgn)
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
 				vgparent.AppendChild(vgn)
-				vgn.SetInnerHTML(vugu.HTML("U: with drains, by settlement. Uv: the same column without drains. Uh = 1 − (1 − U)/(1 − Uv), the radial degree Carrillo\x26#39;s (1942) relation implies; exactly the unit cell\x26#39;s when the drains reach through the whole column."))
+				vgn.SetInnerHTML(vugu.HTML("By settlement, against the same final state. U: with drains. Uv: vertical flow alone (no drains). Uh: radial flow to the drains alone (no vertical flow; nothing below the tip). Under one sudden load with full-depth drains, 1 − U = (1 − Uv)(1 − Uh) (Carrillo 1942)."))
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
 			}

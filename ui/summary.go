@@ -108,11 +108,15 @@ func (c *Summary) rows() []sumRow {
 		Exact: exact(s.Flux), Note: dir}
 	rows = append(rows, heave, flux)
 	if d := c.R.Drains; d != nil {
-		r := time("sum-t90-vertical", "t90 without the drains", d.T90Vertical)
+		r := time("sum-t90-vertical", "t90 without drains", d.T90Vertical)
 		if d.T90Vertical != nil {
-			r.Note = "the same column, vertical drainage only"
+			r.Note = "vertical flow only"
 		}
-		rows = append(rows, r)
+		h := time("sum-t90-radial", "t90 by the drains alone", d.T90Radial)
+		if d.T90Radial != nil {
+			h.Note = "radial flow only, no vertical drainage"
+		}
+		rows = append(rows, r, h)
 	}
 	return rows
 }

@@ -74,7 +74,7 @@ func seriesCSV(r *solver.Result, names []string, cols func(s *solver.Series) [][
 func DegreeCSV(r *solver.Result) string {
 	if r != nil && r.Drains != nil && r.Consolidation != nil && len(r.Drains.Uv) == len(r.Consolidation.Series.Time) {
 		d := r.Drains
-		return seriesCSV(r, []string{"Us by settlement (%)", "Up by pore pressure (%)", "Uv without drains (%)", "Uh radial, Carrillo (%)"},
+		return seriesCSV(r, []string{"Us by settlement (%)", "Up by pore pressure (%)", "Uv vertical flow only (%)", "Uh radial flow only (%)"},
 			func(s *solver.Series) [][]float64 {
 				return [][]float64{scaled(s.Us, 100), scaled(s.Up, 100), scaled(d.Uv, 100), scaled(d.Uh, 100)}
 			})

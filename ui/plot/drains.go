@@ -57,15 +57,15 @@ func (f *Figure) stripDrains(box Box, depth Scale, p *solver.Project) {
 	f.path("M"+coord(box.Right()-12)+" "+coord(y1)+" h11", inkDrain, "none", 1.4)
 }
 
-// addDrainDegrees adds Uv (the same column without drains) and Uh (the
-// radial degree Carrillo's relation implies) to the degree plot.
+// addDrainDegrees adds Uv (vertical flow alone, no drains) and Uh
+// (radial flow to the drains alone) to the degree plot.
 func (f *Figure) addDrainDegrees(pn *Panel, clip string, s *solver.Series, r *solver.Result) {
 	d := r.Drains
 	if d == nil || len(d.Uv) != len(s.Time) || len(d.Uh) != len(s.Time) {
 		return
 	}
-	f.addSeries(pn, clip, "Uv, without drains", styleAt(2), s.Time, scaled(d.Uv, 100), readTime("Uv", " %", 3))
-	f.addSeries(pn, clip, "Uh, radial (Carrillo)", styleAt(3), s.Time, scaled(d.Uh, 100), readTime("Uh", " %", 3))
+	f.addSeries(pn, clip, "Uv, vertical only", styleAt(2), s.Time, scaled(d.Uv, 100), readTime("Uv", " %", 3))
+	f.addSeries(pn, clip, "Uh, radial only", styleAt(3), s.Time, scaled(d.Uh, 100), readTime("Uh", " %", 3))
 }
 
 // circlePath is the SVG path of a circle.

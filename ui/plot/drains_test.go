@@ -62,7 +62,7 @@ func TestDegreeShowsDrains(t *testing.T) {
 	if n := len(f.allSeries()); n != 4 {
 		t.Errorf("%d series, want Us, Up, Uv, Uh", n)
 	}
-	if csv := DegreeCSV(r); !strings.Contains(csv, "Uv without drains") {
+	if csv := DegreeCSV(r); !strings.Contains(csv, "Uv vertical flow only") {
 		t.Error("the degree CSV has no Uv column")
 	}
 }

@@ -12,8 +12,8 @@ const drainElements = 10_000
 
 // drainCost holds the drains row of section 1: the same column solved
 // without drains, with drains (the sink, no reference solve), and with
-// drains as the page solves it (with the reference solve without drains
-// that gives Uv and Uh).
+// drains as the page solves it (with the solves with vertical and with
+// radial flow alone that give Uv and Uh).
 type drainCost struct {
 	nodes, steps          int
 	without, with, onPage timing
