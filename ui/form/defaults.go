@@ -85,7 +85,7 @@ func defaultHint(path string) (string, bool) {
 		case "sigmaP", "ocr":
 			return "–", true
 		case "ch":
-			return "kh/kv × cv", true
+			return "kh/kv·cv", true
 		case "khKv":
 			return FormatNumber(solver.DefaultKhKv), true
 		}

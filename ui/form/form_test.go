@@ -109,7 +109,7 @@ func TestPlaceholdersAreSolverDefaults(t *testing.T) {
 			}
 		},
 		"layers[0].ch": func(t *testing.T, text string) {
-			cv := solver.ResolveGammaW(p) // placeholder: kh/kv × cv
+			cv := solver.ResolveGammaW(p) // placeholder: kh/kv·cv
 			cv = p.Layers[0].K * 86400 / (p.Layers[0].Mv * cv)
 			if math.Abs(ch-kh/p.Layers[0].K*cv) > 1e-12*ch {
 				t.Errorf("%q: the solver's ch is %g m²/day, kh/kv × cv = %g", text, ch, kh/p.Layers[0].K*cv)

@@ -99,7 +99,7 @@ func DrainPlanFigure(p *solver.Project, w, h int) *Figure {
 		return f.message("Give the pattern, spacing and drain size to see the plan.")
 	}
 	de := factor * s
-	box := Box{12, 30, f.W - 24, f.H - 64}
+	box := Box{12, 30, f.W - 24, f.H - 76}
 	// 3.2 spacings across the shorter side.
 	scale := math.Min(box.W, box.H) / (3.2 * s) // px per m
 	cx, cy := box.X+box.W/2, box.Y+box.H/2
@@ -160,11 +160,11 @@ func DrainPlanFigure(p *solver.Project, w, h int) *Figure {
 	pm.Fill, pm.Clip = inkDrain, clip
 	// Scale bar: a round length near a third of the width.
 	bar := niceLength(box.W / 3 / scale)
-	by := box.Bottom() + 16
+	by := box.Bottom() + 14
 	f.path("M"+coord(box.X)+" "+coord(by)+" h"+coord(bar*scale)+" M"+coord(box.X)+" "+coord(by-4)+" v8 M"+coord(box.X+bar*scale)+" "+coord(by-4)+" v8", inkAxis, "none", 1.2)
 	f.text(box.X+bar*scale+6, by+4, sig(bar, 3)+" m", "start", 10.5, inkText)
 	caption := "s = " + sig(s, 3) + " m, De = " + sig(de, 4) + " m (dashed), dw = " + sig(dw*1000, 3) + " mm, n = " + sig(de/dw, 3)
-	f.text(box.X, f.H-10, fit(caption, f.W-24, 10.5), "start", 10.5, inkText)
+	f.text(box.X, f.H-8, fit(caption, f.W-24, 10.5), "start", 10.5, inkText)
 	if enlarged {
 		f.text(box.Right(), by+4, "drains enlarged to 2 px", "end", 10, inkMuted)
 	}

@@ -78,7 +78,7 @@ func TestDrainPlan(t *testing.T) {
 	if f.Message != "" {
 		t.Fatal(f.Message)
 	}
-	box := Box{12, 30, f.W - 24, f.H - 64}
+	box := Box{12, 30, f.W - 24, f.H - 76}
 	scale := math.Min(box.W, box.H) / (3.2 * 1.5)
 	de := 1.5 * math.Sqrt(2*math.Sqrt(3)/math.Pi)
 	want := circlePath(box.X+box.W/2, box.Y+box.H/2, de/2*scale)
