@@ -187,6 +187,12 @@
 // clogging, folding or crimping, installation effects beyond the smear
 // zone, and drains that lose contact with the blanket.
 //
+// DrainSpacing answers Drains.Design: the largest spacing whose Us reaches
+// Design.Degree by Design.Time, by bisection in log spacing on the real
+// solve (Us against the final state of the whole load history, as the
+// summary's), with a table of the degree and the time to it for spacings
+// from half to twice the answer (SpacingTable, DegreeAt).
+//
 // # Field monitoring
 //
 // Project.Monitoring holds settlement plates and piezometer records, each a

@@ -42,6 +42,13 @@ type AsaokaOptions struct {
 	// path is Thickness/DrainedEnds. Either zero: no cv is reported.
 	Thickness   float64
 	DrainedEnds int
+	// De and Mu, when both > 0, are the unit cell's diameter, m, and μ
+	// of a site with vertical drains: Asaoka then also reports Ch, the
+	// horizontal coefficient the slope implies (see Asaoka). VerticalCv,
+	// m²/day, is the cv of the vertical flow that goes on meanwhile; zero
+	// reads the whole slope as radial flow.
+	De, Mu     float64
+	VerticalCv float64
 }
 
 // AsaokaOptionsFor returns the options that read a settlement record of
@@ -99,6 +106,11 @@ type AsaokaResult struct {
 	Cv          float64 `json:"cv"`
 	CvSE        float64 `json:"cvSE"`
 	CvParabolic float64 `json:"cvParabolic"`
+	// Ch is the horizontal coefficient of consolidation, m²/day, of a
+	// drained site (AsaokaOptions.De and Mu given), and ChSE its standard
+	// error: Ch = (De² μ/8)(−ln β1/Δt − π² cv/(4d²)); 0 otherwise.
+	Ch   float64 `json:"ch,omitempty"`
+	ChSE float64 `json:"chSE,omitempty"`
 }
 
 // Forecast returns the settlement the fitted relation predicts at t days:
@@ -166,6 +178,24 @@ func (a *AsaokaResult) Forecast(t float64) float64 {
 // record to be late enough for the higher modes to have died out (time
 // factor above about 0.2, degree of consolidation above about 50 %);
 // earlier readings make β1, and so cv and s∞, depend on Δt.
+//
+// # Horizontal coefficient with vertical drains
+//
+// With drains the cell-averaged excess pressure obeys
+// ∂ū/∂t = cv ∂²ū/∂z² − (8 ch/(De² μ)) ū (the unit cell, Barron 1948,
+// Hansbo 1981). For drains through the layer with one μ its solution is
+// the vertical one times exp(−λh t), λh = 8 ch/(De² μ) (the product of
+// Carrillo 1942), so the slowest mode decays at λ = λh + π²cv/(4d²) and
+// β1 = exp(−λΔt) as above. Hence
+//
+//	ch = (De² μ / 8) (−ln β1/Δt − π² cv/(4d²)),
+//
+// with cv the vertical coefficient (AsaokaOptions.VerticalCv; without it
+// the whole slope is read as radial flow, which overstates ch) and d the
+// drainage path (without Thickness and DrainedEnds the vertical term is
+// left out). Ch is that value; a negative one means the record settles no
+// faster than vertical flow alone would. With well resistance μ varies
+// with depth: give its average, and read Ch as an equivalent value.
 //
 // Readings before AfterTime are left out, not refused: a record that
 // starts with the construction is read from the end of the loading on.
@@ -293,6 +323,15 @@ func Asaoka(times, settlements []float64, interval float64, opt AsaokaOptions) (
 		a.Cv = -4 * d * d * math.Log(b1) / (math.Pi * math.Pi * interval)
 		a.CvSE = 4 * d * d / (math.Pi * math.Pi * interval) * a.Beta1SE / b1
 		a.CvParabolic = -5 * d * d * math.Log(b1) / (12 * interval)
+	}
+	if opt.De > 0 && opt.Mu > 0 {
+		rate := -math.Log(b1) / interval
+		if d := a.DrainagePath; d > 0 && opt.VerticalCv > 0 {
+			rate -= math.Pi * math.Pi * opt.VerticalCv / (4 * d * d)
+		}
+		k := opt.De * opt.De * opt.Mu / 8
+		a.Ch = k * rate
+		a.ChSE = k / interval * a.Beta1SE / b1
 	}
 	return a, nil
 }

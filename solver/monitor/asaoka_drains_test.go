@@ -1,0 +1,59 @@
+package monitor
+
+import (
+	"math"
+	"testing"
+
+	"porelight/solver/internal/series"
+)
+
+// Asaoka on a drained site gives ch from the slope: on synthetic records
+// from the closed forms (not the solver) — pure radial flow,
+// s/s∞ = 1 − exp(−8 ch t/(De² μ)) (Barron 1948, Hansbo 1981), and
+// combined flow, 1 − (1 − Uv)(1 − Uh) (Carrillo 1942) with Uv from
+// Terzaghi's (1943) series for one drainage path of 3 m — Ch is the ch
+// the record was made with, within 1e-6 relative for the exact
+// exponential and 1 % for the combined record read late (Tv > 0.25),
+// where the higher vertical modes have died out.
+func TestAsaokaDrains(t *testing.T) {
+	t.Parallel()
+	const (
+		ch, cv = 0.005, 0.008 // m²/day
+		de, mu = 1.6, 2.6
+		d      = 3.0 // drainage path, m
+		final  = 0.9 // m
+	)
+	uh := func(tm float64) float64 { return 1 - math.Exp(-8*ch*tm/(de*de*mu)) }
+	for _, c := range []struct {
+		name     string
+		u        func(float64) float64
+		from, to float64
+		vertical float64
+		tol      float64
+	}{
+		{"radial only", uh, 50, 600, 0, 1e-6},
+		{"radial and vertical", func(tm float64) float64 {
+			return 1 - (1-series.TerzaghiU(cv*tm/(d*d)))*(1-uh(tm))
+		}, 300, 900, cv, 0.01},
+	} {
+		var ts, ss []float64
+		for tm := c.from; tm <= c.to; tm += 30 {
+			ts = append(ts, tm)
+			ss = append(ss, final*c.u(tm))
+		}
+		a, err := Asaoka(ts, ss, 60, AsaokaOptions{Thickness: d, DrainedEnds: 1, De: de, Mu: mu, VerticalCv: c.vertical})
+		if err != nil {
+			t.Fatalf("%s: %v", c.name, err)
+		}
+		if math.Abs(a.Ch-ch) > c.tol*ch {
+			t.Errorf("%s: Ch = %.6g m²/day, want %g ± %g %%", c.name, a.Ch, ch, 100*c.tol)
+		}
+		if math.Abs(a.Final-final) > 0.01*final {
+			t.Errorf("%s: final %.4g m, want %g", c.name, a.Final, final)
+		}
+	}
+	// Without De and μ there is no Ch.
+	if a, err := Asaoka([]float64{1, 2, 3, 4, 5}, []float64{0.1, 0.15, 0.18, 0.2, 0.21}, 0, AsaokaOptions{}); err != nil || a.Ch != 0 {
+		t.Errorf("Ch %v without drains (err %v)", a, err)
+	}
+}
