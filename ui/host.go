@@ -64,9 +64,10 @@ var errNoHost = errors.New("not available outside the browser")
 // in-process otherwise (native tests, or where the browser gives no
 // worker).
 type Solver interface {
-	// Solve solves the project JSON and returns the result JSON, as the
-	// JavaScript API's solve does: a result, or {"error": {"problems":
-	// [...]}} for a project that cannot be solved, a crashed worker or a
+	// Solve solves the project JSON and returns the result in the binary
+	// form (solver.Result.MarshalBinary) or as JSON, or {"error":
+	// {"problems": [...]}} (as the JavaScript API's solve answers) for a
+	// project that cannot be solved, a crashed worker or a
 	// solve that ran too long. It blocks until then, so it is called from
 	// the solve goroutine only; progress receives fractions of the solve
 	// on that goroutine. Cancelling ctx abandons the solve (the worker is
@@ -144,6 +145,12 @@ func decodeAnswer(out []byte) (*solver.Result, error) {
 		return nil, e.Error.Problems
 	}
 	var r solver.Result
+	if solver.IsBinaryResult(out) {
+		if err := r.UnmarshalBinary(out); err != nil {
+			return nil, errors.New("the solver's answer could not be read: " + err.Error())
+		}
+		return &r, nil
+	}
 	if err := json.Unmarshal(out, &r); err != nil {
 		return nil, errors.New("the solver's answer could not be read: " + err.Error())
 	}

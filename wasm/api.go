@@ -56,7 +56,14 @@ func (a *api) Solve(project string) string {
 
 // solveJSON is Solve on bytes; progress, when not nil, receives the
 // solver's progress (fractions of the simulated time).
-func (a *api) solveJSON(project []byte, progress func(float64)) (out []byte) {
+func (a *api) solveJSON(project []byte, progress func(float64)) []byte {
+	return a.solveTo(project, progress, json.Marshal)
+}
+
+// solveTo is solveJSON with the result encoded by encode (problems are
+// always JSON): json.Marshal for the API, or the binary form
+// (solver.Result.MarshalBinary) for the page's own worker calls.
+func (a *api) solveTo(project []byte, progress func(float64), encode func(any) ([]byte, error)) (out []byte) {
 	defer func() {
 		if r := recover(); r != nil {
 			out = []byte(problemsJSON(solver.Problems{{Path: "", Message: fmt.Sprintf("internal error: %v", r)}}))
@@ -79,7 +86,7 @@ func (a *api) solveJSON(project []byte, progress func(float64)) (out []byte) {
 	if err != nil {
 		return []byte(problemsJSON(solver.AsProblems(err)))
 	}
-	data, err := json.Marshal(res)
+	data, err := encode(res)
 	if err != nil {
 		return []byte(problemsJSON(solver.Problems{{Path: "", Message: "the result could not be encoded: " + err.Error()}}))
 	}

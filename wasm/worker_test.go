@@ -4,6 +4,7 @@ package main
 
 import (
 	"encoding/json"
+	"reflect"
 	"strings"
 	"syscall/js"
 	"testing"
@@ -63,6 +64,25 @@ func TestWorkerCall(t *testing.T) {
 			if f < 0 || f > 1 || i > 0 && f < fractions[i-1] {
 				t.Fatalf("progress %v: not rising within [0, 1]", fractions)
 			}
+		}
+	})
+	t.Run("solve-binary", func(t *testing.T) {
+		// The page's own call: the same result as porelight.solve's JSON,
+		// in the binary form, and problems still as JSON.
+		out, _ := goCallJS(t, "solve-binary", demo)
+		var got, want solver.Result
+		if err := got.UnmarshalBinary([]byte(out)); err != nil {
+			t.Fatalf("answer %.80q: %v", out, err)
+		}
+		if err := json.Unmarshal([]byte((&api{}).Solve(demo)), &want); err != nil {
+			t.Fatal(err)
+		}
+		if !reflect.DeepEqual(got, want) {
+			t.Error("solve-binary's result differs from porelight.solve's")
+		}
+		bad, _ := goCallJS(t, "solve-binary", `{"format": "porelight/1", "layers": 3}`)
+		if ps := errorOf(t, bad); len(ps) == 0 || ps[0].Path != "layers" {
+			t.Errorf("answer %s, want a problem at layers", bad)
 		}
 	})
 	t.Run("bad project", func(t *testing.T) {
