@@ -29,7 +29,9 @@ var (
 	// ErrNumerical marks a project that passed validation but whose
 	// equations or results could not be computed in floating point (a
 	// matrix that is not positive definite, an output that is not
-	// finite). The path names the field most likely at fault.
+	// finite). The path names the field most likely at fault: a layer's
+	// k for a factorisation, or the output itself under ResultPath
+	// ("result.steady.head[12]").
 	ErrNumerical = errors.New("could not be computed")
 )
 
