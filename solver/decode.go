@@ -174,8 +174,10 @@ func checkShape(ps *Problems, path string, v any, t reflect.Type) {
 	if v == nil {
 		return // null leaves the zero value, as encoding/json does
 	}
+	// The JSON is valid, only of the wrong type: the reason stays
+	// ErrSyntax (the file does not fit the format), the message says so.
 	want := func(kind string) {
-		ps.Add(path, ErrSyntax, fmt.Sprintf("expected %s, got %s", kind, jsonKind(v)))
+		*ps = append(*ps, Problem{Path: path, Err: ErrSyntax, Message: fmt.Sprintf("must be %s in JSON, not %s", kind, jsonKind(v))})
 	}
 	switch t.Kind() {
 	case reflect.Struct:
@@ -229,7 +231,7 @@ func checkShape(ps *Problems, path string, v any, t reflect.Type) {
 			return
 		}
 		if _, err := n.Int64(); err != nil {
-			want("a whole number")
+			*ps = append(*ps, Problem{Path: path, Err: ErrSyntax, Message: "must be a whole number (got " + n.String() + ")"})
 		}
 	}
 }

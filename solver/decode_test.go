@@ -269,7 +269,7 @@ func FuzzDecode(f *testing.F) {
 		f.Add([]byte(s))
 	}
 	reasons := []error{ErrRequired, ErrNotFinite, ErrNotPositive, ErrNegative, ErrOutOfRange, ErrNotSorted,
-		ErrUnknown, ErrFormat, ErrSyntax, ErrConflict, ErrTooLarge}
+		ErrUnknown, ErrFormat, ErrSyntax, ErrNotProject, ErrConflict, ErrTooLarge}
 	f.Fuzz(func(t *testing.T, data []byte) {
 		p, err := Decode(data)
 		if err != nil {
@@ -332,9 +332,10 @@ func TestDecodeSaysWhere(t *testing.T) {
 		{"plain text", "notes from the site visit\n", "", ErrNotProject, "this is not a project file (it looks like text)"},
 		{"HTML", "<!doctype html><html></html>", "", ErrNotProject, "(it looks like HTML or XML)"},
 		{"binary", "\x1f\x8b\x08\x00\x00\x00", "", ErrNotProject, "(it looks like a binary file"},
-		// A type error keeps its field path (checkShape; no position).
+		// A type error keeps its field path (checkShape; no position) and
+		// does not call valid JSON invalid.
 		{"type error names the field", `{"format": "porelight/1", "top": {"drained": "yes"}}`, "top.drained", ErrSyntax,
-			"expected true or false, got text"},
+			"must be true or false in JSON, not text"},
 	}
 	for _, c := range cases {
 		t.Run(c.name, func(t *testing.T) {
