@@ -8,21 +8,6 @@ import (
 	"testing"
 )
 
-// numColumn is a valid two-layer column under a load: sand over clay,
-// drained at the top (invented for these tests).
-func numColumn() *Project {
-	return &Project{
-		Format: Format,
-		Layers: []Layer{
-			{Name: "sand", Thickness: 2, GammaSat: 19, K: 1e-5, Mv: 1e-5},
-			{Name: "clay", Thickness: 4, GammaSat: 17, K: 1e-9, Mv: 5e-4},
-		},
-		Top:   Boundary{Drained: true},
-		Loads: []Load{{Q: 40}},
-		Times: []float64{10, 100},
-	}
-}
-
 // A column whose equations cannot be factorised stops the solve with one
 // ErrNumerical problem at the layer's k, naming the depth and the layer,
 // and no result: never a warning beside results from a bad factor. The
@@ -37,19 +22,19 @@ func TestSolveRefusesUnfactorisable(t *testing.T) {
 		path   string
 		says   []string
 	}{
-		{"steady: negative k in the clay", func(p *Project) { p.Layers[1].K = -1e-9; p.Bottom = Boundary{Drained: true} },
+		{"steady: negative k in the clay", func(p *Project) { p.Layers[1].K = -1e-9 },
 			"layers[1].k", []string{"the steady seepage equations", "in layer 2, \"clay\"", "m depth"}},
-		{"steady: zero k in the sand", func(p *Project) { p.Layers[0].K = 0; p.Bottom = Boundary{Drained: true} },
+		{"steady: zero k in the sand", func(p *Project) { p.Layers[0].K = 0 },
 			"layers[0].k", []string{"the steady seepage equations", "in layer 1, \"sand\""}},
-		{"steady: NaN k in the clay, the lower layer", func(p *Project) { p.Layers[1].K = math.NaN(); p.Bottom = Boundary{Drained: true} },
+		{"steady: NaN k in the clay, the lower layer", func(p *Project) { p.Layers[1].K = math.NaN() },
 			"layers[1].k", []string{"the steady seepage equations", "in layer 2, \"clay\""}},
-		{"consolidation: infinite mv in the clay", func(p *Project) { p.Layers[1].Mv = math.Inf(1) },
+		{"consolidation: infinite mv in the clay", func(p *Project) { p.Layers[1].Mv = math.Inf(1); p.Loads = []Load{{Q: 40}} },
 			"layers[1].k", []string{"the consolidation step from 0 to", "in layer 2, \"clay\""}},
 	}
 	for _, c := range cases {
 		t.Run(c.name, func(t *testing.T) {
 			t.Parallel()
-			p := numColumn()
+			p := valProject() // sand over clay, both ends drained
 			c.change(p)
 			if Validate(p) == nil {
 				t.Fatal("Validate accepts the column; the test needs one it refuses")
