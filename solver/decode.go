@@ -16,6 +16,8 @@ import (
 // MaxFileBytes is the largest project file Decode reads.
 const MaxFileBytes = 4 << 20
 
+var utf8BOM = []byte("\xef\xbb\xbf")
+
 // Decode reads one project from JSON. It refuses, all at once and each
 // with its field path, every unknown field, every value of the wrong JSON
 // type and a missing or different "format". It does not check values:
@@ -32,6 +34,9 @@ func Decode(data []byte) (*Project, error) {
 		ps.Add("", ErrTooLarge, fmt.Sprintf("the file has %d bytes, the limit is %d", len(data), MaxFileBytes))
 		return nil, ps
 	}
+	// Some editors start a UTF-8 file with a byte order mark; JSON has
+	// none, so it is dropped rather than refused.
+	data = bytes.TrimPrefix(data, utf8BOM)
 	var raw any
 	dec := json.NewDecoder(bytes.NewReader(data))
 	dec.UseNumber()
@@ -123,7 +128,7 @@ func position(data []byte, off int64) string {
 // "text", …), or "" when it is JSON or might be JSON with a mistake in
 // it (it starts with { or [).
 func notJSON(data []byte) string {
-	t := bytes.TrimSpace(bytes.TrimPrefix(data, []byte("\xef\xbb\xbf")))
+	t := bytes.TrimSpace(data)
 	switch {
 	case len(t) == 0 || t[0] == '{' || t[0] == '[' || json.Valid(t):
 		return ""

@@ -201,6 +201,10 @@ func TestDecodeValid(t *testing.T) {
 	if err := Validate(p); err != nil {
 		t.Errorf("Validate: %v", err)
 	}
+	// A byte order mark, which some editors write, is not an error.
+	if _, err := Decode([]byte("\xef\xbb\xbf" + decValid)); err != nil {
+		t.Errorf("with a byte order mark: %v", err)
+	}
 	// null leaves the zero value, as encoding/json does.
 	p, err = Decode([]byte(`{"format": "porelight/1", "gammaW": null, "layers": [` + decLayer + `], "loads": null}`))
 	if err != nil || p.GammaW != 0 || p.Loads != nil {
