@@ -88,7 +88,12 @@ func (a *api) solveTo(project []byte, progress func(float64), encode func(any) (
 	}
 	data, err := encode(res)
 	if err != nil {
-		return []byte(problemsJSON(solver.Problems{{Path: "", Message: "the result could not be encoded: " + err.Error()}}))
+		// Solve returns only finite numbers, so this is a solve function
+		// that broke the promise: name the number as Solve would.
+		if ferr := solver.CheckFinite(res); ferr != nil {
+			return []byte(problemsJSON(solver.AsProblems(ferr)))
+		}
+		return []byte(problemsJSON(solver.Problems{{Path: solver.ResultPath, Message: "internal error: " + err.Error(), Err: solver.ErrNumerical}}))
 	}
 	return data
 }
