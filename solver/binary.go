@@ -1,6 +1,7 @@
 package solver
 
 import (
+	"bytes"
 	"encoding/binary"
 	"errors"
 	"fmt"
@@ -8,14 +9,15 @@ import (
 	"reflect"
 )
 
-// The binary form of a Result carries a solve's answer from one copy of
-// this program to another (the page's solve worker to the page) faster
-// than JSON: no float formatting or parsing, about half the bytes. It is
-// not a file format: both ends must be the same build, and the magic
-// string below changes whenever Result's layout does in a way that old
-// readers would misread.
+// The binary forms of a Result and of a Project carry a solve from one
+// copy of this program to another (the page to its solve worker and
+// back) faster than JSON: no float formatting or parsing, no field-name
+// matching, about half the bytes. They are not file formats: both ends
+// must be the same build, and the magic strings below change whenever
+// the types change in a way that old readers would misread.
 //
-// Layout: the magic, then Result's fields in declaration order, each as
+// Layout: the magic, then the value's fields in declaration order, each
+// as
 //
 //	bool      one byte, 0 or 1
 //	int       zig-zag varint
@@ -26,45 +28,66 @@ import (
 //	struct    its exported fields in order
 //
 // so nil and empty slices, and nil and zero pointers, survive the round
-// trip, and a decoded Result is reflect.DeepEqual to the encoded one.
-const binaryMagic = "porelight-result-1\n"
+// trip, and a decoded value is reflect.DeepEqual to the encoded one.
+const (
+	resultMagic  = "porelight-result-1\n"
+	projectMagic = "porelight-project-1\n"
+)
 
 // errBinary is the reason of every error of UnmarshalBinary.
-var errBinary = errors.New("not a binary result of this build")
+var errBinary = errors.New("not a binary form of this build")
 
 // MarshalBinary encodes r in the binary form (see UnmarshalBinary). It
 // implements encoding.BinaryMarshaler.
-func (r *Result) MarshalBinary() ([]byte, error) {
+func (r *Result) MarshalBinary() ([]byte, error) { return marshalBinary(resultMagic, r) }
+
+// UnmarshalBinary replaces r by the Result encoded in data by
+// MarshalBinary of the same build. It implements
+// encoding.BinaryUnmarshaler.
+func (r *Result) UnmarshalBinary(data []byte) error { return unmarshalBinary(resultMagic, data, r) }
+
+// IsBinaryResult reports whether data starts as Result.MarshalBinary's
+// output.
+func IsBinaryResult(data []byte) bool { return bytes.HasPrefix(data, []byte(resultMagic)) }
+
+// MarshalBinary encodes p in the binary form: what the page sends its
+// solve worker instead of the project's JSON. The form holds exactly
+// what Decode would have given the worker; Solve still validates it.
+func (p *Project) MarshalBinary() ([]byte, error) { return marshalBinary(projectMagic, p) }
+
+// UnmarshalBinary replaces p by the Project encoded in data by
+// MarshalBinary of the same build.
+func (p *Project) UnmarshalBinary(data []byte) error { return unmarshalBinary(projectMagic, data, p) }
+
+// IsBinaryProject reports whether data starts as Project.MarshalBinary's
+// output.
+func IsBinaryProject(data []byte) bool { return bytes.HasPrefix(data, []byte(projectMagic)) }
+
+// marshalBinary encodes *ptr after magic.
+func marshalBinary[T any](magic string, ptr *T) ([]byte, error) {
 	e := binEncoder{buf: make([]byte, 0, 4096)}
-	e.buf = append(e.buf, binaryMagic...)
-	if err := e.value(reflect.ValueOf(r).Elem()); err != nil {
+	e.buf = append(e.buf, magic...)
+	if err := e.value(reflect.ValueOf(ptr).Elem()); err != nil {
 		return nil, err
 	}
 	return e.buf, nil
 }
 
-// UnmarshalBinary replaces r by the Result encoded in data by
-// MarshalBinary of the same build. It implements
-// encoding.BinaryUnmarshaler.
-func (r *Result) UnmarshalBinary(data []byte) error {
-	if len(data) < len(binaryMagic) || string(data[:len(binaryMagic)]) != binaryMagic {
+// unmarshalBinary decodes data into *ptr, leaving it alone on error.
+func unmarshalBinary[T any](magic string, data []byte, ptr *T) error {
+	if !bytes.HasPrefix(data, []byte(magic)) {
 		return fmt.Errorf("%w: the header is missing", errBinary)
 	}
-	d := binDecoder{buf: data[len(binaryMagic):]}
-	var out Result
+	d := binDecoder{buf: data[len(magic):]}
+	var out T
 	if err := d.value(reflect.ValueOf(&out).Elem()); err != nil {
 		return err
 	}
 	if len(d.buf) != 0 {
 		return fmt.Errorf("%w: %d bytes left over", errBinary, len(d.buf))
 	}
-	*r = out
+	*ptr = out
 	return nil
-}
-
-// IsBinaryResult reports whether data starts as MarshalBinary's output.
-func IsBinaryResult(data []byte) bool {
-	return len(data) >= len(binaryMagic) && string(data[:len(binaryMagic)]) == binaryMagic
 }
 
 type binEncoder struct{ buf []byte }
@@ -112,7 +135,7 @@ func (e *binEncoder) value(v reflect.Value) error {
 		t := v.Type()
 		for i := range t.NumField() {
 			if !t.Field(i).IsExported() {
-				continue
+				return fmt.Errorf("solver: the binary form cannot carry the unexported field %s.%s", t, t.Field(i).Name)
 			}
 			if err := e.value(v.Field(i)); err != nil {
 				return err

@@ -6,6 +6,7 @@ import (
 	"math"
 	"math/rand/v2"
 	"os"
+	"path/filepath"
 	"reflect"
 	"testing"
 )
@@ -55,28 +56,99 @@ func fill(r *rand.Rand, v reflect.Value) {
 	}
 }
 
-func TestResultBinaryRoundTrip(t *testing.T) {
-	// Every kind of field and value, on 200 random results (fixed seeds):
-	// the decoded result must equal the encoded one exactly
-	// (reflect.DeepEqual: same bits, same nil-ness).
-	for seed := range uint64(200) {
-		r := rand.New(rand.NewPCG(seed, 7))
-		var want Result
-		fill(r, reflect.ValueOf(&want).Elem())
-		data, err := want.MarshalBinary()
+// binaryForm is one of the types with a binary form.
+type binaryForm interface {
+	MarshalBinary() ([]byte, error)
+	UnmarshalBinary([]byte) error
+}
+
+func TestBinaryRoundTrip(t *testing.T) {
+	// Every kind of field and value, on 200 random values of each type
+	// (fixed seeds): the decoded value must equal the encoded one exactly
+	// (reflect.DeepEqual: same bits, same nil-ness), and the header tells
+	// the two forms apart.
+	cases := []struct {
+		name  string
+		new   func() binaryForm
+		is    func([]byte) bool
+		other func([]byte) bool
+	}{
+		{"Result", func() binaryForm { return new(Result) }, IsBinaryResult, IsBinaryProject},
+		{"Project", func() binaryForm { return new(Project) }, IsBinaryProject, IsBinaryResult},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			for seed := range uint64(200) {
+				r := rand.New(rand.NewPCG(seed, 7))
+				want := c.new()
+				fill(r, reflect.ValueOf(want).Elem())
+				data, err := want.MarshalBinary()
+				if err != nil {
+					t.Fatalf("seed %d: %v", seed, err)
+				}
+				if !c.is(data) || c.other(data) {
+					t.Fatalf("seed %d: the header does not say what the data is", seed)
+				}
+				got := c.new()
+				if err := got.UnmarshalBinary(data); err != nil {
+					t.Fatalf("seed %d: %v", seed, err)
+				}
+				if !reflect.DeepEqual(got, want) {
+					t.Fatalf("seed %d: the round trip changed the value", seed)
+				}
+				if err := c.new().UnmarshalBinary(append([]byte(nil), data...)[:len(data)-1]); err == nil && len(data) > 0 {
+					t.Fatalf("seed %d: a truncated form was accepted", seed)
+				}
+			}
+		})
+	}
+	// The other type's form is refused by its header.
+	var p Project
+	data, _ := (&Result{}).MarshalBinary()
+	if err := p.UnmarshalBinary(data); !errors.Is(err, errBinary) {
+		t.Errorf("a Result's form read as a Project: %v", err)
+	}
+}
+
+func TestProjectBinaryFiles(t *testing.T) {
+	// Every project file in testdata/: Decode(file) and the binary round
+	// trip of it are the same project.
+	files, err := filepath.Glob("../testdata/*/*.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	files = append(files, "../testdata/demo.json")
+	n := 0
+	for _, f := range files {
+		data, err := os.ReadFile(f)
 		if err != nil {
-			t.Fatalf("seed %d: %v", seed, err)
+			t.Fatal(err)
 		}
-		if !IsBinaryResult(data) {
-			t.Fatalf("seed %d: IsBinaryResult is false on MarshalBinary's output", seed)
+		var c struct { // a reference case holds its project under "project"
+			Project json.RawMessage `json:"project"`
 		}
-		var got Result
-		if err := got.UnmarshalBinary(data); err != nil {
-			t.Fatalf("seed %d: %v", seed, err)
+		if json.Unmarshal(data, &c) == nil && len(c.Project) > 0 {
+			data = c.Project
 		}
-		if !reflect.DeepEqual(got, want) {
-			t.Fatalf("seed %d: the round trip changed the result", seed)
+		p, err := Decode(data)
+		if err != nil {
+			t.Fatalf("%s: %v", f, err)
 		}
+		n++
+		bin, err := p.MarshalBinary()
+		if err != nil {
+			t.Fatalf("%s: %v", f, err)
+		}
+		var q Project
+		if err := q.UnmarshalBinary(bin); err != nil {
+			t.Fatalf("%s: %v", f, err)
+		}
+		if !reflect.DeepEqual(&q, p) {
+			t.Errorf("%s: the binary round trip changed the project", f)
+		}
+	}
+	if n < 9 {
+		t.Fatalf("only %d project files decoded", n)
 	}
 }
 
@@ -149,7 +221,7 @@ func TestResultBinaryDamaged(t *testing.T) {
 		t.Errorf("JSON taken for the binary form: %v", err)
 	}
 	// A huge list length right after the header.
-	huge := append([]byte(binaryMagic), 0xff, 0xff, 0xff, 0xff, 0xff, 0xff, 0xff, 0x7f)
+	huge := append([]byte(resultMagic), 0xff, 0xff, 0xff, 0xff, 0xff, 0xff, 0xff, 0x7f)
 	if err := r.UnmarshalBinary(huge); !errors.Is(err, errBinary) {
 		t.Errorf("a huge length: %v", err)
 	}

@@ -64,7 +64,8 @@ var errNoHost = errors.New("not available outside the browser")
 // in-process otherwise (native tests, or where the browser gives no
 // worker).
 type Solver interface {
-	// Solve solves the project JSON and returns the result in the binary
+	// Solve solves the project (in the binary form,
+	// solver.Project.MarshalBinary) and returns the result in the binary
 	// form (solver.Result.MarshalBinary) or as JSON, or {"error":
 	// {"problems": [...]}} (as the JavaScript API's solve answers) for a
 	// project that cannot be solved, a crashed worker or a
@@ -84,7 +85,9 @@ var ErrNoWorker = errors.New("no solve worker")
 // generation) stops it. The error is ErrNoWorker, solver.ErrCanceled or
 // the problems of the answer.
 func (c *Root) solveElsewhere(g int64, s Solver, model *solver.Project) (*solver.Result, error) {
-	data, err := json.Marshal(solveInput(model))
+	// The binary form, not JSON: the worker would spend about as long
+	// decoding JSON as solving a small project.
+	data, err := solveInput(model).MarshalBinary()
 	if err != nil {
 		return nil, err
 	}

@@ -36,11 +36,11 @@ func (h *workerHost) Solve(ctx context.Context, project []byte, progress func(fl
 	if answer != nil {
 		return answer, nil
 	}
-	p, derr := solver.Decode(project)
-	if derr != nil {
+	var p solver.Project // the page sends the binary form
+	if derr := p.UnmarshalBinary(project); derr != nil {
 		return nil, derr
 	}
-	res, serr := solver.Solve(p, nil)
+	res, serr := solver.Solve(&p, nil)
 	if serr != nil {
 		return nil, serr
 	}

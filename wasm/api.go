@@ -70,7 +70,7 @@ func (a *api) solveTo(project []byte, progress func(float64), encode func(any) (
 			println("porelight: solve failed:", fmt.Sprint(r), string(debug.Stack()))
 		}
 	}()
-	p, err := solver.Decode(project)
+	p, err := decodeProject(project)
 	if err != nil {
 		return []byte(problemsJSON(solver.AsProblems(err)))
 	}
@@ -96,6 +96,19 @@ func (a *api) solveTo(project []byte, progress func(float64), encode func(any) (
 		return []byte(problemsJSON(solver.Problems{{Path: solver.ResultPath, Message: "internal error: " + err.Error(), Err: solver.ErrNumerical}}))
 	}
 	return data
+}
+
+// decodeProject reads a project in the binary form (the page's own
+// worker calls) or as JSON (everything else).
+func decodeProject(data []byte) (*solver.Project, error) {
+	if solver.IsBinaryProject(data) {
+		var p solver.Project
+		if err := p.UnmarshalBinary(data); err != nil {
+			return nil, solver.Problems{{Path: "", Message: "the page's project could not be read: " + err.Error()}}
+		}
+		return &p, nil
+	}
+	return solver.Decode(data)
 }
 
 // Validate returns the problems of a project as a JSON list.

@@ -20,12 +20,15 @@ import (
 // variable for the tests).
 var progressEvery = 50 * time.Millisecond
 
-// serveWorker registers globalThis.goCall(op, projectJSON, progress):
+// serveWorker registers globalThis.goCall(op, project, progress):
 //
 //	op "solve"     → the result JSON, as porelight.solve returns it
-//	op "solve-binary" → the same with a result in the binary form
-//	               (solver.Result.MarshalBinary): the page's own solves,
-//	               which it decodes several times faster than JSON
+//	op "solve-binary" → the same with the result in the binary form
+//	               (solver.Result.MarshalBinary), for a project given as
+//	               JSON or, as the page sends it, in the binary form
+//	               (a Uint8Array of solver.Project.MarshalBinary): both
+//	               ends skip JSON, which costs about as much as a small
+//	               solve in wasm
 //	op "validate"  → the problems JSON, as porelight.validate returns it
 //	op "fault-oom", "fault-hang", "fault-panic" → run out of memory,
 //	               loop for ever, panic outside any recover: the browser
@@ -37,17 +40,23 @@ var progressEvery = 50 * time.Millisecond
 // globalThis.goReady, if defined.
 func serveWorker(a *api) {
 	js.Global().Set("goCall", js.FuncOf(func(_ js.Value, args []js.Value) any {
-		op, project, progress := "", "", js.Undefined()
+		op, progress := "", js.Undefined()
 		if len(args) > 0 && args[0].Type() == js.TypeString {
 			op = args[0].String()
 		}
-		if len(args) > 1 && args[1].Type() == js.TypeString {
-			project = args[1].String()
+		var project []byte
+		switch {
+		case len(args) < 2:
+		case args[1].Type() == js.TypeString:
+			project = []byte(args[1].String())
+		case args[1].InstanceOf(js.Global().Get("Uint8Array")):
+			project = make([]byte, args[1].Get("length").Int())
+			js.CopyBytesToGo(project, args[1])
 		}
 		if len(args) > 2 {
 			progress = args[2]
 		}
-		return toJS(a.call(op, []byte(project), progress))
+		return toJS(a.call(op, project, progress))
 	}))
 	if ready := js.Global().Get("goReady"); ready.Type() == js.TypeFunction {
 		ready.Invoke()
