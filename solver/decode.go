@@ -7,6 +7,7 @@ import (
 	"maps"
 	"reflect"
 	"slices"
+	"strconv"
 	"strings"
 )
 
@@ -88,7 +89,7 @@ func checkShape(ps *Problems, path string, v any, t reflect.Type) {
 			val := obj[key]
 			f, ok := fields[key]
 			if !ok {
-				ps.Add(join(path, key), ErrUnknown, "check the spelling; names are case-sensitive")
+				ps.Add(join(path, keyName(key)), ErrUnknown, "check the spelling; names are case-sensitive")
 				continue
 			}
 			checkShape(ps, join(path, key), val, f.Type)
@@ -129,6 +130,18 @@ func checkShape(ps *Problems, path string, v any, t reflect.Type) {
 			want("a whole number")
 		}
 	}
+}
+
+// keyName is the name an unknown key of a JSON object takes in a field
+// path: the key itself, or the key quoted as a Go string when it is empty
+// or holds a character of the path grammar (".", "[", "]") or a quote, so
+// that every unknown field has a path of its own and never reads as
+// another one.
+func keyName(key string) string {
+	if key == "" || strings.ContainsAny(key, ".[]\"") {
+		return strconv.Quote(key)
+	}
+	return key
 }
 
 func join(path, key string) string {

@@ -56,10 +56,33 @@ func Solve(p *Project, opt *Options) (*Result, error) {
 	}
 	if path, v, ok := firstNonFinite(reflect.ValueOf(r).Elem(), ""); ok {
 		var ps Problems
-		ps.Add("", ErrNumerical, fmt.Sprintf("the result %s came out as %g; the inputs are legal but too extreme for floating point — look for unit weights, permeabilities or loads far outside the range of soils", path, v))
+		ps.Add(c.blame(path), ErrNumerical, fmt.Sprintf("the result %s came out as %g; the inputs are legal but too extreme for floating point — look for unit weights, permeabilities or loads far outside the range of soils", path, v))
 		return nil, ps
 	}
 	return r, nil
+}
+
+// blame is the project field most likely at fault for a non-finite output
+// at result path out: the layer of a per-layer figure, the layer holding
+// the node of a per-node figure (a profile or an isochrone), the
+// piezometer of a piezometer series, and the layers as a whole otherwise.
+// It never returns "", so the problem always has a path.
+func (c *column) blame(out string) string {
+	steps, err := ParsePath(out)
+	if err != nil || len(steps) < 2 {
+		return "layers"
+	}
+	last := steps[len(steps)-1]
+	switch {
+	case steps[1].Name == "layers" && steps[1].Index >= 0 && steps[1].Index < len(c.p.Layers):
+		return IndexPath("layers", steps[1].Index)
+	case steps[0].Name == "steady" && len(steps) == 2 && last.Index >= 0 && last.Index < c.m.Nodes(),
+		steps[0].Name == "consolidation" && steps[1].Name == "isochrones" && last.Index >= 0 && last.Index < c.m.Nodes():
+		return IndexPath("layers", c.layerAt(c.m.Z[last.Index]))
+	case len(steps) > 2 && steps[2].Name == "piezometers" && steps[2].Index >= 0 && steps[2].Index < len(c.p.Piezometers):
+		return IndexPath("piezometers", steps[2].Index)
+	}
+	return "layers"
 }
 
 // firstNonFinite walks v (a Result or a part of it) and returns the JSON
