@@ -6,19 +6,22 @@ import "fmt"
 // value outside its bound with ErrOutOfRange, the field path and the
 // allowed range with its unit, before any work is done (Solve validates
 // first). The bounds are generous for any real soil, groundwater and
-// loading (the typical values are common practice, e.g. Terzaghi & Peck
-// 1967, and given beside each bound), and narrow enough that nothing inside
-// them can overflow or underflow in the numerics. The worst products are:
+// loading (the typical values given beside each bound are common practice,
+// quoted from memory, and lie well inside it), and narrow enough that
+// nothing inside them can overflow or underflow in the numerics. The worst products are:
 //
-//   - total stress: MaxColumnHeight × MaxUnitWeight + water above the top,
-//     MaxHead × MaxGammaW, ≈ 1.3·10⁶ kPa;
-//   - pore pressure at a fixed inflow: γw × MaxInflow × MaxColumnHeight /
-//     MinK ≈ 10²⁰ kPa (an absurd column, but finite);
-//   - conductivity of one element, k·86400/γw/Δz with Δz ≥ MinThickness /
-//     MaxElements = 5·10⁻¹⁰ m: ≤ 2·10¹⁴, times a step of MaxTime days and
-//     divided by Δz again: ≤ 10³⁸; its inverse against mv·Δz ≥ 5·10⁻¹⁹;
+//   - stress: MaxColumnHeight × MaxUnitWeight plus water standing MaxHead
+//     above the top, ≈ 6.3·10⁵ kPa; pore pressure from the heads,
+//     MaxGammaW × (MaxHead + MaxColumnHeight) ≈ 2.6·10⁵ kPa;
+//   - pore pressure behind a fixed inflow: MaxGammaW × MaxInflow ×
+//     MaxColumnHeight / MinK ≈ 1.3·10²⁰ kPa (an absurd column, but finite);
+//   - the θ-method matrix: elements are at least MinThickness /
+//     MaxElements = 5·10⁻¹⁰ m long, so θΔt·k/(γw Δz) ≤ MaxTime × 86400 ×
+//     MaxK / (MinGammaW × 5·10⁻¹⁰) ≈ 2·10²³ beside capacities mv·Δz ≥
+//     5·10⁻¹⁹;
 //   - stress change: MaxLoads × MaxStress × MaxProfileFactor = 2·10¹⁰ kPa,
-//     settlement mv × stress × height ≤ 2·10¹⁴ m;
+//     settlement MaxMv × that × MaxColumnHeight ≈ 2·10¹⁴ m; the e–log σ'
+//     and secondary compression terms are logarithms of such ratios;
 //
 // all far inside float64's 10³⁰⁸ and above its 10⁻³⁰⁸. A column at the
 // edges of several bounds at once can still be ill-conditioned (a sealed
