@@ -45,9 +45,8 @@ type DrainCell struct {
 	// SmearRatio (ds/dw) and SmearK (kh/ks) are resolved (1: no smear).
 	SmearRatio float64 `json:"smearRatio"`
 	SmearK     float64 `json:"smearK"`
-
-	cell drain.Cell
-	qw   float64
+	// Qw is the discharge capacity, m³/s (0: no well resistance).
+	Qw float64 `json:"qw,omitempty"`
 }
 
 // ResolveDrains returns the resolved drain layout of p, or nil when p has
@@ -79,9 +78,8 @@ func ResolveDrains(p *Project) *DrainCell {
 		kr = DefaultSmearK
 	}
 	dc.SmearRatio, dc.SmearK = s, kr
-	dc.cell = drain.Cell{N: dc.N, S: s, KRatio: kr}
-	dc.Mu0 = dc.cell.Mu()
-	dc.qw = d.Qw
+	dc.Mu0 = drain.Cell{N: dc.N, S: s, KRatio: kr}.Mu()
+	dc.Qw = d.Qw
 	return dc
 }
 
@@ -114,7 +112,7 @@ func drainBreaks(p *Project) []float64 {
 // kh, m/s: Mu0 plus the well resistance (Hansbo 1981).
 func (dc *DrainCell) Mu(z, kh float64) float64 {
 	dist, l := drain.FromOutlet(z, dc.Top, dc.Tip, drain.Discharge(dc.Discharge))
-	return dc.Mu0 + drain.WellTerm(dist, l, kh, dc.qw, dc.N)
+	return dc.Mu0 + drain.WellTerm(dist, l, kh, dc.Qw, dc.N)
 }
 
 // Reaches reports whether the drains run through depth z.
@@ -178,10 +176,10 @@ func validDrains(ps *Problems, p *Project, height float64) {
 	for i, l := range p.Layers {
 		at := IndexPath("layers", i)
 		if l.Ch != 0 {
-			positive(ps, JoinPath(at, "ch"), l.Ch)
+			bounded(ps, JoinPath(at, "ch"), l.Ch, MinCh, MaxCh, "m²/day")
 		}
 		if l.KhKv != 0 {
-			positive(ps, JoinPath(at, "khKv"), l.KhKv)
+			bounded(ps, JoinPath(at, "khKv"), l.KhKv, MinKhKv, MaxKhKv, "")
 		}
 		if l.Ch != 0 && l.KhKv != 0 {
 			ps.Add(JoinPath(at, "khKv"), ErrConflict, "give ch or khKv, not both")
@@ -198,21 +196,22 @@ func validDrains(ps *Problems, p *Project, height float64) {
 	} else if factor == 0 {
 		ps.Add(at("pattern"), ErrOutOfRange, fmt.Sprintf(`must be "triangular" or "square" (got %q)`, d.Pattern))
 	}
-	spacingOK := positive(ps, at("spacing"), d.Spacing)
+	spacingOK := bounded(ps, at("spacing"), d.Spacing, MinSpacing, MaxSpacing, "m")
 	dw := 0.0
 	band := d.Width != 0 || d.Thickness != 0
 	switch {
 	case d.Diameter != 0 && band:
 		ps.Add(at("diameter"), ErrConflict, "give a diameter, or a band's width and thickness, not both")
 	case d.Diameter != 0:
-		if positive(ps, at("diameter"), d.Diameter) {
+		if bounded(ps, at("diameter"), d.Diameter, MinDrainSize, MaxDrainSize, "m") {
 			dw = d.Diameter
 		}
 		if d.Equivalent != "" {
 			ps.Add(at("equivalent"), ErrConflict, "the equivalent diameter is for a band drain; a round drain has its diameter")
 		}
 	case band:
-		a, b := positive(ps, at("width"), d.Width), positive(ps, at("thickness"), d.Thickness)
+		a := bounded(ps, at("width"), d.Width, MinDrainSize, MaxDrainSize, "m")
+		b := bounded(ps, at("thickness"), d.Thickness, MinDrainSize, MaxDrainSize, "m")
 		if a && b && d.Thickness > d.Width {
 			ps.Add(at("thickness"), ErrOutOfRange, fmt.Sprintf("must not exceed the width %g m (got %g)", d.Width, d.Thickness))
 		}
@@ -238,22 +237,28 @@ func validDrains(ps *Problems, p *Project, height float64) {
 		switch {
 		case d.SmearRatio < 1:
 			ps.Add(at("smearRatio"), ErrOutOfRange, "ds/dw must be ≥ 1 "+paren(num(d.SmearRatio)))
+		case d.SmearRatio > MaxSmearRatio:
+			inRange(ps, at("smearRatio"), d.SmearRatio, 1, MaxSmearRatio, "")
 		case dw > 0 && d.SmearRatio*dw >= de:
 			ps.Add(at("smearRatio"), ErrOutOfRange, fmt.Sprintf("the smear zone (%.3g m) must lie inside the unit cell (De = %.3g m)", d.SmearRatio*dw, de))
 		}
 	}
-	if d.SmearK != 0 && finite(ps, at("smearK"), d.SmearK) && d.SmearK < 1 {
-		ps.Add(at("smearK"), ErrOutOfRange, "kh/ks must be ≥ 1: smear lowers the permeability "+paren(num(d.SmearK)))
+	if d.SmearK != 0 && finite(ps, at("smearK"), d.SmearK) {
+		if d.SmearK < 1 {
+			ps.Add(at("smearK"), ErrOutOfRange, "kh/ks must be ≥ 1: smear lowers the permeability "+paren(num(d.SmearK)))
+		} else {
+			inRange(ps, at("smearK"), d.SmearK, 1, MaxSmearK, "")
+		}
 	}
 	if d.Qw != 0 {
-		positive(ps, at("qw"), d.Qw)
+		bounded(ps, at("qw"), d.Qw, MinQw, MaxQw, "m³/s")
 	}
 	switch drain.Discharge(d.Discharge) {
 	case "", drain.Top, drain.Base, drain.Both:
 	default:
 		ps.Add(at("discharge"), ErrOutOfRange, fmt.Sprintf(`must be "top", "base" or "both" (got %q)`, d.Discharge))
 	}
-	topOK := nonNegative(ps, at("top"), d.Top)
+	topOK := upTo(ps, at("top"), d.Top, MaxDepth, "m")
 	tip := height
 	switch {
 	case d.Depth != 0 && d.ToLayer != nil:
@@ -261,7 +266,7 @@ func validDrains(ps *Problems, p *Project, height float64) {
 		tip = math.NaN()
 	case d.Depth != 0:
 		tip = math.NaN()
-		if positive(ps, at("depth"), d.Depth) {
+		if bounded(ps, at("depth"), d.Depth, 0, MaxDepth, "m") {
 			if height > 0 && d.Depth > height*(1+1e-12) {
 				ps.Add(at("depth"), ErrOutOfRange, fmt.Sprintf("depth %g m is below the base of the column at %g m", d.Depth, height))
 			} else {
@@ -289,7 +294,7 @@ func validDrains(ps *Problems, p *Project, height float64) {
 		if des.Degree != 0 && !(des.Degree > 0 && des.Degree < 1) {
 			ps.Add(at("design.degree"), ErrOutOfRange, "must be a fraction between 0 and 1 "+paren(num(des.Degree)))
 		}
-		positive(ps, at("design.time"), des.Time)
+		bounded(ps, at("design.time"), des.Time, 0, MaxTime, "days")
 	}
 	for _, b := range []struct {
 		at string
