@@ -479,7 +479,7 @@ func (c *Backfit) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 		vgparent.AppendChild(vgn)
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "h2", Attr: []vugu.VGAttribute(nil)}
 		vgparent.AppendChild(vgn)
-		vgn.SetInnerHTML(vugu.HTML("Back-analysis \x3Cspan class=\"pl-sub\"\x3Efit k of chosen layers to the readings\x3C/span\x3E"))
+		vgn.SetInnerHTML(vugu.HTML("Back-analysis \x3Cspan class=\"pl-sub\"\x3Efit k (or, with drains, ch) of chosen layers to the readings\x3C/span\x3E"))
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
@@ -530,6 +530,43 @@ func (c *Backfit) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
 					vgparent.AppendChild(vgn)
 					vgn.SetInnerHTML("k of " + name)
+				}
+			}
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+			vgparent.AppendChild(vgn)
+			for i, name := range c.layerNames() {
+				var vgiterkey interface{} = i
+				_ = vgiterkey
+				i := i
+				_ = i
+				name := name
+				_ = name
+				if c.drains() {
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-check"}}}
+					vgparent.AppendChild(vgn)
+					vgn.AddAttrInterface("for", fmt.Sprintf("fit-ch-%d", i))
+					{
+						vgparent := vgn
+						_ = vgparent
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "input", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "checkbox"}}}
+						vgparent.AppendChild(vgn)
+						vgn.AddAttrInterface("id", fmt.Sprintf("fit-ch-%d", i))
+						{
+							b, err := vjson.Marshal(c.checkedCh(i))
+							if err != nil {
+								panic(err)
+							}
+							vgn.Prop = append(vgn.Prop, vugu.VGProperty{Key: "checked", JSONVal: vjson.RawMessage(b)})
+						}
+						vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+							EventType: "change",
+							Func:      func(event vugu.DOMEvent) { c.setCh(i, event) },
+							// TODO: implement capture, etc. mostly need to decide syntax
+						})
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "title", Val: "The horizontal coefficient of consolidation toward the drains"}}}
+						vgparent.AppendChild(vgn)
+						vgn.SetInnerHTML("ch of " + name)
+					}
 				}
 			}
 			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}

@@ -1,9 +1,13 @@
 package ui
 
 import (
+	"math"
+	"slices"
 	"strconv"
 	"strings"
 	"testing"
+
+	"porelight/solver"
 )
 
 // Drains on the demo: switching them on solves with them, the summary
@@ -62,5 +66,40 @@ func TestPageDrains(t *testing.T) {
 	p.fire("drains-on", "change", map[string]any{"checked": false})
 	if p.root.form.Draft().Drains != nil || p.root.result.Drains != nil {
 		t.Error("drains stay after switching them off")
+	}
+}
+
+// With drains the fit panel offers ch per layer: readings made with the
+// upper clay's ch 1.5 times the project's give back about 1.5 (a check of
+// the panel's wiring; monitor's tests check the fit against closed forms),
+// Apply types the fitted ch (in m²/year) into the layer, Revert clears it.
+func TestFitCh(t *testing.T) {
+	pr := monColumn()
+	pr.Drains = &solver.Drains{Pattern: "square", Spacing: 2.5, Diameter: 0.05}
+	made := *pr
+	made.Layers = slices.Clone(pr.Layers)
+	made.Layers[0].KhKv = 1.5
+	synthRecords(t, &made, 1)
+	pr.Monitoring = made.Monitoring
+	p := monPage(t, pr)
+	p.fire("fit-ch-0", "change", map[string]any{"checked": true})
+	p.fire("fit-run", "click", nil)
+	if e := p.find("fit-error"); e != nil {
+		t.Fatalf("fit refused: %s", p.text("fit-error"))
+	}
+	res := p.root.fit.res
+	if res == nil || len(res.Params) != 1 || res.Params[0].Name != "layers[0].ch" || math.Abs(res.Params[0].Multiplier-1.5) > 0.01 {
+		t.Fatalf("fit result %+v", res)
+	}
+	if got := p.text("fit-param-0"); !strings.Contains(got, "ch of") {
+		t.Errorf("row %q", got)
+	}
+	p.fire("fit-apply", "click", nil)
+	if ch := p.root.Form().Draft().Layers[0].Ch; math.Abs(ch-res.Params[0].Ch) > 1e-9*ch {
+		t.Errorf("applied ch %g, fitted %g", ch, res.Params[0].Ch)
+	}
+	p.fire("fit-revert", "click", nil)
+	if ch := p.root.Form().Draft().Layers[0].Ch; ch != 0 {
+		t.Errorf("ch after Revert %g, want 0 (from kh/kv)", ch)
 	}
 }
