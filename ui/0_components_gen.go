@@ -1468,6 +1468,34 @@ func (c *Comparison) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 								}
 								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 								vgparent.AppendChild(vgn)
+								if c.ch(a) != "" {
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
+									vgparent.AppendChild(vgn)
+									{
+										vgparent := vgn
+										_ = vgparent
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute{{Namespace: "", Key: "scope", Val: "row"}}}
+										vgparent.AppendChild(vgn)
+										vgn.SetInnerHTML(vugu.HTML("Implied ch (drains)"))
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+										vgparent.AppendChild(vgn)
+										{
+											vgparent := vgn
+											_ = vgparent
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "output", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.AddAttrInterface("id", a.ID+"-ch")
+											vgn.SetInnerHTML(c.ch(a))
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: " "}
+											vgparent.AppendChild(vgn)
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(vugu.HTML("from the slope less the vertical decay the prediction without drains gives; an equivalent value for the drained depth (Asaoka\x26#39;s relation with the unit cell\x26#39;s sink)"))
+										}
+									}
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
 								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
 								vgparent.AppendChild(vgn)
 								{

@@ -82,6 +82,9 @@ func TestFitCh(t *testing.T) {
 	synthRecords(t, &made, 1)
 	pr.Monitoring = made.Monitoring
 	p := monPage(t, pr)
+	if h := p.html(); !strings.Contains(h, "Implied ch (drains)") || !strings.Contains(h, "m²/year)") {
+		t.Error("the Asaoka panel gives no ch on a drained site")
+	}
 	p.fire("fit-ch-0", "change", map[string]any{"checked": true})
 	p.fire("fit-run", "click", nil)
 	if e := p.find("fit-error"); e != nil {

@@ -429,3 +429,47 @@ func interpAt(t0, v0, t1, v1, t float64) float64 {
 	}
 	return v0 + (v1-v0)*(t-t0)/(t1-t0)
 }
+
+// DrainCh is the horizontal coefficient of consolidation, m²/day, that
+// the slope of a on a site with vertical drains implies, with the
+// vertical part of the decay taken from the prediction r:
+//
+//	ch = (De² μ̄ / 8) (−ln β1/Δt − λv),
+//
+// where λv = ln((1 − Uv(t0))/(1 − Uv(t1)))/(t1 − t0) is the decay rate
+// of the same column without drains (r.Drains.Uv) over the readings'
+// window t0 … t1 and μ̄ the mean of μ along the drains (r.Drains.Mu);
+// see Asaoka for the derivation. ok is false when r has no drain results
+// or the window leaves the simulated times. The value is an equivalent
+// ch for the drained depth; with partly penetrating drains or several
+// layers it mixes them.
+func DrainCh(a *AsaokaResult, r *solver.Result) (ch float64, ok bool) {
+	if a == nil || len(a.Times) < 2 || r == nil || r.Drains == nil || r.Consolidation == nil {
+		return 0, false
+	}
+	d := r.Drains
+	ts := r.Consolidation.Series.Time
+	if len(d.Uv) != len(ts) || len(d.Mu) == 0 || len(ts) == 0 {
+		return 0, false
+	}
+	t0, t1 := a.Times[0], a.Times[len(a.Times)-1]
+	if t1 <= t0 || t1 > ts[len(ts)-1] {
+		return 0, false
+	}
+	u0, u1 := 1-solver.SeriesAt(ts, d.Uv, t0), 1-solver.SeriesAt(ts, d.Uv, t1)
+	if !(u0 > 0 && u1 > 0) {
+		return 0, false
+	}
+	lv := math.Log(u0/u1) / (t1 - t0)
+	mu := 0.0
+	for i := 1; i < len(d.Depth); i++ {
+		mu += (d.Mu[i] + d.Mu[i-1]) / 2 * (d.Depth[i] - d.Depth[i-1])
+	}
+	if l := d.Depth[len(d.Depth)-1] - d.Depth[0]; l > 0 {
+		mu /= l
+	} else {
+		mu = d.Cell.Mu0
+	}
+	de := d.Cell.De
+	return de * de * mu / 8 * (-math.Log(a.Beta1)/a.Interval - lv), true
+}

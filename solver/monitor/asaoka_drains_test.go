@@ -4,6 +4,7 @@ import (
 	"math"
 	"testing"
 
+	"porelight/solver"
 	"porelight/solver/internal/series"
 )
 
@@ -55,5 +56,42 @@ func TestAsaokaDrains(t *testing.T) {
 	// Without De and μ there is no Ch.
 	if a, err := Asaoka([]float64{1, 2, 3, 4, 5}, []float64{0.1, 0.15, 0.18, 0.2, 0.21}, 0, AsaokaOptions{}); err != nil || a.Ch != 0 {
 		t.Errorf("Ch %v without drains (err %v)", a, err)
+	}
+}
+
+// DrainCh takes the vertical decay from a prediction's Uv: with a
+// prediction built by hand from Terzaghi's (1943) series (not the solver)
+// and a record from Carrillo's (1942) product as in TestAsaokaDrains, it
+// gives back the ch of the record within 1 %; without drain results it
+// says so.
+func TestDrainCh(t *testing.T) {
+	t.Parallel()
+	const (
+		ch, cv = 0.005, 0.008
+		de, mu = 1.6, 2.6
+		d      = 3.0
+	)
+	var ts, ss []float64
+	for tm := 300.0; tm <= 900; tm += 30 {
+		uv := series.TerzaghiU(cv * tm / (d * d))
+		ts = append(ts, tm)
+		ss = append(ss, 0.9*(1-(1-uv)*math.Exp(-8*ch*tm/(de*de*mu))))
+	}
+	a, err := Asaoka(ts, ss, 60, AsaokaOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	r := &solver.Result{Consolidation: &solver.Consolidation{}, Drains: &solver.DrainResult{
+		Cell: solver.DrainCell{De: de, Mu0: mu}, Depth: []float64{0, d}, Mu: []float64{mu, mu}}}
+	for tm := 0.0; tm <= 2000; tm += 1 {
+		r.Consolidation.Series.Time = append(r.Consolidation.Series.Time, tm)
+		r.Drains.Uv = append(r.Drains.Uv, series.TerzaghiU(cv*tm/(d*d)))
+	}
+	got, ok := DrainCh(a, r)
+	if !ok || math.Abs(got-ch) > 0.01*ch {
+		t.Errorf("DrainCh = %.6g (ok %v), want %g ± 1 %%", got, ok, ch)
+	}
+	if _, ok := DrainCh(a, &solver.Result{}); ok {
+		t.Error("DrainCh without drain results")
 	}
 }
