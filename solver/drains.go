@@ -3,7 +3,6 @@ package solver
 import (
 	"fmt"
 	"math"
-	"sort"
 
 	"porelight/solver/drain"
 	"porelight/solver/fem"
@@ -442,33 +441,17 @@ func (c *column) drainReference(st *Steady, r *Result, opt *Options, both bool) 
 	dr.Uv = make([]float64, len(ser.Time))
 	dr.Uh = make([]float64, len(ser.Time))
 	for i, t := range ser.Time {
-		dr.Uv[i] = interpolateSeries(sv.Time, sv.Us, t)
-		dr.Uh[i] = interpolateSeries(sh.Time, sh.Us, t)
+		dr.Uv[i] = SeriesAt(sv.Time, sv.Us, t)
+		dr.Uh[i] = SeriesAt(sh.Time, sh.Us, t)
 	}
 	for _, t := range c.p.Times {
 		dr.AtTimes = append(dr.AtTimes, DrainDegree{Time: t,
-			U: interpolateSeries(ser.Time, ser.Us, t), Uv: interpolateSeries(sv.Time, sv.Us, t), Uh: interpolateSeries(sh.Time, sh.Us, t)})
+			U: SeriesAt(ser.Time, ser.Us, t), Uv: SeriesAt(sv.Time, sv.Us, t), Uh: SeriesAt(sh.Time, sh.Us, t)})
 	}
 	dr.T90Vertical = rv.Summary.T90
 	dr.TTargetVertical = rv.Summary.TTarget
 	dr.T90Radial = rh.Summary.T90
 	return nil
-}
-
-// interpolateSeries reads ys at time t, linear between the samples ts
-// (increasing) and constant beyond them.
-func interpolateSeries(ts, ys []float64, t float64) float64 {
-	i := sort.SearchFloat64s(ts, t)
-	switch {
-	case i == 0:
-		return ys[0]
-	case i == len(ts):
-		return ys[len(ys)-1]
-	case ts[i] == t:
-		return ys[i]
-	}
-	f := (t - ts[i-1]) / (ts[i] - ts[i-1])
-	return ys[i-1] + f*(ys[i]-ys[i-1])
 }
 
 // drainSeries is the number of series per time step the drains add to a

@@ -66,7 +66,7 @@ func DegreeAt(p *Project, spacing, t, degree float64, opt *Options) (u float64, 
 		return 0, nil, ps
 	}
 	s := r.Consolidation.Series
-	return interpolateSeries(s.Time, s.Us, t), r.Summary.TTarget, nil
+	return SeriesAt(s.Time, s.Us, t), r.Summary.TTarget, nil
 }
 
 // designCopy is p with the drains at spacing, t among the output times
