@@ -5,7 +5,6 @@ package static_test
 import (
 	"context"
 	"os"
-	"path/filepath"
 	"strconv"
 	"strings"
 	"testing"
@@ -25,34 +24,18 @@ import (
 // page fits 1366 and 400 px wide windows without sideways scrolling, and
 // nothing goes to the network or the console.
 func TestE2EDrains(t *testing.T) {
-	if testing.Short() {
-		t.Skip("browser tests are skipped in -short mode")
-	}
-	if _, err := os.ReadFile(pagePath); err != nil {
-		if required() {
-			t.Fatalf("%v: run `make page` first", err)
-		}
-		t.Skipf("%v: run `make page` first", err)
-	}
-	abs, err := filepath.Abs(pagePath)
-	if err != nil {
-		t.Fatal(err)
-	}
+	pageURL, demo := builtPage(t)
 	shots, err := os.MkdirTemp("", "porelight-e2e-drains-")
 	if err != nil {
 		t.Fatal(err)
 	}
 	rec := &recorder{}
 	ctx := browser(t, rec)
-	within(t, ctx, 60*time.Second, chromedp.Navigate("file://"+abs))
+	within(t, ctx, 60*time.Second, chromedp.Navigate(pageURL))
 	poll[bool](t, ctx, `!!document.getElementById("sum-flux")?.dataset.value`, 45*time.Second)
 	eval[chromedp.Void](t, ctx, `document.getElementById("drains-on").click()`)
 	poll[bool](t, ctx, `!!document.getElementById("sum-drains-0")`, 45*time.Second)
 
-	demo, err := os.ReadFile("../testdata/demo.json")
-	if err != nil {
-		t.Fatal(err)
-	}
 	p := mustDecode(t, demo)
 	p.Drains = &solver.Drains{Pattern: "triangular", Spacing: 1.5, Width: 0.1, Thickness: 0.004}
 	native, err := solver.Solve(p, nil)
