@@ -8,14 +8,7 @@ import (
 // BenchmarkDemo solves the demo project (testdata/demo.json) with its own
 // settings: steady state, consolidation, e–log path and summary.
 func BenchmarkDemo(b *testing.B) {
-	data, err := os.ReadFile("../testdata/demo.json")
-	if err != nil {
-		b.Fatal(err)
-	}
-	p, err := Decode(data)
-	if err != nil {
-		b.Fatal(err)
-	}
+	p := demoProject(b)
 	b.ReportAllocs()
 	for b.Loop() {
 		if _, err := Solve(p, nil); err != nil {
@@ -93,4 +86,18 @@ func benchDrains(b *testing.B, d *Drains) {
 			b.Fatal(err)
 		}
 	}
+}
+
+// demoProject decodes testdata/demo.json.
+func demoProject(tb testing.TB) *Project {
+	tb.Helper()
+	data, err := os.ReadFile("../testdata/demo.json")
+	if err != nil {
+		tb.Fatal(err)
+	}
+	p, err := Decode(data)
+	if err != nil {
+		tb.Fatal(err)
+	}
+	return p
 }
