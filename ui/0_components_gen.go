@@ -14,6 +14,8 @@ import (
 	"porelight/ui/plot"
 )
 
+import "porelight/ui/form"
+
 import (
 	"strings"
 )
@@ -1711,240 +1713,73 @@ func (c *Drains) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 					_ = vgparent
 					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 					vgparent.AppendChild(vgn)
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-pattern"}}}
-					vgparent.AppendChild(vgn)
-					{
-						vgparent := vgn
-						_ = vgparent
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+					for vgiterkeyt, sel := range c.selects() {
+						var vgiterkey interface{} = vgiterkeyt
+						_ = vgiterkey
+						sel := sel
+						_ = sel
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}}}
 						vgparent.AppendChild(vgn)
-						vgn.SetInnerHTML(vugu.HTML("Pattern"))
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "select", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "drains-pattern"}}}
-						vgparent.AppendChild(vgn)
-						{
-							b, err := vjson.Marshal(c.value("pattern", "triangular"))
-							if err != nil {
-								panic(err)
-							}
-							vgn.Prop = append(vgn.Prop, vugu.VGProperty{Key: "value", JSONVal: vjson.RawMessage(b)})
-						}
-						vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
-							EventType: "change",
-							Func:      func(event vugu.DOMEvent) { c.pick("pattern", event) },
-							// TODO: implement capture, etc. mostly need to decide syntax
-						})
-						{
-							vgparent := vgn
-							_ = vgparent
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "triangular"}}}
-							vgparent.AppendChild(vgn)
-							vgn.AddAttrInterface("selected", c.d().Pattern == "triangular")
-							{
-								vgparent := vgn
-								_ = vgparent
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "triangular (De = 1.05 s)"}
-								vgparent.AppendChild(vgn)
-							}
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "square"}}}
-							vgparent.AppendChild(vgn)
-							vgn.AddAttrInterface("selected", c.d().Pattern == "square")
-							{
-								vgparent := vgn
-								_ = vgparent
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "square (De = 1.128 s)"}
-								vgparent.AppendChild(vgn)
-							}
-						}
-					}
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-					vgparent.AppendChild(vgn)
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-spacing"}}}
-					vgparent.AppendChild(vgn)
-					{
-						vgparent := vgn
-						_ = vgparent
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
-						vgparent.AppendChild(vgn)
-						vgn.SetInnerHTML(vugu.HTML("Spacing s"))
-						{
-							vgcompKey := vugu.MakeCompKey(0xFBA077A7AD895559^vgin.CurrentPositionHash(), vgiterkey)
-							// ask BuildEnv for prior instance of this specific component
-							vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-							if vgcomp == nil {
-								// create new one if needed
-								vgcomp = new(Field)
-								vgin.BuildEnv.WireComponent(vgcomp)
-							}
-							vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-							vgcomp.Changed = c.Changed
-							vgcomp.F = c.F
-							vgcomp.Label = "Drain spacing"
-							vgcomp.Path = "drains.spacing"
-							vgcomp.Unit = "m"
-							vgout.Components = append(vgout.Components, vgcomp)
-							vgn = &vugu.VGNode{Component: vgcomp}
-							vgparent.AppendChild(vgn)
-						}
-					}
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-					vgparent.AppendChild(vgn)
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-size"}}}
-					vgparent.AppendChild(vgn)
-					{
-						vgparent := vgn
-						_ = vgparent
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
-						vgparent.AppendChild(vgn)
-						vgn.SetInnerHTML(vugu.HTML("Drain"))
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "select", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "drains-size"}}}
-						vgparent.AppendChild(vgn)
-						vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
-							EventType: "change",
-							Func:      func(event vugu.DOMEvent) { c.setSize(event) },
-							// TODO: implement capture, etc. mostly need to decide syntax
-						})
-						{
-							vgparent := vgn
-							_ = vgparent
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "band"}}}
-							vgparent.AppendChild(vgn)
-							vgn.AddAttrInterface("selected", c.band())
-							{
-								vgparent := vgn
-								_ = vgparent
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "band a × b"}
-								vgparent.AppendChild(vgn)
-							}
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "round"}}}
-							vgparent.AppendChild(vgn)
-							vgn.AddAttrInterface("selected", !c.band())
-							{
-								vgparent := vgn
-								_ = vgparent
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "round, diameter"}
-								vgparent.AppendChild(vgn)
-							}
-						}
-					}
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-					vgparent.AppendChild(vgn)
-					if c.band() {
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-width"}}}
-						vgparent.AppendChild(vgn)
+						vgn.AddAttrInterface("for", sel.ID)
 						{
 							vgparent := vgn
 							_ = vgparent
 							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
 							vgparent.AppendChild(vgn)
-							vgn.SetInnerHTML(vugu.HTML("Width a"))
-							{
-								vgcompKey := vugu.MakeCompKey(0xB4E5FA1E614B7CF9^vgin.CurrentPositionHash(), vgiterkey)
-								// ask BuildEnv for prior instance of this specific component
-								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-								if vgcomp == nil {
-									// create new one if needed
-									vgcomp = new(Field)
-									vgin.BuildEnv.WireComponent(vgcomp)
-								}
-								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-								vgcomp.Changed = c.Changed
-								vgcomp.F = c.F
-								vgcomp.Label = "Band drain width"
-								vgcomp.Path = "drains.width"
-								vgcomp.Unit = "m"
-								vgout.Components = append(vgout.Components, vgcomp)
-								vgn = &vugu.VGNode{Component: vgcomp}
-								vgparent.AppendChild(vgn)
-							}
-						}
-					}
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-					vgparent.AppendChild(vgn)
-					if c.band() {
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-thickness"}}}
-						vgparent.AppendChild(vgn)
-						{
-							vgparent := vgn
-							_ = vgparent
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+							vgn.SetInnerHTML(sel.Span)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "select", Attr: []vugu.VGAttribute(nil)}
 							vgparent.AppendChild(vgn)
-							vgn.SetInnerHTML(vugu.HTML("Thickness b"))
-							{
-								vgcompKey := vugu.MakeCompKey(0x2441398B0B6B108E^vgin.CurrentPositionHash(), vgiterkey)
-								// ask BuildEnv for prior instance of this specific component
-								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-								if vgcomp == nil {
-									// create new one if needed
-									vgcomp = new(Field)
-									vgin.BuildEnv.WireComponent(vgcomp)
-								}
-								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-								vgcomp.Changed = c.Changed
-								vgcomp.F = c.F
-								vgcomp.Label = "Band drain thickness"
-								vgcomp.Path = "drains.thickness"
-								vgcomp.Unit = "m"
-								vgout.Components = append(vgout.Components, vgcomp)
-								vgn = &vugu.VGNode{Component: vgcomp}
-								vgparent.AppendChild(vgn)
-							}
-						}
-					}
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-					vgparent.AppendChild(vgn)
-					if c.band() {
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-equivalent"}}}
-						vgparent.AppendChild(vgn)
-						{
-							vgparent := vgn
-							_ = vgparent
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
-							vgparent.AppendChild(vgn)
-							vgn.SetInnerHTML(vugu.HTML("Equivalent dw"))
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "select", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "drains-equivalent"}}}
-							vgparent.AppendChild(vgn)
+							vgn.AddAttrInterface("id", sel.ID)
 							vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
 								EventType: "change",
-								Func:      func(event vugu.DOMEvent) { c.pick("equivalent", event) },
+								Func:      func(event vugu.DOMEvent) { c.choose(sel.ID, event) },
 								// TODO: implement capture, etc. mostly need to decide syntax
 							})
 							{
 								vgparent := vgn
 								_ = vgparent
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "perimeter"}}}
-								vgparent.AppendChild(vgn)
-								vgn.AddAttrInterface("selected", c.d().Equivalent != "mean")
-								{
-									vgparent := vgn
-									_ = vgparent
-									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "2(a+b)/π (Hansbo 1979)"}
+								for vgiterkeyt, o := range sel.Options {
+									var vgiterkey interface{} = vgiterkeyt
+									_ = vgiterkey
+									o := o
+									_ = o
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute(nil)}
 									vgparent.AppendChild(vgn)
-								}
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "mean"}}}
-								vgparent.AppendChild(vgn)
-								vgn.AddAttrInterface("selected", c.d().Equivalent == "mean")
-								{
-									vgparent := vgn
-									_ = vgparent
-									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "(a+b)/2 (Rixner et al. 1986)"}
-									vgparent.AppendChild(vgn)
+									vgn.AddAttrInterface("selected", o.Selected)
+									vgn.AddAttrInterface("value", o.Value)
+									vgn.SetInnerHTML(o.Text)
 								}
 							}
 						}
 					}
 					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 					vgparent.AppendChild(vgn)
-					if !c.band() {
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-diameter"}}}
+				}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pairs"}}}
+				vgparent.AppendChild(vgn)
+				{
+					vgparent := vgn
+					_ = vgparent
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					for vgiterkeyt, f := range c.fields() {
+						var vgiterkey interface{} = vgiterkeyt
+						_ = vgiterkey
+						f := f
+						_ = f
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}}}
 						vgparent.AppendChild(vgn)
+						vgn.AddAttrInterface("for", form.IDOf(f.Path))
 						{
 							vgparent := vgn
 							_ = vgparent
 							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
 							vgparent.AppendChild(vgn)
-							vgn.SetInnerHTML(vugu.HTML("Diameter dw"))
+							vgn.SetInnerHTML(f.Span)
 							{
-								vgcompKey := vugu.MakeCompKey(0x411FBB2C99BC69E8^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0xFBA077A7AD895559^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -1955,254 +1790,10 @@ func (c *Drains) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
 								vgcomp.Changed = c.Changed
 								vgcomp.F = c.F
-								vgcomp.Label = "Drain diameter"
-								vgcomp.Path = "drains.diameter"
-								vgcomp.Unit = "m"
-								vgout.Components = append(vgout.Components, vgcomp)
-								vgn = &vugu.VGNode{Component: vgcomp}
-								vgparent.AppendChild(vgn)
-							}
-						}
-					}
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-					vgparent.AppendChild(vgn)
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-smearRatio"}}}
-					vgparent.AppendChild(vgn)
-					{
-						vgparent := vgn
-						_ = vgparent
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
-						vgparent.AppendChild(vgn)
-						vgn.SetInnerHTML(vugu.HTML("Smear ds/dw"))
-						{
-							vgcompKey := vugu.MakeCompKey(0x3C08A330E5BB9F68^vgin.CurrentPositionHash(), vgiterkey)
-							// ask BuildEnv for prior instance of this specific component
-							vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-							if vgcomp == nil {
-								// create new one if needed
-								vgcomp = new(Field)
-								vgin.BuildEnv.WireComponent(vgcomp)
-							}
-							vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-							vgcomp.Changed = c.Changed
-							vgcomp.F = c.F
-							vgcomp.Hint = "Diameter of the zone disturbed by the mandrel over the drain diameter; 1: no smear"
-							vgcomp.Label = "Smear zone diameter over drain diameter"
-							vgcomp.Path = "drains.smearRatio"
-							vgcomp.Unit = "–"
-							vgout.Components = append(vgout.Components, vgcomp)
-							vgn = &vugu.VGNode{Component: vgcomp}
-							vgparent.AppendChild(vgn)
-						}
-					}
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-					vgparent.AppendChild(vgn)
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-smearK"}}}
-					vgparent.AppendChild(vgn)
-					{
-						vgparent := vgn
-						_ = vgparent
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
-						vgparent.AppendChild(vgn)
-						vgn.SetInnerHTML(vugu.HTML("kh/ks"))
-						{
-							vgcompKey := vugu.MakeCompKey(0x5838E5813628623B^vgin.CurrentPositionHash(), vgiterkey)
-							// ask BuildEnv for prior instance of this specific component
-							vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-							if vgcomp == nil {
-								// create new one if needed
-								vgcomp = new(Field)
-								vgin.BuildEnv.WireComponent(vgcomp)
-							}
-							vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-							vgcomp.Changed = c.Changed
-							vgcomp.F = c.F
-							vgcomp.Label = "Undisturbed over smeared horizontal permeability"
-							vgcomp.Path = "drains.smearK"
-							vgcomp.Unit = "–"
-							vgout.Components = append(vgout.Components, vgcomp)
-							vgn = &vugu.VGNode{Component: vgcomp}
-							vgparent.AppendChild(vgn)
-						}
-					}
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-					vgparent.AppendChild(vgn)
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-qw"}}}
-					vgparent.AppendChild(vgn)
-					{
-						vgparent := vgn
-						_ = vgparent
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
-						vgparent.AppendChild(vgn)
-						vgn.SetInnerHTML(vugu.HTML("Discharge capacity qw"))
-						{
-							vgcompKey := vugu.MakeCompKey(0xC393B99192E523CD^vgin.CurrentPositionHash(), vgiterkey)
-							// ask BuildEnv for prior instance of this specific component
-							vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-							if vgcomp == nil {
-								// create new one if needed
-								vgcomp = new(Field)
-								vgin.BuildEnv.WireComponent(vgcomp)
-							}
-							vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-							vgcomp.Changed = c.Changed
-							vgcomp.F = c.F
-							vgcomp.Hint = "Flow the drain carries under unit gradient; empty: no well resistance"
-							vgcomp.Label = "Drain discharge capacity"
-							vgcomp.Path = "drains.qw"
-							vgcomp.Unit = "m³/yr"
-							vgout.Components = append(vgout.Components, vgcomp)
-							vgn = &vugu.VGNode{Component: vgcomp}
-							vgparent.AppendChild(vgn)
-						}
-					}
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-					vgparent.AppendChild(vgn)
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-discharge"}}}
-					vgparent.AppendChild(vgn)
-					{
-						vgparent := vgn
-						_ = vgparent
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
-						vgparent.AppendChild(vgn)
-						vgn.SetInnerHTML(vugu.HTML("Discharge at"))
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "select", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "drains-discharge"}}}
-						vgparent.AppendChild(vgn)
-						vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
-							EventType: "change",
-							Func:      func(event vugu.DOMEvent) { c.pick("discharge", event) },
-							// TODO: implement capture, etc. mostly need to decide syntax
-						})
-						{
-							vgparent := vgn
-							_ = vgparent
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "top"}}}
-							vgparent.AppendChild(vgn)
-							vgn.AddAttrInterface("selected", c.d().Discharge == "" || c.d().Discharge == "top")
-							{
-								vgparent := vgn
-								_ = vgparent
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "top"}
-								vgparent.AppendChild(vgn)
-							}
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "base"}}}
-							vgparent.AppendChild(vgn)
-							vgn.AddAttrInterface("selected", c.d().Discharge == "base")
-							{
-								vgparent := vgn
-								_ = vgparent
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "base"}
-								vgparent.AppendChild(vgn)
-							}
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "both"}}}
-							vgparent.AppendChild(vgn)
-							vgn.AddAttrInterface("selected", c.d().Discharge == "both")
-							{
-								vgparent := vgn
-								_ = vgparent
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "top and base"}
-								vgparent.AppendChild(vgn)
-							}
-						}
-					}
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-					vgparent.AppendChild(vgn)
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-top"}}}
-					vgparent.AppendChild(vgn)
-					{
-						vgparent := vgn
-						_ = vgparent
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
-						vgparent.AppendChild(vgn)
-						vgn.SetInnerHTML(vugu.HTML("From depth"))
-						{
-							vgcompKey := vugu.MakeCompKey(0xB914C38AA812C3EF^vgin.CurrentPositionHash(), vgiterkey)
-							// ask BuildEnv for prior instance of this specific component
-							vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-							if vgcomp == nil {
-								// create new one if needed
-								vgcomp = new(Field)
-								vgin.BuildEnv.WireComponent(vgcomp)
-							}
-							vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-							vgcomp.Changed = c.Changed
-							vgcomp.F = c.F
-							vgcomp.Label = "Depth where the drains start"
-							vgcomp.Path = "drains.top"
-							vgcomp.Unit = "m"
-							vgout.Components = append(vgout.Components, vgcomp)
-							vgn = &vugu.VGNode{Component: vgcomp}
-							vgparent.AppendChild(vgn)
-						}
-					}
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-					vgparent.AppendChild(vgn)
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-tip"}}}
-					vgparent.AppendChild(vgn)
-					{
-						vgparent := vgn
-						_ = vgparent
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
-						vgparent.AppendChild(vgn)
-						vgn.SetInnerHTML(vugu.HTML("Down to"))
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "select", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "drains-tip"}}}
-						vgparent.AppendChild(vgn)
-						vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
-							EventType: "change",
-							Func:      func(event vugu.DOMEvent) { c.setTip(event) },
-							// TODO: implement capture, etc. mostly need to decide syntax
-						})
-						{
-							vgparent := vgn
-							_ = vgparent
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "depth"}}}
-							vgparent.AppendChild(vgn)
-							vgn.AddAttrInterface("selected", c.tip() == "depth")
-							{
-								vgparent := vgn
-								_ = vgparent
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "a depth"}
-								vgparent.AppendChild(vgn)
-							}
-							for i := range c.F.Draft().Layers {
-								var vgiterkey interface{} = i
-								_ = vgiterkey
-								i := i
-								_ = i
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute(nil)}
-								vgparent.AppendChild(vgn)
-								vgn.AddAttrInterface("selected", c.tip() == fmt.Sprint(i))
-								vgn.AddAttrInterface("value", i)
-								vgn.SetInnerHTML("base of " + c.layerName(i))
-							}
-						}
-					}
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-					vgparent.AppendChild(vgn)
-					if c.tip() == "depth" {
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-depth"}}}
-						vgparent.AppendChild(vgn)
-						{
-							vgparent := vgn
-							_ = vgparent
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
-							vgparent.AppendChild(vgn)
-							vgn.SetInnerHTML(vugu.HTML("Tip depth"))
-							{
-								vgcompKey := vugu.MakeCompKey(0x578F9E9F0435831F^vgin.CurrentPositionHash(), vgiterkey)
-								// ask BuildEnv for prior instance of this specific component
-								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-								if vgcomp == nil {
-									// create new one if needed
-									vgcomp = new(Field)
-									vgin.BuildEnv.WireComponent(vgcomp)
-								}
-								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-								vgcomp.Changed = c.Changed
-								vgcomp.F = c.F
-								vgcomp.Label = "Depth of the drains tip"
-								vgcomp.Path = "drains.depth"
-								vgcomp.Unit = "m"
+								vgcomp.Hint = f.Hint
+								vgcomp.Label = f.Label
+								vgcomp.Path = f.Path
+								vgcomp.Unit = f.Unit
 								vgout.Components = append(vgout.Components, vgcomp)
 								vgn = &vugu.VGNode{Component: vgcomp}
 								vgparent.AppendChild(vgn)
@@ -2303,7 +1894,7 @@ func (c *Drains) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 									vgparent := vgn
 									_ = vgparent
 									{
-										vgcompKey := vugu.MakeCompKey(0xDD0140F03A589D2^vgin.CurrentPositionHash(), vgiterkey)
+										vgcompKey := vugu.MakeCompKey(0xB4E5FA1E614B7CF9^vgin.CurrentPositionHash(), vgiterkey)
 										// ask BuildEnv for prior instance of this specific component
 										vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 										if vgcomp == nil {
@@ -2331,7 +1922,7 @@ func (c *Drains) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 									vgparent := vgn
 									_ = vgparent
 									{
-										vgcompKey := vugu.MakeCompKey(0x836AB2EB471A3F75^vgin.CurrentPositionHash(), vgiterkey)
+										vgcompKey := vugu.MakeCompKey(0x2441398B0B6B108E^vgin.CurrentPositionHash(), vgiterkey)
 										// ask BuildEnv for prior instance of this specific component
 										vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 										if vgcomp == nil {
@@ -2409,62 +2000,39 @@ func (c *Drains) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 								_ = vgparent
 								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 								vgparent.AppendChild(vgn)
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-design-degree"}}}
-								vgparent.AppendChild(vgn)
-								{
-									vgparent := vgn
-									_ = vgparent
-									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+								for vgiterkeyt, f := range c.designFields() {
+									var vgiterkey interface{} = vgiterkeyt
+									_ = vgiterkey
+									f := f
+									_ = f
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}}}
 									vgparent.AppendChild(vgn)
-									vgn.SetInnerHTML(vugu.HTML("Degree U"))
+									vgn.AddAttrInterface("for", form.IDOf(f.Path))
 									{
-										vgcompKey := vugu.MakeCompKey(0x9DFB86E8CF262ECA^vgin.CurrentPositionHash(), vgiterkey)
-										// ask BuildEnv for prior instance of this specific component
-										vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-										if vgcomp == nil {
-											// create new one if needed
-											vgcomp = new(Field)
-											vgin.BuildEnv.WireComponent(vgcomp)
-										}
-										vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-										vgcomp.Changed = c.Changed
-										vgcomp.F = c.F
-										vgcomp.Label = "Target degree of consolidation"
-										vgcomp.Path = "drains.design.degree"
-										vgcomp.Unit = "%"
-										vgout.Components = append(vgout.Components, vgcomp)
-										vgn = &vugu.VGNode{Component: vgcomp}
+										vgparent := vgn
+										_ = vgparent
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
 										vgparent.AppendChild(vgn)
-									}
-								}
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-								vgparent.AppendChild(vgn)
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "drains-design-time"}}}
-								vgparent.AppendChild(vgn)
-								{
-									vgparent := vgn
-									_ = vgparent
-									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
-									vgparent.AppendChild(vgn)
-									vgn.SetInnerHTML(vugu.HTML("by day"))
-									{
-										vgcompKey := vugu.MakeCompKey(0x6127AA944D2EA980^vgin.CurrentPositionHash(), vgiterkey)
-										// ask BuildEnv for prior instance of this specific component
-										vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-										if vgcomp == nil {
-											// create new one if needed
-											vgcomp = new(Field)
-											vgin.BuildEnv.WireComponent(vgcomp)
+										vgn.SetInnerHTML(f.Span)
+										{
+											vgcompKey := vugu.MakeCompKey(0x411FBB2C99BC69E8^vgin.CurrentPositionHash(), vgiterkey)
+											// ask BuildEnv for prior instance of this specific component
+											vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+											if vgcomp == nil {
+												// create new one if needed
+												vgcomp = new(Field)
+												vgin.BuildEnv.WireComponent(vgcomp)
+											}
+											vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+											vgcomp.Changed = c.Changed
+											vgcomp.F = c.F
+											vgcomp.Label = f.Label
+											vgcomp.Path = f.Path
+											vgcomp.Unit = f.Unit
+											vgout.Components = append(vgout.Components, vgcomp)
+											vgn = &vugu.VGNode{Component: vgcomp}
+											vgparent.AppendChild(vgn)
 										}
-										vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-										vgcomp.Changed = c.Changed
-										vgcomp.F = c.F
-										vgcomp.Label = "Time by which the degree is reached"
-										vgcomp.Path = "drains.design.time"
-										vgcomp.Unit = "day"
-										vgout.Components = append(vgout.Components, vgcomp)
-										vgn = &vugu.VGNode{Component: vgcomp}
-										vgparent.AppendChild(vgn)
 									}
 								}
 								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}

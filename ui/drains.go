@@ -53,13 +53,6 @@ func (c *Drains) setSize(e vugu.DOMEvent) {
 	c.Changed()
 }
 
-func (c *Drains) value(name, def string) string {
-	if s := c.F.Text(drainPath(name)); s != "" {
-		return s
-	}
-	return def
-}
-
 // tip is the select's value: "depth" or the layer index.
 func (c *Drains) tip() string {
 	if t := c.d().ToLayer; t != nil {
@@ -165,5 +158,91 @@ func (c *Drains) rowTime(r solver.SpacingRow) string {
 func (c *Drains) useFound() {
 	if c.D != nil && c.D.res != nil && c.Use != nil {
 		c.Use(c.D.res.Spacing)
+	}
+}
+
+// drainField is one numeric input of the drains editor.
+type drainField struct{ Path, Span, Label, Unit, Hint string }
+
+// fields are the drains' numeric inputs, those of the drain's kind and
+// of the tip's choice only.
+func (c *Drains) fields() []drainField {
+	fs := []drainField{{Path: "drains.spacing", Span: "Spacing s", Label: "Drain spacing", Unit: "m"}}
+	if c.band() {
+		fs = append(fs, drainField{Path: "drains.width", Span: "Width a", Label: "Band drain width", Unit: "m"},
+			drainField{Path: "drains.thickness", Span: "Thickness b", Label: "Band drain thickness", Unit: "m"})
+	} else {
+		fs = append(fs, drainField{Path: "drains.diameter", Span: "Diameter dw", Label: "Drain diameter", Unit: "m"})
+	}
+	fs = append(fs,
+		drainField{Path: "drains.smearRatio", Span: "Smear ds/dw", Label: "Smear zone diameter over drain diameter", Unit: "–",
+			Hint: "Diameter of the zone disturbed by the mandrel over the drain diameter; 1: no smear"},
+		drainField{Path: "drains.smearK", Span: "kh/ks", Label: "Undisturbed over smeared horizontal permeability", Unit: "–"},
+		drainField{Path: "drains.qw", Span: "Discharge capacity qw", Label: "Drain discharge capacity", Unit: "m³/yr",
+			Hint: "Flow the drain carries under unit gradient; empty: no well resistance"},
+		drainField{Path: "drains.top", Span: "From depth", Label: "Depth where the drains start", Unit: "m"})
+	if c.tip() == "depth" {
+		fs = append(fs, drainField{Path: "drains.depth", Span: "Tip depth", Label: "Depth of the drains tip", Unit: "m"})
+	}
+	return fs
+}
+
+// designFields are the inputs of the design question.
+func (c *Drains) designFields() []drainField {
+	return []drainField{
+		{Path: "drains.design.degree", Span: "Degree U", Label: "Target degree of consolidation", Unit: "%"},
+		{Path: "drains.design.time", Span: "by day", Label: "Time by which the degree is reached", Unit: "day"},
+	}
+}
+
+// drainSelect is one choice of the drains editor, and drainOption one of
+// its options.
+type drainSelect struct {
+	ID, Span string
+	Options  []drainOption
+}
+
+type drainOption struct {
+	Value, Text string
+	Selected    bool
+}
+
+// selects are the drains' choices: pattern, kind of drain, a band's
+// equivalent diameter, the discharge and the tip.
+func (c *Drains) selects() []drainSelect {
+	d := c.d()
+	opt := func(v, text string, on bool) drainOption { return drainOption{v, text, on} }
+	out := []drainSelect{
+		{"drains-pattern", "Pattern", []drainOption{
+			opt("triangular", "triangular (De = 1.05 s)", d.Pattern == "triangular"),
+			opt("square", "square (De = 1.128 s)", d.Pattern == "square")}},
+		{"drains-size", "Drain", []drainOption{
+			opt("band", "band a × b", c.band()), opt("round", "round, diameter", !c.band())}},
+	}
+	if c.band() {
+		out = append(out, drainSelect{"drains-equivalent", "Equivalent dw", []drainOption{
+			opt("perimeter", "2(a+b)/π (Hansbo 1979)", d.Equivalent != "mean"),
+			opt("mean", "(a+b)/2 (Rixner et al. 1986)", d.Equivalent == "mean")}})
+	}
+	out = append(out, drainSelect{"drains-discharge", "Discharge at", []drainOption{
+		opt("top", "top", d.Discharge == "" || d.Discharge == "top"),
+		opt("base", "base", d.Discharge == "base"), opt("both", "top and base", d.Discharge == "both")}})
+	tip := drainSelect{ID: "drains-tip", Span: "Down to", Options: []drainOption{opt("depth", "a depth", c.tip() == "depth")}}
+	for i := range c.F.Draft().Layers {
+		v := strconv.Itoa(i)
+		tip.Options = append(tip.Options, opt(v, "base of "+c.layerName(i), c.tip() == v))
+	}
+	return append(out, tip)
+}
+
+// choose takes the choice made in select id.
+func (c *Drains) choose(id string, e vugu.DOMEvent) {
+	switch id {
+	case "drains-size":
+		c.setSize(e)
+	case "drains-tip":
+		c.setTip(e)
+	default:
+		c.pick(strings.TrimPrefix(id, "drains-"), e)
 	}
 }
