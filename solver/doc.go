@@ -187,9 +187,13 @@
 // ends. ch is a layer's Ch, or KhKv·cv (kh = KhKv·k); the well term uses
 // kh = ch mv γw.
 //
-// The drains hold the excess pore pressure at zero at their outlet (they
-// discharge freely); a pressure history at a drained end is refused with
-// drains. Result.Drains gives the cell, μ along the drains, and the
+// The drains discharge freely at their outlet and carry its pressure
+// change ud(t) (zero unless the outlet end has a pressure history): the
+// sink is mv (8 ch/(De² μ)) (ū − ud). Since the conductivity matrix
+// annihilates a uniform shift, each step is taken on ū − ud with the
+// source σ − ud. The final state is then ud(∞) everywhere, so a history
+// is allowed only at the outlet, with the other end undrained or holding
+// the same history. Result.Drains gives the cell, μ along the drains, and the
 // degrees Uv (vertical flow alone, no drains) and Uh (radial flow to the
 // drains alone, no vertical flow), two more solves on the same mesh and
 // steps, relative to the same final state as Us; under one instantaneous
@@ -332,7 +336,8 @@
 //	drains.toLayer            –       a layer index; not with depth   ErrOutOfRange, ErrConflict
 //	drains.design.degree      –       0 < value < 1 (absent: 0.9)     ErrOutOfRange
 //	drains.design.time        day     > 0 … MaxTime                   ErrNotPositive, ErrOutOfRange
-//	top|bottom.excess         –       not with drains                 ErrConflict
+//	top|bottom.excess         –       with drains: at the outlet only ErrConflict
+//	                                  (or the same at both ends)
 //
 // Inside the bounds every output of Solve is finite: Solve checks it and
 // would refuse a non-finite one with ErrNumerical at the field most

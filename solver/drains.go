@@ -3,6 +3,7 @@ package solver
 import (
 	"fmt"
 	"math"
+	"slices"
 
 	"porelight/solver/drain"
 	"porelight/solver/fem"
@@ -295,13 +296,25 @@ func validDrains(ps *Problems, p *Project, height float64) {
 		}
 		bounded(ps, at("design.time"), des.Time, 0, MaxTime, "days")
 	}
-	for _, b := range []struct {
-		at string
-		b  Boundary
-	}{{"top.excess", p.Top}, {"bottom.excess", p.Bottom}} {
-		if len(b.b.Excess) > 0 {
-			ps.Add(b.at, ErrConflict, "a pressure history at a drained end is not modelled together with drains (the drains would carry it too); remove one of them")
+	// A pressure history with drains: the drains carry the pressure of
+	// their outlet, so the final state is that pressure everywhere; the
+	// other end must then be undrained or hold the same history.
+	disc := drain.Discharge(d.Discharge)
+	top, bot := len(p.Top.Excess) > 0, len(p.Bottom.Excess) > 0
+	same := slices.Equal(p.Top.Excess, p.Bottom.Excess)
+	switch {
+	case (disc == "" || disc == drain.Top) && bot && !same:
+		ps.Add("bottom.excess", ErrConflict, "with drains discharging at the top, a pressure history is modelled only at the top (the drains' outlet), or the same one at both ends")
+	case disc == drain.Base && top && !same:
+		ps.Add("top.excess", ErrConflict, "with drains discharging at the base, a pressure history is modelled only at the base (the drains' outlet), or the same one at both ends")
+	case disc == drain.Both && (top || bot) && !same:
+		ps.Add("drains.discharge", ErrConflict, "drains discharging at both ends need the same pressure history at both ends")
+	case top != bot && p.Top.Drained && p.Bottom.Drained:
+		at := "top.excess"
+		if bot {
+			at = "bottom.excess"
 		}
+		ps.Add(at, ErrConflict, "with drains and both ends drained, give the same pressure history at both ends (or make the other end undrained): the drains carry their outlet's pressure through the column")
 	}
 }
 
@@ -461,4 +474,47 @@ func drainSeries(p *Project) int {
 		return 0
 	}
 	return 2
+}
+
+// outlet is the pressure history at the drains' outlet, the end they
+// discharge at (the top's for "both", which Validate requires to equal
+// the base's), or nil without drains or without a history there.
+func (tr *transient) outlet() []TimeValue {
+	dc := tr.c.drains
+	if dc == nil {
+		return nil
+	}
+	h := tr.c.p.Top.Excess
+	if dc.Discharge == string(drain.Base) {
+		h = tr.c.p.Bottom.Excess
+	}
+	if len(h) == 0 {
+		return nil
+	}
+	return h
+}
+
+// shiftToOutlet prepares a step from t0 to t1 when the drains' outlet
+// pressure ud(t) changes: the sink draws ū toward ud, so the step is
+// taken on v = u − ud (the conductivity matrix annihilates a uniform
+// shift), with the source σ − ud and the held values less ud(t1). On
+// return tr.u holds v⁰ and tr.next the held v¹; step adds ud(t1) back
+// after the step. ds is the load's change over the step (nil: none); the
+// returned source change includes −(ud(t1) − ud(t0)).
+func (tr *transient) shiftToOutlet(out []TimeValue, ds []float64, t0, t1 float64) []float64 {
+	ud0, ud1 := historyAt(out, t0, false), historyAt(out, t1, true)
+	for i := range tr.u {
+		tr.u[i] -= ud0
+	}
+	for i := range tr.next {
+		tr.next[i] -= ud1
+	}
+	if ds == nil {
+		ds = tr.tmp
+		clear(ds)
+	}
+	for i := range ds {
+		ds[i] -= ud1 - ud0
+	}
+	return ds
 }

@@ -252,7 +252,8 @@ func TestDrainsValidate(t *testing.T) {
 		{"tip and layer", func(p *Project) { p.Drains.Depth, p.Drains.ToLayer = 5, new(int) }, "drains.toLayer"},
 		{"no such layer", func(p *Project) { p.Drains.ToLayer = &three }, "drains.toLayer"},
 		{"top below tip", func(p *Project) { p.Drains.Top, p.Drains.Depth = 6, 5 }, "drains.top"},
-		{"excess history", func(p *Project) { p.Top.Excess = []TimeValue{{T: 1, Value: -5}} }, "top.excess"},
+		{"history at the far end", func(p *Project) { p.Bottom.Drained, p.Bottom.Excess = true, []TimeValue{{T: 1, Value: -5}} }, "bottom.excess"},
+		{"history at one of two drained ends", func(p *Project) { p.Bottom.Drained, p.Top.Excess = true, []TimeValue{{T: 1, Value: -5}} }, "top.excess"},
 		{"negative ch", func(p *Project) { p.Layers[0].Ch = -1 }, "layers[0].ch"},
 		{"ch and khKv", func(p *Project) { p.Layers[0].Ch, p.Layers[0].KhKv = 0.01, 2 }, "layers[0].khKv"},
 		{"NaN khKv", func(p *Project) { p.Layers[0].KhKv = math.NaN() }, "layers[0].khKv"},
@@ -335,5 +336,52 @@ func TestDrainsLayersRamp(t *testing.T) {
 		if got := seriesAt(t, ser.Time, ser.Us, tm); math.Abs(got-want) > 0.002 {
 			t.Errorf("t = %g days: Us = %.5f, unit-cell ODE %.5f", tm, got, want)
 		}
+	}
+}
+
+// A drawdown at the drains' outlet: the drains carry the outlet's
+// pressure ud(t), so with vertical flow negligible the cell-averaged
+// excess follows ū' = −λ(ū − ud(t)) (the unit cell, Barron 1948, with the
+// drain at ud instead of 0). For ud falling linearly to −20 kPa over 10
+// days, ū = −2[t − (1 − e^(−λt))/λ] while it falls and relaxes to −20 as
+// e^(−λ(t − 10)) after; the piezometers at 3 and 7 m agree within
+// 0.05 kPa, and the column ends at −20 kPa everywhere (± 0.01).
+func TestDrainsOutletDrawdown(t *testing.T) {
+	t.Parallel()
+	p := &Project{
+		Format:      Format,
+		Layers:      []Layer{{Name: "clay", Thickness: 10, GammaSat: 18, K: 1e-14, Mv: 1e-3, Ch: 0.02}},
+		Top:         Boundary{Drained: true, Excess: []TimeValue{{T: 0, Value: 0}, {T: 10, Value: -20}}},
+		Drains:      &Drains{Pattern: "square", Spacing: 1.6, Diameter: 0.05},
+		Times:       []float64{2, 5, 10, 20, 50, 100, 300},
+		Piezometers: []float64{3, 7},
+	}
+	de := 1.6 * math.Sqrt(4/math.Pi)
+	n := de / 0.05
+	f := n*n/(n*n-1)*math.Log(n) - (3*n*n-1)/(4*n*n)
+	lam := 8 * 0.02 / (de * de * f)
+	ubar := func(tm float64) float64 {
+		if tm <= 10 {
+			return -2 * (tm - (1-math.Exp(-lam*tm))/lam)
+		}
+		u10 := -2 * (10 - (1-math.Exp(-lam*10))/lam)
+		e := math.Exp(-lam * (tm - 10))
+		return u10*e - 20*(1-e)
+	}
+	r, err := Solve(p, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	ser := r.Consolidation.Series
+	for _, tm := range p.Times {
+		for j := range p.Piezometers {
+			if got, want := seriesAt(t, ser.Time, ser.Piezometers[j].Excess, tm), ubar(tm); math.Abs(got-want) > 0.05 {
+				t.Errorf("t = %g days, z = %g m: u = %.4f kPa, unit cell %.4f", tm, p.Piezometers[j], got, want)
+			}
+		}
+	}
+	last := r.Consolidation.Series.Piezometers[0].Excess
+	if u := last[len(last)-1]; math.Abs(u+20) > 0.01 {
+		t.Errorf("final excess %.4f kPa, want −20", u)
 	}
 }

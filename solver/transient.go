@@ -192,8 +192,17 @@ func (tr *transient) step(theta, t0, dt float64) error {
 		ds = tr.tmp
 	}
 	tr.heldValues(tr.next, t0+dt, true)
+	if out := tr.outlet(); out != nil {
+		ds = tr.shiftToOutlet(out, ds, t0, t0+dt)
+	}
 	if err := tr.stepper.Step(tr.u, ds, tr.next, theta, dt); err != nil {
 		return tr.c.numerical(err, fmt.Sprintf("the consolidation step from %.4g to %.4g days", t0, t0+dt))
+	}
+	if out := tr.outlet(); out != nil {
+		ud1 := historyAt(out, t0+dt, true)
+		for i := range tr.u {
+			tr.u[i] += ud1
+		}
 	}
 	return nil
 }
@@ -232,8 +241,13 @@ func (tr *transient) final() (sigma, u []float64, err error) {
 		if tr.c.drains == nil {
 			copy(u, sigma)
 		}
-		// With drains (and no pressure history at an end, which Validate
-		// refuses with drains) everything drains to u = 0.
+		// With drains everything drains to the drains' final outlet
+		// pressure (Validate allows a history only where that is the
+		// pressure held at every drained end too).
+		ud := historyAt(tr.outlet(), math.Inf(1), false)
+		for i := range u {
+			u[i] += ud
+		}
 		return sigma, u, nil
 	}
 	tr.setHeld(u, math.Inf(1), false)
