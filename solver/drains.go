@@ -132,38 +132,43 @@ func LayerCh(l *Layer, mv, gw float64) (ch, kh float64) {
 	return r * soil.Cv(l.K, mv, gw), r * l.K
 }
 
-// sinkCoefficient fills, for every element, the horizontal coefficient
-// of consolidation ch (m²/day; 0 outside the drained range) and the
-// horizontal permeability kh (m/s) for mv per layer. They are per element
-// so that a soil model may change them element by element.
-func (c *column) sinkCoefficient(mv []float64) (ch, kh []float64) {
+// elementKh is each element's horizontal permeability kh, m/s, for mv
+// per layer (LayerCh), and 0 outside the drained range.
+func (c *column) elementKh(mv []float64) []float64 {
 	m := c.m
-	ch = make([]float64, m.Elements())
-	kh = make([]float64, m.Elements())
-	for e := range ch {
+	kh := make([]float64, m.Elements())
+	for e := range kh {
 		_, z0, z1 := m.Span(e)
-		if !c.drains.Reaches((z0 + z1) / 2) {
-			continue
+		if c.drains.Reaches((z0 + z1) / 2) {
+			l := m.Layer[e]
+			_, kh[e] = LayerCh(&c.p.Layers[l], mv[l], c.gw)
 		}
-		l := m.Layer[e]
-		ch[e], kh[e] = LayerCh(&c.p.Layers[l], mv[l], c.gw)
 	}
-	return ch, kh
+	return kh
 }
 
 // assembleSink returns the matrix of the radial sink of the unit cell,
-// ∫ w mv (8 ch/(De² μ(z))) u dz, for mv per layer, lumped by rows for
-// linear elements as the capacity matrix is (transient.setMv), with μ
-// at the Gauss points (it varies with depth under well resistance).
+// ∫ w mv (8 ch/(De² μ(z))) u dz, for mv per layer (assembleSinkKh).
 func (c *column) assembleSink(mv []float64, lumped bool) *fem.Band {
+	return c.assembleSinkKh(c.elementKh(mv), lumped)
+}
+
+// assembleSinkKh returns the sink's matrix for the horizontal
+// permeability of each element, kh (m/s; 0 where the drains do not
+// reach): since mv·ch = kh/γw, the coefficient is 8 kh/(γw De² μ(z)),
+// per day, whatever mv is, so a soil model whose k (and so kh = khKv·k)
+// changes element by element reassembles the sink from its own kh. μ is
+// taken at the Gauss points (it varies with depth under well
+// resistance); linear elements lump the matrix by rows, as the capacity
+// matrix is (transient.setMv).
+func (c *column) assembleSinkKh(kh []float64, lumped bool) *fem.Band {
 	m, dc := c.m, c.drains
-	ch, kh := c.sinkCoefficient(mv)
 	r := fem.NewBand(m.Nodes(), m.Order)
 	m.Assemble(r, func(e int, z float64) float64 {
-		if ch[e] == 0 {
+		if kh[e] == 0 {
 			return 0
 		}
-		return mv[m.Layer[e]] * drain.Rate(ch[e], dc.De, dc.Mu(z, kh[e]))
+		return 8 * kh[e] * soil.SecondsPerDay / (c.gw * dc.De * dc.De * dc.Mu(z, kh[e]))
 	}, true)
 	if lumped {
 		r.Lump()

@@ -144,6 +144,3 @@ func FromOutlet(z, top, tip float64, d Discharge) (dist, l float64) {
 	}
 	return z - top, tip - top
 }
-
-// Rate is the sink rate 8 ch/(De² μ), 1/day for ch in m²/day.
-func Rate(ch, de, mu float64) float64 { return 8 * ch / (de * de * mu) }
