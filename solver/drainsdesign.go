@@ -117,8 +117,8 @@ func DrainSpacing(p *Project, opt *Options) (*SpacingAnswer, error) {
 	dc := ResolveDrains(p)
 	factor := dc.De / p.Drains.Spacing
 	// The closest spacing: a cell twice the smear zone (or the drain).
-	lo := 2 * math.Max(dc.SmearRatio, 1) * dc.Dw / factor
-	hi := math.Max(10*p.Drains.Spacing, 100*lo)
+	lo := math.Max(2*math.Max(dc.SmearRatio, 1)*dc.Dw/factor, MinSpacing)
+	hi := math.Min(math.Max(10*p.Drains.Spacing, 100*lo), MaxSpacing)
 	deg := func(s float64) (float64, error) {
 		a.Solves++
 		u, _, err := DegreeAt(p, s, a.Time, a.Degree, opt)

@@ -96,3 +96,20 @@ func TestDrainSpacingRefuses(t *testing.T) {
 		}
 	}
 }
+
+// The search stays within the spacing's bounds: a project whose spacing
+// is at MaxSpacing still gets an answer (or a refusal at its path), never
+// a problem from a spacing the search made up.
+func TestDrainSpacingBounds(t *testing.T) {
+	t.Parallel()
+	p := drainedClay(true, false)
+	p.Drains.Spacing = MaxSpacing
+	p.Drains.Design = &DrainDesign{Degree: 0.9, Time: 200}
+	_, err := DrainSpacing(p, nil)
+	if err != nil {
+		var ps Problems
+		if !errors.As(err, &ps) || ps[0].Path != "drains.design.time" {
+			t.Errorf("got %v", err)
+		}
+	}
+}
