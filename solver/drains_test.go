@@ -2,6 +2,7 @@ package solver
 
 import (
 	"math"
+	"strings"
 	"testing"
 
 	"gonum.org/v1/gonum/integrate/quad"
@@ -128,10 +129,14 @@ func TestDrainsCarrillo(t *testing.T) {
 		{"single drainage, ideal drains", false, 10, 2, 0, 0},
 		{"double drainage, ideal drains", true, 5, 1, 0, 0},
 		{"single drainage, smear", false, 10, 3, 2, 3},
+		{"double drainage, smear, quadratic elements", true, 5, 2, 3, 2},
 	} {
 		t.Run(c.name, func(t *testing.T) {
 			t.Parallel()
 			p := drainedClay(true, c.bottom)
+			if strings.Contains(c.name, "quadratic") {
+				p.Mesh.Order = 2 // the consistent sink matrix
+			}
 			p.Drains.Spacing = 2.5
 			p.Drains.SmearRatio, p.Drains.SmearK = c.s, c.kr
 			p.Layers[0].KhKv = c.khkv
@@ -383,5 +388,32 @@ func TestDrainsOutletDrawdown(t *testing.T) {
 	last := r.Consolidation.Series.Piezometers[0].Excess
 	if u := last[len(last)-1]; math.Abs(u+20) > 0.01 {
 		t.Errorf("final excess %.4f kPa, want −20", u)
+	}
+}
+
+// Drains from 4 m to the base of a 10 m clay, vertical flow negligible:
+// the top 4 m do not consolidate, the rest follows Hansbo's (1981)
+// 1 − exp(−8Th/μ), so Us = 0.6 (1 − exp(−8Th/μ)) (one mv, by hand)
+// within 0.002 (both ends sealed; the mesh has a node at 4 m).
+func TestDrainsFromDepth(t *testing.T) {
+	t.Parallel()
+	p := drainedClay(false, false)
+	p.Layers[0].K, p.Layers[0].Ch = 1e-14, 0.02
+	p.Drains.Top = 4
+	de := 1.5 * math.Sqrt(2*math.Sqrt(3)/math.Pi)
+	n := de / (2 * (0.1 + 0.004) / math.Pi)
+	mu := n*n/(n*n-1)*math.Log(n) - (3*n*n-1)/(4*n*n)
+	ths := []float64{0.1, 0.3, 1}
+	p.Times = timesFor(0.02, de, ths...)
+	r, err := Solve(p, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	ser := r.Consolidation.Series
+	for i, th := range ths {
+		want := 0.6 * (1 - math.Exp(-8*th/mu))
+		if got := seriesAt(t, ser.Time, ser.Us, p.Times[i]); math.Abs(got-want) > 0.002 {
+			t.Errorf("Th = %g: Us = %.5f, want %.5f", th, got, want)
+		}
 	}
 }
