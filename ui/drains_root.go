@@ -2,10 +2,7 @@ package ui
 
 import (
 	"errors"
-	"fmt"
-	"runtime/debug"
 	"sync/atomic"
-	"time"
 
 	"porelight/solver"
 	"porelight/ui/form"
@@ -42,50 +39,27 @@ func (c *Root) runDesign() {
 	model := c.form.Model()
 	g := s.gen.Add(1)
 	s.busy, s.progress, s.err, s.res = true, 0, "", nil
-	work := func() (res *solver.SpacingAnswer, err error) {
-		defer func() {
-			if r := recover(); r != nil {
-				err = fmt.Errorf("internal error in the design helper: %v\n%s", r, debug.Stack())
+	var res *solver.SpacingAnswer
+	c.inBackground("the design helper", func() bool { return s.gen.Load() == g }, func(f float64) { s.progress = f },
+		func(opt *solver.Options) (err error) {
+			res, err = solver.DrainSpacing(model, opt)
+			return err
+		},
+		func(err error) {
+			if s.gen.Load() != g {
+				return
 			}
-		}()
-		last := time.Now()
-		opt := &solver.Options{Progress: func(f float64) bool {
-			if c.Env != nil && time.Since(last) > 40*time.Millisecond {
-				c.Env.Lock()
-				s.progress = f
-				c.Env.UnlockRender()
-				c.host().Yield()
-				last = time.Now()
+			s.busy = false
+			var ps solver.Problems
+			switch {
+			case errors.As(err, &ps):
+				s.err = describeProblems(ps, 3)
+			case err != nil:
+				s.err = err.Error()
+			default:
+				s.res = res
 			}
-			return s.gen.Load() == g
-		}}
-		return solver.DrainSpacing(model, opt)
-	}
-	finish := func(res *solver.SpacingAnswer, err error) {
-		if s.gen.Load() != g {
-			return
-		}
-		s.busy = false
-		var ps solver.Problems
-		switch {
-		case errors.As(err, &ps):
-			s.err = describeProblems(ps, 3)
-		case err != nil:
-			s.err = err.Error()
-		default:
-			s.res = res
-		}
-	}
-	if c.Env == nil {
-		finish(work())
-		return
-	}
-	go func() {
-		res, err := work()
-		c.Env.Lock()
-		finish(res, err)
-		c.Env.UnlockRender()
-	}()
+		})
 }
 
 // useSpacing puts the spacing found into the project.

@@ -2,12 +2,9 @@ package ui
 
 import (
 	"errors"
-	"fmt"
 	"reflect"
-	"runtime/debug"
 	"slices"
 	"sync/atomic"
-	"time"
 
 	"porelight/solver"
 	"porelight/solver/monitor"
@@ -162,39 +159,13 @@ func (c *Root) runFit() {
 	if fit == nil {
 		fit = monitor.BackFit
 	}
-	work := func() (res *monitor.FitResult, err error) {
-		defer func() {
-			if r := recover(); r != nil {
-				err = fmt.Errorf("internal error in the back-analysis: %v\n%s", r, debug.Stack())
-			}
-		}()
-		last := time.Now()
-		opt := &solver.Options{Progress: func(f float64) bool {
-			if s.gen.Load() != g {
-				return false
-			}
-			if c.Env != nil && time.Since(last) > 40*time.Millisecond {
-				c.Env.Lock()
-				s.progress = f
-				c.Env.UnlockRender()
-				c.host().Yield()
-				last = time.Now()
-			}
-			return s.gen.Load() == g
-		}}
-		return fit(solveInput(model), spec, opt)
-	}
-	if c.Env == nil {
-		res, err := work()
-		s.finish(g, res, err)
-		return
-	}
-	go func() {
-		res, err := work()
-		c.Env.Lock()
-		s.finish(g, res, err)
-		c.Env.UnlockRender()
-	}()
+	var res *monitor.FitResult
+	c.inBackground("the back-analysis", func() bool { return s.gen.Load() == g }, func(f float64) { s.progress = f },
+		func(opt *solver.Options) (err error) {
+			res, err = fit(solveInput(model), spec, opt)
+			return err
+		},
+		func(err error) { s.finish(g, res, err) })
 }
 
 // finish takes the outcome of run g, if it is still the latest.
