@@ -67,8 +67,10 @@ func TestE2EDrains(t *testing.T) {
 	typeInto(t, ctx, "drains-design-degree", "50")
 	typeInto(t, ctx, "drains-design-time", "100")
 	time.Sleep(500 * time.Millisecond)
+	start := time.Now()
 	eval[chromedp.Void](t, ctx, `document.getElementById("drains-design-run").click()`)
 	poll[bool](t, ctx, `!!document.getElementById("drains-design-table")`, 60*time.Second)
+	t.Logf("design helper in the page: %v", time.Since(start).Round(10*time.Millisecond))
 	if s := eval[string](t, ctx, `document.getElementById("drains-design-status").textContent`); !strings.Contains(s, "Spacing") {
 		t.Errorf("design status %q", s)
 	}
