@@ -3,6 +3,7 @@ package static
 import (
 	"bytes"
 	"compress/gzip"
+	"errors"
 	"fmt"
 	"io"
 	"os/exec"
@@ -101,6 +102,15 @@ func TestPackRefuses(t *testing.T) {
 		{"changed helper", func(in *Inputs) { in.VuguHelper = "(function(){window.x=1})()" }, "helper script"},
 		{"script end in demo", func(in *Inputs) { in.Demo = []byte(`{"notes": "</SCRIPT><b>"}`) }, "demo project"},
 		{"comment in wasm_exec", func(in *Inputs) { in.WasmExec = []byte("x = 1 <!-- y") }, "wasm_exec.js"},
+		// An outside compressor must give gzip that gunzips to the
+		// program, or the page would fail in the browser.
+		{"compressor fails", func(in *Inputs) {
+			in.Gzip = func([]byte) ([]byte, error) { return nil, errors.New("no zopfli today") }
+		}, "no zopfli today"},
+		{"compressor gives no gzip", func(in *Inputs) { in.Gzip = func(b []byte) ([]byte, error) { return b, nil } }, "not gzip"},
+		{"compressor loses bytes", func(in *Inputs) {
+			in.Gzip = func(b []byte) ([]byte, error) { return gzipBest(b[:len(b)-1]) }
+		}, "does not gunzip to the program"},
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {
