@@ -72,7 +72,7 @@ func FuzzDecodeSolve(f *testing.F) {
 // assertProblemList fails t unless err is a non-empty Problems list whose
 // every entry has a reason, a message and a path. With wholeFile set (an
 // error from Decode), a problem of the whole file may have no path: a
-// syntax error, or a file that is too large.
+// syntax error, a file that is too large, or a file of another kind.
 func assertProblemList(t *testing.T, err error, wholeFile bool) {
 	t.Helper()
 	var ps Problems
@@ -83,7 +83,7 @@ func assertProblemList(t *testing.T, err error, wholeFile bool) {
 		if p.Message == "" || p.Err == nil {
 			t.Fatalf("problem at %q has message %q and reason %v", p.Path, p.Message, p.Err)
 		}
-		if p.Path == "" && !(wholeFile && (p.Err == ErrSyntax || p.Err == ErrTooLarge)) {
+		if p.Path == "" && !(wholeFile && (p.Err == ErrSyntax || p.Err == ErrTooLarge || p.Err == ErrNotProject)) {
 			t.Fatalf("problem %q (%v) has no field path", p.Message, p.Err)
 		}
 	}
