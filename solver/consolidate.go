@@ -62,6 +62,7 @@ func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path
 	}
 	k.sublayers()
 	k.deriveMv()
+	k.submerge()
 	k.linearSummary()
 	if err := k.march(); err != nil {
 		return err
@@ -242,6 +243,9 @@ func (k *consolidation) record(ser *Series, t float64) {
 	p, m, tr := k.c.p, k.c.m, k.tr
 	ser.Time = append(ser.Time, t)
 	ser.Load = append(ser.Load, surcharge(p.Loads, t))
+	if tr.sub != nil {
+		ser.Load[len(ser.Load)-1] -= tr.sub.lost(p.Loads, t, false, tr.settled)
+	}
 	var sNow, pNow float64
 	for i, w := range tr.wMass {
 		d := tr.sigma[i] - tr.u[i]
@@ -249,6 +253,7 @@ func (k *consolidation) record(ser *Series, t float64) {
 		pNow += tr.wLength[i] * d
 	}
 	ser.Settlement = append(ser.Settlement, sNow)
+	tr.settled = sNow // the submergence of the next step follows it
 	if k.defined {
 		ser.Us = append(ser.Us, sNow/k.denS)
 		ser.Up = append(ser.Up, pNow/k.denP)

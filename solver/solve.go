@@ -37,6 +37,7 @@ func Solve(p *Project, opt *Options) (*Result, error) {
 	r := &Result{Warnings: []Warning{}}
 	warn := func(path, msg string) { r.Warnings = append(r.Warnings, Warning{Path: path, Message: msg}) }
 	oddValues(p, warn)
+	loadWarnings(p, c.height, warn)
 	st, err := c.steady(warn)
 	if err != nil {
 		return nil, err
@@ -48,6 +49,7 @@ func Solve(p *Project, opt *Options) (*Result, error) {
 		if err := c.consolidate(&r.Steady, r, opt, warn); err != nil {
 			return nil, err
 		}
+		r.Consolidation.Stages = c.stageStresses()
 	}
 	for _, l := range r.Steady.Layers {
 		if l.HeaveFactor != nil && (r.Summary.MinHeaveFactor == nil || *l.HeaveFactor < *r.Summary.MinHeaveFactor) {

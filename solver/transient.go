@@ -21,12 +21,14 @@ type transient struct {
 	lo, hi   int // free unknowns
 	u        []float64
 	tmp      []float64
-	next     []float64   // held values at the end of a step
-	sigma    []float64   // total stress change at the nodes, kPa
-	shapes   [][]float64 // per load stage: Q·factor at the nodes
-	wMass    []float64   // ∫ mv Nᵢ dz
-	wLength  []float64   // ∫ Nᵢ dz
-	set      Stepping    // resolved
+	next     []float64    // held values at the end of a step
+	sigma    []float64    // total stress change at the nodes, kPa
+	shapes   [][]float64  // per load stage: Q·factor at the nodes
+	wMass    []float64    // ∫ mv Nᵢ dz
+	wLength  []float64    // ∫ Nᵢ dz
+	set      Stepping     // resolved
+	sub      *submergence // nil without fill stages
+	settled  float64      // settlement of the top at the last record, m
 	progress func(float64) bool
 }
 
@@ -63,10 +65,11 @@ func newTransient(c *column, opt *Options) *transient {
 	for i, l := range p.Loads {
 		f := make([]float64, n)
 		for j, z := range m.Z {
-			f[j] = l.Q * profileAt(l.Profile, z, 1)
+			f[j] = l.Pressure() * l.Factor(z)
 		}
 		tr.shapes[i] = f
 	}
+	tr.sub = newSubmergence(p, gw, m.Z)
 	return tr
 }
 
@@ -143,8 +146,14 @@ func (tr *transient) setHeld(u []float64, t float64, left bool) {
 
 // stressAt writes the total stress change at time t to dst: every ramp at
 // its fraction, instantaneous stages once started (once past, with left
-// set), and the initial excess.
+// set), less the fill submerged at the settlement of the last record, and
+// the initial excess.
 func (tr *transient) stressAt(dst []float64, t float64, left bool) {
+	tr.stressWith(dst, t, left, tr.settled)
+}
+
+// stressWith is stressAt with the top settled by s.
+func (tr *transient) stressWith(dst []float64, t float64, left bool, s float64) {
 	p := tr.c.p
 	clear(dst)
 	for i, l := range p.Loads {
@@ -153,6 +162,9 @@ func (tr *transient) stressAt(dst []float64, t float64, left bool) {
 				dst[j] += f * v
 			}
 		}
+	}
+	if tr.sub != nil {
+		tr.sub.apply(dst, p.Loads, t, left, s)
 	}
 	if len(p.InitialExcess) > 0 {
 		for j, z := range tr.c.m.Z {
@@ -246,8 +258,12 @@ func (tr *transient) startText() string {
 	return fmt.Sprintf("%d backward Euler steps after each instantaneous change, then %s", damped, scheme)
 }
 
-// ramping reports whether a ramped load stage changes during (t0, t1).
+// ramping reports whether a ramped load stage changes during (t0, t1),
+// or fill may be submerging.
 func (tr *transient) ramping(t0, t1 float64) bool {
+	if tr.sub != nil {
+		return true
+	}
 	for _, l := range tr.c.p.Loads {
 		if l.Ramp > 0 && l.Start < t1 && l.Start+l.Ramp > t0 {
 			return true

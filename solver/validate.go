@@ -123,6 +123,12 @@ func Validate(p *Project) error {
 		nonNegative(&ps, at+"ramp", l.Ramp)
 		finite(&ps, at+"q", l.Q)
 		validProfile(&ps, at+"profile", l.Profile)
+		if l.Fill != nil {
+			validFill(&ps, at+"fill", l, gw)
+		}
+		if l.Area != nil {
+			validArea(&ps, at+"area", l)
+		}
 	}
 	validProfile(&ps, "initialExcess", p.InitialExcess)
 
