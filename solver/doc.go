@@ -27,6 +27,8 @@
 //	solver/soil     soil behaviour: the e–log σ' curve, preconsolidation, secondary
 //	                compression, cv (new soil laws go here)
 //	solver/monitor  pasted readings, Asaoka's method, the back-fit
+//	solver/load     stress with depth under a strip, rectangle, circle or
+//	                embankment (Boussinesq-based closed forms, the 2:1 spread)
 //
 // Package solver turns a column into the coefficients of package fem
 // (seepage.go: steady state; transient.go and consolidate.go: the
@@ -152,6 +154,29 @@
 // (Mesri 1973) is Cα H/(1+ep) log10(t/tp) per layer at Project.DesignLife,
 // with tp the time at which Us reaches 95 %.
 //
+// # Load stages
+//
+// Each stage of Project.Loads adds σⱼ(z, t) = fⱼ(t) qⱼ Iⱼ(z): fⱼ rises from
+// 0 to 1 over the ramp, qⱼ is the pressure at the surface (Q, or a fill's
+// γ × thickness: Load.Pressure) and Iⱼ(z) = Δσ/q with depth (Load.Factor):
+// 1 for a load infinite in plan, the typed Profile, or the influence
+// factor of the stage's Area from package solver/load (strip, rectangle,
+// circle, embankment; elastic closed forms or the 2:1 spread). Stages
+// superpose. The consolidation stays one-dimensional: Iⱼ(z) changes the
+// vertical total stress the column feels, but the column has no lateral
+// strain, so under a narrow load (an area narrower than the column is
+// deep) the settlement is indicative only and a warning says so.
+//
+// Fill that comes to lie below the water table as the ground settles
+// loses weight (submergence): a submerged metre weighs γsat − γw instead
+// of γ. The time loop takes the submerged thickness from the linear
+// settlement of the previous step; the final state solves
+// s∞ = ∫ mv (σ∞(s∞) − u∞) dz exactly, so the linear final settlement and
+// Us are self-consistent (for one layer, fully submerged as it settles,
+// s = mv H q/(1 + mv H γw)). The water table stays at its initial level.
+// Result.Consolidation.Stages gives every stage's q and I(z);
+// Summary.Submerged the final submerged thickness.
+//
 // # Field monitoring
 //
 // Project.Monitoring holds settlement plates and piezometer records, each a
@@ -178,7 +203,9 @@
 //	  "waterTable": 0.5,
 //	  "top":    {"drained": true, "head": -0.5},
 //	  "bottom": {"drained": false},
-//	  "loads":  [{"start": 0, "ramp": 30, "q": 60}, {"start": 200, "q": -20}],
+//	  "loads":  [{"start": 0, "ramp": 30, "q": 60}, {"start": 200, "q": -20},
+//	             {"start": 400, "ramp": 20, "fill": {"thickness": 2.5, "gamma": 19, "gammaSat": 20},
+//	              "area": {"shape": "embankment", "width": 12, "slope": 2, "x": 3}}],
 //	  "times":  [1, 10, 30, 100, 365, 1000],
 //	  "piezometers": [2.5, 6.0],
 //	  "mesh": {"order": 1, "maxSize": 0.1, "minPerLayer": 4}
@@ -221,6 +248,22 @@
 //	loads[j].start, .ramp     day     ≥ 0                             ErrNegative
 //	loads[j].q                kPa     finite (negative removes)       ErrNotFinite
 //	loads[j].profile[k].z     m       finite, increasing              ErrNotFinite, ErrNotSorted
+//	loads[j].fill.thickness   m       finite, ≠ 0 (< 0 removes); not  ErrNotPositive, ErrConflict
+//	                                  with q
+//	loads[j].fill.gamma       kN/m³   > 0                             ErrNotPositive
+//	loads[j].fill.gammaSat    kN/m³   ≥ gammaW (absent: gamma)        ErrNotPositive, ErrOutOfRange
+//	loads[j].area.shape       –       "strip", "rectangle", "circle", ErrRequired, ErrOutOfRange,
+//	                                  "embankment" (needs a fill);    ErrConflict
+//	                                  not with a profile
+//	loads[j].area.method      –       "", "elastic" or "2:1"          ErrOutOfRange
+//	loads[j].area.width       m       > 0 (strip, rectangle); ≥ 0     ErrNotPositive, ErrNegative,
+//	                                  (embankment crest)              ErrConflict
+//	loads[j].area.length      m       > 0, rectangle only             ErrNotPositive, ErrConflict
+//	loads[j].area.radius      m       > 0, circle only                ErrNotPositive, ErrConflict
+//	loads[j].area.slope       –       > 0 (horizontal per vertical),  ErrNotPositive, ErrConflict
+//	                                  embankment only
+//	loads[j].area.x, .y       m       finite; y for a rectangle only; ErrNotFinite, ErrConflict
+//	                                  a circle takes x = y = 0
 //	initialExcess[k].z        m       finite, increasing              ErrNotFinite, ErrNotSorted
 //	times[j]                  day     > 0, increasing                 ErrNotPositive, ErrNotSorted
 //	times                     –       nodes × (count + 7) + steps ×   ErrTooLarge
@@ -240,15 +283,17 @@
 // Legal but unusual values give warnings in the Result, never errors: a
 // permeability outside 1e-13 … 1 m/s, a fine-grained layer (k < 1e-7 m/s)
 // with cv outside 0.01 … 1000 m²/year, a layer thinner than the element
-// size, σ'p below the in-situ effective stress, suction or negative
-// effective stress in the steady state, and a column that cannot drain.
+// size, a loaded area narrower than the column is deep, σ'p below the
+// in-situ effective stress, suction or negative effective stress in the
+// steady state, and a column that cannot drain.
 //
 // # Scope
 //
 // The column is saturated, one-dimensional and small strain; flow follows
-// Darcy's law; k and mv are constant in each layer and in time. Results are
-// not valid for unsaturated soil, large strains, creep-dominated soils,
-// two- or three-dimensional flow or stress spread, or loads that fail the
-// ground. They are estimates for qualified engineers; local codes and
+// Darcy's law; k and mv are constant in each layer and in time. The stress
+// under a finite load spreads as in a homogeneous elastic half-space (or
+// by the 2:1 rule), whatever the layering. Results are not valid for
+// unsaturated soil, large strains, creep-dominated soils, two- or
+// three-dimensional flow or deformation, or loads that fail the ground. They are estimates for qualified engineers; local codes and
 // licensed engineering practice govern any design.
 package solver
