@@ -242,3 +242,30 @@ func TestNarrowLoadWarns(t *testing.T) {
 		}
 	}
 }
+
+// TestFillThickness checks the fill needed for a finished level against
+// the closed form for one layer with the water table at the top, linear
+// mv and consolidation complete: level = Hf − s with
+// s = mv H γ Hf/(1 + mv H γw), so Hf = level (1 + mv H γw)/(1 + mv H γw − mv H γ).
+// Tolerance 1 mm (the method's).
+func TestFillThickness(t *testing.T) {
+	t.Parallel()
+	const h, mv, gw, gamma, level = 10.0, 1e-3, 9.81, 20.0, 3.0
+	p := stageClay(h, 0, Load{Start: 0, Ramp: 30, Fill: &Fill{Thickness: 3, Gamma: gamma}})
+	p.Stepping.EndTime = 40000
+	got, err := FillThickness(p, 0, 30000, level, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	a := mv * h
+	want := level * (1 + a*gw) / (1 + a*gw - a*gamma)
+	if math.Abs(got-want) > 1e-3 {
+		t.Errorf("fill thickness %.4f m, want %.4f m (closed form, ±1 mm)", got, want)
+	}
+	if p.Loads[0].Fill.Thickness != 3 {
+		t.Errorf("FillThickness changed the project")
+	}
+	if _, err := FillThickness(p, 0, 10, level, nil); err == nil {
+		t.Errorf("a time before the fill is complete: no error")
+	}
+}
