@@ -14,6 +14,8 @@ import (
 	"porelight/ui/plot"
 )
 
+import "porelight/ui/form"
+
 import (
 	"strings"
 )
@@ -2606,27 +2608,27 @@ func (c *Loads) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 		vgparent.AppendChild(vgn)
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "h2", Attr: []vugu.VGAttribute(nil)}
 		vgparent.AppendChild(vgn)
-		vgn.SetInnerHTML(vugu.HTML("Load stages \x3Cspan class=\"pl-sub\"\x3Euniform surcharge on the top; negative q removes load\x3C/span\x3E"))
+		vgn.SetInnerHTML(vugu.HTML("Load stages \x3Cspan class=\"pl-sub\"\x3Ea pressure or a fill on the top, over the whole top or a finite area; negative q or thickness removes load\x3C/span\x3E"))
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
 		if len(c.F.Draft().Loads) > 0 {
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "loads"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid"}}}
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-scrollx"}}}
 			vgparent.AppendChild(vgn)
 			{
 				vgparent := vgn
 				_ = vgparent
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
-				vgparent.AppendChild(vgn)
-				vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth class=\"pl-num\"\x3E#\x3C/th\x3E\x3Cth\x3EStart\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Eday\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ERamp\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Eday\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eq\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ETotal after\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkPa\x3C/span\x3E\x3C/th\x3E\x3Cth class=\"pl-noprint\"\x3E\x3Cspan class=\"pl-vh\"\x3ERemove\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-				vgparent.AppendChild(vgn)
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "loads"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid"}}}
 				vgparent.AppendChild(vgn)
 				{
 					vgparent := vgn
 					_ = vgparent
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
+					vgparent.AppendChild(vgn)
+					vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth class=\"pl-num\"\x3E#\x3C/th\x3E\x3Cth\x3EStart\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Eday\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ERamp\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Eday\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ELoad\x3C/th\x3E\x3Cth\x3Eq or fill\x3C/th\x3E\x3Cth\x3EArea\x3C/th\x3E\x3Cth\x3EΣq\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkPa\x3C/span\x3E\x3C/th\x3E\x3Cth class=\"pl-noprint\"\x3E\x3Cspan class=\"pl-vh\"\x3ERemove\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
 					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 					vgparent.AppendChild(vgn)
 					for i := range c.F.Draft().Loads {
@@ -2634,126 +2636,598 @@ func (c *Loads) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 						_ = vgiterkey
 						i := i
 						_ = i
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
 						vgparent.AppendChild(vgn)
 						{
 							vgparent := vgn
 							_ = vgparent
 							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 							vgparent.AppendChild(vgn)
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-num"}}}
-							vgparent.AppendChild(vgn)
-							vgn.SetInnerHTML(i + 1)
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-							vgparent.AppendChild(vgn)
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
 							vgparent.AppendChild(vgn)
 							{
 								vgparent := vgn
 								_ = vgparent
-								{
-									vgcompKey := vugu.MakeCompKey(0x81BD62CAB3D2ACD8^vgin.CurrentPositionHash(), vgiterkey)
-									// ask BuildEnv for prior instance of this specific component
-									vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-									if vgcomp == nil {
-										// create new one if needed
-										vgcomp = new(Field)
-										vgin.BuildEnv.WireComponent(vgcomp)
-									}
-									vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-									vgcomp.Bare = true
-									vgcomp.Changed = c.Changed
-									vgcomp.F = c.F
-									vgcomp.Label = fmt.Sprintf("Start of stage %d", i+1)
-									vgcomp.Path = loadPath(i, "start")
-									vgcomp.Unit = "day"
-									vgout.Components = append(vgout.Components, vgcomp)
-									vgn = &vugu.VGNode{Component: vgcomp}
-									vgparent.AppendChild(vgn)
-								}
-							}
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-							vgparent.AppendChild(vgn)
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-							vgparent.AppendChild(vgn)
-							{
-								vgparent := vgn
-								_ = vgparent
-								{
-									vgcompKey := vugu.MakeCompKey(0x2FCF3CB588C857F7^vgin.CurrentPositionHash(), vgiterkey)
-									// ask BuildEnv for prior instance of this specific component
-									vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-									if vgcomp == nil {
-										// create new one if needed
-										vgcomp = new(Field)
-										vgin.BuildEnv.WireComponent(vgcomp)
-									}
-									vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-									vgcomp.Bare = true
-									vgcomp.Changed = c.Changed
-									vgcomp.F = c.F
-									vgcomp.Hint = "0: applied at once"
-									vgcomp.Label = fmt.Sprintf("Ramp time of stage %d", i+1)
-									vgcomp.Path = loadPath(i, "ramp")
-									vgcomp.Unit = "day"
-									vgout.Components = append(vgout.Components, vgcomp)
-									vgn = &vugu.VGNode{Component: vgcomp}
-									vgparent.AppendChild(vgn)
-								}
-							}
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-							vgparent.AppendChild(vgn)
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-							vgparent.AppendChild(vgn)
-							{
-								vgparent := vgn
-								_ = vgparent
-								{
-									vgcompKey := vugu.MakeCompKey(0xECB0EC21615B14AC^vgin.CurrentPositionHash(), vgiterkey)
-									// ask BuildEnv for prior instance of this specific component
-									vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-									if vgcomp == nil {
-										// create new one if needed
-										vgcomp = new(Field)
-										vgin.BuildEnv.WireComponent(vgcomp)
-									}
-									vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-									vgcomp.Bare = true
-									vgcomp.Changed = c.Changed
-									vgcomp.F = c.F
-									vgcomp.Label = fmt.Sprintf("Pressure change of stage %d", i+1)
-									vgcomp.Path = loadPath(i, "q")
-									vgcomp.Unit = "kPa"
-									vgout.Components = append(vgout.Components, vgcomp)
-									vgn = &vugu.VGNode{Component: vgcomp}
-									vgparent.AppendChild(vgn)
-								}
-							}
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-							vgparent.AppendChild(vgn)
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-derived"}}}
-							vgparent.AppendChild(vgn)
-							vgn.SetInnerHTML(c.total(i))
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-							vgparent.AppendChild(vgn)
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-noprint"}}}
-							vgparent.AppendChild(vgn)
-							{
-								vgparent := vgn
-								_ = vgparent
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-icon"}}}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 								vgparent.AppendChild(vgn)
-								vgn.AddAttrInterface("id", fmt.Sprintf("loads-%d-remove", i))
-								vgn.AddAttrInterface("title", fmt.Sprintf("Remove stage %d", i+1))
-								vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
-									EventType: "click",
-									Func:      func(event vugu.DOMEvent) { c.remove(i) },
-									// TODO: implement capture, etc. mostly need to decide syntax
-								})
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-num"}}}
+								vgparent.AppendChild(vgn)
+								vgn.SetInnerHTML(i + 1)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+								vgparent.AppendChild(vgn)
 								{
 									vgparent := vgn
 									_ = vgparent
-									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "×"}
+									{
+										vgcompKey := vugu.MakeCompKey(0x81BD62CAB3D2ACD8^vgin.CurrentPositionHash(), vgiterkey)
+										// ask BuildEnv for prior instance of this specific component
+										vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+										if vgcomp == nil {
+											// create new one if needed
+											vgcomp = new(Field)
+											vgin.BuildEnv.WireComponent(vgcomp)
+										}
+										vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+										vgcomp.Bare = true
+										vgcomp.Changed = c.Changed
+										vgcomp.F = c.F
+										vgcomp.Label = fmt.Sprintf("Start of stage %d", i+1)
+										vgcomp.Path = loadPath(i, "start")
+										vgcomp.Unit = "day"
+										vgout.Components = append(vgout.Components, vgcomp)
+										vgn = &vugu.VGNode{Component: vgcomp}
+										vgparent.AppendChild(vgn)
+									}
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+								vgparent.AppendChild(vgn)
+								{
+									vgparent := vgn
+									_ = vgparent
+									{
+										vgcompKey := vugu.MakeCompKey(0x2FCF3CB588C857F7^vgin.CurrentPositionHash(), vgiterkey)
+										// ask BuildEnv for prior instance of this specific component
+										vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+										if vgcomp == nil {
+											// create new one if needed
+											vgcomp = new(Field)
+											vgin.BuildEnv.WireComponent(vgcomp)
+										}
+										vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+										vgcomp.Bare = true
+										vgcomp.Changed = c.Changed
+										vgcomp.F = c.F
+										vgcomp.Hint = "0: applied at once"
+										vgcomp.Label = fmt.Sprintf("Ramp time of stage %d", i+1)
+										vgcomp.Path = loadPath(i, "ramp")
+										vgcomp.Unit = "day"
+										vgout.Components = append(vgout.Components, vgcomp)
+										vgn = &vugu.VGNode{Component: vgcomp}
+										vgparent.AppendChild(vgn)
+									}
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+								vgparent.AppendChild(vgn)
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "select", Attr: []vugu.VGAttribute(nil)}
+									vgparent.AppendChild(vgn)
+									vgn.AddAttrInterface("aria-label", fmt.Sprintf("What stage %d is", i+1))
+									vgn.AddAttrInterface("id", fmt.Sprintf("loads-%d-kind", i))
+									vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+										EventType: "change",
+										Func:      func(event vugu.DOMEvent) { c.setKind(i, event) },
+										// TODO: implement capture, etc. mostly need to decide syntax
+									})
+									{
+										vgparent := vgn
+										_ = vgparent
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "q"}}}
+										vgparent.AppendChild(vgn)
+										vgn.AddAttrInterface("selected", !c.isFill(i))
+										{
+											vgparent := vgn
+											_ = vgparent
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "pressure"}
+											vgparent.AppendChild(vgn)
+										}
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "fill"}}}
+										vgparent.AppendChild(vgn)
+										vgn.AddAttrInterface("selected", c.isFill(i))
+										{
+											vgparent := vgn
+											_ = vgparent
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "fill"}
+											vgparent.AppendChild(vgn)
+										}
+									}
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								if !c.isFill(i) {
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+									vgparent.AppendChild(vgn)
+									{
+										vgparent := vgn
+										_ = vgparent
+										{
+											vgcompKey := vugu.MakeCompKey(0xECB0EC21615B14AC^vgin.CurrentPositionHash(), vgiterkey)
+											// ask BuildEnv for prior instance of this specific component
+											vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+											if vgcomp == nil {
+												// create new one if needed
+												vgcomp = new(Field)
+												vgin.BuildEnv.WireComponent(vgcomp)
+											}
+											vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+											vgcomp.Changed = c.Changed
+											vgcomp.F = c.F
+											vgcomp.Label = fmt.Sprintf("Pressure change of stage %d", i+1)
+											vgcomp.Path = loadPath(i, "q")
+											vgcomp.Unit = "kPa"
+											vgout.Components = append(vgout.Components, vgcomp)
+											vgn = &vugu.VGNode{Component: vgcomp}
+											vgparent.AppendChild(vgn)
+										}
+									}
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								if c.isFill(i) {
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-fill"}}}
+									vgparent.AppendChild(vgn)
+									{
+										vgparent := vgn
+										_ = vgparent
+										{
+											vgcompKey := vugu.MakeCompKey(0x8AD5910469D96F40^vgin.CurrentPositionHash(), vgiterkey)
+											// ask BuildEnv for prior instance of this specific component
+											vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+											if vgcomp == nil {
+												// create new one if needed
+												vgcomp = new(Field)
+												vgin.BuildEnv.WireComponent(vgcomp)
+											}
+											vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+											vgcomp.Changed = c.Changed
+											vgcomp.F = c.F
+											vgcomp.Hint = "Thickness placed; negative removes fill from the top"
+											vgcomp.Label = fmt.Sprintf("Fill thickness of stage %d", i+1)
+											vgcomp.Path = loadPath(i, "fill.thickness")
+											vgcomp.Unit = "m"
+											vgout.Components = append(vgout.Components, vgcomp)
+											vgn = &vugu.VGNode{Component: vgcomp}
+											vgparent.AppendChild(vgn)
+										}
+									}
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+								vgparent.AppendChild(vgn)
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "select", Attr: []vugu.VGAttribute(nil)}
+									vgparent.AppendChild(vgn)
+									vgn.AddAttrInterface("aria-label", fmt.Sprintf("Loaded area of stage %d", i+1))
+									vgn.AddAttrInterface("id", fmt.Sprintf("loads-%d-areakind", i))
+									vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+										EventType: "change",
+										Func:      func(event vugu.DOMEvent) { c.setArea(i, event) },
+										// TODO: implement capture, etc. mostly need to decide syntax
+									})
+									{
+										vgparent := vgn
+										_ = vgparent
+										for vgiterkeyt, k := range areaKinds {
+											var vgiterkey interface{} = vgiterkeyt
+											_ = vgiterkey
+											k := k
+											_ = k
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.AddAttrInterface("selected", c.areaKind(i) == k.Value)
+											vgn.AddAttrInterface("value", k.Value)
+											vgn.SetInnerHTML(k.Label)
+										}
+									}
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-derived"}}}
+								vgparent.AppendChild(vgn)
+								vgn.SetInnerHTML(c.total(i))
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-noprint"}}}
+								vgparent.AppendChild(vgn)
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-icon"}}}
+									vgparent.AppendChild(vgn)
+									vgn.AddAttrInterface("id", fmt.Sprintf("loads-%d-remove", i))
+									vgn.AddAttrInterface("title", fmt.Sprintf("Remove stage %d", i+1))
+									vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+										EventType: "click",
+										Func:      func(event vugu.DOMEvent) { c.remove(i) },
+										// TODO: implement capture, etc. mostly need to decide syntax
+									})
+									{
+										vgparent := vgn
+										_ = vgparent
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "×"}
+										vgparent.AppendChild(vgn)
+									}
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							if c.hasDetail(i) {
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-detail"}}}
+								vgparent.AppendChild(vgn)
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+									vgparent.AppendChild(vgn)
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+									vgparent.AppendChild(vgn)
+									vgn.SetInnerHTML(vugu.HTML(""))
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+									vgparent.AppendChild(vgn)
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "colspan", Val: "7"}}}
+									vgparent.AppendChild(vgn)
+									{
+										vgparent := vgn
+										_ = vgparent
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+										vgparent.AppendChild(vgn)
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pairs"}}}
+										vgparent.AppendChild(vgn)
+										{
+											vgparent := vgn
+											_ = vgparent
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+											vgparent.AppendChild(vgn)
+											if c.isFill(i) {
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}}}
+												vgparent.AppendChild(vgn)
+												vgn.AddAttrInterface("for", form.IDOf(loadPath(i, "fill.gamma")))
+												{
+													vgparent := vgn
+													_ = vgparent
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+													vgparent.AppendChild(vgn)
+													vgn.SetInnerHTML(vugu.HTML("Fill γ"))
+													{
+														vgcompKey := vugu.MakeCompKey(0xC13B35787452427B^vgin.CurrentPositionHash(), vgiterkey)
+														// ask BuildEnv for prior instance of this specific component
+														vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+														if vgcomp == nil {
+															// create new one if needed
+															vgcomp = new(Field)
+															vgin.BuildEnv.WireComponent(vgcomp)
+														}
+														vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+														vgcomp.Changed = c.Changed
+														vgcomp.F = c.F
+														vgcomp.Hint = "Unit weight above the water table"
+														vgcomp.Label = fmt.Sprintf("Unit weight of the fill of stage %d", i+1)
+														vgcomp.Path = loadPath(i, "fill.gamma")
+														vgcomp.Unit = "kN/m³"
+														vgout.Components = append(vgout.Components, vgcomp)
+														vgn = &vugu.VGNode{Component: vgcomp}
+														vgparent.AppendChild(vgn)
+													}
+												}
+											}
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+											vgparent.AppendChild(vgn)
+											if c.isFill(i) {
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}}}
+												vgparent.AppendChild(vgn)
+												vgn.AddAttrInterface("for", form.IDOf(loadPath(i, "fill.gammaSat")))
+												{
+													vgparent := vgn
+													_ = vgparent
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+													vgparent.AppendChild(vgn)
+													vgn.SetInnerHTML(vugu.HTML("γsat below water"))
+													{
+														vgcompKey := vugu.MakeCompKey(0x2A23299431884E2^vgin.CurrentPositionHash(), vgiterkey)
+														// ask BuildEnv for prior instance of this specific component
+														vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+														if vgcomp == nil {
+															// create new one if needed
+															vgcomp = new(Field)
+															vgin.BuildEnv.WireComponent(vgcomp)
+														}
+														vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+														vgcomp.Changed = c.Changed
+														vgcomp.F = c.F
+														vgcomp.Hint = "Empty: the same as γ. Fill that settles below the water table weighs γsat − γw"
+														vgcomp.Label = fmt.Sprintf("Saturated unit weight of the fill of stage %d", i+1)
+														vgcomp.Path = loadPath(i, "fill.gammaSat")
+														vgcomp.Unit = "kN/m³"
+														vgout.Components = append(vgout.Components, vgcomp)
+														vgn = &vugu.VGNode{Component: vgcomp}
+														vgparent.AppendChild(vgn)
+													}
+												}
+											}
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+											vgparent.AppendChild(vgn)
+											if c.hasArea(i) {
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}}}
+												vgparent.AppendChild(vgn)
+												vgn.AddAttrInterface("for", fmt.Sprintf("loads-%d-method", i))
+												{
+													vgparent := vgn
+													_ = vgparent
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+													vgparent.AppendChild(vgn)
+													vgn.SetInnerHTML(vugu.HTML("Spread"))
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "select", Attr: []vugu.VGAttribute(nil)}
+													vgparent.AppendChild(vgn)
+													vgn.AddAttrInterface("id", fmt.Sprintf("loads-%d-method", i))
+													vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+														EventType: "change",
+														Func:      func(event vugu.DOMEvent) { c.setMethod(i, event) },
+														// TODO: implement capture, etc. mostly need to decide syntax
+													})
+													{
+														vgparent := vgn
+														_ = vgparent
+														vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: ""}}}
+														vgparent.AppendChild(vgn)
+														vgn.AddAttrInterface("selected", c.method(i) != "2:1")
+														{
+															vgparent := vgn
+															_ = vgparent
+															vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "elastic (Boussinesq)"}
+															vgparent.AppendChild(vgn)
+														}
+														vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "2:1"}}}
+														vgparent.AppendChild(vgn)
+														vgn.AddAttrInterface("selected", c.method(i) == "2:1")
+														{
+															vgparent := vgn
+															_ = vgparent
+															vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "2:1 spread"}
+															vgparent.AppendChild(vgn)
+														}
+													}
+												}
+											}
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+											vgparent.AppendChild(vgn)
+											for vgiterkeyt, s := range c.sizes(i) {
+												var vgiterkey interface{} = vgiterkeyt
+												_ = vgiterkey
+												s := s
+												_ = s
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}}}
+												vgparent.AppendChild(vgn)
+												vgn.AddAttrInterface("for", form.IDOf(loadPath(i, "area."+s.Name)))
+												{
+													vgparent := vgn
+													_ = vgparent
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+													vgparent.AppendChild(vgn)
+													vgn.SetInnerHTML(s.Label)
+													{
+														vgcompKey := vugu.MakeCompKey(0xED5CDDC968DD9DDB^vgin.CurrentPositionHash(), vgiterkey)
+														// ask BuildEnv for prior instance of this specific component
+														vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+														if vgcomp == nil {
+															// create new one if needed
+															vgcomp = new(Field)
+															vgin.BuildEnv.WireComponent(vgcomp)
+														}
+														vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+														vgcomp.Changed = c.Changed
+														vgcomp.F = c.F
+														vgcomp.Hint = s.Hint
+														vgcomp.Label = fmt.Sprintf("%s of the area of stage %d", s.Label, i+1)
+														vgcomp.Path = loadPath(i, "area."+s.Name)
+														vgcomp.Unit = s.Unit
+														vgout.Components = append(vgout.Components, vgcomp)
+														vgn = &vugu.VGNode{Component: vgcomp}
+														vgparent.AppendChild(vgn)
+													}
+												}
+											}
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+											vgparent.AppendChild(vgn)
+										}
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+										vgparent.AppendChild(vgn)
+										if len(c.areaProblems(i)) > 0 {
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "ul", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-problems"}}}
+											vgparent.AppendChild(vgn)
+											{
+												vgparent := vgn
+												_ = vgparent
+												for vgiterkeyt, m := range c.areaProblems(i) {
+													var vgiterkey interface{} = vgiterkeyt
+													_ = vgiterkey
+													m := m
+													_ = m
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "li", Attr: []vugu.VGAttribute(nil)}
+													vgparent.AppendChild(vgn)
+													vgn.SetInnerHTML(m)
+												}
+											}
+										}
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+										vgparent.AppendChild(vgn)
+										if c.areaKind(i) == "profile" {
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-history"}}}
+											vgparent.AppendChild(vgn)
+											{
+												vgparent := vgn
+												_ = vgparent
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+												vgparent.AppendChild(vgn)
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-sub"}}}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(vugu.HTML("Δσ/q against depth: linear between points, constant beyond them."))
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+												vgparent.AppendChild(vgn)
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-grid pl-small"}}}
+												vgparent.AppendChild(vgn)
+												vgn.AddAttrInterface("id", fmt.Sprintf("loads-%d-profile", i))
+												{
+													vgparent := vgn
+													_ = vgparent
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+													vgparent.AppendChild(vgn)
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
+													vgparent.AppendChild(vgn)
+													vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth\x3EDepth\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EΔσ/q\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth class=\"pl-noprint\"\x3E\x3Cspan class=\"pl-vh\"\x3ERemove\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+													vgparent.AppendChild(vgn)
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
+													vgparent.AppendChild(vgn)
+													{
+														vgparent := vgn
+														_ = vgparent
+														vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+														vgparent.AppendChild(vgn)
+														for k := range c.F.Draft().Loads[i].Profile {
+															var vgiterkey interface{} = k
+															_ = vgiterkey
+															k := k
+															_ = k
+															vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
+															vgparent.AppendChild(vgn)
+															{
+																vgparent := vgn
+																_ = vgparent
+																vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+																vgparent.AppendChild(vgn)
+																vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+																vgparent.AppendChild(vgn)
+																{
+																	vgparent := vgn
+																	_ = vgparent
+																	{
+																		vgcompKey := vugu.MakeCompKey(0xFE1E14D9ECDBD2A0^vgin.CurrentPositionHash(), vgiterkey)
+																		// ask BuildEnv for prior instance of this specific component
+																		vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+																		if vgcomp == nil {
+																			// create new one if needed
+																			vgcomp = new(Field)
+																			vgin.BuildEnv.WireComponent(vgcomp)
+																		}
+																		vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+																		vgcomp.Bare = true
+																		vgcomp.Changed = c.Changed
+																		vgcomp.F = c.F
+																		vgcomp.Label = fmt.Sprintf("Depth of point %d of the profile of stage %d", k+1, i+1)
+																		vgcomp.Path = pointPath(profilePath(i), k, "z")
+																		vgcomp.Unit = "m"
+																		vgout.Components = append(vgout.Components, vgcomp)
+																		vgn = &vugu.VGNode{Component: vgcomp}
+																		vgparent.AppendChild(vgn)
+																	}
+																}
+																vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+																vgparent.AppendChild(vgn)
+																vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+																vgparent.AppendChild(vgn)
+																{
+																	vgparent := vgn
+																	_ = vgparent
+																	{
+																		vgcompKey := vugu.MakeCompKey(0x99F122259935D797^vgin.CurrentPositionHash(), vgiterkey)
+																		// ask BuildEnv for prior instance of this specific component
+																		vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+																		if vgcomp == nil {
+																			// create new one if needed
+																			vgcomp = new(Field)
+																			vgin.BuildEnv.WireComponent(vgcomp)
+																		}
+																		vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+																		vgcomp.Bare = true
+																		vgcomp.Changed = c.Changed
+																		vgcomp.F = c.F
+																		vgcomp.Label = fmt.Sprintf("Δσ/q at point %d of the profile of stage %d", k+1, i+1)
+																		vgcomp.Path = pointPath(profilePath(i), k, "value")
+																		vgcomp.Unit = "–"
+																		vgout.Components = append(vgout.Components, vgcomp)
+																		vgn = &vugu.VGNode{Component: vgcomp}
+																		vgparent.AppendChild(vgn)
+																	}
+																}
+																vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+																vgparent.AppendChild(vgn)
+																vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-noprint"}}}
+																vgparent.AppendChild(vgn)
+																{
+																	vgparent := vgn
+																	_ = vgparent
+																	vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-icon"}}}
+																	vgparent.AppendChild(vgn)
+																	vgn.AddAttrInterface("id", fmt.Sprintf("loads-%d-profile-%d-remove", i, k))
+																	vgn.AddAttrInterface("title", fmt.Sprintf("Remove point %d", k+1))
+																	vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+																		EventType: "click",
+																		Func:      func(event vugu.DOMEvent) { c.removePoint(profilePath(i), k) },
+																		// TODO: implement capture, etc. mostly need to decide syntax
+																	})
+																	{
+																		vgparent := vgn
+																		_ = vgparent
+																		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "×"}
+																		vgparent.AppendChild(vgn)
+																	}
+																}
+																vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+																vgparent.AppendChild(vgn)
+															}
+														}
+														vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+														vgparent.AppendChild(vgn)
+													}
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+													vgparent.AppendChild(vgn)
+												}
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+												vgparent.AppendChild(vgn)
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-noprint"}}}
+												vgparent.AppendChild(vgn)
+												vgn.AddAttrInterface("id", fmt.Sprintf("loads-%d-profile-add", i))
+												vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+													EventType: "click",
+													Func:      func(event vugu.DOMEvent) { c.addPoint(profilePath(i)) },
+													// TODO: implement capture, etc. mostly need to decide syntax
+												})
+												{
+													vgparent := vgn
+													_ = vgparent
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Add point"}
+													vgparent.AppendChild(vgn)
+												}
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+												vgparent.AppendChild(vgn)
+											}
+										}
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+										vgparent.AppendChild(vgn)
+									}
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 									vgparent.AppendChild(vgn)
 								}
 							}
@@ -2782,13 +3256,6 @@ func (c *Loads) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 		}
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
-		if c.profiled() != "" {
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
-			vgparent.AppendChild(vgn)
-			vgn.SetInnerHTML(c.profiled())
-		}
-		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-		vgparent.AppendChild(vgn)
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-row pl-noprint"}}}
 		vgparent.AppendChild(vgn)
 		{
@@ -2805,6 +3272,224 @@ func (c *Loads) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 				vgparent := vgn
 				_ = vgparent
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Add stage"}
+				vgparent.AppendChild(vgn)
+			}
+		}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-history"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "initial-excess"}}}
+		vgparent.AppendChild(vgn)
+		{
+			vgparent := vgn
+			_ = vgparent
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+			vgparent.AppendChild(vgn)
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "h3", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-sub"}}}
+			vgparent.AppendChild(vgn)
+			vgn.SetInnerHTML(vugu.HTML("Initial excess pore pressure \x3Cspan class=\"pl-sub\"\x3E(optional: an undrained stress increase at day 0 of this profile, kPa; linear between points, constant beyond)\x3C/span\x3E"))
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+			vgparent.AppendChild(vgn)
+			if len(c.F.Draft().InitialExcess) > 0 {
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "initialExcess"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid pl-small"}}}
+				vgparent.AppendChild(vgn)
+				{
+					vgparent := vgn
+					_ = vgparent
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
+					vgparent.AppendChild(vgn)
+					vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth\x3EDepth\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EΔu\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkPa\x3C/span\x3E\x3C/th\x3E\x3Cth class=\"pl-noprint\"\x3E\x3Cspan class=\"pl-vh\"\x3ERemove\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
+					vgparent.AppendChild(vgn)
+					{
+						vgparent := vgn
+						_ = vgparent
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+						vgparent.AppendChild(vgn)
+						for k := range c.F.Draft().InitialExcess {
+							var vgiterkey interface{} = k
+							_ = vgiterkey
+							k := k
+							_ = k
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							{
+								vgparent := vgn
+								_ = vgparent
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+								vgparent.AppendChild(vgn)
+								{
+									vgparent := vgn
+									_ = vgparent
+									{
+										vgcompKey := vugu.MakeCompKey(0xBDFB14908000A5B6^vgin.CurrentPositionHash(), vgiterkey)
+										// ask BuildEnv for prior instance of this specific component
+										vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+										if vgcomp == nil {
+											// create new one if needed
+											vgcomp = new(Field)
+											vgin.BuildEnv.WireComponent(vgcomp)
+										}
+										vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+										vgcomp.Bare = true
+										vgcomp.Changed = c.Changed
+										vgcomp.F = c.F
+										vgcomp.Label = fmt.Sprintf("Depth of point %d of the initial excess", k+1)
+										vgcomp.Path = pointPath("initialExcess", k, "z")
+										vgcomp.Unit = "m"
+										vgout.Components = append(vgout.Components, vgcomp)
+										vgn = &vugu.VGNode{Component: vgcomp}
+										vgparent.AppendChild(vgn)
+									}
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+								vgparent.AppendChild(vgn)
+								{
+									vgparent := vgn
+									_ = vgparent
+									{
+										vgcompKey := vugu.MakeCompKey(0x394EE768213D9531^vgin.CurrentPositionHash(), vgiterkey)
+										// ask BuildEnv for prior instance of this specific component
+										vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+										if vgcomp == nil {
+											// create new one if needed
+											vgcomp = new(Field)
+											vgin.BuildEnv.WireComponent(vgcomp)
+										}
+										vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+										vgcomp.Bare = true
+										vgcomp.Changed = c.Changed
+										vgcomp.F = c.F
+										vgcomp.Label = fmt.Sprintf("Initial excess at point %d", k+1)
+										vgcomp.Path = pointPath("initialExcess", k, "value")
+										vgcomp.Unit = "kPa"
+										vgout.Components = append(vgout.Components, vgcomp)
+										vgn = &vugu.VGNode{Component: vgcomp}
+										vgparent.AppendChild(vgn)
+									}
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-noprint"}}}
+								vgparent.AppendChild(vgn)
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-icon"}}}
+									vgparent.AppendChild(vgn)
+									vgn.AddAttrInterface("id", fmt.Sprintf("initialExcess-%d-remove", k))
+									vgn.AddAttrInterface("title", fmt.Sprintf("Remove point %d", k+1))
+									vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+										EventType: "click",
+										Func:      func(event vugu.DOMEvent) { c.removePoint("initialExcess", k) },
+										// TODO: implement capture, etc. mostly need to decide syntax
+									})
+									{
+										vgparent := vgn
+										_ = vgparent
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "×"}
+										vgparent.AppendChild(vgn)
+									}
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+							}
+						}
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+						vgparent.AppendChild(vgn)
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+				}
+			}
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+			vgparent.AppendChild(vgn)
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-noprint"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "initialExcess-add"}}}
+			vgparent.AppendChild(vgn)
+			vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+				EventType: "click",
+				Func:      func(event vugu.DOMEvent) { c.addPoint("initialExcess") },
+				// TODO: implement capture, etc. mostly need to decide syntax
+			})
+			{
+				vgparent := vgn
+				_ = vgparent
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Add point"}
+				vgparent.AppendChild(vgn)
+			}
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+			vgparent.AppendChild(vgn)
+		}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+		if c.R != nil {
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-loadfigs"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "loads-figures"}}}
+			vgparent.AppendChild(vgn)
+			{
+				vgparent := vgn
+				_ = vgparent
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+				if c.sectionShown() {
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "figure", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-figure"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "fig-loads-section"}}}
+					vgparent.AppendChild(vgn)
+					{
+						vgparent := vgn
+						_ = vgparent
+						{
+							vgcompKey := vugu.MakeCompKey(0x636214FAA10F097D^vgin.CurrentPositionHash(), vgiterkey)
+							// ask BuildEnv for prior instance of this specific component
+							vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*plot.Section)
+							if vgcomp == nil {
+								// create new one if needed
+								vgcomp = new(plot.Section)
+								vgin.BuildEnv.WireComponent(vgcomp)
+							}
+							vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+							vgcomp.Project = c.P
+							vgout.Components = append(vgout.Components, vgcomp)
+							vgn = &vugu.VGNode{Component: vgcomp}
+							vgparent.AppendChild(vgn)
+						}
+					}
+				}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "figure", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-figure"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "fig-loads-stress"}}}
+				vgparent.AppendChild(vgn)
+				{
+					vgparent := vgn
+					_ = vgparent
+					{
+						vgcompKey := vugu.MakeCompKey(0x78B87A1B43D6EB0F^vgin.CurrentPositionHash(), vgiterkey)
+						// ask BuildEnv for prior instance of this specific component
+						vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*plot.StageStress)
+						if vgcomp == nil {
+							// create new one if needed
+							vgcomp = new(plot.StageStress)
+							vgin.BuildEnv.WireComponent(vgcomp)
+						}
+						vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+						vgcomp.Project = c.P
+						vgcomp.Result = c.R
+						vgout.Components = append(vgout.Components, vgcomp)
+						vgn = &vugu.VGNode{Component: vgcomp}
+						vgparent.AppendChild(vgn)
+					}
+				}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
+				vgparent.AppendChild(vgn)
+				vgn.SetInnerHTML(vugu.HTML("Drawn from the last solve. The added stress spreads as in a homogeneous elastic half-space (or by the 2:1 rule), whatever the layers; the column itself is one-dimensional."))
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
 			}
 		}
@@ -4113,6 +4798,26 @@ func (c *Plots) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 				}
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
+				if k.Name == "stress" {
+					{
+						vgcompKey := vugu.MakeCompKey(0xD131E4FDCA26A171^vgin.CurrentPositionHash(), vgiterkey)
+						// ask BuildEnv for prior instance of this specific component
+						vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*plot.StageStress)
+						if vgcomp == nil {
+							// create new one if needed
+							vgcomp = new(plot.StageStress)
+							vgin.BuildEnv.WireComponent(vgcomp)
+						}
+						vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+						vgcomp.Project = c.P
+						vgcomp.Result = c.R
+						vgout.Components = append(vgout.Components, vgcomp)
+						vgn = &vugu.VGNode{Component: vgcomp}
+						vgparent.AppendChild(vgn)
+					}
+				}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
 			}
 		}
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
@@ -4533,6 +5238,8 @@ func (c *Root) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 						vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
 						vgcomp.Changed = c.edited
 						vgcomp.F = c.form
+						vgcomp.P = c.resultFor
+						vgcomp.R = c.result
 						vgout.Components = append(vgout.Components, vgcomp)
 						vgn = &vugu.VGNode{Component: vgcomp}
 						vgparent.AppendChild(vgn)
