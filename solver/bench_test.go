@@ -66,3 +66,62 @@ func BenchmarkLargeColumnQuadratic(b *testing.B) {
 		}
 	}
 }
+
+// embankmentProject reads the example testdata/embankment.json: two
+// embankment lifts off the centre line, with submergence.
+func embankmentProject(b *testing.B) *Project {
+	data, err := os.ReadFile("../testdata/embankment.json")
+	if err != nil {
+		b.Fatal(err)
+	}
+	p, err := Decode(data)
+	if err != nil {
+		b.Fatal(err)
+	}
+	return p
+}
+
+// BenchmarkEmbankment solves the embankment example: the whole solve, of
+// which BenchmarkEmbankmentStress is the stress-spread set-up.
+func BenchmarkEmbankment(b *testing.B) {
+	p := embankmentProject(b)
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := Solve(p, nil); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// BenchmarkEmbankmentStress is the stress-spread set-up of the embankment
+// example as a solve does it: every stage's I(z) at every node
+// (stageFactors, which the time loop, the submergence and the result's
+// stage profiles share). Compare with
+// BenchmarkEmbankment for its share of a solve.
+func BenchmarkEmbankmentStress(b *testing.B) {
+	p := embankmentProject(b)
+	c := newColumn(p)
+	b.ReportAllocs()
+	for b.Loop() {
+		c.factors = nil
+		_ = newSubmergence(p, ResolveGammaW(p), c.stageFactors())
+		_ = c.stageStresses()
+	}
+}
+
+// BenchmarkEmbankment1D solves the embankment example with each lift as
+// the same pressure over the whole top (no area, no submergence): the
+// difference from BenchmarkEmbankment is everything loads with geometry
+// cost, the set-up and the submergence followed at every step.
+func BenchmarkEmbankment1D(b *testing.B) {
+	p := embankmentProject(b)
+	for i, l := range p.Loads {
+		p.Loads[i] = Load{Start: l.Start, Ramp: l.Ramp, Q: l.Pressure()}
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := Solve(p, nil); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

@@ -16,6 +16,8 @@ type column struct {
 	m      *fem.Mesh
 	height float64
 	tops   []float64 // depth of the top of each layer, plus the base
+	// factors is Δσ/q of every load stage at the nodes (stageFactors).
+	factors [][]float64
 }
 
 // newColumn fills in the defaults of a validated project and meshes it.

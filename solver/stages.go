@@ -159,9 +159,10 @@ type submergence struct {
 	fills  []int       // every fill stage (for Hf)
 }
 
-// newSubmergence prepares the submergence of the fill stages of p at the
-// node depths z; nil when p has no fill.
-func newSubmergence(p *Project, gw float64, z []float64) *submergence {
+// newSubmergence prepares the submergence of the fill stages of p, with
+// factor[i] the factor Iᵢ of stage i at the nodes (kept, not copied); nil
+// when p has no fill.
+func newSubmergence(p *Project, gw float64, factor [][]float64) *submergence {
 	var sb submergence
 	sb.zw = p.WaterTable
 	for i, l := range p.Loads {
@@ -192,11 +193,7 @@ func newSubmergence(p *Project, gw float64, z []float64) *submergence {
 			gs = f.Gamma
 		}
 		sb.loss = append(sb.loss, f.Gamma-gs+gw)
-		fz := make([]float64, len(z))
-		for j, d := range z {
-			fz[j] = p.Loads[i].Factor(d)
-		}
-		sb.factor = append(sb.factor, fz)
+		sb.factor = append(sb.factor, factor[i])
 	}
 	return &sb
 }
@@ -291,32 +288,56 @@ func (tr *transient) settleFinal(sigInf, uInf []float64) (s, hs float64) {
 	return s, sb.submerged(p.Loads, inf, false, s)
 }
 
-// stageStresses lists the stress change with depth of every stage, on at
-// most stageDepths depths.
+// stageFactors is Δσ/q of every load stage at the nodes, computed once
+// per column (the closed forms cost a few atan each).
+func (c *column) stageFactors() [][]float64 {
+	if c.factors == nil {
+		c.factors = make([][]float64, len(c.p.Loads))
+		for i, l := range c.p.Loads {
+			f := make([]float64, c.m.Nodes())
+			for j, z := range c.m.Z {
+				f[j] = l.Factor(z)
+			}
+			c.factors[i] = f
+		}
+	}
+	return c.factors
+}
+
+// stageStresses lists the stress change with depth of every stage at
+// about stageDepths nodes (every k-th node and the base): the factors the
+// solve used, not a second evaluation.
 func (c *column) stageStresses() []StageStress {
 	p := c.p
 	if len(p.Loads) == 0 {
 		return nil
 	}
-	n := min(stageDepths, c.m.Nodes())
-	depth := make([]float64, n)
-	for i := range depth {
-		depth[i] = c.height * float64(i) / float64(n-1)
+	n := c.m.Nodes()
+	step := max(1, (n-1+stageDepths-2)/(stageDepths-1))
+	var idx []int
+	for j := 0; j < n-1; j += step {
+		idx = append(idx, j)
 	}
+	idx = append(idx, n-1)
+	depth := make([]float64, len(idx))
+	for k, j := range idx {
+		depth[k] = c.m.Z[j]
+	}
+	factors := c.stageFactors()
 	out := make([]StageStress, len(p.Loads))
 	for i, l := range p.Loads {
-		f := make([]float64, n)
-		for j, z := range depth {
-			f[j] = l.Factor(z)
+		f := make([]float64, len(idx))
+		for k, j := range idx {
+			f[k] = factors[i][j]
 		}
 		out[i] = StageStress{Q: l.Pressure(), Depth: depth, Factor: f}
 	}
 	return out
 }
 
-// stageDepths is the number of depths at which Result.Consolidation.Stages
-// gives each stage's factor: enough for a plot, few enough for any
-// number of stages.
+// stageDepths is about the number of depths at which
+// Result.Consolidation.Stages gives each stage's factor: enough for a
+// plot, few enough for any number of stages.
 const stageDepths = 101
 
 // loadWarnings warns about load stages whose loaded area is narrow against

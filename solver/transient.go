@@ -62,14 +62,16 @@ func newTransient(c *column, opt *Options) *transient {
 	tr.next = make([]float64, len(tr.held))
 	tr.sigma = make([]float64, n)
 	tr.shapes = make([][]float64, len(p.Loads))
+	factors := c.stageFactors()
 	for i, l := range p.Loads {
 		f := make([]float64, n)
-		for j, z := range m.Z {
-			f[j] = l.Pressure() * l.Factor(z)
+		q := l.Pressure()
+		for j, v := range factors[i] {
+			f[j] = q * v
 		}
 		tr.shapes[i] = f
 	}
-	tr.sub = newSubmergence(p, gw, m.Z)
+	tr.sub = newSubmergence(p, gw, factors)
 	return tr
 }
 
