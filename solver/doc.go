@@ -12,6 +12,17 @@
 //	if err != nil { … }           // err is a Problems list: path + message each
 //	r, err := solver.Solve(p, nil)
 //
+// Every refusal is a Problem: a field path (Path, "" for the file as a
+// whole), a reason to test with errors.Is (Err, one of the Err* values)
+// and a Message to show beside the field; callers never parse the error
+// text. Broken JSON says where ("line 3, column 12: …"); a file of
+// another kind (results, CSV) is named as such (ErrNotProject). A
+// column whose equations cannot be factorised stops the solve with an
+// ErrNumerical problem at the k of the layer where it failed, naming the
+// depth; an output that is not finite is refused at its own path under
+// ResultPath ("result.steady.head[12]"), so a Result holds only finite
+// numbers and always encodes to JSON.
+//
 // Depth z is positive downward from the top of the column. Heads are
 // piezometric levels in metres above the top (negative below it). Units are
 // SI: m, kPa, kN/m³, day, m/s, 1/kPa. Every function leaves its arguments
@@ -222,63 +233,89 @@
 // MaxStored numbers in one result (ErrTooLarge, reported at mesh.maxSize,
 // stepping.firstStep or times).
 //
+// Every number also has a physical bound (the constants in bounds.go),
+// generous for any real soil yet narrow enough that nothing inside them
+// overflows in the numerics; a value outside it is refused with
+// ErrOutOfRange and a message giving the allowed range and unit, e.g.
+// "layers[0].k: is out of range (allowed 1e-15 to 10 m/s, got 1e+308
+// m/s)". A value at or below zero where zero is not allowed keeps its own
+// reason (ErrNotPositive, ErrNegative); NaN and ±Inf (possible only
+// through the Go API) are ErrNotFinite.
+//
 //	field                     unit    allowed                         error when not
 //	format                    –       "porelight/1"                   ErrFormat
 //	units.*                   –       "m", "kPa", "day", "m/s"        ErrOutOfRange
-//	gammaW                    kN/m³   > 0 (0 or absent: 9.81)         ErrNotPositive
-//	waterTable                m       finite (negative: water above)  ErrNotFinite
+//	gammaW                    kN/m³   9 … 13 (0 or absent: 9.81)      ErrNotPositive, ErrOutOfRange
+//	waterTable                m       −10⁴ … 10⁴ (negative: above)    ErrOutOfRange
 //	layers                    –       1 … MaxLayers                   ErrRequired, ErrTooLarge
-//	layers[i].thickness       m       > 0                             ErrNotPositive
-//	layers[i].gammaSat        kN/m³   > gammaW                        ErrNotPositive, ErrOutOfRange
-//	layers[i].gamma           kN/m³   > 0 (absent: gammaSat)          ErrNotPositive
-//	layers[i].k               m/s     > 0                             ErrNotPositive
-//	layers[i].mv              1/kPa   > 0, or absent with an ecurve   ErrNotPositive, ErrRequired
-//	layers[i].calpha          –       ≥ 0, needs an ecurve            ErrNegative, ErrConflict
-//	layers[i].ecurve.e0       –       > 0                             ErrNotPositive
-//	layers[i].ecurve.cc       –       > 0                             ErrNotPositive
+//	layers[i].thickness       m       10⁻⁴ … 10⁴, column ≤ 10⁴ in all ErrNotPositive, ErrOutOfRange
+//	layers[i].gammaSat        kN/m³   > gammaW, ≤ 50                  ErrNotPositive, ErrOutOfRange
+//	layers[i].gamma           kN/m³   > 0, ≤ 50 (absent: gammaSat)    ErrNotPositive, ErrOutOfRange
+//	layers[i].k               m/s     10⁻¹⁵ … 10                      ErrNotPositive, ErrOutOfRange
+//	layers[i].mv              1/kPa   10⁻⁹ … 1, or absent with an     ErrNotPositive, ErrOutOfRange,
+//	                                  ecurve                          ErrRequired
+//	layers[i].calpha          –       0 … 1, needs an ecurve          ErrNegative, ErrOutOfRange, ErrConflict
+//	layers[i].ecurve.e0       –       > 0, ≤ 30                       ErrNotPositive, ErrOutOfRange
+//	layers[i].ecurve.cc       –       > 0, ≤ 20                       ErrNotPositive, ErrOutOfRange
 //	layers[i].ecurve.cr       –       0 ≤ cr ≤ cc                     ErrNegative, ErrOutOfRange
-//	layers[i].ecurve.sigmaP   kPa     > 0; not with ocr               ErrNotPositive, ErrConflict
-//	layers[i].ecurve.ocr      –       ≥ 1; not with sigmaP            ErrOutOfRange, ErrConflict
-//	top|bottom.head           m       finite; drained end only        ErrNotFinite, ErrConflict
-//	top|bottom.inflow         m/s     finite; undrained end, and the  ErrNotFinite, ErrConflict
+//	layers[i].ecurve.sigmaP   kPa     > 0, ≤ 10⁵; not with ocr        ErrNotPositive, ErrOutOfRange, ErrConflict
+//	layers[i].ecurve.ocr      –       1 … 1000; not with sigmaP       ErrOutOfRange, ErrConflict
+//	top|bottom.head           m       −10⁴ … 10⁴; drained end only    ErrOutOfRange, ErrConflict
+//	top|bottom.inflow         m/s     −1 … 1; undrained end, and the  ErrOutOfRange, ErrConflict
 //	                                  other end drained
-//	top|bottom.excess[j].t    day     ≥ 0, not decreasing             ErrNegative, ErrNotSorted
-//	top|bottom.excess[j].value kPa    finite; drained end only        ErrNotFinite, ErrConflict
+//	top|bottom.excess[j].t    day     0 … 10⁹, not decreasing         ErrNegative, ErrOutOfRange, ErrNotSorted
+//	top|bottom.excess[j].value kPa    −10⁵ … 10⁵; drained end only    ErrOutOfRange, ErrConflict
 //	loads                     –       at most MaxLoads                ErrTooLarge
-//	loads[j].start, .ramp     day     ≥ 0                             ErrNegative
-//	loads[j].q                kPa     finite (negative removes)       ErrNotFinite
-//	loads[j].profile[k].z     m       finite, increasing              ErrNotFinite, ErrNotSorted
-//	loads[j].fill.thickness   m       finite, ≠ 0 (< 0 removes); not  ErrNotPositive, ErrConflict
-//	                                  with q
-//	loads[j].fill.gamma       kN/m³   > 0                             ErrNotPositive
-//	loads[j].fill.gammaSat    kN/m³   ≥ gammaW (absent: gamma)        ErrNotPositive, ErrOutOfRange
+//	loads[j].start, .ramp     day     0 … 10⁹                         ErrNegative, ErrOutOfRange
+//	loads[j].q                kPa     −10⁵ … 10⁵ (negative removes)   ErrOutOfRange
+//	loads[j].profile[k].z     m       −10⁴ … 10⁴, increasing          ErrOutOfRange, ErrNotSorted
+//	loads[j].profile[k].value –       −1000 … 1000 (a factor on q)    ErrOutOfRange
+//	loads[j].fill.thickness   m       −10³ … 10³, ≠ 0 (< 0 removes);  ErrNotPositive, ErrOutOfRange,
+//	                                  not with q                      ErrConflict
+//	loads[j].fill.gamma       kN/m³   > 0, ≤ 50                       ErrNotPositive, ErrOutOfRange
+//	loads[j].fill.gammaSat    kN/m³   gammaW … 50 (absent: gamma)     ErrNotPositive, ErrOutOfRange
 //	loads[j].area.shape       –       "strip", "rectangle", "circle", ErrRequired, ErrOutOfRange,
 //	                                  "embankment" (needs a fill);    ErrConflict
 //	                                  not with a profile
 //	loads[j].area.method      –       "", "elastic" or "2:1"          ErrOutOfRange
-//	loads[j].area.width       m       > 0 (strip, rectangle); ≥ 0     ErrNotPositive, ErrNegative,
-//	                                  (embankment crest)              ErrConflict
-//	loads[j].area.length      m       > 0, rectangle only             ErrNotPositive, ErrConflict
-//	loads[j].area.radius      m       > 0, circle only                ErrNotPositive, ErrConflict
-//	loads[j].area.slope       –       > 0 (horizontal per vertical),  ErrNotPositive, ErrConflict
-//	                                  embankment only
-//	loads[j].area.x, .y       m       finite; y for a rectangle only; ErrNotFinite, ErrConflict
-//	                                  a circle takes x = y = 0
-//	initialExcess[k].z        m       finite, increasing              ErrNotFinite, ErrNotSorted
-//	times[j]                  day     > 0, increasing                 ErrNotPositive, ErrNotSorted
+//	loads[j].area.width       m       10⁻³ … 10⁵ (strip, rectangle);  ErrNotPositive, ErrNegative,
+//	                                  0 … 10⁵ (embankment crest)      ErrOutOfRange, ErrConflict
+//	loads[j].area.length      m       10⁻³ … 10⁵, rectangle only      ErrNotPositive, ErrOutOfRange, ErrConflict
+//	loads[j].area.radius      m       10⁻³ … 10⁵, circle only         ErrNotPositive, ErrOutOfRange, ErrConflict
+//	loads[j].area.slope       –       10⁻³ … 100 (horizontal per      ErrNotPositive, ErrOutOfRange, ErrConflict
+//	                                  vertical), embankment only
+//	loads[j].area.x, .y       m       −10⁵ … 10⁵; y for a rectangle   ErrOutOfRange, ErrConflict
+//	                                  only; a circle takes x = y = 0
+//	initialExcess[k].z        m       −10⁴ … 10⁴, increasing          ErrOutOfRange, ErrNotSorted
+//	initialExcess[k].value    kPa     −10⁵ … 10⁵                      ErrOutOfRange
+//	times[j]                  day     > 0, ≤ 10⁹, increasing          ErrNotPositive, ErrOutOfRange, ErrNotSorted
 //	times                     –       nodes × (count + 7) + steps ×   ErrTooLarge
 //	                                  (6 + 2 piezometers) ≤ MaxStored
 //	piezometers[j]            m       0 … column height               ErrNegative, ErrOutOfRange
 //	targetDegree              –       0 < value < 1 (absent: 0.95)    ErrOutOfRange
-//	designLife                day     > 0 (absent: 50 years)          ErrNotPositive
+//	designLife                day     > 0, ≤ 10⁹ (absent: 50 years)   ErrNotPositive, ErrOutOfRange
 //	mesh.order                –       1 or 2 (absent: 1)              ErrOutOfRange
-//	mesh.maxSize              m       > 0 (absent: height/200)        ErrNotPositive, ErrTooLarge
-//	mesh.minPerLayer          –       ≥ 0 (absent: 4)                 ErrNegative
+//	mesh.maxSize              m       10⁻⁶ … 10⁴ (absent: height/200) ErrNotPositive, ErrOutOfRange, ErrTooLarge
+//	mesh.minPerLayer          –       0 … MaxElements (absent: 4)     ErrNegative, ErrTooLarge
 //	stepping.theta            –       0.5 … 1 (absent: 0.5)           ErrOutOfRange
-//	stepping.firstStep        day     > 0 (absent: 1 minute)          ErrNotPositive, ErrTooLarge
+//	stepping.dampedSteps      –       −MaxSteps … MaxSteps (absent:   ErrOutOfRange
+//	                                  4; negative: none)
+//	stepping.firstStep        day     10⁻⁹ … 10⁹ (absent: 1 minute)   ErrNotPositive, ErrOutOfRange, ErrTooLarge
 //	stepping.growth           –       1 … 10 (absent: 1.1)            ErrOutOfRange
-//	stepping.endTime          day     > 0 (absent: see Stepping)      ErrNotPositive
+//	stepping.endTime          day     > 0, ≤ 10⁹ (absent: see         ErrNotPositive, ErrOutOfRange
+//	                                  Stepping)
+//	monitoring.…readings[j].t day     0 … 10⁹, increasing             ErrNegative, ErrOutOfRange, ErrNotSorted
+//	monitoring.plates[i]…value m      −1000 … 1000                    ErrOutOfRange
+//	monitoring.piezometers[i].depth m 0 … column height               ErrNegative, ErrOutOfRange
+//	monitoring.piezometers[i]…value kPa −10⁶ … 10⁶                    ErrOutOfRange
 //	monitoring.*              see Monitoring and its validation
+//
+// Inside the bounds every output of Solve is finite: Solve checks it and
+// would refuse a non-finite one with ErrNumerical at the field most
+// likely at fault. A column at the edges of several bounds at once (a
+// sealed end beside layers whose k differ by 10¹⁶) can make the equations
+// impossible to factorise in floating point; that too is ErrNumerical,
+// naming the layer and depth.
 //
 // Legal but unusual values give warnings in the Result, never errors: a
 // permeability outside 1e-13 … 1 m/s, a fine-grained layer (k < 1e-7 m/s)

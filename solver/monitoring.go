@@ -51,14 +51,14 @@ func validMonitoring(ps *Problems, m *Monitoring, height float64) {
 		ps.Add("monitoring", ErrTooLarge, fmt.Sprintf("%d records, the limit is %d", n, MaxRecords))
 	}
 	for i, pl := range m.Plates {
-		v.readings(fmt.Sprintf("monitoring.plates[%d]", i), pl.Readings)
+		v.readings(fmt.Sprintf("monitoring.plates[%d]", i), pl.Readings, MaxPlateReading, "m")
 	}
 	for i, pz := range m.Piezometers {
 		at := fmt.Sprintf("monitoring.piezometers[%d]", i)
-		if nonNegative(ps, at+".depth", pz.Depth) && height > 0 && pz.Depth > height*(1+1e-12) {
+		if upTo(ps, at+".depth", pz.Depth, MaxDepth, "m") && height > 0 && pz.Depth > height*(1+1e-12) {
 			ps.Add(at+".depth", ErrOutOfRange, fmt.Sprintf("depth %g m is below the base of the column at %g m", pz.Depth, height))
 		}
-		v.readings(at, pz.Readings)
+		v.readings(at, pz.Readings, MaxPressureReading, "kPa")
 	}
 	if v.dated != "" && !v.hasStart {
 		ps.Add("monitoring.start", ErrRequired, fmt.Sprintf("%s gives a date; dates count from the calendar date of day 0", v.dated))
@@ -74,8 +74,9 @@ type monitorCheck struct {
 	dated    string // path of the first reading that gives a date
 }
 
-// readings checks one record's readings; at is the record's path.
-func (v *monitorCheck) readings(at string, rs []Reading) {
+// readings checks one record's readings; at is the record's path, and
+// values are bounded by ±limit (in unit).
+func (v *monitorCheck) readings(at string, rs []Reading, limit float64, unit string) {
 	ps := v.ps
 	if len(rs) > MaxReadings {
 		ps.Add(at+".readings", ErrTooLarge, fmt.Sprintf("%d readings, the limit is %d", len(rs), MaxReadings))
@@ -106,10 +107,10 @@ func (v *monitorCheck) readings(at string, rs []Reading) {
 					ok = true
 				}
 			}
-		} else if nonNegative(ps, path, r.T) {
+		} else if upTo(ps, path, r.T, MaxTime, "days") {
 			t, ok, text = r.T, true, fmt.Sprintf("day %g", r.T)
 		}
-		finite(ps, rp+".value", r.Value)
+		within(ps, rp+".value", r.Value, limit, unit)
 		if ok && prevOK {
 			switch {
 			case t < prev:
@@ -132,6 +133,13 @@ func (v *monitorCheck) readings(at string, rs []Reading) {
 // negative or not finite. It does not check the order of the readings
 // (Validate does).
 func ReadingTimes(m *Monitoring, rs []Reading) ([]float64, error) {
+	return ReadingTimesAt(m, rs, "readings")
+}
+
+// ReadingTimesAt is ReadingTimes for the readings at field path list,
+// e.g. "monitoring.plates[2].readings": its problems name
+// "monitoring.plates[2].readings[3].date".
+func ReadingTimesAt(m *Monitoring, rs []Reading, list string) ([]float64, error) {
 	var ps Problems
 	var start time.Time
 	startOK := false
@@ -143,7 +151,7 @@ func ReadingTimes(m *Monitoring, rs []Reading) ([]float64, error) {
 	}
 	ts := make([]float64, len(rs))
 	for j, r := range rs {
-		at := fmt.Sprintf("readings[%d]", j)
+		at := IndexPath(list, j)
 		if r.Date == "" {
 			nonNegative(&ps, at+".t", r.T)
 			ts[j] = r.T

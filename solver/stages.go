@@ -60,8 +60,8 @@ func validArea(ps *Problems, at string, l Load) {
 	if a.Method != "" && a.Method != MethodElastic && a.Method != MethodSpread21 {
 		ps.Add(JoinPath(at, "method"), ErrOutOfRange, fmt.Sprintf("must be %q or %q, got %q", MethodElastic, MethodSpread21, a.Method))
 	}
-	finite(ps, JoinPath(at, "x"), a.X)
-	finite(ps, JoinPath(at, "y"), a.Y)
+	within(ps, JoinPath(at, "x"), a.X, MaxAreaSize, "m")
+	within(ps, JoinPath(at, "y"), a.Y, MaxAreaSize, "m")
 	type size struct {
 		name string
 		v    float64
@@ -89,7 +89,7 @@ func validArea(ps *Problems, at string, l Load) {
 		}
 	case load.Embankment:
 		pick("slope")
-		nonNegative(ps, JoinPath(at, "width"), a.Width)
+		upTo(ps, JoinPath(at, "width"), a.Width, MaxAreaSize, "m")
 		none = slices.DeleteFunc(none, func(s size) bool { return s.name == "width" })
 		if l.Fill == nil {
 			ps.Add(JoinPath(at, "shape"), ErrRequired, "an embankment needs a fill: its thickness is the embankment's height")
@@ -102,7 +102,11 @@ func validArea(ps *Problems, at string, l Load) {
 		return
 	}
 	for _, s := range need {
-		positive(ps, JoinPath(at, s.name), s.v)
+		if s.name == "slope" {
+			bounded(ps, JoinPath(at, s.name), s.v, MinSlope, MaxSlope, "")
+		} else {
+			bounded(ps, JoinPath(at, s.name), s.v, MinAreaSize, MaxAreaSize, "m")
+		}
 	}
 	for _, s := range none {
 		if s.v != 0 {
@@ -120,11 +124,11 @@ func validFill(ps *Problems, at string, l Load, gw float64) {
 	if l.Q != 0 {
 		ps.Add(JoinPath(at, "thickness"), ErrConflict, "give q or a fill, not both")
 	}
-	if finite(ps, JoinPath(at, "thickness"), f.Thickness) && f.Thickness == 0 {
+	if within(ps, JoinPath(at, "thickness"), f.Thickness, MaxFillThickness, "m") && f.Thickness == 0 {
 		ps.Add(JoinPath(at, "thickness"), ErrNotPositive, "a fill needs a thickness (negative removes fill)")
 	}
-	positive(ps, JoinPath(at, "gamma"), f.Gamma)
-	if f.GammaSat != 0 && positive(ps, JoinPath(at, "gammaSat"), f.GammaSat) && f.GammaSat < gw {
+	bounded(ps, JoinPath(at, "gamma"), f.Gamma, 0, MaxUnitWeight, "kN/m³")
+	if f.GammaSat != 0 && bounded(ps, JoinPath(at, "gammaSat"), f.GammaSat, 0, MaxUnitWeight, "kN/m³") && f.GammaSat < gw {
 		ps.Add(JoinPath(at, "gammaSat"), ErrOutOfRange, fmt.Sprintf("must be at least gammaW = %g (got %g)", gw, f.GammaSat))
 	}
 }

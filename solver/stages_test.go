@@ -199,6 +199,13 @@ func TestValidateStages(t *testing.T) {
 		{"unknown method", Load{Q: 10, Area: &Area{Shape: "strip", Width: 4, Method: "3:1"}}, []decProblem{{"loads[0].area.method", ErrOutOfRange}}},
 		{"area and profile", Load{Q: 10, Area: &Area{Shape: "strip", Width: 4}, Profile: []DepthValue{{0, 1}}}, []decProblem{{"loads[0].area.shape", ErrConflict}}},
 		{"NaN offset", Load{Q: 10, Area: &Area{Shape: "strip", Width: 4, X: nan}}, []decProblem{{"loads[0].area.x", ErrNotFinite}}},
+		// Physical bounds (bounds.go).
+		{"fill too thick", Load{Fill: &Fill{Thickness: -2 * MaxFillThickness, Gamma: 19}}, []decProblem{{"loads[0].fill.thickness", ErrOutOfRange}}},
+		{"fill too heavy", Load{Fill: &Fill{Thickness: 2, Gamma: 19, GammaSat: 2 * MaxUnitWeight}}, []decProblem{{"loads[0].fill.gammaSat", ErrOutOfRange}}},
+		{"strip too wide, offset too far", Load{Q: 10, Area: &Area{Shape: "strip", Width: 2 * MaxAreaSize, X: -2 * MaxAreaSize}},
+			[]decProblem{{"loads[0].area.width", ErrOutOfRange}, {"loads[0].area.x", ErrOutOfRange}}},
+		{"circle too small", Load{Q: 10, Area: &Area{Shape: "circle", Radius: MinAreaSize / 2}}, []decProblem{{"loads[0].area.radius", ErrOutOfRange}}},
+		{"slope too flat", Load{Fill: fill(), Area: &Area{Shape: "embankment", Width: 4, Slope: 2 * MaxSlope}}, []decProblem{{"loads[0].area.slope", ErrOutOfRange}}},
 	}
 	for _, c := range cases {
 		t.Run(c.name, func(t *testing.T) {
