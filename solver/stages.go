@@ -368,3 +368,9 @@ func (k *consolidation) submerge() {
 	_, hs := k.tr.settleFinal(k.sigInf, k.uInf)
 	k.r.Summary.Submerged = ptr(hs)
 }
+
+// ProfileAt evaluates a depth profile (Load.Profile, Project.InitialExcess)
+// at depth z, m: linear between points, constant beyond the ends, and def
+// everywhere when the profile is empty. The points must increase in z
+// (Validate).
+func ProfileAt(pts []DepthValue, z, def float64) float64 { return profileAt(pts, z, def) }

@@ -38,23 +38,38 @@ func StageName(p *solver.Project, i int) string {
 // StressFigure builds the added stress plot: for every load stage the
 // ratio Δσ/q against depth, and the stress change Δσ = q·I it adds once
 // fully applied with the sum of all stages (before any submergence),
-// beside the layer strip. The numbers come from the result
-// (solver.Consolidation.Stages).
+// beside the layer strip, and the project's initial excess profile (an
+// undrained stress increase at day 0). The stages come from the result
+// (solver.Consolidation.Stages), the initial excess from p.
 func StressFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
 	f := newFigure("plot-stress", "Added vertical stress with depth", w, h)
 	switch {
 	case r == nil:
 		return f.message(msgNoResult)
-	case r.Consolidation == nil || len(r.Consolidation.Stages) == 0:
+	case r.Consolidation == nil || (len(r.Consolidation.Stages) == 0 && (p == nil || len(p.InitialExcess) == 0)):
 		return f.message(msgNoStages)
 	}
 	st := r.Consolidation.Stages
 	bs := layerBands(p, r)
-	zmax := columnDepth(bs, st[0].Depth)
+	zmax := columnDepth(bs)
 	if !(zmax > 0) {
 		return f.message(msgNoStages)
 	}
-	sum := make([]float64, len(st[0].Depth))
+	depth := make([]float64, 101)
+	for i := range depth {
+		depth[i] = zmax * float64(i) / 100
+	}
+	if len(st) > 0 {
+		depth = st[0].Depth
+	}
+	var initial []float64
+	if p != nil && len(p.InitialExcess) > 0 {
+		initial = make([]float64, len(depth))
+		for i, z := range depth {
+			initial[i] = solver.ProfileAt(p.InitialExcess, z, 0)
+		}
+	}
+	sum := make([]float64, len(depth))
 	added := make([][]float64, len(st))
 	for i, s := range st {
 		added[i] = make([]float64, len(s.Factor))
@@ -66,7 +81,10 @@ func StressFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
 		}
 	}
 	flo, fhi, _ := finiteRange(factorsOf(st)...)
-	slo, shi, _ := finiteRange(append(added, sum)...)
+	if len(st) == 0 {
+		flo, fhi = 0, 1
+	}
+	slo, shi, _ := finiteRange(append(added, sum, initial)...)
 	panels, clips := f.depthFigure(p, bs, zmax, []panelSpec{
 		// Hi 1/1.03 so that the 3 % padding of depthFigure ends the axis at 1.
 		{Weight: 1, Lo: math.Min(0, flo), Hi: math.Max(1, fhi) / 1.03, Label: "Δσ/q of each stage"},
@@ -83,11 +101,18 @@ func StressFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
 		read := func(q Pt) string { return "z = " + sig(q.DY, 3) + " m, ΣΔσ = " + sig(q.DX, 4) + " kPa" }
 		tot := styleAt(len(st))
 		tot.Width = 2.5
-		f.addSeries(panels[1], clips[1], "All stages", tot, sum, st[0].Depth, read)
+		f.addSeries(panels[1], clips[1], "All stages", tot, sum, depth, read)
+	}
+	var ini *Series
+	if initial != nil {
+		read := func(q Pt) string { return "z = " + sig(q.DY, 3) + " m, Δu0 = " + sig(q.DX, 4) + " kPa" }
+		ini = f.addSeries(panels[1], clips[1], "Initial excess (day 0)", withDash(styleAt(len(st)+1), "2 3"), initial, depth, read)
 	}
 	legend := append([]*Series(nil), panels[0].Series...)
-	if len(st) > 1 && len(panels[1].Series) > 0 {
-		legend = append(legend, panels[1].Series[len(panels[1].Series)-1])
+	for _, s := range panels[1].Series {
+		if s.Name == "All stages" || s == ini {
+			legend = append(legend, s)
+		}
 	}
 	f.legend(f.W-legendW+8, depthTop+8, legendW-12, int((f.H-depthTop-20)/16), legend)
 	return f

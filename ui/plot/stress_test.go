@@ -108,3 +108,34 @@ func TestSectionFigure(t *testing.T) {
 		t.Errorf("no loaded area: want a message")
 	}
 }
+
+// The initial excess profile is drawn beside the stages' added stress,
+// and alone when there is no stage.
+func TestStressFigureInitialExcess(t *testing.T) {
+	t.Parallel()
+	p := stressProject()
+	p.InitialExcess = []solver.DepthValue{{Z: 0, Value: 30}, {Z: 12, Value: 0}}
+	for _, loads := range [][]solver.Load{p.Loads, nil} {
+		p.Loads = loads
+		r, err := solver.Solve(p, nil)
+		if err != nil {
+			t.Fatal(err)
+		}
+		f := StressFigure(p, r, 800, 500)
+		if f.Message != "" {
+			t.Fatalf("%d stages: message %q", len(loads), f.Message)
+		}
+		var ini *Series
+		for _, s := range f.Panels[1].Series {
+			if s.Name == "Initial excess (day 0)" {
+				ini = s
+			}
+		}
+		if ini == nil || len(ini.Pts) == 0 {
+			t.Fatalf("%d stages: no initial excess curve", len(loads))
+		}
+		if got := ini.Pts[0]; math.Abs(got.DX-30) > 1e-9 || got.DY != 0 {
+			t.Errorf("%d stages: first point %+v, want 30 kPa at the top", len(loads), got)
+		}
+	}
+}
