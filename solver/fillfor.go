@@ -5,6 +5,11 @@ import (
 	"math"
 )
 
+// FillThicknessPath is the path prefix of FillThickness's own arguments in
+// its Problems: "fillThickness.stage", "fillThickness.t",
+// "fillThickness.level" (project fields keep their own paths).
+const FillThicknessPath = "fillThickness"
+
 // FillThickness returns the thickness of the fill of stage p.Loads[stage]
 // for which the finished surface reaches level (m above the original top
 // of the column) at time t (days): the fill present at t, less the
@@ -15,23 +20,23 @@ import (
 // method, from the thickness given; usually 3 to 5 solves) to within
 // 1 mm, and does not change p. The stage must be a fill with a positive
 // thickness placed by t; p must be valid. Errors are Problems, as from
-// Solve, or ErrCanceled.
+// Solve (arguments under FillThicknessPath), or ErrCanceled.
 func FillThickness(p *Project, stage int, t, level float64, opt *Options) (float64, error) {
 	var ps Problems
 	at := IndexPath("loads", stage)
 	switch {
 	case stage < 0 || stage >= len(p.Loads):
-		ps.Add("loads", ErrOutOfRange, fmt.Sprintf("no stage %d", stage+1))
+		ps.Add(JoinPath(FillThicknessPath, "stage"), ErrOutOfRange, fmt.Sprintf("no stage %d", stage+1))
 	case p.Loads[stage].Fill == nil || p.Loads[stage].Fill.Thickness <= 0:
 		ps.Add(JoinPath(at, "fill"), ErrRequired, "the stage must be a fill with a positive thickness")
 	case p.Loads[stage].fraction(t, false) < 1:
 		ps.Add(JoinPath(at, "start"), ErrConflict, fmt.Sprintf("the fill is not complete by %g days", t))
 	}
-	if !(t > 0) || math.IsInf(t, 0) {
-		ps.Add("", ErrOutOfRange, fmt.Sprintf("the time must be > 0 days (got %g)", t))
+	if !(t > 0) || t > MaxTime {
+		ps.Add(JoinPath(FillThicknessPath, "t"), ErrOutOfRange, fmt.Sprintf("allowed 0 to %g days, got %g", float64(MaxTime), t))
 	}
-	if math.IsNaN(level) || math.IsInf(level, 0) {
-		ps.Add("", ErrNotFinite, fmt.Sprintf("the target level (got %g)", level))
+	if math.IsNaN(level) || math.Abs(level) > MaxFillThickness {
+		ps.Add(JoinPath(FillThicknessPath, "level"), ErrOutOfRange, fmt.Sprintf("allowed −%g to %g m, got %g", float64(MaxFillThickness), float64(MaxFillThickness), level))
 	}
 	if err := ps.Err(); err != nil {
 		return 0, err

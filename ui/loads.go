@@ -35,9 +35,6 @@ func pointPath(list string, k int, leaf string) string {
 func (c *Loads) add()         { c.F.AddLoad(); c.Changed() }
 func (c *Loads) remove(i int) { c.F.RemoveLoad(i); c.Changed() }
 
-func (c *Loads) addPoint(list string)           { c.F.AddPoint(list); c.Changed() }
-func (c *Loads) removePoint(list string, k int) { c.F.RemovePoint(list, k); c.Changed() }
-
 func (c *Loads) load(i int) solver.Load { return c.F.Draft().Loads[i] }
 func (c *Loads) isFill(i int) bool      { return c.load(i).Fill != nil }
 func (c *Loads) hasArea(i int) bool     { return c.load(i).Area != nil }
@@ -81,26 +78,30 @@ var areaKinds = []areaKind{
 // areaSize is one size input of a loaded area.
 type areaSize struct{ Name, Label, Unit, Hint string }
 
-// sizes are the inputs the area of stage i takes, in order.
+// sizes are the inputs under stage i, in order: a fill's unit weights,
+// then the sizes its area takes and the column's offset. Name is the path
+// inside the stage.
 func (c *Loads) sizes(i int) []areaSize {
-	a := c.load(i).Area
-	if a == nil {
-		return nil
+	var out []areaSize
+	if c.isFill(i) {
+		out = append(out, areaSize{"fill.gamma", "Fill γ", "kN/m³", "Unit weight above the water table"},
+			areaSize{"fill.gammaSat", "γsat below water", "kN/m³", "Empty: the same as γ. Fill that settles below the water table weighs γsat − γw"})
 	}
-	x := areaSize{"x", "Column offset x", "m", "Horizontal distance of the column from the centre line of the area, across its width"}
-	switch a.Shape {
-	case "strip":
-		return []areaSize{{"width", "Width B", "m", ""}, x}
-	case "rectangle":
-		return []areaSize{{"width", "Width B", "m", ""}, {"length", "Length L", "m", ""}, x,
-			{"y", "Column offset y", "m", "Horizontal distance of the column from the centre of the area, along its length"}}
-	case "circle":
-		return []areaSize{{"radius", "Radius R", "m", "The column stands on the axis of the circle"}}
-	case "embankment":
-		return []areaSize{{"width", "Crest width", "m", "Width of the top of the embankment; 0 for a triangular section"},
-			{"slope", "Side slope", "H per V", "Horizontal run per unit height of each side slope, e.g. 2 for 2H:1V"}, x}
+	x := areaSize{"area.x", "Column offset x", "m", "Horizontal distance of the column from the centre line of the area, across its width"}
+	switch a := c.load(i).Area; {
+	case a == nil:
+	case a.Shape == "strip":
+		out = append(out, areaSize{"area.width", "Width B", "m", ""}, x)
+	case a.Shape == "rectangle":
+		out = append(out, areaSize{"area.width", "Width B", "m", ""}, areaSize{"area.length", "Length L", "m", ""}, x,
+			areaSize{"area.y", "Column offset y", "m", "Horizontal distance of the column from the centre of the area, along its length"})
+	case a.Shape == "circle":
+		out = append(out, areaSize{"area.radius", "Radius R", "m", "The column stands on the axis of the circle"})
+	case a.Shape == "embankment":
+		out = append(out, areaSize{"area.width", "Crest width", "m", "Width of the top of the embankment; 0 for a triangular section"},
+			areaSize{"area.slope", "Side slope", "H per V", "Horizontal run per unit height of each side slope, e.g. 2 for 2H:1V"}, x)
 	}
-	return nil
+	return out
 }
 
 // areaProblems are the problems of stage i's area that no input of the

@@ -1,9 +1,12 @@
 package ui
 
 import (
+	"math"
 	"strconv"
 	"strings"
 	"testing"
+
+	"porelight/solver"
 )
 
 // The load editor turns a stage into a fill over an embankment, shows
@@ -82,5 +85,55 @@ func TestPageSubmergedRow(t *testing.T) {
 	p.typeInto("waterTable", "0")
 	if p.find("sum-submerged") == nil {
 		t.Errorf("no submerged-fill row for a fill on ground with the water table at the top")
+	}
+}
+
+// The fill-needed helper appears with a fill stage, finds the thickness
+// that finishes at the level asked (checked against the surface the
+// solver predicts with it: level = fill placed − settlement at that day,
+// to the helper's 1 mm), and types it into the stage.
+func TestPageFillNeed(t *testing.T) {
+	p := newPage(t, Sources{})
+	if p.find("fillneed") != nil {
+		t.Fatal("the fill helper shows without a fill stage")
+	}
+	p.fire("loads-0-kind", "change", map[string]any{"value": "fill"})
+	if p.find("fillneed") == nil {
+		t.Fatal("no fill helper for a fill stage")
+	}
+	p.typeInto("fillneed-level", "1,5x")
+	if got := p.text("fillneed-level-err"); got != "not a number" {
+		t.Errorf("level error %q", got)
+	}
+	p.typeInto("fillneed-level", "1.5")
+	p.typeInto("fillneed-day", "3000")
+	p.fire("fillneed-stage", "change", map[string]any{"value": "0"})
+	p.fire("fillneed-run", "click", nil)
+	if p.find("fillneed-error") != nil {
+		t.Fatalf("error: %s", p.text("fillneed-error"))
+	}
+	if !strings.Contains(p.text("fillneed-text"), "Stage 1 needs") {
+		t.Fatalf("result %q", p.text("fillneed-text"))
+	}
+	h := *p.root.need.thickness
+	p.fire("fillneed-apply", "click", nil)
+	m := p.root.form.Draft()
+	if got := m.Loads[0].Fill.Thickness; math.Abs(got-h) > 1e-9 {
+		t.Fatalf("stage 1 holds %g m, want the %g m found", got, h)
+	}
+	r := p.root.result
+	placed := 0.0
+	for _, l := range m.Loads {
+		if l.Fill != nil {
+			placed += l.Fill.Thickness
+		} // the demo's other stages are pressures: they add no height
+	}
+	s := r.Consolidation.Series
+	set := s.Settlement
+	if len(s.SettlementElog) > 0 {
+		set = s.SettlementElog
+	}
+	if got := placed - solver.SeriesAt(s.Time, set, 3000); math.Abs(got-1.5) > 2e-3 {
+		t.Errorf("finished level %.4f m on day 3000, want 1.5 m (±2 mm)", got)
 	}
 }

@@ -59,6 +59,7 @@ type Root struct {
 	notices   []notice
 	shareURL  string
 	fit       *fitState // back-analysis of the field records (monitor_root.go)
+	need      *fillNeed // the fill needed for a finished level (fill-need.go)
 	fold      folds     // which secondary sections are unfolded (folds.go)
 	printing  bool      // Print report is under way: every fold is open
 }
