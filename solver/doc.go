@@ -186,7 +186,11 @@
 // Us are self-consistent (for one layer, fully submerged as it settles,
 // s = mv H q/(1 + mv H γw)). The water table stays at its initial level.
 // Result.Consolidation.Stages gives every stage's q and I(z);
-// Summary.Submerged the final submerged thickness.
+// Summary.Submerged the final submerged thickness. Every stage's area
+// acts at the original ground surface, also a lift placed on earlier
+// fill. FillThickness finds the thickness of a fill stage that leaves the
+// finished surface at a chosen level on a chosen day, after the
+// predicted settlement (the secant method on whole solves).
 //
 // # Field monitoring
 //
