@@ -29,6 +29,7 @@ type transient struct {
 	set      Stepping     // resolved
 	sub      *submergence // nil without fill stages
 	settled  float64      // settlement of the top at the last record, m
+	sigmaHs  float64      // the submerged fill thickness sigma holds, m
 	progress func(float64) bool
 }
 
@@ -167,6 +168,9 @@ func (tr *transient) stressWith(dst []float64, t float64, left bool, s float64) 
 	}
 	if tr.sub != nil {
 		tr.sub.apply(dst, p.Loads, t, left, s)
+		if len(dst) > 0 && &dst[0] == &tr.sigma[0] {
+			tr.sigmaHs = tr.sub.submerged(p.Loads, t, left, s)
+		}
 	}
 	if len(p.InitialExcess) > 0 {
 		for j, z := range tr.c.m.Z {
@@ -261,9 +265,9 @@ func (tr *transient) startText() string {
 }
 
 // ramping reports whether a ramped load stage changes during (t0, t1),
-// or fill may be submerging.
+// or the submerged thickness of fill has changed since sigma was set.
 func (tr *transient) ramping(t0, t1 float64) bool {
-	if tr.sub != nil {
+	if tr.sub != nil && tr.sub.submerged(tr.c.p.Loads, t1, true, tr.settled) != tr.sigmaHs {
 		return true
 	}
 	for _, l := range tr.c.p.Loads {
