@@ -237,11 +237,12 @@ func (k *consolidation) prepareSeries() *Consolidation {
 	}
 	// The effective stress is followed element by element where an e–log
 	// curve needs it, and where it may fall: under a load removal or a
-	// rising pressure at a drained end. Under loading alone σ' = σ'0 + σ − u
-	// cannot drop below σ'0, since u ≤ σ.
-	k.followStress = k.anyCurve
+	// rising pressure at a drained end, or fill losing weight as it is
+	// submerged. Under loading alone σ' = σ'0 + σ − u cannot drop below
+	// σ'0, since u ≤ σ.
+	k.followStress = k.anyCurve || tr.sub != nil
 	for _, l := range p.Loads {
-		k.followStress = k.followStress || l.Q < 0
+		k.followStress = k.followStress || l.Pressure() < 0
 	}
 	for _, b := range []Boundary{p.Top, p.Bottom} {
 		for _, tv := range b.Excess {

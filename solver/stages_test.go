@@ -276,3 +276,31 @@ func TestFillThickness(t *testing.T) {
 		t.Errorf("a time before the fill is complete: no error")
 	}
 }
+
+// TestFillRemoval: removing fill (a negative thickness) acts as the
+// pressure taken off, γ × thickness: the same final settlement and series
+// as q stages (linear mv, Terzaghi 1943), within 1e-12 m.
+func TestFillRemoval(t *testing.T) {
+	t.Parallel()
+	fill := func(h float64) *Fill { return &Fill{Thickness: h, Gamma: 19} }
+	a, err := Solve(stageClay(4, 1, Load{Start: 0, Q: 38}, Load{Start: 500, Ramp: 5, Q: -19}), nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	b, err := Solve(stageClay(4, 1, Load{Start: 0, Fill: fill(2)}, Load{Start: 500, Ramp: 5, Fill: fill(-1)}), nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if d := math.Abs(*a.Summary.SettlementLinear - *b.Summary.SettlementLinear); d > 1e-12 {
+		t.Errorf("final settlements differ by %g m", d)
+	}
+	sa, sb := a.Consolidation.Series.Settlement, b.Consolidation.Series.Settlement
+	if len(sa) != len(sb) {
+		t.Fatalf("%d and %d steps", len(sa), len(sb))
+	}
+	for i := range sa {
+		if math.Abs(sa[i]-sb[i]) > 1e-12 {
+			t.Fatalf("step %d: %g and %g m", i, sa[i], sb[i])
+		}
+	}
+}
