@@ -8,14 +8,7 @@ import (
 // BenchmarkDemo solves the demo project (testdata/demo.json) with its own
 // settings: steady state, consolidation, e–log path and summary.
 func BenchmarkDemo(b *testing.B) {
-	data, err := os.ReadFile("../testdata/demo.json")
-	if err != nil {
-		b.Fatal(err)
-	}
-	p, err := Decode(data)
-	if err != nil {
-		b.Fatal(err)
-	}
+	p := demoProject(b)
 	b.ReportAllocs()
 	for b.Loop() {
 		if _, err := Solve(p, nil); err != nil {
@@ -67,16 +60,31 @@ func BenchmarkLargeColumnQuadratic(b *testing.B) {
 	}
 }
 
-// embankmentProject reads the example testdata/embankment.json: two
-// embankment lifts off the centre line, with submergence.
-func embankmentProject(b *testing.B) *Project {
-	data, err := os.ReadFile("../testdata/embankment.json")
+// demoProject decodes testdata/demo.json.
+func demoProject(tb testing.TB) *Project {
+	tb.Helper()
+	data, err := os.ReadFile("../testdata/demo.json")
 	if err != nil {
-		b.Fatal(err)
+		tb.Fatal(err)
 	}
 	p, err := Decode(data)
 	if err != nil {
-		b.Fatal(err)
+		tb.Fatal(err)
+	}
+	return p
+}
+
+// embankmentProject reads the example testdata/embankment.json: two
+// embankment lifts off the centre line, with submergence.
+func embankmentProject(tb testing.TB) *Project {
+	tb.Helper()
+	data, err := os.ReadFile("../testdata/embankment.json")
+	if err != nil {
+		tb.Fatal(err)
+	}
+	p, err := Decode(data)
+	if err != nil {
+		tb.Fatal(err)
 	}
 	return p
 }
