@@ -200,13 +200,24 @@ func RampAt(x0, x1, x, z float64) float64 {
 // of a symmetric embankment of crest width crest and side slopes of
 // horizontal run run, q the pressure under the crest: a uniform strip under
 // the crest and a ramp under each slope.
+//
+// The three parts share their edges, so the line-load integrals are
+// taken once at each of the four edges (four arctangents, not six):
+// with gᵢ = lineG and sᵢ = s²/(s² + z²) at s = x + c + a, x + c, x − c,
+// x − c − a (c the half crest, a the run),
+//
+//	I = (x+c+a)/a (g₁ − g₂) − z/(πa) (s₁ − s₂) + (g₂ − g₃)
+//	  − (x−c−a)/a (g₃ − g₄) + z/(πa) (s₃ − s₄).
 func EmbankmentAt(crest, run, x, z float64) float64 {
-	c := crest / 2
-	f := RampAt(-c-run, -c, x, z) + RampAt(c+run, c, x, z)
-	if crest > 0 {
-		f += StripAt(crest, x, z)
+	c, a := crest/2, run
+	e := [4]float64{x + c + a, x + c, x - c, x - c - a}
+	var g, q [4]float64
+	for i, s := range e {
+		g[i] = lineG(s, z)
+		q[i] = s * s / (s*s + z*z)
 	}
-	return f
+	k := z / (math.Pi * a)
+	return e[0]/a*(g[0]-g[1]) - k*(q[0]-q[1]) + (g[1] - g[2]) - e[3]/a*(g[2]-g[3]) + k*(q[2]-q[3])
 }
 
 // Osterberg is Osterberg's (1957) influence factor of a half-embankment at
