@@ -91,8 +91,10 @@ func (a Area) Check() error {
 }
 
 // Factor is Δσz/q at depth z under the column (the limit from below at
-// z ≤ 0). a must pass Check, otherwise the result is meaningless (NaN or
-// a wrong number); Factor does not panic.
+// z ≤ 0), in [0, 1]: far outside a loaded area the closed forms are
+// differences of nearly equal terms, and their rounding (about 1e-9) is
+// clamped away. a must pass Check, otherwise the result is meaningless
+// (NaN or a wrong number); Factor does not panic.
 func (a Area) Factor(z float64) float64 {
 	if a.Shape == Uniform {
 		return 1
@@ -101,17 +103,24 @@ func (a Area) Factor(z float64) float64 {
 		return a.spread(math.Max(z, 0))
 	}
 	z = math.Max(z, a.tiny())
+	f := math.NaN()
 	switch a.Shape {
 	case Strip:
-		return StripAt(a.Width, a.X, z)
+		f = StripAt(a.Width, a.X, z)
 	case Rectangle:
-		return RectangleAt(a.Width, a.Length, a.X, a.Y, z)
+		f = RectangleAt(a.Width, a.Length, a.X, a.Y, z)
 	case Circle:
-		return CircleAxis(a.Radius, z)
+		f = CircleAxis(a.Radius, z)
 	case Embankment:
-		return EmbankmentAt(a.Width, a.Run, a.X, z)
+		f = EmbankmentAt(a.Width, a.Run, a.X, z)
 	}
-	return math.NaN()
+	if f < 0 {
+		return 0
+	}
+	if f > 1 {
+		return 1
+	}
+	return f
 }
 
 // Narrowest is the least plan dimension of the area (the width of a strip
