@@ -3095,7 +3095,7 @@ func (c *Loads) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 					vgparent.AppendChild(vgn)
 					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
 					vgparent.AppendChild(vgn)
-					vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth class=\"pl-num\"\x3E#\x3C/th\x3E\x3Cth\x3EStart\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Eday\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ERamp\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Eday\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ELoad\x3C/th\x3E\x3Cth\x3Eq or fill\x3C/th\x3E\x3Cth\x3EArea\x3C/th\x3E\x3Cth\x3EΣq\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkPa\x3C/span\x3E\x3C/th\x3E\x3Cth class=\"pl-noprint\"\x3E\x3Cspan class=\"pl-vh\"\x3ERemove\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
+					vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth class=\"pl-num\"\x3E#\x3C/th\x3E\x3Cth\x3EStart\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Eday\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ERamp\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Eday\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ELoad\x3C/th\x3E\x3Cth\x3Eq or fill\x3C/th\x3E\x3Cth\x3EArea\x3C/th\x3E\x3Cth title=\"Pressure at the surface once this stage and those before it are fully applied (a fill: γ × thickness, before submergence)\"\x3EΣq\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkPa\x3C/span\x3E\x3C/th\x3E\x3Cth class=\"pl-noprint\"\x3E\x3Cspan class=\"pl-vh\"\x3ERemove\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
 					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 					vgparent.AppendChild(vgn)
 					for i := range c.F.Draft().Loads {
@@ -3367,6 +3367,44 @@ func (c *Loads) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 											_ = vgparent
 											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 											vgparent.AppendChild(vgn)
+											for vgiterkeyt, s := range c.sizes(i) {
+												var vgiterkey interface{} = vgiterkeyt
+												_ = vgiterkey
+												s := s
+												_ = s
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}}}
+												vgparent.AppendChild(vgn)
+												vgn.AddAttrInterface("for", form.IDOf(loadPath(i, s.Name)))
+												{
+													vgparent := vgn
+													_ = vgparent
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+													vgparent.AppendChild(vgn)
+													vgn.SetInnerHTML(s.Label)
+													{
+														vgcompKey := vugu.MakeCompKey(0xC13B35787452427B^vgin.CurrentPositionHash(), vgiterkey)
+														// ask BuildEnv for prior instance of this specific component
+														vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+														if vgcomp == nil {
+															// create new one if needed
+															vgcomp = new(Field)
+															vgin.BuildEnv.WireComponent(vgcomp)
+														}
+														vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+														vgcomp.Changed = c.Changed
+														vgcomp.F = c.F
+														vgcomp.Hint = s.Hint
+														vgcomp.Label = fmt.Sprintf("%s, stage %d", s.Label, i+1)
+														vgcomp.Path = loadPath(i, s.Name)
+														vgcomp.Unit = s.Unit
+														vgout.Components = append(vgout.Components, vgcomp)
+														vgn = &vugu.VGNode{Component: vgcomp}
+														vgparent.AppendChild(vgn)
+													}
+												}
+											}
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+											vgparent.AppendChild(vgn)
 											if c.hasArea(i) {
 												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}}}
 												vgparent.AppendChild(vgn)
@@ -3406,44 +3444,6 @@ func (c *Loads) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 															vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "2:1 spread"}
 															vgparent.AppendChild(vgn)
 														}
-													}
-												}
-											}
-											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-											vgparent.AppendChild(vgn)
-											for vgiterkeyt, s := range c.sizes(i) {
-												var vgiterkey interface{} = vgiterkeyt
-												_ = vgiterkey
-												s := s
-												_ = s
-												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}}}
-												vgparent.AppendChild(vgn)
-												vgn.AddAttrInterface("for", form.IDOf(loadPath(i, s.Name)))
-												{
-													vgparent := vgn
-													_ = vgparent
-													vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
-													vgparent.AppendChild(vgn)
-													vgn.SetInnerHTML(s.Label)
-													{
-														vgcompKey := vugu.MakeCompKey(0xC13B35787452427B^vgin.CurrentPositionHash(), vgiterkey)
-														// ask BuildEnv for prior instance of this specific component
-														vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-														if vgcomp == nil {
-															// create new one if needed
-															vgcomp = new(Field)
-															vgin.BuildEnv.WireComponent(vgcomp)
-														}
-														vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-														vgcomp.Changed = c.Changed
-														vgcomp.F = c.F
-														vgcomp.Hint = s.Hint
-														vgcomp.Label = fmt.Sprintf("%s, stage %d", s.Label, i+1)
-														vgcomp.Path = loadPath(i, s.Name)
-														vgcomp.Unit = s.Unit
-														vgout.Components = append(vgout.Components, vgcomp)
-														vgn = &vugu.VGNode{Component: vgcomp}
-														vgparent.AppendChild(vgn)
 													}
 												}
 											}
