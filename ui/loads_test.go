@@ -137,3 +137,15 @@ func TestPageFillNeed(t *testing.T) {
 		t.Errorf("finished level %.4f m on day 3000, want 1.5 m (±2 mm)", got)
 	}
 }
+
+// A problem of a stage's area that no input shows (an unknown shape read
+// from a file, an area beside a profile) is listed in the stage's row.
+func TestPageAreaProblemShown(t *testing.T) {
+	p := newPage(t, Sources{})
+	p.fire("loads-0-areakind", "change", map[string]any{"value": "strip"})
+	p.root.form.Draft().Loads[0].Profile = []solver.DepthValue{{Z: 0, Value: 1}}
+	p.typeInto("loads-0-area-width", "7") // re-validates
+	if got := p.html(); !strings.Contains(got, "loads[0].area.shape: conflicts with another field") {
+		t.Errorf("the conflict of area and profile is not shown in the page")
+	}
+}

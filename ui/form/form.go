@@ -232,7 +232,7 @@ var pageFields = func() map[string]bool {
 		add(end, "head", "inflow", "excess[#].t", "excess[#].value")
 	}
 	add("loads[#].", "start", "ramp", "q", "fill.thickness", "fill.gamma", "fill.gammaSat",
-		"area.shape", "area.method", "area.width", "area.length", "area.radius", "area.slope", "area.x", "area.y",
+		"area.width", "area.length", "area.radius", "area.slope", "area.x", "area.y",
 		"profile[#].z", "profile[#].value")
 	add("initialExcess[#].", "z", "value")
 	add("mesh.", "order", "maxSize", "minPerLayer")
