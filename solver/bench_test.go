@@ -7,8 +7,10 @@ import (
 
 // BenchmarkDemo solves the demo project (testdata/demo.json) with its own
 // settings: steady state, consolidation, e–log path and summary.
-func BenchmarkDemo(b *testing.B) {
-	p := demoProject(b)
+func BenchmarkDemo(b *testing.B) { benchSolve(b, demoProject(b)) }
+
+// benchSolve times Solve of p.
+func benchSolve(b *testing.B, p *Project) {
 	b.ReportAllocs()
 	for b.Loop() {
 		if _, err := Solve(p, nil); err != nil {
@@ -63,7 +65,13 @@ func BenchmarkLargeColumnQuadratic(b *testing.B) {
 // demoProject decodes testdata/demo.json.
 func demoProject(tb testing.TB) *Project {
 	tb.Helper()
-	data, err := os.ReadFile("../testdata/demo.json")
+	return projectFile(tb, "../testdata/demo.json")
+}
+
+// projectFile decodes the project file at path.
+func projectFile(tb testing.TB, path string) *Project {
+	tb.Helper()
+	data, err := os.ReadFile(path)
 	if err != nil {
 		tb.Fatal(err)
 	}
@@ -78,28 +86,12 @@ func demoProject(tb testing.TB) *Project {
 // embankment lifts off the centre line, with submergence.
 func embankmentProject(tb testing.TB) *Project {
 	tb.Helper()
-	data, err := os.ReadFile("../testdata/embankment.json")
-	if err != nil {
-		tb.Fatal(err)
-	}
-	p, err := Decode(data)
-	if err != nil {
-		tb.Fatal(err)
-	}
-	return p
+	return projectFile(tb, "../testdata/embankment.json")
 }
 
 // BenchmarkEmbankment solves the embankment example: the whole solve, of
 // which BenchmarkEmbankmentStress is the stress-spread set-up.
-func BenchmarkEmbankment(b *testing.B) {
-	p := embankmentProject(b)
-	b.ReportAllocs()
-	for b.Loop() {
-		if _, err := Solve(p, nil); err != nil {
-			b.Fatal(err)
-		}
-	}
-}
+func BenchmarkEmbankment(b *testing.B) { benchSolve(b, embankmentProject(b)) }
 
 // BenchmarkEmbankmentStress is the stress-spread set-up of the embankment
 // example as a solve does it: every stage's I(z) at every node
@@ -126,10 +118,5 @@ func BenchmarkEmbankment1D(b *testing.B) {
 	for i, l := range p.Loads {
 		p.Loads[i] = Load{Start: l.Start, Ramp: l.Ramp, Q: l.Pressure()}
 	}
-	b.ReportAllocs()
-	for b.Loop() {
-		if _, err := Solve(p, nil); err != nil {
-			b.Fatal(err)
-		}
-	}
+	benchSolve(b, p)
 }
