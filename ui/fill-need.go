@@ -7,7 +7,6 @@ import (
 	"slices"
 	"strconv"
 	"sync/atomic"
-	"time"
 
 	"github.com/vugu/vugu"
 
@@ -145,17 +144,7 @@ func (c *Root) runNeed() {
 				err = fmt.Errorf("internal error: %v\n%s", r, debug.Stack())
 			}
 		}()
-		last := time.Now()
-		opt := &solver.Options{Progress: func(f float64) bool {
-			if c.Env != nil && time.Since(last) > 40*time.Millisecond {
-				c.Env.Lock()
-				s.progress = f
-				c.Env.UnlockRender()
-				c.host().Yield()
-				last = time.Now()
-			}
-			return s.gen.Load() == g
-		}}
+		opt := c.yielding(&s.progress, func() bool { return s.gen.Load() == g })
 		return solver.FillThickness(solveInput(model), stage, day, level, opt)
 	}
 	finish := func(h float64, err error) {

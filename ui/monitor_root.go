@@ -7,7 +7,6 @@ import (
 	"runtime/debug"
 	"slices"
 	"sync/atomic"
-	"time"
 
 	"porelight/solver"
 	"porelight/solver/monitor"
@@ -159,20 +158,7 @@ func (c *Root) runFit() {
 				err = fmt.Errorf("internal error in the back-analysis: %v\n%s", r, debug.Stack())
 			}
 		}()
-		last := time.Now()
-		opt := &solver.Options{Progress: func(f float64) bool {
-			if s.gen.Load() != g {
-				return false
-			}
-			if c.Env != nil && time.Since(last) > 40*time.Millisecond {
-				c.Env.Lock()
-				s.progress = f
-				c.Env.UnlockRender()
-				c.host().Yield()
-				last = time.Now()
-			}
-			return s.gen.Load() == g
-		}}
+		opt := c.yielding(&s.progress, func() bool { return s.gen.Load() == g })
 		return fit(solveInput(model), spec, opt)
 	}
 	if c.Env == nil {
