@@ -184,7 +184,8 @@
 // settlement of the previous step; the final state solves
 // s∞ = ∫ mv (σ∞(s∞) − u∞) dz exactly, so the linear final settlement and
 // Us are self-consistent (for one layer, fully submerged as it settles,
-// s = mv H q/(1 + mv H γw)). The water table stays at its initial level.
+// s = mv H q/(1 + mv H γw)). The water table stays at its initial level;
+// only fill below it is counted, not soil above it that settles into it.
 // Result.Consolidation.Stages gives every stage's q and I(z);
 // Summary.Submerged the final submerged thickness. Every stage's area
 // acts at the original ground surface, also a lift placed on earlier

@@ -149,6 +149,12 @@ func validFill(ps *Problems, at string, l Load, gw float64) {
 //
 //	σ(z, t) = Σⱼ fⱼ(t) qⱼ Iⱼ(z) − Σⱼ (γⱼ − γsatⱼ + γw) hⱼ(s, t) Iⱼ(z).
 //
+// Soil above the water table that settles into it (zw > 0) is buoyed as
+// well, by up to γw − (γsat − γ) per metre of that settlement; this
+// treatment counts the fill only, and so slightly overestimates the
+// settlement then. Under a finite area the weight lost spreads with the
+// stage's factor, like the fill's weight.
+//
 // In the time loop s is the linear settlement ∫ mv (σ − u) dz at the end
 // of the previous step (one step behind, cheap: one pass over the nodes
 // per step); the final state solves s∞ = ∫ mv (σ∞(s∞) − u∞) dz exactly
