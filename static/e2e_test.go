@@ -549,9 +549,9 @@ func TestE2EPage(t *testing.T) {
 			t.Fatal(err)
 		}
 		poll[bool](t, ctx, fmt.Sprintf(`document.getElementById("sum-settlement-linear").dataset.value === %q`, strconv.FormatFloat(*want.Summary.SettlementLinear, 'g', -1, 64)), 20*time.Second)
-		for _, id := range []string{"plot-stress", "plot-section"} {
-			if n := eval[int](t, ctx, fmt.Sprintf(`document.querySelectorAll("#loads-figures #%s path[d^='M']").length`, id)); n < 2 {
-				t.Errorf("#%s in the load section has %d drawn paths", id, n)
+		for _, sel := range []string{"#loads-figures #plot-section", "#fig-stress #plot-stress"} {
+			if n := eval[int](t, ctx, fmt.Sprintf(`document.querySelectorAll("%s path[d^='M']").length`, sel)); n < 2 {
+				t.Errorf("%s has %d drawn paths", sel, n)
 			}
 		}
 		screenshot(t, ctx, shots, "2c-strip.png")

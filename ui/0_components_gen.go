@@ -3584,7 +3584,7 @@ func (c *Loads) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 		}
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
-		if c.R != nil {
+		if c.sectionShown() {
 			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-loadfigs"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "loads-figures"}}}
 			vgparent.AppendChild(vgn)
 			{
@@ -3592,48 +3592,22 @@ func (c *Loads) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 				_ = vgparent
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
-				if c.sectionShown() {
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "figure", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-figure"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "fig-loads-section"}}}
-					vgparent.AppendChild(vgn)
-					{
-						vgparent := vgn
-						_ = vgparent
-						{
-							vgcompKey := vugu.MakeCompKey(0x636214FAA10F097D^vgin.CurrentPositionHash(), vgiterkey)
-							// ask BuildEnv for prior instance of this specific component
-							vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*plot.Section)
-							if vgcomp == nil {
-								// create new one if needed
-								vgcomp = new(plot.Section)
-								vgin.BuildEnv.WireComponent(vgcomp)
-							}
-							vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-							vgcomp.Project = c.P
-							vgout.Components = append(vgout.Components, vgcomp)
-							vgn = &vugu.VGNode{Component: vgcomp}
-							vgparent.AppendChild(vgn)
-						}
-					}
-				}
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-				vgparent.AppendChild(vgn)
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "figure", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-figure"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "fig-loads-stress"}}}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "figure", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-figure"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "fig-loads-section"}}}
 				vgparent.AppendChild(vgn)
 				{
 					vgparent := vgn
 					_ = vgparent
 					{
-						vgcompKey := vugu.MakeCompKey(0x78B87A1B43D6EB0F^vgin.CurrentPositionHash(), vgiterkey)
+						vgcompKey := vugu.MakeCompKey(0x636214FAA10F097D^vgin.CurrentPositionHash(), vgiterkey)
 						// ask BuildEnv for prior instance of this specific component
-						vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*plot.StageStress)
+						vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*plot.Section)
 						if vgcomp == nil {
 							// create new one if needed
-							vgcomp = new(plot.StageStress)
+							vgcomp = new(plot.Section)
 							vgin.BuildEnv.WireComponent(vgcomp)
 						}
 						vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
 						vgcomp.Project = c.P
-						vgcomp.Result = c.R
 						vgout.Components = append(vgout.Components, vgcomp)
 						vgn = &vugu.VGNode{Component: vgcomp}
 						vgparent.AppendChild(vgn)
@@ -3643,7 +3617,7 @@ func (c *Loads) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 				vgparent.AppendChild(vgn)
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
 				vgparent.AppendChild(vgn)
-				vgn.SetInnerHTML(vugu.HTML("Drawn from the last solve. The added stress spreads as in a homogeneous elastic half-space (or by the 2:1 rule), whatever the layers; the column itself is one-dimensional."))
+				vgn.SetInnerHTML(vugu.HTML("The loaded areas of the last solve. The added stress with depth is drawn under Plots (“Added vertical stress with depth”): it spreads as in a homogeneous elastic half-space (or by the 2:1 rule), whatever the layers; the column itself is one-dimensional."))
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
 			}

@@ -11,7 +11,8 @@ import (
 
 // Loads edits the load stages (a pressure or a fill, over the whole top,
 // a finite area or a typed profile) and the initial excess profile, and
-// shows the added stress of the last solve beside the layers.
+// sketches the loaded areas of the last solve. (The added stress with
+// depth is a plot of Plots: each figure costs every render.)
 type Loads struct {
 	F       *form.Form
 	P       *solver.Project // the project R belongs to

@@ -54,7 +54,7 @@ func TestPageLoadGeometry(t *testing.T) {
 		t.Errorf("problems: %v %v", p.root.form.ProblemsUnder(""), p.root.form.Other())
 	}
 	if p.find("plot-stress") == nil || p.find("plot-section") == nil {
-		t.Error("no added stress plot or section sketch in the load section")
+		t.Error("no added stress plot, or no section sketch in the load section")
 	}
 	// Back to a pressure over a typed Δσ/q table, with a point added.
 	p.fire("loads-0-kind", "change", map[string]any{"value": "q"})
