@@ -7,8 +7,10 @@ import (
 
 // BenchmarkDemo solves the demo project (testdata/demo.json) with its own
 // settings: steady state, consolidation, e–log path and summary.
-func BenchmarkDemo(b *testing.B) {
-	p := demoProject(b)
+func BenchmarkDemo(b *testing.B) { benchSolve(b, demoProject(b)) }
+
+// benchSolve times Solve of p.
+func benchSolve(b *testing.B, p *Project) {
 	b.ReportAllocs()
 	for b.Loop() {
 		if _, err := Solve(p, nil); err != nil {
@@ -91,7 +93,13 @@ func benchDrains(b *testing.B, d *Drains) {
 // demoProject decodes testdata/demo.json.
 func demoProject(tb testing.TB) *Project {
 	tb.Helper()
-	data, err := os.ReadFile("../testdata/demo.json")
+	return projectFile(tb, "../testdata/demo.json")
+}
+
+// projectFile decodes the project file at path.
+func projectFile(tb testing.TB, path string) *Project {
+	tb.Helper()
+	data, err := os.ReadFile(path)
 	if err != nil {
 		tb.Fatal(err)
 	}
@@ -100,4 +108,43 @@ func demoProject(tb testing.TB) *Project {
 		tb.Fatal(err)
 	}
 	return p
+}
+
+// embankmentProject reads the example testdata/embankment.json: two
+// embankment lifts off the centre line, with submergence.
+func embankmentProject(tb testing.TB) *Project {
+	tb.Helper()
+	return projectFile(tb, "../testdata/embankment.json")
+}
+
+// BenchmarkEmbankment solves the embankment example: the whole solve, of
+// which BenchmarkEmbankmentStress is the stress-spread set-up.
+func BenchmarkEmbankment(b *testing.B) { benchSolve(b, embankmentProject(b)) }
+
+// BenchmarkEmbankmentStress is the stress-spread set-up of the embankment
+// example as a solve does it: every stage's I(z) at every node
+// (stageFactors, which the time loop, the submergence and the result's
+// stage profiles share). Compare with
+// BenchmarkEmbankment for its share of a solve.
+func BenchmarkEmbankmentStress(b *testing.B) {
+	p := embankmentProject(b)
+	c := newColumn(p)
+	b.ReportAllocs()
+	for b.Loop() {
+		c.factors = nil
+		_ = newSubmergence(p, ResolveGammaW(p), c.stageFactors())
+		_ = c.stageStresses()
+	}
+}
+
+// BenchmarkEmbankment1D solves the embankment example with each lift as
+// the same pressure over the whole top (no area, no submergence): the
+// difference from BenchmarkEmbankment is everything loads with geometry
+// cost, the set-up and the submergence followed at every step.
+func BenchmarkEmbankment1D(b *testing.B) {
+	p := embankmentProject(b)
+	for i, l := range p.Loads {
+		p.Loads[i] = Load{Start: l.Start, Ramp: l.Ramp, Q: l.Pressure()}
+	}
+	benchSolve(b, p)
 }

@@ -73,6 +73,23 @@ const (
 	// written in other units of q).
 	MaxProfileFactor = 1000.0
 
+	// MaxFillThickness bounds loads[j].fill.thickness in absolute value,
+	// m (embankments and preloads are a few metres to a few tens, the
+	// highest spoil heaps a few hundred): MaxUnitWeight × 10³ m = 5·10⁴
+	// kPa stays inside MaxStress.
+	MaxFillThickness = 1e3
+	// MinAreaSize and MaxAreaSize bound the sizes of a loaded area
+	// (loads[j].area width, length, radius; the column's offsets x and y
+	// in absolute value), m: a 1 mm plate to a 100 km fill. MaxSlope
+	// bounds an embankment's side slope, horizontal per vertical (fills
+	// stand at 1.5–3, berms to about 10), MinSlope its least value. The
+	// closed forms of package load stay finite for every ratio of these
+	// sizes to a depth in 0 … MaxColumnHeight.
+	MinAreaSize = 1e-3
+	MaxAreaSize = 1e5
+	MinSlope    = 1e-3
+	MaxSlope    = 100.0
+
 	// MaxHead bounds waterTable and top|bottom.head in absolute value, m,
 	// and MaxDepth the depths of profiles, m (the deepest ocean is 11 km).
 	MaxHead  = 1e4

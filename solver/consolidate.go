@@ -63,6 +63,7 @@ func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path
 	}
 	k.sublayers()
 	k.deriveMv()
+	k.submerge()
 	k.linearSummary()
 	if err := k.march(); err != nil {
 		return err
@@ -239,11 +240,12 @@ func (k *consolidation) prepareSeries() *Consolidation {
 	}
 	// The effective stress is followed element by element where an e–log
 	// curve needs it, and where it may fall: under a load removal or a
-	// rising pressure at a drained end. Under loading alone σ' = σ'0 + σ − u
-	// cannot drop below σ'0, since u ≤ σ.
-	k.followStress = k.anyCurve
+	// rising pressure at a drained end, or fill losing weight as it is
+	// submerged. Under loading alone σ' = σ'0 + σ − u cannot drop below
+	// σ'0, since u ≤ σ.
+	k.followStress = k.anyCurve || tr.sub != nil
 	for _, l := range p.Loads {
-		k.followStress = k.followStress || l.Q < 0
+		k.followStress = k.followStress || l.Pressure() < 0
 	}
 	for _, b := range []Boundary{p.Top, p.Bottom} {
 		for _, tv := range b.Excess {
@@ -259,6 +261,9 @@ func (k *consolidation) record(ser *Series, t float64) {
 	p, m, tr := k.c.p, k.c.m, k.tr
 	ser.Time = append(ser.Time, t)
 	ser.Load = append(ser.Load, surcharge(p.Loads, t))
+	if tr.sub != nil {
+		ser.Load[len(ser.Load)-1] -= tr.sub.lost(p.Loads, t, false, tr.settled)
+	}
 	var sNow, pNow float64
 	for i, w := range tr.wMass {
 		d := tr.sigma[i] - tr.u[i]
@@ -266,6 +271,7 @@ func (k *consolidation) record(ser *Series, t float64) {
 		pNow += tr.wLength[i] * d
 	}
 	ser.Settlement = append(ser.Settlement, sNow)
+	tr.settled = sNow // the submergence of the next step follows it
 	if k.defined {
 		ser.Us = append(ser.Us, sNow/k.denS)
 	}

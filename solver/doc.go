@@ -38,6 +38,8 @@
 //	solver/soil     soil behaviour: the e–log σ' curve, preconsolidation, secondary
 //	                compression, cv (new soil laws go here)
 //	solver/monitor  pasted readings, Asaoka's method, the back-fit
+//	solver/load     stress with depth under a strip, rectangle, circle or
+//	                embankment (Boussinesq-based closed forms, the 2:1 spread)
 //
 // Package solver turns a column into the coefficients of package fem
 // (seepage.go: steady state; transient.go and consolidate.go: the
@@ -208,6 +210,34 @@
 // summary's), with a table of the degree and the time to it for spacings
 // from half to twice the answer (SpacingTable, DegreeAt).
 //
+// # Load stages
+//
+// Each stage of Project.Loads adds σⱼ(z, t) = fⱼ(t) qⱼ Iⱼ(z): fⱼ rises from
+// 0 to 1 over the ramp, qⱼ is the pressure at the surface (Q, or a fill's
+// γ × thickness: Load.Pressure) and Iⱼ(z) = Δσ/q with depth (Load.Factor):
+// 1 for a load infinite in plan, the typed Profile, or the influence
+// factor of the stage's Area from package solver/load (strip, rectangle,
+// circle, embankment; elastic closed forms or the 2:1 spread). Stages
+// superpose. The consolidation stays one-dimensional: Iⱼ(z) changes the
+// vertical total stress the column feels, but the column has no lateral
+// strain, so under a narrow load (an area narrower than the column is
+// deep) the settlement is indicative only and a warning says so.
+//
+// Fill that comes to lie below the water table as the ground settles
+// loses weight (submergence): a submerged metre weighs γsat − γw instead
+// of γ. The time loop takes the submerged thickness from the linear
+// settlement of the previous step; the final state solves
+// s∞ = ∫ mv (σ∞(s∞) − u∞) dz exactly, so the linear final settlement and
+// Us are self-consistent (for one layer, fully submerged as it settles,
+// s = mv H q/(1 + mv H γw)). The water table stays at its initial level;
+// only fill below it is counted, not soil above it that settles into it.
+// Result.Consolidation.Stages gives every stage's q and I(z);
+// Summary.Submerged the final submerged thickness. Every stage's area
+// acts at the original ground surface, also a lift placed on earlier
+// fill. FillThickness finds the thickness of a fill stage that leaves the
+// finished surface at a chosen level on a chosen day, after the
+// predicted settlement (the secant method on whole solves).
+//
 // # Field monitoring
 //
 // Project.Monitoring holds settlement plates and piezometer records, each a
@@ -234,7 +264,9 @@
 //	  "waterTable": 0.5,
 //	  "top":    {"drained": true, "head": -0.5},
 //	  "bottom": {"drained": false},
-//	  "loads":  [{"start": 0, "ramp": 30, "q": 60}, {"start": 200, "q": -20}],
+//	  "loads":  [{"start": 0, "ramp": 30, "q": 60}, {"start": 200, "q": -20},
+//	             {"start": 400, "ramp": 20, "fill": {"thickness": 2.5, "gamma": 19, "gammaSat": 20},
+//	              "area": {"shape": "embankment", "width": 12, "slope": 2, "x": 3}}],
 //	  "times":  [1, 10, 30, 100, 365, 1000],
 //	  "piezometers": [2.5, 6.0],
 //	  "mesh": {"order": 1, "maxSize": 0.1, "minPerLayer": 4},
@@ -293,6 +325,22 @@
 //	loads[j].q                kPa     −10⁵ … 10⁵ (negative removes)   ErrOutOfRange
 //	loads[j].profile[k].z     m       −10⁴ … 10⁴, increasing          ErrOutOfRange, ErrNotSorted
 //	loads[j].profile[k].value –       −1000 … 1000 (a factor on q)    ErrOutOfRange
+//	loads[j].fill.thickness   m       −10³ … 10³, ≠ 0 (< 0 removes);  ErrNotPositive, ErrOutOfRange,
+//	                                  not with q                      ErrConflict
+//	loads[j].fill.gamma       kN/m³   > 0, ≤ 50                       ErrNotPositive, ErrOutOfRange
+//	loads[j].fill.gammaSat    kN/m³   gammaW … 50 (absent: gamma)     ErrNotPositive, ErrOutOfRange
+//	loads[j].area.shape       –       "strip", "rectangle", "circle", ErrRequired, ErrOutOfRange,
+//	                                  "embankment" (needs a fill);    ErrConflict
+//	                                  not with a profile
+//	loads[j].area.method      –       "", "elastic" or "2:1"          ErrOutOfRange
+//	loads[j].area.width       m       10⁻³ … 10⁵ (strip, rectangle);  ErrNotPositive, ErrNegative,
+//	                                  0 … 10⁵ (embankment crest)      ErrOutOfRange, ErrConflict
+//	loads[j].area.length      m       10⁻³ … 10⁵, rectangle only      ErrNotPositive, ErrOutOfRange, ErrConflict
+//	loads[j].area.radius      m       10⁻³ … 10⁵, circle only         ErrNotPositive, ErrOutOfRange, ErrConflict
+//	loads[j].area.slope       –       10⁻³ … 100 (horizontal per      ErrNotPositive, ErrOutOfRange, ErrConflict
+//	                                  vertical), embankment only
+//	loads[j].area.x, .y       m       −10⁵ … 10⁵; y for a rectangle   ErrOutOfRange, ErrConflict
+//	                                  only; a circle takes x = y = 0
 //	initialExcess[k].z        m       −10⁴ … 10⁴, increasing          ErrOutOfRange, ErrNotSorted
 //	initialExcess[k].value    kPa     −10⁵ … 10⁵                      ErrOutOfRange
 //	times[j]                  day     > 0, ≤ 10⁹, increasing          ErrNotPositive, ErrOutOfRange, ErrNotSorted
@@ -349,16 +397,19 @@
 // Legal but unusual values give warnings in the Result, never errors: a
 // permeability outside 1e-13 … 1 m/s, a fine-grained layer (k < 1e-7 m/s)
 // with cv outside 0.01 … 1000 m²/year, a layer thinner than the element
-// size, σ'p below the in-situ effective stress, suction or negative
-// effective stress in the steady state, and a column that cannot drain.
+// size, a loaded area narrower than the column is deep, σ'p below the
+// in-situ effective stress, suction or negative effective stress in the
+// steady state, and a column that cannot drain.
 //
 // # Scope
 //
 // The column is saturated, one-dimensional and small strain; flow follows
 // Darcy's law (toward drains: the unit cell under equal strain); k and mv
-// are constant in each layer and in time. Results are not valid for
-// unsaturated soil, large strains, creep-dominated soils, two- or
-// three-dimensional flow or stress spread, or loads that fail the
-// ground. They are estimates for qualified engineers; local codes and
+// are constant in each layer and in time. The stress under a finite load
+// spreads as in a homogeneous elastic half-space (or by the 2:1 rule),
+// whatever the layering. Results are not valid for unsaturated soil,
+// large strains, creep-dominated soils, two- or three-dimensional flow or
+// deformation, or loads that fail the ground. They are estimates for
+// qualified engineers; local codes and
 // licensed engineering practice govern any design.
 package solver

@@ -69,11 +69,12 @@ func (l Load) fraction(t float64, left bool) float64 {
 	return math.Min(1, math.Max(0, (t-l.Start)/l.Ramp))
 }
 
-// surcharge is the pressure at the top of the column at time t, kPa.
+// surcharge is the pressure of the stages at the surface at time t, kPa,
+// before any submergence.
 func surcharge(loads []Load, t float64) float64 {
 	s := 0.0
 	for _, l := range loads {
-		s += l.Q * l.fraction(t, false)
+		s += l.Pressure() * l.fraction(t, false)
 	}
 	return s
 }

@@ -134,20 +134,71 @@ type Boundary struct {
 	Excess []TimeValue `json:"excess,omitempty"`
 }
 
-// Load is one surcharge stage: a uniform pressure change q at the top,
-// applied linearly from Start over Ramp.
+// Load is one load stage: a pressure change q at the top, or a fill of
+// given thickness and unit weight, applied linearly from Start over Ramp,
+// over the whole top (one-dimensional) or over a finite Area.
 type Load struct {
 	// Start is when the stage begins, days ≥ 0.
 	Start float64 `json:"start"`
 	// Ramp is how long the change takes, days ≥ 0; 0 is instantaneous.
 	Ramp float64 `json:"ramp,omitempty"`
 	// Q is the change of vertical total stress, kPa; negative removes load.
+	// It must be 0 (or absent) when Fill is given.
 	Q float64 `json:"q"`
+	// Fill, when given, makes the stage a fill: its pressure is
+	// Fill.Gamma × Fill.Thickness, and the part that comes to lie below
+	// the water table as the ground settles loses weight (submergence).
+	Fill *Fill `json:"fill,omitempty"`
+	// Area, when given, is the plan shape of the loaded area and the
+	// column's place under it: the stress change with depth is the
+	// pressure times the elastic (or 2:1) influence factor of package
+	// solver/load. Nil means an area infinite in plan (factor 1).
+	Area *Area `json:"area,omitempty"`
 	// Profile, when given, scales Q with depth: the stress change at z is
 	// Q·factor(z), with factor linear between points and constant beyond
 	// them (e.g. an influence factor from an elastic stress solution).
 	// Empty means factor 1 at every depth.
 	Profile []DepthValue `json:"profile,omitempty"`
+}
+
+// Fill is a layer of earth placed on the top of the column.
+type Fill struct {
+	// Thickness is the thickness placed, m; negative removes that much
+	// from the top of the fill placed before (a surcharge taken off).
+	Thickness float64 `json:"thickness"`
+	// Gamma is the unit weight of the fill above the water table, kN/m³.
+	Gamma float64 `json:"gamma"`
+	// GammaSat is its saturated unit weight below the water table,
+	// kN/m³. Zero means Gamma. A metre of fill below the water table
+	// weighs GammaSat − γw on the ground instead of Gamma.
+	GammaSat float64 `json:"gammaSat,omitempty"`
+}
+
+// Area is the plan shape of a loaded area and where the column stands
+// under it. Only the sizes the shape uses may be given.
+type Area struct {
+	// Shape is "strip" (Width, infinitely long), "rectangle" (Width ×
+	// Length), "circle" (Radius) or "embankment" (a symmetric fill: crest
+	// Width, side Slope; its height is the fill's thickness).
+	Shape string `json:"shape"`
+	// Method is how the stress spreads: "" or "elastic" for the
+	// Boussinesq-based closed forms, "2:1" for the 2:1 spread.
+	Method string `json:"method,omitempty"`
+	// Width is the width of a strip or rectangle, or the crest width of
+	// an embankment (0 for a triangular section), m.
+	Width float64 `json:"width,omitempty"`
+	// Length is the length of a rectangle, m.
+	Length float64 `json:"length,omitempty"`
+	// Radius is the radius of a circle, m.
+	Radius float64 `json:"radius,omitempty"`
+	// Slope is the side slope of an embankment, horizontal per vertical
+	// (2 for 2H:1V).
+	Slope float64 `json:"slope,omitempty"`
+	// X is the horizontal distance of the column from the centre line of
+	// the area across its width, m; Y along the length of a rectangle.
+	// A circle takes the column on its axis only.
+	X float64 `json:"x,omitempty"`
+	Y float64 `json:"y,omitempty"`
 }
 
 // DepthValue is one point of a profile against depth (z in m below the top).

@@ -99,9 +99,23 @@ type Consolidation struct {
 	Isochrones []Isochrone `json:"isochrones"`
 	// Series at every time step.
 	Series Series `json:"series"`
+	// Stages is the added vertical stress with depth of every load
+	// stage, in the order of Project.Loads (nil without loads).
+	Stages []StageStress `json:"stages,omitempty"`
 	// Start says how each instantaneous change was started, e.g.
 	// "4 backward Euler steps, then Crank–Nicolson (θ = 0.5)".
 	Start string `json:"start"`
+}
+
+// StageStress is the total stress change with depth of one load stage
+// once fully applied: Q × Factor(z), before submergence.
+type StageStress struct {
+	// Q is the stage's pressure at the surface, kPa (a fill's γ × thickness).
+	Q float64 `json:"q"`
+	// Depth holds evenly spaced depths from the top to the base, m, and
+	// Factor the ratio Δσ/q at each (1 for a load infinite in plan).
+	Depth  []float64 `json:"depth"`
+	Factor []float64 `json:"factor"`
 }
 
 // Isochrone is the excess pore pressure (change from the initial steady
@@ -114,7 +128,8 @@ type Isochrone struct {
 // Series holds histories at the time steps (Time[0] = 0).
 type Series struct {
 	Time []float64 `json:"time"` // day
-	// Load is the surcharge at the top, kPa.
+	// Load is the pressure of the load stages at the surface, kPa, less
+	// the weight fill loses as it settles below the water table.
 	Load []float64 `json:"load"`
 	// Us and Up are the average degrees of consolidation by settlement
 	// and by pore pressure, as fractions (1 = complete), relative to the
@@ -198,6 +213,9 @@ type Summary struct {
 	MinHeaveFactor *float64 `json:"minHeaveFactor,omitempty"`
 	// Flux is the steady Darcy velocity, m/s, positive downward.
 	Flux float64 `json:"flux"`
+	// Submerged is the thickness of fill below the water table once all
+	// has settled, m (nil without fill stages).
+	Submerged *float64 `json:"submerged,omitempty"`
 }
 
 // LayerSummary holds one layer's settlement figures.

@@ -20,6 +20,8 @@ type column struct {
 	// radialOnly solves the consolidation with the drains alone: no
 	// vertical flow and no drained end (drainReference's Uh).
 	radialOnly bool
+	// factors is Δσ/q of every load stage at the nodes (stageFactors).
+	factors [][]float64
 }
 
 // newColumn fills in the defaults of a validated project and meshes it.

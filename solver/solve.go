@@ -50,6 +50,7 @@ func solveValid(p *Project, opt *Options) (*Result, error) {
 	warn := func(path, msg string) { r.Warnings = append(r.Warnings, Warning{Path: path, Message: msg}) }
 	oddValues(p, warn)
 	drainWarnings(p, warn)
+	loadWarnings(p, c.height, warn)
 	st, err := c.steady(warn)
 	if err != nil {
 		return nil, err
@@ -73,6 +74,7 @@ func solveValid(p *Project, opt *Options) (*Result, error) {
 				return nil, err
 			}
 		}
+		r.Consolidation.Stages = c.stageStresses()
 	}
 	for _, l := range r.Steady.Layers {
 		if l.HeaveFactor != nil && (r.Summary.MinHeaveFactor == nil || *l.HeaveFactor < *r.Summary.MinHeaveFactor) {

@@ -23,12 +23,15 @@ type transient struct {
 	lo, hi   int // free unknowns
 	u        []float64
 	tmp      []float64
-	next     []float64   // held values at the end of a step
-	sigma    []float64   // total stress change at the nodes, kPa
-	shapes   [][]float64 // per load stage: Q·factor at the nodes
-	wMass    []float64   // ∫ mv Nᵢ dz
-	wLength  []float64   // ∫ Nᵢ dz
-	set      Stepping    // resolved
+	next     []float64    // held values at the end of a step
+	sigma    []float64    // total stress change at the nodes, kPa
+	shapes   [][]float64  // per load stage: Q·factor at the nodes
+	wMass    []float64    // ∫ mv Nᵢ dz
+	wLength  []float64    // ∫ Nᵢ dz
+	set      Stepping     // resolved
+	sub      *submergence // nil without fill stages
+	settled  float64      // settlement of the top at the last record, m
+	sigmaHs  float64      // the submerged fill thickness sigma holds, m
 	progress func(float64) bool
 }
 
@@ -64,13 +67,16 @@ func newTransient(c *column, opt *Options) *transient {
 	tr.next = make([]float64, len(tr.held))
 	tr.sigma = make([]float64, n)
 	tr.shapes = make([][]float64, len(p.Loads))
+	factors := c.stageFactors()
 	for i, l := range p.Loads {
 		f := make([]float64, n)
-		for j, z := range m.Z {
-			f[j] = l.Q * profileAt(l.Profile, z, 1)
+		q := l.Pressure()
+		for j, v := range factors[i] {
+			f[j] = q * v
 		}
 		tr.shapes[i] = f
 	}
+	tr.sub = newSubmergence(p, gw, factors)
 	return tr
 }
 
@@ -158,8 +164,14 @@ func (tr *transient) setHeld(u []float64, t float64, left bool) {
 
 // stressAt writes the total stress change at time t to dst: every ramp at
 // its fraction, instantaneous stages once started (once past, with left
-// set), and the initial excess.
+// set), less the fill submerged at the settlement of the last record, and
+// the initial excess.
 func (tr *transient) stressAt(dst []float64, t float64, left bool) {
+	tr.stressWith(dst, t, left, tr.settled)
+}
+
+// stressWith is stressAt with the top settled by s.
+func (tr *transient) stressWith(dst []float64, t float64, left bool, s float64) {
 	p := tr.c.p
 	clear(dst)
 	for i, l := range p.Loads {
@@ -167,6 +179,12 @@ func (tr *transient) stressAt(dst []float64, t float64, left bool) {
 			for j, v := range tr.shapes[i] {
 				dst[j] += f * v
 			}
+		}
+	}
+	if tr.sub != nil {
+		tr.sub.apply(dst, p.Loads, t, left, s)
+		if len(dst) > 0 && &dst[0] == &tr.sigma[0] {
+			tr.sigmaHs = tr.sub.submerged(p.Loads, t, left, s)
 		}
 	}
 	if len(p.InitialExcess) > 0 {
@@ -279,8 +297,12 @@ func (tr *transient) startText() string {
 	return fmt.Sprintf("%d backward Euler steps after each instantaneous change, then %s", damped, scheme)
 }
 
-// ramping reports whether a ramped load stage changes during (t0, t1).
+// ramping reports whether a ramped load stage changes during (t0, t1),
+// or the submerged thickness of fill has changed since sigma was set.
 func (tr *transient) ramping(t0, t1 float64) bool {
+	if tr.sub != nil && tr.sub.submerged(tr.c.p.Loads, t1, true, tr.settled) != tr.sigmaHs {
+		return true
+	}
 	for _, l := range tr.c.p.Loads {
 		if l.Ramp > 0 && l.Start < t1 && l.Start+l.Ramp > t0 {
 			return true

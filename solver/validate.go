@@ -129,6 +129,12 @@ func Validate(p *Project) error {
 		upTo(&ps, at+"ramp", l.Ramp, MaxTime, "days")
 		within(&ps, at+"q", l.Q, MaxStress, "kPa")
 		validProfile(&ps, at+"profile", l.Profile, MaxProfileFactor, "")
+		if l.Fill != nil {
+			validFill(&ps, at+"fill", l, gw)
+		}
+		if l.Area != nil {
+			validArea(&ps, at+"area", l)
+		}
 	}
 	validProfile(&ps, "initialExcess", p.InitialExcess, MaxStress, "kPa")
 

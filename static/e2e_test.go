@@ -533,6 +533,30 @@ func TestE2EPage(t *testing.T) {
 		}
 	})
 
+	t.Run("a stage over a strip", func(t *testing.T) {
+		// Choose a strip for stage 1 and type its width as a user would:
+		// the page solves it as the native solver does, and draws the
+		// section sketch and the added stress beside the layers.
+		poll[bool](t, ctx, `document.getElementById("status").textContent.includes("up to date")`, 20*time.Second)
+		eval[chromedp.Void](t, ctx, `(() => { const s = document.getElementById("loads-0-areakind"); s.value = "strip"; s.dispatchEvent(new Event("change", {bubbles: true})); })()`)
+		poll[bool](t, ctx, `!!document.getElementById("loads-0-area-width")`, 10*time.Second)
+		typeInto(t, ctx, "loads-0-area-width", "8")
+		poll[bool](t, ctx, `document.getElementById("status").textContent.includes("up to date") && document.getElementById("loads-0-area-width").value === "8"`, 20*time.Second)
+		p := mustDecode(t, []byte(eval[string](t, ctx, `porelight.demo()`)))
+		p.Loads[0].Area = &solver.Area{Shape: "strip", Width: 8}
+		want, err := solver.Solve(p, nil)
+		if err != nil {
+			t.Fatal(err)
+		}
+		poll[bool](t, ctx, fmt.Sprintf(`document.getElementById("sum-settlement-linear").dataset.value === %q`, strconv.FormatFloat(*want.Summary.SettlementLinear, 'g', -1, 64)), 20*time.Second)
+		for _, sel := range []string{"#loads-figures #plot-section", "#fig-stress #plot-stress"} {
+			if n := eval[int](t, ctx, fmt.Sprintf(`document.querySelectorAll("%s path[d^='M']").length`, sel)); n < 2 {
+				t.Errorf("%s has %d drawn paths", sel, n)
+			}
+		}
+		screenshot(t, ctx, shots, "2c-strip.png")
+	})
+
 	t.Run("print view", func(t *testing.T) {
 		within(t, ctx, 10*time.Second, chromedp.Func(func(ctx context.Context, tg *chromedp.Target) error {
 			_, err := cdp.Call(ctx, tg, emulation.SetEmulatedMedia, emulation.SetEmulatedMediaParams{Media: "print"})

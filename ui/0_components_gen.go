@@ -14,6 +14,7 @@ import (
 	"porelight/ui/plot"
 )
 
+import "porelight/solver"
 import "porelight/ui/form"
 
 import (
@@ -1660,6 +1661,207 @@ var _ vjson.RawMessage
 var _ js.Value
 var _ log.Logger
 
+func (c *DepthTable) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
+
+	vgout = &vugu.BuildOut{}
+
+	var vgiterkey interface{}
+	_ = vgiterkey
+	var vgn *vugu.VGNode
+	vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-history"}}}
+	vgout.Out = append(vgout.Out, vgn) // root for output
+	{
+		vgparent := vgn
+		_ = vgparent
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+		if c.Note != "" {
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-sub"}}}
+			vgparent.AppendChild(vgn)
+			vgn.SetInnerHTML(c.Note)
+		}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+		if len(c.points()) > 0 {
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-grid pl-small"}}}
+			vgparent.AppendChild(vgn)
+			vgn.AddAttrInterface("id", form.IDOf(c.List))
+			{
+				vgparent := vgn
+				_ = vgparent
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
+				vgparent.AppendChild(vgn)
+				{
+					vgparent := vgn
+					_ = vgparent
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
+					vgparent.AppendChild(vgn)
+					{
+						vgparent := vgn
+						_ = vgparent
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+						vgparent.AppendChild(vgn)
+						vgn.SetInnerHTML(vugu.HTML("Depth\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em\x3C/span\x3E"))
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+						vgparent.AppendChild(vgn)
+						{
+							vgparent := vgn
+							_ = vgparent
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							vgn.SetInnerHTML(c.Head)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "br", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							vgn.SetInnerHTML(vugu.HTML(""))
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-u"}}}
+							vgparent.AppendChild(vgn)
+							vgn.SetInnerHTML(c.Unit)
+						}
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-noprint"}}}
+						vgparent.AppendChild(vgn)
+						vgn.SetInnerHTML(vugu.HTML("\x3Cspan class=\"pl-vh\"\x3ERemove\x3C/span\x3E"))
+					}
+				}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
+				vgparent.AppendChild(vgn)
+				{
+					vgparent := vgn
+					_ = vgparent
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					for k := range c.points() {
+						var vgiterkey interface{} = k
+						_ = vgiterkey
+						k := k
+						_ = k
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
+						vgparent.AppendChild(vgn)
+						{
+							vgparent := vgn
+							_ = vgparent
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							{
+								vgparent := vgn
+								_ = vgparent
+								{
+									vgcompKey := vugu.MakeCompKey(0x12AC7B3335676E7C^vgin.CurrentPositionHash(), vgiterkey)
+									// ask BuildEnv for prior instance of this specific component
+									vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+									if vgcomp == nil {
+										// create new one if needed
+										vgcomp = new(Field)
+										vgin.BuildEnv.WireComponent(vgcomp)
+									}
+									vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+									vgcomp.Bare = true
+									vgcomp.Changed = c.Changed
+									vgcomp.F = c.F
+									vgcomp.Label = fmt.Sprintf("Depth of point %d of %s", k+1, c.What)
+									vgcomp.Path = pointPath(c.List, k, "z")
+									vgcomp.Unit = "m"
+									vgout.Components = append(vgout.Components, vgcomp)
+									vgn = &vugu.VGNode{Component: vgcomp}
+									vgparent.AppendChild(vgn)
+								}
+							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							{
+								vgparent := vgn
+								_ = vgparent
+								{
+									vgcompKey := vugu.MakeCompKey(0x55BE175FECD0467A^vgin.CurrentPositionHash(), vgiterkey)
+									// ask BuildEnv for prior instance of this specific component
+									vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+									if vgcomp == nil {
+										// create new one if needed
+										vgcomp = new(Field)
+										vgin.BuildEnv.WireComponent(vgcomp)
+									}
+									vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+									vgcomp.Bare = true
+									vgcomp.Changed = c.Changed
+									vgcomp.F = c.F
+									vgcomp.Label = fmt.Sprintf("%s at point %d of %s", c.Head, k+1, c.What)
+									vgcomp.Path = pointPath(c.List, k, "value")
+									vgcomp.Unit = c.Unit
+									vgout.Components = append(vgout.Components, vgcomp)
+									vgn = &vugu.VGNode{Component: vgcomp}
+									vgparent.AppendChild(vgn)
+								}
+							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-noprint"}}}
+							vgparent.AppendChild(vgn)
+							{
+								vgparent := vgn
+								_ = vgparent
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-icon"}}}
+								vgparent.AppendChild(vgn)
+								vgn.AddAttrInterface("id", form.IDOf(solver.IndexPath(c.List, k))+"-remove")
+								vgn.AddAttrInterface("title", fmt.Sprintf("Remove point %d", k+1))
+								vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+									EventType: "click",
+									Func:      func(event vugu.DOMEvent) { c.remove(k) },
+									// TODO: implement capture, etc. mostly need to decide syntax
+								})
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "×"}
+									vgparent.AppendChild(vgn)
+								}
+							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+						}
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+				}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+			}
+		}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-noprint"}}}
+		vgparent.AppendChild(vgn)
+		vgn.AddAttrInterface("id", form.IDOf(c.List)+"-add")
+		vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+			EventType: "click",
+			Func:      func(event vugu.DOMEvent) { c.add() },
+			// TODO: implement capture, etc. mostly need to decide syntax
+		})
+		{
+			vgparent := vgn
+			_ = vgparent
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Add point"}
+			vgparent.AppendChild(vgn)
+		}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+	}
+	return vgout
+}
+
+// 'fix' unused imports
+var _ fmt.Stringer
+var _ reflect.Type
+var _ vjson.RawMessage
+var _ js.Value
+var _ log.Logger
+
 func (c *Drains) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 
 	vgout = &vugu.BuildOut{}
@@ -2190,6 +2392,271 @@ func (c *Field) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 			vgn.AddAttrInterface("id", c.errID())
 			vgn.SetInnerHTML(c.problem())
 		}
+	}
+	return vgout
+}
+
+// 'fix' unused imports
+var _ fmt.Stringer
+var _ reflect.Type
+var _ vjson.RawMessage
+var _ js.Value
+var _ log.Logger
+
+func (c *FillNeed) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
+
+	vgout = &vugu.BuildOut{}
+
+	var vgiterkey interface{}
+	_ = vgiterkey
+	var vgn *vugu.VGNode
+	vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "section", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "fillneed"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-sec"}, vugu.VGAttribute{Namespace: "", Key: "aria-label", Val: "Fill needed for a finished level"}}}
+	vgout.Out = append(vgout.Out, vgn) // root for output
+	{
+		vgparent := vgn
+		_ = vgparent
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "h2", Attr: []vugu.VGAttribute(nil)}
+		vgparent.AppendChild(vgn)
+		vgn.SetInnerHTML(vugu.HTML("Fill needed \x3Cspan class=\"pl-sub\"\x3Ethe thickness of a fill stage that finishes at a level on a day, after settlement\x3C/span\x3E"))
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pairs"}}}
+		vgparent.AppendChild(vgn)
+		{
+			vgparent := vgn
+			_ = vgparent
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+			vgparent.AppendChild(vgn)
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "fillneed-stage"}}}
+			vgparent.AppendChild(vgn)
+			{
+				vgparent := vgn
+				_ = vgparent
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+				vgparent.AppendChild(vgn)
+				vgn.SetInnerHTML(vugu.HTML("Fill"))
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "select", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "fillneed-stage"}}}
+				vgparent.AppendChild(vgn)
+				vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+					EventType: "change",
+					Func:      func(event vugu.DOMEvent) { c.setStage(event) },
+					// TODO: implement capture, etc. mostly need to decide syntax
+				})
+				{
+					vgparent := vgn
+					_ = vgparent
+					for vgiterkeyt, i := range c.stages() {
+						var vgiterkey interface{} = vgiterkeyt
+						_ = vgiterkey
+						i := i
+						_ = i
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute(nil)}
+						vgparent.AppendChild(vgn)
+						vgn.AddAttrInterface("selected", c.S.stage == i)
+						vgn.AddAttrInterface("value", fmt.Sprint(i))
+						vgn.SetInnerHTML(c.stageLabel(i))
+					}
+				}
+			}
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+			vgparent.AppendChild(vgn)
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "fillneed-level"}}}
+			vgparent.AppendChild(vgn)
+			{
+				vgparent := vgn
+				_ = vgparent
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+				vgparent.AppendChild(vgn)
+				vgn.SetInnerHTML(vugu.HTML("Finished level"))
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+				vgparent.AppendChild(vgn)
+				vgn.AddAttrInterface("class", "pl-field"+badClass(c.levelProblem()))
+				{
+					vgparent := vgn
+					_ = vgparent
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "input", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "text"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "fillneed-level"}, vugu.VGAttribute{Namespace: "", Key: "inputmode", Val: "decimal"}, vugu.VGAttribute{Namespace: "", Key: "autocomplete", Val: "off"}, vugu.VGAttribute{Namespace: "", Key: "placeholder", Val: "m"}, vugu.VGAttribute{Namespace: "", Key: "title", Val: "Level of the finished surface above the original ground, m"}, vugu.VGAttribute{Namespace: "", Key: "aria-label", Val: "Finished level above the original ground (m)"}}}
+					vgparent.AppendChild(vgn)
+					{
+						b, err := vjson.Marshal(c.S.level)
+						if err != nil {
+							panic(err)
+						}
+						vgn.Prop = append(vgn.Prop, vugu.VGProperty{Key: "value", JSONVal: vjson.RawMessage(b)})
+					}
+					vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+						EventType: "input",
+						Func:      func(event vugu.DOMEvent) { c.setLevel(event) },
+						// TODO: implement capture, etc. mostly need to decide syntax
+					})
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-unit"}}}
+					vgparent.AppendChild(vgn)
+					vgn.SetInnerHTML(vugu.HTML("m"))
+					if c.levelProblem() != "" {
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-err"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "fillneed-level-err"}}}
+						vgparent.AppendChild(vgn)
+						vgn.SetInnerHTML(c.levelProblem())
+					}
+				}
+			}
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+			vgparent.AppendChild(vgn)
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "fillneed-day"}}}
+			vgparent.AppendChild(vgn)
+			{
+				vgparent := vgn
+				_ = vgparent
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+				vgparent.AppendChild(vgn)
+				vgn.SetInnerHTML(vugu.HTML("on day"))
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+				vgparent.AppendChild(vgn)
+				vgn.AddAttrInterface("class", "pl-field"+badClass(c.dayProblem()))
+				{
+					vgparent := vgn
+					_ = vgparent
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "input", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "text"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "fillneed-day"}, vugu.VGAttribute{Namespace: "", Key: "inputmode", Val: "decimal"}, vugu.VGAttribute{Namespace: "", Key: "autocomplete", Val: "off"}, vugu.VGAttribute{Namespace: "", Key: "placeholder", Val: "day"}, vugu.VGAttribute{Namespace: "", Key: "title", Val: "Day the level is wanted, after the start"}, vugu.VGAttribute{Namespace: "", Key: "aria-label", Val: "Day the level is wanted (day)"}}}
+					vgparent.AppendChild(vgn)
+					{
+						b, err := vjson.Marshal(c.S.day)
+						if err != nil {
+							panic(err)
+						}
+						vgn.Prop = append(vgn.Prop, vugu.VGProperty{Key: "value", JSONVal: vjson.RawMessage(b)})
+					}
+					vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+						EventType: "input",
+						Func:      func(event vugu.DOMEvent) { c.setDay(event) },
+						// TODO: implement capture, etc. mostly need to decide syntax
+					})
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-unit"}}}
+					vgparent.AppendChild(vgn)
+					vgn.SetInnerHTML(vugu.HTML("day"))
+					if c.dayProblem() != "" {
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-err"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "fillneed-day-err"}}}
+						vgparent.AppendChild(vgn)
+						vgn.SetInnerHTML(c.dayProblem())
+					}
+				}
+			}
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+			vgparent.AppendChild(vgn)
+		}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-row pl-noprint"}}}
+		vgparent.AppendChild(vgn)
+		{
+			vgparent := vgn
+			_ = vgparent
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "fillneed-run"}}}
+			vgparent.AppendChild(vgn)
+			vgn.AddAttrInterface("disabled", !c.ready())
+			vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+				EventType: "click",
+				Func:      func(event vugu.DOMEvent) { c.Run() },
+				// TODO: implement capture, etc. mostly need to decide syntax
+			})
+			{
+				vgparent := vgn
+				_ = vgparent
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Find thickness"}
+				vgparent.AppendChild(vgn)
+			}
+			if c.S.busy {
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+				vgparent.AppendChild(vgn)
+				{
+					vgparent := vgn
+					_ = vgparent
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "progress", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "fillneed-progress"}, vugu.VGAttribute{Namespace: "", Key: "max", Val: "1"}}}
+					vgparent.AppendChild(vgn)
+					vgn.AddAttrInterface("value", c.S.progress)
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: " "}
+					vgparent.AppendChild(vgn)
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+					vgparent.AppendChild(vgn)
+					vgn.SetInnerHTML(c.progressText())
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: " "}
+					vgparent.AppendChild(vgn)
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "fillneed-cancel"}}}
+					vgparent.AppendChild(vgn)
+					vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+						EventType: "click",
+						Func:      func(event vugu.DOMEvent) { c.Cancel() },
+						// TODO: implement capture, etc. mostly need to decide syntax
+					})
+					{
+						vgparent := vgn
+						_ = vgparent
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Cancel"}
+						vgparent.AppendChild(vgn)
+					}
+				}
+			}
+		}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+		if c.S.err != "" {
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "fillneed-error"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-refusal"}}}
+			vgparent.AppendChild(vgn)
+			{
+				vgparent := vgn
+				_ = vgparent
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "strong", Attr: []vugu.VGAttribute(nil)}
+				vgparent.AppendChild(vgn)
+				vgn.SetInnerHTML(vugu.HTML("Not found:"))
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: " "}
+				vgparent.AppendChild(vgn)
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+				vgparent.AppendChild(vgn)
+				vgn.SetInnerHTML(c.S.err)
+			}
+		}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+		if c.S.thickness != nil {
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "fillneed-result"}}}
+			vgparent.AppendChild(vgn)
+			{
+				vgparent := vgn
+				_ = vgparent
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "fillneed-text"}}}
+				vgparent.AppendChild(vgn)
+				vgn.SetInnerHTML(c.resultText())
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-row pl-noprint"}}}
+				vgparent.AppendChild(vgn)
+				{
+					vgparent := vgn
+					_ = vgparent
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "fillneed-apply"}}}
+					vgparent.AppendChild(vgn)
+					vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+						EventType: "click",
+						Func:      func(event vugu.DOMEvent) { c.Apply() },
+						// TODO: implement capture, etc. mostly need to decide syntax
+					})
+					{
+						vgparent := vgn
+						_ = vgparent
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Use this thickness"}
+						vgparent.AppendChild(vgn)
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
+					vgparent.AppendChild(vgn)
+					vgn.SetInnerHTML(vugu.HTML("Each try is a full solve (the secant method, to 1 mm). The settlement used is the e–log one when every layer has a curve, the linear one otherwise."))
+				}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+			}
+		}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
 	}
 	return vgout
 }
@@ -3218,27 +3685,27 @@ func (c *Loads) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 		vgparent.AppendChild(vgn)
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "h2", Attr: []vugu.VGAttribute(nil)}
 		vgparent.AppendChild(vgn)
-		vgn.SetInnerHTML(vugu.HTML("Load stages \x3Cspan class=\"pl-sub\"\x3Euniform surcharge on the top; negative q removes load\x3C/span\x3E"))
+		vgn.SetInnerHTML(vugu.HTML("Load stages \x3Cspan class=\"pl-sub\"\x3Ea pressure or a fill on the top, over the whole top or a finite area; negative q or thickness removes load\x3C/span\x3E"))
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
 		if len(c.F.Draft().Loads) > 0 {
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "loads"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid"}}}
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-scrollx"}}}
 			vgparent.AppendChild(vgn)
 			{
 				vgparent := vgn
 				_ = vgparent
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
-				vgparent.AppendChild(vgn)
-				vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth class=\"pl-num\"\x3E#\x3C/th\x3E\x3Cth\x3EStart\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Eday\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ERamp\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Eday\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eq\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ETotal after\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkPa\x3C/span\x3E\x3C/th\x3E\x3Cth class=\"pl-noprint\"\x3E\x3Cspan class=\"pl-vh\"\x3ERemove\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-				vgparent.AppendChild(vgn)
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "loads"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid"}}}
 				vgparent.AppendChild(vgn)
 				{
 					vgparent := vgn
 					_ = vgparent
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
+					vgparent.AppendChild(vgn)
+					vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth class=\"pl-num\"\x3E#\x3C/th\x3E\x3Cth\x3EStart\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Eday\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ERamp\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Eday\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ELoad\x3C/th\x3E\x3Cth\x3Eq or fill\x3C/th\x3E\x3Cth\x3EArea\x3C/th\x3E\x3Cth title=\"Pressure at the surface once this stage and those before it are fully applied (a fill: γ × thickness, before submergence)\"\x3EΣq\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkPa\x3C/span\x3E\x3C/th\x3E\x3Cth class=\"pl-noprint\"\x3E\x3Cspan class=\"pl-vh\"\x3ERemove\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
 					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 					vgparent.AppendChild(vgn)
 					for i := range c.F.Draft().Loads {
@@ -3246,126 +3713,401 @@ func (c *Loads) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 						_ = vgiterkey
 						i := i
 						_ = i
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
 						vgparent.AppendChild(vgn)
 						{
 							vgparent := vgn
 							_ = vgparent
 							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 							vgparent.AppendChild(vgn)
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-num"}}}
-							vgparent.AppendChild(vgn)
-							vgn.SetInnerHTML(i + 1)
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-							vgparent.AppendChild(vgn)
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
 							vgparent.AppendChild(vgn)
 							{
 								vgparent := vgn
 								_ = vgparent
-								{
-									vgcompKey := vugu.MakeCompKey(0x81BD62CAB3D2ACD8^vgin.CurrentPositionHash(), vgiterkey)
-									// ask BuildEnv for prior instance of this specific component
-									vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-									if vgcomp == nil {
-										// create new one if needed
-										vgcomp = new(Field)
-										vgin.BuildEnv.WireComponent(vgcomp)
-									}
-									vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-									vgcomp.Bare = true
-									vgcomp.Changed = c.Changed
-									vgcomp.F = c.F
-									vgcomp.Label = fmt.Sprintf("Start of stage %d", i+1)
-									vgcomp.Path = loadPath(i, "start")
-									vgcomp.Unit = "day"
-									vgout.Components = append(vgout.Components, vgcomp)
-									vgn = &vugu.VGNode{Component: vgcomp}
-									vgparent.AppendChild(vgn)
-								}
-							}
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-							vgparent.AppendChild(vgn)
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-							vgparent.AppendChild(vgn)
-							{
-								vgparent := vgn
-								_ = vgparent
-								{
-									vgcompKey := vugu.MakeCompKey(0x2FCF3CB588C857F7^vgin.CurrentPositionHash(), vgiterkey)
-									// ask BuildEnv for prior instance of this specific component
-									vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-									if vgcomp == nil {
-										// create new one if needed
-										vgcomp = new(Field)
-										vgin.BuildEnv.WireComponent(vgcomp)
-									}
-									vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-									vgcomp.Bare = true
-									vgcomp.Changed = c.Changed
-									vgcomp.F = c.F
-									vgcomp.Hint = "0: applied at once"
-									vgcomp.Label = fmt.Sprintf("Ramp time of stage %d", i+1)
-									vgcomp.Path = loadPath(i, "ramp")
-									vgcomp.Unit = "day"
-									vgout.Components = append(vgout.Components, vgcomp)
-									vgn = &vugu.VGNode{Component: vgcomp}
-									vgparent.AppendChild(vgn)
-								}
-							}
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-							vgparent.AppendChild(vgn)
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-							vgparent.AppendChild(vgn)
-							{
-								vgparent := vgn
-								_ = vgparent
-								{
-									vgcompKey := vugu.MakeCompKey(0xECB0EC21615B14AC^vgin.CurrentPositionHash(), vgiterkey)
-									// ask BuildEnv for prior instance of this specific component
-									vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-									if vgcomp == nil {
-										// create new one if needed
-										vgcomp = new(Field)
-										vgin.BuildEnv.WireComponent(vgcomp)
-									}
-									vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-									vgcomp.Bare = true
-									vgcomp.Changed = c.Changed
-									vgcomp.F = c.F
-									vgcomp.Label = fmt.Sprintf("Pressure change of stage %d", i+1)
-									vgcomp.Path = loadPath(i, "q")
-									vgcomp.Unit = "kPa"
-									vgout.Components = append(vgout.Components, vgcomp)
-									vgn = &vugu.VGNode{Component: vgcomp}
-									vgparent.AppendChild(vgn)
-								}
-							}
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-							vgparent.AppendChild(vgn)
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-derived"}}}
-							vgparent.AppendChild(vgn)
-							vgn.SetInnerHTML(c.total(i))
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-							vgparent.AppendChild(vgn)
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-noprint"}}}
-							vgparent.AppendChild(vgn)
-							{
-								vgparent := vgn
-								_ = vgparent
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-icon"}}}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 								vgparent.AppendChild(vgn)
-								vgn.AddAttrInterface("id", fmt.Sprintf("loads-%d-remove", i))
-								vgn.AddAttrInterface("title", fmt.Sprintf("Remove stage %d", i+1))
-								vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
-									EventType: "click",
-									Func:      func(event vugu.DOMEvent) { c.remove(i) },
-									// TODO: implement capture, etc. mostly need to decide syntax
-								})
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-num"}}}
+								vgparent.AppendChild(vgn)
+								vgn.SetInnerHTML(i + 1)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+								vgparent.AppendChild(vgn)
 								{
 									vgparent := vgn
 									_ = vgparent
-									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "×"}
+									{
+										vgcompKey := vugu.MakeCompKey(0x81BD62CAB3D2ACD8^vgin.CurrentPositionHash(), vgiterkey)
+										// ask BuildEnv for prior instance of this specific component
+										vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+										if vgcomp == nil {
+											// create new one if needed
+											vgcomp = new(Field)
+											vgin.BuildEnv.WireComponent(vgcomp)
+										}
+										vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+										vgcomp.Bare = true
+										vgcomp.Changed = c.Changed
+										vgcomp.F = c.F
+										vgcomp.Label = fmt.Sprintf("Start of stage %d", i+1)
+										vgcomp.Path = loadPath(i, "start")
+										vgcomp.Unit = "day"
+										vgout.Components = append(vgout.Components, vgcomp)
+										vgn = &vugu.VGNode{Component: vgcomp}
+										vgparent.AppendChild(vgn)
+									}
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+								vgparent.AppendChild(vgn)
+								{
+									vgparent := vgn
+									_ = vgparent
+									{
+										vgcompKey := vugu.MakeCompKey(0x2FCF3CB588C857F7^vgin.CurrentPositionHash(), vgiterkey)
+										// ask BuildEnv for prior instance of this specific component
+										vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+										if vgcomp == nil {
+											// create new one if needed
+											vgcomp = new(Field)
+											vgin.BuildEnv.WireComponent(vgcomp)
+										}
+										vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+										vgcomp.Bare = true
+										vgcomp.Changed = c.Changed
+										vgcomp.F = c.F
+										vgcomp.Hint = "0: applied at once"
+										vgcomp.Label = fmt.Sprintf("Ramp time of stage %d", i+1)
+										vgcomp.Path = loadPath(i, "ramp")
+										vgcomp.Unit = "day"
+										vgout.Components = append(vgout.Components, vgcomp)
+										vgn = &vugu.VGNode{Component: vgcomp}
+										vgparent.AppendChild(vgn)
+									}
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+								vgparent.AppendChild(vgn)
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "select", Attr: []vugu.VGAttribute(nil)}
+									vgparent.AppendChild(vgn)
+									vgn.AddAttrInterface("aria-label", fmt.Sprintf("What stage %d is", i+1))
+									vgn.AddAttrInterface("id", fmt.Sprintf("loads-%d-kind", i))
+									vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+										EventType: "change",
+										Func:      func(event vugu.DOMEvent) { c.setKind(i, event) },
+										// TODO: implement capture, etc. mostly need to decide syntax
+									})
+									{
+										vgparent := vgn
+										_ = vgparent
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "q"}}}
+										vgparent.AppendChild(vgn)
+										vgn.AddAttrInterface("selected", !c.isFill(i))
+										{
+											vgparent := vgn
+											_ = vgparent
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "pressure"}
+											vgparent.AppendChild(vgn)
+										}
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "fill"}}}
+										vgparent.AppendChild(vgn)
+										vgn.AddAttrInterface("selected", c.isFill(i))
+										{
+											vgparent := vgn
+											_ = vgparent
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "fill"}
+											vgparent.AppendChild(vgn)
+										}
+									}
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								if !c.isFill(i) {
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+									vgparent.AppendChild(vgn)
+									{
+										vgparent := vgn
+										_ = vgparent
+										{
+											vgcompKey := vugu.MakeCompKey(0xECB0EC21615B14AC^vgin.CurrentPositionHash(), vgiterkey)
+											// ask BuildEnv for prior instance of this specific component
+											vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+											if vgcomp == nil {
+												// create new one if needed
+												vgcomp = new(Field)
+												vgin.BuildEnv.WireComponent(vgcomp)
+											}
+											vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+											vgcomp.Changed = c.Changed
+											vgcomp.F = c.F
+											vgcomp.Label = fmt.Sprintf("Pressure change of stage %d", i+1)
+											vgcomp.Path = loadPath(i, "q")
+											vgcomp.Unit = "kPa"
+											vgout.Components = append(vgout.Components, vgcomp)
+											vgn = &vugu.VGNode{Component: vgcomp}
+											vgparent.AppendChild(vgn)
+										}
+									}
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								if c.isFill(i) {
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-fill"}}}
+									vgparent.AppendChild(vgn)
+									{
+										vgparent := vgn
+										_ = vgparent
+										{
+											vgcompKey := vugu.MakeCompKey(0x8AD5910469D96F40^vgin.CurrentPositionHash(), vgiterkey)
+											// ask BuildEnv for prior instance of this specific component
+											vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+											if vgcomp == nil {
+												// create new one if needed
+												vgcomp = new(Field)
+												vgin.BuildEnv.WireComponent(vgcomp)
+											}
+											vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+											vgcomp.Changed = c.Changed
+											vgcomp.F = c.F
+											vgcomp.Hint = "Thickness placed; negative removes fill from the top"
+											vgcomp.Label = fmt.Sprintf("Fill thickness of stage %d", i+1)
+											vgcomp.Path = loadPath(i, "fill.thickness")
+											vgcomp.Unit = "m"
+											vgout.Components = append(vgout.Components, vgcomp)
+											vgn = &vugu.VGNode{Component: vgcomp}
+											vgparent.AppendChild(vgn)
+										}
+									}
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+								vgparent.AppendChild(vgn)
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "select", Attr: []vugu.VGAttribute(nil)}
+									vgparent.AppendChild(vgn)
+									vgn.AddAttrInterface("aria-label", fmt.Sprintf("Loaded area of stage %d", i+1))
+									vgn.AddAttrInterface("id", fmt.Sprintf("loads-%d-areakind", i))
+									vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+										EventType: "change",
+										Func:      func(event vugu.DOMEvent) { c.setArea(i, event) },
+										// TODO: implement capture, etc. mostly need to decide syntax
+									})
+									{
+										vgparent := vgn
+										_ = vgparent
+										for vgiterkeyt, k := range areaKinds {
+											var vgiterkey interface{} = vgiterkeyt
+											_ = vgiterkey
+											k := k
+											_ = k
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.AddAttrInterface("selected", c.areaKind(i) == k.Value)
+											vgn.AddAttrInterface("value", k.Value)
+											vgn.SetInnerHTML(k.Label)
+										}
+									}
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-derived"}}}
+								vgparent.AppendChild(vgn)
+								vgn.SetInnerHTML(c.total(i))
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-noprint"}}}
+								vgparent.AppendChild(vgn)
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-icon"}}}
+									vgparent.AppendChild(vgn)
+									vgn.AddAttrInterface("id", fmt.Sprintf("loads-%d-remove", i))
+									vgn.AddAttrInterface("title", fmt.Sprintf("Remove stage %d", i+1))
+									vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+										EventType: "click",
+										Func:      func(event vugu.DOMEvent) { c.remove(i) },
+										// TODO: implement capture, etc. mostly need to decide syntax
+									})
+									{
+										vgparent := vgn
+										_ = vgparent
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "×"}
+										vgparent.AppendChild(vgn)
+									}
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							if c.hasDetail(i) {
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-detail"}}}
+								vgparent.AppendChild(vgn)
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+									vgparent.AppendChild(vgn)
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+									vgparent.AppendChild(vgn)
+									vgn.SetInnerHTML(vugu.HTML(""))
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+									vgparent.AppendChild(vgn)
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "colspan", Val: "7"}}}
+									vgparent.AppendChild(vgn)
+									{
+										vgparent := vgn
+										_ = vgparent
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+										vgparent.AppendChild(vgn)
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pairs"}}}
+										vgparent.AppendChild(vgn)
+										{
+											vgparent := vgn
+											_ = vgparent
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+											vgparent.AppendChild(vgn)
+											for vgiterkeyt, s := range c.sizes(i) {
+												var vgiterkey interface{} = vgiterkeyt
+												_ = vgiterkey
+												s := s
+												_ = s
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}}}
+												vgparent.AppendChild(vgn)
+												vgn.AddAttrInterface("for", form.IDOf(loadPath(i, s.Name)))
+												{
+													vgparent := vgn
+													_ = vgparent
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+													vgparent.AppendChild(vgn)
+													vgn.SetInnerHTML(s.Label)
+													{
+														vgcompKey := vugu.MakeCompKey(0xC13B35787452427B^vgin.CurrentPositionHash(), vgiterkey)
+														// ask BuildEnv for prior instance of this specific component
+														vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+														if vgcomp == nil {
+															// create new one if needed
+															vgcomp = new(Field)
+															vgin.BuildEnv.WireComponent(vgcomp)
+														}
+														vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+														vgcomp.Changed = c.Changed
+														vgcomp.F = c.F
+														vgcomp.Hint = s.Hint
+														vgcomp.Label = fmt.Sprintf("%s, stage %d", s.Label, i+1)
+														vgcomp.Path = loadPath(i, s.Name)
+														vgcomp.Unit = s.Unit
+														vgout.Components = append(vgout.Components, vgcomp)
+														vgn = &vugu.VGNode{Component: vgcomp}
+														vgparent.AppendChild(vgn)
+													}
+												}
+											}
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+											vgparent.AppendChild(vgn)
+											if c.hasArea(i) {
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}}}
+												vgparent.AppendChild(vgn)
+												vgn.AddAttrInterface("for", fmt.Sprintf("loads-%d-method", i))
+												{
+													vgparent := vgn
+													_ = vgparent
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+													vgparent.AppendChild(vgn)
+													vgn.SetInnerHTML(vugu.HTML("Spread"))
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "select", Attr: []vugu.VGAttribute(nil)}
+													vgparent.AppendChild(vgn)
+													vgn.AddAttrInterface("id", fmt.Sprintf("loads-%d-method", i))
+													vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+														EventType: "change",
+														Func:      func(event vugu.DOMEvent) { c.setMethod(i, event) },
+														// TODO: implement capture, etc. mostly need to decide syntax
+													})
+													{
+														vgparent := vgn
+														_ = vgparent
+														vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: ""}}}
+														vgparent.AppendChild(vgn)
+														vgn.AddAttrInterface("selected", c.method(i) != "2:1")
+														{
+															vgparent := vgn
+															_ = vgparent
+															vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "elastic (Boussinesq)"}
+															vgparent.AppendChild(vgn)
+														}
+														vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "2:1"}}}
+														vgparent.AppendChild(vgn)
+														vgn.AddAttrInterface("selected", c.method(i) == "2:1")
+														{
+															vgparent := vgn
+															_ = vgparent
+															vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "2:1 spread"}
+															vgparent.AppendChild(vgn)
+														}
+													}
+												}
+											}
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+											vgparent.AppendChild(vgn)
+										}
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+										vgparent.AppendChild(vgn)
+										if len(c.areaProblems(i)) > 0 {
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "ul", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-problems"}}}
+											vgparent.AppendChild(vgn)
+											{
+												vgparent := vgn
+												_ = vgparent
+												for vgiterkeyt, m := range c.areaProblems(i) {
+													var vgiterkey interface{} = vgiterkeyt
+													_ = vgiterkey
+													m := m
+													_ = m
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "li", Attr: []vugu.VGAttribute(nil)}
+													vgparent.AppendChild(vgn)
+													vgn.SetInnerHTML(m)
+												}
+											}
+										}
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+										vgparent.AppendChild(vgn)
+										if c.areaKind(i) == "profile" {
+											{
+												vgcompKey := vugu.MakeCompKey(0xEA731AB9EBB54FA8^vgin.CurrentPositionHash(), vgiterkey)
+												// ask BuildEnv for prior instance of this specific component
+												vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*DepthTable)
+												if vgcomp == nil {
+													// create new one if needed
+													vgcomp = new(DepthTable)
+													vgin.BuildEnv.WireComponent(vgcomp)
+												}
+												vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+												vgcomp.Changed = c.Changed
+												vgcomp.F = c.F
+												vgcomp.Head = "Δσ/q"
+												vgcomp.List = profilePath(i)
+												vgcomp.Note = "Δσ/q against depth: linear between points, constant beyond them."
+												vgcomp.Unit = "–"
+												vgcomp.What = fmt.Sprintf("the profile of stage %d", i+1)
+												vgout.Components = append(vgout.Components, vgcomp)
+												vgn = &vugu.VGNode{Component: vgcomp}
+												vgparent.AppendChild(vgn)
+											}
+										}
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+										vgparent.AppendChild(vgn)
+									}
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 									vgparent.AppendChild(vgn)
 								}
 							}
@@ -3394,13 +4136,6 @@ func (c *Loads) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 		}
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
-		if c.profiled() != "" {
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
-			vgparent.AppendChild(vgn)
-			vgn.SetInnerHTML(c.profiled())
-		}
-		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-		vgparent.AppendChild(vgn)
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-row pl-noprint"}}}
 		vgparent.AppendChild(vgn)
 		{
@@ -3417,6 +4152,83 @@ func (c *Loads) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 				vgparent := vgn
 				_ = vgparent
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Add stage"}
+				vgparent.AppendChild(vgn)
+			}
+		}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-history"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "initial-excess"}}}
+		vgparent.AppendChild(vgn)
+		{
+			vgparent := vgn
+			_ = vgparent
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+			vgparent.AppendChild(vgn)
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "h3", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-sub"}}}
+			vgparent.AppendChild(vgn)
+			vgn.SetInnerHTML(vugu.HTML("Initial excess pore pressure \x3Cspan class=\"pl-sub\"\x3E(optional: an undrained stress increase at day 0 of this profile, kPa; linear between points, constant beyond)\x3C/span\x3E"))
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+			vgparent.AppendChild(vgn)
+			{
+				vgcompKey := vugu.MakeCompKey(0xF17CA17B17060E15^vgin.CurrentPositionHash(), vgiterkey)
+				// ask BuildEnv for prior instance of this specific component
+				vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*DepthTable)
+				if vgcomp == nil {
+					// create new one if needed
+					vgcomp = new(DepthTable)
+					vgin.BuildEnv.WireComponent(vgcomp)
+				}
+				vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+				vgcomp.Changed = c.Changed
+				vgcomp.F = c.F
+				vgcomp.Head = "Δu"
+				vgcomp.List = "initialExcess"
+				vgcomp.Unit = "kPa"
+				vgcomp.What = "the initial excess"
+				vgout.Components = append(vgout.Components, vgcomp)
+				vgn = &vugu.VGNode{Component: vgcomp}
+				vgparent.AppendChild(vgn)
+			}
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+			vgparent.AppendChild(vgn)
+		}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+		if c.sectionShown() {
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-loadfigs"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "loads-figures"}}}
+			vgparent.AppendChild(vgn)
+			{
+				vgparent := vgn
+				_ = vgparent
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "figure", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-figure"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "fig-loads-section"}}}
+				vgparent.AppendChild(vgn)
+				{
+					vgparent := vgn
+					_ = vgparent
+					{
+						vgcompKey := vugu.MakeCompKey(0x636214FAA10F097D^vgin.CurrentPositionHash(), vgiterkey)
+						// ask BuildEnv for prior instance of this specific component
+						vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*plot.Section)
+						if vgcomp == nil {
+							// create new one if needed
+							vgcomp = new(plot.Section)
+							vgin.BuildEnv.WireComponent(vgcomp)
+						}
+						vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+						vgcomp.Project = c.P
+						vgout.Components = append(vgout.Components, vgcomp)
+						vgn = &vugu.VGNode{Component: vgcomp}
+						vgparent.AppendChild(vgn)
+					}
+				}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
+				vgparent.AppendChild(vgn)
+				vgn.SetInnerHTML(vugu.HTML("The loaded areas of the last solve. The added stress with depth is drawn under Plots (“Added vertical stress with depth”): it spreads as in a homogeneous elastic half-space (or by the 2:1 rule), whatever the layers; the column itself is one-dimensional."))
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
 			}
 		}
@@ -4725,6 +5537,26 @@ func (c *Plots) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 				}
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
+				if k.Name == "stress" {
+					{
+						vgcompKey := vugu.MakeCompKey(0xD131E4FDCA26A171^vgin.CurrentPositionHash(), vgiterkey)
+						// ask BuildEnv for prior instance of this specific component
+						vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*plot.StageStress)
+						if vgcomp == nil {
+							// create new one if needed
+							vgcomp = new(plot.StageStress)
+							vgin.BuildEnv.WireComponent(vgcomp)
+						}
+						vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+						vgcomp.Project = c.P
+						vgcomp.Result = c.R
+						vgout.Components = append(vgout.Components, vgcomp)
+						vgn = &vugu.VGNode{Component: vgcomp}
+						vgparent.AppendChild(vgn)
+					}
+				}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
 			}
 		}
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
@@ -5145,9 +5977,34 @@ func (c *Root) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 						vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
 						vgcomp.Changed = c.edited
 						vgcomp.F = c.form
+						vgcomp.P = c.resultFor
+						vgcomp.R = c.result
 						vgout.Components = append(vgout.Components, vgcomp)
 						vgn = &vugu.VGNode{Component: vgcomp}
 						vgparent.AppendChild(vgn)
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					if c.hasFillStage() {
+						{
+							vgcompKey := vugu.MakeCompKey(0xED6F41E924E7ECC9^vgin.CurrentPositionHash(), vgiterkey)
+							// ask BuildEnv for prior instance of this specific component
+							vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*FillNeed)
+							if vgcomp == nil {
+								// create new one if needed
+								vgcomp = new(FillNeed)
+								vgin.BuildEnv.WireComponent(vgcomp)
+							}
+							vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+							vgcomp.Apply = c.applyNeed
+							vgcomp.Cancel = c.cancelNeed
+							vgcomp.F = c.form
+							vgcomp.Run = c.runNeed
+							vgcomp.S = c.needState()
+							vgout.Components = append(vgout.Components, vgcomp)
+							vgn = &vugu.VGNode{Component: vgcomp}
+							vgparent.AppendChild(vgn)
+						}
 					}
 					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 					vgparent.AppendChild(vgn)

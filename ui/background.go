@@ -3,7 +3,6 @@ package ui
 import (
 	"fmt"
 	"runtime/debug"
-	"time"
 
 	"porelight/solver"
 )
@@ -22,21 +21,7 @@ func (c *Root) inBackground(what string, current func() bool, setProgress func(f
 				err = fmt.Errorf("internal error in %s: %v\n%s", what, r, debug.Stack())
 			}
 		}()
-		last := time.Now()
-		opt := &solver.Options{Progress: func(f float64) bool {
-			if !current() {
-				return false
-			}
-			if c.Env != nil && time.Since(last) > 40*time.Millisecond {
-				c.Env.Lock()
-				setProgress(f)
-				c.Env.UnlockRender()
-				c.host().Yield()
-				last = time.Now()
-			}
-			return current()
-		}}
-		return work(opt)
+		return work(c.reporting(setProgress, current))
 	}
 	if c.Env == nil {
 		done(run())

@@ -38,6 +38,7 @@ var plotKinds = []plotKind{
 		return plot.PiezometersFitFigure(p, r, fit, 0, 0).SVG()
 	}, plot.PiezometersCSV},
 	{"steady", "Steady state: head, pore pressure and stresses", "steady state", noFit(plot.SteadySVG), plot.SteadyCSV},
+	{"stress", "Added vertical stress with depth", "added stress", noFit(plot.StressSVG), plot.StressCSV},
 }
 
 // plotFile returns the download of one plot: its SVG drawing or the

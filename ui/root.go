@@ -60,6 +60,7 @@ type Root struct {
 	shareURL  string
 	fit       *fitState    // back-analysis of the field records (monitor_root.go)
 	design    *designState // the drain design helper (drains_root.go)
+	need      *fillNeed    // the fill needed for a finished level (fill-need.go)
 	fold      folds        // which secondary sections are unfolded (folds.go)
 	printing  bool         // Print report is under way: every fold is open
 }
@@ -204,21 +205,35 @@ func (c *Root) run(g int64, model *solver.Project) (res *solver.Result, err erro
 	if solve == nil {
 		solve = solver.Solve
 	}
+	opt := c.yielding(&c.progress, func() bool { return c.gen.Load() == g })
+	return solve(solveInput(model), opt)
+}
+
+// yielding is the Options of an in-process solve (or of work made of
+// solves): while alive reports true, it stores the progress in *progress
+// and yields to the browser about every 40 ms; once alive reports false
+// the solve stops with ErrCanceled. Without Env it only checks alive.
+func (c *Root) yielding(progress *float64, alive func() bool) *solver.Options {
+	return c.reporting(func(f float64) { *progress = f }, alive)
+}
+
+// reporting is yielding with the progress handed to setProgress (under
+// the render lock).
+func (c *Root) reporting(setProgress func(float64), alive func() bool) *solver.Options {
 	last := time.Now()
-	opt := &solver.Options{Progress: func(f float64) bool {
-		if c.gen.Load() != g {
+	return &solver.Options{Progress: func(f float64) bool {
+		if !alive() {
 			return false
 		}
 		if c.Env != nil && time.Since(last) > 40*time.Millisecond {
 			c.Env.Lock()
-			c.progress = f
+			setProgress(f)
 			c.Env.UnlockRender()
 			c.host().Yield()
 			last = time.Now()
 		}
-		return c.gen.Load() == g
+		return alive()
 	}}
-	return solve(solveInput(model), opt)
 }
 
 // finish takes the results of solve g, if it is still the latest.

@@ -90,6 +90,9 @@ func (c *Summary) rows() []sumRow {
 	if s.Secondary == nil && !noLoad && c.R.Consolidation != nil {
 		rows[5].Note = "needs Cα (and e0) for a layer"
 	}
+	if s.Submerged != nil {
+		rows = append(rows, length("sum-submerged", "Fill below the water table", s.Submerged, "at the end: it weighs γsat − γw there, and the settlement allows for it"))
+	}
 	heave := sumRow{ID: "sum-heave", Label: "Least factor against heave (ic/i)", Value: "–", Note: "no upward flow"}
 	if f := s.MinHeaveFactor; f != nil {
 		heave.Value, heave.Exact, heave.Note = sig(*f, 3), exact(*f), "upward flow; compare with the factor your code requires"

@@ -24,8 +24,16 @@ func cloneProject(p *solver.Project) *solver.Project {
 	q.Top = cloneBoundary(p.Top)
 	q.Bottom = cloneBoundary(p.Bottom)
 	q.Loads = slices.Clone(p.Loads)
-	for i := range q.Loads {
-		q.Loads[i].Profile = slices.Clone(q.Loads[i].Profile)
+	for i, l := range q.Loads {
+		q.Loads[i].Profile = slices.Clone(l.Profile)
+		if l.Fill != nil {
+			f := *l.Fill
+			q.Loads[i].Fill = &f
+		}
+		if l.Area != nil {
+			a := *l.Area
+			q.Loads[i].Area = &a
+		}
 	}
 	q.InitialExcess = slices.Clone(p.InitialExcess)
 	q.Times = slices.Clone(p.Times)

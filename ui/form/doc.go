@@ -47,10 +47,19 @@
 // # Structural edits renumber typed text
 //
 // Adding, removing and moving rows (AddLayer, RemoveLayer, MoveLayer,
-// RemoveLoad, RemoveExcess, RemoveRecord, RemoveReading) move the typed
+// RemoveLoad, RemoveExcess, RemovePoint, RemoveRecord, RemoveReading) move the typed
 // text and its problems with their rows: text typed into layers[3].k
 // becomes layers[2].k's when a row above is removed. RemapKeys does the
 // same for the per-row state a component keeps in its own maps.
+//
+// # Load stages
+//
+// SetFill turns a stage into a fill of the same pressure or back;
+// SetArea gives it a loaded area (a strip, rectangle, circle or
+// embankment, with sizes to start from), a typed profile of Δσ/q against
+// depth (AreaProfile), or the whole top (AreaWhole); AreaKind tells which.
+// AddPoint and RemovePoint edit a depth profile by its path (a stage's
+// "loads[i].profile", or "initialExcess").
 //
 // # Deep copies
 //

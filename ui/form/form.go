@@ -231,7 +231,10 @@ var pageFields = func() map[string]bool {
 	for _, end := range []string{"top.", "bottom."} {
 		add(end, "head", "inflow", "excess[#].t", "excess[#].value")
 	}
-	add("loads[#].", "start", "ramp", "q")
+	add("loads[#].", "start", "ramp", "q", "fill.thickness", "fill.gamma", "fill.gammaSat",
+		"area.width", "area.length", "area.radius", "area.slope", "area.x", "area.y",
+		"profile[#].z", "profile[#].value")
+	add("initialExcess[#].", "z", "value")
 	add("mesh.", "order", "maxSize", "minPerLayer")
 	add("stepping.", "theta", "dampedSteps", "firstStep", "growth", "endTime")
 	add("layers[#].", "ch", "khKv")

@@ -213,7 +213,9 @@ func TestProblemsMappedToFields(t *testing.T) {
 		{"list item", func(p *solver.Project) { p.Times = []float64{10, 5} }, "times", "value 2: "},
 		{"reading date", func(p *solver.Project) { p.Monitoring.Plates[0].Readings[2].Date = "2023-12-01" },
 			"monitoring.plates[0].readings[2].t", ""},
-		{"no input", func(p *solver.Project) { p.InitialExcess = []solver.DepthValue{{Z: 2}, {Z: 1}} }, "", ""},
+		{"profile point", func(p *solver.Project) { p.InitialExcess = []solver.DepthValue{{Z: 2}, {Z: 1}} }, "initialExcess[1].z", ""},
+		{"stage area", func(p *solver.Project) { p.Loads[0].Area = &solver.Area{Shape: "strip"} }, "loads[0].area.width", ""},
+		{"no input", func(p *solver.Project) { p.Units = &solver.Units{Length: "ft"} }, "", ""},
 	}
 	for _, tc := range cases {
 		t.Run(tc.name, func(t *testing.T) {

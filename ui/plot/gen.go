@@ -1,6 +1,9 @@
 // Package plot draws Porelight's results as SVG: isochrones of excess pore
 // pressure, the average degree of consolidation, settlement and piezometer
-// histories against log time, and the steady head and stress profiles.
+// histories against log time, the steady head and stress profiles, the
+// added vertical stress of every load stage against depth (StressFigure),
+// and a to-scale cross-section of the loaded areas and the column
+// (SectionFigure, from the project alone).
 //
 // The geometry (scales, ticks, path data, the layer strip, legends and the
 // hover read-out) is built by plain Go in this package and is tested

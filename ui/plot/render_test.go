@@ -94,6 +94,8 @@ func TestComponentsRender(t *testing.T) {
 			{"settlement", "plot-settlement", &Settlement{Project: p, Result: r, Width: 700, Height: 450}},
 			{"piezometers", "plot-piezometers", &Piezometers{Project: p, Result: r, Width: 700, Height: 450}},
 			{"steady", "plot-steady", &SteadyProfiles{Project: p, Result: r, Width: 700, Height: 450}},
+			{"stress", "plot-stress", &StageStress{Project: p, Result: r, Width: 700, Height: 450}},
+			{"section", "plot-section", &Section{Project: p, Width: 700, Height: 450}},
 		}
 	}
 	for _, rc := range []struct {

@@ -148,3 +148,19 @@ func TestReadBrowser(t *testing.T) {
 		t.Errorf("readBrowser accepted a file without \"solves\"")
 	}
 }
+
+// TestMeasureLoads runs section 6 once: both solves of the embankment
+// example succeed and are timed (no speed goal here: that is the table's).
+func TestMeasureLoads(t *testing.T) {
+	if testing.Short() {
+		t.Skip("times solves")
+	}
+	c, err := measureLoads("../../..")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if c.submerged.best <= 0 || c.dry.best <= 0 || c.uniform.best <= 0 || c.dry.runs < 3 {
+		t.Errorf("timings %+v %+v %+v", c.submerged, c.dry, c.uniform)
+	}
+	t.Logf("submerged %v, dry %v, whole top %v: spread %.2f×, submergence %.2f×", c.submerged.best, c.dry.best, c.uniform.best, c.spread(), c.submergence())
+}

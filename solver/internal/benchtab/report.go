@@ -15,6 +15,7 @@ type report struct {
 	acc     *accuracy
 	size    *sizes
 	browser *browserFigures
+	loads   *loadCost
 	notes   []string
 }
 
@@ -142,6 +143,14 @@ func (r *report) summary() *table {
 		if b.JSHeapBeforeBytes != nil && b.JSHeapAfterBytes != nil && *b.JSHeapBeforeBytes > 0 {
 			heapRow("JavaScript heap", *b.JSHeapBeforeBytes, *b.JSHeapAfterBytes)
 		}
+	}
+	if l := r.loads; l != nil {
+		t.add("6 loads", "embankment example, no fill submerged: solve with the stress spread",
+			dur(float64(l.dry.best)), "same loads over the whole top "+dur(float64(l.uniform.best)),
+			fmt.Sprintf("%.2f×", l.spread()), "report only", "—")
+		t.add("6 loads", "embankment example as given: fill submerging as it settles",
+			dur(float64(l.submerged.best)), "no fill submerged "+dur(float64(l.dry.best)),
+			fmt.Sprintf("%.2f×", l.submergence()), "report only", "—")
 	}
 	return t
 }
