@@ -363,6 +363,11 @@ func TestE2EPage(t *testing.T) {
 
 	// The demo renders: results, then a plot with drawn curves.
 	poll[bool](t, ctx, `!!document.getElementById("sum-flux")?.dataset.value`, 45*time.Second)
+	decodeMs := eval[float64](t, ctx, `performance.getEntriesByName("porelight: decode program text")[0]?.duration ?? -1`)
+	if decodeMs < 0 {
+		t.Error("the boot script measured no decoding of the program text")
+	}
+	t.Logf("the boot script decoded the program text in %.1f ms", decodeMs)
 	native, err := solver.Solve(mustDecode(t, demo), nil)
 	if err != nil {
 		t.Fatal(err)

@@ -4,7 +4,7 @@
 // Pack writes one HTML file that carries everything inline: the CSS, the
 // demo project, the renderer's helper script, Go's wasm_exec.js, the
 // solve workers' script (inert text until the boot script makes workers
-// of it), the gzipped WebAssembly program in base 85 (see Encode85), its
+// of it), the gzipped WebAssembly program in a 7-bit text code (see Encode122), its
 // memory capped at MaxMemoryPages, and the boot script. A
 // Content-Security-Policy meta tag forbids every network request, so the
 // page works the same from disk, from a static server and in a sandboxed
@@ -25,6 +25,7 @@ import (
 	"strconv"
 	"strings"
 	"text/template"
+	"unicode/utf8"
 )
 
 // CSP is the page's Content-Security-Policy: inline scripts and styles,
@@ -116,7 +117,7 @@ func Pack(in Inputs) ([]byte, error) {
 		"Demo":       strings.TrimSpace(string(in.Demo)),
 		"VuguHelper": in.VuguHelper,
 		"WasmExec":   string(in.WasmExec),
-		"WasmGz":     wrap(Encode85(gz.Bytes()), 120),
+		"WasmGz":     wrap(Encode122(gz.Bytes()), 4096),
 		"WasmLen":    strconv.Itoa(gz.Len()),
 		"Boot":       bootJS,
 		"WorkerShim": workerJS,
@@ -155,12 +156,22 @@ func inlineSafe(s string) error {
 	return nil
 }
 
+// wrap breaks s into lines of about n bytes, never inside a UTF-8
+// sequence.
 func wrap(s string, n int) string {
 	var b strings.Builder
+	b.Grow(len(s) + len(s)/n + 1)
 	for len(s) > n {
-		b.WriteString(s[:n])
+		cut := n
+		for cut < len(s) && !utf8.RuneStart(s[cut]) {
+			cut++
+		}
+		if cut == len(s) {
+			break
+		}
+		b.WriteString(s[:cut])
 		b.WriteByte('\n')
-		s = s[n:]
+		s = s[cut:]
 	}
 	b.WriteString(s)
 	return b.String()
@@ -197,65 +208,120 @@ func HelperScript(vuguDir string) (string, error) {
 	return "", fmt.Errorf("%s: no constant jsHelperScript", file)
 }
 
-// Alphabet85 is the alphabet of Encode85: the printable ASCII characters
-// from '!' on, less the seven that HTML or JavaScript treat specially
-// and the braces
-// (" & ' < > \ and the backquote), in code order. Without '<' no run of
-// them can close the script element that holds them or open a comment.
-const Alphabet85 = "!#$%()*+,-./0123456789:;=?@ABCDEFGHIJKLMNOPQRSTUVWXYZ[]^_abcdefghijklmnopqrstuvwxyz|~"
+// Unsafe7 are the seven-bit values that Encode122 never writes as
+// themselves. The program sits in the raw text of a <script> element,
+// which the HTML parser hands over untouched except for:
+//
+//   - NUL, which the tokenizer replaces with U+FFFD (script data state);
+//   - CR, which input-stream preprocessing turns into LF (CR LF into LF);
+//   - '<', which can begin "</script" (ending the element) or "<!--"
+//     (entering the escaped states, where a later "</script>" may not end
+//     it).
+//
+// The page's UTF-8 decoding turns only invalid sequences into U+FFFD, and
+// Encode122 writes valid UTF-8. Two more are left out by choice: LF, so
+// that line breaks around and within the text are not data, and '&', so
+// that the text would survive even in an element that decodes character
+// references. Leaving a value out costs no space (see Encode122). The
+// browser test TestE2ERawText checks in Chromium that every other
+// character up to U+07FF reaches textContent unchanged.
+const Unsafe7 = "\x00\n\r&<"
 
-// Encode85 writes b in base 85: every 4 bytes (big-endian, the last group
-// padded with zero bytes) become 5 digits of Alphabet85, most significant
-// first. The text is 25 % longer than b, against 33 % for base 64; the
-// decoder needs the length of b to drop the padding.
-func Encode85(b []byte) string {
-	var out strings.Builder
-	out.Grow((len(b) + 3) / 4 * 5)
-	var group [4]byte
-	var digits [5]byte
-	for i := 0; i < len(b); i += 4 {
-		group = [4]byte{}
-		copy(group[:], b[i:])
-		v := uint32(group[0])<<24 | uint32(group[1])<<16 | uint32(group[2])<<8 | uint32(group[3])
-		for j := 4; j >= 0; j-- {
-			digits[j] = Alphabet85[v%85]
-			v /= 85
+// Encode122 writes b as UTF-8 text carrying 7 bits per byte, after the
+// base-122 idea: b is read as a stream of bits, most significant first,
+// cut into 7-bit chunks (the last padded with zero bits), n = ⌈8·len(b)/7⌉
+// chunks in all. A chunk c that is not in Unsafe7 is written as the ASCII
+// character c. A chunk equal to Unsafe7[i] is written together with the
+// chunk d after it as the one two-byte UTF-8 character U+0080 + 128·i + d
+// (U+0080…U+02FF); 14 bits in 2 bytes, the same rate. When the unsafe
+// chunk is the last one, it is written alone as U+0300 + i. So the text
+// has ⌈8·len(b)/7⌉ bytes, or one more: 14.3 % more than b, against 25 %
+// for base 85 and 33 % for base 64, and it holds none of Unsafe7 (in
+// particular no '<'). Read in JavaScript, every character is one UTF-16
+// code unit below U+0800. The decoder needs len(b) to tell the padding
+// from data; see Decode122 and from122 in shell/boot.js.
+func Encode122(b []byte) string {
+	var unsafe [128]int8
+	for i := range unsafe {
+		unsafe[i] = -1
+	}
+	for i := 0; i < len(Unsafe7); i++ {
+		unsafe[Unsafe7[i]] = int8(i)
+	}
+	n := (len(b)*8 + 6) / 7
+	// chunk returns bits 7k … 7k+6 of b, zero past its end.
+	chunk := func(k int) byte {
+		i, off := 7*k/8, 7*k%8
+		v := uint16(b[i]) << 8
+		if i+1 < len(b) {
+			v |= uint16(b[i+1])
 		}
-		out.Write(digits[:])
+		return byte(v>>(9-off)) & 127
+	}
+	var out strings.Builder
+	out.Grow(n + n/32 + 2)
+	for k := 0; k < n; k++ {
+		c := chunk(k)
+		i := unsafe[c]
+		switch {
+		case i < 0:
+			out.WriteByte(c)
+		case k+1 < n:
+			k++
+			out.WriteRune(rune(0x80 + 128*int(i) + int(chunk(k))))
+		default:
+			out.WriteRune(rune(0x300 + int(i)))
+		}
 	}
 	return out.String()
 }
 
-// Decode85 reverses Encode85 for n bytes, skipping white space; it is the
-// Go twin of the page's decoder, used by the tests.
-func Decode85(s string, n int) ([]byte, error) {
-	var idx [256]int16
-	for i := range idx {
-		idx[i] = -1
+// Decode122 reverses Encode122 for n bytes, skipping line breaks; it is
+// the Go twin of the page's decoder (from122 in shell/boot.js), used by
+// the tests, and refuses what the page's decoder refuses: a character
+// outside the code, text after a lone last chunk, too few or too many
+// chunks for n bytes, and padding bits that are not zero.
+func Decode122(s string, n int) ([]byte, error) {
+	if n < 0 {
+		return nil, fmt.Errorf("pack: %d bytes asked for", n)
 	}
-	for i := 0; i < len(Alphabet85); i++ {
-		idx[Alphabet85[i]] = int16(i)
-	}
-	out := make([]byte, 0, (len(s)/5+1)*4)
-	var v uint32
-	k := 0
-	for i := 0; i < len(s); i++ {
-		c := s[i]
-		if c == ' ' || c == '\n' || c == '\r' || c == '\t' {
+	out := make([]byte, 0, n)
+	var acc uint32
+	bits := 0
+	ended := false
+	for j, r := range s {
+		if r == '\n' {
 			continue
 		}
-		d := idx[c]
-		if d < 0 {
-			return nil, fmt.Errorf("pack: %q is not a base-85 digit", c)
+		if ended {
+			return nil, fmt.Errorf("pack: text goes on after the last chunk (byte %d)", j)
 		}
-		v = v*85 + uint32(d)
-		if k++; k == 5 {
-			out = append(out, byte(v>>24), byte(v>>16), byte(v>>8), byte(v))
-			v, k = 0, 0
+		switch {
+		case r < 0x80 && strings.IndexByte(Unsafe7, byte(r)) < 0:
+			acc, bits = acc<<7|uint32(r), bits+7
+		case r >= 0x80 && r < 0x80+128*rune(len(Unsafe7)):
+			v := uint32(r - 0x80)
+			acc, bits = acc<<14|uint32(Unsafe7[v>>7])<<7|v&127, bits+14
+		case r >= 0x300 && r < 0x300+rune(len(Unsafe7)):
+			acc, bits = acc<<7|uint32(Unsafe7[r-0x300]), bits+7
+			ended = true
+		default:
+			return nil, fmt.Errorf("pack: %q (byte %d) is not a character of the 7-bit code", r, j)
+		}
+		for bits >= 8 {
+			bits -= 8
+			if len(out) == n {
+				return nil, fmt.Errorf("pack: the text holds more than %d bytes", n)
+			}
+			out = append(out, byte(acc>>bits))
+			acc &= 1<<bits - 1
 		}
 	}
-	if k != 0 || n > len(out) || len(out)-n > 3 {
-		return nil, fmt.Errorf("pack: base-85 text of %d bytes does not hold %d bytes", len(out), n)
+	if len(out) < n {
+		return nil, fmt.Errorf("pack: the text holds %d bytes, not %d", len(out), n)
 	}
-	return out[:n], nil
+	if bits >= 7 || acc != 0 {
+		return nil, fmt.Errorf("pack: the text has %d bits past its %d bytes (want fewer than 7, all zero)", bits, n)
+	}
+	return out, nil
 }

@@ -6,11 +6,13 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"math/rand"
 	"os/exec"
 	"regexp"
 	"strconv"
 	"strings"
 	"testing"
+	"unicode/utf8"
 )
 
 // module is a WebAssembly module of a custom section holding payload and
@@ -71,7 +73,7 @@ func TestPack(t *testing.T) {
 		t.Fatal("no wasm-gz script")
 	}
 	n, _ := strconv.Atoi(m[1])
-	gz, err := Decode85(m[2], n)
+	gz, err := Decode122(m[2], n)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -146,36 +148,127 @@ func TestHelperScript(t *testing.T) {
 	}
 }
 
-// TestBase85 round-trips every length modulo 4 and every byte value, and
-// checks that the alphabet holds no character HTML or JavaScript treats
-// specially, so no encoded text can close its script element.
-func TestBase85(t *testing.T) {
-	if len(Alphabet85) != 85 {
-		t.Fatalf("alphabet has %d characters", len(Alphabet85))
-	}
-	if strings.ContainsAny(Alphabet85, "\"&'<>\\` \t\n") {
-		t.Fatalf("alphabet holds a special character: %q", Alphabet85)
-	}
-	all := make([]byte, 1027)
-	for i := range all {
-		all[i] = byte(i * 7)
-	}
-	all[0], all[1], all[2], all[3] = 255, 255, 255, 255 // the largest group
-	for _, n := range []int{0, 1, 2, 3, 4, 5, 1023, 1024, 1025, 1026, 1027} {
-		enc := Encode85(all[:n])
-		if len(enc) != (n+3)/4*5 {
-			t.Errorf("%d bytes: %d characters, want %d", n, len(enc), (n+3)/4*5)
+// TestCode122 round-trips the 7-bit text code of Encode122 on every byte
+// value, on runs of each unsafe chunk (at the end too, where it is
+// written alone), on random data of every length up to 70 and some
+// longer ones (fixed seeds), and checks the text: valid UTF-8, none of
+// Unsafe7, at most one byte more than ⌈8n/7⌉. The expected lengths follow
+// from the definition of the code; no outside source.
+func TestCode122(t *testing.T) {
+	// Bytes whose every 7-bit chunk is Unsafe7[i]: chunk c repeated is
+	// the bit pattern of c, 7 bits at a time.
+	repeated := func(c byte, n int) []byte {
+		b := make([]byte, n)
+		for k := 0; k < n*8; k++ {
+			if c>>(6-k%7)&1 == 1 {
+				b[k/8] |= 0x80 >> (k % 8)
+			}
 		}
-		got, err := Decode85(wrap(enc, 120), n)
-		if err != nil || !bytes.Equal(got, all[:n]) {
-			t.Errorf("%d bytes: round trip failed (%v)", n, err)
+		return b
+	}
+	inputs := map[string][]byte{"empty": {}}
+	every := make([]byte, 256*3)
+	for i := range every {
+		every[i] = byte(i) // every value, at every offset within a chunk
+	}
+	inputs["every byte value"] = every
+	for i := 0; i < len(Unsafe7); i++ {
+		for _, n := range []int{1, 2, 6, 7, 8, 13, 14} {
+			inputs[fmt.Sprintf("chunks all %#x, %d bytes", Unsafe7[i], n)] = repeated(Unsafe7[i], n)
 		}
 	}
-	if _, err := Decode85("!!!!", 0); err == nil {
-		t.Error("a truncated group was accepted")
+	for seed := int64(1); seed <= 3; seed++ {
+		rng := rand.New(rand.NewSource(seed))
+		for _, n := range append([]int{255, 256, 4095, 4096, 4097, 100000}, seq(0, 70)...) {
+			b := make([]byte, n)
+			rng.Read(b)
+			inputs[fmt.Sprintf("random seed %d, %d bytes", seed, n)] = b
+		}
 	}
-	if _, err := Decode85("!!!!<", 4); err == nil {
-		t.Error("a character outside the alphabet was accepted")
+	lone := 0
+	for name, b := range inputs {
+		enc := Encode122(b)
+		if !utf8.ValidString(enc) {
+			t.Errorf("%s: the text is not valid UTF-8", name)
+		}
+		if strings.ContainsAny(enc, Unsafe7) {
+			t.Errorf("%s: the text holds one of %q", name, Unsafe7)
+		}
+		for _, r := range enc {
+			if r >= 0x800 {
+				t.Errorf("%s: %U is not below U+0800", name, r)
+				break
+			}
+		}
+		chunks := (8*len(b) + 6) / 7
+		if len(enc) != chunks && len(enc) != chunks+1 {
+			t.Errorf("%s: %d bytes of text, want %d or %d", name, len(enc), chunks, chunks+1)
+		}
+		if len(enc) == chunks+1 {
+			lone++
+		}
+		for _, text := range []string{enc, wrap(enc, 7), "\n" + enc + "\n"} {
+			got, err := Decode122(text, len(b))
+			if err != nil || !bytes.Equal(got, b) {
+				t.Errorf("%s: round trip failed (%v)", name, err)
+				break
+			}
+		}
+	}
+	if lone == 0 {
+		t.Error("no input ends in an unsafe chunk written alone")
+	}
+	// What the decoder refuses.
+	ab := Encode122([]byte("ab")) // 16 bits in 3 chunks, 5 padding bits
+	for _, tt := range []struct {
+		text string
+		n    int
+		want string
+	}{
+		{ab, 3, "not 3"},
+		{ab + "A", 2, "more than 2"},
+		{"A", 0, "bits past"}, // a whole chunk of padding
+		{Encode122([]byte("abc")), 2, "more than 2"},
+		{ab[:2] + string(rune(ab[2]|1)), 2, "bits past"}, // a padding bit set
+		{"A<A", 1, "not a character"},
+		{"A\rA", 1, "not a character"},
+		{"A\u0800", 1, "not a character"},
+		{"A\ufffd", 1, "not a character"},
+		{"\u0300A", 1, "goes on after"},
+		{"", -1, "asked for"},
+	} {
+		if _, err := Decode122(tt.text, tt.n); err == nil || !strings.Contains(err.Error(), tt.want) {
+			t.Errorf("Decode122(%q, %d): error %v, want one saying %q", tt.text, tt.n, err, tt.want)
+		}
+	}
+}
+
+func seq(lo, hi int) []int {
+	var s []int
+	for i := lo; i <= hi; i++ {
+		s = append(s, i)
+	}
+	return s
+}
+
+// TestWrap: lines of about n bytes that never split a UTF-8 sequence,
+// and the text is unchanged but for the line breaks.
+func TestWrap(t *testing.T) {
+	s := strings.Repeat("aé\u07ffb", 50)
+	for _, n := range []int{1, 2, 3, 7, 1000} {
+		w := wrap(s, n)
+		if !utf8.ValidString(w) {
+			t.Errorf("n=%d: a line break splits a character", n)
+		}
+		if strings.ReplaceAll(w, "\n", "") != s {
+			t.Errorf("n=%d: the text changed", n)
+		}
+		for _, line := range strings.Split(w, "\n") {
+			if len(line) > n+1 {
+				t.Errorf("n=%d: a line of %d bytes", n, len(line))
+				break
+			}
+		}
 	}
 }
 

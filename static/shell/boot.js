@@ -31,40 +31,71 @@
 		return realEval(src);
 	};
 
-	// The gzipped program is written in base 85 (static/pack.go, Encode85):
-	// 5 digits of the alphabet below hold 4 bytes, most significant first.
-	var alphabet85 = "!#$%()*+,-./0123456789:;=?@ABCDEFGHIJKLMNOPQRSTUVWXYZ[]^_abcdefghijklmnopqrstuvwxyz|~";
-	function from85(text, n) {
-		var idx = new Int16Array(128).fill(-1);
-		for (var i = 0; i < alphabet85.length; i++) {
-			idx[alphabet85.charCodeAt(i)] = i;
+	// The gzipped program is written in the 7-bit text code of
+	// static/pack.go (Encode122): an ASCII character is a 7-bit chunk of
+	// the bits, most significant first; U+0080 + 128·i + d is the unsafe
+	// chunk unsafe7[i] followed by the chunk d; U+0300 + i is unsafe7[i]
+	// as the last chunk. Line breaks are not data. n is the number of
+	// bytes (data-bytes); the padding bits after them must be zero.
+	// The browser test TestE2ECode122 runs this function as it stands
+	// here, from "function from122" to the closing line marked from122.
+	function from122(text, n) {
+		var unsafe7 = [0, 10, 13, 38, 60];
+		if (!(n >= 0) || n !== Math.floor(n)) {
+			throw new Error("the embedded program has no valid byte count (data-bytes)");
 		}
-		var out = new Uint8Array(Math.ceil(text.length / 5) * 4);
-		var o = 0, v = 0, k = 0;
-		for (var j = 0; j < text.length; j++) {
-			var c = text.charCodeAt(j);
-			if (c <= 32) {
-				continue; // white space from line wrapping
+		var out = new Uint8Array(n);
+		var o = 0, acc = 0, bits = 0, len = text.length, j = 0;
+		function damaged(what) {
+			return new Error("the embedded program is damaged (" + what + ")");
+		}
+		for (; j < len; j++) {
+			var u = text.charCodeAt(j);
+			if (u < 128) {
+				if (u === 10) {
+					continue; // a line break
+				}
+				if (u === 0 || u === 13 || u === 38 || u === 60) {
+					throw damaged("character " + j);
+				}
+				acc = (acc << 7) | u;
+				bits += 7;
+			} else if (u < 768) {
+				acc = (acc << 14) | (unsafe7[(u - 128) >> 7] << 7) | (u & 127);
+				bits += 14;
+			} else if (u < 773) {
+				acc = (acc << 7) | unsafe7[u - 768];
+				bits += 7;
+				for (var k = j + 1; k < len; k++) {
+					if (text.charCodeAt(k) !== 10) {
+						throw damaged("text after its end, character " + k);
+					}
+				}
+				j = len; // the last chunk: only line breaks may follow
+			} else {
+				throw damaged("character " + j);
 			}
-			var d = c < 128 ? idx[c] : -1;
-			if (d < 0) {
-				throw new Error("the embedded program is damaged (character " + j + ")");
-			}
-			v = v * 85 + d;
-			if (++k === 5) {
-				out[o++] = v >>> 24;
-				out[o++] = (v >>> 16) & 255;
-				out[o++] = (v >>> 8) & 255;
-				out[o++] = v & 255;
-				v = 0;
-				k = 0;
+			if (bits >= 8) {
+				if (o + (bits >= 16 ? 2 : 1) > n) {
+					throw new Error("the embedded program holds more than its " + n + " bytes");
+				}
+				if (bits >= 16) {
+					bits -= 8;
+					out[o++] = acc >>> bits;
+				}
+				bits -= 8;
+				out[o++] = acc >>> bits;
+				acc &= (1 << bits) - 1;
 			}
 		}
-		if (k !== 0 || o < n) {
-			throw new Error("the embedded program is truncated");
+		if (o < n) {
+			throw new Error("the embedded program is truncated (" + o + " of " + n + " bytes)");
 		}
-		return out.subarray(0, n);
-	}
+		if (bits >= 7 || acc !== 0) {
+			throw damaged("its end");
+		}
+		return out;
+	} // from122
 
 	// Problem-shaped answers, as porelight.solve gives for a bad project.
 	var encoder = new TextEncoder();
@@ -394,7 +425,13 @@
 			return;
 		}
 		var holder = document.getElementById("wasm-gz");
-		var gz = from85(holder.textContent, Number(holder.getAttribute("data-bytes")));
+		if (!holder || !holder.hasAttribute("data-bytes")) {
+			throw new Error("the page holds no embedded program (#wasm-gz with data-bytes)");
+		}
+		var t0 = performance.now();
+		var gz = from122(holder.textContent, Number(holder.getAttribute("data-bytes")));
+		// For the browser tests: how long reading the text took.
+		performance.measure("porelight: decode program text", {start: t0});
 		var stream = new Blob([gz]).stream().pipeThrough(new DecompressionStream("gzip"));
 		var bytes = await new Response(stream).arrayBuffer();
 		// Compiled once: the page and every worker instantiate this module.
