@@ -44,6 +44,12 @@ type consolidation struct {
 	negativeWarned bool
 	probes         []probe
 	steps          int
+
+	// The iterated time loop (nil: the linear stepper): the non-linear
+	// model, or the linear model with a swelling mv, and each layer's
+	// final settlement along the drained path under its laws.
+	nl        *nonlinear
+	nlDrained []float64
 }
 
 // probe is a piezometer: where to read the excess, and the steady pore
@@ -62,10 +68,16 @@ func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path
 	}
 	k.sublayers()
 	k.deriveMv()
+	k.iterated()
 	k.linearSummary()
 	if err := k.march(); err != nil {
 		return err
 	}
+	if k.nl != nil {
+		k.nl.warnings(warn)
+		r.Stats.Iterations = k.nl.iterations
+	}
+	k.headline()
 	k.elogSummary()
 	k.degreeTimes()
 	k.secondary()
@@ -183,7 +195,11 @@ func (k *consolidation) linearSummary() {
 		r.Steady.Layers[i].Cv = ptr(ls.Cv)
 	}
 	sum := 0.0
-	for i, s := range k.tr.layerSettlement(k.sigInf, k.uInf) {
+	final := k.tr.layerSettlement(k.sigInf, k.uInf)
+	if k.nl != nil && !k.nonlinearModel() {
+		final = k.nlDrained // the linear laws, with their swelling mv
+	}
+	for i, s := range final {
 		r.Summary.Layers[i].SettlementLinear = s
 		sum += s
 	}
@@ -203,6 +219,12 @@ func (k *consolidation) prepareSeries() *Consolidation {
 		ser.Piezometers = append(ser.Piezometers, Piezometer{Depth: z})
 	}
 	k.denS = dot(tr.wMass, k.sigInf) - dot(tr.wMass, k.uInf)
+	if k.nl != nil {
+		k.denS = 0
+		for _, s := range k.nlDrained {
+			k.denS += s
+		}
+	}
 	k.denP = dot(tr.wLength, k.sigInf) - dot(tr.wLength, k.uInf)
 	k.defined = math.Abs(k.denS) > 1e-12*math.Max(1, math.Abs(*k.r.Summary.SettlementLinear)) && len(tr.held) > 0
 	capacity := estimateSteps(p) + len(k.bps) + 2
@@ -248,12 +270,20 @@ func (k *consolidation) record(ser *Series, t float64) {
 		sNow += w * d
 		pNow += tr.wLength[i] * d
 	}
+	if k.nl != nil {
+		sNow = k.nl.settlement()
+	}
 	ser.Settlement = append(ser.Settlement, sNow)
 	if k.defined {
 		ser.Us = append(ser.Us, sNow/k.denS)
 		ser.Up = append(ser.Up, pNow/k.denP)
 	}
-	if k.followStress {
+	if k.nonlinearModel() {
+		// The iteration moved the points; the series is the one solution.
+		if k.allCurves {
+			ser.SettlementElog = append(ser.SettlementElog, sNow)
+		}
+	} else if k.followStress {
 		total := 0.0
 		for e := range k.points {
 			s := &k.points[e]
@@ -314,7 +344,11 @@ func (k *consolidation) march() error {
 			theta = 1
 			damp--
 		}
-		if err := tr.step(theta, t, h); err != nil {
+		step := tr.step
+		if k.nl != nil {
+			step = k.nl.step
+		}
+		if err := step(theta, t, h); err != nil {
 			return err
 		}
 		k.steps++
@@ -486,4 +520,60 @@ func (c *column) meshWarnings(mv []float64, warn func(path, msg string)) {
 			warn(fmt.Sprintf("layers[%d]", i), fmt.Sprintf("the mesh (elements of %.3g m) cannot resolve the pressure in %q before about %.3g days; the isochrone at %g days is coarse there; use a smaller mesh.maxSize", h, l.Name, tres, t1))
 		}
 	}
+}
+
+// nonlinearModel reports whether the project asks for the non-linear
+// model.
+func (k *consolidation) nonlinearModel() bool { return k.c.p.Model == ModelNonlinear }
+
+// iterated sets up the iterated time loop when the project needs one: the
+// non-linear model (elements with an e–log curve follow it, the others
+// their mv), or the linear model with a swelling mv on some layer.
+func (k *consolidation) iterated() {
+	p := k.c.p
+	need := k.nonlinearModel()
+	for _, l := range p.Layers {
+		need = need || l.MvUnload > 0
+	}
+	if !need {
+		return
+	}
+	law := make([]bool, len(k.points))
+	pts := k.points
+	if k.nonlinearModel() {
+		copy(law, k.curved)
+		for i, l := range p.Layers {
+			if l.ECurve == nil {
+				k.warn(fmt.Sprintf("layers[%d].ecurve", i), "no e–log curve: this layer follows its mv (constant k) in the non-linear model, and its mv settlement is part of the total")
+			}
+		}
+	} else {
+		pts = append([]soil.Point(nil), k.points...) // the e–log estimate keeps its own
+	}
+	k.nl = newNonlinear(k.tr, pts, law, k.mv, k.tr.stressScale())
+	k.nlDrained = k.nl.drained(k.bps, k.sigInf, k.uInf)
+}
+
+// headline names the model the summary's headline figures come from and
+// gives its final primary settlement: the iterated laws' drained path, or
+// ∫ mv Δσ' dz.
+func (k *consolidation) headline() {
+	r := k.r
+	r.Summary.Model = ModelLinear
+	if k.nonlinearModel() {
+		r.Summary.Model = ModelNonlinear
+	}
+	s := *r.Summary.SettlementLinear
+	if k.nl != nil {
+		s = 0
+		for i, v := range k.nlDrained {
+			r.Summary.Layers[i].Settlement = v
+			s += v
+		}
+	} else {
+		for i := range r.Summary.Layers {
+			r.Summary.Layers[i].Settlement = r.Summary.Layers[i].SettlementLinear
+		}
+	}
+	r.Summary.Settlement = ptr(s)
 }

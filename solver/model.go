@@ -51,10 +51,22 @@ type Project struct {
 	DesignLife float64 `json:"designLife,omitempty"`
 	// Monitoring holds field readings to compare with the prediction.
 	Monitoring *Monitoring `json:"monitoring,omitempty"`
+	// Model is the consolidation model: ModelLinear ("linear", also the
+	// meaning of "") keeps k and mv of every layer fixed for the whole
+	// solve; ModelNonlinear ("nonlinear") gives every element its own state
+	// (effective stress, largest past effective stress, void ratio) and
+	// follows the layer's e–log σ' curve and permeability law step by step.
+	Model string `json:"model,omitempty"`
 	// Mesh and Stepping control the numerics; zero values are defaults.
 	Mesh     MeshSettings `json:"mesh,omitzero"`
 	Stepping Stepping     `json:"stepping,omitzero"`
 }
+
+// The consolidation models (Project.Model).
+const (
+	ModelLinear    = "linear"
+	ModelNonlinear = "nonlinear"
+)
 
 // Units names the units of a project file. Only the SI set is accepted.
 type Units struct {
@@ -82,6 +94,11 @@ type Layer struct {
 	// "derive it from ECurve" over the layer's stress range; then ECurve is
 	// required.
 	Mv float64 `json:"mv,omitempty"`
+	// MvUnload is the coefficient of volume compressibility on unloading
+	// and on reloading below the largest past effective stress (the
+	// swelling modulus), 1/kPa, for the layers that follow mv. Zero means
+	// Mv: unloading rebounds along the loading slope.
+	MvUnload float64 `json:"mvUnload,omitempty"`
 	// ECurve gives the e–log σ' parameters for the settlement estimate.
 	ECurve *ECurve `json:"ecurve,omitempty"`
 	// Calpha is the coefficient of secondary compression (Δe per log10
@@ -102,6 +119,11 @@ type ECurve struct {
 	SigmaP float64 `json:"sigmaP,omitempty"`
 	// OCR is the overconsolidation ratio σ'p/σ'0 at each depth, ≥ 1.
 	OCR float64 `json:"ocr,omitempty"`
+	// Ck is the permeability change index of the non-linear model:
+	// log10 k = log10 k0 + (e − e0)/Ck (Tavenas et al. 1983), with k0 the
+	// layer's k at the in-situ void ratio e0. Zero means k stays constant.
+	// The linear model ignores it.
+	Ck float64 `json:"ck,omitempty"`
 }
 
 // Boundary is the condition at one end of the column.

@@ -169,6 +169,13 @@ type Piezometer struct {
 // Summary collects the headline figures. Pointer fields are nil where the
 // figure does not exist (no load, never reached in the simulated time).
 type Summary struct {
+	// Model is the consolidation model the series and the headline
+	// figures (Settlement, T50, T90, TTarget, Secondary) come from:
+	// ModelLinear or ModelNonlinear.
+	Model string `json:"model,omitempty"`
+	// Settlement is the final primary settlement of that model, m: along
+	// the fully drained path of the load history, the state Us refers to.
+	Settlement *float64 `json:"settlement,omitempty"`
 	// SettlementLinear is the final primary settlement from mv, m.
 	SettlementLinear *float64 `json:"settlementLinear,omitempty"`
 	// SettlementElog is the final primary settlement from the e–log σ'
@@ -202,15 +209,23 @@ type LayerSummary struct {
 	// settlements, m (SettlementElog nil without an e–log curve).
 	SettlementLinear float64  `json:"settlementLinear"`
 	SettlementElog   *float64 `json:"settlementElog,omitempty"`
-	Secondary        *float64 `json:"secondary,omitempty"`
+	// Settlement is this layer's final primary settlement under
+	// Summary.Model, m: its mv settlement in the linear model (with the
+	// swelling mv where given), its e–log settlement in the non-linear
+	// model, or its mv settlement there when it has no e–log curve.
+	Settlement float64  `json:"settlement"`
+	Secondary  *float64 `json:"secondary,omitempty"`
 }
 
 // Stats describe the numerical work of a solve.
 type Stats struct {
-	Nodes          int    `json:"nodes"`
-	Elements       int    `json:"elements"`
-	Order          int    `json:"order"`
-	Steps          int    `json:"steps"`
-	Factorizations int    `json:"factorizations"`
-	Scheme         string `json:"scheme,omitempty"`
+	Nodes          int `json:"nodes"`
+	Elements       int `json:"elements"`
+	Order          int `json:"order"`
+	Steps          int `json:"steps"`
+	Factorizations int `json:"factorizations"`
+	// Iterations counts the solves of the iterated time loop (non-linear
+	// model or swelling mv); zero for the linear stepper.
+	Iterations int    `json:"iterations,omitempty"`
+	Scheme     string `json:"scheme,omitempty"`
 }

@@ -51,6 +51,11 @@ func Validate(p *Project) error {
 		positive(&ps, "gammaW", p.GammaW)
 	}
 	finite(&ps, "waterTable", p.WaterTable)
+	switch p.Model {
+	case "", ModelLinear, ModelNonlinear:
+	default:
+		ps.Add("model", ErrOutOfRange, fmt.Sprintf("got %q, the models are %q and %q", p.Model, ModelLinear, ModelNonlinear))
+	}
 
 	switch n := len(p.Layers); {
 	case n == 0:
@@ -76,6 +81,12 @@ func Validate(p *Project) error {
 			positive(&ps, at+"mv", l.Mv)
 		} else if l.ECurve == nil {
 			ps.Add(at+"mv", ErrRequired, "give mv, or an ecurve to derive it from")
+		}
+		if l.MvUnload != 0 {
+			positive(&ps, at+"mvUnload", l.MvUnload)
+		}
+		if c := l.ECurve; c != nil && c.Ck != 0 {
+			positive(&ps, at+"ecurve.ck", c.Ck)
 		}
 		if l.Calpha != 0 {
 			nonNegative(&ps, at+"calpha", l.Calpha)

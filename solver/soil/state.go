@@ -35,3 +35,7 @@ func LinearCompress(mv, mvUnload, from, to, peak float64) (strain, newPeak float
 	}
 	return mvUnload*(peak-from) + mv*(to-peak), to
 }
+
+// VoidRatio is the void ratio of the point now: e0 less the compression
+// so far.
+func (s *Point) VoidRatio() float64 { return s.Curve.E0 - s.de }
