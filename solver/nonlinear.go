@@ -3,6 +3,7 @@ package solver
 import (
 	"fmt"
 	"math"
+	"slices"
 
 	"porelight/solver/fem"
 	"porelight/solver/soil"
@@ -55,13 +56,15 @@ type nonlinear struct {
 	sig     []float64 // constant-mv law: effective stress now
 	peak    []float64 // constant-mv law: largest past effective stress
 	strain  []float64 // constant-mv law: settlement so far, m
-	k0, ck  []float64 // conductivity k0/γw, m²/(kPa·day), and Ck (0: constant)
+	k0, ck  []float64 // conductivity k/γw now, m²/(kPa·day), and Ck (0: constant)
 	cm, cc  []float64 // the coefficients of the iterate: secant mv, k/γw
 
 	mass, cond *fem.Band
 	f          fem.Factor
 	u0, u1     []float64
 	rhs        []float64
+	du         []float64 // the change of u over the last step
+	lastDt     float64   // its length (0: no step to extrapolate from)
 
 	// Statistics.
 	iterations, steps int
@@ -97,7 +100,7 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 	}
 	nl.mass = fem.NewBand(n, m.Order)
 	nl.cond = fem.NewBand(n, m.Order)
-	nl.u0, nl.u1, nl.rhs = make([]float64, n), make([]float64, n), make([]float64, n)
+	nl.u0, nl.u1, nl.rhs, nl.du = make([]float64, n), make([]float64, n), make([]float64, n), make([]float64, n)
 	return nl
 }
 
@@ -120,7 +123,7 @@ func (nl *nonlinear) coefficients(theta float64, sigma, u []float64) {
 		to := p.S0 + nl.mean(sigma, e) - nl.mean(u, e)
 		if nl.curved[e] {
 			from, pk := p.Stress(), p.Peak()
-			cu := p.Curve
+			cu := &p.Curve
 			ref := math.Max(from, soil.MinEffective)
 			// The tangent index in the direction of the move; also the
 			// floor that keeps the capacity positive when Cr = 0.
@@ -132,14 +135,13 @@ func (nl *nonlinear) coefficients(theta float64, sigma, u []float64) {
 			mvMin := 1e-6 * cu.Cc / (math.Ln10 * (1 + cu.E0) * ref)
 			de := 0.0
 			if d := to - from; math.Abs(d) > 1e-9*ref {
-				de, _ = soil.Compress(cu, from, to, pk)
+				de = p.Toward(to)
 				mvT = de / ((1 + cu.E0) * d)
 			}
 			nl.cm[e] = math.Max(mvT, mvMin)
 			nl.cc[e] = nl.k0[e]
 			if nl.ck[e] > 0 {
-				eNow := p.VoidRatio() - theta*de
-				nl.cc[e] = soil.Permeability(nl.k0[e], cu.E0, eNow, nl.ck[e])
+				nl.cc[e] = soil.PermeabilityAfter(nl.k0[e], theta*de, nl.ck[e])
 			}
 			continue
 		}
@@ -164,8 +166,19 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 	tr := nl.tr
 	ds := tr.stressStep(t0, dt)
 	tr.heldValues(tr.next, t0+dt, true)
+	// The first iterate extrapolates the last step's change, unless
+	// something jumped since (then u is no longer where that step ended).
+	if nl.lastDt > 0 && !slices.Equal(tr.u, nl.u1) {
+		nl.lastDt = 0
+	}
 	copy(nl.u0, tr.u)
 	copy(nl.u1, tr.u)
+	if nl.lastDt > 0 {
+		r := dt / nl.lastDt
+		for i := tr.lo; i < tr.hi; i++ {
+			nl.u1[i] += r * nl.du[i]
+		}
+	}
 	for i, j := range tr.held {
 		nl.u1[j] = tr.next[i]
 	}
@@ -203,6 +216,10 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 		nl.unconverged++
 		nl.worst = math.Max(nl.worst, change)
 	}
+	for i := range nl.du {
+		nl.du[i] = nl.u1[i] - nl.u0[i]
+	}
+	nl.lastDt = dt
 	copy(tr.u, nl.u1)
 	nl.commit(t0+dt, tr.sigma, tr.u)
 	return nil
@@ -218,6 +235,9 @@ func (nl *nonlinear) commit(t float64, sigma, u []float64) {
 			nl.negativeAt, nl.negativeT = (z0+z1)/2, t
 		}
 		if nl.curved[e] {
+			if nl.ck[e] > 0 {
+				nl.k0[e] = soil.PermeabilityAfter(nl.k0[e], p.Toward(to), nl.ck[e])
+			}
 			p.MoveTo(to)
 			continue
 		}
@@ -258,7 +278,8 @@ func (nl *nonlinear) layerSettlements(dst []float64) {
 // then the final state) and returns each layer's final settlement, m: the
 // denominator of Us.
 func (nl *nonlinear) drained(bps []breakpoint, sigInf, uInf []float64) []float64 {
-	cp := &nonlinear{m: nl.m, curved: nl.curved, mv: nl.mv, mvu: nl.mvu,
+	cp := &nonlinear{m: nl.m, curved: nl.curved, mv: nl.mv, mvu: nl.mvu, ck: nl.ck,
+		k0:     append([]float64(nil), nl.k0...),
 		pts:    append([]soil.Point(nil), nl.pts...),
 		sig:    append([]float64(nil), nl.sig...),
 		peak:   append([]float64(nil), nl.peak...),

@@ -118,3 +118,163 @@ func TestDavisRaymond(t *testing.T) {
 		})
 	}
 }
+
+// TestNonlinearLinearLimit checks that a small load step on the
+// non-linear model reproduces the linear model with the tangent mv and k
+// at σ'0 (the derivative of the e–log σ' curve, Terzaghi & Peck 1967: mv
+// = Cc/(ln 10 (1+e0) σ'0)): Δσ/σ'0 = 1e-3, so the secant differs from the
+// tangent by about 5e-4. Tolerance from issue 11: 0.1 % of the final
+// settlement, and 0.001 in Us, at every step.
+func TestNonlinearLinearLimit(t *testing.T) {
+	t.Parallel()
+	const h, s0, q = 4.0, 100.0, 0.1
+	nl, _ := drClay(h, s0, q)
+	lin, _ := drClay(h, s0, q)
+	lin.Model = ModelLinear
+	lin.Layers[0].Mv = soil.TangentMv(curveOf(lin.Layers[0].ECurve), s0, s0)
+	rn, rl := solveUniform(t, nl, s0), solveUniform(t, lin, s0)
+	sn, sl := rn.Consolidation.Series, rl.Consolidation.Series
+	if len(sn.Time) != len(sl.Time) {
+		t.Fatalf("%d and %d steps", len(sn.Time), len(sl.Time))
+	}
+	final := *rl.Summary.Settlement
+	worst := 0.0
+	// From the first step on: at t = 0 the linear series already counts
+	// the half element beside the drained end that drains with the load,
+	// which the elements' states take up in the first step.
+	for i := 1; i < len(sn.Time); i++ {
+		worst = math.Max(worst, math.Abs(sn.Settlement[i]-sl.Settlement[i])/final)
+		worst = math.Max(worst, math.Abs(sn.Us[i]-sl.Us[i]))
+	}
+	if worst > 1e-3 {
+		t.Errorf("settlement series differ by up to %.3g of the final settlement, want ≤ 1e-3 (tangent mv, Terzaghi & Peck 1967)", worst)
+	}
+	if d := math.Abs(*rn.Summary.T50 / *rl.Summary.T50 - 1); d > 1e-3 {
+		t.Errorf("t50 %.6g against %.6g days: %.2g apart, want ≤ 1e-3", *rn.Summary.T50, *rl.Summary.T50, d)
+	}
+	t.Logf("largest difference %.2g of the final settlement", worst)
+}
+
+// TestNonlinearUnloadReload loads a normally consolidated clay from σ'0 =
+// 50 to 100 kPa, unloads to 70 kPa and reloads to 100 kPa, each stage
+// given time to drain, and checks the settlement at the end of each stage
+// by hand (Terzaghi & Peck 1967: Cc on the virgin line, Cr on unloading
+// and reloading below the peak), tolerance 0.5 % of the first stage's
+// settlement (the stages are not fully drained at their ends), and that
+// the swelling runs along Cr with its faster cv: the rebound reaches half
+// its value in less than a third of the loading's t50 (Cc/Cr = 10).
+func TestNonlinearUnloadReload(t *testing.T) {
+	t.Parallel()
+	const h, s0 = 2.0, 50.0
+	p, cv := drClay(h, s0, 50)
+	p.Layers[0].ECurve.Ck = 0 // constant k
+	stage := 3 * h * h / cv   // Tv = 3 of the loading cv
+	p.Loads = []Load{{Start: 0, Q: 50}, {Start: stage, Q: -30}, {Start: 2 * stage, Q: 30}}
+	p.Stepping.EndTime = 3 * stage
+	r := solveUniform(t, p, s0)
+	s := r.Consolidation.Series
+	f := h / 2.5 // H/(1+e0)
+	load := 0.5 * f * math.Log10(100.0/50)
+	rebound := 0.05 * f * math.Log10(100.0/70)
+	for _, c := range []struct {
+		name string
+		t    float64
+		want float64
+	}{
+		{"after loading (Cc)", stage, load},
+		{"after unloading (Cr)", 2 * stage, load - rebound},
+		{"after reloading (Cr)", 3 * stage, load},
+	} {
+		got := SeriesAt(s.Time, s.Settlement, c.t)
+		if math.Abs(got-c.want) > 0.005*load {
+			t.Errorf("%s: %.5f m, want %.5f m (hand-worked, ±0.5 %% of %.4f m)", c.name, got, c.want, load)
+		}
+	}
+	// Time to half the rebound, counted from the unloading.
+	start := SeriesAt(s.Time, s.Settlement, stage)
+	half := start - rebound/2
+	var tHalf float64
+	for i, tm := range s.Time {
+		if tm > stage && s.Settlement[i] <= half {
+			tHalf = tm - stage
+			break
+		}
+	}
+	if tHalf == 0 || tHalf > *r.Summary.T50/3 {
+		t.Errorf("half the rebound after %.4g days, loading t50 %.4g days: want under a third (swelling along Cr)", tHalf, *r.Summary.T50)
+	}
+}
+
+// TestNonlinearConvergenceOrder refines the mesh and the time step on the
+// Davis & Raymond (1965) case σ'f/σ'0 = 5 and checks the observed orders
+// of the largest pressure error at Tv = 0.2 against the closed form:
+// second order in element size (linear elements, an O(h²) method,
+// Strang & Fix 1973) and in the step (Crank–Nicolson, Crank & Nicolson
+// 1947), within 0.3.
+func TestNonlinearConvergenceOrder(t *testing.T) {
+	t.Parallel()
+	if testing.Short() {
+		t.Skip("refinement study: run without -short")
+	}
+	const h, s0, q = 1.0, 50.0, 200.0
+	errAt := func(p *Project, cv float64) float64 {
+		tEval := 0.2 * h * h / cv
+		p.Times = []float64{tEval}
+		p.Stepping.EndTime = tEval
+		r := solveUniform(t, p, s0)
+		worst := 0.0
+		for j, z := range r.Consolidation.Depth {
+			w := series.TerzaghiExcess(z/h, 0.2)
+			want := (s0 + q) * (1 - math.Pow(s0/(s0+q), w))
+			worst = math.Max(worst, math.Abs(r.Consolidation.Isochrones[0].Excess[j]-want))
+		}
+		return worst
+	}
+	tests := []struct {
+		name string
+		vary func(p *Project, tEval float64, level int)
+	}{
+		{"space", func(p *Project, tEval float64, l int) {
+			p.Mesh = MeshSettings{MaxSize: h / float64(int(8)<<l), MinPerLayer: 1}
+			p.Stepping = Stepping{FirstStep: tEval / 2000, Growth: 1}
+		}},
+		{"time", func(p *Project, tEval float64, l int) {
+			p.Mesh = MeshSettings{MaxSize: h / 256, MinPerLayer: 1}
+			p.Stepping = Stepping{FirstStep: tEval / float64(int(16)<<l), Growth: 1}
+		}},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			t.Parallel()
+			var errs []float64
+			for level := range 3 {
+				p, cv := drClay(h, s0, q)
+				tt.vary(p, 0.2*h*h/cv, level)
+				errs = append(errs, errAt(p, cv))
+			}
+			got := math.Log2(errs[1] / errs[2])
+			t.Logf("observed order %.3f, largest errors %.3g kPa", got, errs)
+			if math.Abs(got-2) > 0.3 {
+				t.Errorf("observed order %.3f (errors %.3g kPa), want 2 ± 0.3", got, errs)
+			}
+		})
+	}
+}
+
+// TestNonlinearStepAllocates checks that the time loop allocates nothing:
+// a solve with four times as many steps makes as many allocations (the
+// series are sized before the loop).
+func TestNonlinearStepAllocates(t *testing.T) {
+	p, cv := drClay(2, 50, 50)
+	count := func(steps float64) float64 {
+		p.Stepping = Stepping{FirstStep: 4 / cv / steps, Growth: 1, EndTime: 4 / cv}
+		return testing.AllocsPerRun(2, func() {
+			if _, err := Solve(p, nil); err != nil {
+				t.Fatal(err)
+			}
+		})
+	}
+	if a, b := count(100), count(400); b > a+2 {
+		t.Errorf("%g allocations for 100 steps, %g for 400: the loop allocates", a, b)
+	}
+}

@@ -15,7 +15,27 @@ func Permeability(k0, e0, e, ck float64) float64 {
 	if ck <= 0 {
 		return k0
 	}
-	return k0 * math.Pow(10, (e-e0)/ck)
+	return PermeabilityAfter(k0, e0-e, ck)
+}
+
+// PermeabilityAfter is the permeability of a soil of permeability k once
+// its void ratio has dropped by de (negative: swelling), by the same law:
+// k·10^(−de/ck). Special cases are: ck ≤ 0 gives k.
+func PermeabilityAfter(k, de, ck float64) float64 {
+	if ck <= 0 {
+		return k
+	}
+	return k * exp(-math.Ln10*de/ck)
+}
+
+// exp is math.Exp, by its Taylor series where |y| < 1e-2 (error below
+// y⁶/720 < 2e-15 relative): the time loop evaluates it for every element
+// and iteration, mostly at small arguments.
+func exp(y float64) float64 {
+	if y > -1e-2 && y < 1e-2 {
+		return 1 + y*(1+y*(0.5+y*(1.0/6+y*(1.0/24+y/120))))
+	}
+	return math.Exp(y)
 }
 
 // LinearCompress is Compress for a soil with a constant coefficient of
