@@ -116,7 +116,7 @@ func (k *consolidation) sublayers() {
 	k.curved = make([]bool, ne)
 	k.elogDrained = make([]float64, len(p.Layers))
 	k.drainedDelta = make([]float64, len(p.Layers))
-	warned := make([]bool, len(p.Layers))
+	pw := preconsolidationWarner{warn: k.warn}
 	for e := range ne {
 		_, z0, z1 := m.Span(e)
 		zc := (z0 + z1) / 2
@@ -128,11 +128,8 @@ func (k *consolidation) sublayers() {
 			continue
 		}
 		ec := l.ECurve
-		if ec.SigmaP > 0 && ec.SigmaP < s0 && !warned[li] {
-			warned[li] = true
-			k.warn(fmt.Sprintf("layers[%d].ecurve.sigmaP", li), fmt.Sprintf("σ'p = %g kPa is below the in-situ effective stress (%.3g kPa at %.3g m); taken as normally consolidated there", ec.SigmaP, s0, zc))
-		}
-		k.points[e] = soil.NewPoint(curveOf(ec), z1-z0, s0, soil.Preconsolidation(ec.SigmaP, ec.OCR, s0))
+		pw.check(li, ec, zc, s0)
+		k.points[e] = soil.NewPoint(curveOf(ec), z1-z0, s0, sigmaPAt(ec, zc, s0))
 		k.curved[e] = true
 	}
 	if !k.anyCurve {
@@ -178,7 +175,7 @@ func (k *consolidation) deriveMv() {
 			zc := k.c.tops[i] + l.Thickness/2
 			s0 := math.Max(m.Interpolate(k.st.Effective, zc), soil.MinEffective)
 			ec := l.ECurve
-			k.mv[i] = soil.TangentMv(curveOf(ec), s0, soil.Preconsolidation(ec.SigmaP, ec.OCR, s0))
+			k.mv[i] = soil.TangentMv(curveOf(ec), s0, sigmaPAt(ec, zc, s0))
 		}
 		k.warn(fmt.Sprintf("layers[%d].mv", i), fmt.Sprintf("mv derived from the e–log curve: %.3g 1/kPa", k.mv[i]))
 	}

@@ -114,11 +114,20 @@ type ECurve struct {
 	Cc float64 `json:"cc"`
 	// Cr is the recompression (and swelling) index, ≥ 0 and ≤ Cc.
 	Cr float64 `json:"cr"`
-	// SigmaP is the preconsolidation stress, kPa. Give SigmaP or OCR, not
-	// both; with neither the layer is normally consolidated.
+	// SigmaP is the preconsolidation stress, kPa, the same at every depth
+	// of the layer. With none of SigmaP, OCR, POP and SigmaPProfile the
+	// layer is normally consolidated.
 	SigmaP float64 `json:"sigmaP,omitempty"`
 	// OCR is the overconsolidation ratio σ'p/σ'0 at each depth, ≥ 1.
 	OCR float64 `json:"ocr,omitempty"`
+	// POP is the pre-overburden pressure, kPa ≥ 0: σ'p = σ'0 + POP at
+	// every depth (the usual description of a crust). Give at most one of
+	// SigmaP, OCR, POP and SigmaPProfile.
+	POP float64 `json:"pop,omitempty"`
+	// SigmaPProfile gives σ'p against depth below the top of the column
+	// (z in m, value in kPa > 0; linear between points, constant beyond
+	// them), e.g. from oedometer tests at several depths.
+	SigmaPProfile []DepthValue `json:"sigmaPProfile,omitempty"`
 	// Ck is the permeability change index of the non-linear model:
 	// log10 k = log10 k0 + (e − e0)/Ck (Tavenas et al. 1983), with k0 the
 	// layer's k at the in-situ void ratio e0. Zero means k stays constant.

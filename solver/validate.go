@@ -82,12 +82,7 @@ func Validate(p *Project) error {
 		} else if l.ECurve == nil {
 			ps.Add(at+"mv", ErrRequired, "give mv, or an ecurve to derive it from")
 		}
-		if l.MvUnload != 0 {
-			positive(&ps, at+"mvUnload", l.MvUnload)
-		}
-		if c := l.ECurve; c != nil && c.Ck != 0 {
-			positive(&ps, at+"ecurve.ck", c.Ck)
-		}
+		validSoilModel(&ps, i, l)
 		if l.Calpha != 0 {
 			nonNegative(&ps, at+"calpha", l.Calpha)
 			if l.ECurve == nil {

@@ -1,0 +1,49 @@
+package solver
+
+import "fmt"
+
+// validSoilModel checks the fields of layer i that the soil models read
+// beyond mv and the e–log curve itself: the swelling mv, the permeability
+// change index and the preconsolidation profile (one way of giving σ'p).
+func validSoilModel(ps *Problems, i int, l Layer) {
+	at := IndexPath("layers", i)
+	if l.MvUnload != 0 {
+		positive(ps, JoinPath(at, "mvUnload"), l.MvUnload)
+	}
+	c := l.ECurve
+	if c == nil {
+		return
+	}
+	ec := JoinPath(at, "ecurve")
+	if c.Ck != 0 {
+		positive(ps, JoinPath(ec, "ck"), c.Ck)
+	}
+	if c.POP != 0 {
+		nonNegative(ps, JoinPath(ec, "pop"), c.POP)
+	}
+	prof := JoinPath(ec, "sigmaPProfile")
+	validProfile(ps, prof, c.SigmaPProfile)
+	for j, dv := range c.SigmaPProfile {
+		positive(ps, JoinPath(IndexPath(prof, j), "value"), dv.Value)
+	}
+	// The ways of giving σ'p exclude each other; the first given wins the
+	// message, the later ones are named.
+	given := []struct {
+		name string
+		set  bool
+	}{{"sigmaP", c.SigmaP != 0}, {"ocr", c.OCR != 0}, {"pop", c.POP != 0}, {"sigmaPProfile", len(c.SigmaPProfile) > 0}}
+	first := ""
+	for _, g := range given {
+		if !g.set {
+			continue
+		}
+		if first == "" {
+			first = g.name
+			continue
+		}
+		if first == "sigmaP" && g.name == "ocr" {
+			continue // reported by Validate since the first format
+		}
+		ps.Add(JoinPath(ec, g.name), ErrConflict, fmt.Sprintf("give one of sigmaP, ocr, pop and sigmaPProfile (%s is given too)", first))
+	}
+}
