@@ -50,6 +50,8 @@ type consolidation struct {
 	// final settlement along the drained path under its laws.
 	nl        *nonlinear
 	nlDrained []float64
+
+	ends *primaryEnds // per layer end of primary (nil: no layer has a Cα)
 }
 
 // probe is a piezometer: where to read the excess, and the steady pore
@@ -235,6 +237,7 @@ func (k *consolidation) prepareSeries() *Consolidation {
 	if k.allCurves {
 		ser.SettlementElog = make([]float64, 0, capacity)
 	}
+	k.prepareEnds()
 	for i := range ser.Piezometers {
 		ser.Piezometers[i].Pore = make([]float64, 0, capacity)
 		ser.Piezometers[i].Excess = make([]float64, 0, capacity)
@@ -298,6 +301,10 @@ func (k *consolidation) record(ser *Series, t float64) {
 		if k.allCurves {
 			ser.SettlementElog = append(ser.SettlementElog, total)
 		}
+	}
+	if k.ends != nil {
+		k.layerNow(k.ends.now)
+		k.ends.observe(t)
 	}
 	for i := range k.probes {
 		pz := &k.probes[i]
@@ -426,47 +433,6 @@ func (k *consolidation) degreeTimes() {
 	if u := ser.Us[len(ser.Us)-1]; math.Abs(u-1) > 0.01 {
 		k.warn("stepping.endTime", fmt.Sprintf("consolidation is %.1f %% complete at the end of the simulation (%.4g days)", 100*u, k.bps[len(k.bps)-1].t))
 	}
-}
-
-// endOfPrimary is the degree of consolidation taken as the end of primary
-// consolidation, where secondary compression starts.
-const endOfPrimary = 0.95
-
-// secondary estimates the secondary compression of every layer with a Cα
-// at the design life (Mesri 1973), from the time Us reaches endOfPrimary.
-func (k *consolidation) secondary() {
-	p, r := k.c.p, k.r
-	if !k.defined {
-		return
-	}
-	ser := &r.Consolidation.Series
-	tp := crossing(ser.Time, ser.Us, endOfPrimary)
-	sec, any := 0.0, false
-	for i, l := range p.Layers {
-		if l.Calpha <= 0 || l.ECurve == nil {
-			continue
-		}
-		any = true
-		if tp == nil {
-			continue
-		}
-		strain := r.Summary.Layers[i].SettlementLinear / l.Thickness
-		if s := r.Summary.Layers[i].SettlementElog; s != nil {
-			strain = *s / l.Thickness
-		}
-		ep := l.ECurve.E0 - strain*(1+l.ECurve.E0)
-		s := soil.Secondary(l.Calpha, l.Thickness, ep, r.Summary.DesignLife, *tp)
-		r.Summary.Layers[i].Secondary = ptr(s)
-		sec += s
-	}
-	if !any {
-		return
-	}
-	if tp == nil {
-		k.warn("designLife", "primary consolidation does not reach 95 % in the simulated time: no secondary compression estimate")
-		return
-	}
-	r.Summary.Secondary = ptr(sec)
 }
 
 // earlyTimes warns about output times before anything changes.

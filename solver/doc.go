@@ -224,7 +224,7 @@
 //	initialExcess[k].z        m       finite, increasing              ErrNotFinite, ErrNotSorted
 //	times[j]                  day     > 0, increasing                 ErrNotPositive, ErrNotSorted
 //	times                     –       nodes × (count + 7) + steps ×   ErrTooLarge
-//	                                  (6 + 2 piezometers) ≤ MaxStored
+//	                                  (7 + 2 piezometers) ≤ MaxStored
 //	piezometers[j]            m       0 … column height               ErrNegative, ErrOutOfRange
 //	targetDegree              –       0 < value < 1 (absent: 0.95)    ErrOutOfRange
 //	designLife                day     > 0 (absent: 50 years)          ErrNotPositive

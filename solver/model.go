@@ -104,6 +104,16 @@ type Layer struct {
 	// Calpha is the coefficient of secondary compression (Δe per log10
 	// cycle of time), ≥ 0. Zero means no secondary compression.
 	Calpha float64 `json:"calpha,omitempty"`
+	// CalphaCc gives Cα as a fraction of ecurve.cc instead (Mesri &
+	// Godlewski 1977: about 0.04 for inorganic clays, 0.05–0.07 for
+	// organic ones, common practice as a hint only), ≥ 0; give Calpha or
+	// CalphaCc, not both.
+	CalphaCc float64 `json:"calphaCc,omitempty"`
+	// CalphaReduced, when given, is the Cα that applies once a surcharge
+	// has been removed (unloading slows secondary compression for a
+	// while); without it the full Cα is used and the solve warns that the
+	// rate is then overestimated. ≥ 0.
+	CalphaReduced float64 `json:"calphaReduced,omitempty"`
 }
 
 // ECurve holds the parameters of the e–log σ' compression model.

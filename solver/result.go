@@ -125,6 +125,10 @@ type Series struct {
 	// one).
 	Settlement     []float64 `json:"settlement"`
 	SettlementElog []float64 `json:"settlementElog,omitempty"`
+	// Secondary is the secondary compression at each time, m, the sum of
+	// every layer's from its own end of primary (empty when no layer has
+	// a Cα); it adds to Settlement.
+	Secondary []float64 `json:"secondary,omitempty"`
 	// Piezometers holds the pore pressure histories at the requested
 	// depths, in the order given.
 	Piezometers []Piezometer `json:"piezometers,omitempty"`
@@ -215,6 +219,10 @@ type LayerSummary struct {
 	// model, or its mv settlement there when it has no e–log curve.
 	Settlement float64  `json:"settlement"`
 	Secondary  *float64 `json:"secondary,omitempty"`
+	// SecondaryStart is when this layer's own degree of consolidation
+	// reaches 95 %, days: its end of primary, where its secondary
+	// compression starts.
+	SecondaryStart *float64 `json:"secondaryStart,omitempty"`
 }
 
 // Stats describe the numerical work of a solve.

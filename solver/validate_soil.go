@@ -10,6 +10,23 @@ func validSoilModel(ps *Problems, i int, l Layer) {
 	if l.MvUnload != 0 {
 		positive(ps, JoinPath(at, "mvUnload"), l.MvUnload)
 	}
+	if l.CalphaCc != 0 {
+		p := JoinPath(at, "calphaCc")
+		nonNegative(ps, p, l.CalphaCc)
+		if l.Calpha != 0 {
+			ps.Add(p, ErrConflict, "give calpha or calphaCc, not both")
+		}
+		if l.ECurve == nil {
+			ps.Add(p, ErrConflict, "calphaCc needs an ecurve (its cc and e0)")
+		}
+	}
+	if l.CalphaReduced != 0 {
+		p := JoinPath(at, "calphaReduced")
+		nonNegative(ps, p, l.CalphaReduced)
+		if l.ECurve == nil {
+			ps.Add(p, ErrConflict, "secondary compression needs ecurve.e0")
+		}
+	}
 	c := l.ECurve
 	if c == nil {
 		return
