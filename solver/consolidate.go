@@ -39,7 +39,8 @@ type consolidation struct {
 	drainedDelta   []float64 // per layer: ∫ Δσ'∞ dz
 	mv             []float64 // per layer
 	followStress   bool      // the time loop follows σ' element by element
-	defined        bool      // Us and Up have a non-zero denominator
+	defined        bool      // Us has a non-zero denominator
+	definedUp      bool      // so has Up
 	denS, denP     float64
 	negativeWarned bool
 	probes         []probe
@@ -226,12 +227,25 @@ func (k *consolidation) prepareSeries() *Consolidation {
 	}
 	k.denP = dot(tr.wLength, k.sigInf) - dot(tr.wLength, k.uInf)
 	k.defined = math.Abs(k.denS) > 1e-12*math.Max(1, math.Abs(*k.r.Summary.SettlementLinear)) && len(tr.held) > 0
+	// Up's denominator ∫Δσ'∞ dz vanishes when the final change of
+	// effective stress is zero everywhere (a load applied, then removed)
+	// or rises in one part of the column as much as it falls in another,
+	// even where Us is defined: Up is then 0/0 and left out. 1e-9 of
+	// ∫|Δσ'∞| dz is far above the rounding of the sum and far below any
+	// change worth a degree of consolidation.
+	absP := 0.0
+	for i, w := range tr.wLength {
+		absP += w * math.Abs(k.sigInf[i]-k.uInf[i])
+	}
+	k.definedUp = len(tr.held) > 0 && math.Abs(k.denP) > 1e-9*absP
 	capacity := estimateSteps(p) + len(k.bps) + 2
 	ser.Time = make([]float64, 0, capacity)
 	ser.Load = make([]float64, 0, capacity)
 	ser.Settlement = make([]float64, 0, capacity)
 	if k.defined {
 		ser.Us = make([]float64, 0, capacity)
+	}
+	if k.definedUp {
 		ser.Up = make([]float64, 0, capacity)
 	}
 	if k.allCurves {
@@ -276,6 +290,8 @@ func (k *consolidation) record(ser *Series, t float64) {
 	ser.Settlement = append(ser.Settlement, sNow)
 	if k.defined {
 		ser.Us = append(ser.Us, sNow/k.denS)
+	}
+	if k.definedUp {
 		ser.Up = append(ser.Up, pNow/k.denP)
 	}
 	if k.nonlinearModel() {

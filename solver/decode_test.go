@@ -2,6 +2,7 @@ package solver
 
 import (
 	"bytes"
+	"encoding/json"
 	"errors"
 	"os"
 	"reflect"
@@ -200,6 +201,10 @@ func TestDecodeValid(t *testing.T) {
 	if err := Validate(p); err != nil {
 		t.Errorf("Validate: %v", err)
 	}
+	// A byte order mark, which some editors write, is not an error.
+	if _, err := Decode([]byte("\xef\xbb\xbf" + decValid)); err != nil {
+		t.Errorf("with a byte order mark: %v", err)
+	}
 	// null leaves the zero value, as encoding/json does.
 	p, err = Decode([]byte(`{"format": "porelight/1", "gammaW": null, "layers": [` + decLayer + `], "loads": null}`))
 	if err != nil || p.GammaW != 0 || p.Loads != nil {
@@ -268,7 +273,7 @@ func FuzzDecode(f *testing.F) {
 		f.Add([]byte(s))
 	}
 	reasons := []error{ErrRequired, ErrNotFinite, ErrNotPositive, ErrNegative, ErrOutOfRange, ErrNotSorted,
-		ErrUnknown, ErrFormat, ErrSyntax, ErrConflict, ErrTooLarge}
+		ErrUnknown, ErrFormat, ErrSyntax, ErrNotProject, ErrConflict, ErrTooLarge}
 	f.Fuzz(func(t *testing.T, data []byte) {
 		p, err := Decode(data)
 		if err != nil {
@@ -297,4 +302,76 @@ func FuzzDecode(f *testing.F) {
 			t.Fatalf("re-encoding changed the bytes:\n%s\n%s", once, twice)
 		}
 	})
+}
+
+// A file that is not valid JSON is refused with the line and column of
+// the mistake (1-based, counted in characters, as a text editor shows
+// them), and a file of another kind is named for what it is. The
+// positions are counted by hand in the literals below.
+func TestDecodeSaysWhere(t *testing.T) {
+	t.Parallel()
+	cases := []struct {
+		name   string
+		json   string
+		path   string
+		reason error
+		says   string
+	}{
+		{"bad character on line 3", "{\n  \"format\": \"porelight/1\",\n  \"title\": x\n}", "", ErrSyntax,
+			"line 3, column 12: invalid character 'x' looking for beginning of value"},
+		{"missing comma", "{\"format\": \"porelight/1\"\n \"title\": \"a\"}", "", ErrSyntax,
+			"line 2, column 2: invalid character '\"' after object key:value pair"},
+		// "é" is two bytes but one column.
+		{"columns count characters", "{\"title\": \"é\", x}", "", ErrSyntax, "line 1, column 16: invalid character 'x'"},
+		{"cut short", "{\n \"format\": \"porelight/1\",\n \"layers\": [", "", ErrSyntax,
+			"line 3, column 12: the file ends in the middle of the project"},
+		{"empty", " \n", "", ErrSyntax, "the file is empty"},
+		{"text after the object", decValid + "\n\n  {}", "", ErrSyntax, "line 4, column 3: text after the end of the project"},
+		{"a brace too many", "{\"format\": \"porelight/1\"}\n}", "", ErrSyntax, "line 2, column 1: invalid character '}' after top-level value"},
+		{"results file", `{"steady": {"depth": [0, 1]}, "summary": {}, "warnings": [], "stats": {}}`, "", ErrNotProject,
+			"this is a results file, not a project — open a project file"},
+		{"refusal answer", `{"error": {"problems": [{"path": "", "message": "x"}]}}`, "", ErrNotProject, "not a project — open a project file"},
+		{"CSV", "time,settlement\n0,0\n10,0.012\n", "", ErrNotProject, "this is not a project file (it looks like CSV"},
+		{"CSV with semicolons", "0;0\n10;0,012\n", "", ErrNotProject, "(it looks like CSV"},
+		{"plain text", "notes from the site visit\n", "", ErrNotProject, "this is not a project file (it looks like text)"},
+		{"HTML", "<!doctype html><html></html>", "", ErrNotProject, "(it looks like HTML or XML)"},
+		{"binary", "\x1f\x8b\x08\x00\x00\x00", "", ErrNotProject, "(it looks like a binary file"},
+		// A type error keeps its field path (checkShape; no position) and
+		// does not call valid JSON invalid.
+		{"type error names the field", `{"format": "porelight/1", "top": {"drained": "yes"}}`, "top.drained", ErrSyntax,
+			"must be true or false in JSON, not text"},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			t.Parallel()
+			p, err := Decode([]byte(c.json))
+			if p != nil {
+				t.Fatal("Decode returned a project")
+			}
+			ps := AsProblems(err)
+			if len(ps) != 1 {
+				t.Fatalf("%d problems, want 1: %v", len(ps), err)
+			}
+			if ps[0].Path != c.path || !errors.Is(ps[0], c.reason) {
+				t.Errorf("path %q, reason %v; want %q, %v", ps[0].Path, ps[0].Err, c.path, c.reason)
+			}
+			if !strings.Contains(ps[0].Message, c.says) {
+				t.Errorf("message %q does not say %q", ps[0].Message, c.says)
+			}
+		})
+	}
+}
+
+// syntaxProblem reads encoding/json's own errors: a type error found by
+// json.Unmarshal (a case the shape check normally catches first) keeps
+// the field path and gets the position of the value.
+func TestSyntaxProblemTypeError(t *testing.T) {
+	t.Parallel()
+	data := []byte("{\n \"gammaW\": \"heavy\"}")
+	var p Project
+	err := json.Unmarshal(data, &p)
+	pr := syntaxProblem(data, err)
+	if pr.Path != "gammaW" || !errors.Is(pr, ErrSyntax) || !strings.HasPrefix(pr.Message, "line 2, column ") {
+		t.Errorf("got %+v", pr)
+	}
 }

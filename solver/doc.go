@@ -12,6 +12,17 @@
 //	if err != nil { … }           // err is a Problems list: path + message each
 //	r, err := solver.Solve(p, nil)
 //
+// Every refusal is a Problem: a field path (Path, "" for the file as a
+// whole), a reason to test with errors.Is (Err, one of the Err* values)
+// and a Message to show beside the field; callers never parse the error
+// text. Broken JSON says where ("line 3, column 12: …"); a file of
+// another kind (results, CSV) is named as such (ErrNotProject). A
+// column whose equations cannot be factorised stops the solve with an
+// ErrNumerical problem at the k of the layer where it failed, naming the
+// depth; an output that is not finite is refused at its own path under
+// ResultPath ("result.steady.head[12]"), so a Result holds only finite
+// numbers and always encodes to JSON.
+//
 // Depth z is positive downward from the top of the column. Heads are
 // piezometric levels in metres above the top (negative below it). Units are
 // SI: m, kPa, kN/m³, day, m/s, 1/kPa. Every function leaves its arguments

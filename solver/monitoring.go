@@ -132,6 +132,13 @@ func (v *monitorCheck) readings(at string, rs []Reading) {
 // negative or not finite. It does not check the order of the readings
 // (Validate does).
 func ReadingTimes(m *Monitoring, rs []Reading) ([]float64, error) {
+	return ReadingTimesAt(m, rs, "readings")
+}
+
+// ReadingTimesAt is ReadingTimes for the readings at field path list,
+// e.g. "monitoring.plates[2].readings": its problems name
+// "monitoring.plates[2].readings[3].date".
+func ReadingTimesAt(m *Monitoring, rs []Reading, list string) ([]float64, error) {
 	var ps Problems
 	var start time.Time
 	startOK := false
@@ -143,7 +150,7 @@ func ReadingTimes(m *Monitoring, rs []Reading) ([]float64, error) {
 	}
 	ts := make([]float64, len(rs))
 	for j, r := range rs {
-		at := fmt.Sprintf("readings[%d]", j)
+		at := IndexPath(list, j)
 		if r.Date == "" {
 			nonNegative(&ps, at+".t", r.T)
 			ts[j] = r.T

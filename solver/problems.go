@@ -19,14 +19,19 @@ var (
 	ErrUnknown     = errors.New("is not a known field")
 	ErrFormat      = errors.New("is not a supported format")
 	ErrSyntax      = errors.New("is not valid JSON")
-	ErrConflict    = errors.New("conflicts with another field")
-	ErrTooLarge    = errors.New("exceeds a limit")
-	ErrDate        = errors.New("is not a date (YYYY-MM-DD)")
-	ErrDuplicate   = errors.New("repeats the time of the reading before")
+	// ErrNotProject marks a file that is not a project at all: a results
+	// file, a table (CSV) or other text.
+	ErrNotProject = errors.New("is not a project file")
+	ErrConflict   = errors.New("conflicts with another field")
+	ErrTooLarge   = errors.New("exceeds a limit")
+	ErrDate       = errors.New("is not a date (YYYY-MM-DD)")
+	ErrDuplicate  = errors.New("repeats the time of the reading before")
 	// ErrNumerical marks a project that passed validation but whose
 	// equations or results could not be computed in floating point (a
 	// matrix that is not positive definite, an output that is not
-	// finite). The path names the field most likely at fault.
+	// finite). The path names the field most likely at fault: a layer's
+	// k for a factorisation, or the output itself under ResultPath
+	// ("result.steady.head[12]").
 	ErrNumerical = errors.New("could not be computed")
 )
 

@@ -116,10 +116,15 @@ type Series struct {
 	Load []float64 `json:"load"`
 	// Us and Up are the average degrees of consolidation by settlement
 	// and by pore pressure, as fractions (1 = complete), relative to the
-	// final state under the whole load history (empty when there is no
-	// net change; above 1 while a surcharge later removed acts).
-	Us []float64 `json:"us"`
-	Up []float64 `json:"up"`
+	// final state under the whole load history (above 1 while a
+	// surcharge later removed acts). Each is absent when its denominator
+	// is zero, so that the ratio would be 0/0: both when there is no net
+	// change (a load applied, then fully removed); Up alone when the net
+	// change of effective stress integrates to zero over the column
+	// (positive in one part, negative in another) while the settlement,
+	// weighted by mv, does not.
+	Us []float64 `json:"us,omitempty"`
+	Up []float64 `json:"up,omitempty"`
 	// Settlement is the primary settlement from mv, m (positive down);
 	// SettlementElog from the e–log σ' curves (empty when a layer lacks
 	// one).

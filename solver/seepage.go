@@ -189,23 +189,16 @@ func (c *column) numerical(err error, what string) error {
 	if !errors.As(err, &nd) {
 		return err
 	}
-	z := c.m.Z[min(max(nd.Node, 0), c.m.Nodes()-1)]
-	layer := c.layerAt(z)
+	// The first bad pivot is at the first node whose row holds the bad
+	// element: the element starting there (the last one for the last
+	// node), so its layer is the one named.
+	node := min(max(nd.Node, 0), c.m.Nodes()-1)
+	z := c.m.Z[node]
+	layer := c.m.Layer[min(node/c.m.Order, c.m.Elements()-1)]
 	var ps Problems
 	ps.Add(fmt.Sprintf("layers[%d].k", layer), ErrNumerical,
 		fmt.Sprintf("%s cannot be solved at %.4g m depth (in layer %d%s): the matrix is not positive definite there; check k and mv of the layers near that depth for values that are extreme for soil", what, z, layer+1, quoted(c.p.Layers[layer].Name)))
 	return ps
-}
-
-// layerAt is the index of the layer that contains depth z (the upper one
-// at a boundary).
-func (c *column) layerAt(z float64) int {
-	for i := range c.p.Layers {
-		if z <= c.tops[i+1] {
-			return i
-		}
-	}
-	return len(c.p.Layers) - 1
 }
 
 func quoted(name string) string {

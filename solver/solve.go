@@ -27,12 +27,19 @@ type Options struct {
 //
 // Every error but ErrCanceled is a Problems list: the validation problems
 // of p, or a problem with reason ErrNumerical when the equations cannot be
-// factorised (naming the layer and depth) or an output is not finite. A
-// Result that is returned holds only finite numbers.
+// factorised (at the layer's k, naming the layer and depth; no result is
+// returned) or an output is not finite (at the output's path, see
+// CheckFinite). A Result that is returned holds only finite numbers.
 func Solve(p *Project, opt *Options) (*Result, error) {
 	if err := Validate(p); err != nil {
 		return nil, err
 	}
+	return solveValid(p, opt)
+}
+
+// solveValid is Solve after validation: the tests give it projects
+// Validate refuses, to reach the numerical refusals.
+func solveValid(p *Project, opt *Options) (*Result, error) {
 	c := newColumn(p)
 	r := &Result{Warnings: []Warning{}}
 	warn := func(path, msg string) { r.Warnings = append(r.Warnings, Warning{Path: path, Message: msg}) }
@@ -54,12 +61,33 @@ func Solve(p *Project, opt *Options) (*Result, error) {
 			r.Summary.MinHeaveFactor = ptr(*l.HeaveFactor)
 		}
 	}
-	if path, v, ok := firstNonFinite(reflect.ValueOf(r).Elem(), ""); ok {
-		var ps Problems
-		ps.Add("", ErrNumerical, fmt.Sprintf("the result %s came out as %g; the inputs are legal but too extreme for floating point — look for unit weights, permeabilities or loads far outside the range of soils", path, v))
-		return nil, ps
+	if err := CheckFinite(r); err != nil {
+		return nil, err
 	}
 	return r, nil
+}
+
+// ResultPath is the root of the paths of result fields in problems:
+// "result.consolidation.series.up[3]". No project field has this name.
+const ResultPath = "result"
+
+// CheckFinite returns nil when every number in r is finite, and otherwise
+// a Problems list of one ErrNumerical problem at the JSON path of the
+// first NaN or ±Inf under ResultPath ("result.steady.head[12]"). Solve
+// calls it before returning; a program that builds or changes a Result
+// itself may call it before encoding (JSON has no NaN or Inf). O(size of
+// r).
+func CheckFinite(r *Result) error {
+	if r == nil {
+		return nil
+	}
+	path, v, ok := firstNonFinite(reflect.ValueOf(r).Elem(), ResultPath)
+	if !ok {
+		return nil
+	}
+	var ps Problems
+	ps.Add(path, ErrNumerical, fmt.Sprintf("came out as %g; the inputs are legal but too extreme for floating point — look for unit weights, permeabilities or loads far outside the range of soils", v))
+	return ps
 }
 
 // firstNonFinite walks v (a Result or a part of it) and returns the JSON

@@ -1,7 +1,6 @@
 package ui
 
 import (
-	"errors"
 	"fmt"
 	"math"
 	"strings"
@@ -258,13 +257,18 @@ func (c *Comparison) asaokas() []asaoka {
 
 // plateAsaoka applies Asaoka's method to plate i of p over the readings
 // from day from to day to (zero: the defaults), or says why not.
+//
+// The refusal is the message alone when it concerns the plate's record as
+// a whole or the window (what the plate's card shows), and names the
+// field otherwise (one reading, monitoring.start).
 func plateAsaoka(p *solver.Project, i int, from, to float64) (*monitor.AsaokaResult, string) {
 	a, err := monitor.PlateAsaokaWindow(p, i, 0, from, to)
-	if ps := solver.Problems(nil); errors.As(err, &ps) {
-		return nil, describeProblems(ps, 3) // reading times that cannot be resolved
-	}
 	if err != nil {
-		return nil, strings.TrimPrefix(err.Error(), "asaoka: ")
+		record := solver.JoinPath(form.RecordPath(form.Plates, i), "readings")
+		here := func(path string) bool {
+			return path == record || path == monitor.AsaokaFrom || path == monitor.AsaokaInterval
+		}
+		return nil, describeProblemsAt(solver.AsProblems(err), 3, here)
 	}
 	return a, ""
 }

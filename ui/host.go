@@ -64,9 +64,11 @@ var errNoHost = errors.New("not available outside the browser")
 // in-process otherwise (native tests, or where the browser gives no
 // worker).
 type Solver interface {
-	// Solve solves the project JSON and returns the result JSON, as the
-	// JavaScript API's solve does: a result, or {"error": {"problems":
-	// [...]}} for a project that cannot be solved, a crashed worker or a
+	// Solve solves the project (in the binary form,
+	// solver.Project.MarshalBinary) and returns the result in the binary
+	// form (solver.Result.MarshalBinary) or as JSON, or {"error":
+	// {"problems": [...]}} (as the JavaScript API's solve answers) for a
+	// project that cannot be solved, a crashed worker or a
 	// solve that ran too long. It blocks until then, so it is called from
 	// the solve goroutine only; progress receives fractions of the solve
 	// on that goroutine. Cancelling ctx abandons the solve (the worker is
@@ -83,7 +85,9 @@ var ErrNoWorker = errors.New("no solve worker")
 // generation) stops it. The error is ErrNoWorker, solver.ErrCanceled or
 // the problems of the answer.
 func (c *Root) solveElsewhere(g int64, s Solver, model *solver.Project) (*solver.Result, error) {
-	data, err := json.Marshal(solveInput(model))
+	// The binary form, not JSON: the worker would spend about as long
+	// decoding JSON as solving a small project.
+	data, err := solveInput(model).MarshalBinary()
 	if err != nil {
 		return nil, err
 	}
@@ -144,6 +148,12 @@ func decodeAnswer(out []byte) (*solver.Result, error) {
 		return nil, e.Error.Problems
 	}
 	var r solver.Result
+	if solver.IsBinaryResult(out) {
+		if err := r.UnmarshalBinary(out); err != nil {
+			return nil, errors.New("the solver's answer could not be read: " + err.Error())
+		}
+		return &r, nil
+	}
 	if err := json.Unmarshal(out, &r); err != nil {
 		return nil, errors.New("the solver's answer could not be read: " + err.Error())
 	}

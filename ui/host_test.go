@@ -2,7 +2,6 @@ package ui
 
 import (
 	"context"
-	"encoding/json"
 	"strings"
 	"sync"
 	"testing"
@@ -15,7 +14,7 @@ import (
 
 // workerHost is a Host with a Solver, standing in for the page's worker
 // pool: it answers every solve with answer (nil: the result of solving
-// in-process), or with err.
+// in-process, in the binary form), or with err.
 type workerHost struct {
 	nopHost
 	mu       sync.Mutex
@@ -37,15 +36,15 @@ func (h *workerHost) Solve(ctx context.Context, project []byte, progress func(fl
 	if answer != nil {
 		return answer, nil
 	}
-	p, derr := solver.Decode(project)
-	if derr != nil {
+	var p solver.Project // the page sends the binary form
+	if derr := p.UnmarshalBinary(project); derr != nil {
 		return nil, derr
 	}
-	res, serr := solver.Solve(p, nil)
+	res, serr := solver.Solve(&p, nil)
 	if serr != nil {
 		return nil, serr
 	}
-	return json.Marshal(res)
+	return res.MarshalBinary() // as the page's worker answers
 }
 
 func (h *workerHost) calls() int {

@@ -6,7 +6,6 @@ import (
 	"reflect"
 	"runtime/debug"
 	"slices"
-	"strings"
 	"sync/atomic"
 	"time"
 
@@ -207,13 +206,11 @@ func (s *fitState) finish(g int64, res *monitor.FitResult, err error) {
 	}
 }
 
-// fitError says why a fit was refused, in the solver's words.
+// fitError says why a fit was refused, in the solver's words: the
+// message alone for the choices of the fit panel (monitor.FitSpecPath
+// and below), "path: message" for a field of the project.
 func fitError(err error) string {
-	ps := solver.AsProblems(err)
-	if len(ps) == 1 && ps[0].Path == "" {
-		return strings.TrimPrefix(err.Error(), "backfit: ")
-	}
-	return describeProblems(ps, 5)
+	return describeProblemsAt(solver.AsProblems(err), 5, func(path string) bool { return form.Under(path, monitor.FitSpecPath) })
 }
 
 func (c *Root) cancelFit() {

@@ -250,7 +250,8 @@ func TestAsaokaRefusalShown(t *testing.T) {
 	pr.Monitoring.Plates[0].Readings = []solver.Reading{{T: 0}, {T: 40, Value: 0.05}, {T: 60, Value: 0.07}, {T: 80, Value: 0.08}}
 	p := monPage(t, pr)
 	got := p.text("asaoka-0-refused")
-	if !strings.Contains(got, "too few points: 3 readings between day 30 and day 80") {
+	// The card is the plate's: the message alone, no path in front.
+	if !strings.HasPrefix(got, "No forecast: too few points: 3 readings between day 30 and day 80") {
 		t.Errorf("refusal %q", got)
 	}
 	if p.find("asaoka-0-final") != nil {
@@ -357,5 +358,30 @@ func TestFitCancel(t *testing.T) {
 	}
 	if p.find("fit-canceled") == nil || p.find("fit-result") != nil {
 		t.Errorf("after Cancel: %s", p.text("backfit"))
+	}
+}
+
+// fitError shows the solver's problems as they are: the message alone
+// for the fit panel's own choices, the field path in front of a problem
+// of the project, and nothing is read out of the error text.
+func TestFitError(t *testing.T) {
+	cases := []struct {
+		name string
+		err  error
+		want string
+	}{
+		{"the panel's choice", solver.Problems{{Path: monitor.FitLayers + "[0]", Message: "layer 5 is out of range", Err: solver.ErrOutOfRange}},
+			"layer 5 is out of range"},
+		{"the request", solver.Problems{{Path: monitor.FitSpecPath, Message: "nothing to fit", Err: monitor.ErrNothingToFit}}, "nothing to fit"},
+		{"a field of the project", solver.Problems{{Path: "stepping.endTime", Message: "a reading on day 600 is after the end", Err: solver.ErrConflict}},
+			"stepping.endTime: a reading on day 600 is after the end"},
+		{"a field that only starts like the panel's", solver.Problems{{Path: "fitted", Message: "m", Err: solver.ErrUnknown}}, "fitted: m"},
+		{"several", solver.Problems{{Path: "layers[0].k", Message: "must be > 0", Err: solver.ErrNotPositive}, {Path: monitor.FitFrom, Message: "too few points", Err: monitor.ErrTooFewPoints}},
+			"layers[0].k: must be > 0; too few points"},
+	}
+	for _, c := range cases {
+		if got := fitError(c.err); got != c.want {
+			t.Errorf("%s: %q, want %q", c.name, got, c.want)
+		}
 	}
 }

@@ -351,7 +351,8 @@ func TestPageOpenFile(t *testing.T) {
 		ok         bool
 		want       string // in the notice
 	}{
-		{"not JSON", `{"format": "porelight/1", "layers": [`, false, "is not valid JSON"},
+		{"not JSON", `{"format": "porelight/1", "layers": [`, false, "line 1, column 37: the file ends in the middle of the project"},
+		{"results file", `{"steady": {}, "summary": {}, "warnings": [], "stats": {}}`, false, "this is a results file, not a project"},
 		{"wrong format", `{"format": "other/9", "layers": []}`, false, "format"},
 		{"bad value", strings.Replace(string(demoJSONNoT()), `"thickness": 4.0`, `"thickness": -4.0`, 1), false, "layers[1].thickness"},
 		{"unknown field", `{"format": "porelight/1", "layer": []}`, false, "layer: is not a known field"},

@@ -83,8 +83,16 @@ func ReadProject(data []byte) (*solver.Project, solver.Problems) {
 	return p, nil
 }
 
-// describeProblems writes problems as one short paragraph for a message.
+// describeProblems writes problems as one short paragraph for a message,
+// each as "path: message" (the message alone for the whole project).
 func describeProblems(ps solver.Problems, limit int) string {
+	return describeProblemsAt(ps, limit, nil)
+}
+
+// describeProblemsAt is describeProblems for a panel that shows the
+// fields here accepts (nil: none): their problems read as the message
+// alone, beside them.
+func describeProblemsAt(ps solver.Problems, limit int, here func(path string) bool) string {
 	var b strings.Builder
 	for i, p := range ps {
 		if i == limit {
@@ -94,7 +102,7 @@ func describeProblems(ps solver.Problems, limit int) string {
 		if i > 0 {
 			b.WriteString("; ")
 		}
-		if p.Path != "" {
+		if p.Path != "" && (here == nil || !here(p.Path)) {
 			b.WriteString(p.Path + ": ")
 		}
 		b.WriteString(p.Message)

@@ -56,14 +56,21 @@ func (a *api) Solve(project string) string {
 
 // solveJSON is Solve on bytes; progress, when not nil, receives the
 // solver's progress (fractions of the simulated time).
-func (a *api) solveJSON(project []byte, progress func(float64)) (out []byte) {
+func (a *api) solveJSON(project []byte, progress func(float64)) []byte {
+	return a.solveTo(project, progress, json.Marshal)
+}
+
+// solveTo is solveJSON with the result encoded by encode (problems are
+// always JSON): json.Marshal for the API, or the binary form
+// (solver.Result.MarshalBinary) for the page's own worker calls.
+func (a *api) solveTo(project []byte, progress func(float64), encode func(any) ([]byte, error)) (out []byte) {
 	defer func() {
 		if r := recover(); r != nil {
 			out = []byte(problemsJSON(solver.Problems{{Path: "", Message: fmt.Sprintf("internal error: %v", r)}}))
 			println("porelight: solve failed:", fmt.Sprint(r), string(debug.Stack()))
 		}
 	}()
-	p, err := solver.Decode(project)
+	p, err := decodeProject(project)
 	if err != nil {
 		return []byte(problemsJSON(solver.AsProblems(err)))
 	}
@@ -79,11 +86,29 @@ func (a *api) solveJSON(project []byte, progress func(float64)) (out []byte) {
 	if err != nil {
 		return []byte(problemsJSON(solver.AsProblems(err)))
 	}
-	data, err := json.Marshal(res)
+	data, err := encode(res)
 	if err != nil {
-		return []byte(problemsJSON(solver.Problems{{Path: "", Message: "the result could not be encoded: " + err.Error()}}))
+		// Solve returns only finite numbers, so this is a solve function
+		// that broke the promise: name the number as Solve would.
+		if ferr := solver.CheckFinite(res); ferr != nil {
+			return []byte(problemsJSON(solver.AsProblems(ferr)))
+		}
+		return []byte(problemsJSON(solver.Problems{{Path: solver.ResultPath, Message: "internal error: " + err.Error(), Err: solver.ErrNumerical}}))
 	}
 	return data
+}
+
+// decodeProject reads a project in the binary form (the page's own
+// worker calls) or as JSON (everything else).
+func decodeProject(data []byte) (*solver.Project, error) {
+	if solver.IsBinaryProject(data) {
+		var p solver.Project
+		if err := p.UnmarshalBinary(data); err != nil {
+			return nil, solver.Problems{{Path: "", Message: "the page's project could not be read: " + err.Error()}}
+		}
+		return &p, nil
+	}
+	return solver.Decode(data)
 }
 
 // Validate returns the problems of a project as a JSON list.

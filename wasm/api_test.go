@@ -4,6 +4,7 @@ package main
 
 import (
 	"encoding/json"
+	"math"
 	"os"
 	"strings"
 	"syscall/js"
@@ -88,6 +89,19 @@ func TestSolveRecoversPanics(t *testing.T) {
 	ps := errorOf(t, a.Solve(string(a.demo)))
 	if len(ps) != 1 || !strings.Contains(ps[0].Message, "internal error") {
 		t.Errorf("problems %+v, want one internal error", ps)
+	}
+}
+
+// A result holding NaN (which JSON cannot carry) comes back as the
+// solver's problem naming the number, never as an encoding failure.
+func TestSolveNonFiniteResult(t *testing.T) {
+	a := &api{demo: demoBytes(t), solve: func(*solver.Project, *solver.Options) (*solver.Result, error) {
+		return &solver.Result{Steady: solver.Steady{Head: []float64{0, math.NaN()}}}, nil
+	}}
+	ps := errorOf(t, a.Solve(string(a.demo)))
+	if len(ps) != 1 || ps[0].Path != "result.steady.head[1]" || !strings.Contains(ps[0].Message, "could not be computed") ||
+		strings.Contains(ps[0].Message, "encoded") {
+		t.Errorf("problems %+v, want one at result.steady.head[1]", ps)
 	}
 }
 

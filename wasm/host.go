@@ -233,7 +233,7 @@ func (host) Solve(ctx context.Context, project []byte, progress func(float64)) (
 	defer onProgress.Release()
 	defer onDone.Release()
 	var cancel js.Value
-	if err := catch(func() { cancel = pool.Call("call", "solve", string(project), onProgress, onDone) }); err != nil {
+	if err := catch(func() { cancel = pool.Call("call", "solve-binary", toJS(project), onProgress, onDone) }); err != nil {
 		return nil, fmt.Errorf("%w: %v", ui.ErrNoWorker, err)
 	}
 	for {

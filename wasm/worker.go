@@ -20,9 +20,15 @@ import (
 // variable for the tests).
 var progressEvery = 50 * time.Millisecond
 
-// serveWorker registers globalThis.goCall(op, projectJSON, progress):
+// serveWorker registers globalThis.goCall(op, project, progress):
 //
 //	op "solve"     → the result JSON, as porelight.solve returns it
+//	op "solve-binary" → the same with the result in the binary form
+//	               (solver.Result.MarshalBinary), for a project given as
+//	               JSON or, as the page sends it, in the binary form
+//	               (a Uint8Array of solver.Project.MarshalBinary): both
+//	               ends skip JSON, which costs about as much as a small
+//	               solve in wasm
 //	op "validate"  → the problems JSON, as porelight.validate returns it
 //	op "fault-oom", "fault-hang", "fault-panic" → run out of memory,
 //	               loop for ever, panic outside any recover: the browser
@@ -34,17 +40,23 @@ var progressEvery = 50 * time.Millisecond
 // globalThis.goReady, if defined.
 func serveWorker(a *api) {
 	js.Global().Set("goCall", js.FuncOf(func(_ js.Value, args []js.Value) any {
-		op, project, progress := "", "", js.Undefined()
+		op, progress := "", js.Undefined()
 		if len(args) > 0 && args[0].Type() == js.TypeString {
 			op = args[0].String()
 		}
-		if len(args) > 1 && args[1].Type() == js.TypeString {
-			project = args[1].String()
+		var project []byte
+		switch {
+		case len(args) < 2:
+		case args[1].Type() == js.TypeString:
+			project = []byte(args[1].String())
+		case args[1].InstanceOf(js.Global().Get("Uint8Array")):
+			project = make([]byte, args[1].Get("length").Int())
+			js.CopyBytesToGo(project, args[1])
 		}
 		if len(args) > 2 {
 			progress = args[2]
 		}
-		return toJS(a.call(op, []byte(project), progress))
+		return toJS(a.call(op, project, progress))
 	}))
 	if ready := js.Global().Get("goReady"); ready.Type() == js.TypeFunction {
 		ready.Invoke()
@@ -54,7 +66,7 @@ func serveWorker(a *api) {
 // call answers one goCall.
 func (a *api) call(op string, project []byte, progress js.Value) []byte {
 	switch op {
-	case "solve":
+	case "solve", "solve-binary":
 		var report func(float64)
 		if progress.Type() == js.TypeFunction {
 			last := time.Now()
@@ -64,6 +76,9 @@ func (a *api) call(op string, project []byte, progress js.Value) []byte {
 					_ = catch(func() { progress.Invoke(f) })
 				}
 			}
+		}
+		if op == "solve-binary" {
+			return a.solveTo(project, report, marshalBinary)
 		}
 		return a.solveJSON(project, report)
 	case "validate":
@@ -79,6 +94,15 @@ func (a *api) call(op string, project []byte, progress js.Value) []byte {
 		panic("porelight: the fault-panic test hook")
 	}
 	return []byte(problemsJSON(solver.Problems{{Path: "", Message: fmt.Sprintf("unknown worker call %q", op)}}))
+}
+
+// marshalBinary encodes a *solver.Result in the binary form.
+func marshalBinary(v any) ([]byte, error) {
+	r, ok := v.(*solver.Result)
+	if !ok {
+		return nil, fmt.Errorf("not a result: %T", v)
+	}
+	return r.MarshalBinary()
 }
 
 var (

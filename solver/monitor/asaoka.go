@@ -10,9 +10,11 @@ import (
 	"gonum.org/v1/gonum/stat"
 )
 
-// Reasons Asaoka refuses a record. The error it returns wraps one of
-// these (or ErrNotFinite, ErrNotSorted, ErrDuplicate for bad input), so
-// callers may test with errors.Is; its message says what was found.
+// Reasons Asaoka refuses a record. The error it returns is a
+// solver.Problems list of one problem whose reason is one of these (or
+// solver.ErrNotFinite, ErrNotSorted, ErrDuplicate, ErrNegative for bad
+// input), so callers may test with errors.Is; its path names the readings
+// or the option at fault and its message says what was found.
 var (
 	ErrTooFewPoints  = errors.New("too few points")
 	ErrDuringLoading = errors.New("the record lies within a loading stage")
@@ -178,27 +180,69 @@ func (a *AsaokaResult) Forecast(t float64) float64 {
 //	a time or settlement not finite                  ErrNotFinite
 //	times not strictly increasing                    ErrNotSorted, ErrDuplicate
 //
+// The paths of the problems are those of the record passed as a list
+// "readings" ("readings", "readings[2].t", "readings[2].value") and of
+// the arguments (AsaokaInterval, AsaokaFrom); PlateAsaoka names the
+// plate's own fields instead.
+//
 // Asaoka panics if times and settlements differ in length (a caller bug).
 func Asaoka(times, settlements []float64, interval float64, opt AsaokaOptions) (*AsaokaResult, error) {
+	return asaoka(times, settlements, interval, opt, recordPaths{list: "readings"})
+}
+
+// Paths of Asaoka's arguments in its problems: they are not fields of a
+// project, so they have a prefix no project field has.
+const (
+	AsaokaInterval = "asaoka.interval" // the interval argument
+	AsaokaFrom     = "asaoka.from"     // AsaokaOptions.From
+)
+
+// recordPaths name the parts of one settlement record in problems.
+type recordPaths struct {
+	list  string         // the list of readings
+	dated func(int) bool // reading j gives a date rather than a day (nil: none)
+}
+
+func (r recordPaths) time(j int) string {
+	if r.dated != nil && r.dated(j) {
+		return solver.JoinPath(solver.IndexPath(r.list, j), "date")
+	}
+	return solver.JoinPath(solver.IndexPath(r.list, j), "t")
+}
+
+func (r recordPaths) value(j int) string {
+	return solver.JoinPath(solver.IndexPath(r.list, j), "value")
+}
+
+// refuse is the error of one problem at path for reason; the message
+// follows format.
+func refuse(path string, reason error, format string, args ...any) error {
+	return solver.Problems{{Path: path, Err: reason, Message: fmt.Sprintf(format, args...)}}
+}
+
+func asaoka(times, settlements []float64, interval float64, opt AsaokaOptions, at recordPaths) (*AsaokaResult, error) {
 	if len(times) != len(settlements) {
 		panic("solver: Asaoka: times and settlements differ in length")
 	}
 	for j := range times {
-		if !finiteNum(times[j]) || !finiteNum(settlements[j]) {
-			return nil, fmt.Errorf("asaoka: reading %d: %w (day %g, settlement %g)", j, solver.ErrNotFinite, times[j], settlements[j])
+		if !finiteNum(times[j]) {
+			return nil, refuse(at.time(j), solver.ErrNotFinite, "%v (day %g)", solver.ErrNotFinite, times[j])
+		}
+		if !finiteNum(settlements[j]) {
+			return nil, refuse(at.value(j), solver.ErrNotFinite, "%v (settlement %g on day %g)", solver.ErrNotFinite, settlements[j], times[j])
 		}
 		if j > 0 && times[j] < times[j-1] {
-			return nil, fmt.Errorf("asaoka: reading %d: times %w (day %g follows day %g)", j, solver.ErrNotSorted, times[j], times[j-1])
+			return nil, refuse(at.time(j), solver.ErrNotSorted, "times %v (day %g follows day %g)", solver.ErrNotSorted, times[j], times[j-1])
 		}
 		if j > 0 && times[j] == times[j-1] {
-			return nil, fmt.Errorf("asaoka: reading %d: %w (day %g)", j, solver.ErrDuplicate, times[j])
+			return nil, refuse(at.time(j), solver.ErrDuplicate, "%v (day %g)", solver.ErrDuplicate, times[j])
 		}
 	}
 	if !finiteNum(interval) || interval < 0 {
-		return nil, fmt.Errorf("asaoka: interval %w (got %g days)", solver.ErrNegative, interval)
+		return nil, refuse(AsaokaInterval, solver.ErrNegative, "%v (got %g days)", solver.ErrNegative, interval)
 	}
 	if opt.From != 0 && opt.From < opt.AfterTime {
-		return nil, fmt.Errorf("asaoka: %w: the window starts on day %g, before the load stops changing on day %g", ErrDuringLoading, opt.From, opt.AfterTime)
+		return nil, refuse(AsaokaFrom, ErrDuringLoading, "%v: the window starts on day %g, before the load stops changing on day %g", ErrDuringLoading, opt.From, opt.AfterTime)
 	}
 	start := math.Max(opt.From, opt.AfterTime)
 	end := math.Inf(1)
@@ -219,14 +263,14 @@ func Asaoka(times, settlements []float64, interval float64, opt AsaokaOptions) (
 		if len(times) > 0 {
 			what = fmt.Sprintf("the last reading is on day %g", times[len(times)-1])
 		}
-		return nil, fmt.Errorf("asaoka: %w: %s, and the load changes until day %g", ErrDuringLoading, what, start)
+		return nil, refuse(at.list, ErrDuringLoading, "%v: %s, and the load changes until day %g", ErrDuringLoading, what, start)
 	}
 	inWindow := last - first + 1
 	if first < 0 {
 		inWindow = 0
 	}
 	if inWindow < asaokaMinPoints {
-		return nil, fmt.Errorf("asaoka: %w: %d readings between day %g and day %g; the method needs at least %d", ErrTooFewPoints, inWindow, start, math.Min(end, times[len(times)-1]), asaokaMinPoints)
+		return nil, refuse(at.list, ErrTooFewPoints, "%v: %d readings between day %g and day %g; the method needs at least %d", ErrTooFewPoints, inWindow, start, math.Min(end, times[len(times)-1]), asaokaMinPoints)
 	}
 	t0, t1 := times[first], times[last]
 	span := t1 - t0
@@ -236,7 +280,7 @@ func Asaoka(times, settlements []float64, interval float64, opt AsaokaOptions) (
 	}
 	n := int(math.Floor(span/interval*(1+1e-12))) + 1
 	if n < asaokaMinPoints {
-		return nil, fmt.Errorf("asaoka: %w: an interval of %g days gives %d points between day %g and day %g; use at most %.4g days", ErrTooFewPoints, interval, n, t0, t1, span/float64(asaokaMinPoints-1))
+		return nil, refuse(AsaokaInterval, ErrTooFewPoints, "%v: an interval of %g days gives %d points between day %g and day %g; use at most %.4g days", ErrTooFewPoints, interval, n, t0, t1, span/float64(asaokaMinPoints-1))
 	}
 
 	a := &AsaokaResult{Interval: interval, Times: make([]float64, n), Settlements: make([]float64, n)}
@@ -261,12 +305,12 @@ func Asaoka(times, settlements []float64, interval float64, opt AsaokaOptions) (
 		sxx += (v - xm) * (v - xm)
 	}
 	if !(sxx > 0) {
-		return nil, fmt.Errorf("asaoka: %w: the resampled settlements do not change (%g)", ErrNoFinal, x[0])
+		return nil, refuse(at.list, ErrNoFinal, "%v: the resampled settlements do not change (%g)", ErrNoFinal, x[0])
 	}
 	b0, b1 := stat.LinearRegression(x, y, nil, false)
 	a.Beta0, a.Beta1 = b0, b1
 	if !(b1 > 0 && b1 < 1) {
-		return nil, fmt.Errorf("asaoka: %w: β1 = %.4g is not between 0 and 1 (still loading, creep, heave or readings too noisy for Δt = %g days)", ErrNoFinal, b1, interval)
+		return nil, refuse(at.list, ErrNoFinal, "%v: β1 = %.4g is not between 0 and 1 (still loading, creep, heave or readings too noisy for Δt = %g days)", ErrNoFinal, b1, interval)
 	}
 	a.RSquared = stat.RSquared(x, y, nil, b0, b1)
 	a.Fitted = make([]float64, n-1)
@@ -307,17 +351,24 @@ func PlateAsaoka(p *solver.Project, i int, interval float64) (*AsaokaResult, err
 // PlateAsaokaWindow is PlateAsaoka reading only the readings from day
 // from to day to (AsaokaOptions.From and To; zero keeps their defaults).
 // A reading time that cannot be resolved is reported as the
-// solver.Problems of solver.ReadingTimes.
+// solver.Problems of solver.ReadingTimesAt. Problems name the plate's
+// fields: "monitoring.plates[2].readings" for the record as a whole,
+// "monitoring.plates[2].readings[5].date" (or ".t", ".value") for one
+// reading, and AsaokaInterval or AsaokaFrom for the arguments.
 func PlateAsaokaWindow(p *solver.Project, i int, interval, from, to float64) (*AsaokaResult, error) {
 	if p.Monitoring == nil || i < 0 || i >= len(p.Monitoring.Plates) {
 		n := 0
 		if p.Monitoring != nil {
 			n = len(p.Monitoring.Plates)
 		}
-		return nil, fmt.Errorf("asaoka: no plate %d (the project has %d)", i, n)
+		return nil, refuse("monitoring.plates", solver.ErrOutOfRange, "has no plate %d (the project has %d)", i, n)
 	}
 	pl := p.Monitoring.Plates[i]
-	ts, err := solver.ReadingTimes(p.Monitoring, pl.Readings)
+	at := recordPaths{
+		list:  solver.JoinPath(solver.IndexPath("monitoring.plates", i), "readings"),
+		dated: func(j int) bool { return pl.Readings[j].Date != "" },
+	}
+	ts, err := solver.ReadingTimesAt(p.Monitoring, pl.Readings, at.list)
 	if err != nil {
 		return nil, err
 	}
@@ -327,7 +378,7 @@ func PlateAsaokaWindow(p *solver.Project, i int, interval, from, to float64) (*A
 	}
 	opt := AsaokaOptionsFor(p)
 	opt.From, opt.To = from, to
-	return Asaoka(ts, vs, interval, opt)
+	return asaoka(ts, vs, interval, opt, at)
 }
 
 func finiteNum(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }

@@ -1,13 +1,12 @@
 package monitor
 
 import (
+	"errors"
 	"porelight/solver/soil"
 
 	"porelight/solver"
 
-	"errors"
 	"math"
-	"strings"
 	"testing"
 
 	"gonum.org/v1/gonum/integrate/quad"
@@ -321,9 +320,8 @@ func TestAsaokaSolverRecord(t *testing.T) {
 				t.Errorf("PlateAsaokaWindow from day %g: starts on day %g, final %g and cv %g; direct %g, %g and %g",
 					opt.From, w.Times[0], w.Final, w.Cv, a.Times[0], a.Final, a.Cv)
 			}
-			if _, err := PlateAsaoka(p, 1, 0); err == nil || !strings.Contains(err.Error(), "no plate 1 (the project has 1)") {
-				t.Errorf("plate 1: %v", err)
-			}
+			_, err = PlateAsaoka(p, 1, 0)
+			checkProblem(t, err, "monitoring.plates", solver.ErrOutOfRange, "has no plate 1 (the project has 1)")
 		})
 	}
 }
@@ -346,21 +344,22 @@ func TestAsaokaRefuses(t *testing.T) {
 		interval float64
 		opt      AsaokaOptions
 		reason   error
+		path     string
 		says     string
 	}{
-		{"one point", []float64{5}, []float64{0.1}, 0, AsaokaOptions{}, ErrTooFewPoints, "1 readings between day 0 and day 5"},
-		{"three readings after the load", ts8, ss8, 0, AsaokaOptions{AfterTime: 45}, ErrTooFewPoints, "3 readings between day 45 and day 70"},
-		{"interval too long", ts8, ss8, 30, AsaokaOptions{}, ErrTooFewPoints, "an interval of 30 days gives 3 points between day 0 and day 70; use at most 23.33 days"},
-		{"window during loading", ts8, ss8, 0, AsaokaOptions{AfterTime: 20, From: 10}, ErrDuringLoading, "starts on day 10, before the load stops changing on day 20"},
-		{"record ends before the load does", ts8, ss8, 0, AsaokaOptions{AfterTime: 100}, ErrDuringLoading, "the last reading is on day 70"},
-		{"empty record", nil, nil, 0, AsaokaOptions{}, ErrDuringLoading, "the record is empty"},
-		{"growing", ts8, func() []float64 { _, s := geometric(8, 1.2); return s }(), 0, AsaokaOptions{}, ErrNoFinal, "β1 = 1.2 is not between 0 and 1"},
-		{"oscillating", ts8, func() []float64 { _, s := geometric(8, -0.5); return s }(), 10, AsaokaOptions{}, ErrNoFinal, "β1 = -0.5 is not between 0 and 1"},
-		{"flat", ts8, make([]float64, 8), 0, AsaokaOptions{}, ErrNoFinal, "do not change"},
-		{"unsorted", []float64{0, 10, 5, 20}, ss8[:4], 0, AsaokaOptions{}, solver.ErrNotSorted, "reading 2: times must be in increasing order (day 5 follows day 10)"},
-		{"repeated time", []float64{0, 10, 10, 20}, ss8[:4], 0, AsaokaOptions{}, solver.ErrDuplicate, "reading 2: repeats the time of the reading before (day 10)"},
-		{"NaN settlement", ts8[:4], []float64{0, math.NaN(), 0.5, 0.6}, 0, AsaokaOptions{}, solver.ErrNotFinite, "reading 1"},
-		{"negative interval", ts8, ss8, -5, AsaokaOptions{}, solver.ErrNegative, "got -5 days"},
+		{"one point", []float64{5}, []float64{0.1}, 0, AsaokaOptions{}, ErrTooFewPoints, "readings", "1 readings between day 0 and day 5"},
+		{"three readings after the load", ts8, ss8, 0, AsaokaOptions{AfterTime: 45}, ErrTooFewPoints, "readings", "3 readings between day 45 and day 70"},
+		{"interval too long", ts8, ss8, 30, AsaokaOptions{}, ErrTooFewPoints, AsaokaInterval, "an interval of 30 days gives 3 points between day 0 and day 70; use at most 23.33 days"},
+		{"window during loading", ts8, ss8, 0, AsaokaOptions{AfterTime: 20, From: 10}, ErrDuringLoading, AsaokaFrom, "starts on day 10, before the load stops changing on day 20"},
+		{"record ends before the load does", ts8, ss8, 0, AsaokaOptions{AfterTime: 100}, ErrDuringLoading, "readings", "the last reading is on day 70"},
+		{"empty record", nil, nil, 0, AsaokaOptions{}, ErrDuringLoading, "readings", "the record is empty"},
+		{"growing", ts8, func() []float64 { _, s := geometric(8, 1.2); return s }(), 0, AsaokaOptions{}, ErrNoFinal, "readings", "β1 = 1.2 is not between 0 and 1"},
+		{"oscillating", ts8, func() []float64 { _, s := geometric(8, -0.5); return s }(), 10, AsaokaOptions{}, ErrNoFinal, "readings", "β1 = -0.5 is not between 0 and 1"},
+		{"flat", ts8, make([]float64, 8), 0, AsaokaOptions{}, ErrNoFinal, "readings", "do not change"},
+		{"unsorted", []float64{0, 10, 5, 20}, ss8[:4], 0, AsaokaOptions{}, solver.ErrNotSorted, "readings[2].t", "times must be in increasing order (day 5 follows day 10)"},
+		{"repeated time", []float64{0, 10, 10, 20}, ss8[:4], 0, AsaokaOptions{}, solver.ErrDuplicate, "readings[2].t", "repeats the time of the reading before (day 10)"},
+		{"NaN settlement", ts8[:4], []float64{0, math.NaN(), 0.5, 0.6}, 0, AsaokaOptions{}, solver.ErrNotFinite, "readings[1].value", "must be a finite number (settlement NaN on day 10)"},
+		{"negative interval", ts8, ss8, -5, AsaokaOptions{}, solver.ErrNegative, AsaokaInterval, "got -5 days"},
 	}
 	for _, c := range cases {
 		t.Run(c.name, func(t *testing.T) {
@@ -369,11 +368,51 @@ func TestAsaokaRefuses(t *testing.T) {
 			if err == nil {
 				t.Fatalf("no error; got %+v", a)
 			}
-			if !errors.Is(err, c.reason) {
-				t.Errorf("reason: got %v, want %v", err, c.reason)
-			}
-			if !strings.Contains(err.Error(), c.says) {
-				t.Errorf("message %q does not say %q", err.Error(), c.says)
+			checkProblem(t, err, c.path, c.reason, c.says)
+		})
+	}
+}
+
+// PlateAsaoka names the plate's own fields in its problems: the reading
+// by its date or day, the record as a whole, or the argument.
+func TestPlateAsaokaPaths(t *testing.T) {
+	t.Parallel()
+	project := func(rs ...solver.Reading) *solver.Project {
+		return &solver.Project{
+			Format: solver.Format,
+			Layers: []solver.Layer{{Thickness: 2, GammaSat: 18, K: 1e-9, Mv: 5e-4}},
+			Top:    solver.Boundary{Drained: true},
+			Loads:  []solver.Load{{Q: 50}},
+			Monitoring: &solver.Monitoring{Start: "2024-01-01", Plates: []solver.Plate{
+				{Readings: []solver.Reading{{T: 0, Value: 0}}},
+				{Readings: rs},
+			}},
+		}
+	}
+	cases := []struct {
+		name     string
+		p        *solver.Project
+		interval float64
+		path     string
+		reason   error
+	}{
+		{"dated reading out of order", project(solver.Reading{Date: "2024-01-05"}, solver.Reading{Date: "2024-01-03"}), 0,
+			"monitoring.plates[1].readings[1].date", solver.ErrNotSorted},
+		{"day repeated", project(solver.Reading{T: 1}, solver.Reading{T: 1}), 0,
+			"monitoring.plates[1].readings[1].t", solver.ErrDuplicate},
+		{"date that is not one", project(solver.Reading{Date: "2024-13-01"}), 0,
+			"monitoring.plates[1].readings[0].date", solver.ErrDate},
+		{"too few readings", project(solver.Reading{T: 1, Value: 0.01}, solver.Reading{T: 2, Value: 0.02}), 0,
+			"monitoring.plates[1].readings", ErrTooFewPoints},
+		{"negative interval", project(solver.Reading{T: 1}), -1, AsaokaInterval, solver.ErrNegative},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			t.Parallel()
+			_, err := PlateAsaoka(c.p, 1, c.interval)
+			ps := solver.AsProblems(err)
+			if len(ps) != 1 || ps[0].Path != c.path || !errors.Is(err, c.reason) {
+				t.Errorf("got %v (%d problems), want one at %q with reason %v", err, len(ps), c.path, c.reason)
 			}
 		})
 	}

@@ -32,6 +32,25 @@ const (
 	z95            = 1.959963985  // two-sided 95 % point of the normal distribution
 )
 
+// Reasons BackFit refuses a request, beside ErrTooFewPoints and the
+// solver's own Err* values.
+var (
+	ErrNoChange     = errors.New("has no load or pressure change")
+	ErrNothingToFit = errors.New("names nothing to fit")
+	ErrTwice        = errors.New("names a layer twice")
+)
+
+// Paths of the FitSpec fields in BackFit's problems: not fields of a
+// project, so they have a prefix no project field has. A layer index is
+// FitLayers with its position, "fit.layers[1]".
+const (
+	FitSpecPath = "fit"         // the request as a whole
+	FitLayers   = "fit.layers"  // FitSpec.Layers
+	FitScale    = "fit.scale"   // FitSpec.Scale
+	FitFrom     = "fit.from"    // FitSpec.From
+	FitMaxRuns  = "fit.maxRuns" // FitSpec.MaxRuns
+)
+
 // FitSpec says what BackFit adjusts and against which readings. The zero
 // value fits nothing and is refused: name at least one layer or Scale.
 type FitSpec struct {
@@ -181,25 +200,31 @@ type FitRecord struct {
 // fraction of an expected number of runs; returning false stops the fit
 // with ErrCanceled.
 //
-// Refusals: a project that fails Validate (its Problems); no load or
-// pressure change; a layer index out of range or repeated; nothing to
-// fit; fewer readings than parameters + 1 (ErrTooFewPoints); readings
-// after stepping.endTime.
+// Every error but solver.ErrCanceled is a solver.Problems list, each
+// problem with a path and a reason: a project that fails Validate (its
+// Problems); no load or pressure change ("loads", ErrNoChange); a layer
+// index out of range or repeated ("fit.layers[i]", solver.ErrOutOfRange
+// or ErrTwice); nothing to fit ("fit", ErrNothingToFit); no records or
+// fewer readings than parameters + 1 ("monitoring" or "fit.from",
+// ErrTooFewPoints); readings after the end of the simulation
+// ("stepping.endTime", solver.ErrConflict); a run that failed at the
+// fitted values (the solver's problem); the run limit ("fit.maxRuns",
+// solver.ErrTooLarge).
 func BackFit(p *solver.Project, spec FitSpec, opt *solver.Options) (*FitResult, error) {
 	if err := solver.Validate(p); err != nil {
 		return nil, err
 	}
 	if !solver.HasConsolidation(p) {
-		return nil, errors.New("backfit: the project has no load or pressure change, so nothing to compare with the readings")
+		return nil, refuse("loads", ErrNoChange, "the project %v, so there is nothing to compare with the readings", ErrNoChange)
 	}
 	f := &fitter{spec: spec, opt: opt, cache: map[string]*fitEval{}}
 	seen := map[int]bool{}
 	for i, li := range spec.Layers {
 		if li < 0 || li >= len(p.Layers) {
-			return nil, fmt.Errorf("backfit: layers[%d] = %d %w (the project has %d layers)", i, li, solver.ErrOutOfRange, len(p.Layers))
+			return nil, refuse(solver.IndexPath(FitLayers, i), solver.ErrOutOfRange, "layer %d %v (the project has %d layers)", li, solver.ErrOutOfRange, len(p.Layers))
 		}
 		if seen[li] {
-			return nil, fmt.Errorf("backfit: layer %d is named twice", li)
+			return nil, refuse(solver.IndexPath(FitLayers, i), ErrTwice, "layer %d is named twice", li)
 		}
 		seen[li] = true
 	}
@@ -208,7 +233,7 @@ func BackFit(p *solver.Project, spec FitSpec, opt *solver.Options) (*FitResult, 
 		np++
 	}
 	if np == 0 {
-		return nil, errors.New("backfit: nothing to fit: name at least one layer, or the settlement scale")
+		return nil, refuse(FitSpecPath, ErrNothingToFit, "nothing to fit: name at least one layer, or the settlement scale")
 	}
 	f.np = np
 	f.budget = spec.MaxRuns
@@ -220,7 +245,7 @@ func BackFit(p *solver.Project, spec FitSpec, opt *solver.Options) (*FitResult, 
 		return nil, err
 	}
 	if f.n < np+1 {
-		return nil, fmt.Errorf("backfit: %w: %d readings for %d parameters; at least %d are needed", ErrTooFewPoints, f.n, np, np+1)
+		return nil, refuse("monitoring", ErrTooFewPoints, "%v: %d readings for %d parameters; at least %d are needed", ErrTooFewPoints, f.n, np, np+1)
 	}
 
 	// The project every run starts from.
@@ -230,7 +255,7 @@ func BackFit(p *solver.Project, spec FitSpec, opt *solver.Options) (*FitResult, 
 	}
 	full := solver.EndTime(p)
 	if last > full {
-		return nil, fmt.Errorf("backfit: a reading on day %g is after the end of the simulation on day %g; set stepping.endTime later", last, full)
+		return nil, refuse("stepping.endTime", solver.ErrConflict, "a reading on day %g is after the end of the simulation on day %g; set stepping.endTime later", last, full)
 	}
 	base := *p
 	base.Monitoring = nil
@@ -301,7 +326,7 @@ func BackFit(p *solver.Project, spec FitSpec, opt *solver.Options) (*FitResult, 
 		if f.err != nil {
 			return nil, f.err
 		}
-		return nil, fmt.Errorf("backfit: at the fitted values: %w", err)
+		return nil, atFitted(err)
 	}
 	st := f.stats(ev)
 	out := &FitResult{Readings: f.n, ResidualVariance: st.s2, Converged: st.small, Status: status}
@@ -423,10 +448,10 @@ type fitter struct {
 func (f *fitter) collect(p *solver.Project) error {
 	m := p.Monitoring
 	if m == nil {
-		return fmt.Errorf("backfit: %w: the project has no monitoring records", ErrTooFewPoints)
+		return refuse("monitoring", ErrTooFewPoints, "%v: the project has no monitoring records", ErrTooFewPoints)
 	}
 	add := func(kind int, path, name string, depth float64, rs []solver.Reading) error {
-		ts, err := solver.ReadingTimes(m, rs)
+		ts, err := solver.ReadingTimesAt(m, rs, solver.JoinPath(path, "readings"))
 		if err != nil {
 			return err
 		}
@@ -471,7 +496,7 @@ func (f *fitter) collect(p *solver.Project) error {
 		}
 	}
 	if f.n == 0 {
-		return fmt.Errorf("backfit: %w: no reading to compare with", ErrTooFewPoints)
+		return refuse(FitFrom, ErrTooFewPoints, "%v: no reading to compare with on or after day %g", ErrTooFewPoints, f.spec.From)
 	}
 	return nil
 }
@@ -506,7 +531,7 @@ func (f *fitter) solve(p *solver.Project) (*solver.Result, error) {
 	f.runs++
 	r, err := solver.Solve(p, o)
 	if err == nil && r.Consolidation == nil {
-		err = errors.New("backfit: the solve gave no consolidation result")
+		err = refuse("loads", ErrNoChange, "the project %v, so the solve gave no consolidation result", ErrNoChange)
 	}
 	return r, err
 }
@@ -562,13 +587,13 @@ func (f *fitter) predict(x []float64) ([]float64, error) {
 	if f.err != nil {
 		return nil, f.err
 	}
-	for _, v := range x {
+	for i, v := range x {
 		if !(math.Abs(v) <= maxLogMult) {
-			return nil, fmt.Errorf("a multiplier %w (%g)", solver.ErrOutOfRange, math.Exp(v))
+			return nil, refuse(f.paramPath(i), solver.ErrOutOfRange, "the multiplier %v (%.3g is outside 1e-6 … 1e6)", solver.ErrOutOfRange, math.Exp(v))
 		}
 	}
 	if f.search && f.runs >= f.budget {
-		return nil, fmt.Errorf("backfit: %d solver runs, the limit", f.budget)
+		return nil, refuse(FitMaxRuns, solver.ErrTooLarge, "the search reached its limit of %d solver runs", f.budget)
 	}
 	q := *f.base
 	q.Layers = slices.Clone(f.base.Layers)
@@ -582,6 +607,25 @@ func (f *fitter) predict(x []float64) ([]float64, error) {
 		return nil, err
 	}
 	return f.extract(r), nil
+}
+
+// paramPath is the path of parameter i in problems: the FitSpec.Layers
+// entry, or FitScale.
+func (f *fitter) paramPath(i int) string {
+	if i < len(f.spec.Layers) {
+		return solver.IndexPath(FitLayers, i)
+	}
+	return FitScale
+}
+
+// atFitted says of the problems of the run at the fitted values that
+// they arose there.
+func atFitted(err error) error {
+	ps := slices.Clone(solver.AsProblems(err))
+	for i := range ps {
+		ps[i].Message += " (in the run at the fitted values)"
+	}
+	return ps
 }
 
 // extract interpolates the series of r at the reading times.

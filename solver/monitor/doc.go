@@ -33,4 +33,21 @@
 // The package uses only solver's exported API, so it sees the column as
 // the page and the JavaScript API do. Units: m, kPa, day, m²/day.
 // Functions leave their arguments unchanged.
+//
+// # Errors
+//
+// Asaoka, PlateAsaoka and BackFit refuse with solver.Problems, the same
+// type Validate and Solve return (solver does not import this package,
+// so there is no cycle and no second problem type): each problem has a
+// field path, a reason to test with errors.Is (this package's Err*
+// values or solver's) and a message that says what was found, with no
+// package prefix. Paths name the project's fields where the cause lies
+// there ("monitoring.plates[2].readings[5].date", "stepping.endTime");
+// arguments that are not project fields have paths with a prefix no
+// project field has, given as constants: AsaokaInterval, AsaokaFrom,
+// FitLayers ("fit.layers[1]"), FitFrom, FitScale, FitMaxRuns and
+// FitSpecPath. A caller shows Message beside the field Path names, and
+// never needs to read the error text. ParseReadings, which reads pasted
+// text rather than a project, reports *PasteError with line and column.
+// Only BackFit's solver.ErrCanceled is a bare sentinel.
 package monitor

@@ -285,16 +285,18 @@
 			}
 		}
 
-		// call runs op ("solve" or "validate") on payload, a JSON string,
+		// call runs op ("solve", "solve-binary" or "validate"; see
+		// wasm/worker.go) on payload, a JSON string (or, for
+		// "solve-binary", a Uint8Array of a binary project),
 		// in a worker. onDone(bytes, noWorker) is called once: bytes is a
-		// Uint8Array of the answer's JSON, or noWorker says why no worker
+		// Uint8Array of the answer (JSON, or a binary result for "solve-binary"), or noWorker says why no worker
 		// could run it. onProgress, if given, receives fractions of a
 		// solve. The returned function cancels the call: onDone is then
 		// never called, and a worker running it is replaced.
 		pool.call = function (op, payload, onProgress, onDone) {
 			pool.calls++;
 			var job = {
-				id: nextID++, op: op, payload: String(payload), onProgress: onProgress, onDone: onDone,
+				id: nextID++, op: op, payload: payload instanceof Uint8Array ? payload : String(payload), onProgress: onProgress, onDone: onDone,
 				timeout: pool.timeout, settled: false, timer: 0, slot: null
 			};
 			if (pool.fault) {

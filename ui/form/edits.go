@@ -130,15 +130,16 @@ func Removed(i int) func(old int) int {
 func (f *Form) dropRaw(prefix string) {
 	for _, m := range []map[string]string{f.raw, f.bad} {
 		for k := range m {
-			if under(k, prefix) {
+			if Under(k, prefix) {
 				delete(m, k)
 			}
 		}
 	}
 }
 
-// under reports whether path is prefix or a value inside it.
-func under(path, prefix string) bool {
+// Under reports whether path is prefix or a value inside it:
+// Under("layers[2].k", "layers") and Under("fit.layers[0]", "fit") are true.
+func Under(path, prefix string) bool {
 	return path == prefix || strings.HasPrefix(path, prefix+".") || strings.HasPrefix(path, prefix+"[")
 }
 

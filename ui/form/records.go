@@ -266,7 +266,7 @@ func (f *Form) ProblemsUnder(prefix string) []FieldProblem {
 	var out []FieldProblem
 	seen := map[string]bool{}
 	add := func(path string) {
-		if !seen[path] && (prefix == "" || under(path, prefix)) {
+		if !seen[path] && (prefix == "" || Under(path, prefix)) {
 			seen[path] = true
 			out = append(out, FieldProblem{path, f.Problem(path)})
 		}
