@@ -30,8 +30,8 @@ import (
 // so nil and empty slices, and nil and zero pointers, survive the round
 // trip, and a decoded value is reflect.DeepEqual to the encoded one.
 const (
-	resultMagic  = "porelight-result-1\n"
-	projectMagic = "porelight-project-1\n"
+	resultMagic  = "porelight-result-2\n"
+	projectMagic = "porelight-project-2\n"
 )
 
 // errBinary is the reason of every error of UnmarshalBinary.
