@@ -248,7 +248,7 @@ func (k *consolidation) prepareSeries() *Consolidation {
 	if k.definedUp {
 		ser.Up = make([]float64, 0, capacity)
 	}
-	if k.allCurves {
+	if k.anyCurve {
 		ser.SettlementElog = make([]float64, 0, capacity)
 	}
 	k.prepareEnds()
@@ -296,7 +296,7 @@ func (k *consolidation) record(ser *Series, t float64) {
 	}
 	if k.nonlinearModel() {
 		// The iteration moved the points; the series is the one solution.
-		if k.allCurves {
+		if k.anyCurve {
 			ser.SettlementElog = append(ser.SettlementElog, sNow)
 		}
 	} else if k.followStress {
@@ -309,12 +309,18 @@ func (k *consolidation) record(ser *Series, t float64) {
 				_, z0, z1 := m.Span(e)
 				k.warn("loads", fmt.Sprintf("the effective stress falls below zero at %.3g m near %.4g days: the soil would lose contact (heave); results there are not physical", (z0+z1)/2, t))
 			}
-			if k.curved[e] {
+			switch {
+			case k.curved[e]:
 				s.MoveTo(to)
 				total += s.Settlement()
+			case !k.anyCurve:
+			case k.nl != nil:
+				total += k.nl.strain[e] // its mv, with its swelling mv
+			default:
+				total += k.mv[m.Layer[e]] * (m.Integrate(tr.sigma, e) - m.Integrate(tr.u, e))
 			}
 		}
-		if k.allCurves {
+		if k.anyCurve {
 			ser.SettlementElog = append(ser.SettlementElog, total)
 		}
 	}
@@ -426,9 +432,13 @@ func (k *consolidation) elogSummary() {
 		if l.ECurve != nil {
 			r.Summary.Layers[i].SettlementElog = ptr(layer[i])
 			sum += layer[i]
+			continue
 		}
+		// A layer without a curve adds its mv settlement, named.
+		sum += r.Summary.Layers[i].SettlementLinear
+		r.Summary.ElogFromMv = append(r.Summary.ElogFromMv, i)
 	}
-	if k.allCurves {
+	if k.anyCurve {
 		r.Summary.SettlementElog = ptr(sum)
 	}
 }

@@ -126,8 +126,8 @@ type Series struct {
 	Us []float64 `json:"us,omitempty"`
 	Up []float64 `json:"up,omitempty"`
 	// Settlement is the primary settlement from mv, m (positive down);
-	// SettlementElog from the e–log σ' curves (empty when a layer lacks
-	// one).
+	// SettlementElog from the e–log σ' curves (empty when no layer has
+	// one; the layers of Summary.ElogFromMv add their mv settlement).
 	Settlement     []float64 `json:"settlement"`
 	SettlementElog []float64 `json:"settlementElog,omitempty"`
 	// Secondary is the secondary compression at each time, m, the sum of
@@ -188,8 +188,10 @@ type Summary struct {
 	// SettlementLinear is the final primary settlement from mv, m.
 	SettlementLinear *float64 `json:"settlementLinear,omitempty"`
 	// SettlementElog is the final primary settlement from the e–log σ'
-	// curves, m (nil unless every layer has one).
+	// curves, m (nil when no layer has one); the layers listed in
+	// ElogFromMv have none and add their mv settlement to it.
 	SettlementElog *float64 `json:"settlementElog,omitempty"`
+	ElogFromMv     []int    `json:"elogFromMv,omitempty"`
 	// T50, T90 and TTarget are the times to Us = 50 %, 90 % and
 	// TargetDegree, days.
 	T50     *float64 `json:"t50,omitempty"`

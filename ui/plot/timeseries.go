@@ -135,7 +135,15 @@ func SettlementFitFigure(p *solver.Project, r, fit *solver.Result, w, h int) *Fi
 		return f.message(msg)
 	}
 	recs := plateRecords(p)
-	all := [][]float64{s.Settlement, s.SettlementElog}
+	// With secondary compression, its own curve and the total.
+	var total []float64
+	if len(s.Secondary) == len(s.Time) {
+		total = make([]float64, len(s.Time))
+		for i := range total {
+			total[i] = s.Settlement[i] + s.Secondary[i]
+		}
+	}
+	all := [][]float64{s.Settlement, s.SettlementElog, s.Secondary, total}
 	var fs *solver.Series
 	if fit != nil && fit.Consolidation != nil {
 		fs = &fit.Consolidation.Series
@@ -152,8 +160,17 @@ func SettlementFitFigure(p *solver.Project, r, fit *solver.Result, w, h int) *Fi
 	tlo, thi = readingSpan(tlo, thi, recs)
 	lo, hi = padRange(math.Min(0, lo), math.Max(0, hi))
 	pn, clip := f.timeFigure(tlo, thi, lo, hi, "Settlement, m", true)
-	f.addSeries(pn, clip, "From mv", styleAt(0), s.Time, s.Settlement, readTime("s", " m", 3))
-	f.addSeries(pn, clip, "From e–log σ′", styleAt(1), s.Time, s.SettlementElog, readTime("s", " m", 3))
+	if r.Summary.Model == solver.ModelNonlinear {
+		// One solution: the series is the non-linear model's settlement.
+		f.addSeries(pn, clip, "Non-linear model", styleAt(1), s.Time, s.Settlement, readTime("s", " m", 3))
+	} else {
+		f.addSeries(pn, clip, "From mv", styleAt(0), s.Time, s.Settlement, readTime("s", " m", 3))
+		f.addSeries(pn, clip, "From e–log σ′", styleAt(1), s.Time, s.SettlementElog, readTime("s", " m", 3))
+	}
+	if total != nil {
+		f.addSeries(pn, clip, "Secondary (Cα)", styleAt(2), s.Time, s.Secondary, readTime("s", " m", 3))
+		f.addSeries(pn, clip, "Primary + secondary", styleAt(3), s.Time, total, readTime("s", " m", 3))
+	}
 	if fs != nil {
 		f.addSeries(pn, clip, "From mv, back-fitted", styleAt(4), fs.Time, fs.Settlement, readTime("s", " m", 3))
 	}
