@@ -64,6 +64,7 @@ type nonlinear struct {
 	u0, u1     []float64
 	rhs        []float64
 	du         []float64 // the change of u over the last step
+	r0         []float64 // the last iteration's update
 	lastDt     float64   // its length (0: no step to extrapolate from)
 
 	// Statistics.
@@ -100,7 +101,7 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 	}
 	nl.mass = fem.NewBand(n, m.Order)
 	nl.cond = fem.NewBand(n, m.Order)
-	nl.u0, nl.u1, nl.rhs, nl.du = make([]float64, n), make([]float64, n), make([]float64, n), make([]float64, n)
+	nl.u0, nl.u1, nl.rhs, nl.du, nl.r0 = make([]float64, n), make([]float64, n), make([]float64, n), make([]float64, n), make([]float64, n)
 	return nl
 }
 
@@ -182,8 +183,8 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 	for i, j := range tr.held {
 		nl.u1[j] = tr.next[i]
 	}
-	change := math.Inf(1)
-	for range NonlinearMaxIterations {
+	change, omega := math.Inf(1), 1.0
+	for it := range NonlinearMaxIterations {
 		nl.coefficients(theta, tr.sigma, nl.u1)
 		nl.m.AssembleConstant(nl.mass, nl.cm, true, nl.lumped)
 		nl.m.AssembleConstant(nl.cond, nl.cc, false, false)
@@ -198,10 +199,28 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 		}
 		fem.MoveHeldSum(nl.rhs, nl.mass, nl.cond, theta*dt, nl.u1, tr.held)
 		nl.f.Solve(nl.rhs)
+		// r = G(u) − u, the update of plain Picard iteration, relaxed by
+		// Aitken's factor (Irons & Tuck 1969; Küttler & Wall 2008):
+		// ω ← −ω (r₀·(r − r₀))/|r − r₀|², which halves the update where
+		// the iterates alternate (a stress crossing σ'p, where the slope
+		// jumps from Cr to Cc) and lengthens it where they creep.
 		change = 0
+		num, den := 0.0, 0.0
 		for i := tr.lo; i < tr.hi; i++ {
-			change = math.Max(change, math.Abs(nl.rhs[i]-nl.u1[i]))
-			nl.u1[i] = nl.rhs[i]
+			r := nl.rhs[i] - nl.u1[i]
+			change = math.Max(change, math.Abs(r))
+			if it > 0 {
+				d := r - nl.r0[i]
+				num += nl.r0[i] * d
+				den += d * d
+			}
+			nl.r0[i] = r
+		}
+		if it > 0 && den > 0 {
+			omega = min(max(-omega*num/den, 0.05), 2)
+		}
+		for i := tr.lo; i < tr.hi; i++ {
+			nl.u1[i] += omega * nl.r0[i]
 		}
 		nl.iterations++
 		if change <= nl.tol {
