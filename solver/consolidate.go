@@ -51,6 +51,7 @@ type consolidation struct {
 	// final settlement along the drained path under its laws.
 	nl        *nonlinear
 	nlDrained []float64
+	nlFinal   []float64 // per layer: the final settlement from the end state
 
 	ends *primaryEnds // per layer end of primary (nil: no layer has a Cα)
 }
@@ -80,6 +81,7 @@ func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path
 		k.nl.warnings(warn)
 		r.Stats.Iterations = k.nl.iterations
 	}
+	k.finalNonlinear()
 	k.headline()
 	k.elogSummary()
 	k.degreeTimes()
@@ -251,7 +253,7 @@ func (k *consolidation) prepareSeries() *Consolidation {
 	if k.anyCurve {
 		ser.SettlementElog = make([]float64, 0, capacity)
 	}
-	k.prepareEnds()
+	k.prepareEnds(capacity)
 	for i := range ser.Piezometers {
 		ser.Piezometers[i].Pore = make([]float64, 0, capacity)
 		ser.Piezometers[i].Excess = make([]float64, 0, capacity)
@@ -326,7 +328,7 @@ func (k *consolidation) record(ser *Series, t float64) {
 	}
 	if k.ends != nil {
 		k.layerNow(k.ends.now)
-		k.ends.observe(t)
+		k.ends.observe(t, k.ends.now)
 	}
 	for i := range k.probes {
 		pz := &k.probes[i]
@@ -543,6 +545,30 @@ func (k *consolidation) iterated() {
 	k.nlDrained = k.nl.drained(k.bps, k.sigInf, k.uInf)
 }
 
+// finalNonlinear takes the iterated model's final settlement from its end
+// state (nl.projected): a load removed before the soil has drained only
+// counts for the compression it caused, which the drained path of the
+// stages (used while stepping) overstates. Us is rescaled to it.
+func (k *consolidation) finalNonlinear() {
+	if k.nl == nil {
+		return
+	}
+	k.nlFinal = k.nl.projected(k.sigInf, k.uInf)
+	den := 0.0
+	for _, s := range k.nlFinal {
+		den += s
+	}
+	ser := &k.r.Consolidation.Series
+	if !k.defined || math.Abs(den) <= 1e-12*math.Max(1, math.Abs(k.denS)) {
+		return
+	}
+	f := k.denS / den
+	for i := range ser.Us {
+		ser.Us[i] *= f
+	}
+	k.denS = den
+}
+
 // headline names the model the summary's headline figures come from and
 // gives its final primary settlement: the iterated laws' drained path, or
 // ∫ mv Δσ' dz.
@@ -555,7 +581,7 @@ func (k *consolidation) headline() {
 	s := *r.Summary.SettlementLinear
 	if k.nl != nil {
 		s = 0
-		for i, v := range k.nlDrained {
+		for i, v := range k.nlFinal {
 			r.Summary.Layers[i].Settlement = v
 			s += v
 		}

@@ -314,6 +314,24 @@ func (nl *nonlinear) drained(bps []breakpoint, sigInf, uInf []float64) []float64
 	return out
 }
 
+// projected returns each layer's final settlement, m, from the present
+// state of every element moved once to the fully drained final effective
+// stress (σ'0 + σ∞ − u∞): at the end of the simulation, what the
+// remaining excess pressure still adds as it drains. The elements are
+// left as they are.
+func (nl *nonlinear) projected(sigInf, uInf []float64) []float64 {
+	cp := &nonlinear{m: nl.m, curved: nl.curved, mv: nl.mv, mvu: nl.mvu, ck: nl.ck,
+		k0:     append([]float64(nil), nl.k0...),
+		pts:    append([]soil.Point(nil), nl.pts...),
+		sig:    append([]float64(nil), nl.sig...),
+		peak:   append([]float64(nil), nl.peak...),
+		strain: append([]float64(nil), nl.strain...), negativeAt: math.NaN()}
+	cp.commit(math.Inf(1), sigInf, uInf)
+	out := make([]float64, len(nl.tr.c.p.Layers))
+	cp.layerSettlements(out)
+	return out
+}
+
 // stressScale is the largest stress change a project applies, kPa: the
 // scale of the iteration's tolerance.
 func (tr *transient) stressScale() float64 {

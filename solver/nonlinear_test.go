@@ -190,6 +190,9 @@ func TestNonlinearUnloadReload(t *testing.T) {
 			t.Errorf("%s: %.5f m, want %.5f m (hand-worked, ±0.5 %% of %.4f m)", c.name, got, c.want, load)
 		}
 	}
+	if got := *r.Summary.Settlement; math.Abs(got-load) > 0.005*load {
+		t.Errorf("final settlement %.5f m, want %.5f m (hand-worked, ±0.5 %%)", got, load)
+	}
 	// Time to half the rebound, counted from the unloading.
 	start := SeriesAt(s.Time, s.Settlement, stage)
 	half := start - rebound/2
@@ -276,5 +279,31 @@ func TestNonlinearStepAllocates(t *testing.T) {
 	}
 	if a, b := count(100), count(400); b > a+2 {
 		t.Errorf("%g allocations for 100 steps, %g for 400: the loop allocates", a, b)
+	}
+}
+
+// TestNonlinearEarlyRemoval removes a surcharge before the clay has
+// drained: the final settlement is then what the elements reached plus
+// what the remaining excess adds, not the drained path of the stages.
+// Hand bound (Terzaghi & Peck 1967): below the settlement of the full
+// surcharge drained, Cc H/(1+e0) log10(100/50), and above that of the
+// load that stays, Cc H/(1+e0) log10(75/50); and Us ends at 1 ± 0.01
+// once everything has drained.
+func TestNonlinearEarlyRemoval(t *testing.T) {
+	t.Parallel()
+	const h, s0 = 2.0, 50.0
+	p, cv := drClay(h, s0, 50)
+	p.Layers[0].ECurve.Ck = 0
+	p.Loads = []Load{{Start: 0, Q: 50}, {Start: 0.2 * h * h / cv, Q: -25}}
+	r := solveUniform(t, p, s0)
+	f := 0.5 * h / 2.5
+	hi, lo := f*math.Log10(100.0/50), f*math.Log10(75.0/50)
+	got := *r.Summary.Settlement
+	if !(got > lo && got < hi) {
+		t.Errorf("final settlement %.5f m, want between %.5f and %.5f m (hand-worked bounds)", got, lo, hi)
+	}
+	us := r.Consolidation.Series.Us
+	if u := us[len(us)-1]; math.Abs(u-1) > 0.01 {
+		t.Errorf("Us ends at %.4f, want 1 ± 0.01", u)
 	}
 }

@@ -20,38 +20,46 @@ func calphaOf(l *Layer) float64 {
 	return l.Calpha
 }
 
-// primaryEnds finds, during the time loop, when each layer's own degree
-// of consolidation (its settlement now over its final settlement under
-// the model that drives the loop) first reaches endOfPrimary.
+// primaryEnds keeps, during the time loop, the settlement history of
+// every layer with a Cα, so that each layer's own end of primary (its
+// degree of consolidation reaching endOfPrimary, its settlement over its
+// final settlement under the model that drives the loop) can be found
+// once the final is known.
 type primaryEnds struct {
-	final []float64 // per layer; 0 where the layer has no Cα or no settlement
-	now   []float64 // per layer settlement now (filled by the caller)
-	prev  []float64 // per layer degree at the last record
-	tp    []float64 // per layer end of primary, days (NaN: not yet)
-	prevT float64
-	d     []float64 // nodal σ − u, for the linear stepper
+	layers []int       // the layers with a Cα
+	hist   [][]float64 // per such layer, its settlement at the kept times, m
+	times  []float64   // the kept times, days
+	stride int         // keep every stride-th record (memory bound)
+	count  int
+	now    []float64 // per layer settlement now (scratch)
+	d      []float64 // nodal σ − u, for the linear stepper
 }
 
-// prepareEnds sizes the per-layer tracking when some layer has a Cα.
-func (k *consolidation) prepareEnds() {
+// maxEndHistory bounds the numbers primaryEnds keeps; past it, it keeps
+// every second (third, …) record.
+const maxEndHistory = 1_000_000
+
+// prepareEnds sizes the histories when some layer has a Cα; capacity is
+// the number of records the loop will make.
+func (k *consolidation) prepareEnds(capacity int) {
 	p := k.c.p
-	nl := len(p.Layers)
-	pe := &primaryEnds{final: make([]float64, nl), now: make([]float64, nl), prev: make([]float64, nl), tp: make([]float64, nl), d: make([]float64, k.c.m.Nodes())}
-	any := false
+	pe := &primaryEnds{now: make([]float64, len(p.Layers)), d: make([]float64, k.c.m.Nodes())}
 	for i := range p.Layers {
-		pe.tp[i] = math.NaN()
-		if calphaOf(&p.Layers[i]) <= 0 || p.Layers[i].ECurve == nil {
-			continue
-		}
-		any = true
-		pe.final[i] = k.r.Summary.Layers[i].SettlementLinear
-		if k.nl != nil {
-			pe.final[i] = k.nlDrained[i]
+		if calphaOf(&p.Layers[i]) > 0 && p.Layers[i].ECurve != nil {
+			pe.layers = append(pe.layers, i)
 		}
 	}
-	if any {
-		k.ends = pe
+	if len(pe.layers) == 0 {
+		return
 	}
+	pe.stride = max(1, (len(pe.layers)*capacity+maxEndHistory-1)/maxEndHistory)
+	keep := capacity/pe.stride + 2
+	pe.times = make([]float64, 0, keep)
+	pe.hist = make([][]float64, len(pe.layers))
+	for j := range pe.hist {
+		pe.hist[j] = make([]float64, 0, keep)
+	}
+	k.ends = pe
 }
 
 // layerNow writes each layer's settlement now to dst, from the model
@@ -68,31 +76,42 @@ func (k *consolidation) layerNow(dst []float64) {
 	}
 	for e := range m.Elements() {
 		l := m.Layer[e]
-		if k.ends.final[l] != 0 {
-			dst[l] += tr.mv[l] * m.Integrate(d, e)
-		}
+		dst[l] += tr.mv[l] * m.Integrate(d, e)
 	}
 }
 
-// observe records the degrees at time t and the crossings of
-// endOfPrimary since the last record (interpolated linearly in log time,
-// as crossing does).
-func (pe *primaryEnds) observe(t float64) {
-	for i, f := range pe.final {
-		if f <= 0 || !math.IsNaN(pe.tp[i]) {
-			continue
-		}
-		u := pe.now[i] / f
-		if u >= endOfPrimary {
-			if tp := crossing([]float64{pe.prevT, t}, []float64{pe.prev[i], u}, endOfPrimary); tp != nil {
-				pe.tp[i] = *tp
-			} else {
-				pe.tp[i] = t
-			}
-		}
-		pe.prev[i] = u
+// observe keeps the layers' settlements at time t (every stride-th call,
+// and always while there is room; the capacity is not exceeded).
+func (pe *primaryEnds) observe(t float64, now []float64) {
+	pe.count++
+	if (pe.count-1)%pe.stride != 0 && len(pe.times) < cap(pe.times)-1 {
+		return
 	}
-	pe.prevT = t
+	if len(pe.times) == cap(pe.times) {
+		return
+	}
+	pe.times = append(pe.times, t)
+	for j, l := range pe.layers {
+		pe.hist[j] = append(pe.hist[j], now[l])
+	}
+}
+
+// end returns when the j-th kept layer first reaches endOfPrimary of
+// final (interpolated in log time as crossing does), or nil.
+func (pe *primaryEnds) end(j int, final float64) *float64 {
+	if final <= 0 {
+		return nil
+	}
+	h := pe.hist[j]
+	for i := range h {
+		if h[i]/final >= endOfPrimary {
+			if i == 0 {
+				return ptr(pe.times[0])
+			}
+			return crossing(pe.times[i-1:i+1], []float64{h[i-1] / final, h[i] / final}, endOfPrimary)
+		}
+	}
+	return nil
 }
 
 // secondary estimates the secondary compression of every layer with a Cα
@@ -115,19 +134,21 @@ func (k *consolidation) secondary() {
 	sum, missing := 0.0, false
 	type part struct{ t0, tp, ca, cr, ep, h float64 }
 	var parts []part
-	for i := range p.Layers {
+	for j, i := range k.ends.layers {
 		l := &p.Layers[i]
 		ca := calphaOf(l)
-		if k.ends.final[i] <= 0 {
+		final := r.Summary.Layers[i].Settlement
+		if final <= 0 {
 			continue
 		}
-		tp := k.ends.tp[i]
 		at := IndexPath("layers", i)
-		if math.IsNaN(tp) {
+		end := k.ends.end(j, final)
+		if end == nil {
 			missing = true
 			k.warn(at, fmt.Sprintf("layer %d%s does not reach %g %% of its primary settlement in the simulated time: no secondary compression estimate for it", i+1, quoted(l.Name), 100*endOfPrimary))
 			continue
 		}
+		tp := *end
 		t0 := 0.0
 		for _, ld := range p.Loads {
 			if ld.Q != 0 && ld.Start <= tp {
