@@ -63,9 +63,10 @@ type nonlinear struct {
 	f          fem.Factor
 	u0, u1     []float64
 	rhs        []float64
-	du         []float64 // the change of u over the last step
+	du, du2    []float64 // the change of u over the last step and the one before
 	r0         []float64 // the last iteration's update
-	lastDt     float64   // its length (0: no step to extrapolate from)
+	lastDt     float64   // the last step's length (0: no step to extrapolate from)
+	lastDt2    float64   // the one before (0: none)
 
 	// Statistics.
 	iterations, steps int
@@ -102,6 +103,7 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 	nl.mass = fem.NewBand(n, m.Order)
 	nl.cond = fem.NewBand(n, m.Order)
 	nl.u0, nl.u1, nl.rhs, nl.du, nl.r0 = make([]float64, n), make([]float64, n), make([]float64, n), make([]float64, n), make([]float64, n)
+	nl.du2 = make([]float64, n)
 	return nl
 }
 
@@ -169,12 +171,21 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 	tr.heldValues(tr.next, t0+dt, true)
 	// The first iterate extrapolates the last step's change, unless
 	// something jumped since (then u is no longer where that step ended).
+	// With two steps behind, the extrapolation is quadratic in time.
 	if nl.lastDt > 0 && !slices.Equal(tr.u, nl.u1) {
-		nl.lastDt = 0
+		nl.lastDt, nl.lastDt2 = 0, 0
 	}
 	copy(nl.u0, tr.u)
 	copy(nl.u1, tr.u)
-	if nl.lastDt > 0 {
+	switch {
+	case nl.lastDt > 0 && nl.lastDt2 > 0:
+		h1, h2 := nl.lastDt, nl.lastDt2
+		for i := tr.lo; i < tr.hi; i++ {
+			v1, v2 := nl.du[i]/h1, nl.du2[i]/h2
+			a := (v1 - v2) / ((h1 + h2) / 2)
+			nl.u1[i] += v1*dt + a*dt*(dt+h1)/2
+		}
+	case nl.lastDt > 0:
 		r := dt / nl.lastDt
 		for i := tr.lo; i < tr.hi; i++ {
 			nl.u1[i] += r * nl.du[i]
@@ -235,10 +246,11 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 		nl.unconverged++
 		nl.worst = math.Max(nl.worst, change)
 	}
+	nl.du, nl.du2 = nl.du2, nl.du
 	for i := range nl.du {
 		nl.du[i] = nl.u1[i] - nl.u0[i]
 	}
-	nl.lastDt = dt
+	nl.lastDt, nl.lastDt2 = dt, nl.lastDt
 	copy(tr.u, nl.u1)
 	nl.commit(t0+dt, tr.sigma, tr.u)
 	return nil

@@ -15,6 +15,7 @@ type report struct {
 	acc     *accuracy
 	size    *sizes
 	browser *browserFigures
+	nl      *nonlinearCost
 	notes   []string
 }
 
@@ -101,6 +102,9 @@ func (r *report) summary() *table {
 			t.add("4 size", "wasm, gzip -9", count(s.wasmGzip)+" B", "", fmt.Sprintf("%.2f of raw", float64(s.wasmGzip)/float64(s.wasm)), "report only", "—")
 			t.add("4 size", fmt.Sprintf("page (porelight.html, final, built %s)", s.built.UTC().Format("2006-01-02 15:04 UTC")), count(s.page)+" B", "", fmt.Sprintf("%.2f of goal", float64(s.page)/pageLimit), "≤ 2.5 MB (2,500,000 B)", holds(s.page <= pageLimit))
 		}
+	}
+	if r.nl != nil {
+		r.nl.rows(t)
 	}
 	if b := r.browser; b == nil {
 		t.add("5 browser", "first plot, edit to plot, heap over 1,000 solves", "not measured", "", "", "≤ 1.5 s; ≤ 50 ms; growth < 5 MB", "—")
