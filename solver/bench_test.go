@@ -8,14 +8,7 @@ import (
 // BenchmarkDemo solves the demo project (testdata/demo.json) with its own
 // settings: steady state, consolidation, e–log path and summary.
 func BenchmarkDemo(b *testing.B) {
-	data, err := os.ReadFile("../testdata/demo.json")
-	if err != nil {
-		b.Fatal(err)
-	}
-	p, err := Decode(data)
-	if err != nil {
-		b.Fatal(err)
-	}
+	p := demoProject(b)
 	b.ReportAllocs()
 	for b.Loop() {
 		if _, err := Solve(p, nil); err != nil {
@@ -102,4 +95,18 @@ func benchSoftClay(b *testing.B, model string) {
 	work := float64(r.Stats.Nodes * r.Stats.Steps)
 	b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/work, "ns/node-step")
 	b.ReportMetric(float64(r.Stats.Iterations)/float64(r.Stats.Steps), "iter/step")
+}
+
+// demoProject decodes testdata/demo.json.
+func demoProject(tb testing.TB) *Project {
+	tb.Helper()
+	data, err := os.ReadFile("../testdata/demo.json")
+	if err != nil {
+		tb.Fatal(err)
+	}
+	p, err := Decode(data)
+	if err != nil {
+		tb.Fatal(err)
+	}
+	return p
 }

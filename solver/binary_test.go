@@ -155,15 +155,7 @@ func TestProjectBinaryFiles(t *testing.T) {
 func TestResultBinaryDemo(t *testing.T) {
 	// The demo's result: the binary form gives back what JSON gives back
 	// (JSON round-trips float64 exactly), in fewer bytes.
-	data, err := os.ReadFile("../testdata/demo.json")
-	if err != nil {
-		t.Fatal(err)
-	}
-	p, err := Decode(data)
-	if err != nil {
-		t.Fatal(err)
-	}
-	res, err := Solve(p, nil)
+	res, err := Solve(demoProject(t), nil)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -228,15 +220,7 @@ func TestResultBinaryDamaged(t *testing.T) {
 }
 
 func BenchmarkResultCodec(b *testing.B) {
-	data, err := os.ReadFile("../testdata/demo.json")
-	if err != nil {
-		b.Fatal(err)
-	}
-	p, err := Decode(data)
-	if err != nil {
-		b.Fatal(err)
-	}
-	res, err := Solve(p, nil)
+	res, err := Solve(demoProject(b), nil)
 	if err != nil {
 		b.Fatal(err)
 	}

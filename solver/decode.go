@@ -9,6 +9,7 @@ import (
 	"maps"
 	"reflect"
 	"slices"
+	"strconv"
 	"strings"
 	"unicode/utf8"
 )
@@ -198,7 +199,7 @@ func checkShape(ps *Problems, path string, v any, t reflect.Type) {
 			val := obj[key]
 			f, ok := fields[key]
 			if !ok {
-				ps.Add(join(path, key), ErrUnknown, "check the spelling; names are case-sensitive")
+				ps.Add(join(path, keyName(key)), ErrUnknown, "check the spelling; names are case-sensitive")
 				continue
 			}
 			checkShape(ps, join(path, key), val, f.Type)
@@ -239,6 +240,18 @@ func checkShape(ps *Problems, path string, v any, t reflect.Type) {
 			*ps = append(*ps, Problem{Path: path, Err: ErrSyntax, Message: "must be a whole number (got " + n.String() + ")"})
 		}
 	}
+}
+
+// keyName is the name an unknown key of a JSON object takes in a field
+// path: the key itself, or the key quoted as a Go string when it is empty
+// or holds a character of the path grammar (".", "[", "]") or a quote, so
+// that every unknown field has a path of its own and never reads as
+// another one.
+func keyName(key string) string {
+	if key == "" || strings.ContainsAny(key, ".[]\"") {
+		return strconv.Quote(key)
+	}
+	return key
 }
 
 func join(path, key string) string {

@@ -190,7 +190,8 @@
 //
 //	(M(u¹) + θΔt K(u¹)) u¹ = (M(u¹) − (1−θ)Δt K(u¹)) u⁰ + M(u¹) (σ¹ − σ⁰),
 //
-// by Picard iteration on the same banded assembly, each update relaxed
+// (k held within MinK … MaxK, the bounds of layers[i].k), by Picard
+// iteration on the same banded assembly, each update relaxed
 // by Aitken's factor (Irons & Tuck 1969), from a first iterate
 // extrapolated from the last two steps, until the largest change of
 // excess pressure between iterates is at most NonlinearTolerance (1e-6)
@@ -253,57 +254,84 @@
 // MaxStored numbers in one result (ErrTooLarge, reported at mesh.maxSize,
 // stepping.firstStep or times).
 //
+// Every number also has a physical bound (the constants in bounds.go),
+// generous for any real soil yet narrow enough that nothing inside them
+// overflows in the numerics; a value outside it is refused with
+// ErrOutOfRange and a message giving the allowed range and unit, e.g.
+// "layers[0].k: is out of range (allowed 1e-15 to 10 m/s, got 1e+308
+// m/s)". A value at or below zero where zero is not allowed keeps its own
+// reason (ErrNotPositive, ErrNegative); NaN and ±Inf (possible only
+// through the Go API) are ErrNotFinite.
+//
 //	field                     unit    allowed                         error when not
 //	format                    –       "porelight/1"                   ErrFormat
 //	units.*                   –       "m", "kPa", "day", "m/s"        ErrOutOfRange
-//	gammaW                    kN/m³   > 0 (0 or absent: 9.81)         ErrNotPositive
-//	waterTable                m       finite (negative: water above)  ErrNotFinite
+//	gammaW                    kN/m³   9 … 13 (0 or absent: 9.81)      ErrNotPositive, ErrOutOfRange
+//	waterTable                m       −10⁴ … 10⁴ (negative: above)    ErrOutOfRange
 //	layers                    –       1 … MaxLayers                   ErrRequired, ErrTooLarge
-//	layers[i].thickness       m       > 0                             ErrNotPositive
-//	layers[i].gammaSat        kN/m³   > gammaW                        ErrNotPositive, ErrOutOfRange
-//	layers[i].gamma           kN/m³   > 0 (absent: gammaSat)          ErrNotPositive
-//	layers[i].k               m/s     > 0                             ErrNotPositive
-//	layers[i].mv              1/kPa   > 0, or absent with an ecurve   ErrNotPositive, ErrRequired
-//	layers[i].calpha          –       ≥ 0, needs an ecurve            ErrNegative, ErrConflict
-//	layers[i].calphaCc        –       ≥ 0, needs an ecurve; not with  ErrNegative, ErrConflict
-//	                                  calpha
-//	layers[i].calphaReduced   –       ≥ 0, needs an ecurve            ErrNegative, ErrConflict
-//	layers[i].mvUnload        1/kPa   > 0 (absent: mv)                ErrNotPositive
-//	layers[i].ecurve.e0       –       > 0                             ErrNotPositive
-//	layers[i].ecurve.cc       –       > 0                             ErrNotPositive
+//	layers[i].thickness       m       10⁻⁴ … 10⁴, column ≤ 10⁴ in all ErrNotPositive, ErrOutOfRange
+//	layers[i].gammaSat        kN/m³   > gammaW, ≤ 50                  ErrNotPositive, ErrOutOfRange
+//	layers[i].gamma           kN/m³   > 0, ≤ 50 (absent: gammaSat)    ErrNotPositive, ErrOutOfRange
+//	layers[i].k               m/s     10⁻¹⁵ … 10                      ErrNotPositive, ErrOutOfRange
+//	layers[i].mv              1/kPa   10⁻⁹ … 1, or absent with an     ErrNotPositive, ErrOutOfRange,
+//	                                  ecurve                          ErrRequired
+//	layers[i].calpha          –       0 … 1, needs an ecurve          ErrNegative, ErrOutOfRange, ErrConflict
+//	layers[i].calphaCc        –       0 … 1, needs an ecurve; not     ErrNegative, ErrOutOfRange, ErrConflict
+//	                                  with calpha
+//	layers[i].calphaReduced   –       0 … 1, needs an ecurve          ErrNegative, ErrOutOfRange, ErrConflict
+//	layers[i].mvUnload        1/kPa   10⁻⁹ … 1 (absent: mv)           ErrNotPositive, ErrOutOfRange
+//	layers[i].ecurve.e0       –       > 0, ≤ 30                       ErrNotPositive, ErrOutOfRange
+//	layers[i].ecurve.cc       –       > 0, ≤ 20                       ErrNotPositive, ErrOutOfRange
 //	layers[i].ecurve.cr       –       0 ≤ cr ≤ cc                     ErrNegative, ErrOutOfRange
-//	layers[i].ecurve.sigmaP   kPa     > 0; not with ocr               ErrNotPositive, ErrConflict
-//	layers[i].ecurve.ocr      –       ≥ 1; not with sigmaP            ErrOutOfRange, ErrConflict
-//	layers[i].ecurve.pop      kPa     ≥ 0; one σ'p way only           ErrNegative, ErrConflict
-//	layers[i].ecurve.sigmaPProfile[k] z: finite, increasing; value:  ErrNotFinite, ErrNotSorted,
-//	                                  kPa > 0; one σ'p way only       ErrNotPositive, ErrConflict
-//	layers[i].ecurve.ck       –       > 0 (absent: k constant)        ErrNotPositive
+//	layers[i].ecurve.sigmaP   kPa     > 0, ≤ 10⁵; not with ocr        ErrNotPositive, ErrOutOfRange, ErrConflict
+//	layers[i].ecurve.ocr      –       1 … 1000; not with sigmaP       ErrOutOfRange, ErrConflict
+//	layers[i].ecurve.pop      kPa     0 … 10⁵; one way of σ'p only    ErrNegative, ErrOutOfRange, ErrConflict
+//	layers[i].ecurve.sigmaPProfile[k].z  m: −10⁴ … 10⁴, increasing    ErrOutOfRange, ErrNotSorted
+//	layers[i].ecurve.sigmaPProfile[k].value kPa: > 0, ≤ 10⁵; one way  ErrNotPositive, ErrOutOfRange,
+//	                                  of σ'p only                     ErrConflict
+//	layers[i].ecurve.ck       –       0.05 … 50 (absent: k constant)  ErrNotPositive, ErrOutOfRange
 //	model                     –       "linear" (absent) or            ErrOutOfRange
 //	                                  "nonlinear"
-//	top|bottom.head           m       finite; drained end only        ErrNotFinite, ErrConflict
-//	top|bottom.inflow         m/s     finite; undrained end, and the  ErrNotFinite, ErrConflict
+//	top|bottom.head           m       −10⁴ … 10⁴; drained end only    ErrOutOfRange, ErrConflict
+//	top|bottom.inflow         m/s     −1 … 1; undrained end, and the  ErrOutOfRange, ErrConflict
 //	                                  other end drained
-//	top|bottom.excess[j].t    day     ≥ 0, not decreasing             ErrNegative, ErrNotSorted
-//	top|bottom.excess[j].value kPa    finite; drained end only        ErrNotFinite, ErrConflict
+//	top|bottom.excess[j].t    day     0 … 10⁹, not decreasing         ErrNegative, ErrOutOfRange, ErrNotSorted
+//	top|bottom.excess[j].value kPa    −10⁵ … 10⁵; drained end only    ErrOutOfRange, ErrConflict
 //	loads                     –       at most MaxLoads                ErrTooLarge
-//	loads[j].start, .ramp     day     ≥ 0                             ErrNegative
-//	loads[j].q                kPa     finite (negative removes)       ErrNotFinite
-//	loads[j].profile[k].z     m       finite, increasing              ErrNotFinite, ErrNotSorted
-//	initialExcess[k].z        m       finite, increasing              ErrNotFinite, ErrNotSorted
-//	times[j]                  day     > 0, increasing                 ErrNotPositive, ErrNotSorted
+//	loads[j].start, .ramp     day     0 … 10⁹                         ErrNegative, ErrOutOfRange
+//	loads[j].q                kPa     −10⁵ … 10⁵ (negative removes)   ErrOutOfRange
+//	loads[j].profile[k].z     m       −10⁴ … 10⁴, increasing          ErrOutOfRange, ErrNotSorted
+//	loads[j].profile[k].value –       −1000 … 1000 (a factor on q)    ErrOutOfRange
+//	initialExcess[k].z        m       −10⁴ … 10⁴, increasing          ErrOutOfRange, ErrNotSorted
+//	initialExcess[k].value    kPa     −10⁵ … 10⁵                      ErrOutOfRange
+//	times[j]                  day     > 0, ≤ 10⁹, increasing          ErrNotPositive, ErrOutOfRange, ErrNotSorted
 //	times                     –       nodes × (count + 7) + steps ×   ErrTooLarge
 //	                                  (7 + 2 piezometers) ≤ MaxStored
 //	piezometers[j]            m       0 … column height               ErrNegative, ErrOutOfRange
 //	targetDegree              –       0 < value < 1 (absent: 0.95)    ErrOutOfRange
-//	designLife                day     > 0 (absent: 50 years)          ErrNotPositive
+//	designLife                day     > 0, ≤ 10⁹ (absent: 50 years)   ErrNotPositive, ErrOutOfRange
 //	mesh.order                –       1 or 2 (absent: 1)              ErrOutOfRange
-//	mesh.maxSize              m       > 0 (absent: height/200)        ErrNotPositive, ErrTooLarge
-//	mesh.minPerLayer          –       ≥ 0 (absent: 4)                 ErrNegative
+//	mesh.maxSize              m       10⁻⁶ … 10⁴ (absent: height/200) ErrNotPositive, ErrOutOfRange, ErrTooLarge
+//	mesh.minPerLayer          –       0 … MaxElements (absent: 4)     ErrNegative, ErrTooLarge
 //	stepping.theta            –       0.5 … 1 (absent: 0.5)           ErrOutOfRange
-//	stepping.firstStep        day     > 0 (absent: 1 minute)          ErrNotPositive, ErrTooLarge
+//	stepping.dampedSteps      –       −MaxSteps … MaxSteps (absent:   ErrOutOfRange
+//	                                  4; negative: none)
+//	stepping.firstStep        day     10⁻⁹ … 10⁹ (absent: 1 minute)   ErrNotPositive, ErrOutOfRange, ErrTooLarge
 //	stepping.growth           –       1 … 10 (absent: 1.1)            ErrOutOfRange
-//	stepping.endTime          day     > 0 (absent: see Stepping)      ErrNotPositive
+//	stepping.endTime          day     > 0, ≤ 10⁹ (absent: see         ErrNotPositive, ErrOutOfRange
+//	                                  Stepping)
+//	monitoring.…readings[j].t day     0 … 10⁹, increasing             ErrNegative, ErrOutOfRange, ErrNotSorted
+//	monitoring.plates[i]…value m      −1000 … 1000                    ErrOutOfRange
+//	monitoring.piezometers[i].depth m 0 … column height               ErrNegative, ErrOutOfRange
+//	monitoring.piezometers[i]…value kPa −10⁶ … 10⁶                    ErrOutOfRange
 //	monitoring.*              see Monitoring and its validation
+//
+// Inside the bounds every output of Solve is finite: Solve checks it and
+// would refuse a non-finite one with ErrNumerical at the field most
+// likely at fault. A column at the edges of several bounds at once (a
+// sealed end beside layers whose k differ by 10¹⁶) can make the equations
+// impossible to factorise in floating point; that too is ErrNumerical,
+// naming the layer and depth.
 //
 // Legal but unusual values give warnings in the Result, never errors: a
 // permeability outside 1e-13 … 1 m/s, a fine-grained layer (k < 1e-7 m/s)

@@ -51,14 +51,14 @@ func validMonitoring(ps *Problems, m *Monitoring, height float64) {
 		ps.Add("monitoring", ErrTooLarge, fmt.Sprintf("%d records, the limit is %d", n, MaxRecords))
 	}
 	for i, pl := range m.Plates {
-		v.readings(fmt.Sprintf("monitoring.plates[%d]", i), pl.Readings)
+		v.readings(fmt.Sprintf("monitoring.plates[%d]", i), pl.Readings, MaxPlateReading, "m")
 	}
 	for i, pz := range m.Piezometers {
 		at := fmt.Sprintf("monitoring.piezometers[%d]", i)
-		if nonNegative(ps, at+".depth", pz.Depth) && height > 0 && pz.Depth > height*(1+1e-12) {
+		if upTo(ps, at+".depth", pz.Depth, MaxDepth, "m") && height > 0 && pz.Depth > height*(1+1e-12) {
 			ps.Add(at+".depth", ErrOutOfRange, fmt.Sprintf("depth %g m is below the base of the column at %g m", pz.Depth, height))
 		}
-		v.readings(at, pz.Readings)
+		v.readings(at, pz.Readings, MaxPressureReading, "kPa")
 	}
 	if v.dated != "" && !v.hasStart {
 		ps.Add("monitoring.start", ErrRequired, fmt.Sprintf("%s gives a date; dates count from the calendar date of day 0", v.dated))
@@ -74,8 +74,9 @@ type monitorCheck struct {
 	dated    string // path of the first reading that gives a date
 }
 
-// readings checks one record's readings; at is the record's path.
-func (v *monitorCheck) readings(at string, rs []Reading) {
+// readings checks one record's readings; at is the record's path, and
+// values are bounded by ±limit (in unit).
+func (v *monitorCheck) readings(at string, rs []Reading, limit float64, unit string) {
 	ps := v.ps
 	if len(rs) > MaxReadings {
 		ps.Add(at+".readings", ErrTooLarge, fmt.Sprintf("%d readings, the limit is %d", len(rs), MaxReadings))
@@ -106,10 +107,10 @@ func (v *monitorCheck) readings(at string, rs []Reading) {
 					ok = true
 				}
 			}
-		} else if nonNegative(ps, path, r.T) {
+		} else if upTo(ps, path, r.T, MaxTime, "days") {
 			t, ok, text = r.T, true, fmt.Sprintf("day %g", r.T)
 		}
-		finite(ps, rp+".value", r.Value)
+		within(ps, rp+".value", r.Value, limit, unit)
 		if ok && prevOK {
 			switch {
 			case t < prev:

@@ -107,6 +107,15 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 	return nl
 }
 
+// clampK holds a conductivity (k/γw, m²/(kPa·day)) from the permeability
+// law within what the bounds allow k itself (MinK … MaxK): far outside
+// them the law has left the soil it describes, and k would under- or
+// overflow.
+func (nl *nonlinear) clampK(c float64) float64 {
+	gw := nl.tr.c.gw
+	return min(max(c, MinK*soil.SecondsPerDay/gw), MaxK*soil.SecondsPerDay/gw)
+}
+
 // mean is the mean over element e of the finite element field u: the
 // average of the end nodes (linear) or Simpson's rule (quadratic), both
 // exact, so that ∫ M u matches the element's storage.
@@ -144,7 +153,7 @@ func (nl *nonlinear) coefficients(theta float64, sigma, u []float64) {
 			nl.cm[e] = math.Max(mvT, mvMin)
 			nl.cc[e] = nl.k0[e]
 			if nl.ck[e] > 0 {
-				nl.cc[e] = soil.PermeabilityAfter(nl.k0[e], theta*de, nl.ck[e])
+				nl.cc[e] = nl.clampK(soil.PermeabilityAfter(nl.k0[e], theta*de, nl.ck[e]))
 			}
 			continue
 		}
@@ -267,7 +276,7 @@ func (nl *nonlinear) commit(t float64, sigma, u []float64) {
 		}
 		if nl.curved[e] {
 			if nl.ck[e] > 0 {
-				nl.k0[e] = soil.PermeabilityAfter(nl.k0[e], p.Toward(to), nl.ck[e])
+				nl.k0[e] = nl.clampK(soil.PermeabilityAfter(nl.k0[e], p.Toward(to), nl.ck[e]))
 			}
 			p.MoveTo(to)
 			continue
@@ -309,7 +318,7 @@ func (nl *nonlinear) layerSettlements(dst []float64) {
 // then the final state) and returns each layer's final settlement, m: the
 // denominator of Us.
 func (nl *nonlinear) drained(bps []breakpoint, sigInf, uInf []float64) []float64 {
-	cp := &nonlinear{m: nl.m, curved: nl.curved, mv: nl.mv, mvu: nl.mvu, ck: nl.ck,
+	cp := &nonlinear{tr: nl.tr, m: nl.m, curved: nl.curved, mv: nl.mv, mvu: nl.mvu, ck: nl.ck,
 		k0:     append([]float64(nil), nl.k0...),
 		pts:    append([]soil.Point(nil), nl.pts...),
 		sig:    append([]float64(nil), nl.sig...),
@@ -332,7 +341,7 @@ func (nl *nonlinear) drained(bps []breakpoint, sigInf, uInf []float64) []float64
 // remaining excess pressure still adds as it drains. The elements are
 // left as they are.
 func (nl *nonlinear) projected(sigInf, uInf []float64) []float64 {
-	cp := &nonlinear{m: nl.m, curved: nl.curved, mv: nl.mv, mvu: nl.mvu, ck: nl.ck,
+	cp := &nonlinear{tr: nl.tr, m: nl.m, curved: nl.curved, mv: nl.mv, mvu: nl.mvu, ck: nl.ck,
 		k0:     append([]float64(nil), nl.k0...),
 		pts:    append([]soil.Point(nil), nl.pts...),
 		sig:    append([]float64(nil), nl.sig...),

@@ -1,8 +1,11 @@
 package solver
 
 import (
+	"errors"
 	"fmt"
 	"math"
+	"math/rand/v2"
+	"reflect"
 	"strings"
 	"testing"
 )
@@ -236,5 +239,267 @@ func TestOddValuesWarn(t *testing.T) {
 				t.Errorf("warning at %q, want %q (all: %v)", found, tt.path, r.Warnings)
 			}
 		})
+	}
+}
+
+// TestRandomInBounds draws random projects inside every bound of bounds.go
+// (fixed seeds; a quarter of the draws of each value sit on an edge of its
+// bound) and requires Solve either to succeed with only finite outputs or
+// to refuse with problems that each name a field; it must never panic.
+// Columns at several edges at once (a sealed end beside a layer 10¹⁶
+// times more permeable than its neighbour) may be refused with
+// ErrNumerical naming a layer: that is an answer, counted in the log.
+func TestRandomInBounds(t *testing.T) {
+	t.Parallel()
+	draws := 400
+	if testing.Short() {
+		draws = 150
+	}
+	for _, seed := range []uint64{1, 2} {
+		t.Run(fmt.Sprint("seed ", seed), func(t *testing.T) {
+			t.Parallel()
+			rng := rand.New(rand.NewPCG(seed, 17))
+			solved, numerical, refused, skipped := 0, 0, 0, 0
+			for i := range draws {
+				p := randomProject(rng)
+				if err := Validate(p); err == nil && (elementCount(p) > 2000 || (HasConsolidation(p) && estimateSteps(p) > 3000)) {
+					skipped++ // valid but slow: the benchmarks' business
+					continue
+				}
+				var r *Result
+				var err error
+				func() {
+					defer func() {
+						if e := recover(); e != nil {
+							t.Fatalf("draw %d: Solve panicked: %v\n%s", i, e, mustEncode(p))
+						}
+					}()
+					r, err = Solve(p, nil)
+				}()
+				if err != nil {
+					ps := AsProblems(err)
+					for _, pr := range ps {
+						if pr.Path == "" || pr.Err == nil {
+							t.Errorf("draw %d: problem %q (%v) has no field path\n%s", i, pr.Message, pr.Err, mustEncode(p))
+						}
+					}
+					if errors.Is(err, ErrNumerical) {
+						numerical++
+						t.Logf("draw %d: refused as not computable: %v", i, err)
+					} else {
+						refused++
+						t.Logf("draw %d: refused: %v", i, err)
+					}
+					continue
+				}
+				if path, v, bad := firstNonFinite(reflect.ValueOf(r).Elem(), ""); bad {
+					t.Errorf("draw %d: %s = %g in an accepted result\n%s", i, path, v, mustEncode(p))
+				}
+				solved++
+			}
+			t.Logf("%d draws: %d solved, %d refused by a limit or a rule between fields, %d not computable (ErrNumerical), %d skipped as slow",
+				draws, solved, refused, numerical, skipped)
+			// At least half the draws must reach the numerics, or the
+			// test would check little.
+			if solved+numerical < draws/2 {
+				t.Errorf("only %d of %d draws were solved", solved+numerical, draws)
+			}
+		})
+	}
+}
+
+func mustEncode(p *Project) string {
+	b, err := Encode(p)
+	if err != nil {
+		return err.Error()
+	}
+	return string(b)
+}
+
+// randomProject draws a project with every number inside its bound.
+func randomProject(rng *rand.Rand) *Project {
+	// edge returns lo or hi a quarter of the time, else a value between
+	// them, spread evenly in log scale when both are > 0.
+	edge := func(lo, hi float64) float64 {
+		switch rng.IntN(8) {
+		case 0:
+			return lo
+		case 1:
+			return hi
+		}
+		if lo > 0 {
+			return lo * math.Pow(hi/lo, rng.Float64())
+		}
+		return lo + (hi-lo)*rng.Float64()
+	}
+	sym := func(limit float64) float64 {
+		if rng.IntN(2) == 0 {
+			return edge(0, limit) // often a small value
+		}
+		return -edge(0, limit)
+	}
+	p := &Project{Format: Format}
+	if rng.IntN(3) == 0 {
+		p.GammaW = edge(MinGammaW, MaxGammaW)
+	}
+	gw := ResolveGammaW(p)
+	n := 1 + rng.IntN(5)
+	height := 0.0
+	for range n {
+		l := Layer{
+			Thickness: edge(MinThickness, MaxColumnHeight/float64(n)),
+			GammaSat:  edge(math.Nextafter(gw, 100), MaxUnitWeight),
+			K:         edge(MinK, MaxK),
+		}
+		height += l.Thickness
+		if rng.IntN(3) == 0 {
+			l.Gamma = edge(1e-3, MaxUnitWeight)
+		}
+		if rng.IntN(4) != 0 {
+			l.Mv = edge(MinMv, MaxMv)
+		}
+		if l.Mv == 0 || rng.IntN(2) == 0 {
+			c := &ECurve{E0: edge(0.01, MaxE0), Cc: edge(1e-3, MaxCc)}
+			c.Cr = c.Cc * rng.Float64()
+			switch rng.IntN(3) {
+			case 0:
+				c.SigmaP = edge(1e-3, MaxStress)
+			case 1:
+				c.OCR = edge(1, MaxOCR)
+			}
+			switch rng.IntN(4) {
+			case 0:
+				c.POP = edge(0, MaxStress)
+			case 1:
+				c.SigmaPProfile = []DepthValue{{Z: -edge(0, MaxDepth), Value: edge(1e-3, MaxStress)}, {Z: edge(1, MaxDepth), Value: edge(1e-3, MaxStress)}}
+			}
+			if c.SigmaP != 0 || c.OCR != 0 {
+				c.POP, c.SigmaPProfile = 0, nil
+			}
+			if rng.IntN(2) == 0 {
+				c.Ck = edge(MinCk, MaxCk)
+			}
+			l.ECurve = c
+			switch rng.IntN(3) {
+			case 0:
+				l.Calpha = edge(0, MaxCalpha)
+			case 1:
+				l.CalphaCc = edge(0, MaxCalphaCc)
+			}
+			if rng.IntN(4) == 0 {
+				l.CalphaReduced = edge(0, MaxCalpha)
+			}
+		}
+		if rng.IntN(4) == 0 {
+			l.MvUnload = edge(MinMv, MaxMv)
+		}
+		p.Layers = append(p.Layers, l)
+	}
+	if rng.IntN(2) == 0 {
+		p.Model = ModelNonlinear
+	}
+	p.WaterTable = sym(MaxHead)
+	for _, b := range []*Boundary{&p.Top, &p.Bottom} {
+		b.Drained = rng.IntN(3) != 0
+		if b.Drained && rng.IntN(2) == 0 {
+			b.Head = spHead(sym(MaxHead))
+		}
+		if b.Drained && rng.IntN(4) == 0 {
+			t := 0.0
+			for range 1 + rng.IntN(3) {
+				t = edge(t, MaxTime)
+				b.Excess = append(b.Excess, TimeValue{T: t, Value: sym(MaxStress)})
+			}
+		}
+	}
+	for _, b := range []*Boundary{&p.Top, &p.Bottom} {
+		if !b.Drained && (p.Top.Drained || p.Bottom.Drained) && rng.IntN(2) == 0 {
+			b.Inflow = sym(MaxInflow)
+		}
+	}
+	for range rng.IntN(4) {
+		l := Load{Start: edge(0, MaxTime), Q: sym(MaxStress)}
+		if rng.IntN(2) == 0 {
+			l.Ramp = edge(0, MaxTime)
+		}
+		if rng.IntN(3) == 0 {
+			l.Profile = []DepthValue{{Z: -edge(0, MaxDepth), Value: sym(MaxProfileFactor)}, {Z: edge(height/2, MaxDepth), Value: sym(MaxProfileFactor)}}
+		}
+		p.Loads = append(p.Loads, l)
+	}
+	if rng.IntN(5) == 0 {
+		p.InitialExcess = []DepthValue{{Z: 0, Value: sym(MaxStress)}, {Z: height, Value: sym(MaxStress)}}
+	}
+	t := 0.0
+	for range rng.IntN(4) {
+		if t*1.01 >= MaxTime {
+			break
+		}
+		t = edge(math.Max(t*1.01, MinFirstStep), MaxTime)
+		p.Times = append(p.Times, t)
+	}
+	for range rng.IntN(3) {
+		p.Piezometers = append(p.Piezometers, height*rng.Float64())
+	}
+	if rng.IntN(3) == 0 {
+		p.DesignLife = edge(1, MaxTime)
+	}
+	p.Mesh.Order = rng.IntN(3)
+	if rng.IntN(3) == 0 {
+		p.Mesh.MaxSize = edge(height/500, MaxColumnHeight)
+	}
+	p.Mesh.MinPerLayer = rng.IntN(6)
+	if rng.IntN(3) == 0 {
+		p.Stepping.Theta = edge(0.5, 1)
+	}
+	if rng.IntN(3) == 0 {
+		p.Stepping.Growth = edge(1.05, 10)
+	}
+	if rng.IntN(3) == 0 {
+		p.Stepping.FirstStep = edge(1e-4, 10)
+	}
+	if rng.IntN(4) == 0 {
+		p.Stepping.EndTime = edge(1, MaxTime)
+	}
+	p.Stepping.DampedSteps = rng.IntN(10) - 2
+	if rng.IntN(4) == 0 {
+		p.Monitoring = &Monitoring{
+			Plates: []Plate{{Readings: []Reading{{T: edge(0, 10), Value: sym(MaxPlateReading)}, {T: edge(20, MaxTime), Value: sym(MaxPlateReading)}}}},
+			Piezometers: []PiezometerRecord{{Depth: height * rng.Float64(),
+				Readings: []Reading{{T: edge(0, MaxTime), Value: sym(MaxPressureReading)}}}},
+		}
+	}
+	return p
+}
+
+// TestBlame: a non-finite output is refused at the project field most
+// likely at fault, never at the empty path. The column is 2 m of sand over
+// 3 m of clay with 4 linear elements per layer at maxSize 0.5 m, so node 3
+// (z = 1.5 m) is in the sand and node 7 (z = 3.5 m) in the clay.
+func TestBlame(t *testing.T) {
+	t.Parallel()
+	p := valProject()
+	p.Mesh = MeshSettings{MaxSize: 0.5}
+	p.Piezometers = []float64{1, 4}
+	c := newColumn(p)
+	if got := c.m.Z[3]; math.Abs(got-1.5) > 1e-12 {
+		t.Fatalf("node 3 at %g m, want 1.5 m: the mesh is not the one the cases assume", got)
+	}
+	for _, tc := range []struct{ out, want string }{
+		{"steady.layers[1].heaveFactor", "layers[1]"},
+		{"summary.layers[0].settlementLinear", "layers[0]"},
+		{"steady.head[3]", "layers[0]"},
+		{"steady.effective[7]", "layers[1]"},
+		{"consolidation.isochrones[2].excess[7]", "layers[1]"},
+		{"consolidation.series.piezometers[1].pore[5]", "piezometers[1]"},
+		{"consolidation.series.us[4]", "layers"},
+		{"steady.flux", "layers"},
+		{"summary.t50", "layers"},
+		{"steady.head[99]", "layers"},
+		{"", "layers"},
+	} {
+		if got := c.blame(tc.out); got != tc.want {
+			t.Errorf("blame(%q) = %q, want %q", tc.out, got, tc.want)
+		}
 	}
 }

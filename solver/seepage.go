@@ -190,15 +190,20 @@ func (c *column) numerical(err error, what string) error {
 		return err
 	}
 	// The first bad pivot is at the first node whose row holds the bad
-	// element: the element starting there (the last one for the last
-	// node), so its layer is the one named.
+	// element, so the layer of the element starting there is named.
 	node := min(max(nd.Node, 0), c.m.Nodes()-1)
 	z := c.m.Z[node]
-	layer := c.m.Layer[min(node/c.m.Order, c.m.Elements()-1)]
+	layer := c.layerOfNode(node)
 	var ps Problems
 	ps.Add(fmt.Sprintf("layers[%d].k", layer), ErrNumerical,
 		fmt.Sprintf("%s cannot be solved at %.4g m depth (in layer %d%s): the matrix is not positive definite there; check k and mv of the layers near that depth for values that are extreme for soil", what, z, layer+1, quoted(c.p.Layers[layer].Name)))
 	return ps
+}
+
+// layerOfNode is the layer of the element that starts at node (the last
+// element's for the last node): the lower layer at a layer boundary.
+func (c *column) layerOfNode(node int) int {
+	return c.m.Layer[min(node/c.m.Order, c.m.Elements()-1)]
 }
 
 func quoted(name string) string {

@@ -61,8 +61,10 @@ func solveValid(p *Project, opt *Options) (*Result, error) {
 			r.Summary.MinHeaveFactor = ptr(*l.HeaveFactor)
 		}
 	}
-	if err := CheckFinite(r); err != nil {
-		return nil, err
+	if path, v, ok := firstNonFinite(reflect.ValueOf(r).Elem(), ""); ok {
+		var ps Problems
+		ps.Add(c.blame(path), ErrNumerical, fmt.Sprintf("the result %s came out as %g; the inputs are legal but too extreme for floating point — look for unit weights, permeabilities or loads far outside the range of soils", JoinPath(ResultPath, path), v))
+		return nil, ps
 	}
 	return r, nil
 }
@@ -74,9 +76,11 @@ const ResultPath = "result"
 // CheckFinite returns nil when every number in r is finite, and otherwise
 // a Problems list of one ErrNumerical problem at the JSON path of the
 // first NaN or ±Inf under ResultPath ("result.steady.head[12]"). Solve
-// calls it before returning; a program that builds or changes a Result
-// itself may call it before encoding (JSON has no NaN or Inf). O(size of
-// r).
+// makes the same check before returning, but puts its problem at the
+// input most likely at fault (a layer or a piezometer) and names the
+// result path in the message; a program that builds or changes a Result
+// itself may call CheckFinite before encoding (JSON has no NaN or Inf).
+// O(size of r).
 func CheckFinite(r *Result) error {
 	if r == nil {
 		return nil
@@ -88,6 +92,29 @@ func CheckFinite(r *Result) error {
 	var ps Problems
 	ps.Add(path, ErrNumerical, fmt.Sprintf("came out as %g; the inputs are legal but too extreme for floating point — look for unit weights, permeabilities or loads far outside the range of soils", v))
 	return ps
+}
+
+// blame is the project field most likely at fault for a non-finite output
+// at result path out: the layer of a per-layer figure, the layer holding
+// the node of a per-node figure (a profile or an isochrone), the
+// piezometer of a piezometer series, and the layers as a whole otherwise.
+// It never returns "", so the problem always has a path.
+func (c *column) blame(out string) string {
+	steps, err := ParsePath(out)
+	if err != nil || len(steps) < 2 {
+		return "layers"
+	}
+	last := steps[len(steps)-1]
+	switch {
+	case steps[1].Name == "layers" && steps[1].Index >= 0 && steps[1].Index < len(c.p.Layers):
+		return IndexPath("layers", steps[1].Index)
+	case steps[0].Name == "steady" && len(steps) == 2 && last.Index >= 0 && last.Index < c.m.Nodes(),
+		steps[0].Name == "consolidation" && steps[1].Name == "isochrones" && last.Index >= 0 && last.Index < c.m.Nodes():
+		return IndexPath("layers", c.layerOfNode(last.Index))
+	case len(steps) > 2 && steps[2].Name == "piezometers" && steps[2].Index >= 0 && steps[2].Index < len(c.p.Piezometers):
+		return IndexPath("piezometers", steps[2].Index)
+	}
+	return "layers"
 }
 
 // firstNonFinite walks v (a Result or a part of it) and returns the JSON

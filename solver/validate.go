@@ -46,11 +46,11 @@ func Validate(p *Project) error {
 			}
 		}
 	}
-	gw := ResolveGammaW(p)
+	gw, gwOK := ResolveGammaW(p), true
 	if p.GammaW != 0 {
-		positive(&ps, "gammaW", p.GammaW)
+		gwOK = bounded(&ps, "gammaW", p.GammaW, MinGammaW, MaxGammaW, "kN/m³")
 	}
-	finite(&ps, "waterTable", p.WaterTable)
+	within(&ps, "waterTable", p.WaterTable, MaxHead, "m")
 	switch p.Model {
 	case "", ModelLinear, ModelNonlinear:
 	default:
@@ -66,40 +66,46 @@ func Validate(p *Project) error {
 	height := 0.0
 	for i, l := range p.Layers {
 		at := fmt.Sprintf("layers[%d].", i)
-		positive(&ps, at+"thickness", l.Thickness)
-		if l.Thickness > 0 && !math.IsInf(l.Thickness, 0) {
+		if bounded(&ps, at+"thickness", l.Thickness, MinThickness, MaxThickness, "m") {
 			height += l.Thickness
+			if height > MaxColumnHeight && height-l.Thickness <= MaxColumnHeight {
+				ps.Add(at+"thickness", ErrOutOfRange, fmt.Sprintf("the column would be %g m high down to this layer; allowed up to %g m in total", height, float64(MaxColumnHeight)))
+			}
 		}
-		if positive(&ps, at+"gammaSat", l.GammaSat) && l.GammaSat <= gw {
+		if bounded(&ps, at+"gammaSat", l.GammaSat, 0, MaxUnitWeight, "kN/m³") && gwOK && l.GammaSat <= gw {
 			ps.Add(at+"gammaSat", ErrOutOfRange, fmt.Sprintf("must exceed gammaW = %g (got %g)", gw, l.GammaSat))
 		}
 		if l.Gamma != 0 {
-			positive(&ps, at+"gamma", l.Gamma)
+			bounded(&ps, at+"gamma", l.Gamma, 0, MaxUnitWeight, "kN/m³")
 		}
-		positive(&ps, at+"k", l.K)
+		bounded(&ps, at+"k", l.K, MinK, MaxK, "m/s")
 		if l.Mv != 0 {
-			positive(&ps, at+"mv", l.Mv)
+			bounded(&ps, at+"mv", l.Mv, MinMv, MaxMv, "1/kPa")
 		} else if l.ECurve == nil {
 			ps.Add(at+"mv", ErrRequired, "give mv, or an ecurve to derive it from")
 		}
 		validSoilModel(&ps, i, l)
 		if l.Calpha != 0 {
-			nonNegative(&ps, at+"calpha", l.Calpha)
+			upTo(&ps, at+"calpha", l.Calpha, MaxCalpha, "")
 			if l.ECurve == nil {
 				ps.Add(at+"calpha", ErrConflict, "secondary compression needs ecurve.e0")
 			}
 		}
 		if c := l.ECurve; c != nil {
-			positive(&ps, at+"ecurve.e0", c.E0)
-			positive(&ps, at+"ecurve.cc", c.Cc)
-			if nonNegative(&ps, at+"ecurve.cr", c.Cr) && c.Cr > c.Cc {
+			bounded(&ps, at+"ecurve.e0", c.E0, 0, MaxE0, "")
+			bounded(&ps, at+"ecurve.cc", c.Cc, 0, MaxCc, "")
+			if upTo(&ps, at+"ecurve.cr", c.Cr, MaxCc, "") && c.Cr > c.Cc {
 				ps.Add(at+"ecurve.cr", ErrOutOfRange, fmt.Sprintf("must not exceed cc = %g (got %g)", c.Cc, c.Cr))
 			}
 			if c.SigmaP != 0 {
-				positive(&ps, at+"ecurve.sigmaP", c.SigmaP)
+				bounded(&ps, at+"ecurve.sigmaP", c.SigmaP, 0, MaxStress, "kPa")
 			}
-			if c.OCR != 0 && finite(&ps, at+"ecurve.ocr", c.OCR) && c.OCR < 1 {
-				ps.Add(at+"ecurve.ocr", ErrOutOfRange, "must be ≥ 1 "+paren(num(c.OCR)))
+			if c.OCR != 0 && finite(&ps, at+"ecurve.ocr", c.OCR) {
+				if c.OCR < 1 {
+					ps.Add(at+"ecurve.ocr", ErrOutOfRange, "must be ≥ 1 "+paren(num(c.OCR)))
+				} else {
+					inRange(&ps, at+"ecurve.ocr", c.OCR, 1, MaxOCR, "")
+				}
 			}
 			if c.SigmaP != 0 && c.OCR != 0 {
 				ps.Add(at+"ecurve.ocr", ErrConflict, "give sigmaP or ocr, not both")
@@ -125,19 +131,19 @@ func Validate(p *Project) error {
 	}
 	for i, l := range p.Loads {
 		at := fmt.Sprintf("loads[%d].", i)
-		nonNegative(&ps, at+"start", l.Start)
-		nonNegative(&ps, at+"ramp", l.Ramp)
-		finite(&ps, at+"q", l.Q)
-		validProfile(&ps, at+"profile", l.Profile)
+		upTo(&ps, at+"start", l.Start, MaxTime, "days")
+		upTo(&ps, at+"ramp", l.Ramp, MaxTime, "days")
+		within(&ps, at+"q", l.Q, MaxStress, "kPa")
+		validProfile(&ps, at+"profile", l.Profile, MaxProfileFactor, "")
 	}
-	validProfile(&ps, "initialExcess", p.InitialExcess)
+	validProfile(&ps, "initialExcess", p.InitialExcess, MaxStress, "kPa")
 
 	if len(p.Times) > MaxTimes {
 		ps.Add("times", ErrTooLarge, fmt.Sprintf("%d times, the limit is %d", len(p.Times), MaxTimes))
 	}
 	for i, t := range p.Times {
 		at := fmt.Sprintf("times[%d]", i)
-		if positive(&ps, at, t) && i > 0 && t <= p.Times[i-1] {
+		if bounded(&ps, at, t, 0, MaxTime, "days") && i > 0 && t <= p.Times[i-1] {
 			ps.Add(at, ErrNotSorted, fmt.Sprintf("%g follows %g", t, p.Times[i-1]))
 		}
 	}
@@ -146,7 +152,7 @@ func Validate(p *Project) error {
 	}
 	for i, z := range p.Piezometers {
 		at := fmt.Sprintf("piezometers[%d]", i)
-		if nonNegative(&ps, at, z) && height > 0 && z > height*(1+1e-12) {
+		if upTo(&ps, at, z, MaxDepth, "m") && height > 0 && z > height*(1+1e-12) {
 			ps.Add(at, ErrOutOfRange, fmt.Sprintf("depth %g m is below the base of the column at %g m", z, height))
 		}
 	}
@@ -154,7 +160,7 @@ func Validate(p *Project) error {
 		ps.Add("targetDegree", ErrOutOfRange, "must be a fraction between 0 and 1 "+paren(num(p.TargetDegree)))
 	}
 	if p.DesignLife != 0 {
-		positive(&ps, "designLife", p.DesignLife)
+		bounded(&ps, "designLife", p.DesignLife, 0, MaxTime, "days")
 	}
 
 	if p.Monitoring != nil {
@@ -166,10 +172,13 @@ func Validate(p *Project) error {
 		ps.Add("mesh.order", ErrOutOfRange, fmt.Sprintf("must be 1 (linear) or 2 (quadratic), got %d", m.Order))
 	}
 	if m.MaxSize != 0 {
-		positive(&ps, "mesh.maxSize", m.MaxSize)
+		bounded(&ps, "mesh.maxSize", m.MaxSize, MinMaxSize, MaxColumnHeight, "m")
 	}
-	if m.MinPerLayer < 0 {
+	switch {
+	case m.MinPerLayer < 0:
 		ps.Add("mesh.minPerLayer", ErrNegative, fmt.Sprintf("got %d", m.MinPerLayer))
+	case m.MinPerLayer > MaxElements:
+		ps.Add("mesh.minPerLayer", ErrTooLarge, fmt.Sprintf("%d elements per layer, the limit is %d", m.MinPerLayer, MaxElements))
 	}
 	if len(ps) == 0 {
 		if n := elementCount(p); n > MaxElements {
@@ -182,13 +191,16 @@ func Validate(p *Project) error {
 		ps.Add("stepping.theta", ErrOutOfRange, "must be between 0.5 and 1 "+paren(num(s.Theta)))
 	}
 	if s.FirstStep != 0 {
-		positive(&ps, "stepping.firstStep", s.FirstStep)
+		bounded(&ps, "stepping.firstStep", s.FirstStep, MinFirstStep, MaxTime, "days")
+	}
+	if s.DampedSteps > MaxDampedSteps || s.DampedSteps < -MaxDampedSteps {
+		ps.Add("stepping.dampedSteps", ErrOutOfRange, fmt.Sprintf("allowed %d to %d (negative: none), got %d", -MaxDampedSteps, MaxDampedSteps, s.DampedSteps))
 	}
 	if s.Growth != 0 && (!(s.Growth >= 1 && s.Growth <= 10)) {
 		ps.Add("stepping.growth", ErrOutOfRange, "must be between 1 and 10 "+paren(num(s.Growth)))
 	}
 	if s.EndTime != 0 {
-		positive(&ps, "stepping.endTime", s.EndTime)
+		bounded(&ps, "stepping.endTime", s.EndTime, 0, MaxTime, "days")
 	}
 	if len(ps) == 0 && HasConsolidation(p) {
 		steps := estimateSteps(p)
@@ -207,12 +219,12 @@ func Validate(p *Project) error {
 
 func validBoundary(ps *Problems, at string, b Boundary) {
 	if b.Head != nil {
-		finite(ps, at+".head", *b.Head)
+		within(ps, at+".head", *b.Head, MaxHead, "m")
 		if !b.Drained {
 			ps.Add(at+".head", ErrConflict, "a fixed head needs a drained end")
 		}
 	}
-	finite(ps, at+".inflow", b.Inflow)
+	within(ps, at+".inflow", b.Inflow, MaxInflow, "m/s")
 	if b.Inflow != 0 && b.Drained {
 		ps.Add(at+".inflow", ErrConflict, "an inflow needs an undrained end; a drained end has a fixed head")
 	}
@@ -221,20 +233,22 @@ func validBoundary(ps *Problems, at string, b Boundary) {
 	}
 	for i, tv := range b.Excess {
 		p := fmt.Sprintf("%s.excess[%d]", at, i)
-		if nonNegative(ps, p+".t", tv.T) && i > 0 && tv.T < b.Excess[i-1].T {
+		if upTo(ps, p+".t", tv.T, MaxTime, "days") && i > 0 && tv.T < b.Excess[i-1].T {
 			ps.Add(p+".t", ErrNotSorted, fmt.Sprintf("%g follows %g", tv.T, b.Excess[i-1].T))
 		}
-		finite(ps, p+".value", tv.Value)
+		within(ps, p+".value", tv.Value, MaxStress, "kPa")
 	}
 }
 
-func validProfile(ps *Problems, at string, pts []DepthValue) {
+// validProfile checks a profile against depth whose values are bounded by
+// ±limit (in unit).
+func validProfile(ps *Problems, at string, pts []DepthValue, limit float64, unit string) {
 	for i, dv := range pts {
-		p := fmt.Sprintf("%s[%d]", at, i)
-		if finite(ps, p+".z", dv.Z) && i > 0 && dv.Z <= pts[i-1].Z {
+		p := IndexPath(at, i)
+		if within(ps, p+".z", dv.Z, MaxDepth, "m") && i > 0 && dv.Z <= pts[i-1].Z {
 			ps.Add(p+".z", ErrNotSorted, fmt.Sprintf("%g follows %g", dv.Z, pts[i-1].Z))
 		}
-		finite(ps, p+".value", dv.Value)
+		within(ps, p+".value", dv.Value, limit, unit)
 	}
 }
 

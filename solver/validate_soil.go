@@ -1,6 +1,9 @@
 package solver
 
-import "fmt"
+import (
+	"fmt"
+	"math"
+)
 
 // validSoilModel checks the fields of layer i that the soil models read
 // beyond mv and the e–log curve itself: the swelling mv, the permeability
@@ -8,11 +11,11 @@ import "fmt"
 func validSoilModel(ps *Problems, i int, l Layer) {
 	at := IndexPath("layers", i)
 	if l.MvUnload != 0 {
-		positive(ps, JoinPath(at, "mvUnload"), l.MvUnload)
+		bounded(ps, JoinPath(at, "mvUnload"), l.MvUnload, MinMv, MaxMv, "1/kPa")
 	}
 	if l.CalphaCc != 0 {
 		p := JoinPath(at, "calphaCc")
-		nonNegative(ps, p, l.CalphaCc)
+		upTo(ps, p, l.CalphaCc, MaxCalphaCc, "")
 		if l.Calpha != 0 {
 			ps.Add(p, ErrConflict, "give calpha or calphaCc, not both")
 		}
@@ -22,7 +25,7 @@ func validSoilModel(ps *Problems, i int, l Layer) {
 	}
 	if l.CalphaReduced != 0 {
 		p := JoinPath(at, "calphaReduced")
-		nonNegative(ps, p, l.CalphaReduced)
+		upTo(ps, p, l.CalphaReduced, MaxCalpha, "")
 		if l.ECurve == nil {
 			ps.Add(p, ErrConflict, "secondary compression needs ecurve.e0")
 		}
@@ -33,15 +36,17 @@ func validSoilModel(ps *Problems, i int, l Layer) {
 	}
 	ec := JoinPath(at, "ecurve")
 	if c.Ck != 0 {
-		positive(ps, JoinPath(ec, "ck"), c.Ck)
+		bounded(ps, JoinPath(ec, "ck"), c.Ck, MinCk, MaxCk, "")
 	}
 	if c.POP != 0 {
-		nonNegative(ps, JoinPath(ec, "pop"), c.POP)
+		upTo(ps, JoinPath(ec, "pop"), c.POP, MaxStress, "kPa")
 	}
 	prof := JoinPath(ec, "sigmaPProfile")
-	validProfile(ps, prof, c.SigmaPProfile)
+	validProfile(ps, prof, c.SigmaPProfile, MaxStress, "kPa")
 	for j, dv := range c.SigmaPProfile {
-		positive(ps, JoinPath(IndexPath(prof, j), "value"), dv.Value)
+		if dv.Value <= 0 && !math.IsNaN(dv.Value) {
+			positive(ps, JoinPath(IndexPath(prof, j), "value"), dv.Value)
+		}
 	}
 	// The ways of giving σ'p exclude each other; the first given wins the
 	// message, the later ones are named.

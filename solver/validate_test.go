@@ -22,8 +22,9 @@ func valProject() *Project {
 	}
 }
 
-// Validate refuses bad values with the field path and an Err* reason, every
-// problem at once (the file format contract in doc.go and model.go).
+// Validate and Solve refuse bad values with the field path and an Err*
+// reason, every problem at once (the file format contract in doc.go and
+// model.go, the bounds in bounds.go).
 func TestValidateRefuses(t *testing.T) {
 	t.Parallel()
 	nan, inf := math.NaN(), math.Inf(1)
@@ -101,6 +102,99 @@ func TestValidateRefuses(t *testing.T) {
 			[]decProblem{{"stepping.theta", ErrOutOfRange}}},
 		{"target degree 1", func(p *Project) { p.TargetDegree = 1 },
 			[]decProblem{{"targetDegree", ErrOutOfRange}}},
+		// Extreme but finite values: each is refused at its own path
+		// before any work, with the allowed range (bounds.go).
+		{"thickness 5e-324", func(p *Project) { p.Layers[0].Thickness = 5e-324 },
+			[]decProblem{{"layers[0].thickness", ErrOutOfRange}}},
+		{"thickness 1e300", func(p *Project) { p.Layers[1].Thickness = 1e300 },
+			[]decProblem{{"layers[1].thickness", ErrOutOfRange}}},
+		{"column higher than MaxColumnHeight", func(p *Project) { p.Layers[0].Thickness = 6e3; p.Layers[1].Thickness = 6e3 },
+			[]decProblem{{"layers[1].thickness", ErrOutOfRange}}},
+		{"k 1e308", func(p *Project) { p.Layers[0].K = 1e308 },
+			[]decProblem{{"layers[0].k", ErrOutOfRange}}},
+		{"k 5e-324", func(p *Project) { p.Layers[1].K = 5e-324 },
+			[]decProblem{{"layers[1].k", ErrOutOfRange}}},
+		{"gammaSat 1e308", func(p *Project) { p.Layers[0].GammaSat = 1e308 },
+			[]decProblem{{"layers[0].gammaSat", ErrOutOfRange}}},
+		{"gammaSat -1e308", func(p *Project) { p.Layers[0].GammaSat = -1e308 },
+			[]decProblem{{"layers[0].gammaSat", ErrNotPositive}}},
+		{"gamma 1e308", func(p *Project) { p.Layers[1].Gamma = 1e308 },
+			[]decProblem{{"layers[1].gamma", ErrOutOfRange}}},
+		{"gamma -1e308", func(p *Project) { p.Layers[1].Gamma = -1e308 },
+			[]decProblem{{"layers[1].gamma", ErrNotPositive}}},
+		{"gammaW 1e308", func(p *Project) { p.GammaW = 1e308 },
+			[]decProblem{{"gammaW", ErrOutOfRange}}},
+		{"gammaW 5e-324", func(p *Project) { p.GammaW = 5e-324 },
+			[]decProblem{{"gammaW", ErrOutOfRange}}},
+		{"water table 1e308", func(p *Project) { p.WaterTable = 1e308 },
+			[]decProblem{{"waterTable", ErrOutOfRange}}},
+		{"water table -1e308", func(p *Project) { p.WaterTable = -1e308 },
+			[]decProblem{{"waterTable", ErrOutOfRange}}},
+		{"top head 1e308", func(p *Project) { p.Top.Head = spHead(1e308) },
+			[]decProblem{{"top.head", ErrOutOfRange}}},
+		{"bottom head -1e308", func(p *Project) { p.Bottom.Head = spHead(-1e308) },
+			[]decProblem{{"bottom.head", ErrOutOfRange}}},
+		{"inflow 1e308", func(p *Project) { p.Bottom = Boundary{Inflow: 1e308} },
+			[]decProblem{{"bottom.inflow", ErrOutOfRange}}},
+		{"load 1e308", func(p *Project) { p.Loads = []Load{{Q: 1e308}} },
+			[]decProblem{{"loads[0].q", ErrOutOfRange}}},
+		{"load -1e308", func(p *Project) { p.Loads = []Load{{Q: -1e308}} },
+			[]decProblem{{"loads[0].q", ErrOutOfRange}}},
+		{"load start 1e308", func(p *Project) { p.Loads = []Load{{Start: 1e308, Q: 10}} },
+			[]decProblem{{"loads[0].start", ErrOutOfRange}}},
+		{"profile factor 1e308", func(p *Project) { p.Loads = []Load{{Q: 10, Profile: []DepthValue{{Z: 0, Value: 1e308}}}} },
+			[]decProblem{{"loads[0].profile[0].value", ErrOutOfRange}}},
+		{"profile depth -1e308", func(p *Project) { p.Loads = []Load{{Q: 10, Profile: []DepthValue{{Z: -1e308, Value: 1}}}} },
+			[]decProblem{{"loads[0].profile[0].z", ErrOutOfRange}}},
+		{"initial excess 1e308", func(p *Project) { p.InitialExcess = []DepthValue{{Z: 0, Value: 1e308}} },
+			[]decProblem{{"initialExcess[0].value", ErrOutOfRange}}},
+		{"boundary excess -1e308", func(p *Project) { p.Top.Excess = []TimeValue{{T: 0, Value: -1e308}} },
+			[]decProblem{{"top.excess[0].value", ErrOutOfRange}}},
+		{"boundary excess time 1e308", func(p *Project) { p.Top.Excess = []TimeValue{{T: 1e308, Value: -1}} },
+			[]decProblem{{"top.excess[0].t", ErrOutOfRange}}},
+		{"mv 1e308", func(p *Project) { p.Layers[0].Mv = 1e308 },
+			[]decProblem{{"layers[0].mv", ErrOutOfRange}}},
+		{"mv 5e-324", func(p *Project) { p.Layers[0].Mv = 5e-324 },
+			[]decProblem{{"layers[0].mv", ErrOutOfRange}}},
+		{"e-log curve 1e308", func(p *Project) {
+			p.Layers[1].ECurve = &ECurve{E0: 1e308, Cc: 1e308, Cr: 0.05, SigmaP: 1e308}
+			p.Layers[1].Calpha = 1e308
+		}, []decProblem{{"layers[1].ecurve.e0", ErrOutOfRange}, {"layers[1].ecurve.cc", ErrOutOfRange},
+			{"layers[1].ecurve.sigmaP", ErrOutOfRange}, {"layers[1].calpha", ErrOutOfRange}}},
+		{"ocr 1e308", func(p *Project) { p.Layers[1].ECurve = &ECurve{E0: 1, Cc: 0.3, Cr: 0.05, OCR: 1e308} },
+			[]decProblem{{"layers[1].ecurve.ocr", ErrOutOfRange}}},
+		{"times 1e308", func(p *Project) { p.Times = []float64{1, 1e308} },
+			[]decProblem{{"times[1]", ErrOutOfRange}}},
+		{"piezometer 1e308", func(p *Project) { p.Layers[0].Thickness = -1; p.Piezometers = []float64{1e308} },
+			[]decProblem{{"layers[0].thickness", ErrNotPositive}, {"piezometers[0]", ErrOutOfRange}}},
+		{"design life 1e308", func(p *Project) { p.DesignLife = 1e308 },
+			[]decProblem{{"designLife", ErrOutOfRange}}},
+		{"maxSize 5e-324", func(p *Project) { p.Mesh.MaxSize = 5e-324 },
+			[]decProblem{{"mesh.maxSize", ErrOutOfRange}}},
+		{"maxSize 1e308", func(p *Project) { p.Mesh.MaxSize = 1e308 },
+			[]decProblem{{"mesh.maxSize", ErrOutOfRange}}},
+		{"minPerLayer beyond the element limit", func(p *Project) { p.Mesh.MinPerLayer = 1 << 40 },
+			[]decProblem{{"mesh.minPerLayer", ErrTooLarge}}},
+		{"first step 5e-324", func(p *Project) { p.Stepping.FirstStep = 5e-324 },
+			[]decProblem{{"stepping.firstStep", ErrOutOfRange}}},
+		{"end time 1e308", func(p *Project) { p.Stepping.EndTime = 1e308 },
+			[]decProblem{{"stepping.endTime", ErrOutOfRange}}},
+		{"damped steps 1<<40", func(p *Project) { p.Stepping.DampedSteps = 1 << 40 },
+			[]decProblem{{"stepping.dampedSteps", ErrOutOfRange}}},
+		{"plate reading 1e308", func(p *Project) {
+			p.Monitoring = &Monitoring{Plates: []Plate{{Readings: []Reading{{T: 1, Value: 1e308}, {T: 1e308, Value: 0.1}}}}}
+		}, []decProblem{{"monitoring.plates[0].readings[0].value", ErrOutOfRange}, {"monitoring.plates[0].readings[1].t", ErrOutOfRange}}},
+		{"piezometer reading -1e308", func(p *Project) {
+			p.Monitoring = &Monitoring{Piezometers: []PiezometerRecord{{Depth: 1e308, Readings: []Reading{{T: 1, Value: -1e308}}}}}
+		}, []decProblem{{"monitoring.piezometers[0].depth", ErrOutOfRange}, {"monitoring.piezometers[0].readings[0].value", ErrOutOfRange}}},
+		{"NaN and Inf through the Go API", func(p *Project) {
+			p.GammaW = nan
+			p.Layers[0].GammaSat = inf
+			p.Layers[1].Mv = -inf
+			p.Loads = []Load{{Start: nan, Q: inf}}
+			p.Stepping.FirstStep = inf
+		}, []decProblem{{"gammaW", ErrNotFinite}, {"layers[0].gammaSat", ErrNotFinite}, {"layers[1].mv", ErrNotFinite},
+			{"loads[0].start", ErrNotFinite}, {"loads[0].q", ErrNotFinite}, {"stepping.firstStep", ErrNotFinite}}},
 		// Every problem at once, each with its own path.
 		{"several problems", func(p *Project) {
 			p.Layers[0].Thickness = -1
@@ -119,6 +213,12 @@ func TestValidateRefuses(t *testing.T) {
 			p := valProject()
 			tc.change(p)
 			decCheckProblems(t, Validate(p), tc.want)
+			// Solve refuses the same, before any work.
+			r, err := Solve(p, nil)
+			if r != nil {
+				t.Fatalf("Solve returned a result for a refused project")
+			}
+			decCheckProblems(t, err, tc.want)
 		})
 	}
 }

@@ -415,6 +415,9 @@ func TestE2EPage(t *testing.T) {
 	})
 
 	t.Run("a wrong value keeps the results", func(t *testing.T) {
+		// No solve may be under way when the figure to keep is read (on a
+		// loaded machine the last edit's solve can still be running).
+		poll[bool](t, ctx, `document.getElementById("status").textContent.includes("up to date")`, 20*time.Second)
 		before := dataValue(t, ctx, "sum-flux")
 		typeInto(t, ctx, "layers-1-thickness", "4,5m")
 		msg := poll[string](t, ctx, `document.getElementById("layers-1-thickness-err")?.textContent`, 10*time.Second)

@@ -1,0 +1,146 @@
+package solver
+
+import "fmt"
+
+// Physical bounds of the numbers in a project file. Validate refuses a
+// value outside its bound with ErrOutOfRange, the field path and the
+// allowed range with its unit, before any work is done (Solve validates
+// first). The bounds are generous for any real soil, groundwater and
+// loading (the typical values given beside each bound are common practice,
+// quoted from memory, and lie well inside it), and narrow enough that
+// nothing inside them can overflow or underflow in the numerics. The worst products are:
+//
+//   - stress: MaxColumnHeight × MaxUnitWeight plus water standing MaxHead
+//     above the top, ≈ 6.3·10⁵ kPa; pore pressure from the heads,
+//     MaxGammaW × (MaxHead + MaxColumnHeight) ≈ 2.6·10⁵ kPa;
+//   - pore pressure behind a fixed inflow: MaxGammaW × MaxInflow ×
+//     MaxColumnHeight / MinK ≈ 1.3·10²⁰ kPa (an absurd column, but finite);
+//   - the θ-method matrix: elements are at least MinThickness /
+//     MaxElements = 5·10⁻¹⁰ m long, so θΔt·k/(γw Δz) ≤ MaxTime × 86400 ×
+//     MaxK / (MinGammaW × 5·10⁻¹⁰) ≈ 2·10²³ beside capacities mv·Δz ≥
+//     5·10⁻¹⁹;
+//   - stress change: MaxLoads × MaxStress × MaxProfileFactor = 2·10¹⁰ kPa,
+//     settlement MaxMv × that × MaxColumnHeight ≈ 2·10¹⁴ m; the e–log σ'
+//     and secondary compression terms are logarithms of such ratios;
+//
+// all far inside float64's 10³⁰⁸ and above its 10⁻³⁰⁸. A column at the
+// edges of several bounds at once can still be ill-conditioned (a sealed
+// end next to a layer 10¹⁶ times more permeable than its neighbour): then
+// the factorisation fails and Solve returns ErrNumerical naming the layer,
+// never a non-finite result.
+const (
+	// MinThickness and MaxThickness bound layers[i].thickness, m: a
+	// 0.1 mm seam to a 10 km layer.
+	MinThickness = 1e-4
+	MaxThickness = 1e4
+	// MaxColumnHeight bounds the sum of the thicknesses, m (deep basins
+	// are a few km of sediment).
+	MaxColumnHeight = 1e4
+
+	// MinK and MaxK bound layers[i].k, m/s: intact clays and shales reach
+	// 1e-13 m/s, open gravel about 1 m/s.
+	MinK = 1e-15
+	MaxK = 10.0
+
+	// MaxUnitWeight bounds gammaSat and gamma, kN/m³ (soils weigh 12–23,
+	// rock and dense tailings up to about 35).
+	MaxUnitWeight = 50.0
+	// MinGammaW and MaxGammaW bound gammaW, kN/m³: fresh water 9.78–9.81,
+	// sea water about 10.05, the densest brines about 12.
+	MinGammaW = 9.0
+	MaxGammaW = 13.0
+
+	// MinMv and MaxMv bound layers[i].mv, 1/kPa: dense sand and stiff
+	// clay about 1e-5, peat about 1e-2.
+	MinMv = 1e-9
+	MaxMv = 1.0
+
+	// MaxE0 bounds ecurve.e0 (sands 0.4–1, soft clays 1–3, peats to about
+	// 15); MaxCc bounds ecurve.cc and ecurve.cr (peats reach about 10);
+	// MaxOCR bounds ecurve.ocr; MaxCalpha bounds calpha (peats to about
+	// 0.1–0.5).
+	MaxE0     = 30.0
+	MaxCc     = 20.0
+	MaxOCR    = 1000.0
+	MaxCalpha = 1.0
+
+	// MinCk and MaxCk bound ecurve.ck, the permeability change index of
+	// the non-linear model (soft clays 0.3–1.5, about 0.5 e0). At the
+	// lower bound with the largest Cc a compression can still make k
+	// underflow: the factorisation then fails with ErrNumerical.
+	// MaxCalphaCc bounds calphaCc (Cα/Cc is 0.02–0.1 for clays and peats).
+	MinCk       = 0.05
+	MaxCk       = 50.0
+	MaxCalphaCc = 1.0
+
+	// MaxStress bounds every stress and pressure the file gives, kPa, in
+	// absolute value: loads[j].q, ecurve.sigmaP, boundary excess values,
+	// initialExcess values (100 MPa; a 50 m fill is about 1 MPa).
+	MaxStress = 1e5
+	// MaxProfileFactor bounds loads[j].profile[k].value in absolute value
+	// (an influence factor is at most 1; the margin allows a profile
+	// written in other units of q).
+	MaxProfileFactor = 1000.0
+
+	// MaxHead bounds waterTable and top|bottom.head in absolute value, m,
+	// and MaxDepth the depths of profiles, m (the deepest ocean is 11 km).
+	MaxHead  = 1e4
+	MaxDepth = 1e4
+	// MaxInflow bounds top|bottom.inflow in absolute value, m/s (a Darcy
+	// velocity; 1 m/s is beyond any open gravel under a metre of gradient).
+	MaxInflow = 1.0
+
+	// MaxTime bounds every time and duration, days: times, load starts and
+	// ramps, boundary history times, designLife, stepping.endTime and
+	// stepping.firstStep, readings' t (about 2.7 million years, for
+	// running a near-impermeable layer to its end). MinFirstStep is the
+	// least stepping.firstStep, days (about 0.1 ms).
+	MaxTime      = 1e9
+	MinFirstStep = 1e-9
+
+	// MinMaxSize is the least mesh.maxSize, m. MaxDampedSteps bounds
+	// stepping.dampedSteps (negative means none).
+	MinMaxSize     = 1e-6
+	MaxDampedSteps = MaxSteps
+
+	// MaxPlateReading bounds a settlement plate's readings, m, and
+	// MaxPressureReading a piezometer's, kPa, in absolute value.
+	MaxPlateReading    = 1e3
+	MaxPressureReading = 1e6
+)
+
+// inRange adds an ErrOutOfRange problem at path unless lo ≤ v ≤ hi (v
+// must already be finite), and reports whether v is in range.
+func inRange(ps *Problems, at string, v, lo, hi float64, unit string) bool {
+	if v >= lo && v <= hi {
+		return true
+	}
+	ps.Add(at, ErrOutOfRange, fmt.Sprintf("allowed %s, got %g%s", rangeText(lo, hi, unit), v, unitSuffix(unit)))
+	return false
+}
+
+// within adds a problem at path unless v is finite and |v| ≤ limit.
+func within(ps *Problems, at string, v, limit float64, unit string) bool {
+	return finite(ps, at, v) && inRange(ps, at, v, -limit, limit, unit)
+}
+
+// bounded adds a problem at path unless v is finite, > 0 and in [lo, hi].
+func bounded(ps *Problems, at string, v, lo, hi float64, unit string) bool {
+	return positive(ps, at, v) && inRange(ps, at, v, lo, hi, unit)
+}
+
+// upTo adds a problem at path unless v is finite, ≥ 0 and ≤ hi.
+func upTo(ps *Problems, at string, v, hi float64, unit string) bool {
+	return nonNegative(ps, at, v) && inRange(ps, at, v, 0, hi, unit)
+}
+
+func rangeText(lo, hi float64, unit string) string {
+	return fmt.Sprintf("%g to %g%s", lo, hi, unitSuffix(unit))
+}
+
+func unitSuffix(unit string) string {
+	if unit == "" {
+		return ""
+	}
+	return " " + unit
+}
