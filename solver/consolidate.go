@@ -240,6 +240,9 @@ func (k *consolidation) prepareSeries() *Consolidation {
 		absP += w * math.Abs(k.sigInf[i]-k.uInf[i])
 	}
 	k.definedUp = len(tr.held) > 0 && math.Abs(k.denP) > 1e-9*absP
+	if k.defined && !k.definedUp {
+		k.warn("loads", "the degree of dissipation Up is not shown: the final change of effective stress sums to zero over the column (it rises in one part as much as it falls in another, or returns to where it started), so Up would be 0/0; Us and the settlement are unaffected")
+	}
 	capacity := estimateSteps(p) + len(k.bps) + 2
 	ser.Time = make([]float64, 0, capacity)
 	ser.Load = make([]float64, 0, capacity)

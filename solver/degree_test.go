@@ -3,6 +3,7 @@ package solver
 import (
 	"encoding/json"
 	"math"
+	"slices"
 	"strings"
 	"testing"
 )
@@ -61,6 +62,11 @@ func TestDegreeUndefined(t *testing.T) {
 			}
 			if got := len(s.Us) > 0; got != c.us {
 				t.Errorf("Us present = %v, want %v", got, c.us)
+			}
+			// Where Us is shown without Up, a warning says why.
+			said := slices.ContainsFunc(r.Warnings, func(w Warning) bool { return strings.Contains(w.Message, "Up is not shown") })
+			if said != c.us {
+				t.Errorf("a warning on the missing Up = %v, want %v (warnings %v)", said, c.us, r.Warnings)
 			}
 			// Linear elements reproduce a piecewise-linear profile to
 			// rounding: tolerance 1e-9 m.
