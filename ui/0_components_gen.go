@@ -2042,7 +2042,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 			vgparent.AppendChild(vgn)
 			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
 			vgparent.AppendChild(vgn)
-			vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth class=\"pl-num\"\x3E#\x3C/th\x3E\x3Cth\x3EName\x3C/th\x3E\x3Cth\x3EThickness\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eγsat\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkN/m³\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eγ moist\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkN/m³\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Ek\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em/s\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Emv\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E1/kPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Ecv (derived)\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em²/day\x3C/span\x3E\x3C/th\x3E\x3Cth class=\"pl-noprint\"\x3E\x3Cspan class=\"pl-vh\"\x3ERow actions\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
+			vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth class=\"pl-num\"\x3E#\x3C/th\x3E\x3Cth\x3EName\x3C/th\x3E\x3Cth\x3EThickness\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eγsat\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkN/m³\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eγ moist\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkN/m³\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Ek\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em/s\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Emv\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E1/kPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Emv unloading\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E1/kPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Ecv (derived)\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em²/day\x3C/span\x3E\x3C/th\x3E\x3Cth class=\"pl-noprint\"\x3E\x3Cspan class=\"pl-vh\"\x3ERow actions\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
 			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 			vgparent.AppendChild(vgn)
 			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
@@ -2239,6 +2239,35 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 						}
 						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 						vgparent.AppendChild(vgn)
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+						vgparent.AppendChild(vgn)
+						{
+							vgparent := vgn
+							_ = vgparent
+							{
+								vgcompKey := vugu.MakeCompKey(0xE5D18531B16620E5^vgin.CurrentPositionHash(), vgiterkey)
+								// ask BuildEnv for prior instance of this specific component
+								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+								if vgcomp == nil {
+									// create new one if needed
+									vgcomp = new(Field)
+									vgin.BuildEnv.WireComponent(vgcomp)
+								}
+								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+								vgcomp.Bare = true
+								vgcomp.Changed = c.Changed
+								vgcomp.F = c.F
+								vgcomp.Hint = "Swelling modulus, used below the largest past effective stress; empty: the loading mv"
+								vgcomp.Label = "Coefficient of volume compressibility on unloading, layer " + itoa(i+1)
+								vgcomp.Path = lp(i, "mvUnload")
+								vgcomp.Unit = "1/kPa"
+								vgout.Components = append(vgout.Components, vgcomp)
+								vgn = &vugu.VGNode{Component: vgcomp}
+								vgparent.AppendChild(vgn)
+							}
+						}
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+						vgparent.AppendChild(vgn)
 						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-derived"}}}
 						vgparent.AppendChild(vgn)
 						vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-cv", i))
@@ -2357,6 +2386,64 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 		vgn.SetInnerHTML(vugu.HTML("Compression and creep \x3Cspan class=\"pl-sub\"\x3Ee–log σ′ model; leave a row empty to use mv only\x3C/span\x3E"))
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-row"}}}
+		vgparent.AppendChild(vgn)
+		{
+			vgparent := vgn
+			_ = vgparent
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "model"}}}
+			vgparent.AppendChild(vgn)
+			{
+				vgparent := vgn
+				_ = vgparent
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+				vgparent.AppendChild(vgn)
+				vgn.SetInnerHTML(vugu.HTML("Consolidation model"))
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "select", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "model"}}}
+				vgparent.AppendChild(vgn)
+				{
+					b, err := vjson.Marshal(c.model())
+					if err != nil {
+						panic(err)
+					}
+					vgn.Prop = append(vgn.Prop, vugu.VGProperty{Key: "value", JSONVal: vjson.RawMessage(b)})
+				}
+				vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+					EventType: "change",
+					Func:      func(event vugu.DOMEvent) { c.setModel(event) },
+					// TODO: implement capture, etc. mostly need to decide syntax
+				})
+				{
+					vgparent := vgn
+					_ = vgparent
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "linear"}}}
+					vgparent.AppendChild(vgn)
+					vgn.AddAttrInterface("selected", c.model() == "linear")
+					{
+						vgparent := vgn
+						_ = vgparent
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "linear: k and mv fixed per layer"}
+						vgparent.AppendChild(vgn)
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "nonlinear"}}}
+					vgparent.AppendChild(vgn)
+					vgn.AddAttrInterface("selected", c.model() == "nonlinear")
+					{
+						vgparent := vgn
+						_ = vgparent
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "non-linear: each element follows its e–log σ′ curve"}
+						vgparent.AppendChild(vgn)
+					}
+				}
+			}
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: " "}
+			vgparent.AppendChild(vgn)
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
+			vgparent.AppendChild(vgn)
+			vgn.SetInnerHTML(c.modelNote())
+		}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "ecurves"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid"}}}
 		vgparent.AppendChild(vgn)
 		{
@@ -2366,7 +2453,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 			vgparent.AppendChild(vgn)
 			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
 			vgparent.AppendChild(vgn)
-			vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth class=\"pl-num\"\x3E#\x3C/th\x3E\x3Cth\x3ELayer\x3C/th\x3E\x3Cth\x3Ee0\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECc\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECr\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eσ′p\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EOCR\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECα\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
+			vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth class=\"pl-num\"\x3E#\x3C/th\x3E\x3Cth\x3ELayer\x3C/th\x3E\x3Cth\x3Ee0\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECc\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECr\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eσ′p\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EOCR\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EPOP\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECk\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECα\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECα/Cc\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECα after unloading\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
 			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 			vgparent.AppendChild(vgn)
 			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
@@ -2404,7 +2491,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent := vgn
 							_ = vgparent
 							{
-								vgcompKey := vugu.MakeCompKey(0xE5D18531B16620E5^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0x4BB1BCEDD954B293^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -2432,7 +2519,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent := vgn
 							_ = vgparent
 							{
-								vgcompKey := vugu.MakeCompKey(0x4BB1BCEDD954B293^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0xEE5921351A1BA2B^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -2460,7 +2547,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent := vgn
 							_ = vgparent
 							{
-								vgcompKey := vugu.MakeCompKey(0xEE5921351A1BA2B^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0x27C3C3F3C9153431^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -2488,7 +2575,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent := vgn
 							_ = vgparent
 							{
-								vgcompKey := vugu.MakeCompKey(0x27C3C3F3C9153431^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0x2FE8BCF883F8C090^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -2517,7 +2604,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent := vgn
 							_ = vgparent
 							{
-								vgcompKey := vugu.MakeCompKey(0x2FE8BCF883F8C090^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0xA93AB01435404191^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -2546,7 +2633,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent := vgn
 							_ = vgparent
 							{
-								vgcompKey := vugu.MakeCompKey(0xA93AB01435404191^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0xE0D022467C72EB79^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -2558,9 +2645,125 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 								vgcomp.Bare = true
 								vgcomp.Changed = c.Changed
 								vgcomp.F = c.F
-								vgcomp.Hint = "Δe per log cycle of time; empty: no secondary compression"
+								vgcomp.Hint = "σ′p = σ′0 + POP at every depth (the usual way to describe a crust); give one of σ′p, OCR and POP"
+								vgcomp.Label = "Pre-overburden pressure of layer " + itoa(i+1)
+								vgcomp.Path = lp(i, "ecurve.pop")
+								vgcomp.Unit = "kPa"
+								vgout.Components = append(vgout.Components, vgcomp)
+								vgn = &vugu.VGNode{Component: vgcomp}
+								vgparent.AppendChild(vgn)
+							}
+						}
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+						vgparent.AppendChild(vgn)
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+						vgparent.AppendChild(vgn)
+						{
+							vgparent := vgn
+							_ = vgparent
+							{
+								vgcompKey := vugu.MakeCompKey(0xC6FF8B0F512B0270^vgin.CurrentPositionHash(), vgiterkey)
+								// ask BuildEnv for prior instance of this specific component
+								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+								if vgcomp == nil {
+									// create new one if needed
+									vgcomp = new(Field)
+									vgin.BuildEnv.WireComponent(vgcomp)
+								}
+								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+								vgcomp.Bare = true
+								vgcomp.Changed = c.Changed
+								vgcomp.F = c.F
+								vgcomp.Hint = "Non-linear model: log10 k = log10 k0 + (e − e0)/Ck, k0 the layer k (about 0.5 e0 is a common first guess); empty: k fixed"
+								vgcomp.Label = "Permeability change index of layer " + itoa(i+1)
+								vgcomp.Path = lp(i, "ecurve.ck")
+								vgcomp.Unit = "–"
+								vgout.Components = append(vgout.Components, vgcomp)
+								vgn = &vugu.VGNode{Component: vgcomp}
+								vgparent.AppendChild(vgn)
+							}
+						}
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+						vgparent.AppendChild(vgn)
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+						vgparent.AppendChild(vgn)
+						{
+							vgparent := vgn
+							_ = vgparent
+							{
+								vgcompKey := vugu.MakeCompKey(0x5B47B1180EC9BA1^vgin.CurrentPositionHash(), vgiterkey)
+								// ask BuildEnv for prior instance of this specific component
+								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+								if vgcomp == nil {
+									// create new one if needed
+									vgcomp = new(Field)
+									vgin.BuildEnv.WireComponent(vgcomp)
+								}
+								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+								vgcomp.Bare = true
+								vgcomp.Changed = c.Changed
+								vgcomp.F = c.F
+								vgcomp.Hint = "Δe per log cycle of time from the layer’s own end of primary; empty: no secondary compression"
 								vgcomp.Label = "Coefficient of secondary compression of layer " + itoa(i+1)
 								vgcomp.Path = lp(i, "calpha")
+								vgcomp.Unit = "–"
+								vgout.Components = append(vgout.Components, vgcomp)
+								vgn = &vugu.VGNode{Component: vgcomp}
+								vgparent.AppendChild(vgn)
+							}
+						}
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+						vgparent.AppendChild(vgn)
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+						vgparent.AppendChild(vgn)
+						{
+							vgparent := vgn
+							_ = vgparent
+							{
+								vgcompKey := vugu.MakeCompKey(0x64F70B86CAAED030^vgin.CurrentPositionHash(), vgiterkey)
+								// ask BuildEnv for prior instance of this specific component
+								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+								if vgcomp == nil {
+									// create new one if needed
+									vgcomp = new(Field)
+									vgin.BuildEnv.WireComponent(vgcomp)
+								}
+								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+								vgcomp.Bare = true
+								vgcomp.Changed = c.Changed
+								vgcomp.F = c.F
+								vgcomp.Hint = "Instead of Cα: about 0.04 for inorganic clays, 0.05–0.07 for organic ones (a hint only)"
+								vgcomp.Label = "Cα as a fraction of Cc, layer " + itoa(i+1)
+								vgcomp.Path = lp(i, "calphaCc")
+								vgcomp.Unit = "–"
+								vgout.Components = append(vgout.Components, vgcomp)
+								vgn = &vugu.VGNode{Component: vgcomp}
+								vgparent.AppendChild(vgn)
+							}
+						}
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+						vgparent.AppendChild(vgn)
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+						vgparent.AppendChild(vgn)
+						{
+							vgparent := vgn
+							_ = vgparent
+							{
+								vgcompKey := vugu.MakeCompKey(0xF3EBA29AC3A90306^vgin.CurrentPositionHash(), vgiterkey)
+								// ask BuildEnv for prior instance of this specific component
+								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+								if vgcomp == nil {
+									// create new one if needed
+									vgcomp = new(Field)
+									vgin.BuildEnv.WireComponent(vgcomp)
+								}
+								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+								vgcomp.Bare = true
+								vgcomp.Changed = c.Changed
+								vgcomp.F = c.F
+								vgcomp.Hint = "Unloading slows secondary compression; empty: the full Cα (the rate is then overestimated)"
+								vgcomp.Label = "Cα after a surcharge is removed, layer " + itoa(i+1)
+								vgcomp.Path = lp(i, "calphaReduced")
 								vgcomp.Unit = "–"
 								vgout.Components = append(vgout.Components, vgcomp)
 								vgn = &vugu.VGNode{Component: vgcomp}
@@ -2576,6 +2779,13 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 			}
 			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 			vgparent.AppendChild(vgn)
+		}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+		if c.tabled() != "" {
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
+			vgparent.AppendChild(vgn)
+			vgn.SetInnerHTML(c.tabled())
 		}
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)

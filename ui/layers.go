@@ -2,6 +2,9 @@ package ui
 
 import (
 	"strconv"
+	"strings"
+
+	"github.com/vugu/vugu"
 
 	"porelight/solver"
 	"porelight/solver/soil"
@@ -42,4 +45,46 @@ func (c *Layers) cv(i int) string {
 
 func (c *Layers) height() string {
 	return "Column height " + sig(solver.ColumnHeight(c.F.Draft()), 4) + " m"
+}
+
+// model is the consolidation model of the draft ("linear" when none is
+// named).
+func (c *Layers) model() string {
+	if m := c.F.Draft().Model; m != "" {
+		return m
+	}
+	return solver.ModelLinear
+}
+
+// setModel applies the model chosen in the select.
+func (c *Layers) setModel(e vugu.DOMEvent) {
+	v := e.PropString("target", "value")
+	if v == solver.ModelLinear {
+		v = "" // the default, as files without the field read
+	}
+	c.F.Edit("model", v)
+	c.Changed()
+}
+
+// modelNote says what the chosen model does with the table below.
+func (c *Layers) modelNote() string {
+	if c.model() == solver.ModelNonlinear {
+		return "mv, k and cv change with each element’s effective stress and void ratio; layers without e–log parameters keep their mv and k."
+	}
+	return "The e–log σ′ settlement is read off this solution; its times may differ from the curve’s on soft clay."
+}
+
+// tabled names the layers whose σ′p comes from a table against depth (set
+// in a project file; the page keeps it as it is).
+func (c *Layers) tabled() string {
+	var ns []string
+	for i, l := range c.F.Draft().Layers {
+		if l.ECurve != nil && len(l.ECurve.SigmaPProfile) > 0 {
+			ns = append(ns, strconv.Itoa(i+1))
+		}
+	}
+	if len(ns) == 0 {
+		return ""
+	}
+	return "Layer " + strings.Join(ns, ", ") + ": σ′p from a table against depth (from the project file, kept as is)."
 }

@@ -513,3 +513,43 @@ func TestPageWithoutResults(t *testing.T) {
 		t.Error("result tables or figures drawn without results")
 	}
 }
+
+// TestPageModelChoice: the model select switches the project to the
+// non-linear model, the summary then names it and shows its settlement
+// (the same figure a native solve of that project gives), and the new
+// soil fields take typed values by path.
+func TestPageModelChoice(t *testing.T) {
+	p := newPage(t, Sources{})
+	p.fire("model", "change", map[string]any{"value": "nonlinear"})
+	if m := p.root.form.Draft().Model; m != solver.ModelNonlinear {
+		t.Fatalf("model after the switch: %q", m)
+	}
+	p.typeInto("layers-1-ecurve-ck", "0.8")
+	p.typeInto("layers-0-ecurve-pop", "25")
+	p.typeInto("layers-0-ecurve-ocr", "")
+	d := p.root.form.Draft()
+	if c := d.Layers[1].ECurve; c == nil || c.Ck != 0.8 {
+		t.Fatalf("layer 2 curve after typing Ck: %+v", c)
+	}
+	if c := d.Layers[0].ECurve; c == nil || c.POP != 25 || c.OCR != 0 {
+		t.Fatalf("layer 1 curve after typing POP: %+v", c)
+	}
+	res, err := solver.Solve(p.root.form.Model(), nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got, want := p.attr("sum-settlement-elog", "data-value"), exact(*res.Summary.Settlement); got != want {
+		t.Errorf("sum-settlement-elog data-value = %s, want %s (native solve of the non-linear model)", got, want)
+	}
+	if !strings.Contains(p.html(), "Final settlement, non-linear model") {
+		t.Error("the summary does not name the non-linear model")
+	}
+	p.typeInto("layers-1-ecurve-ck", "-1")
+	if msg := p.root.form.Problem("layers[1].ecurve.ck"); msg == "" {
+		t.Error("no problem shown for Ck = −1")
+	}
+	p.fire("model", "change", map[string]any{"value": "linear"})
+	if m := p.root.form.Draft().Model; m != "" {
+		t.Errorf("model after switching back: %q, want empty (linear)", m)
+	}
+}
