@@ -2042,7 +2042,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 			vgparent.AppendChild(vgn)
 			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
 			vgparent.AppendChild(vgn)
-			vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth class=\"pl-num\"\x3E#\x3C/th\x3E\x3Cth\x3EName\x3C/th\x3E\x3Cth\x3EThickness\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eγsat\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkN/m³\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eγ moist\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkN/m³\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Ek\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em/s\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Emv\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E1/kPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Emv unloading\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E1/kPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Ecv (derived)\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em²/day\x3C/span\x3E\x3C/th\x3E\x3Cth class=\"pl-noprint\"\x3E\x3Cspan class=\"pl-vh\"\x3ERow actions\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
+			vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth class=\"pl-num\"\x3E#\x3C/th\x3E\x3Cth\x3EName\x3C/th\x3E\x3Cth\x3EThickness\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eγsat\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkN/m³\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eγ moist\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkN/m³\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Ek\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em/s\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Emv\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E1/kPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Ecv (derived)\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em²/day\x3C/span\x3E\x3C/th\x3E\x3Cth class=\"pl-noprint\"\x3E\x3Cspan class=\"pl-vh\"\x3ERow actions\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
 			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 			vgparent.AppendChild(vgn)
 			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
@@ -2239,35 +2239,6 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 						}
 						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 						vgparent.AppendChild(vgn)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-						vgparent.AppendChild(vgn)
-						{
-							vgparent := vgn
-							_ = vgparent
-							{
-								vgcompKey := vugu.MakeCompKey(0xE5D18531B16620E5^vgin.CurrentPositionHash(), vgiterkey)
-								// ask BuildEnv for prior instance of this specific component
-								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-								if vgcomp == nil {
-									// create new one if needed
-									vgcomp = new(Field)
-									vgin.BuildEnv.WireComponent(vgcomp)
-								}
-								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-								vgcomp.Bare = true
-								vgcomp.Changed = c.Changed
-								vgcomp.F = c.F
-								vgcomp.Hint = "Swelling modulus, used below the largest past effective stress; empty: the loading mv"
-								vgcomp.Label = "Coefficient of volume compressibility on unloading, layer " + itoa(i+1)
-								vgcomp.Path = lp(i, "mvUnload")
-								vgcomp.Unit = "1/kPa"
-								vgout.Components = append(vgout.Components, vgcomp)
-								vgn = &vugu.VGNode{Component: vgcomp}
-								vgparent.AppendChild(vgn)
-							}
-						}
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-						vgparent.AppendChild(vgn)
 						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-derived"}}}
 						vgparent.AppendChild(vgn)
 						vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-cv", i))
@@ -2383,7 +2354,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 		vgparent.AppendChild(vgn)
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "h3", Attr: []vugu.VGAttribute(nil)}
 		vgparent.AppendChild(vgn)
-		vgn.SetInnerHTML(vugu.HTML("Compression and creep \x3Cspan class=\"pl-sub\"\x3Ee–log σ′ model; leave a row empty to use mv only\x3C/span\x3E"))
+		vgn.SetInnerHTML(vugu.HTML("Compression \x3Cspan class=\"pl-sub\"\x3Ee–log σ′ model; leave a row empty to use mv only\x3C/span\x3E"))
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-row"}}}
@@ -2453,7 +2424,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 			vgparent.AppendChild(vgn)
 			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
 			vgparent.AppendChild(vgn)
-			vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth class=\"pl-num\"\x3E#\x3C/th\x3E\x3Cth\x3ELayer\x3C/th\x3E\x3Cth\x3Ee0\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECc\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECr\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eσ′p\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EOCR\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EPOP\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECk\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECα\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECα/Cc\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECα after unloading\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
+			vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth class=\"pl-num\"\x3E#\x3C/th\x3E\x3Cth\x3ELayer\x3C/th\x3E\x3Cth\x3Ee0\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECc\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECr\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eσ′p\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EOCR\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EPOP\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECk\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
 			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 			vgparent.AppendChild(vgn)
 			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
@@ -2491,7 +2462,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent := vgn
 							_ = vgparent
 							{
-								vgcompKey := vugu.MakeCompKey(0x4BB1BCEDD954B293^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0xE5D18531B16620E5^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -2519,7 +2490,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent := vgn
 							_ = vgparent
 							{
-								vgcompKey := vugu.MakeCompKey(0xEE5921351A1BA2B^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0x4BB1BCEDD954B293^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -2547,7 +2518,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent := vgn
 							_ = vgparent
 							{
-								vgcompKey := vugu.MakeCompKey(0x27C3C3F3C9153431^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0xEE5921351A1BA2B^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -2575,7 +2546,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent := vgn
 							_ = vgparent
 							{
-								vgcompKey := vugu.MakeCompKey(0x2FE8BCF883F8C090^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0x27C3C3F3C9153431^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -2587,7 +2558,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 								vgcomp.Bare = true
 								vgcomp.Changed = c.Changed
 								vgcomp.F = c.F
-								vgcomp.Hint = "Give σ′p or OCR, not both; neither means normally consolidated"
+								vgcomp.Hint = "Give one of σ′p, OCR and POP; none means normally consolidated"
 								vgcomp.Label = "Preconsolidation stress of layer " + itoa(i+1)
 								vgcomp.Path = lp(i, "ecurve.sigmaP")
 								vgcomp.Unit = "kPa"
@@ -2604,7 +2575,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent := vgn
 							_ = vgparent
 							{
-								vgcompKey := vugu.MakeCompKey(0xA93AB01435404191^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0x2FE8BCF883F8C090^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -2616,7 +2587,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 								vgcomp.Bare = true
 								vgcomp.Changed = c.Changed
 								vgcomp.F = c.F
-								vgcomp.Hint = "Give σ′p or OCR, not both; neither means normally consolidated"
+								vgcomp.Hint = "Give one of σ′p, OCR and POP; none means normally consolidated"
 								vgcomp.Label = "Overconsolidation ratio of layer " + itoa(i+1)
 								vgcomp.Path = lp(i, "ecurve.ocr")
 								vgcomp.Unit = "–"
@@ -2633,7 +2604,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent := vgn
 							_ = vgparent
 							{
-								vgcompKey := vugu.MakeCompKey(0xE0D022467C72EB79^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0xA93AB01435404191^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -2662,7 +2633,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent := vgn
 							_ = vgparent
 							{
-								vgcompKey := vugu.MakeCompKey(0xC6FF8B0F512B0270^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0xE0D022467C72EB79^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -2678,6 +2649,98 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 								vgcomp.Label = "Permeability change index of layer " + itoa(i+1)
 								vgcomp.Path = lp(i, "ecurve.ck")
 								vgcomp.Unit = "–"
+								vgout.Components = append(vgout.Components, vgcomp)
+								vgn = &vugu.VGNode{Component: vgcomp}
+								vgparent.AppendChild(vgn)
+							}
+						}
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+						vgparent.AppendChild(vgn)
+					}
+				}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+			}
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+			vgparent.AppendChild(vgn)
+		}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+		if c.tabled() != "" {
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
+			vgparent.AppendChild(vgn)
+			vgn.SetInnerHTML(c.tabled())
+		}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "h3", Attr: []vugu.VGAttribute(nil)}
+		vgparent.AppendChild(vgn)
+		vgn.SetInnerHTML(vugu.HTML("Unloading and secondary compression"))
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "creep"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid"}}}
+		vgparent.AppendChild(vgn)
+		{
+			vgparent := vgn
+			_ = vgparent
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+			vgparent.AppendChild(vgn)
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
+			vgparent.AppendChild(vgn)
+			vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth class=\"pl-num\"\x3E#\x3C/th\x3E\x3Cth\x3ELayer\x3C/th\x3E\x3Cth\x3Emv unloading\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E1/kPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECα\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECα/Cc\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECα after unloading\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+			vgparent.AppendChild(vgn)
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
+			vgparent.AppendChild(vgn)
+			{
+				vgparent := vgn
+				_ = vgparent
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+				for i := range c.F.Draft().Layers {
+					var vgiterkey interface{} = i
+					_ = vgiterkey
+					i := i
+					_ = i
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
+					vgparent.AppendChild(vgn)
+					{
+						vgparent := vgn
+						_ = vgparent
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+						vgparent.AppendChild(vgn)
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-num"}}}
+						vgparent.AppendChild(vgn)
+						vgn.SetInnerHTML(i + 1)
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+						vgparent.AppendChild(vgn)
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-name"}}}
+						vgparent.AppendChild(vgn)
+						vgn.SetInnerHTML(c.F.Draft().Layers[i].Name)
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+						vgparent.AppendChild(vgn)
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+						vgparent.AppendChild(vgn)
+						{
+							vgparent := vgn
+							_ = vgparent
+							{
+								vgcompKey := vugu.MakeCompKey(0xC6FF8B0F512B0270^vgin.CurrentPositionHash(), vgiterkey)
+								// ask BuildEnv for prior instance of this specific component
+								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+								if vgcomp == nil {
+									// create new one if needed
+									vgcomp = new(Field)
+									vgin.BuildEnv.WireComponent(vgcomp)
+								}
+								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+								vgcomp.Bare = true
+								vgcomp.Changed = c.Changed
+								vgcomp.F = c.F
+								vgcomp.Hint = "Swelling modulus, used below the largest past effective stress; empty: the loading mv"
+								vgcomp.Label = "Coefficient of volume compressibility on unloading, layer " + itoa(i+1)
+								vgcomp.Path = lp(i, "mvUnload")
+								vgcomp.Unit = "1/kPa"
 								vgout.Components = append(vgout.Components, vgcomp)
 								vgn = &vugu.VGNode{Component: vgcomp}
 								vgparent.AppendChild(vgn)
@@ -2779,13 +2842,6 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 			}
 			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 			vgparent.AppendChild(vgn)
-		}
-		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-		vgparent.AppendChild(vgn)
-		if c.tabled() != "" {
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
-			vgparent.AppendChild(vgn)
-			vgn.SetInnerHTML(c.tabled())
 		}
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)

@@ -93,7 +93,7 @@ func (c *Summary) rows() []sumRow {
 	if s.Model == solver.ModelNonlinear {
 		// The headline figures come from the non-linear solution: the
 		// e–log settlement, and the times on its curve.
-		rows[0].Note = "for comparison; the non-linear model below is the one solved"
+		rows[0].Note = "for comparison only: the non-linear model is solved"
 		rows[1].Label = "Final settlement, non-linear model"
 		if s.Settlement != nil {
 			rows[1].Value, rows[1].Exact = mm(*s.Settlement), exact(*s.Settlement)
