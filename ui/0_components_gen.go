@@ -5435,7 +5435,40 @@ func (c *Tables) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 									vgparent.AppendChild(vgn)
 									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
 									vgparent.AppendChild(vgn)
-									vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth\x3ELayer\x3C/th\x3E\x3Cth\x3Emv used\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E1/kPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Ecv\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em²/day\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EFrom mv\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Emm\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Ee–log σ′\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Emm\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ESecondary\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Emm\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
+									{
+										vgparent := vgn
+										_ = vgparent
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
+										vgparent.AppendChild(vgn)
+										{
+											vgparent := vgn
+											_ = vgparent
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(vugu.HTML("Layer"))
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(vugu.HTML("mv used\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E1/kPa\x3C/span\x3E"))
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(vugu.HTML("cv\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em²/day\x3C/span\x3E"))
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(vugu.HTML("From mv\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Emm\x3C/span\x3E"))
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(vugu.HTML("e–log σ′\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Emm\x3C/span\x3E"))
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(c.modelHead())
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(vugu.HTML("End of primary\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Eday\x3C/span\x3E"))
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(vugu.HTML("Secondary\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Emm\x3C/span\x3E"))
+										}
+									}
 									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 									vgparent.AppendChild(vgn)
 									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
@@ -5472,6 +5505,12 @@ func (c *Tables) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
 												vgparent.AppendChild(vgn)
 												vgn.SetInnerHTML(optMM(l.SettlementElog))
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(sig(l.Settlement*1000, 3))
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(optSig(l.SecondaryStart, 4))
 												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
 												vgparent.AppendChild(vgn)
 												vgn.SetInnerHTML(optMM(l.Secondary))
