@@ -48,6 +48,8 @@ type nonlinear struct {
 	m      *fem.Mesh
 	lumped bool
 	tol    float64
+	kLo    float64 // MinK and MaxK as conductivities k/γw, m²/(kPa·day)
+	kHi    float64
 
 	// Per element.
 	pts     []soil.Point // the e–log state (curved elements)
@@ -86,6 +88,7 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 	ne, n := m.Elements(), m.Nodes()
 	nl := &nonlinear{tr: tr, m: m, lumped: m.Order == 1, pts: pts, curved: curvedLaw,
 		tol: NonlinearTolerance * math.Max(scale, 1e-3), negativeAt: math.NaN()}
+	nl.kLo, nl.kHi = MinK*soil.SecondsPerDay/c.gw, MaxK*soil.SecondsPerDay/c.gw
 	f := func() []float64 { return make([]float64, ne) }
 	nl.mv, nl.mvu, nl.sig, nl.peak, nl.strain = f(), f(), f(), f(), f()
 	nl.k0, nl.ck, nl.cm, nl.cc = f(), f(), f(), f()
@@ -111,10 +114,7 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 // law within what the bounds allow k itself (MinK … MaxK): far outside
 // them the law has left the soil it describes, and k would under- or
 // overflow.
-func (nl *nonlinear) clampK(c float64) float64 {
-	gw := nl.tr.c.gw
-	return min(max(c, MinK*soil.SecondsPerDay/gw), MaxK*soil.SecondsPerDay/gw)
-}
+func (nl *nonlinear) clampK(c float64) float64 { return min(max(c, nl.kLo), nl.kHi) }
 
 // mean is the mean over element e of the finite element field u: the
 // average of the end nodes (linear) or Simpson's rule (quadratic), both
@@ -136,7 +136,7 @@ func (nl *nonlinear) coefficients(theta float64, sigma, u []float64) {
 		if nl.curved[e] {
 			from, pk := p.Stress(), p.Peak()
 			cu := &p.Curve
-			ref := math.Max(from, soil.MinEffective)
+			ref := max(from, soil.MinEffective)
 			// The tangent index in the direction of the move; also the
 			// floor that keeps the capacity positive when Cr = 0.
 			idx := cu.Cr
@@ -150,7 +150,7 @@ func (nl *nonlinear) coefficients(theta float64, sigma, u []float64) {
 				de = p.Toward(to)
 				mvT = de / ((1 + cu.E0) * d)
 			}
-			nl.cm[e] = math.Max(mvT, mvMin)
+			nl.cm[e] = max(mvT, mvMin)
 			nl.cc[e] = nl.k0[e]
 			if nl.ck[e] > 0 {
 				nl.cc[e] = nl.clampK(soil.PermeabilityAfter(nl.k0[e], theta*de, nl.ck[e]))
@@ -163,7 +163,7 @@ func (nl *nonlinear) coefficients(theta float64, sigma, u []float64) {
 				mvT = nl.mvu[e]
 			}
 		}
-		if d := to - nl.sig[e]; math.Abs(d) > 1e-9*math.Max(math.Abs(nl.sig[e]), soil.MinEffective) {
+		if d := to - nl.sig[e]; math.Abs(d) > 1e-9*max(math.Abs(nl.sig[e]), soil.MinEffective) {
 			s, _ := soil.LinearCompress(nl.mv[e], nl.mvu[e], nl.sig[e], to, nl.peak[e])
 			mvT = s / d
 		}
@@ -224,11 +224,12 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 		// ω ← −ω (r₀·(r − r₀))/|r − r₀|², which halves the update where
 		// the iterates alternate (a stress crossing σ'p, where the slope
 		// jumps from Cr to Cc) and lengthens it where they creep.
+		last := change
 		change = 0
 		num, den := 0.0, 0.0
 		for i := tr.lo; i < tr.hi; i++ {
 			r := nl.rhs[i] - nl.u1[i]
-			change = math.Max(change, math.Abs(r))
+			change = max(change, math.Abs(r))
 			if it > 0 {
 				d := r - nl.r0[i]
 				num += nl.r0[i] * d
@@ -243,7 +244,14 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 			nl.u1[i] += omega * nl.r0[i]
 		}
 		nl.iterations++
+		// Converged when the change, or the error it implies, is within
+		// the tolerance: iterates contracting by ρ (the ratio of the last
+		// two changes) are within ρ/(1−ρ) of this change from the limit.
 		if change <= nl.tol {
+			break
+		}
+		if rho := change / last; it > 0 && rho < 0.5 && change*rho/(1-rho) <= nl.tol {
+			change = change * rho / (1 - rho)
 			break
 		}
 	}
@@ -318,7 +326,7 @@ func (nl *nonlinear) layerSettlements(dst []float64) {
 // then the final state) and returns each layer's final settlement, m: the
 // denominator of Us.
 func (nl *nonlinear) drained(bps []breakpoint, sigInf, uInf []float64) []float64 {
-	cp := &nonlinear{tr: nl.tr, m: nl.m, curved: nl.curved, mv: nl.mv, mvu: nl.mvu, ck: nl.ck,
+	cp := &nonlinear{tr: nl.tr, m: nl.m, curved: nl.curved, mv: nl.mv, mvu: nl.mvu, ck: nl.ck, kLo: nl.kLo, kHi: nl.kHi,
 		k0:     append([]float64(nil), nl.k0...),
 		pts:    append([]soil.Point(nil), nl.pts...),
 		sig:    append([]float64(nil), nl.sig...),
@@ -341,7 +349,7 @@ func (nl *nonlinear) drained(bps []breakpoint, sigInf, uInf []float64) []float64
 // remaining excess pressure still adds as it drains. The elements are
 // left as they are.
 func (nl *nonlinear) projected(sigInf, uInf []float64) []float64 {
-	cp := &nonlinear{tr: nl.tr, m: nl.m, curved: nl.curved, mv: nl.mv, mvu: nl.mvu, ck: nl.ck,
+	cp := &nonlinear{tr: nl.tr, m: nl.m, curved: nl.curved, mv: nl.mv, mvu: nl.mvu, ck: nl.ck, kLo: nl.kLo, kHi: nl.kHi,
 		k0:     append([]float64(nil), nl.k0...),
 		pts:    append([]soil.Point(nil), nl.pts...),
 		sig:    append([]float64(nil), nl.sig...),
