@@ -134,7 +134,7 @@ func (k *consolidation) sublayers() {
 		}
 		ec := l.ECurve
 		pw.check(li, ec, zc, s0)
-		k.points[e] = soil.NewPoint(curveOf(ec), z1-z0, s0, sigmaPAt(ec, zc, s0))
+		k.points[e] = soil.NewPoint(curveOf(ec), z1-z0, s0, PreconsolidationAt(ec, zc, s0))
 		k.curved[e] = true
 	}
 	if !k.anyCurve {
@@ -180,7 +180,7 @@ func (k *consolidation) deriveMv() {
 			zc := k.c.tops[i] + l.Thickness/2
 			s0 := math.Max(m.Interpolate(k.st.Effective, zc), soil.MinEffective)
 			ec := l.ECurve
-			k.mv[i] = soil.TangentMv(curveOf(ec), s0, sigmaPAt(ec, zc, s0))
+			k.mv[i] = soil.TangentMv(curveOf(ec), s0, PreconsolidationAt(ec, zc, s0))
 		}
 		k.warn(fmt.Sprintf("layers[%d].mv", i), fmt.Sprintf("mv derived from the e–log curve: %.3g 1/kPa", k.mv[i]))
 	}

@@ -6,18 +6,22 @@ import (
 	"porelight/solver/soil"
 )
 
-// sigmaPAt is the preconsolidation stress of the curve ec at depth z,
-// where the in-situ effective stress is s0, kPa: from the profile, from
-// POP (σ'0 + POP), or from σ'p or OCR (soil.Preconsolidation); never
-// below s0.
-func sigmaPAt(ec *ECurve, z, s0 float64) float64 {
+// PreconsolidationAt is the preconsolidation stress σ'p of the curve c
+// at depth z (m below the top), where the in-situ effective stress is s0,
+// kPa: from c.SigmaPProfile (linear between points, constant beyond), or
+// s0 + c.POP, or c.SigmaP, or c.OCR·s0, or s0 (normally consolidated), in
+// that order of precedence (Validate allows only one of them); never
+// below s0, which is raised to soil.MinEffective first. The solver uses
+// it for every element; the page draws it.
+func PreconsolidationAt(c *ECurve, z, s0 float64) float64 {
+	s0 = max(s0, soil.MinEffective)
 	switch {
-	case len(ec.SigmaPProfile) > 0:
-		return soil.Preconsolidation(profileAt(ec.SigmaPProfile, z, 0), 0, s0)
-	case ec.POP > 0:
-		return soil.Preconsolidation(s0+ec.POP, 0, s0)
+	case len(c.SigmaPProfile) > 0:
+		return soil.Preconsolidation(profileAt(c.SigmaPProfile, z, 0), 0, s0)
+	case c.POP > 0:
+		return soil.Preconsolidation(s0+c.POP, 0, s0)
 	}
-	return soil.Preconsolidation(ec.SigmaP, ec.OCR, s0)
+	return soil.Preconsolidation(c.SigmaP, c.OCR, s0)
 }
 
 // lowSigmaP is the preconsolidation stress, kPa, below which an OCR near

@@ -254,6 +254,31 @@ func PiezometersFitFigure(p *solver.Project, r, fit *solver.Result, w, h int) *F
 	return f
 }
 
+// preconsolidation is σ'p against depth in every layer with an e–log
+// curve (solver.PreconsolidationAt at the steady effective stress), at
+// the nodes of the steady state, with a gap (NaN) between layers so that
+// each layer's line stands alone.
+func preconsolidation(p *solver.Project, st *solver.Steady) (xs, ys []float64) {
+	if p == nil || len(st.Layers) != len(p.Layers) {
+		return nil, nil
+	}
+	for i, l := range p.Layers {
+		if l.ECurve == nil {
+			continue
+		}
+		top, bottom := st.Layers[i].Top, st.Layers[i].Bottom
+		for j, z := range st.Depth {
+			if z < top || z > bottom || j >= len(st.Effective) {
+				continue
+			}
+			xs = append(xs, solver.PreconsolidationAt(l.ECurve, z, st.Effective[j]))
+			ys = append(ys, z)
+		}
+		xs, ys = append(xs, math.NaN()), append(ys, math.NaN())
+	}
+	return xs, ys
+}
+
 // fitDash marks a back-fitted companion of a predicted curve.
 const fitDash = "7 2 1.5 2"
 
@@ -293,6 +318,9 @@ func SteadyFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
 	f.addSeries(panels[1], clips[1], "Pore pressure u", styleAt(1), st.Pore, st.Depth, readZ("u", " kPa"))
 	f.addSeries(panels[1], clips[1], "Total stress σv", styleAt(2), st.Total, st.Depth, readZ("σv", " kPa"))
 	f.addSeries(panels[1], clips[1], "Effective stress σ′v", styleAt(3), st.Effective, st.Depth, readZ("σ′v", " kPa"))
+	if xs, ys := preconsolidation(p, st); len(xs) > 0 {
+		f.addSeries(panels[1], clips[1], "Preconsolidation σ′p", Style{Stroke: styleAt(3).Stroke, Dash: "5 3", Width: styleAt(3).Width}, xs, ys, readZ("σ′p", " kPa"))
+	}
 	f.legend(f.W-legendW+8, depthTop+8, legendW-12, int((f.H-depthTop-20)/16), f.allSeries())
 	return f
 }
