@@ -97,6 +97,34 @@ func benchSoftClay(b *testing.B, model string) {
 	b.ReportMetric(float64(r.Stats.Iterations)/float64(r.Stats.Steps), "iter/step")
 }
 
+// BenchmarkDrains is BenchmarkLargeColumn at 10,000 elements with band
+// drains (smear and well resistance) through the whole column, without
+// the reference solve; BenchmarkNoDrains is the same column without them.
+func BenchmarkDrains(b *testing.B) {
+	benchDrains(b, &Drains{Pattern: "triangular", Spacing: 1.5, Width: 0.1, Thickness: 0.004, SmearRatio: 3, SmearK: 3, Qw: 3e-6})
+}
+
+// BenchmarkNoDrains is BenchmarkDrains without the drains.
+func BenchmarkNoDrains(b *testing.B) { benchDrains(b, nil) }
+
+func benchDrains(b *testing.B, d *Drains) {
+	p := &Project{
+		Format: Format,
+		Layers: []Layer{{Thickness: 100, GammaSat: 18, K: 1e-9, Mv: 1e-3, KhKv: 2}},
+		Top:    Boundary{Drained: true}, Bottom: Boundary{Drained: true},
+		Loads:    []Load{{Start: 0, Q: 100}},
+		Mesh:     MeshSettings{MaxSize: 100.0 / 10_000},
+		Stepping: Stepping{FirstStep: 10, Growth: 1, EndTime: 10_000, DampedSteps: -1},
+		Drains:   d,
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := Solve(p, &Options{NoDrainReference: true}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
 // demoProject decodes testdata/demo.json.
 func demoProject(tb testing.TB) *Project {
 	tb.Helper()

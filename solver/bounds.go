@@ -103,6 +103,31 @@ const (
 	MinMaxSize     = 1e-6
 	MaxDampedSteps = MaxSteps
 
+	// Drains. MinCh and MaxCh bound layers[i].ch, m²/day (soft clays
+	// 0.5–30 m²/year, about 0.001–0.1 m²/day; a sand layer the drains
+	// cross may reach 10⁶); MinKhKv and MaxKhKv bound layers[i].khKv
+	// (1–2 for most clays, 3–15 for varved ones). MinDrainSize and
+	// MaxDrainSize bound drains.diameter, .width and .thickness, m (band
+	// drains 100 × 3–6 mm, sand drains 0.2–0.6 m); MinSpacing and
+	// MaxSpacing bound drains.spacing, m (usually 0.8–4 m). MaxSmearRatio
+	// bounds drains.smearRatio and MaxSmearK drains.smearK (2–5 and 1–10
+	// are usual). MinQw and MaxQw bound drains.qw, m³/s (band drains
+	// 100–800 m³/year, about 3·10⁻⁶–2.5·10⁻⁵ m³/s). With them the sink
+	// rate 8ch/(De²μ) stays below 10¹¹ per day and μ, at most about
+	// 10²³ with the well term, stays finite.
+	MinCh         = 1e-9
+	MaxCh         = 1e7
+	MinKhKv       = 0.01
+	MaxKhKv       = 1000.0
+	MinDrainSize  = 1e-4
+	MaxDrainSize  = 10.0
+	MinSpacing    = 1e-2
+	MaxSpacing    = 100.0
+	MaxSmearRatio = 100.0
+	MaxSmearK     = 1000.0
+	MinQw         = 1e-12
+	MaxQw         = 1.0
+
 	// MaxPlateReading bounds a settlement plate's readings, m, and
 	// MaxPressureReading a piezometer's, kPa, in absolute value.
 	MaxPlateReading    = 1e3

@@ -16,7 +16,7 @@ type consolidationCase struct {
 	Working string          `json:"working"`
 	Project json.RawMessage `json:"project"`
 	Expect  []struct {
-		Quantity string  `json:"quantity"` // t50, t90, tTarget, settlementLinear, settlementElog, us, up, layers[i].settlementLinear|settlementElog
+		Quantity string  `json:"quantity"` // t50, t90, tTarget, settlementLinear, settlementElog, us, up, uv, uh (drains), layers[i].settlementLinear|settlementElog
 		T        float64 `json:"t"`        // for series quantities, days
 		Value    float64 `json:"value"`
 		Tol      float64 `json:"tol"`
@@ -108,6 +108,19 @@ func quantity(r *Result, name string, t float64) (float64, error) {
 			}
 		}
 		return 0, fmt.Errorf("no series point at t = %g (list it in times)", t)
+	case "uv", "uh":
+		if r.Drains == nil {
+			return 0, fmt.Errorf("no drain results")
+		}
+		for _, a := range r.Drains.AtTimes {
+			if math.Abs(a.Time-t) <= 1e-9*math.Max(1, t) {
+				if name == "uv" {
+					return a.Uv, nil
+				}
+				return a.Uh, nil
+			}
+		}
+		return 0, fmt.Errorf("no output time t = %g (list it in times)", t)
 	}
 	var i int
 	var field string

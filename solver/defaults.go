@@ -171,11 +171,13 @@ func HasConsolidation(p *Project) bool {
 func elementCount(p *Project) int {
 	ms := ResolveMesh(p)
 	n := 0
+	breaks, top := drainBreaks(p), 0.0
 	for _, l := range p.Layers {
 		if l.Thickness/ms.MaxSize > MaxElements {
 			return MaxElements + 1
 		}
-		n += fem.Divisions(l.Thickness, ms.MaxSize, ms.MinPerLayer)
+		n += fem.DivisionsBreaks(top, l.Thickness, breaks, ms.MaxSize, ms.MinPerLayer)
+		top += l.Thickness
 		if n > MaxElements {
 			return MaxElements + 1
 		}

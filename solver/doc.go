@@ -209,6 +209,51 @@
 // consolidation (Gibson et al. 1967) and creep beyond Cα after primary
 // are not covered.
 //
+// # Vertical drains
+//
+// Project.Drains puts a pattern of vertical drains (triangular or square,
+// spacing s) from Drains.Top down to the tip (a depth, the base of a
+// layer, or the base of the column). Each drain drains its unit cell
+// (Barron 1948), of diameter De = 1.050 s (triangular) or 1.128 s
+// (square), equal plan area; a band drain a × b counts as a round drain
+// of diameter 2(a+b)/π (Hansbo 1979) or (a+b)/2 (Rixner et al. 1986).
+// Under equal strain the cell-averaged excess pore pressure ū obeys
+//
+//	mv ∂ū/∂t = ∂/∂z((k/γw) ∂ū/∂z) − mv (8 ch / (De² μ(z))) ū + mv ∂σ/∂t
+//
+// where the drains reach, and the vertical equation alone below the tip.
+// μ is the unit cell's factor with a smear zone (ds/dw, kh/ks) and well
+// resistance (qw, discharge at the top, the base or both), derived as in
+// Hansbo (1981) and kept exact in n = De/dw (package solver/drain): with
+// no smear and no well resistance it is Barron's F(n); with well
+// resistance it grows along the drain away from its outlet. In weak form
+// the sink adds ∫ w mv (8 ch/(De² μ)) u dz to the conductivity matrix
+// (lumped by rows for linear elements, like the capacity): the band and
+// the cost of a step do not change, and the mesh has nodes at the drains'
+// ends. ch is a layer's Ch, or KhKv·cv (kh = KhKv·k); the well term uses
+// kh = ch mv γw.
+//
+// The drains discharge freely at their outlet and carry its pressure
+// change ud(t) (zero unless the outlet end has a pressure history): the
+// sink is mv (8 ch/(De² μ)) (ū − ud). Since the conductivity matrix
+// annihilates a uniform shift, each step is taken on ū − ud with the
+// source σ − ud. The final state is then ud(∞) everywhere, so a history
+// is allowed only at the outlet, with the other end undrained or holding
+// the same history. Result.Drains gives the cell, μ along the drains, and the
+// degrees Uv (vertical flow alone, no drains) and Uh (radial flow to the
+// drains alone, no vertical flow), two more solves on the same mesh and
+// steps, relative to the same final state as Us; under one instantaneous
+// load with fully penetrating drains and one μ they obey Carrillo's
+// (1942) 1 − U = (1 − Uv)(1 − Uh). Not modelled: drain
+// clogging, folding or crimping, installation effects beyond the smear
+// zone, and drains that lose contact with the blanket.
+//
+// DrainSpacing answers Drains.Design: the largest spacing whose Us reaches
+// Design.Degree by Design.Time, by bisection in log spacing on the real
+// solve (Us against the final state of the whole load history, as the
+// summary's), with a table of the degree and the time to it for spacings
+// from half to twice the answer (SpacingTable, DegreeAt).
+//
 // # Field monitoring
 //
 // Project.Monitoring holds settlement plates and piezometer records, each a
@@ -240,8 +285,13 @@
 //	  "loads":  [{"start": 0, "ramp": 30, "q": 60}, {"start": 200, "q": -20}],
 //	  "times":  [1, 10, 30, 100, 365, 1000],
 //	  "piezometers": [2.5, 6.0],
-//	  "mesh": {"order": 1, "maxSize": 0.1, "minPerLayer": 4}
+//	  "mesh": {"order": 1, "maxSize": 0.1, "minPerLayer": 4},
+//	  "drains": {"pattern": "triangular", "spacing": 1.5, "width": 0.1, "thickness": 0.004,
+//	             "equivalent": "perimeter", "smearRatio": 3, "smearK": 3, "qw": 3e-6,
+//	             "discharge": "top", "depth": 12}
 //	}
+//
+// A layer may also give "ch" (m²/day) or "khKv" for the drains.
 //
 // # Input contract
 //
@@ -325,6 +375,28 @@
 //	monitoring.piezometers[i].depth m 0 … column height               ErrNegative, ErrOutOfRange
 //	monitoring.piezometers[i]…value kPa −10⁶ … 10⁶                    ErrOutOfRange
 //	monitoring.*              see Monitoring and its validation
+//	layers[i].ch              m²/day  10⁻⁹ … 10⁷ (absent: khKv·cv)    ErrNotPositive, ErrOutOfRange
+//	layers[i].khKv            –       0.01 … 1000 (absent: 1); not    ErrNotPositive, ErrOutOfRange,
+//	                                  with ch                         ErrConflict
+//	drains.pattern            –       "triangular" or "square"        ErrRequired, ErrOutOfRange
+//	drains.spacing            m       0.01 … 100, cell wider than the ErrNotPositive, ErrOutOfRange
+//	                                  drain
+//	drains.diameter           m       10⁻⁴ … 10; or width, thickness  ErrNotPositive, ErrRequired, ErrConflict
+//	drains.width, .thickness  m       10⁻⁴ … 10, thickness ≤ width    ErrNotPositive, ErrOutOfRange
+//	drains.equivalent         –       "perimeter" or "mean" (band)    ErrOutOfRange, ErrConflict
+//	drains.smearRatio         –       1 … 100, smear zone inside the  ErrOutOfRange
+//	                                  cell (absent: 1)
+//	drains.smearK             –       1 … 1000 (absent: 1)            ErrOutOfRange
+//	drains.qw                 m³/s    10⁻¹² … 1 (absent: none)        ErrNotPositive, ErrOutOfRange
+//	drains.discharge          –       "top", "base", "both"; base     ErrOutOfRange, ErrConflict
+//	                                  needs drains to the base
+//	drains.top                m       ≥ 0, above the tip              ErrNegative, ErrOutOfRange
+//	drains.depth              m       0 … column height               ErrNotPositive, ErrOutOfRange
+//	drains.toLayer            –       a layer index; not with depth   ErrOutOfRange, ErrConflict
+//	drains.design.degree      –       0 < value < 1 (absent: 0.9)     ErrOutOfRange
+//	drains.design.time        day     > 0 … MaxTime                   ErrNotPositive, ErrOutOfRange
+//	top|bottom.excess         –       with drains: at the outlet only ErrConflict
+//	                                  (or the same at both ends)
 //
 // Inside the bounds every output of Solve is finite: Solve checks it and
 // would refuse a non-finite one with ErrNumerical at the field most
@@ -345,12 +417,13 @@
 // # Scope
 //
 // The column is saturated, one-dimensional and small strain; flow follows
-// Darcy's law; in the linear model k and mv are constant in each layer
-// and in time (with an optional swelling mv), in the non-linear model they
-// follow each element's state on the e–log σ' curve. Results are
-// not valid for unsaturated soil, large strains, creep-dominated soils
-// (creep beyond secondary compression with Cα after primary),
-// two- or three-dimensional flow or stress spread, or loads that fail the
+// Darcy's law (toward drains: the unit cell under equal strain); in the
+// linear model k and mv are constant in each layer and in time (with an
+// optional swelling mv), in the non-linear model they follow each
+// element's state on the e–log σ' curve. Results are not valid for
+// unsaturated soil, large strains, creep-dominated soils (creep beyond
+// secondary compression with Cα after primary), two- or
+// three-dimensional flow or stress spread, or loads that fail the
 // ground. They are estimates for qualified engineers; local codes and
 // licensed engineering practice govern any design.
 package solver

@@ -57,6 +57,9 @@ type Project struct {
 	// (effective stress, largest past effective stress, void ratio) and
 	// follows the layer's e–log σ' curve and permeability law step by step.
 	Model string `json:"model,omitempty"`
+	// Drains, when given, is a pattern of vertical drains over a depth
+	// range of the column; nil means none.
+	Drains *Drains `json:"drains,omitempty"`
 	// Mesh and Stepping control the numerics; zero values are defaults.
 	Mesh     MeshSettings `json:"mesh,omitzero"`
 	Stepping Stepping     `json:"stepping,omitzero"`
@@ -114,6 +117,13 @@ type Layer struct {
 	// while); without it the full Cα is used and the solve warns that the
 	// rate is then overestimated. ≥ 0.
 	CalphaReduced float64 `json:"calphaReduced,omitempty"`
+	// Ch is the coefficient of consolidation for horizontal flow,
+	// m²/day, read only where drains reach. Zero means KhKv × cv.
+	Ch float64 `json:"ch,omitempty"`
+	// KhKv is the ratio of horizontal to vertical permeability, > 0, used
+	// when Ch is not given (ch = KhKv·cv, kh = KhKv·k). Zero means 1.
+	// Give Ch or KhKv, not both.
+	KhKv float64 `json:"khKv,omitempty"`
 }
 
 // ECurve holds the parameters of the e–log σ' compression model.
@@ -258,4 +268,59 @@ type Reading struct {
 	T     float64 `json:"t,omitempty"`
 	Date  string  `json:"date,omitempty"`
 	Value float64 `json:"value"`
+}
+
+// Drains is a pattern of vertical drains (prefabricated band drains or
+// sand drains) installed from depth Top to the tip. Each drain drains the
+// unit cell around it (see the package documentation).
+type Drains struct {
+	// Pattern is "triangular" or "square".
+	Pattern string `json:"pattern"`
+	// Spacing is the distance between neighbouring drains, m, > 0.
+	Spacing float64 `json:"spacing"`
+	// Diameter is the diameter of a round drain, m. Give Diameter, or
+	// Width and Thickness of a band drain.
+	Diameter float64 `json:"diameter,omitempty"`
+	// Width and Thickness are the band drain's cross-section a × b, m.
+	Width     float64 `json:"width,omitempty"`
+	Thickness float64 `json:"thickness,omitempty"`
+	// Equivalent is how a band drain's equivalent diameter is taken:
+	// "perimeter", 2(a+b)/π (Hansbo 1979), or "mean", (a+b)/2 (Rixner et
+	// al. 1986). Empty means "perimeter".
+	Equivalent string `json:"equivalent,omitempty"`
+	// SmearRatio is ds/dw, the smear zone's diameter over the drain's,
+	// ≥ 1. Zero means 1 (no smear).
+	SmearRatio float64 `json:"smearRatio,omitempty"`
+	// SmearK is kh/ks, the undisturbed over the smeared horizontal
+	// permeability, ≥ 1. Zero means 1 (no smear).
+	SmearK float64 `json:"smearK,omitempty"`
+	// Qw is the drain's discharge capacity, m³/s, > 0. Zero means no well
+	// resistance (an infinitely permeable drain).
+	Qw float64 `json:"qw,omitempty"`
+	// Discharge is where the drains let their water out: "top", "base"
+	// or "both". Empty means "top".
+	Discharge string `json:"discharge,omitempty"`
+	// Top is the depth where the drains start, m ≥ 0. Zero means the top
+	// of the column.
+	Top float64 `json:"top,omitempty"`
+	// Depth is the depth of the drains' tip, m. Give Depth or ToLayer, or
+	// neither: the drains then reach the base of the column.
+	Depth float64 `json:"depth,omitempty"`
+	// ToLayer, when given, puts the tip at the base of layer ToLayer
+	// (0-based).
+	ToLayer *int `json:"toLayer,omitempty"`
+	// Design, when given, is the question of the design helper
+	// (DrainSpacing): which spacing reaches a degree by a time. Solve
+	// ignores it.
+	Design *DrainDesign `json:"design,omitempty"`
+}
+
+// DrainDesign asks for the spacing that reaches a degree of
+// consolidation by a time.
+type DrainDesign struct {
+	// Degree is the target average degree of consolidation (by
+	// settlement), a fraction in (0, 1). Zero means 0.9.
+	Degree float64 `json:"degree,omitempty"`
+	// Time is when it must be reached, days after day 0, > 0.
+	Time float64 `json:"time"`
 }

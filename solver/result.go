@@ -16,6 +16,8 @@ type Result struct {
 	Consolidation *Consolidation `json:"consolidation,omitempty"`
 	// Summary collects the headline figures.
 	Summary Summary `json:"summary"`
+	// Drains is nil without drains or without consolidation.
+	Drains *DrainResult `json:"drains,omitempty"`
 	// Warnings are conditions the results do not cover well; they never
 	// stop a solve.
 	Warnings []Warning `json:"warnings"`

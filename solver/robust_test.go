@@ -463,6 +463,36 @@ func randomProject(rng *rand.Rand) *Project {
 	}
 	p.Stepping.DampedSteps = rng.IntN(10) - 2
 	if rng.IntN(4) == 0 {
+		d := &Drains{Pattern: []string{"triangular", "square"}[rng.IntN(2)], Spacing: edge(1, MaxSpacing),
+			SmearRatio: edge(1, 5), SmearK: edge(1, MaxSmearK), Discharge: []string{"", "top", "both"}[rng.IntN(3)]}
+		if d.Discharge == "both" {
+			d.Discharge = "" // "both" needs the drains to the base: left to the rule tests
+		}
+		if rng.IntN(2) == 0 {
+			d.Diameter = edge(MinDrainSize, 0.2)
+		} else {
+			d.Width = edge(0.01, 0.2)
+			d.Thickness = d.Width * edge(0.01, 1)
+		}
+		if rng.IntN(2) == 0 {
+			d.Qw = edge(MinQw, MaxQw)
+		}
+		if rng.IntN(2) == 0 {
+			d.Depth = height * (0.1 + 0.9*rng.Float64())
+		}
+		for i := range p.Layers {
+			switch rng.IntN(3) {
+			case 0:
+				p.Layers[i].Ch = edge(MinCh, MaxCh)
+			case 1:
+				p.Layers[i].KhKv = edge(MinKhKv, MaxKhKv)
+			}
+		}
+		if len(p.Top.Excess)+len(p.Bottom.Excess) == 0 {
+			p.Drains = d
+		}
+	}
+	if rng.IntN(4) == 0 {
 		p.Monitoring = &Monitoring{
 			Plates: []Plate{{Readings: []Reading{{T: edge(0, 10), Value: sym(MaxPlateReading)}, {T: edge(20, MaxTime), Value: sym(MaxPlateReading)}}}},
 			Piezometers: []PiezometerRecord{{Depth: height * rng.Float64(),

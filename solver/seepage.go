@@ -15,7 +15,11 @@ type column struct {
 	gw     float64
 	m      *fem.Mesh
 	height float64
-	tops   []float64 // depth of the top of each layer, plus the base
+	tops   []float64  // depth of the top of each layer, plus the base
+	drains *DrainCell // nil without drains
+	// radialOnly solves the consolidation with the drains alone: no
+	// vertical flow and no drained end (drainReference's Uh).
+	radialOnly bool
 }
 
 // newColumn fills in the defaults of a validated project and meshes it.
@@ -29,7 +33,8 @@ func newColumn(p *Project) *column {
 	}
 	c.height = c.tops[len(p.Layers)]
 	ms := ResolveMesh(p)
-	c.m = fem.NewMesh(th, ms.Order, ms.MaxSize, ms.MinPerLayer)
+	c.m = fem.NewMeshBreaks(th, ms.Order, ms.MaxSize, ms.MinPerLayer, drainBreaks(p))
+	c.drains = ResolveDrains(p)
 	return c
 }
 

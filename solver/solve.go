@@ -19,6 +19,11 @@ type Options struct {
 	// solve, which then returns ErrCanceled. A browser caller uses it to
 	// let the page breathe.
 	Progress func(fraction float64) (carryOn bool)
+	// NoDrainReference skips the two extra solves, vertical flow alone
+	// and radial flow alone, that give Result.Drains its Uv and Uh (they
+	// stay empty); the rest of Result.Drains is filled. The design
+	// helper needs only Us.
+	NoDrainReference bool
 }
 
 // Solve validates p and computes the steady seepage state and, when the
@@ -44,6 +49,7 @@ func solveValid(p *Project, opt *Options) (*Result, error) {
 	r := &Result{Warnings: []Warning{}}
 	warn := func(path, msg string) { r.Warnings = append(r.Warnings, Warning{Path: path, Message: msg}) }
 	oddValues(p, warn)
+	drainWarnings(p, warn)
 	st, err := c.steady(warn)
 	if err != nil {
 		return nil, err
@@ -52,8 +58,20 @@ func solveValid(p *Project, opt *Options) (*Result, error) {
 	r.Stats = Stats{Nodes: c.m.Nodes(), Elements: c.m.Elements(), Order: c.m.Order}
 	r.Summary.Flux = r.Steady.Flux
 	if HasConsolidation(p) {
-		if err := c.consolidate(&r.Steady, r, opt, warn); err != nil {
+		main, ref := opt, opt
+		if c.drains != nil && opt != nil && opt.Progress != nil && !opt.NoDrainReference {
+			// Two thirds of the work are the solves with vertical flow
+			// alone and with radial flow alone.
+			main = &Options{Progress: func(f float64) bool { return opt.Progress(f / 3) }}
+			ref = &Options{Progress: func(f float64) bool { return opt.Progress(1.0/3 + 2*f/3) }}
+		}
+		if err := c.consolidate(&r.Steady, r, main, warn); err != nil {
 			return nil, err
+		}
+		if c.drains != nil {
+			if err := c.drainReference(&r.Steady, r, ref, opt == nil || !opt.NoDrainReference); err != nil {
+				return nil, err
+			}
 		}
 	}
 	for _, l := range r.Steady.Layers {

@@ -16,6 +16,8 @@ type transient struct {
 	c        *column
 	mv       []float64 // per layer, 1/kPa
 	k, mass  *fem.Band // conductivity (k/γw, m²/(kPa·day)) and mv-mass
+	sink     *fem.Band // the drains' radial sink (nil without drains)
+	kSink    *fem.Band // k + sink, what the stepper steps with drains
 	stepper  *fem.Stepper
 	held     []int
 	lo, hi   int // free unknowns
@@ -42,16 +44,18 @@ func newTransient(c *column, opt *Options) *transient {
 	tr.k = fem.NewBand(n, m.Order)
 	tr.mass = fem.NewBand(n, m.Order)
 	gw := c.gw
-	m.Assemble(tr.k, func(e int, _ float64) float64 { return p.Layers[m.Layer[e]].K * soil.SecondsPerDay / gw }, false)
+	if !c.radialOnly {
+		m.Assemble(tr.k, func(e int, _ float64) float64 { return p.Layers[m.Layer[e]].K * soil.SecondsPerDay / gw }, false)
+	}
 	tr.wLength = make([]float64, n)
 	m.Load(tr.wLength, func(float64) float64 { return 1 })
 
 	tr.lo, tr.hi = 0, n
-	if p.Top.Drained {
+	if p.Top.Drained && !c.radialOnly {
 		tr.lo = 1
 		tr.held = append(tr.held, 0)
 	}
-	if p.Bottom.Drained {
+	if p.Bottom.Drained && !c.radialOnly {
 		tr.hi = n - 1
 		tr.held = append(tr.held, n-1)
 	}
@@ -97,7 +101,18 @@ func (tr *transient) setMv(mv []float64) {
 	if lumped {
 		tr.mass.Lump()
 	}
-	tr.stepper = fem.NewStepper(tr.mass, tr.k, tr.held, lumped)
+	k := tr.k
+	if tr.c.drains != nil {
+		// The unit cell's sink mv·8ch/(De²μ)·ū joins the conductivity: the
+		// same band, so a step costs what it did.
+		tr.sink = tr.c.assembleSink(mv, lumped)
+		tr.kSink = fem.NewBand(tr.k.N, tr.k.KD)
+		for i := range tr.kSink.AB {
+			tr.kSink.AB[i] = tr.k.AB[i] + tr.sink.AB[i]
+		}
+		k = tr.kSink
+	}
+	tr.stepper = fem.NewStepper(tr.mass, k, tr.held, lumped)
 }
 
 // layerSettlement returns each layer's settlement ∫ mv (σ − u) dz, m, for
@@ -167,8 +182,17 @@ func (tr *transient) stressAt(dst []float64, t float64, left bool) {
 func (tr *transient) step(theta, t0, dt float64) error {
 	ds := tr.stressStep(t0, dt)
 	tr.heldValues(tr.next, t0+dt, true)
+	if out := tr.outlet(); out != nil {
+		ds = tr.shiftToOutlet(out, ds, t0, t0+dt)
+	}
 	if err := tr.stepper.Step(tr.u, ds, tr.next, theta, dt); err != nil {
 		return tr.c.numerical(err, fmt.Sprintf("the consolidation step from %.4g to %.4g days", t0, t0+dt))
+	}
+	if out := tr.outlet(); out != nil {
+		ud1 := historyAt(out, t0+dt, true)
+		for i := range tr.u {
+			tr.u[i] += ud1
+		}
 	}
 	return nil
 }
@@ -220,7 +244,16 @@ func (tr *transient) final() (sigma, u []float64, err error) {
 	tr.stressAt(sigma, math.Inf(1), false)
 	u = make([]float64, n)
 	if len(tr.held) == 0 {
-		copy(u, sigma)
+		if tr.c.drains == nil {
+			copy(u, sigma)
+		}
+		// With drains everything drains to the drains' final outlet
+		// pressure (Validate allows a history only where that is the
+		// pressure held at every drained end too).
+		ud := historyAt(tr.outlet(), math.Inf(1), false)
+		for i := range u {
+			u[i] += ud
+		}
 		return sigma, u, nil
 	}
 	tr.setHeld(u, math.Inf(1), false)

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"strconv"
+	"strings"
 
 	"porelight/solver/monitor"
 	"porelight/ui/form"
@@ -35,6 +36,12 @@ func (c *Backfit) checked(i int) bool { return c.S.layers[i] }
 
 func (c *Backfit) setLayer(i int, e vugu.DOMEvent) { c.S.layers[i] = e.PropBool("target", "checked") }
 
+func (c *Backfit) drains() bool { return c.F.Draft().Drains != nil }
+
+func (c *Backfit) checkedCh(i int) bool { return c.S.ch[i] }
+
+func (c *Backfit) setCh(i int, e vugu.DOMEvent) { c.S.ch[i] = e.PropBool("target", "checked") }
+
 func (c *Backfit) setScale(e vugu.DOMEvent) { c.S.scale = e.PropBool("target", "checked") }
 
 // dataValue and setData map the record choice to the select's values.
@@ -64,7 +71,7 @@ func (c *Backfit) chosen() bool {
 		return true
 	}
 	for i := range c.F.Draft().Layers {
-		if c.S.layers[i] {
+		if c.S.layers[i] || (c.drains() && c.S.ch[i]) {
 			return true
 		}
 	}
@@ -100,12 +107,19 @@ func (c *Backfit) rows() []fitRow {
 			r.Name = "k of " + name
 			r.CvBefore = sig(p.InitialCv, 3)
 			r.CvAfter = sig(p.Cv, 3)
+			if strings.HasSuffix(p.Name, ".ch") {
+				r.Name = "ch of " + name
+				r.CvBefore = "ch " + sig(p.InitialCh, 3)
+				r.CvAfter = "ch " + sig(p.Ch, 3)
+			}
 		}
 		if p.Determined {
 			r.Mult = pm(p.Multiplier, p.SE)
 			d := decimals(p.SE)
 			r.Range = strconv.FormatFloat(p.Low, 'f', d, 64) + " – " + strconv.FormatFloat(p.High, 'f', d, 64)
-			if p.Layer >= 0 {
+			if p.Layer >= 0 && strings.HasSuffix(p.Name, ".ch") {
+				r.CvAfter = "ch " + pm(p.Ch, p.InitialCh*p.SE)
+			} else if p.Layer >= 0 {
 				r.CvAfter = pm(p.Cv, p.InitialCv*p.SE)
 			}
 		} else {

@@ -284,6 +284,19 @@ func (c *Comparison) cv(a asaoka) string {
 	return pm(a.Res.Cv, a.Res.CvSE) + " m²/day"
 }
 
+// ch is the horizontal coefficient the slope implies on a drained site
+// (monitor.DrainCh), or "" without drains.
+func (c *Comparison) ch(a asaoka) string {
+	if a.Res == nil || c.R == nil || c.R.Drains == nil {
+		return ""
+	}
+	ch, ok := monitor.DrainCh(a.Res, c.R)
+	if !ok {
+		return "– (the readings' window is outside the prediction)"
+	}
+	return sig(ch, 3) + " m²/day (" + sig(ch*solver.DaysPerYear, 3) + " m²/year)"
+}
+
 func (c *Comparison) cvNote(a asaoka) string {
 	if a.Res.DrainagePath == 0 {
 		return ""

@@ -2,12 +2,9 @@ package ui
 
 import (
 	"errors"
-	"fmt"
 	"reflect"
-	"runtime/debug"
 	"slices"
 	"sync/atomic"
-	"time"
 
 	"porelight/solver"
 	"porelight/solver/monitor"
@@ -94,6 +91,7 @@ func (c *Root) download(name, mime string, data []byte) {
 // draw the fitted prediction.
 type fitState struct {
 	layers map[int]bool // layers whose k is fitted
+	ch     map[int]bool // layers whose ch (toward the drains) is fitted
 	scale  bool         // also fit the settlement scale
 	data   monitor.FitData
 
@@ -112,7 +110,7 @@ type fitState struct {
 
 func (c *Root) fitState() *fitState {
 	if c.fit == nil {
-		c.fit = &fitState{layers: map[int]bool{}}
+		c.fit = &fitState{layers: map[int]bool{}, ch: map[int]bool{}}
 	}
 	return c.fit
 }
@@ -123,6 +121,11 @@ func (s *fitState) spec(nLayers int) monitor.FitSpec {
 	for i := range nLayers {
 		if s.layers[i] {
 			spec.Layers = append(spec.Layers, i)
+		}
+	}
+	for i := range nLayers {
+		if s.ch[i] {
+			spec.ChLayers = append(spec.ChLayers, i)
 		}
 	}
 	return spec
@@ -142,7 +145,10 @@ func (c *Root) runFit() {
 	}
 	model := c.form.Model()
 	spec := s.spec(len(model.Layers))
-	if len(spec.Layers) == 0 && !spec.Scale {
+	if model.Drains == nil {
+		spec.ChLayers = nil // the choices stay for when drains come back
+	}
+	if len(spec.Layers) == 0 && len(spec.ChLayers) == 0 && !spec.Scale {
 		s.err, s.res = "Choose at least one layer, or the settlement scale, to fit.", nil
 		return
 	}
@@ -153,39 +159,13 @@ func (c *Root) runFit() {
 	if fit == nil {
 		fit = monitor.BackFit
 	}
-	work := func() (res *monitor.FitResult, err error) {
-		defer func() {
-			if r := recover(); r != nil {
-				err = fmt.Errorf("internal error in the back-analysis: %v\n%s", r, debug.Stack())
-			}
-		}()
-		last := time.Now()
-		opt := &solver.Options{Progress: func(f float64) bool {
-			if s.gen.Load() != g {
-				return false
-			}
-			if c.Env != nil && time.Since(last) > 40*time.Millisecond {
-				c.Env.Lock()
-				s.progress = f
-				c.Env.UnlockRender()
-				c.host().Yield()
-				last = time.Now()
-			}
-			return s.gen.Load() == g
-		}}
-		return fit(solveInput(model), spec, opt)
-	}
-	if c.Env == nil {
-		res, err := work()
-		s.finish(g, res, err)
-		return
-	}
-	go func() {
-		res, err := work()
-		c.Env.Lock()
-		s.finish(g, res, err)
-		c.Env.UnlockRender()
-	}()
+	var res *monitor.FitResult
+	c.inBackground("the back-analysis", func() bool { return s.gen.Load() == g }, func(f float64) { s.progress = f },
+		func(opt *solver.Options) (err error) {
+			res, err = fit(solveInput(model), spec, opt)
+			return err
+		},
+		func(err error) { s.finish(g, res, err) })
 }
 
 // finish takes the outcome of run g, if it is still the latest.
@@ -253,6 +233,9 @@ func (c *Root) applyFit() {
 		if l.Mv != d.Layers[i].Mv {
 			c.form.Edit(lp(i, "mv"), form.FormatNumber(l.Mv))
 		}
+		if l.Ch != d.Layers[i].Ch || l.KhKv != d.Layers[i].KhKv {
+			setLayerCh(c.form, i, l)
+		}
 	}
 	s.applied = true
 	c.note("info", "Applied the fitted values to the layers; “Revert” puts the previous k and mv back.")
@@ -281,8 +264,24 @@ func (c *Root) revertFit() {
 			}
 			c.form.Edit(lp(i, "mv"), text)
 		}
+		if l.Ch != d.Layers[i].Ch || l.KhKv != d.Layers[i].KhKv {
+			setLayerCh(c.form, i, l)
+		}
 	}
 	s.applied, s.before = false, nil
 	c.note("info", "Reverted: the layers have the k and mv they had before the fit was applied.")
 	c.edited()
+}
+
+// setLayerCh types layer l's ch (m²/year on the page) and kh/kv into row
+// i, empty where zero.
+func setLayerCh(f *form.Form, i int, l solver.Layer) {
+	text := func(v, scale float64) string {
+		if v == 0 {
+			return ""
+		}
+		return form.FormatNumber(v * scale)
+	}
+	f.Edit(lp(i, "khKv"), text(l.KhKv, 1))
+	f.Edit(lp(i, "ch"), text(l.Ch, solver.DaysPerYear))
 }

@@ -58,9 +58,10 @@ type Root struct {
 	gen       atomic.Int64 // bumped by every committed edit; a solve of an older one is dropped
 	notices   []notice
 	shareURL  string
-	fit       *fitState // back-analysis of the field records (monitor_root.go)
-	fold      folds     // which secondary sections are unfolded (folds.go)
-	printing  bool      // Print report is under way: every fold is open
+	fit       *fitState    // back-analysis of the field records (monitor_root.go)
+	design    *designState // the drain design helper (drains_root.go)
+	fold      folds        // which secondary sections are unfolded (folds.go)
+	printing  bool         // Print report is under way: every fold is open
 }
 
 type notice struct {

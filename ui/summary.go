@@ -121,7 +121,27 @@ func (c *Summary) rows() []sumRow {
 	}
 	flux := sumRow{ID: "sum-flux", Label: "Steady flow (Darcy velocity)", Value: sci(math.Abs(s.Flux), 3) + " m/s",
 		Exact: exact(s.Flux), Note: dir}
-	return append(rows, heave, flux)
+	rows = append(rows, heave, flux)
+	if d := c.R.Drains; d != nil {
+		r := time("sum-t90-vertical", "t90 without drains", d.T90Vertical)
+		if d.T90Vertical != nil {
+			r.Note = "vertical flow only"
+		}
+		h := time("sum-t90-radial", "t90 by the drains alone", d.T90Radial)
+		if d.T90Radial != nil {
+			h.Note = "radial flow only, no vertical drainage"
+		}
+		rows = append(rows, r, h)
+	}
+	return rows
+}
+
+// drainRows are U, Uv and Uh at the output times, with drains.
+func (c *Summary) drainRows() []solver.DrainDegree {
+	if c.R == nil || c.R.Drains == nil {
+		return nil
+	}
+	return c.R.Drains.AtTimes
 }
 
 func warningText(w solver.Warning) string {

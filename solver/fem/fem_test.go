@@ -173,3 +173,63 @@ func mean(x []float64) float64 {
 	}
 	return s / float64(len(x))
 }
+
+// Breaks inside a layer become element ends; breaks outside the column or
+// on a layer boundary add nothing, and each element keeps its layer; the
+// element count equals DivisionsBreaks (exact, integers and depths to
+// 1e-12 m).
+func TestMeshBreaks(t *testing.T) {
+	t.Parallel()
+	for _, c := range []struct {
+		name   string
+		th     []float64
+		breaks []float64
+		order  int
+	}{
+		{"none", []float64{2, 3}, nil, 1},
+		{"inside", []float64{2, 3}, []float64{3.3}, 1},
+		{"two in one layer", []float64{5}, []float64{1.234, 4.5}, 2},
+		{"on a boundary and outside", []float64{2, 3}, []float64{-1, 2, 7}, 1},
+	} {
+		m := NewMeshBreaks(c.th, c.order, 0.4, 4, c.breaks)
+		top, want := 0.0, 0
+		for i, h := range c.th {
+			want += DivisionsBreaks(top, h, c.breaks, 0.4, 4)
+			top += h
+			if n := m.First[i+1] - m.First[i]; n < 4 {
+				t.Errorf("%s: layer %d has %d elements, want ≥ 4", c.name, i, n)
+			}
+		}
+		if m.Elements() != want {
+			t.Errorf("%s: %d elements, DivisionsBreaks says %d", c.name, m.Elements(), want)
+		}
+		for _, b := range c.breaks {
+			if b <= 0 || b >= top {
+				continue
+			}
+			found := false
+			for e := range m.Elements() {
+				if _, z0, _ := m.Span(e); math.Abs(z0-b) < 1e-12 {
+					found = true
+				}
+			}
+			if !found {
+				t.Errorf("%s: no element starts at the break %g", c.name, b)
+			}
+		}
+		for e := range m.Elements() {
+			_, z0, z1 := m.Span(e)
+			if z1-z0 > 0.4+1e-12 || z1 <= z0 {
+				t.Errorf("%s: element %d spans %g … %g", c.name, e, z0, z1)
+			}
+			l := m.Layer[e]
+			lt := 0.0
+			for _, h := range c.th[:l] {
+				lt += h
+			}
+			if z0 < lt-1e-12 || z1 > lt+c.th[l]+1e-12 {
+				t.Errorf("%s: element %d (%g … %g) is not in its layer %d", c.name, e, z0, z1, l)
+			}
+		}
+	}
+}

@@ -39,30 +39,91 @@ func Divisions(h, maxSize float64, minPer int) int {
 // given order, no longer than maxSize and at least minPer to a layer. It
 // panics unless order is 1 or 2. Cost O(elements).
 func NewMesh(thickness []float64, order int, maxSize float64, minPer int) *Mesh {
+	return NewMeshBreaks(thickness, order, maxSize, minPer, nil)
+}
+
+// parts splits the layer [top, top+h] at the depths of breaks that lie
+// inside it (further than 1e-9·h from its ends and from each other) and
+// returns the depths of the part ends, top first, and each part's element
+// count: none longer than maxSize, and at least minPer over the layer
+// shared in proportion to the parts' lengths (each at least 1).
+func parts(top, h float64, breaks []float64, maxSize float64, minPer int) (ends []float64, counts []int) {
+	ends = append(ends, top)
+	tol := 1e-9 * h
+	for _, b := range breaks {
+		if b > top+tol && b < top+h-tol && b > ends[len(ends)-1]+tol {
+			ends = append(ends, b)
+		}
+	}
+	ends = append(ends, top+h)
+	if len(ends) == 2 {
+		return ends, []int{Divisions(h, maxSize, minPer)}
+	}
+	for i := 1; i < len(ends); i++ {
+		l := ends[i] - ends[i-1]
+		n := int(math.Ceil(l/maxSize - 1e-9))
+		counts = append(counts, max(n, int(math.Ceil(float64(minPer)*l/h-1e-9)), 1))
+	}
+	return ends, counts
+}
+
+// DivisionsBreaks is the number of elements NewMeshBreaks gives the layer
+// [top, top+h] for the given breaks, without meshing it.
+func DivisionsBreaks(top, h float64, breaks []float64, maxSize float64, minPer int) int {
+	_, counts := parts(top, h, breaks, maxSize, minPer)
+	n := 0
+	for _, c := range counts {
+		n += c
+	}
+	return n
+}
+
+// NewMeshBreaks is NewMesh with element ends also at the given depths
+// (increasing; those outside the column or on a layer boundary add
+// nothing), for a change of coefficient inside a layer such as the tip of
+// a drain. Layer still gives each element's layer.
+func NewMeshBreaks(thickness []float64, order int, maxSize float64, minPer int, breaks []float64) *Mesh {
 	if order != 1 && order != 2 {
 		panic("fem: element order must be 1 or 2")
 	}
 	m := &Mesh{Order: order, First: make([]int, len(thickness)+1)}
 	ne := 0
+	top := 0.0
+	type layerParts struct {
+		ends   []float64
+		counts []int
+	}
+	lp := make([]layerParts, len(thickness))
 	for i, h := range thickness {
 		m.First[i] = ne
-		ne += Divisions(h, maxSize, minPer)
+		ends, counts := parts(top, h, breaks, maxSize, minPer)
+		lp[i] = layerParts{ends, counts}
+		for _, c := range counts {
+			ne += c
+		}
+		top += h
 	}
 	m.First[len(thickness)] = ne
 	m.Z = make([]float64, order*ne+1)
 	m.Layer = make([]int, ne)
-	top := 0.0
+	e := 0
 	for i, h := range thickness {
-		n := m.First[i+1] - m.First[i]
-		for j := range n {
-			e := m.First[i] + j
-			m.Layer[e] = i
-			for a := range order {
-				m.Z[order*e+a] = top + h*float64(order*j+a)/float64(order*n)
+		ends, counts := lp[i].ends, lp[i].counts
+		for p, n := range counts {
+			z0, z1 := ends[p], ends[p+1]
+			l := z1 - z0
+			if len(counts) == 1 {
+				l = h
 			}
+			for j := range n {
+				m.Layer[e] = i
+				for a := range order {
+					m.Z[order*e+a] = z0 + l*float64(order*j+a)/float64(order*n)
+				}
+				e++
+			}
+			m.Z[order*e] = z1 // exact part end
 		}
-		top += h
-		m.Z[order*m.First[i+1]] = top // exact layer boundary
 	}
 	// order+1 Gauss points integrate the mass matrix exactly and leave
 	// room for a coefficient varying within an element.

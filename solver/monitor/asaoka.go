@@ -44,6 +44,13 @@ type AsaokaOptions struct {
 	// path is Thickness/DrainedEnds. Either zero: no cv is reported.
 	Thickness   float64
 	DrainedEnds int
+	// De and Mu, when both > 0, are the unit cell's diameter, m, and μ
+	// of a site with vertical drains: Asaoka then also reports Ch, the
+	// horizontal coefficient the slope implies (see Asaoka). VerticalCv,
+	// m²/day, is the cv of the vertical flow that goes on meanwhile; zero
+	// reads the whole slope as radial flow.
+	De, Mu     float64
+	VerticalCv float64
 }
 
 // AsaokaOptionsFor returns the options that read a settlement record of
@@ -101,6 +108,11 @@ type AsaokaResult struct {
 	Cv          float64 `json:"cv"`
 	CvSE        float64 `json:"cvSE"`
 	CvParabolic float64 `json:"cvParabolic"`
+	// Ch is the horizontal coefficient of consolidation, m²/day, of a
+	// drained site (AsaokaOptions.De and Mu given), and ChSE its standard
+	// error: Ch = (De² μ/8)(−ln β1/Δt − π² cv/(4d²)); 0 otherwise.
+	Ch   float64 `json:"ch,omitempty"`
+	ChSE float64 `json:"chSE,omitempty"`
 }
 
 // Forecast returns the settlement the fitted relation predicts at t days:
@@ -168,6 +180,24 @@ func (a *AsaokaResult) Forecast(t float64) float64 {
 // record to be late enough for the higher modes to have died out (time
 // factor above about 0.2, degree of consolidation above about 50 %);
 // earlier readings make β1, and so cv and s∞, depend on Δt.
+//
+// # Horizontal coefficient with vertical drains
+//
+// With drains the cell-averaged excess pressure obeys
+// ∂ū/∂t = cv ∂²ū/∂z² − (8 ch/(De² μ)) ū (the unit cell, Barron 1948,
+// Hansbo 1981). For drains through the layer with one μ its solution is
+// the vertical one times exp(−λh t), λh = 8 ch/(De² μ) (the product of
+// Carrillo 1942), so the slowest mode decays at λ = λh + π²cv/(4d²) and
+// β1 = exp(−λΔt) as above. Hence
+//
+//	ch = (De² μ / 8) (−ln β1/Δt − π² cv/(4d²)),
+//
+// with cv the vertical coefficient (AsaokaOptions.VerticalCv; without it
+// the whole slope is read as radial flow, which overstates ch) and d the
+// drainage path (without Thickness and DrainedEnds the vertical term is
+// left out). Ch is that value; a negative one means the record settles no
+// faster than vertical flow alone would. With well resistance μ varies
+// with depth: give its average, and read Ch as an equivalent value.
 //
 // Readings before AfterTime are left out, not refused: a record that
 // starts with the construction is read from the end of the loading on.
@@ -338,6 +368,15 @@ func asaoka(times, settlements []float64, interval float64, opt AsaokaOptions, a
 		a.CvSE = 4 * d * d / (math.Pi * math.Pi * interval) * a.Beta1SE / b1
 		a.CvParabolic = -5 * d * d * math.Log(b1) / (12 * interval)
 	}
+	if opt.De > 0 && opt.Mu > 0 {
+		rate := -math.Log(b1) / interval
+		if d := a.DrainagePath; d > 0 && opt.VerticalCv > 0 {
+			rate -= math.Pi * math.Pi * opt.VerticalCv / (4 * d * d)
+		}
+		k := opt.De * opt.De * opt.Mu / 8
+		a.Ch = k * rate
+		a.ChSE = k / interval * a.Beta1SE / b1
+	}
 	return a, nil
 }
 
@@ -389,4 +428,48 @@ func interpAt(t0, v0, t1, v1, t float64) float64 {
 		return v0
 	}
 	return v0 + (v1-v0)*(t-t0)/(t1-t0)
+}
+
+// DrainCh is the horizontal coefficient of consolidation, m²/day, that
+// the slope of a on a site with vertical drains implies, with the
+// vertical part of the decay taken from the prediction r:
+//
+//	ch = (De² μ̄ / 8) (−ln β1/Δt − λv),
+//
+// where λv = ln((1 − Uv(t0))/(1 − Uv(t1)))/(t1 − t0) is the decay rate
+// of the same column without drains (r.Drains.Uv) over the readings'
+// window t0 … t1 and μ̄ the mean of μ along the drains (r.Drains.Mu);
+// see Asaoka for the derivation. ok is false when r has no drain results
+// or the window leaves the simulated times. The value is an equivalent
+// ch for the drained depth; with partly penetrating drains or several
+// layers it mixes them.
+func DrainCh(a *AsaokaResult, r *solver.Result) (ch float64, ok bool) {
+	if a == nil || len(a.Times) < 2 || r == nil || r.Drains == nil || r.Consolidation == nil {
+		return 0, false
+	}
+	d := r.Drains
+	ts := r.Consolidation.Series.Time
+	if len(d.Uv) != len(ts) || len(d.Mu) == 0 || len(ts) == 0 {
+		return 0, false
+	}
+	t0, t1 := a.Times[0], a.Times[len(a.Times)-1]
+	if t1 <= t0 || t1 > ts[len(ts)-1] {
+		return 0, false
+	}
+	u0, u1 := 1-solver.SeriesAt(ts, d.Uv, t0), 1-solver.SeriesAt(ts, d.Uv, t1)
+	if !(u0 > 0 && u1 > 0) {
+		return 0, false
+	}
+	lv := math.Log(u0/u1) / (t1 - t0)
+	mu := 0.0
+	for i := 1; i < len(d.Depth); i++ {
+		mu += (d.Mu[i] + d.Mu[i-1]) / 2 * (d.Depth[i] - d.Depth[i-1])
+	}
+	if l := d.Depth[len(d.Depth)-1] - d.Depth[0]; l > 0 {
+		mu /= l
+	} else {
+		mu = d.Cell.Mu0
+	}
+	de := d.Cell.De
+	return de * de * mu / 8 * (-math.Log(a.Beta1)/a.Interval - lv), true
 }

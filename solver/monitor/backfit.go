@@ -44,11 +44,12 @@ var (
 // project, so they have a prefix no project field has. A layer index is
 // FitLayers with its position, "fit.layers[1]".
 const (
-	FitSpecPath = "fit"         // the request as a whole
-	FitLayers   = "fit.layers"  // FitSpec.Layers
-	FitScale    = "fit.scale"   // FitSpec.Scale
-	FitFrom     = "fit.from"    // FitSpec.From
-	FitMaxRuns  = "fit.maxRuns" // FitSpec.MaxRuns
+	FitSpecPath = "fit"          // the request as a whole
+	FitLayers   = "fit.layers"   // FitSpec.Layers
+	FitChLayers = "fit.chLayers" // FitSpec.ChLayers
+	FitScale    = "fit.scale"    // FitSpec.Scale
+	FitFrom     = "fit.from"     // FitSpec.From
+	FitMaxRuns  = "fit.maxRuns"  // FitSpec.MaxRuns
 )
 
 // FitSpec says what BackFit adjusts and against which readings. The zero
@@ -58,6 +59,12 @@ type FitSpec struct {
 	// multiplied by a fitted factor; mv stays, so cv = k/(mv γw) takes
 	// the same factor. Each index at most once.
 	Layers []int `json:"layers,omitempty"`
+	// ChLayers are the indices of the layers whose horizontal
+	// coefficient of consolidation ch (toward the drains) is multiplied
+	// by a fitted factor: the layer's ch as the project resolves it
+	// (solver.LayerCh) becomes an explicit ch. Needs drains. Each index
+	// at most once.
+	ChLayers []int `json:"chLayers,omitempty"`
 	// Scale, when true, also fits one factor S on the settlement: mv and
 	// k of every layer are both multiplied by S, so every cv and every
 	// excess pore pressure stays and the linear settlement curve scales
@@ -142,9 +149,12 @@ type FitParam struct {
 	Low        float64 `json:"low"`
 	High       float64 `json:"high"`
 	// InitialCv and Cv are the layer's cv before and after the fit,
-	// m²/day (0 for the settlement scale).
+	// m²/day (0 for the settlement scale); for a ch parameter
+	// ("layers[i].ch") InitialCh and Ch are its ch instead.
 	InitialCv float64 `json:"initialCv,omitempty"`
 	Cv        float64 `json:"cv,omitempty"`
+	InitialCh float64 `json:"initialCh,omitempty"`
+	Ch        float64 `json:"ch,omitempty"`
 }
 
 // FitRecord compares one record with the prediction.
@@ -228,7 +238,20 @@ func BackFit(p *solver.Project, spec FitSpec, opt *solver.Options) (*FitResult, 
 		}
 		seen[li] = true
 	}
-	np := len(spec.Layers)
+	seenCh := map[int]bool{}
+	for i, li := range spec.ChLayers {
+		at := solver.IndexPath(FitChLayers, i)
+		switch {
+		case p.Drains == nil:
+			return nil, refuse(at, solver.ErrConflict, "fitting ch needs drains in the project (%v)", solver.ErrConflict)
+		case li < 0 || li >= len(p.Layers):
+			return nil, refuse(at, solver.ErrOutOfRange, "layer %d %v (the project has %d layers)", li, solver.ErrOutOfRange, len(p.Layers))
+		case seenCh[li]:
+			return nil, refuse(at, ErrTwice, "layer %d is named twice", li)
+		}
+		seenCh[li] = true
+	}
+	np := len(spec.Layers) + len(spec.ChLayers)
 	if spec.Scale {
 		np++
 	}
@@ -281,8 +304,12 @@ func BackFit(p *solver.Project, spec FitSpec, opt *solver.Options) (*FitResult, 
 		return nil, err
 	}
 	f.mv0 = make([]float64, len(p.Layers))
+	f.ch0 = make([]float64, len(p.Layers))
 	for i := range p.Layers {
 		f.mv0[i] = r0.Summary.Layers[i].Mv
+		if r0.Drains != nil {
+			f.ch0[i], _ = solver.LayerCh(&p.Layers[i], f.mv0[i], solver.ResolveGammaW(p))
+		}
 	}
 	f.store(x0, f.extract(r0))
 
@@ -343,6 +370,11 @@ func BackFit(p *solver.Project, spec FitSpec, opt *solver.Options) (*FitResult, 
 			fp.Name, fp.Layer = fmt.Sprintf("layers[%d].k", li), li
 			fp.InitialCv = r0.Summary.Layers[li].Cv
 			fp.Cv = fp.InitialCv * m
+		} else if j := i - len(spec.Layers); j < len(spec.ChLayers) {
+			li := spec.ChLayers[j]
+			fp.Name, fp.Layer = fmt.Sprintf("layers[%d].ch", li), li
+			fp.InitialCh = f.ch0[li]
+			fp.Ch = fp.InitialCh * m
 		}
 		out.Params = append(out.Params, fp)
 	}
@@ -393,6 +425,7 @@ func BackFit(p *solver.Project, spec FitSpec, opt *solver.Options) (*FitResult, 
 	fitted.Layers = slices.Clone(p.Layers)
 	f.apply(fitted.Layers, xs)
 	out.Project = &fitted
+	f.reference = true
 	out.Result, err = f.solve(&fitted)
 	if err != nil {
 		return nil, err
@@ -430,18 +463,20 @@ type fitEval struct {
 
 // fitter holds the state of one back-analysis.
 type fitter struct {
-	spec     FitSpec
-	opt      *solver.Options
-	base     *solver.Project
-	recs     []*fitRec
-	n, np    int
-	mv0      []float64
-	cache    map[string]*fitEval
-	runs     int
-	budget   int
-	expected int
-	search   bool  // the search is running: MaxRuns applies
-	err      error // sticky: canceled or a failed run
+	spec      FitSpec
+	opt       *solver.Options
+	base      *solver.Project
+	recs      []*fitRec
+	n, np     int
+	mv0       []float64
+	ch0       []float64 // each layer's ch as the project resolves it (drains only)
+	cache     map[string]*fitEval
+	runs      int
+	budget    int
+	expected  int
+	search    bool  // the search is running: MaxRuns applies
+	reference bool  // the final run: with the drains' Uv and Uh
+	err       error // sticky: canceled or a failed run
 }
 
 // collect gathers the records of p.Monitoring chosen by the spec.
@@ -507,6 +542,10 @@ func (f *fitter) apply(ls []solver.Layer, x []float64) {
 	for i, li := range f.spec.Layers {
 		ls[li].K *= math.Exp(x[i])
 	}
+	for j, li := range f.spec.ChLayers {
+		ls[li].Ch = f.ch0[li] * math.Exp(x[len(f.spec.Layers)+j])
+		ls[li].KhKv = 0
+	}
 	if f.spec.Scale {
 		s := math.Exp(x[f.np-1])
 		for i := range ls {
@@ -518,7 +557,8 @@ func (f *fitter) apply(ls []solver.Layer, x []float64) {
 
 // solve runs the solver once, counting the run and reporting progress.
 func (f *fitter) solve(p *solver.Project) (*solver.Result, error) {
-	var o *solver.Options
+	// Only the fitted project's own run needs the drains' Uv and Uh.
+	o := &solver.Options{NoDrainReference: !f.reference}
 	if f.opt != nil && f.opt.Progress != nil {
 		outer := f.opt.Progress
 		done := float64(f.runs)
@@ -526,7 +566,7 @@ func (f *fitter) solve(p *solver.Project) (*solver.Result, error) {
 		if !outer(frac(0)) {
 			return nil, solver.ErrCanceled
 		}
-		o = &solver.Options{Progress: func(part float64) bool { return outer(frac(part)) }}
+		o.Progress = func(part float64) bool { return outer(frac(part)) }
 	}
 	f.runs++
 	r, err := solver.Solve(p, o)
@@ -614,6 +654,9 @@ func (f *fitter) predict(x []float64) ([]float64, error) {
 func (f *fitter) paramPath(i int) string {
 	if i < len(f.spec.Layers) {
 		return solver.IndexPath(FitLayers, i)
+	}
+	if j := i - len(f.spec.Layers); j < len(f.spec.ChLayers) {
+		return solver.IndexPath(FitChLayers, j)
 	}
 	return FitScale
 }

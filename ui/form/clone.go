@@ -31,6 +31,7 @@ func cloneProject(p *solver.Project) *solver.Project {
 	q.Times = slices.Clone(p.Times)
 	q.Piezometers = slices.Clone(p.Piezometers)
 	q.Monitoring = cloneMonitoring(p.Monitoring)
+	q.Drains = cloneDrains(p.Drains)
 	return &q
 }
 

@@ -27,6 +27,9 @@ var numberDefaults = map[string]float64{
 	"stepping.theta":       solver.DefaultTheta,
 	"stepping.dampedSteps": solver.DefaultDampedSteps,
 	"stepping.growth":      solver.DefaultGrowth,
+	"drains.smearRatio":    solver.DefaultSmearRatio,
+	"drains.smearK":        solver.DefaultSmearK,
+	"drains.design.degree": solver.DefaultDesignDegree,
 }
 
 // Placeholder is the text an empty input at path shows: the default its
@@ -62,6 +65,12 @@ func defaultHint(path string) (string, bool) {
 		return FormatNumber(solver.DefaultFirstStep*minutesPerDay) + " min", true
 	case "stepping.endTime":
 		return "auto", true // solver.EndTime: the last load change plus solver.DefaultSettleTime
+	case "drains.qw":
+		return "∞ (none)", true
+	case "drains.top":
+		return "0", true
+	case "drains.depth":
+		return "base", true
 	}
 	leaf := path[strings.LastIndexByte(path, '.')+1:]
 	switch {
@@ -81,6 +90,10 @@ func defaultHint(path string) (string, bool) {
 			return "= Cα", true
 		case "ck":
 			return "k fixed", true
+		case "ch":
+			return "kh/kv·cv", true
+		case "khKv":
+			return FormatNumber(solver.DefaultKhKv), true
 		}
 	case leaf == "inflow":
 		return "0 (sealed)", true
@@ -95,6 +108,13 @@ func scaleOf(path string) float64 {
 		return 100 // fraction → %
 	case "designLife":
 		return 1 / solver.DaysPerYear // day → year
+	case "drains.design.degree":
+		return 100 // fraction → %
+	case "drains.qw":
+		return solver.DaysPerYear * 86400 // m³/s → m³/year
+	}
+	if strings.HasPrefix(path, "layers[") && strings.HasSuffix(path, ".ch") {
+		return solver.DaysPerYear // m²/day → m²/year
 	}
 	if strings.HasPrefix(path, "monitoring.plates[") && strings.HasSuffix(path, ".value") {
 		return 1000 // settlement readings: m → mm

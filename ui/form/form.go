@@ -234,6 +234,9 @@ var pageFields = func() map[string]bool {
 	add("loads[#].", "start", "ramp", "q")
 	add("mesh.", "order", "maxSize", "minPerLayer")
 	add("stepping.", "theta", "dampedSteps", "firstStep", "growth", "endTime")
+	add("layers[#].", "ch", "khKv")
+	add("drains.", "pattern", "spacing", "diameter", "width", "thickness", "equivalent", "smearRatio", "smearK",
+		"qw", "discharge", "top", "depth", "design.degree", "design.time")
 	add("monitoring.", "start")
 	add("monitoring.plates[#].", "name", "readings[#].t", "readings[#].value")
 	add("monitoring.piezometers[#].", "name", "depth", "readings[#].t", "readings[#].value")

@@ -57,7 +57,10 @@ func newValid(t *testing.T) *Form {
 func TestPlaceholdersAreSolverDefaults(t *testing.T) {
 	t.Parallel()
 	p := column() // leaves every default out
+	p.Drains = &solver.Drains{Pattern: "square", Spacing: 2, Diameter: 0.05, Design: &solver.DrainDesign{Time: 100}}
 	st, ms := solver.ResolveStepping(p), solver.ResolveMesh(p)
+	dc := solver.ResolveDrains(p)
+	ch, kh := solver.LayerCh(&p.Layers[0], p.Layers[0].Mv, solver.ResolveGammaW(p))
 	cases := map[string]struct {
 		resolved float64 // what the solver uses, file unit
 		unit     float64 // one unit of the input's placeholder, in the file's unit
@@ -74,6 +77,11 @@ func TestPlaceholdersAreSolverDefaults(t *testing.T) {
 		"stepping.firstStep":   {st.FirstStep, 1.0 / (24 * 60), " min"}, // minutes of days
 		"top.inflow":           {p.Top.Inflow, 1, " (sealed)"},          // zero: no inflow
 		"bottom.inflow":        {p.Bottom.Inflow, 1, " (sealed)"},
+		"drains.smearRatio":    {dc.SmearRatio, 1, ""},
+		"drains.smearK":        {dc.SmearK, 1, ""},
+		"drains.top":           {dc.Top, 1, ""},
+		"drains.design.degree": {solver.ResolveDesignDegree(p.Drains.Design), 0.01, ""}, // % of a fraction
+		"layers[0].khKv":       {kh / p.Layers[0].K, 1, ""},
 	}
 	// Placeholders that are words; what the solver does instead is
 	// checked where it can be.
@@ -88,6 +96,23 @@ func TestPlaceholdersAreSolverDefaults(t *testing.T) {
 		"stepping.endTime": func(t *testing.T, text string) {
 			if text != "auto" || st.EndTime != solver.EndTime(p) || !(st.EndTime > solver.LastLoadChange(p)) {
 				t.Errorf("%q: the solver's end time is %g days, after the last load change on day %g", text, st.EndTime, solver.LastLoadChange(p))
+			}
+		},
+		"drains.qw": func(t *testing.T, text string) {
+			if dc.Mu(dc.Tip, kh) != dc.Mu0 {
+				t.Errorf("%q: the solver adds well resistance without qw", text)
+			}
+		},
+		"drains.depth": func(t *testing.T, text string) {
+			if text != "base" || dc.Tip != solver.ColumnHeight(p) {
+				t.Errorf("%q: the solver's tip is at %g m, the base at %g m", text, dc.Tip, solver.ColumnHeight(p))
+			}
+		},
+		"layers[0].ch": func(t *testing.T, text string) {
+			cv := solver.ResolveGammaW(p) // placeholder: kh/kv·cv
+			cv = p.Layers[0].K * 86400 / (p.Layers[0].Mv * cv)
+			if math.Abs(ch-kh/p.Layers[0].K*cv) > 1e-12*ch {
+				t.Errorf("%q: the solver's ch is %g m²/day, kh/kv × cv = %g", text, ch, kh/p.Layers[0].K*cv)
 			}
 		},
 		"layers[0].gamma": nil, "layers[0].mv": nil, "layers[0].calpha": nil,
@@ -301,6 +326,8 @@ func TestCopiesAreDeep(t *testing.T) {
 	p.Piezometers = []float64{2}
 	p.InitialExcess = []solver.DepthValue{{Z: 0, Value: 1}}
 	p.Loads[0].Profile = []solver.DepthValue{{Z: 0, Value: 1}}
+	tip := 0
+	p.Drains = &solver.Drains{Pattern: "square", Spacing: 2, Diameter: 0.05, ToLayer: &tip, Design: &solver.DrainDesign{Time: 9}}
 	f := New(p)
 	for name, q := range map[string]*solver.Project{"New": f.Draft(), "Model": f.Model()} {
 		if shared := sharedStorage(reflect.ValueOf(p).Elem(), reflect.ValueOf(q).Elem(), "project"); shared != "" {

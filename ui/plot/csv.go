@@ -69,8 +69,16 @@ func seriesCSV(r *solver.Result, names []string, cols func(s *solver.Series) [][
 	return writeCSV(header, rows)
 }
 
-// DegreeCSV returns the average degrees of consolidation as CSV, in %.
+// DegreeCSV returns the average degrees of consolidation as CSV, in %,
+// with Uv and Uh when the result has drains.
 func DegreeCSV(r *solver.Result) string {
+	if r != nil && r.Drains != nil && r.Consolidation != nil && len(r.Drains.Uv) == len(r.Consolidation.Series.Time) {
+		d := r.Drains
+		return seriesCSV(r, []string{"Us by settlement (%)", "Up by pore pressure (%)", "Uv vertical flow only (%)", "Uh radial flow only (%)"},
+			func(s *solver.Series) [][]float64 {
+				return [][]float64{scaled(s.Us, 100), scaled(s.Up, 100), scaled(d.Uv, 100), scaled(d.Uh, 100)}
+			})
+	}
 	return seriesCSV(r, []string{"Us by settlement (%)", "Up by pore pressure (%)"},
 		func(s *solver.Series) [][]float64 { return [][]float64{scaled(s.Us, 100), scaled(s.Up, 100)} })
 }

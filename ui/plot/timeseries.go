@@ -98,6 +98,7 @@ func DegreeFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
 	pn, clip := f.timeFigure(tlo, thi, 0, 100, "Degree of consolidation, %", true)
 	f.addSeries(pn, clip, "Us, settlement", styleAt(0), s.Time, scaled(s.Us, 100), readTime("Us", " %", 3))
 	f.addSeries(pn, clip, "Up, pore pressure", styleAt(1), s.Time, scaled(s.Up, 100), readTime("Up", " %", 3))
+	f.addDrainDegrees(pn, clip, s, r)
 	sm := r.Summary
 	f.markTime(pn, sm.T50, 50, "t50")
 	f.markTime(pn, sm.T90, 90, "t90")

@@ -47,6 +47,14 @@ func (r *report) summary() *table {
 		t.add("1 cost", "time ∝ elementsᵖ, linear el., 1,000 → 100,000", fmt.Sprintf("p = %s", fix(s.expLinear, 3)), "", "", "p ≤ 1.1 (linear)", holds(s.expLinear <= 1.1))
 		t.add("1 cost", "time ∝ elementsᵖ, quadratic el., 1,000 → 100,000", fmt.Sprintf("p = %s", fix(s.expQuad, 3)), "", "", "p ≤ 1.1 (linear)", holds(s.expQuad <= 1.1))
 		t.add("1 cost", "time ∝ stepsᵖ, 1,000 linear el., 1,000 → 4,000 steps", fmt.Sprintf("p = %s", fix(s.expSteps, 3)), "", "", "p ≤ 1.1 (linear)", holds(s.expSteps <= 1.1))
+		d := s.drains
+		t.add("1 cost", fmt.Sprintf("drains (unit-cell sink, smear, well resistance), %s linear el. × %s steps: time per node-step", count(int64(drainElements)), count(int64(d.steps))),
+			fmt.Sprintf("%s (%s/solve)", dur(per(d.with.best, d.nodes*d.steps)), dur(float64(d.with.best))),
+			fmt.Sprintf("no drains %s", dur(per(d.without.best, d.nodes*d.steps))),
+			fmt.Sprintf("%.3f×", d.ratio()), "≤ 1.10× without drains", holds(d.ratio() <= 1.10))
+		t.add("1 cost", "drains as the page solves them (plus the solves with vertical and with radial flow alone for Uv, Uh)",
+			dur(float64(d.onPage.best)), fmt.Sprintf("no drains %s", dur(float64(d.without.best))),
+			fmt.Sprintf("%.2f×", float64(d.onPage.best)/float64(d.without.best)), "report only (three solves)", "—")
 		t.add("1 cost", "allocations per time step (1,000 el., 4,000 − 1,000 steps)",
 			fmt.Sprintf("%.4f allocs, %.1f B", s.allocsPerStep, s.bytesPerStep), "", "", "none in the time-step loop", holds(s.allocsPerStep == 0))
 	}

@@ -47,6 +47,8 @@ type scaling struct {
 	// 1,000 against 4,000 steps).
 	allocsPerStep, bytesPerStep float64
 	allocsA, allocsB            float64
+	// drains is the cost of the drains' sink on the same kind of column.
+	drains drainCost
 }
 
 // scaleProject is the column of the scaling runs: 100 m of one clay
@@ -154,6 +156,7 @@ func measureScaling(sizes []int, profile func(order int, start bool), logf func(
 	s.allocsB = testing.AllocsPerRun(3, func() { solveOnce(qb, 1000, 4000) })
 	s.allocsPerStep = (s.allocsB - s.allocsA) / 3000
 	s.bytesPerStep = (allocBytes(func() { solveOnce(qb, 1000, 4000) }) - allocBytes(func() { solveOnce(qa, 1000, 1000) })) / 3000
+	s.drains = measureDrains(logf)
 	logf("scaling exponents: elements %.3f (linear) %.3f (quadratic), steps %.3f; %.4f allocs/step",
 		s.expLinear, s.expQuad, s.expSteps, s.allocsPerStep)
 	return s
