@@ -3285,10 +3285,176 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 		}
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
-		if c.tabled() != "" {
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "details", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "sigmap-tables"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-advanced"}}}
+		vgparent.AppendChild(vgn)
+		{
+			vgparent := vgn
+			_ = vgparent
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "summary", Attr: []vugu.VGAttribute(nil)}
 			vgparent.AppendChild(vgn)
-			vgn.SetInnerHTML(c.tabled())
+			vgn.SetInnerHTML(vugu.HTML("σ′p against depth, per layer \x3Cspan class=\"pl-sub\"\x3Einstead of σ′p, OCR or POP; linear between points, constant beyond\x3C/span\x3E"))
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+			vgparent.AppendChild(vgn)
+			for i := range c.F.Draft().Layers {
+				var vgiterkey interface{} = i
+				_ = vgiterkey
+				i := i
+				_ = i
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-history"}}}
+				vgparent.AppendChild(vgn)
+				{
+					vgparent := vgn
+					_ = vgparent
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-sub"}}}
+					vgparent.AppendChild(vgn)
+					vgn.SetInnerHTML("Layer " + itoa(i+1) + " " + c.F.Draft().Layers[i].Name)
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					if len(c.sigmaPTable(i)) > 0 {
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-grid pl-small"}}}
+						vgparent.AppendChild(vgn)
+						vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-sigmap", i))
+						{
+							vgparent := vgn
+							_ = vgparent
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth\x3EDepth\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eσ′p\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkPa\x3C/span\x3E\x3C/th\x3E\x3Cth class=\"pl-noprint\"\x3E\x3Cspan class=\"pl-vh\"\x3ERemove\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							{
+								vgparent := vgn
+								_ = vgparent
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								for j := range c.sigmaPTable(i) {
+									var vgiterkey interface{} = j
+									_ = vgiterkey
+									j := j
+									_ = j
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
+									vgparent.AppendChild(vgn)
+									{
+										vgparent := vgn
+										_ = vgparent
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+										vgparent.AppendChild(vgn)
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+										vgparent.AppendChild(vgn)
+										{
+											vgparent := vgn
+											_ = vgparent
+											{
+												vgcompKey := vugu.MakeCompKey(0xC6FF8B0F512B0270^vgin.CurrentPositionHash(), vgiterkey)
+												// ask BuildEnv for prior instance of this specific component
+												vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+												if vgcomp == nil {
+													// create new one if needed
+													vgcomp = new(Field)
+													vgin.BuildEnv.WireComponent(vgcomp)
+												}
+												vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+												vgcomp.Bare = true
+												vgcomp.Changed = c.Changed
+												vgcomp.F = c.F
+												vgcomp.Label = fmt.Sprintf("Depth of σ′p point %d, layer %d", j+1, i+1)
+												vgcomp.Path = sigmaPPath(i, j, "z")
+												vgcomp.Unit = "m"
+												vgout.Components = append(vgout.Components, vgcomp)
+												vgn = &vugu.VGNode{Component: vgcomp}
+												vgparent.AppendChild(vgn)
+											}
+										}
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+										vgparent.AppendChild(vgn)
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+										vgparent.AppendChild(vgn)
+										{
+											vgparent := vgn
+											_ = vgparent
+											{
+												vgcompKey := vugu.MakeCompKey(0x5B47B1180EC9BA1^vgin.CurrentPositionHash(), vgiterkey)
+												// ask BuildEnv for prior instance of this specific component
+												vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+												if vgcomp == nil {
+													// create new one if needed
+													vgcomp = new(Field)
+													vgin.BuildEnv.WireComponent(vgcomp)
+												}
+												vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+												vgcomp.Bare = true
+												vgcomp.Changed = c.Changed
+												vgcomp.F = c.F
+												vgcomp.Label = fmt.Sprintf("σ′p of point %d, layer %d", j+1, i+1)
+												vgcomp.Path = sigmaPPath(i, j, "value")
+												vgcomp.Unit = "kPa"
+												vgout.Components = append(vgout.Components, vgcomp)
+												vgn = &vugu.VGNode{Component: vgcomp}
+												vgparent.AppendChild(vgn)
+											}
+										}
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+										vgparent.AppendChild(vgn)
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-noprint"}}}
+										vgparent.AppendChild(vgn)
+										{
+											vgparent := vgn
+											_ = vgparent
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-icon"}}}
+											vgparent.AppendChild(vgn)
+											vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-sigmap-%d-remove", i, j))
+											vgn.AddAttrInterface("title", fmt.Sprintf("Remove point %d", j+1))
+											vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+												EventType: "click",
+												Func:      func(event vugu.DOMEvent) { c.removeSigmaP(i, j) },
+												// TODO: implement capture, etc. mostly need to decide syntax
+											})
+											{
+												vgparent := vgn
+												_ = vgparent
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "×"}
+												vgparent.AppendChild(vgn)
+											}
+										}
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+										vgparent.AppendChild(vgn)
+									}
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+						}
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-noprint"}}}
+					vgparent.AppendChild(vgn)
+					vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-sigmap-add", i))
+					vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+						EventType: "click",
+						Func:      func(event vugu.DOMEvent) { c.addSigmaP(i) },
+						// TODO: implement capture, etc. mostly need to decide syntax
+					})
+					{
+						vgparent := vgn
+						_ = vgparent
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Add σ′p point"}
+						vgparent.AppendChild(vgn)
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+				}
+			}
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+			vgparent.AppendChild(vgn)
 		}
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
@@ -3344,7 +3510,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent := vgn
 							_ = vgparent
 							{
-								vgcompKey := vugu.MakeCompKey(0xC6FF8B0F512B0270^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0x64F70B86CAAED030^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -3373,7 +3539,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent := vgn
 							_ = vgparent
 							{
-								vgcompKey := vugu.MakeCompKey(0x5B47B1180EC9BA1^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0xF3EBA29AC3A90306^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -3402,7 +3568,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent := vgn
 							_ = vgparent
 							{
-								vgcompKey := vugu.MakeCompKey(0x64F70B86CAAED030^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0x3184E726D7F6684D^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -3431,7 +3597,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent := vgn
 							_ = vgparent
 							{
-								vgcompKey := vugu.MakeCompKey(0xF3EBA29AC3A90306^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0x6EE6C50BE6168EDB^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {

@@ -2,7 +2,6 @@ package ui
 
 import (
 	"strconv"
-	"strings"
 
 	"github.com/vugu/vugu"
 
@@ -74,17 +73,18 @@ func (c *Layers) modelNote() string {
 	return "The e–log σ′ settlement is read off this solution; its times may differ from the curve’s on soft clay."
 }
 
-// tabled names the layers whose σ′p comes from a table against depth (set
-// in a project file; the page keeps it as it is).
-func (c *Layers) tabled() string {
-	var ns []string
-	for i, l := range c.F.Draft().Layers {
-		if l.ECurve != nil && len(l.ECurve.SigmaPProfile) > 0 {
-			ns = append(ns, strconv.Itoa(i+1))
-		}
+// sigmaPTable is layer i's σ′p against depth (nil: none).
+func (c *Layers) sigmaPTable(i int) []solver.DepthValue {
+	if ec := c.F.Draft().Layers[i].ECurve; ec != nil {
+		return ec.SigmaPProfile
 	}
-	if len(ns) == 0 {
-		return ""
-	}
-	return "Layer " + strings.Join(ns, ", ") + ": σ′p from a table against depth (from the project file, kept as is)."
+	return nil
 }
+
+// sigmaPPath is the path of a value of point j of layer i's σ′p table.
+func sigmaPPath(i, j int, leaf string) string {
+	return solver.JoinPath(solver.IndexPath(lp(i, "ecurve.sigmaPProfile"), j), leaf)
+}
+
+func (c *Layers) addSigmaP(i int)       { c.F.AddSigmaPPoint(i); c.Changed() }
+func (c *Layers) removeSigmaP(i, j int) { c.F.RemoveSigmaPPoint(i, j); c.Changed() }

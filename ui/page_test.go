@@ -553,3 +553,38 @@ func TestPageModelChoice(t *testing.T) {
 		t.Errorf("model after switching back: %q, want empty (linear)", m)
 	}
 }
+
+// TestPageSigmaPTable: a σ′p table is built point by point, its values
+// typed by path, a bad value shown at its input, and a point removed; the
+// solve then uses the table (its σ′p reaches the steady profiles).
+func TestPageSigmaPTable(t *testing.T) {
+	p := newPage(t, Sources{})
+	p.typeInto("layers-0-ecurve-ocr", "")
+	p.fire("layers-0-sigmap-add", "click", nil)
+	p.fire("layers-0-sigmap-add", "click", nil)
+	p.typeInto("layers-0-ecurve-sigmaPProfile-0-z", "0")
+	p.typeInto("layers-0-ecurve-sigmaPProfile-0-value", "30")
+	p.typeInto("layers-0-ecurve-sigmaPProfile-1-value", "-5")
+	if msg := p.root.form.Problem("layers[0].ecurve.sigmaPProfile[1].value"); msg == "" {
+		t.Error("no problem shown for σ′p = −5")
+	}
+	p.fire("layers-0-sigmap-1-remove", "click", nil)
+	c := p.root.form.Draft().Layers[0].ECurve
+	if c == nil || len(c.SigmaPProfile) != 1 || c.SigmaPProfile[0] != (solver.DepthValue{Z: 0, Value: 30}) {
+		t.Fatalf("σ′p table after the edits: %+v", c)
+	}
+	if !p.root.form.Valid() {
+		t.Fatalf("the form is not valid: %v", p.root.form.Other())
+	}
+	r := p.root.Result()
+	if r == nil {
+		t.Fatal("no result")
+	}
+	want, err := solver.Solve(p.root.form.Model(), nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got := *r.Summary.Layers[0].SettlementElog; got != *want.Summary.Layers[0].SettlementElog {
+		t.Errorf("crust e–log settlement on the page %g m, native solve %g m", got, *want.Summary.Layers[0].SettlementElog)
+	}
+}

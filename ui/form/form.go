@@ -227,7 +227,8 @@ var pageFields = func() map[string]bool {
 	}
 	add("", "title", "notes", "gammaW", "waterTable", "times", "piezometers", "targetDegree", "designLife", "model")
 	add("layers[#].", "name", "thickness", "gammaSat", "gamma", "k", "mv", "mvUnload", "calpha", "calphaCc", "calphaReduced",
-		"ecurve.e0", "ecurve.cc", "ecurve.cr", "ecurve.sigmaP", "ecurve.ocr", "ecurve.pop", "ecurve.ck")
+		"ecurve.e0", "ecurve.cc", "ecurve.cr", "ecurve.sigmaP", "ecurve.ocr", "ecurve.pop", "ecurve.ck",
+		"ecurve.sigmaPProfile[#].z", "ecurve.sigmaPProfile[#].value")
 	for _, end := range []string{"top.", "bottom."} {
 		add(end, "head", "inflow", "excess[#].t", "excess[#].value")
 	}
