@@ -62,6 +62,43 @@ func BenchmarkLargeColumnQuadratic(b *testing.B) {
 	}
 }
 
+// softClayColumn is a 10 m normally consolidated clay under a 100 kPa
+// preload, drained at both ends, with 2,000 linear elements over the
+// default steps: on the linear model (mv derived from the curve) or on the
+// non-linear one (Ck = 0.5 e0).
+func softClayColumn(model string) *Project {
+	return &Project{
+		Format: Format, Model: model,
+		Layers: []Layer{{Thickness: 10, GammaSat: 16, K: 1e-9,
+			ECurve: &ECurve{E0: 1.8, Cc: 0.6, Cr: 0.06, Ck: 0.9}}},
+		WaterTable: 0,
+		Top:        Boundary{Drained: true}, Bottom: Boundary{Drained: true},
+		Loads: []Load{{Start: 0, Q: 100}},
+		Mesh:  MeshSettings{MaxSize: 10.0 / 2000},
+	}
+}
+
+// BenchmarkSoftClayLinear and BenchmarkSoftClayNonlinear compare the cost
+// of the two models on one column (issue 11's goal: non-linear ≤ 3× the
+// linear cost per node-step). Both report ns per node-step.
+func BenchmarkSoftClayLinear(b *testing.B)    { benchSoftClay(b, ModelLinear) }
+func BenchmarkSoftClayNonlinear(b *testing.B) { benchSoftClay(b, ModelNonlinear) }
+
+func benchSoftClay(b *testing.B, model string) {
+	p := softClayColumn(model)
+	b.ReportAllocs()
+	var r *Result
+	for b.Loop() {
+		var err error
+		if r, err = Solve(p, nil); err != nil {
+			b.Fatal(err)
+		}
+	}
+	work := float64(r.Stats.Nodes * r.Stats.Steps)
+	b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/work, "ns/node-step")
+	b.ReportMetric(float64(r.Stats.Iterations)/float64(r.Stats.Steps), "iter/step")
+}
+
 // BenchmarkDrains is BenchmarkLargeColumn at 10,000 elements with band
 // drains (smear and well resistance) through the whole column, without
 // the reference solve; BenchmarkNoDrains is the same column without them.

@@ -30,8 +30,8 @@ import (
 // so nil and empty slices, and nil and zero pointers, survive the round
 // trip, and a decoded value is reflect.DeepEqual to the encoded one.
 const (
-	resultMagic  = "porelight-result-2\n"  // 2: stage stresses, submerged fill
-	projectMagic = "porelight-project-2\n" // 2: fills and loaded areas
+	resultMagic  = "porelight-result-2\n"  // 2: stage stresses, submerged fill, the soil model's series
+	projectMagic = "porelight-project-2\n" // 2: fills and loaded areas, drains, the soil model
 )
 
 // errBinary is the reason of every error of UnmarshalBinary.

@@ -64,6 +64,15 @@ const (
 	MaxOCR    = 1000.0
 	MaxCalpha = 1.0
 
+	// MinCk and MaxCk bound ecurve.ck, the permeability change index of
+	// the non-linear model (soft clays 0.3–1.5, about 0.5 e0). At the
+	// lower bound with the largest Cc a compression can still make k
+	// underflow: the factorisation then fails with ErrNumerical.
+	// MaxCalphaCc bounds calphaCc (Cα/Cc is 0.02–0.1 for clays and peats).
+	MinCk       = 0.05
+	MaxCk       = 50.0
+	MaxCalphaCc = 1.0
+
 	// MaxStress bounds every stress and pressure the file gives, kPa, in
 	// absolute value: loads[j].q, ecurve.sigmaP, boundary excess values,
 	// initialExcess values (100 MPa; a 50 m fill is about 1 MPa).

@@ -45,6 +45,15 @@ type consolidation struct {
 	negativeWarned bool
 	probes         []probe
 	steps          int
+
+	// The iterated time loop (nil: the linear stepper): the non-linear
+	// model, or the linear model with a swelling mv, and each layer's
+	// final settlement along the drained path under its laws.
+	nl        *nonlinear
+	nlDrained []float64
+	nlFinal   []float64 // per layer: the final settlement from the end state
+
+	ends *primaryEnds // per layer end of primary (nil: no layer has a Cα)
 }
 
 // probe is a piezometer: where to read the excess, and the steady pore
@@ -64,10 +73,17 @@ func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path
 	k.sublayers()
 	k.deriveMv()
 	k.submerge()
+	k.iterated()
 	k.linearSummary()
 	if err := k.march(); err != nil {
 		return err
 	}
+	if k.nl != nil {
+		k.nl.warnings(warn)
+		r.Stats.Iterations = k.nl.iterations
+	}
+	k.finalNonlinear()
+	k.headline()
 	k.elogSummary()
 	k.degreeTimes()
 	k.secondary()
@@ -106,7 +122,7 @@ func (k *consolidation) sublayers() {
 	k.curved = make([]bool, ne)
 	k.elogDrained = make([]float64, len(p.Layers))
 	k.drainedDelta = make([]float64, len(p.Layers))
-	warned := make([]bool, len(p.Layers))
+	pw := preconsolidationWarner{warn: k.warn}
 	for e := range ne {
 		_, z0, z1 := m.Span(e)
 		zc := (z0 + z1) / 2
@@ -118,11 +134,8 @@ func (k *consolidation) sublayers() {
 			continue
 		}
 		ec := l.ECurve
-		if ec.SigmaP > 0 && ec.SigmaP < s0 && !warned[li] {
-			warned[li] = true
-			k.warn(fmt.Sprintf("layers[%d].ecurve.sigmaP", li), fmt.Sprintf("σ'p = %g kPa is below the in-situ effective stress (%.3g kPa at %.3g m); taken as normally consolidated there", ec.SigmaP, s0, zc))
-		}
-		k.points[e] = soil.NewPoint(curveOf(ec), z1-z0, s0, soil.Preconsolidation(ec.SigmaP, ec.OCR, s0))
+		pw.check(li, ec, zc, s0)
+		k.points[e] = soil.NewPoint(curveOf(ec), z1-z0, s0, PreconsolidationAt(ec, zc, s0))
 		k.curved[e] = true
 	}
 	if !k.anyCurve {
@@ -168,7 +181,7 @@ func (k *consolidation) deriveMv() {
 			zc := k.c.tops[i] + l.Thickness/2
 			s0 := math.Max(m.Interpolate(k.st.Effective, zc), soil.MinEffective)
 			ec := l.ECurve
-			k.mv[i] = soil.TangentMv(curveOf(ec), s0, soil.Preconsolidation(ec.SigmaP, ec.OCR, s0))
+			k.mv[i] = soil.TangentMv(curveOf(ec), s0, PreconsolidationAt(ec, zc, s0))
 		}
 		k.warn(fmt.Sprintf("layers[%d].mv", i), fmt.Sprintf("mv derived from the e–log curve: %.3g 1/kPa", k.mv[i]))
 	}
@@ -185,7 +198,11 @@ func (k *consolidation) linearSummary() {
 		r.Steady.Layers[i].Cv = ptr(ls.Cv)
 	}
 	sum := 0.0
-	for i, s := range k.tr.layerSettlement(k.sigInf, k.uInf) {
+	final := k.tr.layerSettlement(k.sigInf, k.uInf)
+	if k.nl != nil && !k.nonlinearModel() {
+		final = k.nlDrained // the linear laws, with their swelling mv
+	}
+	for i, s := range final {
 		r.Summary.Layers[i].SettlementLinear = s
 		sum += s
 	}
@@ -205,6 +222,12 @@ func (k *consolidation) prepareSeries() *Consolidation {
 		ser.Piezometers = append(ser.Piezometers, Piezometer{Depth: z})
 	}
 	k.denS = dot(tr.wMass, k.sigInf) - dot(tr.wMass, k.uInf)
+	if k.nl != nil {
+		k.denS = 0
+		for _, s := range k.nlDrained {
+			k.denS += s
+		}
+	}
 	k.denP = dot(tr.wLength, k.sigInf) - dot(tr.wLength, k.uInf)
 	k.defined = math.Abs(k.denS) > 1e-12*math.Max(1, math.Abs(*k.r.Summary.SettlementLinear)) && (len(tr.held) > 0 || k.c.drains != nil)
 	// Up's denominator ∫Δσ'∞ dz vanishes when the final change of
@@ -231,9 +254,10 @@ func (k *consolidation) prepareSeries() *Consolidation {
 	if k.definedUp {
 		ser.Up = make([]float64, 0, capacity)
 	}
-	if k.allCurves {
+	if k.anyCurve {
 		ser.SettlementElog = make([]float64, 0, capacity)
 	}
+	k.prepareEnds(capacity)
 	for i := range ser.Piezometers {
 		ser.Piezometers[i].Pore = make([]float64, 0, capacity)
 		ser.Piezometers[i].Excess = make([]float64, 0, capacity)
@@ -270,6 +294,9 @@ func (k *consolidation) record(ser *Series, t float64) {
 		sNow += w * d
 		pNow += tr.wLength[i] * d
 	}
+	if k.nl != nil {
+		sNow = k.nl.settlement()
+	}
 	ser.Settlement = append(ser.Settlement, sNow)
 	tr.settled = sNow // the submergence of the next step follows it
 	if k.defined {
@@ -278,7 +305,12 @@ func (k *consolidation) record(ser *Series, t float64) {
 	if k.definedUp {
 		ser.Up = append(ser.Up, pNow/k.denP)
 	}
-	if k.followStress {
+	if k.nonlinearModel() {
+		// The iteration moved the points; the series is the one solution.
+		if k.anyCurve {
+			ser.SettlementElog = append(ser.SettlementElog, sNow)
+		}
+	} else if k.followStress {
 		total := 0.0
 		for e := range k.points {
 			s := &k.points[e]
@@ -288,14 +320,24 @@ func (k *consolidation) record(ser *Series, t float64) {
 				_, z0, z1 := m.Span(e)
 				k.warn("loads", fmt.Sprintf("the effective stress falls below zero at %.3g m near %.4g days: the soil would lose contact (heave); results there are not physical", (z0+z1)/2, t))
 			}
-			if k.curved[e] {
+			switch {
+			case k.curved[e]:
 				s.MoveTo(to)
 				total += s.Settlement()
+			case !k.anyCurve:
+			case k.nl != nil:
+				total += k.nl.strain[e] // its mv, with its swelling mv
+			default:
+				total += k.mv[m.Layer[e]] * (m.Integrate(tr.sigma, e) - m.Integrate(tr.u, e))
 			}
 		}
-		if k.allCurves {
+		if k.anyCurve {
 			ser.SettlementElog = append(ser.SettlementElog, total)
 		}
+	}
+	if k.ends != nil {
+		k.layerNow(k.ends.now)
+		k.ends.observe(t, k.ends.now)
 	}
 	for i := range k.probes {
 		pz := &k.probes[i]
@@ -339,7 +381,11 @@ func (k *consolidation) march() error {
 			theta = 1
 			damp--
 		}
-		if err := tr.step(theta, t, h); err != nil {
+		step := tr.step
+		if k.nl != nil {
+			step = k.nl.step
+		}
+		if err := step(theta, t, h); err != nil {
 			return err
 		}
 		k.steps++
@@ -397,9 +443,13 @@ func (k *consolidation) elogSummary() {
 		if l.ECurve != nil {
 			r.Summary.Layers[i].SettlementElog = ptr(layer[i])
 			sum += layer[i]
+			continue
 		}
+		// A layer without a curve adds its mv settlement, named.
+		sum += r.Summary.Layers[i].SettlementLinear
+		r.Summary.ElogFromMv = append(r.Summary.ElogFromMv, i)
 	}
-	if k.allCurves {
+	if k.anyCurve {
 		r.Summary.SettlementElog = ptr(sum)
 	}
 }
@@ -420,47 +470,6 @@ func (k *consolidation) degreeTimes() {
 	if u := ser.Us[len(ser.Us)-1]; math.Abs(u-1) > 0.01 {
 		k.warn("stepping.endTime", fmt.Sprintf("consolidation is %.1f %% complete at the end of the simulation (%.4g days)", 100*u, k.bps[len(k.bps)-1].t))
 	}
-}
-
-// endOfPrimary is the degree of consolidation taken as the end of primary
-// consolidation, where secondary compression starts.
-const endOfPrimary = 0.95
-
-// secondary estimates the secondary compression of every layer with a Cα
-// at the design life (Mesri 1973), from the time Us reaches endOfPrimary.
-func (k *consolidation) secondary() {
-	p, r := k.c.p, k.r
-	if !k.defined {
-		return
-	}
-	ser := &r.Consolidation.Series
-	tp := crossing(ser.Time, ser.Us, endOfPrimary)
-	sec, any := 0.0, false
-	for i, l := range p.Layers {
-		if l.Calpha <= 0 || l.ECurve == nil {
-			continue
-		}
-		any = true
-		if tp == nil {
-			continue
-		}
-		strain := r.Summary.Layers[i].SettlementLinear / l.Thickness
-		if s := r.Summary.Layers[i].SettlementElog; s != nil {
-			strain = *s / l.Thickness
-		}
-		ep := l.ECurve.E0 - strain*(1+l.ECurve.E0)
-		s := soil.Secondary(l.Calpha, l.Thickness, ep, r.Summary.DesignLife, *tp)
-		r.Summary.Layers[i].Secondary = ptr(s)
-		sec += s
-	}
-	if !any {
-		return
-	}
-	if tp == nil {
-		k.warn("designLife", "primary consolidation does not reach 95 % in the simulated time: no secondary compression estimate")
-		return
-	}
-	r.Summary.Secondary = ptr(sec)
 }
 
 // earlyTimes warns about output times before anything changes.
@@ -511,4 +520,84 @@ func (c *column) meshWarnings(mv []float64, warn func(path, msg string)) {
 			warn(fmt.Sprintf("layers[%d]", i), fmt.Sprintf("the mesh (elements of %.3g m) cannot resolve the pressure in %q before about %.3g days; the isochrone at %g days is coarse there; use a smaller mesh.maxSize", h, l.Name, tres, t1))
 		}
 	}
+}
+
+// nonlinearModel reports whether the project asks for the non-linear
+// model.
+func (k *consolidation) nonlinearModel() bool { return k.c.p.Model == ModelNonlinear }
+
+// iterated sets up the iterated time loop when the project needs one: the
+// non-linear model (elements with an e–log curve follow it, the others
+// their mv), or the linear model with a swelling mv on some layer.
+func (k *consolidation) iterated() {
+	p := k.c.p
+	need := k.nonlinearModel()
+	for _, l := range p.Layers {
+		need = need || l.MvUnload > 0
+	}
+	if !need {
+		return
+	}
+	law := make([]bool, len(k.points))
+	pts := k.points
+	if k.nonlinearModel() {
+		copy(law, k.curved)
+		for i, l := range p.Layers {
+			if l.ECurve == nil {
+				k.warn(fmt.Sprintf("layers[%d].ecurve", i), "no e–log curve: this layer follows its mv (constant k) in the non-linear model, and its mv settlement is part of the total")
+			}
+		}
+	} else {
+		pts = append([]soil.Point(nil), k.points...) // the e–log estimate keeps its own
+	}
+	k.nl = newNonlinear(k.tr, pts, law, k.mv, k.tr.stressScale())
+	k.nlDrained = k.nl.drained(k.bps, k.sigInf, k.uInf)
+}
+
+// finalNonlinear takes the iterated model's final settlement from its end
+// state (nl.projected): a load removed before the soil has drained only
+// counts for the compression it caused, which the drained path of the
+// stages (used while stepping) overstates. Us is rescaled to it.
+func (k *consolidation) finalNonlinear() {
+	if k.nl == nil {
+		return
+	}
+	k.nlFinal = k.nl.projected(k.sigInf, k.uInf)
+	den := 0.0
+	for _, s := range k.nlFinal {
+		den += s
+	}
+	ser := &k.r.Consolidation.Series
+	if !k.defined || math.Abs(den) <= 1e-12*math.Max(1, math.Abs(k.denS)) {
+		return
+	}
+	f := k.denS / den
+	for i := range ser.Us {
+		ser.Us[i] *= f
+	}
+	k.denS = den
+}
+
+// headline names the model the summary's headline figures come from and
+// gives its final primary settlement: the iterated laws' drained path, or
+// ∫ mv Δσ' dz.
+func (k *consolidation) headline() {
+	r := k.r
+	r.Summary.Model = ModelLinear
+	if k.nonlinearModel() {
+		r.Summary.Model = ModelNonlinear
+	}
+	s := *r.Summary.SettlementLinear
+	if k.nl != nil {
+		s = 0
+		for i, v := range k.nlFinal {
+			r.Summary.Layers[i].Settlement = v
+			s += v
+		}
+	} else {
+		for i := range r.Summary.Layers {
+			r.Summary.Layers[i].Settlement = r.Summary.Layers[i].SettlementLinear
+		}
+	}
+	r.Summary.Settlement = ptr(s)
 }

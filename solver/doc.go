@@ -139,7 +139,9 @@
 //
 // With σ(z, t) the total stress change and u(z, t) the pore pressure
 // change, the linear settlement is s(t) = ∫ mv (σ − u) dz; unloading
-// returns along the same mv. The final state has every load applied and
+// returns along the same mv unless the layer gives a swelling mv
+// (Layer.MvUnload, used below the largest past effective stress; then
+// the loop iterates as for the non-linear model below). The final state has every load applied and
 // u∞ the steady pore pressure change under the final boundary values. The
 // average degrees of consolidation are, relative to that final state,
 //
@@ -153,7 +155,8 @@
 //
 // The e–log σ' settlement (Terzaghi & Peck 1967) is evaluated per element
 // (a sublayer) at its centre, from the initial effective stress of the
-// steady state and σ'p (given, or OCR·σ'0, or σ'0): recompression and
+// steady state and σ'p (given; OCR·σ'0; σ'0 + POP; a table of σ'p against
+// depth; or σ'0, normally consolidated): recompression and
 // swelling follow Cr, loading beyond the largest past stress follows Cc.
 // Both the series and the final figure follow the effective stress the
 // consolidation gives at every step, so a surcharge removed before it has
@@ -161,9 +164,52 @@
 // is the value at the end of the simulation (a warning says when
 // consolidation is not complete by then). Where a layer gives no mv, it is
 // the secant of its e–log curve over the final stress change along the
-// fully drained path through every load breakpoint. Secondary compression
-// (Mesri 1973) is Cα H/(1+ep) log10(t/tp) per layer at Project.DesignLife,
-// with tp the time at which Us reaches 95 %.
+// fully drained path through every load breakpoint. A layer without an
+// e–log curve adds its mv settlement to the e–log total
+// (Summary.ElogFromMv names it).
+//
+// Secondary compression (Mesri 1973) is Cα H/(1+ep) log10((t − t0)/(tp −
+// t0)) per layer at Project.DesignLife, from the layer's own end of
+// primary tp (its own settlement reaching 95 % of its final settlement)
+// with time counted from the start t0 of the load stage tp follows; Cα is
+// Layer.Calpha or Layer.CalphaCc·Cc (Mesri & Godlewski 1977). After a
+// removal of load, Layer.CalphaReduced replaces Cα when given (without it
+// a warning says the rate is overestimated). Series.Secondary is the sum
+// at every step.
+//
+// # The non-linear model
+//
+// With Project.Model = "nonlinear" every element carries its state: the
+// effective stress σ', the largest past effective stress and the void
+// ratio e, at the element's mean stress. Its compressibility follows the
+// e–log σ' curve (Cc beyond the largest past stress, Cr below it, so that
+// an unload swells along Cr with its own, faster cv) and its permeability
+// follows log10 k = log10 k0 + (e − e0)/Ck (Tavenas et al. 1983; k0 is
+// the layer's k, Ck the curve's ck; without ck, k stays constant). A layer
+// without a curve keeps its mv (and swelling mv) and its k. Every step
+// solves the θ-method with the secant mv of each element over the step,
+// Δε/Δσ', and k at the void ratio of the step's θ-point,
+//
+//	(M(u¹) + θΔt K(u¹)) u¹ = (M(u¹) − (1−θ)Δt K(u¹)) u⁰ + M(u¹) (σ¹ − σ⁰),
+//
+// (k held within MinK … MaxK, the bounds of layers[i].k), by Picard
+// iteration on the same banded assembly, each update relaxed
+// by Aitken's factor (Irons & Tuck 1969), from a first iterate
+// extrapolated from the last two steps, until the largest change of
+// excess pressure between iterates is at most NonlinearTolerance (1e-6)
+// of the project's largest stress change; a step that has not converged
+// in NonlinearMaxIterations (30) keeps its last iterate and the result
+// warns, naming the step and a smaller stepping.firstStep. With the secant
+// the storage term is the change of strain, so the settlement read off the
+// elements is the water expelled. The settlement series, Us, t50, t90 and
+// the isochrones all come from this one solution; its final settlement is
+// the end state moved once to the fully drained final stress (so a
+// surcharge removed before the soil drained counts only for what it did),
+// and Us is relative to it. Checks: Davis & Raymond (1965) for constant
+// Cc and cv, the linear limit, unloading along Cr, observed orders 2 in h
+// and Δt. The model is small strain (1 + e0 throughout); large-strain
+// consolidation (Gibson et al. 1967) and creep beyond Cα after primary
+// are not covered.
 //
 // # Vertical drains
 //
@@ -259,8 +305,10 @@
 //	  "gammaW": 9.81,
 //	  "layers": [{"name": "Soft clay", "thickness": 3.0, "gammaSat": 18.5, "gamma": 17.0,
 //	              "k": 1e-9, "mv": 5e-4,
-//	              "ecurve": {"e0": 1.2, "cc": 0.45, "cr": 0.05, "sigmaP": 60},
-//	              "calpha": 0.01}],
+//	              "mvUnload": 1e-4,
+//	              "ecurve": {"e0": 1.2, "cc": 0.45, "cr": 0.05, "sigmaP": 60, "ck": 0.6},
+//	              "calpha": 0.01, "calphaReduced": 0.003}],
+//	  "model": "nonlinear",
 //	  "waterTable": 0.5,
 //	  "top":    {"drained": true, "head": -0.5},
 //	  "bottom": {"drained": false},
@@ -310,11 +358,22 @@
 //	layers[i].mv              1/kPa   10⁻⁹ … 1, or absent with an     ErrNotPositive, ErrOutOfRange,
 //	                                  ecurve                          ErrRequired
 //	layers[i].calpha          –       0 … 1, needs an ecurve          ErrNegative, ErrOutOfRange, ErrConflict
+//	layers[i].calphaCc        –       0 … 1, needs an ecurve; not     ErrNegative, ErrOutOfRange, ErrConflict
+//	                                  with calpha
+//	layers[i].calphaReduced   –       0 … 1, needs an ecurve          ErrNegative, ErrOutOfRange, ErrConflict
+//	layers[i].mvUnload        1/kPa   10⁻⁹ … 1 (absent: mv)           ErrNotPositive, ErrOutOfRange
 //	layers[i].ecurve.e0       –       > 0, ≤ 30                       ErrNotPositive, ErrOutOfRange
 //	layers[i].ecurve.cc       –       > 0, ≤ 20                       ErrNotPositive, ErrOutOfRange
 //	layers[i].ecurve.cr       –       0 ≤ cr ≤ cc                     ErrNegative, ErrOutOfRange
 //	layers[i].ecurve.sigmaP   kPa     > 0, ≤ 10⁵; not with ocr        ErrNotPositive, ErrOutOfRange, ErrConflict
 //	layers[i].ecurve.ocr      –       1 … 1000; not with sigmaP       ErrOutOfRange, ErrConflict
+//	layers[i].ecurve.pop      kPa     0 … 10⁵; one way of σ'p only    ErrNegative, ErrOutOfRange, ErrConflict
+//	layers[i].ecurve.sigmaPProfile[k].z  m: −10⁴ … 10⁴, increasing    ErrOutOfRange, ErrNotSorted
+//	layers[i].ecurve.sigmaPProfile[k].value kPa: > 0, ≤ 10⁵; one way  ErrNotPositive, ErrOutOfRange,
+//	                                  of σ'p only                     ErrConflict
+//	layers[i].ecurve.ck       –       0.05 … 50 (absent: k constant)  ErrNotPositive, ErrOutOfRange
+//	model                     –       "linear" (absent) or            ErrOutOfRange
+//	                                  "nonlinear"
 //	top|bottom.head           m       −10⁴ … 10⁴; drained end only    ErrOutOfRange, ErrConflict
 //	top|bottom.inflow         m/s     −1 … 1; undrained end, and the  ErrOutOfRange, ErrConflict
 //	                                  other end drained
@@ -345,7 +404,7 @@
 //	initialExcess[k].value    kPa     −10⁵ … 10⁵                      ErrOutOfRange
 //	times[j]                  day     > 0, ≤ 10⁹, increasing          ErrNotPositive, ErrOutOfRange, ErrNotSorted
 //	times                     –       nodes × (count + 7) + steps ×   ErrTooLarge
-//	                                  (6 + 2 piezometers) ≤ MaxStored
+//	                                  (7 + 2 piezometers) ≤ MaxStored
 //	piezometers[j]            m       0 … column height               ErrNegative, ErrOutOfRange
 //	targetDegree              –       0 < value < 1 (absent: 0.95)    ErrOutOfRange
 //	designLife                day     > 0, ≤ 10⁹ (absent: 50 years)   ErrNotPositive, ErrOutOfRange
@@ -398,17 +457,23 @@
 // permeability outside 1e-13 … 1 m/s, a fine-grained layer (k < 1e-7 m/s)
 // with cv outside 0.01 … 1000 m²/year, a layer thinner than the element
 // size, a loaded area narrower than the column is deep, σ'p below the
-// in-situ effective stress, suction or negative effective stress in the
-// steady state, and a column that cannot drain.
+// in-situ effective stress, an OCR that leaves less than 5 kPa of σ'p near
+// the surface, a layer without an e–log curve in the non-linear model, a
+// load removal without a reduced Cα, a non-linear step that did not
+// converge, suction or negative effective stress in the steady state, and
+// a column that cannot drain.
 //
 // # Scope
 //
 // The column is saturated, one-dimensional and small strain; flow follows
-// Darcy's law (toward drains: the unit cell under equal strain); k and mv
-// are constant in each layer and in time. The stress under a finite load
+// Darcy's law (toward drains: the unit cell under equal strain); in the
+// linear model k and mv are constant in each layer and in time (with an
+// optional swelling mv), in the non-linear model they follow each
+// element's state on the e–log σ' curve. The stress under a finite load
 // spreads as in a homogeneous elastic half-space (or by the 2:1 rule),
 // whatever the layering. Results are not valid for unsaturated soil,
-// large strains, creep-dominated soils, two- or three-dimensional flow or
+// large strains, creep-dominated soils (creep beyond secondary
+// compression with Cα after primary), two- or three-dimensional flow or
 // deformation, or loads that fail the ground. They are estimates for
 // qualified engineers; local codes and
 // licensed engineering practice govern any design.

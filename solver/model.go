@@ -51,6 +51,12 @@ type Project struct {
 	DesignLife float64 `json:"designLife,omitempty"`
 	// Monitoring holds field readings to compare with the prediction.
 	Monitoring *Monitoring `json:"monitoring,omitempty"`
+	// Model is the consolidation model: ModelLinear ("linear", also the
+	// meaning of "") keeps k and mv of every layer fixed for the whole
+	// solve; ModelNonlinear ("nonlinear") gives every element its own state
+	// (effective stress, largest past effective stress, void ratio) and
+	// follows the layer's e–log σ' curve and permeability law step by step.
+	Model string `json:"model,omitempty"`
 	// Drains, when given, is a pattern of vertical drains over a depth
 	// range of the column; nil means none.
 	Drains *Drains `json:"drains,omitempty"`
@@ -58,6 +64,12 @@ type Project struct {
 	Mesh     MeshSettings `json:"mesh,omitzero"`
 	Stepping Stepping     `json:"stepping,omitzero"`
 }
+
+// The consolidation models (Project.Model).
+const (
+	ModelLinear    = "linear"
+	ModelNonlinear = "nonlinear"
+)
 
 // Units names the units of a project file. Only the SI set is accepted.
 type Units struct {
@@ -85,11 +97,26 @@ type Layer struct {
 	// "derive it from ECurve" over the layer's stress range; then ECurve is
 	// required.
 	Mv float64 `json:"mv,omitempty"`
+	// MvUnload is the coefficient of volume compressibility on unloading
+	// and on reloading below the largest past effective stress (the
+	// swelling modulus), 1/kPa, for the layers that follow mv. Zero means
+	// Mv: unloading rebounds along the loading slope.
+	MvUnload float64 `json:"mvUnload,omitempty"`
 	// ECurve gives the e–log σ' parameters for the settlement estimate.
 	ECurve *ECurve `json:"ecurve,omitempty"`
 	// Calpha is the coefficient of secondary compression (Δe per log10
 	// cycle of time), ≥ 0. Zero means no secondary compression.
 	Calpha float64 `json:"calpha,omitempty"`
+	// CalphaCc gives Cα as a fraction of ecurve.cc instead (Mesri &
+	// Godlewski 1977: about 0.04 for inorganic clays, 0.05–0.07 for
+	// organic ones, common practice as a hint only), ≥ 0; give Calpha or
+	// CalphaCc, not both.
+	CalphaCc float64 `json:"calphaCc,omitempty"`
+	// CalphaReduced, when given, is the Cα that applies once a surcharge
+	// has been removed (unloading slows secondary compression for a
+	// while); without it the full Cα is used and the solve warns that the
+	// rate is then overestimated. ≥ 0.
+	CalphaReduced float64 `json:"calphaReduced,omitempty"`
 	// Ch is the coefficient of consolidation for horizontal flow,
 	// m²/day, read only where drains reach. Zero means KhKv × cv.
 	Ch float64 `json:"ch,omitempty"`
@@ -107,11 +134,25 @@ type ECurve struct {
 	Cc float64 `json:"cc"`
 	// Cr is the recompression (and swelling) index, ≥ 0 and ≤ Cc.
 	Cr float64 `json:"cr"`
-	// SigmaP is the preconsolidation stress, kPa. Give SigmaP or OCR, not
-	// both; with neither the layer is normally consolidated.
+	// SigmaP is the preconsolidation stress, kPa, the same at every depth
+	// of the layer. With none of SigmaP, OCR, POP and SigmaPProfile the
+	// layer is normally consolidated.
 	SigmaP float64 `json:"sigmaP,omitempty"`
 	// OCR is the overconsolidation ratio σ'p/σ'0 at each depth, ≥ 1.
 	OCR float64 `json:"ocr,omitempty"`
+	// POP is the pre-overburden pressure, kPa ≥ 0: σ'p = σ'0 + POP at
+	// every depth (the usual description of a crust). Give at most one of
+	// SigmaP, OCR, POP and SigmaPProfile.
+	POP float64 `json:"pop,omitempty"`
+	// SigmaPProfile gives σ'p against depth below the top of the column
+	// (z in m, value in kPa > 0; linear between points, constant beyond
+	// them), e.g. from oedometer tests at several depths.
+	SigmaPProfile []DepthValue `json:"sigmaPProfile,omitempty"`
+	// Ck is the permeability change index of the non-linear model:
+	// log10 k = log10 k0 + (e − e0)/Ck (Tavenas et al. 1983), with k0 the
+	// layer's k at the in-situ void ratio e0. Zero means k stays constant.
+	// The linear model ignores it.
+	Ck float64 `json:"ck,omitempty"`
 }
 
 // Boundary is the condition at one end of the column.

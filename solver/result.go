@@ -143,10 +143,14 @@ type Series struct {
 	Us []float64 `json:"us,omitempty"`
 	Up []float64 `json:"up,omitempty"`
 	// Settlement is the primary settlement from mv, m (positive down);
-	// SettlementElog from the e–log σ' curves (empty when a layer lacks
-	// one).
+	// SettlementElog from the e–log σ' curves (empty when no layer has
+	// one; the layers of Summary.ElogFromMv add their mv settlement).
 	Settlement     []float64 `json:"settlement"`
 	SettlementElog []float64 `json:"settlementElog,omitempty"`
+	// Secondary is the secondary compression at each time, m, the sum of
+	// every layer's from its own end of primary (empty when no layer has
+	// a Cα); it adds to Settlement.
+	Secondary []float64 `json:"secondary,omitempty"`
 	// Piezometers holds the pore pressure histories at the requested
 	// depths, in the order given.
 	Piezometers []Piezometer `json:"piezometers,omitempty"`
@@ -191,11 +195,20 @@ type Piezometer struct {
 // Summary collects the headline figures. Pointer fields are nil where the
 // figure does not exist (no load, never reached in the simulated time).
 type Summary struct {
+	// Model is the consolidation model the series and the headline
+	// figures (Settlement, T50, T90, TTarget, Secondary) come from:
+	// ModelLinear or ModelNonlinear.
+	Model string `json:"model,omitempty"`
+	// Settlement is the final primary settlement of that model, m: along
+	// the fully drained path of the load history, the state Us refers to.
+	Settlement *float64 `json:"settlement,omitempty"`
 	// SettlementLinear is the final primary settlement from mv, m.
 	SettlementLinear *float64 `json:"settlementLinear,omitempty"`
 	// SettlementElog is the final primary settlement from the e–log σ'
-	// curves, m (nil unless every layer has one).
+	// curves, m (nil when no layer has one); the layers listed in
+	// ElogFromMv have none and add their mv settlement to it.
 	SettlementElog *float64 `json:"settlementElog,omitempty"`
+	ElogFromMv     []int    `json:"elogFromMv,omitempty"`
 	// T50, T90 and TTarget are the times to Us = 50 %, 90 % and
 	// TargetDegree, days.
 	T50     *float64 `json:"t50,omitempty"`
@@ -227,15 +240,27 @@ type LayerSummary struct {
 	// settlements, m (SettlementElog nil without an e–log curve).
 	SettlementLinear float64  `json:"settlementLinear"`
 	SettlementElog   *float64 `json:"settlementElog,omitempty"`
-	Secondary        *float64 `json:"secondary,omitempty"`
+	// Settlement is this layer's final primary settlement under
+	// Summary.Model, m: its mv settlement in the linear model (with the
+	// swelling mv where given), its e–log settlement in the non-linear
+	// model, or its mv settlement there when it has no e–log curve.
+	Settlement float64  `json:"settlement"`
+	Secondary  *float64 `json:"secondary,omitempty"`
+	// SecondaryStart is when this layer's own degree of consolidation
+	// reaches 95 %, days: its end of primary, where its secondary
+	// compression starts.
+	SecondaryStart *float64 `json:"secondaryStart,omitempty"`
 }
 
 // Stats describe the numerical work of a solve.
 type Stats struct {
-	Nodes          int    `json:"nodes"`
-	Elements       int    `json:"elements"`
-	Order          int    `json:"order"`
-	Steps          int    `json:"steps"`
-	Factorizations int    `json:"factorizations"`
-	Scheme         string `json:"scheme,omitempty"`
+	Nodes          int `json:"nodes"`
+	Elements       int `json:"elements"`
+	Order          int `json:"order"`
+	Steps          int `json:"steps"`
+	Factorizations int `json:"factorizations"`
+	// Iterations counts the solves of the iterated time loop (non-linear
+	// model or swelling mv); zero for the linear stepper.
+	Iterations int    `json:"iterations,omitempty"`
+	Scheme     string `json:"scheme,omitempty"`
 }

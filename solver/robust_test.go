@@ -367,12 +367,36 @@ func randomProject(rng *rand.Rand) *Project {
 			case 1:
 				c.OCR = edge(1, MaxOCR)
 			}
-			l.ECurve = c
+			switch rng.IntN(4) {
+			case 0:
+				c.POP = edge(0, MaxStress)
+			case 1:
+				c.SigmaPProfile = []DepthValue{{Z: -edge(0, MaxDepth), Value: edge(1e-3, MaxStress)}, {Z: edge(1, MaxDepth), Value: edge(1e-3, MaxStress)}}
+			}
+			if c.SigmaP != 0 || c.OCR != 0 {
+				c.POP, c.SigmaPProfile = 0, nil
+			}
 			if rng.IntN(2) == 0 {
+				c.Ck = edge(MinCk, MaxCk)
+			}
+			l.ECurve = c
+			switch rng.IntN(3) {
+			case 0:
 				l.Calpha = edge(0, MaxCalpha)
+			case 1:
+				l.CalphaCc = edge(0, MaxCalphaCc)
+			}
+			if rng.IntN(4) == 0 {
+				l.CalphaReduced = edge(0, MaxCalpha)
 			}
 		}
+		if rng.IntN(4) == 0 {
+			l.MvUnload = edge(MinMv, MaxMv)
+		}
 		p.Layers = append(p.Layers, l)
+	}
+	if rng.IntN(2) == 0 {
+		p.Model = ModelNonlinear
 	}
 	p.WaterTable = sym(MaxHead)
 	for _, b := range []*Boundary{&p.Top, &p.Bottom} {

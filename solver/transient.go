@@ -198,17 +198,7 @@ func (tr *transient) stressWith(dst []float64, t float64, left bool, s float64) 
 // sigma holds σ⁰ on entry and σ¹ on return. No allocation once the factor
 // for (θ, Δt) is cached.
 func (tr *transient) step(theta, t0, dt float64) error {
-	// tmp = σ¹ − σ⁰, keeping σ¹ in sigma. Changes at t1 that are
-	// instantaneous belong to jump, not to the step.
-	var ds []float64
-	if tr.ramping(t0, t0+dt) {
-		copy(tr.tmp, tr.sigma)
-		tr.stressAt(tr.sigma, t0+dt, true)
-		for i := range tr.tmp {
-			tr.tmp[i] = tr.sigma[i] - tr.tmp[i]
-		}
-		ds = tr.tmp
-	}
+	ds := tr.stressStep(t0, dt)
 	tr.heldValues(tr.next, t0+dt, true)
 	if out := tr.outlet(); out != nil {
 		ds = tr.shiftToOutlet(out, ds, t0, t0+dt)
@@ -223,6 +213,22 @@ func (tr *transient) step(theta, t0, dt float64) error {
 		}
 	}
 	return nil
+}
+
+// stressStep moves sigma from σ⁰ to σ¹ over the step from t0 to t0+dt and
+// returns the change σ¹ − σ⁰ at the nodes (in tr.tmp), or nil when no ramp
+// acts. Changes at t0+dt that are instantaneous belong to jump, not to the
+// step.
+func (tr *transient) stressStep(t0, dt float64) []float64 {
+	if !tr.ramping(t0, t0+dt) {
+		return nil
+	}
+	copy(tr.tmp, tr.sigma)
+	tr.stressAt(tr.sigma, t0+dt, true)
+	for i := range tr.tmp {
+		tr.tmp[i] = tr.sigma[i] - tr.tmp[i]
+	}
+	return tr.tmp
 }
 
 // jump applies the instantaneous changes at time t: the undrained response

@@ -19,7 +19,7 @@ const (
 	// elements over 1,000 steps, a few seconds natively.
 	MaxWork = 250_000_000
 	// MaxStored caps the numbers one result holds: nodes × (output times
-	// + 7) for the profiles and isochrones, plus time steps × (6 + 2 ×
+	// + 7) for the profiles and isochrones, plus time steps × (7 + 2 ×
 	// piezometers) for the series. 4,000,000 numbers are 32 MB as float64
 	// and about 90 MB as JSON, well inside the page's 1 GiB of wasm memory.
 	MaxStored = 4_000_000
@@ -51,6 +51,11 @@ func Validate(p *Project) error {
 		gwOK = bounded(&ps, "gammaW", p.GammaW, MinGammaW, MaxGammaW, "kN/m³")
 	}
 	within(&ps, "waterTable", p.WaterTable, MaxHead, "m")
+	switch p.Model {
+	case "", ModelLinear, ModelNonlinear:
+	default:
+		ps.Add("model", ErrOutOfRange, fmt.Sprintf("got %q, the models are %q and %q", p.Model, ModelLinear, ModelNonlinear))
+	}
 
 	switch n := len(p.Layers); {
 	case n == 0:
@@ -79,6 +84,7 @@ func Validate(p *Project) error {
 		} else if l.ECurve == nil {
 			ps.Add(at+"mv", ErrRequired, "give mv, or an ecurve to derive it from")
 		}
+		validSoilModel(&ps, i, l)
 		if l.Calpha != 0 {
 			upTo(&ps, at+"calpha", l.Calpha, MaxCalpha, "")
 			if l.ECurve == nil {
@@ -167,6 +173,7 @@ func Validate(p *Project) error {
 		validMonitoring(&ps, p.Monitoring, height)
 	}
 	validDrains(&ps, p, height)
+	validIteratedWithDrains(&ps, p)
 
 	m := p.Mesh
 	if m.Order != 0 && m.Order != 1 && m.Order != 2 {
@@ -211,7 +218,7 @@ func Validate(p *Project) error {
 			ps.Add("stepping.firstStep", ErrTooLarge, fmt.Sprintf("about %d time steps, the limit is %d; use a larger stepping.firstStep or stepping.growth", steps, MaxSteps))
 		case float64(steps)*float64(nodes) > MaxWork:
 			ps.Add("stepping.firstStep", ErrTooLarge, fmt.Sprintf("about %d time steps × %d nodes, the limit is %d; use a larger stepping.firstStep or stepping.growth, or a larger mesh.maxSize", steps, nodes, MaxWork))
-		case float64(nodes)*float64(len(p.Times)+7)+float64(steps)*float64(6+2*len(p.Piezometers)+drainSeries(p)) > MaxStored:
+		case float64(nodes)*float64(len(p.Times)+7)+float64(steps)*float64(7+2*len(p.Piezometers)+drainSeries(p)) > MaxStored:
 			ps.Add("times", ErrTooLarge, fmt.Sprintf("the results would hold %d output times × %d nodes and %d time steps, more than the limit of %d numbers; use fewer output times or a larger mesh.maxSize", len(p.Times), nodes, steps, MaxStored))
 		}
 	}

@@ -3433,7 +3433,72 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 		vgparent.AppendChild(vgn)
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "h3", Attr: []vugu.VGAttribute(nil)}
 		vgparent.AppendChild(vgn)
-		vgn.SetInnerHTML(vugu.HTML("Compression and creep \x3Cspan class=\"pl-sub\"\x3Ee–log σ′ model; leave a row empty to use mv only\x3C/span\x3E"))
+		vgn.SetInnerHTML(vugu.HTML("Compression \x3Cspan class=\"pl-sub\"\x3Ee–log σ′ model; leave a row empty to use mv only\x3C/span\x3E"))
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-row"}}}
+		vgparent.AppendChild(vgn)
+		{
+			vgparent := vgn
+			_ = vgparent
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "model"}}}
+			vgparent.AppendChild(vgn)
+			{
+				vgparent := vgn
+				_ = vgparent
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+				vgparent.AppendChild(vgn)
+				vgn.SetInnerHTML(vugu.HTML("Consolidation model"))
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "select", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "model"}}}
+				vgparent.AppendChild(vgn)
+				{
+					b, err := vjson.Marshal(c.model())
+					if err != nil {
+						panic(err)
+					}
+					vgn.Prop = append(vgn.Prop, vugu.VGProperty{Key: "value", JSONVal: vjson.RawMessage(b)})
+				}
+				vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+					EventType: "change",
+					Func:      func(event vugu.DOMEvent) { c.setModel(event) },
+					// TODO: implement capture, etc. mostly need to decide syntax
+				})
+				{
+					vgparent := vgn
+					_ = vgparent
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "linear"}}}
+					vgparent.AppendChild(vgn)
+					vgn.AddAttrInterface("selected", c.model() == "linear")
+					{
+						vgparent := vgn
+						_ = vgparent
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "linear: k and mv fixed per layer"}
+						vgparent.AppendChild(vgn)
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "nonlinear"}}}
+					vgparent.AppendChild(vgn)
+					vgn.AddAttrInterface("selected", c.model() == "nonlinear")
+					{
+						vgparent := vgn
+						_ = vgparent
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "non-linear: each element follows its e–log σ′ curve"}
+						vgparent.AppendChild(vgn)
+					}
+				}
+			}
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: " "}
+			vgparent.AppendChild(vgn)
+			if c.F.Problem("model") != "" {
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-err"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "model-err"}}}
+				vgparent.AppendChild(vgn)
+				vgn.SetInnerHTML(c.F.Problem("model"))
+			}
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: " "}
+			vgparent.AppendChild(vgn)
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
+			vgparent.AppendChild(vgn)
+			vgn.SetInnerHTML(c.modelNote())
+		}
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "ecurves"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid"}}}
@@ -3445,7 +3510,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 			vgparent.AppendChild(vgn)
 			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
 			vgparent.AppendChild(vgn)
-			vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth class=\"pl-num\"\x3E#\x3C/th\x3E\x3Cth\x3ELayer\x3C/th\x3E\x3Cth\x3Ee0\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECc\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECr\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eσ′p\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EOCR\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECα\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
+			vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth class=\"pl-num\"\x3E#\x3C/th\x3E\x3Cth\x3ELayer\x3C/th\x3E\x3Cth\x3Ee0\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECc\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECr\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eσ′p\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EOCR\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EPOP\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECk\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
 			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 			vgparent.AppendChild(vgn)
 			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
@@ -3579,7 +3644,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 								vgcomp.Bare = true
 								vgcomp.Changed = c.Changed
 								vgcomp.F = c.F
-								vgcomp.Hint = "Give σ′p or OCR, not both; neither means normally consolidated"
+								vgcomp.Hint = "Give one of σ′p, OCR and POP; none means normally consolidated"
 								vgcomp.Label = "Preconsolidation stress of layer " + itoa(i+1)
 								vgcomp.Path = lp(i, "ecurve.sigmaP")
 								vgcomp.Unit = "kPa"
@@ -3608,7 +3673,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 								vgcomp.Bare = true
 								vgcomp.Changed = c.Changed
 								vgcomp.F = c.F
-								vgcomp.Hint = "Give σ′p or OCR, not both; neither means normally consolidated"
+								vgcomp.Hint = "Give one of σ′p, OCR and POP; none means normally consolidated"
 								vgcomp.Label = "Overconsolidation ratio of layer " + itoa(i+1)
 								vgcomp.Path = lp(i, "ecurve.ocr")
 								vgcomp.Unit = "–"
@@ -3637,9 +3702,383 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 								vgcomp.Bare = true
 								vgcomp.Changed = c.Changed
 								vgcomp.F = c.F
-								vgcomp.Hint = "Δe per log cycle of time; empty: no secondary compression"
+								vgcomp.Hint = "σ′p = σ′0 + POP at every depth (the usual way to describe a crust); give one of σ′p, OCR and POP"
+								vgcomp.Label = "Pre-overburden pressure of layer " + itoa(i+1)
+								vgcomp.Path = lp(i, "ecurve.pop")
+								vgcomp.Unit = "kPa"
+								vgout.Components = append(vgout.Components, vgcomp)
+								vgn = &vugu.VGNode{Component: vgcomp}
+								vgparent.AppendChild(vgn)
+							}
+						}
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+						vgparent.AppendChild(vgn)
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+						vgparent.AppendChild(vgn)
+						{
+							vgparent := vgn
+							_ = vgparent
+							{
+								vgcompKey := vugu.MakeCompKey(0xE0D022467C72EB79^vgin.CurrentPositionHash(), vgiterkey)
+								// ask BuildEnv for prior instance of this specific component
+								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+								if vgcomp == nil {
+									// create new one if needed
+									vgcomp = new(Field)
+									vgin.BuildEnv.WireComponent(vgcomp)
+								}
+								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+								vgcomp.Bare = true
+								vgcomp.Changed = c.Changed
+								vgcomp.F = c.F
+								vgcomp.Hint = "Non-linear model: log10 k = log10 k0 + (e − e0)/Ck, k0 the layer k (about 0.5 e0 is a common first guess); empty: k fixed"
+								vgcomp.Label = "Permeability change index of layer " + itoa(i+1)
+								vgcomp.Path = lp(i, "ecurve.ck")
+								vgcomp.Unit = "–"
+								vgout.Components = append(vgout.Components, vgcomp)
+								vgn = &vugu.VGNode{Component: vgcomp}
+								vgparent.AppendChild(vgn)
+							}
+						}
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+						vgparent.AppendChild(vgn)
+					}
+				}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+			}
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+			vgparent.AppendChild(vgn)
+		}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "details", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "sigmap-tables"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-advanced"}}}
+		vgparent.AppendChild(vgn)
+		{
+			vgparent := vgn
+			_ = vgparent
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "summary", Attr: []vugu.VGAttribute(nil)}
+			vgparent.AppendChild(vgn)
+			vgn.SetInnerHTML(vugu.HTML("σ′p against depth, per layer \x3Cspan class=\"pl-sub\"\x3Einstead of σ′p, OCR or POP; linear between points, constant beyond\x3C/span\x3E"))
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+			vgparent.AppendChild(vgn)
+			for i := range c.F.Draft().Layers {
+				var vgiterkey interface{} = i
+				_ = vgiterkey
+				i := i
+				_ = i
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-history"}}}
+				vgparent.AppendChild(vgn)
+				{
+					vgparent := vgn
+					_ = vgparent
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-sub"}}}
+					vgparent.AppendChild(vgn)
+					vgn.SetInnerHTML("Layer " + itoa(i+1) + " " + c.F.Draft().Layers[i].Name)
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					if len(c.sigmaPTable(i)) > 0 {
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-grid pl-small"}}}
+						vgparent.AppendChild(vgn)
+						vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-sigmap", i))
+						{
+							vgparent := vgn
+							_ = vgparent
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth\x3EDepth\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eσ′p\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkPa\x3C/span\x3E\x3C/th\x3E\x3Cth class=\"pl-noprint\"\x3E\x3Cspan class=\"pl-vh\"\x3ERemove\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							{
+								vgparent := vgn
+								_ = vgparent
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								for j := range c.sigmaPTable(i) {
+									var vgiterkey interface{} = j
+									_ = vgiterkey
+									j := j
+									_ = j
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
+									vgparent.AppendChild(vgn)
+									{
+										vgparent := vgn
+										_ = vgparent
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+										vgparent.AppendChild(vgn)
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+										vgparent.AppendChild(vgn)
+										{
+											vgparent := vgn
+											_ = vgparent
+											{
+												vgcompKey := vugu.MakeCompKey(0xC6FF8B0F512B0270^vgin.CurrentPositionHash(), vgiterkey)
+												// ask BuildEnv for prior instance of this specific component
+												vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+												if vgcomp == nil {
+													// create new one if needed
+													vgcomp = new(Field)
+													vgin.BuildEnv.WireComponent(vgcomp)
+												}
+												vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+												vgcomp.Bare = true
+												vgcomp.Changed = c.Changed
+												vgcomp.F = c.F
+												vgcomp.Label = fmt.Sprintf("Depth of σ′p point %d, layer %d", j+1, i+1)
+												vgcomp.Path = sigmaPPath(i, j, "z")
+												vgcomp.Unit = "m"
+												vgout.Components = append(vgout.Components, vgcomp)
+												vgn = &vugu.VGNode{Component: vgcomp}
+												vgparent.AppendChild(vgn)
+											}
+										}
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+										vgparent.AppendChild(vgn)
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+										vgparent.AppendChild(vgn)
+										{
+											vgparent := vgn
+											_ = vgparent
+											{
+												vgcompKey := vugu.MakeCompKey(0x5B47B1180EC9BA1^vgin.CurrentPositionHash(), vgiterkey)
+												// ask BuildEnv for prior instance of this specific component
+												vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+												if vgcomp == nil {
+													// create new one if needed
+													vgcomp = new(Field)
+													vgin.BuildEnv.WireComponent(vgcomp)
+												}
+												vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+												vgcomp.Bare = true
+												vgcomp.Changed = c.Changed
+												vgcomp.F = c.F
+												vgcomp.Label = fmt.Sprintf("σ′p of point %d, layer %d", j+1, i+1)
+												vgcomp.Path = sigmaPPath(i, j, "value")
+												vgcomp.Unit = "kPa"
+												vgout.Components = append(vgout.Components, vgcomp)
+												vgn = &vugu.VGNode{Component: vgcomp}
+												vgparent.AppendChild(vgn)
+											}
+										}
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+										vgparent.AppendChild(vgn)
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-noprint"}}}
+										vgparent.AppendChild(vgn)
+										{
+											vgparent := vgn
+											_ = vgparent
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-icon"}}}
+											vgparent.AppendChild(vgn)
+											vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-sigmap-%d-remove", i, j))
+											vgn.AddAttrInterface("title", fmt.Sprintf("Remove point %d", j+1))
+											vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+												EventType: "click",
+												Func:      func(event vugu.DOMEvent) { c.removeSigmaP(i, j) },
+												// TODO: implement capture, etc. mostly need to decide syntax
+											})
+											{
+												vgparent := vgn
+												_ = vgparent
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "×"}
+												vgparent.AppendChild(vgn)
+											}
+										}
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+										vgparent.AppendChild(vgn)
+									}
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+						}
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-noprint"}}}
+					vgparent.AppendChild(vgn)
+					vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-sigmap-add", i))
+					vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+						EventType: "click",
+						Func:      func(event vugu.DOMEvent) { c.addSigmaP(i) },
+						// TODO: implement capture, etc. mostly need to decide syntax
+					})
+					{
+						vgparent := vgn
+						_ = vgparent
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Add σ′p point"}
+						vgparent.AppendChild(vgn)
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+				}
+			}
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+			vgparent.AppendChild(vgn)
+		}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "h3", Attr: []vugu.VGAttribute(nil)}
+		vgparent.AppendChild(vgn)
+		vgn.SetInnerHTML(vugu.HTML("Unloading and secondary compression"))
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "creep"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid"}}}
+		vgparent.AppendChild(vgn)
+		{
+			vgparent := vgn
+			_ = vgparent
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+			vgparent.AppendChild(vgn)
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
+			vgparent.AppendChild(vgn)
+			vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth class=\"pl-num\"\x3E#\x3C/th\x3E\x3Cth\x3ELayer\x3C/th\x3E\x3Cth\x3Emv unloading\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E1/kPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECα\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECα/Cc\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECα after unloading\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+			vgparent.AppendChild(vgn)
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
+			vgparent.AppendChild(vgn)
+			{
+				vgparent := vgn
+				_ = vgparent
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+				for i := range c.F.Draft().Layers {
+					var vgiterkey interface{} = i
+					_ = vgiterkey
+					i := i
+					_ = i
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
+					vgparent.AppendChild(vgn)
+					{
+						vgparent := vgn
+						_ = vgparent
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+						vgparent.AppendChild(vgn)
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-num"}}}
+						vgparent.AppendChild(vgn)
+						vgn.SetInnerHTML(i + 1)
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+						vgparent.AppendChild(vgn)
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-name"}}}
+						vgparent.AppendChild(vgn)
+						vgn.SetInnerHTML(c.F.Draft().Layers[i].Name)
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+						vgparent.AppendChild(vgn)
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+						vgparent.AppendChild(vgn)
+						{
+							vgparent := vgn
+							_ = vgparent
+							{
+								vgcompKey := vugu.MakeCompKey(0x64F70B86CAAED030^vgin.CurrentPositionHash(), vgiterkey)
+								// ask BuildEnv for prior instance of this specific component
+								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+								if vgcomp == nil {
+									// create new one if needed
+									vgcomp = new(Field)
+									vgin.BuildEnv.WireComponent(vgcomp)
+								}
+								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+								vgcomp.Bare = true
+								vgcomp.Changed = c.Changed
+								vgcomp.F = c.F
+								vgcomp.Hint = "Swelling modulus, used below the largest past effective stress; empty: the loading mv"
+								vgcomp.Label = "Coefficient of volume compressibility on unloading, layer " + itoa(i+1)
+								vgcomp.Path = lp(i, "mvUnload")
+								vgcomp.Unit = "1/kPa"
+								vgout.Components = append(vgout.Components, vgcomp)
+								vgn = &vugu.VGNode{Component: vgcomp}
+								vgparent.AppendChild(vgn)
+							}
+						}
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+						vgparent.AppendChild(vgn)
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+						vgparent.AppendChild(vgn)
+						{
+							vgparent := vgn
+							_ = vgparent
+							{
+								vgcompKey := vugu.MakeCompKey(0xF3EBA29AC3A90306^vgin.CurrentPositionHash(), vgiterkey)
+								// ask BuildEnv for prior instance of this specific component
+								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+								if vgcomp == nil {
+									// create new one if needed
+									vgcomp = new(Field)
+									vgin.BuildEnv.WireComponent(vgcomp)
+								}
+								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+								vgcomp.Bare = true
+								vgcomp.Changed = c.Changed
+								vgcomp.F = c.F
+								vgcomp.Hint = "Δe per log cycle of time from the layer’s own end of primary; empty: no secondary compression"
 								vgcomp.Label = "Coefficient of secondary compression of layer " + itoa(i+1)
 								vgcomp.Path = lp(i, "calpha")
+								vgcomp.Unit = "–"
+								vgout.Components = append(vgout.Components, vgcomp)
+								vgn = &vugu.VGNode{Component: vgcomp}
+								vgparent.AppendChild(vgn)
+							}
+						}
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+						vgparent.AppendChild(vgn)
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+						vgparent.AppendChild(vgn)
+						{
+							vgparent := vgn
+							_ = vgparent
+							{
+								vgcompKey := vugu.MakeCompKey(0x3184E726D7F6684D^vgin.CurrentPositionHash(), vgiterkey)
+								// ask BuildEnv for prior instance of this specific component
+								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+								if vgcomp == nil {
+									// create new one if needed
+									vgcomp = new(Field)
+									vgin.BuildEnv.WireComponent(vgcomp)
+								}
+								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+								vgcomp.Bare = true
+								vgcomp.Changed = c.Changed
+								vgcomp.F = c.F
+								vgcomp.Hint = "Instead of Cα: about 0.04 for inorganic clays, 0.05–0.07 for organic ones (a hint only)"
+								vgcomp.Label = "Cα as a fraction of Cc, layer " + itoa(i+1)
+								vgcomp.Path = lp(i, "calphaCc")
+								vgcomp.Unit = "–"
+								vgout.Components = append(vgout.Components, vgcomp)
+								vgn = &vugu.VGNode{Component: vgcomp}
+								vgparent.AppendChild(vgn)
+							}
+						}
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+						vgparent.AppendChild(vgn)
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+						vgparent.AppendChild(vgn)
+						{
+							vgparent := vgn
+							_ = vgparent
+							{
+								vgcompKey := vugu.MakeCompKey(0x6EE6C50BE6168EDB^vgin.CurrentPositionHash(), vgiterkey)
+								// ask BuildEnv for prior instance of this specific component
+								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+								if vgcomp == nil {
+									// create new one if needed
+									vgcomp = new(Field)
+									vgin.BuildEnv.WireComponent(vgcomp)
+								}
+								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+								vgcomp.Bare = true
+								vgcomp.Changed = c.Changed
+								vgcomp.F = c.F
+								vgcomp.Hint = "Unloading slows secondary compression; empty: the full Cα (the rate is then overestimated)"
+								vgcomp.Label = "Cα after a surcharge is removed, layer " + itoa(i+1)
+								vgcomp.Path = lp(i, "calphaReduced")
 								vgcomp.Unit = "–"
 								vgout.Components = append(vgout.Components, vgcomp)
 								vgn = &vugu.VGNode{Component: vgcomp}
@@ -6731,7 +7170,40 @@ func (c *Tables) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 									vgparent.AppendChild(vgn)
 									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
 									vgparent.AppendChild(vgn)
-									vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth\x3ELayer\x3C/th\x3E\x3Cth\x3Emv used\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E1/kPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Ecv\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em²/day\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EFrom mv\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Emm\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Ee–log σ′\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Emm\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ESecondary\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Emm\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
+									{
+										vgparent := vgn
+										_ = vgparent
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
+										vgparent.AppendChild(vgn)
+										{
+											vgparent := vgn
+											_ = vgparent
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(vugu.HTML("Layer"))
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(vugu.HTML("mv used\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E1/kPa\x3C/span\x3E"))
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(vugu.HTML("cv\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em²/day\x3C/span\x3E"))
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(vugu.HTML("From mv\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Emm\x3C/span\x3E"))
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(vugu.HTML("e–log σ′\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Emm\x3C/span\x3E"))
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(c.modelHead())
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(vugu.HTML("End of primary\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Eday\x3C/span\x3E"))
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(vugu.HTML("Secondary\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Emm\x3C/span\x3E"))
+										}
+									}
 									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 									vgparent.AppendChild(vgn)
 									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
@@ -6768,6 +7240,12 @@ func (c *Tables) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
 												vgparent.AppendChild(vgn)
 												vgn.SetInnerHTML(optMM(l.SettlementElog))
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(sig(l.Settlement*1000, 3))
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(optSig(l.SecondaryStart, 4))
 												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
 												vgparent.AppendChild(vgn)
 												vgn.SetInnerHTML(optMM(l.Secondary))

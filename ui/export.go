@@ -33,14 +33,14 @@ func optCell(v *float64) string {
 // layersCSV is the per-layer table: steady figures and settlement.
 func layersCSV(r *solver.Result) ([]byte, error) {
 	rows := [][]string{{"layer", "top (m)", "base (m)", "gradient (-)", "upward", "critical gradient (-)", "heave factor (-)",
-		"mv (1/kPa)", "cv (m2/day)", "settlement from mv (m)", "settlement e-log (m)", "secondary (m)"}}
+		"mv (1/kPa)", "cv (m2/day)", "settlement from mv (m)", "settlement e-log (m)", "settlement of the model solved (m)", "end of primary (day)", "secondary (m)"}}
 	for i, l := range r.Steady.Layers {
 		row := []string{l.Name, cell(l.Top), cell(l.Bottom), cell(l.Gradient), fmt.Sprint(l.Upward), cell(l.CriticalGradient), optCell(l.HeaveFactor)}
 		if i < len(r.Summary.Layers) {
 			s := r.Summary.Layers[i]
-			row = append(row, cell(s.Mv), cell(s.Cv), cell(s.SettlementLinear), optCell(s.SettlementElog), optCell(s.Secondary))
+			row = append(row, cell(s.Mv), cell(s.Cv), cell(s.SettlementLinear), optCell(s.SettlementElog), cell(s.Settlement), optCell(s.SecondaryStart), optCell(s.Secondary))
 		} else {
-			row = append(row, "", optCell(l.Cv), "", "", "")
+			row = append(row, "", optCell(l.Cv), "", "", "", "", "")
 		}
 		rows = append(rows, row)
 	}

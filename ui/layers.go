@@ -3,6 +3,8 @@ package ui
 import (
 	"strconv"
 
+	"github.com/vugu/vugu"
+
 	"porelight/solver"
 	"porelight/solver/soil"
 	"porelight/ui/form"
@@ -43,3 +45,46 @@ func (c *Layers) cv(i int) string {
 func (c *Layers) height() string {
 	return "Column height " + sig(solver.ColumnHeight(c.F.Draft()), 4) + " m"
 }
+
+// model is the consolidation model of the draft ("linear" when none is
+// named).
+func (c *Layers) model() string {
+	if m := c.F.Draft().Model; m != "" {
+		return m
+	}
+	return solver.ModelLinear
+}
+
+// setModel applies the model chosen in the select.
+func (c *Layers) setModel(e vugu.DOMEvent) {
+	v := e.PropString("target", "value")
+	if v == solver.ModelLinear {
+		v = "" // the default, as files without the field read
+	}
+	c.F.Edit("model", v)
+	c.Changed()
+}
+
+// modelNote says what the chosen model does with the table below.
+func (c *Layers) modelNote() string {
+	if c.model() == solver.ModelNonlinear {
+		return "mv, k and cv change with each element’s effective stress and void ratio; layers without e–log parameters keep their mv and k."
+	}
+	return "The e–log σ′ settlement is read off this solution; its times may differ from the curve’s on soft clay."
+}
+
+// sigmaPTable is layer i's σ′p against depth (nil: none).
+func (c *Layers) sigmaPTable(i int) []solver.DepthValue {
+	if ec := c.F.Draft().Layers[i].ECurve; ec != nil {
+		return ec.SigmaPProfile
+	}
+	return nil
+}
+
+// sigmaPPath is the path of a value of point j of layer i's σ′p table.
+func sigmaPPath(i, j int, leaf string) string {
+	return solver.JoinPath(solver.IndexPath(lp(i, "ecurve.sigmaPProfile"), j), leaf)
+}
+
+func (c *Layers) addSigmaP(i int)       { c.F.AddSigmaPPoint(i); c.Changed() }
+func (c *Layers) removeSigmaP(i, j int) { c.F.RemoveSigmaPPoint(i, j); c.Changed() }

@@ -513,3 +513,78 @@ func TestPageWithoutResults(t *testing.T) {
 		t.Error("result tables or figures drawn without results")
 	}
 }
+
+// TestPageModelChoice: the model select switches the project to the
+// non-linear model, the summary then names it and shows its settlement
+// (the same figure a native solve of that project gives), and the new
+// soil fields take typed values by path.
+func TestPageModelChoice(t *testing.T) {
+	p := newPage(t, Sources{})
+	p.fire("model", "change", map[string]any{"value": "nonlinear"})
+	if m := p.root.form.Draft().Model; m != solver.ModelNonlinear {
+		t.Fatalf("model after the switch: %q", m)
+	}
+	p.typeInto("layers-1-ecurve-ck", "0.8")
+	p.typeInto("layers-0-ecurve-pop", "25")
+	p.typeInto("layers-0-ecurve-ocr", "")
+	d := p.root.form.Draft()
+	if c := d.Layers[1].ECurve; c == nil || c.Ck != 0.8 {
+		t.Fatalf("layer 2 curve after typing Ck: %+v", c)
+	}
+	if c := d.Layers[0].ECurve; c == nil || c.POP != 25 || c.OCR != 0 {
+		t.Fatalf("layer 1 curve after typing POP: %+v", c)
+	}
+	res, err := solver.Solve(p.root.form.Model(), nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got, want := p.attr("sum-settlement-elog", "data-value"), exact(*res.Summary.Settlement); got != want {
+		t.Errorf("sum-settlement-elog data-value = %s, want %s (native solve of the non-linear model)", got, want)
+	}
+	if !strings.Contains(p.html(), "Final settlement, non-linear model") {
+		t.Error("the summary does not name the non-linear model")
+	}
+	p.typeInto("layers-1-ecurve-ck", "-1")
+	if msg := p.root.form.Problem("layers[1].ecurve.ck"); msg == "" {
+		t.Error("no problem shown for Ck = −1")
+	}
+	p.fire("model", "change", map[string]any{"value": "linear"})
+	if m := p.root.form.Draft().Model; m != "" {
+		t.Errorf("model after switching back: %q, want empty (linear)", m)
+	}
+}
+
+// TestPageSigmaPTable: a σ′p table is built point by point, its values
+// typed by path, a bad value shown at its input, and a point removed; the
+// solve then uses the table (its σ′p reaches the steady profiles).
+func TestPageSigmaPTable(t *testing.T) {
+	p := newPage(t, Sources{})
+	p.typeInto("layers-0-ecurve-ocr", "")
+	p.fire("layers-0-sigmap-add", "click", nil)
+	p.fire("layers-0-sigmap-add", "click", nil)
+	p.typeInto("layers-0-ecurve-sigmaPProfile-0-z", "0")
+	p.typeInto("layers-0-ecurve-sigmaPProfile-0-value", "30")
+	p.typeInto("layers-0-ecurve-sigmaPProfile-1-value", "-5")
+	if msg := p.root.form.Problem("layers[0].ecurve.sigmaPProfile[1].value"); msg == "" {
+		t.Error("no problem shown for σ′p = −5")
+	}
+	p.fire("layers-0-sigmap-1-remove", "click", nil)
+	c := p.root.form.Draft().Layers[0].ECurve
+	if c == nil || len(c.SigmaPProfile) != 1 || c.SigmaPProfile[0] != (solver.DepthValue{Z: 0, Value: 30}) {
+		t.Fatalf("σ′p table after the edits: %+v", c)
+	}
+	if !p.root.form.Valid() {
+		t.Fatalf("the form is not valid: %v", p.root.form.Other())
+	}
+	r := p.root.Result()
+	if r == nil {
+		t.Fatal("no result")
+	}
+	want, err := solver.Solve(p.root.form.Model(), nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got := *r.Summary.Layers[0].SettlementElog; got != *want.Summary.Layers[0].SettlementElog {
+		t.Errorf("crust e–log settlement on the page %g m, native solve %g m", got, *want.Summary.Layers[0].SettlementElog)
+	}
+}

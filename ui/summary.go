@@ -85,7 +85,22 @@ func (c *Summary) rows() []sumRow {
 		length("sum-secondary", "Secondary settlement", s.Secondary, "at "+sig(life/solver.DaysPerYear, 3)+" yr design life"),
 	}
 	if s.SettlementElog == nil && !noLoad && c.R.Consolidation != nil {
-		rows[1].Note = "needs e–log parameters for every layer"
+		rows[1].Note = "needs e–log parameters for a layer"
+	}
+	if s.SettlementElog != nil && len(s.ElogFromMv) > 0 {
+		rows[1].Note = "primary, all stages; with the mv settlement of " + layerNames(c.P, s.ElogFromMv) + " (no e–log parameters)"
+	}
+	if s.Model == solver.ModelNonlinear {
+		// The headline figures come from the non-linear solution: the
+		// e–log settlement, and the times on its curve.
+		rows[0].Note = "for comparison only: the non-linear model is solved"
+		rows[1].Label = "Final settlement, non-linear model"
+		if s.Settlement != nil {
+			rows[1].Value, rows[1].Exact = mm(*s.Settlement), exact(*s.Settlement)
+		}
+		for i := 2; i <= 4; i++ {
+			rows[i].Label += ", non-linear model"
+		}
 	}
 	if s.Secondary == nil && !noLoad && c.R.Consolidation != nil {
 		rows[5].Note = "needs Cα (and e0) for a layer"
@@ -137,4 +152,19 @@ func warningText(w solver.Warning) string {
 		return w.Message
 	}
 	return w.Path + ": " + w.Message
+}
+
+// layerNames names the layers at the indices is ("layer 2 “sand”, …").
+func layerNames(p *solver.Project, is []int) string {
+	out := ""
+	for k, i := range is {
+		if k > 0 {
+			out += ", "
+		}
+		out += fmt.Sprintf("layer %d", i+1)
+		if p != nil && i < len(p.Layers) && p.Layers[i].Name != "" {
+			out += " “" + p.Layers[i].Name + "”"
+		}
+	}
+	return out
 }

@@ -94,3 +94,12 @@ func (c *Tables) stats() string {
 	}
 	return t
 }
+
+// modelHead heads the column of each layer's settlement under the model
+// the summary names.
+func (c *Tables) modelHead() string {
+	if c.R.Summary.Model == solver.ModelNonlinear {
+		return "Non-linear model (mm)"
+	}
+	return "Linear model (mm)"
+}

@@ -3,12 +3,15 @@
 // and virgin loading along Cc (Terzaghi & Peck 1967), the preconsolidation
 // stress from σ′p or OCR, the state of one sublayer following the curve
 // through a stress history, the secondary compression of Mesri (1973) and
-// the coefficient of consolidation cv = k/(mv γw).
+// the coefficient of consolidation cv = k/(mv γw), the permeability that
+// follows the void ratio (Tavenas et al. 1983) and the constant-mv path
+// with a swelling modulus.
 //
 // It knows nothing of meshes, files or the time loop: package solver
 // builds one Point per element and moves it along the stresses the
-// consolidation gives. New behaviour belongs here: a permeability that
-// follows the void ratio, creep laws per layer, undrained strength from σ′.
+// consolidation gives (the non-linear model moves them itself, trying each
+// stress with Point.Toward first). New behaviour belongs here: creep laws
+// per layer, undrained strength from σ′.
 //
 // Units: stress kPa, length m, permeability m/s, mv 1/kPa, γw kN/m³,
 // time day. Functions leave their arguments unchanged.

@@ -93,26 +93,55 @@ func (s *Point) Peak() float64 { return max(s.peak, s.sig) }
 // Settlement is this sublayer's settlement so far, m.
 func (s *Point) Settlement() float64 { return s.de / (1 + s.Curve.E0) * s.H }
 
-// MoveTo follows the curve to effective stress to; it matches Compress
-// (tested) with the logarithms of the stresses carried along.
-func (s *Point) MoveTo(to float64) {
+// start sets the logarithms of the stresses on first use.
+func (s *Point) start() {
 	if !s.started {
 		s.lsig = math.Log10(max(s.sig, MinEffective))
 		s.lpeak = max(math.Log10(max(s.peak, MinEffective)), s.lsig)
 		s.started = true
 	}
+}
+
+// log10Of is log10(to) for to ≥ MinEffective, from the logarithm of the
+// present stress when to is close to it.
+func (s *Point) log10Of(to float64) float64 {
+	if d := (to - s.sig) / s.sig; d > -1e-4 && d < 1e-4 {
+		// Small steps (most of them, late in consolidation): the series
+		// log10(1+d) = (d − d²/2 + d³/3)/ln 10 is exact to 1e-17 here.
+		return s.lsig + d*(1-d*(0.5-d/3))/math.Ln10
+	}
+	return math.Log10(to)
+}
+
+// Toward returns the compression (Δe, negative for swelling) that moving
+// to effective stress to would add, without moving: what MoveTo would add
+// to the settlement's Δe. One logarithm at most.
+func (s *Point) Toward(to float64) float64 {
+	s.start()
+	to = max(to, MinEffective)
+	if to == s.sig {
+		return 0
+	}
+	lto := s.log10Of(to)
+	c := s.Curve
+	switch {
+	case lto <= s.lsig:
+		return -c.Cr * (s.lsig - lto)
+	case lto <= s.lpeak:
+		return c.Cr * (lto - s.lsig)
+	}
+	return c.Cr*(s.lpeak-s.lsig) + c.Cc*(lto-s.lpeak)
+}
+
+// MoveTo follows the curve to effective stress to; it matches Compress
+// (tested) with the logarithms of the stresses carried along.
+func (s *Point) MoveTo(to float64) {
+	s.start()
 	to = max(to, MinEffective)
 	if to == s.sig {
 		return
 	}
-	var lto float64
-	if d := (to - s.sig) / s.sig; d > -1e-4 && d < 1e-4 {
-		// Small steps (most of them, late in consolidation): the series
-		// log10(1+d) = (d − d²/2 + d³/3)/ln 10 is exact to 1e-17 here.
-		lto = s.lsig + d*(1-d*(0.5-d/3))/math.Ln10
-	} else {
-		lto = math.Log10(to)
-	}
+	lto := s.log10Of(to)
 	c := s.Curve
 	switch {
 	case lto <= s.lsig:

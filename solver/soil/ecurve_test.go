@@ -41,7 +41,8 @@ func TestCompress(t *testing.T) {
 }
 
 // TestPointFollowsCompress: the log-space path of a Point equals the
-// Compress formula (Terzaghi & Peck 1967) step by step, through loading
+// Compress formula (Terzaghi & Peck 1967) step by step, and Toward the
+// move before it is made, through loading
 // across σ'p, unloading, reloading and past the old peak (±1e-12).
 func TestPointFollowsCompress(t *testing.T) {
 	t.Parallel()
@@ -50,6 +51,9 @@ func TestPointFollowsCompress(t *testing.T) {
 	sig, peak, want := 40.0, 60.0, 0.0
 	for _, to := range []float64{45, 55, 60, 80, 100, 100, 70, 50, 90, 120, 0.01, 30} {
 		de, p := Compress(c, sig, to, peak)
+		if got := s.Toward(to); math.Abs(got-de) > 1e-12 {
+			t.Fatalf("Toward(%g kPa) = %.15f, Compress gives %.15f", to, got, de)
+		}
 		want += de
 		sig, peak = max(to, MinEffective), p
 		s.MoveTo(to)

@@ -80,10 +80,16 @@ func defaultHint(path string) (string, bool) {
 			return "= γsat", true
 		case "mv":
 			return "from e–log", true
-		case "calpha":
+		case "calpha", "calphaCc":
 			return "none", true
-		case "sigmaP", "ocr":
+		case "sigmaP", "ocr", "pop":
 			return "–", true
+		case "mvUnload":
+			return "= mv", true
+		case "calphaReduced":
+			return "= Cα", true
+		case "ck":
+			return "k fixed", true
 		case "ch":
 			return "kh/kv·cv", true
 		case "khKv":

@@ -117,6 +117,47 @@ func (f *Form) RemoveExcess(end string, i int) {
 	f.check()
 }
 
+// AddSigmaPPoint appends a point to the σ′p table of layer i (giving the
+// layer an empty e–log curve when it has none): 1 m below the last point
+// with its σ′p, or at the middle of the layer with σ′p left at 0 for the
+// user to type (Validate asks for it).
+func (f *Form) AddSigmaPPoint(i int) {
+	if i < 0 || i >= len(f.draft.Layers) {
+		return
+	}
+	l := &f.draft.Layers[i]
+	if l.ECurve == nil {
+		l.ECurve = &solver.ECurve{}
+	}
+	pts := l.ECurve.SigmaPProfile
+	top := solver.ColumnHeight(&solver.Project{Layers: f.draft.Layers[:i]})
+	dv := solver.DepthValue{Z: top + l.Thickness/2}
+	if n := len(pts); n > 0 {
+		dv = solver.DepthValue{Z: pts[n-1].Z + 1, Value: pts[n-1].Value}
+	}
+	l.ECurve.SigmaPProfile = append(pts, dv)
+	f.check()
+}
+
+// RemoveSigmaPPoint deletes point j of the σ′p table of layer i.
+func (f *Form) RemoveSigmaPPoint(i, j int) {
+	if i < 0 || i >= len(f.draft.Layers) || f.draft.Layers[i].ECurve == nil {
+		return
+	}
+	c := f.draft.Layers[i].ECurve
+	if j < 0 || j >= len(c.SigmaPProfile) {
+		return
+	}
+	c.SigmaPProfile = slices.Delete(c.SigmaPProfile, j, j+1)
+	if len(c.SigmaPProfile) == 0 {
+		c.SigmaPProfile = nil
+	}
+	at := solver.JoinPath(solver.IndexPath("layers", i), "ecurve.sigmaPProfile")
+	f.remap(at, Removed(j))
+	tidyECurve(&f.draft, at)
+	f.check()
+}
+
 // Removed is the renumbering of RemapKeys after row i of a list was
 // removed: row i goes (−1), the rows after it move up by one.
 func Removed(i int) func(old int) int {

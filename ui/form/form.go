@@ -225,9 +225,10 @@ var pageFields = func() map[string]bool {
 			m[prefix+n] = true
 		}
 	}
-	add("", "title", "notes", "gammaW", "waterTable", "times", "piezometers", "targetDegree", "designLife")
-	add("layers[#].", "name", "thickness", "gammaSat", "gamma", "k", "mv", "calpha",
-		"ecurve.e0", "ecurve.cc", "ecurve.cr", "ecurve.sigmaP", "ecurve.ocr")
+	add("", "title", "notes", "gammaW", "waterTable", "times", "piezometers", "targetDegree", "designLife", "model")
+	add("layers[#].", "name", "thickness", "gammaSat", "gamma", "k", "mv", "mvUnload", "calpha", "calphaCc", "calphaReduced",
+		"ecurve.e0", "ecurve.cc", "ecurve.cr", "ecurve.sigmaP", "ecurve.ocr", "ecurve.pop", "ecurve.ck",
+		"ecurve.sigmaPProfile[#].z", "ecurve.sigmaPProfile[#].value")
 	for _, end := range []string{"top.", "bottom."} {
 		add(end, "head", "inflow", "excess[#].t", "excess[#].value")
 	}

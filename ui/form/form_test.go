@@ -117,6 +117,8 @@ func TestPlaceholdersAreSolverDefaults(t *testing.T) {
 		},
 		"layers[0].gamma": nil, "layers[0].mv": nil, "layers[0].calpha": nil,
 		"layers[0].ecurve.sigmaP": nil, "layers[0].ecurve.ocr": nil,
+		"layers[0].mvUnload": nil, "layers[0].calphaCc": nil, "layers[0].calphaReduced": nil,
+		"layers[0].ecurve.pop": nil, "layers[0].ecurve.ck": nil,
 	}
 	seen := 0
 	for field := range pageFields {

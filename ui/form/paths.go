@@ -206,7 +206,7 @@ func tidyECurve(p *solver.Project, path string) {
 	if i < 0 || i >= len(p.Layers) {
 		return
 	}
-	if c := p.Layers[i].ECurve; c != nil && *c == (solver.ECurve{}) {
+	if c := p.Layers[i].ECurve; c != nil && reflect.ValueOf(*c).IsZero() {
 		p.Layers[i].ECurve = nil
 	}
 }

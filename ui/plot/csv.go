@@ -87,15 +87,27 @@ func DegreeCSV(r *solver.Result) string {
 // the result has it, from the e–log σ′ curves.
 func SettlementCSV(r *solver.Result) string {
 	names := []string{"settlement from mv (m)"}
-	elog := r != nil && r.Consolidation != nil && len(r.Consolidation.Series.SettlementElog) > 0
+	nonlinear := r != nil && r.Summary.Model == solver.ModelNonlinear
+	elog := !nonlinear && r != nil && r.Consolidation != nil && len(r.Consolidation.Series.SettlementElog) > 0
+	secondary := r != nil && r.Consolidation != nil && len(r.Consolidation.Series.Secondary) > 0
+	if nonlinear {
+		names[0] = "settlement, non-linear model (m)"
+	}
 	if elog {
 		names = append(names, "settlement from e-log curves (m)")
 	}
+	if secondary {
+		names = append(names, "secondary settlement (m)")
+	}
 	return seriesCSV(r, names, func(s *solver.Series) [][]float64 {
+		cols := [][]float64{s.Settlement}
 		if elog {
-			return [][]float64{s.Settlement, s.SettlementElog}
+			cols = append(cols, s.SettlementElog)
 		}
-		return [][]float64{s.Settlement}
+		if secondary {
+			cols = append(cols, s.Secondary)
+		}
+		return cols
 	})
 }
 

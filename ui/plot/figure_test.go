@@ -297,3 +297,39 @@ func BenchmarkPiezometersFigure(b *testing.B) {
 		PiezometersFigure(p, r, 900, 600)
 	}
 }
+
+// TestSteadyPreconsolidation: with e–log curves the steady figure draws
+// σ'p against depth, one line per layer with a curve (the path restarts
+// at each layer), and none for a layer without one.
+func TestSteadyPreconsolidation(t *testing.T) {
+	t.Parallel()
+	ec := &solver.ECurve{E0: 1, Cc: 0.3, Cr: 0.03, POP: 20}
+	p := &solver.Project{Format: solver.Format,
+		Layers: []solver.Layer{
+			{Name: "crust", Thickness: 2, GammaSat: 18, K: 1e-8, ECurve: ec},
+			{Name: "sand", Thickness: 1, GammaSat: 20, K: 1e-4, Mv: 1e-5},
+			{Name: "clay", Thickness: 3, GammaSat: 17, K: 1e-9, ECurve: &solver.ECurve{E0: 1.5, Cc: 0.5, Cr: 0.05, OCR: 1.5}},
+		},
+		Top: solver.Boundary{Drained: true}, Bottom: solver.Boundary{Drained: true}}
+	r, err := solver.Solve(p, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	f := SteadyFigure(p, r, 600, 400)
+	var sp *Series
+	for _, s := range f.allSeries() {
+		if strings.HasPrefix(s.Name, "Preconsolidation") {
+			sp = s
+		}
+	}
+	if sp == nil {
+		t.Fatal("no σ'p series in the steady figure")
+	}
+	if n := strings.Count(sp.D, "M"); n != 2 {
+		t.Errorf("σ'p path has %d pieces, want 2 (crust and clay): %.80s…", n, sp.D)
+	}
+	// At the top of the crust σ'0 = 0 (raised to 0.1 kPa), so σ'p = POP + 0.1.
+	if got := sp.Pts[0].DX; math.Abs(got-20.1) > 1e-9 {
+		t.Errorf("σ'p at the surface %g kPa, want 20.1 (σ'0 + POP)", got)
+	}
+}

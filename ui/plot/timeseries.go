@@ -136,7 +136,15 @@ func SettlementFitFigure(p *solver.Project, r, fit *solver.Result, w, h int) *Fi
 		return f.message(msg)
 	}
 	recs := plateRecords(p)
-	all := [][]float64{s.Settlement, s.SettlementElog}
+	// With secondary compression, its own curve and the total.
+	var total []float64
+	if len(s.Secondary) == len(s.Time) {
+		total = make([]float64, len(s.Time))
+		for i := range total {
+			total[i] = s.Settlement[i] + s.Secondary[i]
+		}
+	}
+	all := [][]float64{s.Settlement, s.SettlementElog, s.Secondary, total}
 	var fs *solver.Series
 	if fit != nil && fit.Consolidation != nil {
 		fs = &fit.Consolidation.Series
@@ -153,8 +161,17 @@ func SettlementFitFigure(p *solver.Project, r, fit *solver.Result, w, h int) *Fi
 	tlo, thi = readingSpan(tlo, thi, recs)
 	lo, hi = padRange(math.Min(0, lo), math.Max(0, hi))
 	pn, clip := f.timeFigure(tlo, thi, lo, hi, "Settlement, m", true)
-	f.addSeries(pn, clip, "From mv", styleAt(0), s.Time, s.Settlement, readTime("s", " m", 3))
-	f.addSeries(pn, clip, "From e–log σ′", styleAt(1), s.Time, s.SettlementElog, readTime("s", " m", 3))
+	if r.Summary.Model == solver.ModelNonlinear {
+		// One solution: the series is the non-linear model's settlement.
+		f.addSeries(pn, clip, "Non-linear model", styleAt(1), s.Time, s.Settlement, readTime("s", " m", 3))
+	} else {
+		f.addSeries(pn, clip, "From mv", styleAt(0), s.Time, s.Settlement, readTime("s", " m", 3))
+		f.addSeries(pn, clip, "From e–log σ′", styleAt(1), s.Time, s.SettlementElog, readTime("s", " m", 3))
+	}
+	if total != nil {
+		f.addSeries(pn, clip, "Secondary (Cα)", styleAt(2), s.Time, s.Secondary, readTime("s", " m", 3))
+		f.addSeries(pn, clip, "Primary + secondary", styleAt(3), s.Time, total, readTime("s", " m", 3))
+	}
 	if fs != nil {
 		f.addSeries(pn, clip, "From mv, back-fitted", styleAt(4), fs.Time, fs.Settlement, readTime("s", " m", 3))
 	}
@@ -238,6 +255,31 @@ func PiezometersFitFigure(p *solver.Project, r, fit *solver.Result, w, h int) *F
 	return f
 }
 
+// preconsolidation is σ'p against depth in every layer with an e–log
+// curve (solver.PreconsolidationAt at the steady effective stress), at
+// the nodes of the steady state, with a gap (NaN) between layers so that
+// each layer's line stands alone.
+func preconsolidation(p *solver.Project, st *solver.Steady) (xs, ys []float64) {
+	if p == nil || len(st.Layers) != len(p.Layers) {
+		return nil, nil
+	}
+	for i, l := range p.Layers {
+		if l.ECurve == nil {
+			continue
+		}
+		top, bottom := st.Layers[i].Top, st.Layers[i].Bottom
+		for j, z := range st.Depth {
+			if z < top || z > bottom || j >= len(st.Effective) {
+				continue
+			}
+			xs = append(xs, solver.PreconsolidationAt(l.ECurve, z, st.Effective[j]))
+			ys = append(ys, z)
+		}
+		xs, ys = append(xs, math.NaN()), append(ys, math.NaN())
+	}
+	return xs, ys
+}
+
 // fitDash marks a back-fitted companion of a predicted curve.
 const fitDash = "7 2 1.5 2"
 
@@ -277,6 +319,9 @@ func SteadyFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
 	f.addSeries(panels[1], clips[1], "Pore pressure u", styleAt(1), st.Pore, st.Depth, readZ("u", " kPa"))
 	f.addSeries(panels[1], clips[1], "Total stress σv", styleAt(2), st.Total, st.Depth, readZ("σv", " kPa"))
 	f.addSeries(panels[1], clips[1], "Effective stress σ′v", styleAt(3), st.Effective, st.Depth, readZ("σ′v", " kPa"))
+	if xs, ys := preconsolidation(p, st); len(xs) > 0 {
+		f.addSeries(panels[1], clips[1], "Preconsolidation σ′p", Style{Stroke: styleAt(3).Stroke, Dash: "5 3", Width: styleAt(3).Width}, xs, ys, readZ("σ′p", " kPa"))
+	}
 	f.legend(f.W-legendW+8, depthTop+8, legendW-12, int((f.H-depthTop-20)/16), f.allSeries())
 	return f
 }

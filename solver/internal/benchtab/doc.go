@@ -29,6 +29,12 @@
 //     default settings sit.
 //  4. Size of the built page (static/build), when it exists.
 //  5. The page's own browser measurements, read from -browser.
+//  6. The non-linear consolidation model against the linear one on the
+//     same soft clay column (2,000 linear elements, default steps): time
+//     per node-step, their ratio (goal ≤ 3×) and the iterations per step.
+//  7. What loads with geometry add: the embankment example with the stress
+//     spread and with its fill submerging, against the same lifts over the
+//     whole top (report only).
 //
 // # Timing
 //

@@ -8,7 +8,7 @@ import (
 	"porelight/solver"
 )
 
-// loadCost holds section 6: what loads with geometry add to a solve. The
+// loadCost holds section 7: what loads with geometry add to a solve. The
 // embankment example (testdata/embankment.json: two embankment lifts off
 // the centre line, fill that settles below the water table) is solved as
 // it is (submerged), with the water table far below (dry: the same

@@ -16,6 +16,7 @@ type report struct {
 	size    *sizes
 	browser *browserFigures
 	loads   *loadCost
+	nl      *nonlinearCost
 	notes   []string
 }
 
@@ -111,6 +112,9 @@ func (r *report) summary() *table {
 			t.add("4 size", fmt.Sprintf("page (porelight.html, final, built %s)", s.built.UTC().Format("2006-01-02 15:04 UTC")), count(s.page)+" B", "", fmt.Sprintf("%.2f of goal", float64(s.page)/pageLimit), "≤ 2.5 MB (2,500,000 B)", holds(s.page <= pageLimit))
 		}
 	}
+	if r.nl != nil {
+		r.nl.rows(t)
+	}
 	if b := r.browser; b == nil {
 		t.add("5 browser", "first plot, edit to plot, heap over 1,000 solves", "not measured", "", "", "≤ 1.5 s; ≤ 50 ms; growth < 5 MB", "—")
 	} else {
@@ -145,10 +149,10 @@ func (r *report) summary() *table {
 		}
 	}
 	if l := r.loads; l != nil {
-		t.add("6 loads", "embankment example, no fill submerged: solve with the stress spread",
+		t.add("7 loads", "embankment example, no fill submerged: solve with the stress spread",
 			dur(float64(l.dry.best)), "same loads over the whole top "+dur(float64(l.uniform.best)),
 			fmt.Sprintf("%.2f×", l.spread()), "report only", "—")
-		t.add("6 loads", "embankment example as given: fill submerging as it settles",
+		t.add("7 loads", "embankment example as given: fill submerging as it settles",
 			dur(float64(l.submerged.best)), "no fill submerged "+dur(float64(l.dry.best)),
 			fmt.Sprintf("%.2f×", l.submergence()), "report only", "—")
 	}

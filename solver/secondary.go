@@ -1,0 +1,200 @@
+package solver
+
+import (
+	"fmt"
+	"math"
+
+	"porelight/solver/soil"
+)
+
+// endOfPrimary is the degree of consolidation of a layer taken as its end
+// of primary consolidation, where its secondary compression starts.
+const endOfPrimary = 0.95
+
+// calphaOf is the layer's coefficient of secondary compression: Calpha,
+// or CalphaCc·Cc (Mesri & Godlewski 1977).
+func calphaOf(l *Layer) float64 {
+	if l.CalphaCc > 0 && l.ECurve != nil {
+		return l.CalphaCc * l.ECurve.Cc
+	}
+	return l.Calpha
+}
+
+// primaryEnds keeps, during the time loop, the settlement history of
+// every layer with a Cα, so that each layer's own end of primary (its
+// degree of consolidation reaching endOfPrimary, its settlement over its
+// final settlement under the model that drives the loop) can be found
+// once the final is known.
+type primaryEnds struct {
+	layers []int       // the layers with a Cα
+	hist   [][]float64 // per such layer, its settlement at the kept times, m
+	times  []float64   // the kept times, days
+	stride int         // keep every stride-th record (memory bound)
+	count  int
+	now    []float64 // per layer settlement now (scratch)
+	d      []float64 // nodal σ − u, for the linear stepper
+}
+
+// maxEndHistory bounds the numbers primaryEnds keeps; past it, it keeps
+// every second (third, …) record.
+const maxEndHistory = 1_000_000
+
+// prepareEnds sizes the histories when some layer has a Cα; capacity is
+// the number of records the loop will make.
+func (k *consolidation) prepareEnds(capacity int) {
+	p := k.c.p
+	pe := &primaryEnds{now: make([]float64, len(p.Layers)), d: make([]float64, k.c.m.Nodes())}
+	for i := range p.Layers {
+		if calphaOf(&p.Layers[i]) > 0 && p.Layers[i].ECurve != nil {
+			pe.layers = append(pe.layers, i)
+		}
+	}
+	if len(pe.layers) == 0 {
+		return
+	}
+	pe.stride = max(1, (len(pe.layers)*capacity+maxEndHistory-1)/maxEndHistory)
+	keep := capacity/pe.stride + 2
+	pe.times = make([]float64, 0, keep)
+	pe.hist = make([][]float64, len(pe.layers))
+	for j := range pe.hist {
+		pe.hist[j] = make([]float64, 0, keep)
+	}
+	k.ends = pe
+}
+
+// layerNow writes each layer's settlement now to dst, from the model
+// that drives the loop. No allocation.
+func (k *consolidation) layerNow(dst []float64) {
+	clear(dst)
+	if k.nl != nil {
+		k.nl.layerSettlements(dst)
+		return
+	}
+	m, tr, d := k.c.m, k.tr, k.ends.d
+	for i := range d {
+		d[i] = tr.sigma[i] - tr.u[i]
+	}
+	for e := range m.Elements() {
+		l := m.Layer[e]
+		dst[l] += tr.mv[l] * m.Integrate(d, e)
+	}
+}
+
+// observe keeps the layers' settlements at time t (every stride-th call,
+// and always while there is room; the capacity is not exceeded).
+func (pe *primaryEnds) observe(t float64, now []float64) {
+	pe.count++
+	if (pe.count-1)%pe.stride != 0 && len(pe.times) < cap(pe.times)-1 {
+		return
+	}
+	if len(pe.times) == cap(pe.times) {
+		return
+	}
+	pe.times = append(pe.times, t)
+	for j, l := range pe.layers {
+		pe.hist[j] = append(pe.hist[j], now[l])
+	}
+}
+
+// end returns when the j-th kept layer first reaches endOfPrimary of
+// final (interpolated in log time as crossing does), or nil.
+func (pe *primaryEnds) end(j int, final float64) *float64 {
+	if final <= 0 {
+		return nil
+	}
+	h := pe.hist[j]
+	for i := range h {
+		if h[i]/final >= endOfPrimary {
+			if i == 0 {
+				return ptr(pe.times[0])
+			}
+			return crossing(pe.times[i-1:i+1], []float64{h[i-1] / final, h[i] / final}, endOfPrimary)
+		}
+	}
+	return nil
+}
+
+// secondary estimates the secondary compression of every layer with a Cα
+// (Mesri 1973), each from its own end of primary consolidation, with time
+// counted from the start of the load stage that end follows, to the design
+// life; after a surcharge is removed the layer's CalphaReduced applies
+// when given. It also fills the series of secondary settlement.
+func (k *consolidation) secondary() {
+	p, r := k.c.p, k.r
+	if k.ends == nil {
+		return
+	}
+	life := r.Summary.DesignLife
+	removal := math.NaN() // the last removal of load
+	for _, l := range p.Loads {
+		if l.Q < 0 {
+			removal = l.Start + l.Ramp
+		}
+	}
+	sum, missing := 0.0, false
+	type part struct{ t0, tp, ca, cr, ep, h float64 }
+	var parts []part
+	for j, i := range k.ends.layers {
+		l := &p.Layers[i]
+		ca := calphaOf(l)
+		final := r.Summary.Layers[i].Settlement
+		if final <= 0 {
+			continue
+		}
+		at := IndexPath("layers", i)
+		end := k.ends.end(j, final)
+		if end == nil {
+			missing = true
+			k.warn(at, fmt.Sprintf("layer %d%s does not reach %g %% of its primary settlement in the simulated time: no secondary compression estimate for it", i+1, quoted(l.Name), 100*endOfPrimary))
+			continue
+		}
+		tp := *end
+		t0 := 0.0
+		for _, ld := range p.Loads {
+			if ld.Q != 0 && ld.Start <= tp {
+				t0 = math.Max(t0, ld.Start)
+			}
+		}
+		strain := r.Summary.Layers[i].Settlement / l.Thickness
+		ep := l.ECurve.E0 - strain*(1+l.ECurve.E0)
+		cr := ca
+		if !math.IsNaN(removal) {
+			if l.CalphaReduced > 0 {
+				cr = l.CalphaReduced
+			} else {
+				k.warn(JoinPath(at, "calphaReduced"), fmt.Sprintf("load is removed at %.4g days: with the full Cα the secondary rate after it is overestimated; give calphaReduced for the reduced rate", removal))
+			}
+		}
+		pt := part{t0, tp, ca, cr, ep, l.Thickness}
+		parts = append(parts, pt)
+		s := secondaryAt(pt.t0, pt.tp, removal, pt.ca, pt.cr, pt.ep, pt.h, life)
+		r.Summary.Layers[i].Secondary = ptr(s)
+		r.Summary.Layers[i].SecondaryStart = ptr(tp)
+		sum += s
+	}
+	if len(parts) == 0 && missing {
+		return
+	}
+	r.Summary.Secondary = ptr(sum)
+	ser := &r.Consolidation.Series
+	ser.Secondary = make([]float64, len(ser.Time))
+	for j, t := range ser.Time {
+		for _, pt := range parts {
+			ser.Secondary[j] += secondaryAt(pt.t0, pt.tp, removal, pt.ca, pt.cr, pt.ep, pt.h, t)
+		}
+	}
+}
+
+// secondaryAt is one layer's secondary compression at time t, m: Mesri's
+// (1973) Cα h/(1+ep) log10((t − t0)/(tp − t0)) from its end of primary
+// tp, time counted from t0, with Cα after a removal of load at tr (NaN:
+// none) replaced by cr.
+func secondaryAt(t0, tp, tr, ca, cr, ep, h, t float64) float64 {
+	if math.IsNaN(tr) || tr >= t {
+		return soil.Secondary(ca, h, ep, t-t0, tp-t0)
+	}
+	if tr <= tp {
+		return soil.Secondary(cr, h, ep, t-t0, tp-t0)
+	}
+	return soil.Secondary(ca, h, ep, tr-t0, tp-t0) + soil.Secondary(cr, h, ep, t-t0, tr-t0)
+}
