@@ -274,14 +274,14 @@ func plateAsaoka(p *solver.Project, i int, from, to float64) (*monitor.AsaokaRes
 }
 
 func (c *Comparison) final(a asaoka) string {
-	return pm(a.Res.Final*1000, a.Res.FinalSE*1000) + " mm"
+	return pm(a.Res.Final*1000, a.Res.FinalUncertainty*1000) + " mm"
 }
 
 func (c *Comparison) cv(a asaoka) string {
 	if a.Res.DrainagePath == 0 {
 		return "– (the column has no drained end)"
 	}
-	return pm(a.Res.Cv, a.Res.CvSE) + " m²/day"
+	return pm(a.Res.Cv, a.Res.CvUncertainty) + " m²/day"
 }
 
 func (c *Comparison) cvNote(a asaoka) string {
@@ -299,7 +299,24 @@ func (c *Comparison) betas(a asaoka) string {
 func (c *Comparison) windowText(a asaoka) string {
 	r := a.Res
 	n := len(r.Times)
-	return fmt.Sprintf("day %s to %s, %d points every %s days", sig(r.Times[0], 4), sig(r.Times[n-1], 4), n, sig(r.Interval, 3))
+	s := fmt.Sprintf("day %s to %s, %d points every %s days", sig(r.Times[0], 4), sig(r.Times[n-1], 4), n, sig(r.Interval, 3))
+	switch {
+	case r.AutoStart && r.HigherModes > monitor.FirstModeShare:
+		s += fmt.Sprintf("; the record is too short for the first Terzaghi mode to dominate (higher modes %.0f %% of the rate at the start), so the forecast is likely low", 100*r.HigherModes)
+	case r.AutoStart:
+		s += fmt.Sprintf("; starts where the first Terzaghi mode dominates (higher modes below %.0f %% of the rate)", 100*monitor.FirstModeShare)
+	}
+	return s
+}
+
+// startsText lists the forecast for other window starts; the ± of the
+// forecast includes the spread of those at or after the chosen start.
+func (c *Comparison) startsText(a asaoka) string {
+	var parts []string
+	for _, r := range a.Res.Starts {
+		parts = append(parts, fmt.Sprintf("day %s: %.0f mm", sig(r.From, 4), r.Final*1000))
+	}
+	return strings.Join(parts, ", ") + fmt.Sprintf(" (the ± above includes a spread of %.0f mm over the later starts)", a.Res.FinalSpread*1000)
 }
 
 func (c *Comparison) exportAsaoka(a asaoka, format string) {

@@ -44,6 +44,10 @@ type AsaokaOptions struct {
 	// path is Thickness/DrainedEnds. Either zero: no cv is reported.
 	Thickness   float64
 	DrainedEnds int
+	// AutoStart, when From is zero, starts the window where the first
+	// mode dominates the record (see FirstModeShare) instead of at
+	// AfterTime. AsaokaOptionsFor sets it.
+	AutoStart bool
 }
 
 // AsaokaOptionsFor returns the options that read a settlement record of
@@ -51,7 +55,7 @@ type AsaokaOptions struct {
 // layer and its drained ends. For a column of several compressible layers
 // the cv so found is an equivalent value for the column as a whole.
 func AsaokaOptionsFor(p *solver.Project) AsaokaOptions {
-	o := AsaokaOptions{AfterTime: solver.LastLoadChange(p)}
+	o := AsaokaOptions{AfterTime: solver.LastLoadChange(p), AutoStart: true}
 	for _, l := range p.Layers {
 		o.Thickness += l.Thickness
 	}
@@ -101,6 +105,41 @@ type AsaokaResult struct {
 	Cv          float64 `json:"cv"`
 	CvSE        float64 `json:"cvSE"`
 	CvParabolic float64 `json:"cvParabolic"`
+
+	// AutoStart says the window start was chosen by the first-mode
+	// criterion (AsaokaOptions.AutoStart); HigherModes is the estimated
+	// share of the higher modes in the settlement rate at the window
+	// start, exp(−8λ(t_0 − AfterTime)) with λ = −ln β1/Δt (see
+	// FirstModeShare). A share above FirstModeShare means the record is
+	// too short for the criterion and the forecast is biased low.
+	AutoStart   bool    `json:"autoStart"`
+	HigherModes float64 `json:"higherModes"`
+	// Starts is the forecast for a range of window starts, from AfterTime
+	// to the latest start that leaves 6 readings (at most 12 rows): how
+	// the answer depends on the choice of the window.
+	Starts []AsaokaStart `json:"starts,omitempty"`
+	// FinalSpread and CvSpread are the largest departures of Final and Cv
+	// over the rows of Starts that start at or after this window's start
+	// (so also meet the criterion) and keep at least half of its readings
+	// (later windows read only the flat tail, where noise rules);
+	// FinalUncertainty and
+	// CvUncertainty combine them with the standard errors,
+	// √(SE² + spread²), and are the ± to quote.
+	FinalSpread      float64 `json:"finalSpread"`
+	CvSpread         float64 `json:"cvSpread"`
+	FinalUncertainty float64 `json:"finalUncertainty"`
+	CvUncertainty    float64 `json:"cvUncertainty"`
+
+	readings int // readings in the window
+}
+
+// AsaokaStart is Asaoka's forecast for a window that starts on day From.
+type AsaokaStart struct {
+	From        float64 `json:"from"`
+	Final       float64 `json:"final"`
+	FinalSE     float64 `json:"finalSE"`
+	Cv          float64 `json:"cv"`
+	HigherModes float64 `json:"higherModes"`
 }
 
 // Forecast returns the settlement the fitted relation predicts at t days:
@@ -168,6 +207,11 @@ func (a *AsaokaResult) Forecast(t float64) float64 {
 // record to be late enough for the higher modes to have died out (time
 // factor above about 0.2, degree of consolidation above about 50 %);
 // earlier readings make β1, and so cv and s∞, depend on Δt.
+//
+// With AutoStart and no From, the window starts where the first mode
+// dominates, by the criterion of FirstModeShare; the result then also
+// lists the forecast for a range of window starts (Starts) and states an
+// uncertainty that includes their spread (FinalUncertainty).
 //
 // Readings before AfterTime are left out, not refused: a record that
 // starts with the construction is read from the end of the loading on.
@@ -245,6 +289,26 @@ func asaoka(times, settlements []float64, interval float64, opt AsaokaOptions, a
 		return nil, refuse(AsaokaFrom, ErrDuringLoading, "%v: the window starts on day %g, before the load stops changing on day %g", ErrDuringLoading, opt.From, opt.AfterTime)
 	}
 	start := math.Max(opt.From, opt.AfterTime)
+	auto := opt.AutoStart && opt.From == 0
+	if auto {
+		var err error
+		if start, err = firstModeStart(times, settlements, interval, opt, at); err != nil {
+			return nil, err
+		}
+	}
+	a, err := asaokaWindow(times, settlements, interval, start, opt, at)
+	if err != nil {
+		return nil, err
+	}
+	a.AutoStart = auto
+	a.HigherModes = higherModeShare(a, opt.AfterTime)
+	a.spread(times, settlements, interval, opt, at)
+	return a, nil
+}
+
+// asaokaWindow fits Asaoka's relation to the readings from day start
+// (and up to opt.To).
+func asaokaWindow(times, settlements []float64, interval, start float64, opt AsaokaOptions, at recordPaths) (*AsaokaResult, error) {
 	end := math.Inf(1)
 	if opt.To > 0 {
 		end = opt.To
@@ -283,7 +347,7 @@ func asaoka(times, settlements []float64, interval float64, opt AsaokaOptions, a
 		return nil, refuse(AsaokaInterval, ErrTooFewPoints, "%v: an interval of %g days gives %d points between day %g and day %g; use at most %.4g days", ErrTooFewPoints, interval, n, t0, t1, span/float64(asaokaMinPoints-1))
 	}
 
-	a := &AsaokaResult{Interval: interval, Times: make([]float64, n), Settlements: make([]float64, n)}
+	a := &AsaokaResult{Interval: interval, Times: make([]float64, n), Settlements: make([]float64, n), readings: inWindow}
 	k := first
 	for j := range n {
 		t := t0 + float64(j)*interval

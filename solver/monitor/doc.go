@@ -23,7 +23,11 @@
 // β0 + β1 s_(j−1) is fitted by least squares, s∞ = β0/(1 − β1), and cv
 // follows from the first Terzaghi mode, cv = −4d² ln β1/(π² Δt), with d
 // the drainage path (the parabolic isochrone form 5d²/12 is reported
-// beside it).
+// beside it). By default (AsaokaOptionsFor) the window starts where the
+// first mode dominates the rate, a criterion from the fit itself
+// (FirstModeShare, window.go), and the result lists the forecast for
+// other window starts (AsaokaResult.Starts) and folds their spread into
+// the ± it states (FinalUncertainty, CvUncertainty).
 //
 // BackFit fits multipliers on k (so on cv) of chosen layers, and
 // optionally one scale on settlement, to the records by Gauss–Newton with

@@ -1,0 +1,148 @@
+package monitor
+
+import (
+	"math"
+	"math/rand/v2"
+	"testing"
+
+	"porelight/solver/internal/series"
+)
+
+// noisyTerzaghi is a settlement record s∞·U(cv t/d²) (Terzaghi 1943,
+// summed by internal/series, independent of the solver) read every step
+// days from day 0 to Tv = tvEnd, each reading plus Gaussian noise of
+// standard deviation sigma, m, from the seeded source.
+func noisyTerzaghi(sInf, cv, d, step, tvEnd, sigma float64, seed uint64) (ts, ss []float64) {
+	rng := rand.New(rand.NewPCG(seed, 16))
+	for t := 0.0; t <= tvEnd*d*d/cv*(1+1e-12); t += step {
+		ts = append(ts, t)
+		ss = append(ss, sInf*series.TerzaghiU(cv*t/(d*d))+sigma*rng.NormFloat64())
+	}
+	return ts, ss
+}
+
+// The default window (AutoStart, window.go) on clean Terzaghi records
+// recovers the final settlement within 1 % and cv within 5 % (the
+// acceptance limits of issue 16), where the whole record after the load
+// forecasts more than 3 % low (4–9 % here): the check that the criterion matters. The
+// chosen start meets the criterion (HigherModes ≤ FirstModeShare) at
+// Tv0 ≈ 0.2, as derived (4 ln 50/(8π²) = 0.198, to within one reading).
+func TestAsaokaDefaultWindowClean(t *testing.T) {
+	t.Parallel()
+	const sInf, cv = 0.5, 0.02 // m, m²/day
+	cases := []struct {
+		name        string
+		d           float64 // drainage path, m
+		ends        int
+		step, tvEnd float64
+	}{
+		{"single drainage, to Tv = 1", 4, 1, 10, 1},
+		{"double drainage, to Tv = 1", 3, 2, 7, 1},
+		{"single drainage, short record to Tv = 0.6", 4, 1, 10, 0.6},
+		{"sparse readings to Tv = 1.5", 4, 1, 40, 1.5},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			t.Parallel()
+			ts, ss := noisyTerzaghi(sInf, cv, c.d, c.step, c.tvEnd, 0, 0)
+			opt := AsaokaOptions{AutoStart: true, Thickness: c.d * float64(c.ends), DrainedEnds: c.ends}
+			a, err := Asaoka(ts, ss, 0, opt)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if math.Abs(a.Final/sInf-1) > 0.01 || math.Abs(a.Cv/cv-1) > 0.05 {
+				t.Errorf("default window from day %g: final %.4g m (true %.4g, 1 %%), cv %.4g (true %.4g, 5 %%)", a.Times[0], a.Final, sInf, a.Cv, cv)
+			}
+			tv0 := a.Times[0] * cv / (c.d * c.d)
+			if !a.AutoStart || a.HigherModes > FirstModeShare || tv0 < 0.19 || tv0 > 0.198+c.step*cv/(c.d*c.d)+0.01 {
+				t.Errorf("window starts at Tv = %.3g with higher-mode share %.3g (auto %v)", tv0, a.HigherModes, a.AutoStart)
+			}
+			opt.AutoStart = false
+			w, err := Asaoka(ts, ss, 0, opt)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if !(w.Final < 0.97*sInf) {
+				t.Errorf("whole record: final %.4g m, expected more than 3 %% below %.4g", w.Final, sInf)
+			}
+			// The spread table starts at the load and holds the chosen start's
+			// neighbours; the quoted ± is at least the standard error.
+			if len(a.Starts) < 3 || a.Starts[0].From != 0 || a.FinalUncertainty < a.FinalSE || a.CvUncertainty < a.CvSE {
+				t.Errorf("starts %+v, ± %g (SE %g)", a.Starts, a.FinalUncertainty, a.FinalSE)
+			}
+		})
+	}
+}
+
+// On records with seeded noise (1 mm, a common precision of levelling
+// settlement plates; common practice), the default window is unbiased:
+// over 40 seeds the mean forecast is within 1 % of the true final
+// settlement and the mean cv within 5 % (issue 16's limits), and the
+// stated ± (standard error and window spread, FinalUncertainty) at
+// 2 standard deviations covers the truth in at least 90 % of seeds.
+// Source of the truth: Terzaghi's series (internal/series).
+func TestAsaokaDefaultWindowNoisy(t *testing.T) {
+	t.Parallel()
+	const sInf, cv, seeds = 0.5, 0.02, 40
+	cases := []struct {
+		name        string
+		d           float64
+		ends        int
+		step, tvEnd float64
+		sigma       float64
+	}{
+		{"single drainage, weekly-ish readings", 4, 1, 10, 1, 0.001},
+		{"double drainage", 3, 2, 7, 1, 0.001},
+		{"sparse, noisier", 4, 1, 20, 1.5, 0.002},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			t.Parallel()
+			var sumF, sumC float64
+			covF, covC := 0, 0
+			for seed := range uint64(seeds) {
+				ts, ss := noisyTerzaghi(sInf, cv, c.d, c.step, c.tvEnd, c.sigma, seed)
+				a, err := Asaoka(ts, ss, 0, AsaokaOptions{AutoStart: true, Thickness: c.d * float64(c.ends), DrainedEnds: c.ends})
+				if err != nil {
+					t.Fatalf("seed %d: %v", seed, err)
+				}
+				sumF += a.Final
+				sumC += a.Cv
+				if math.Abs(a.Final-sInf) <= 2*a.FinalUncertainty {
+					covF++
+				}
+				if math.Abs(a.Cv-cv) <= 2*a.CvUncertainty {
+					covC++
+				}
+			}
+			mF, mC := sumF/seeds, sumC/seeds
+			if math.Abs(mF/sInf-1) > 0.01 || math.Abs(mC/cv-1) > 0.05 {
+				t.Errorf("mean final %.4g m (true %.4g, 1 %%), mean cv %.4g (true %.4g, 5 %%)", mF, sInf, mC, cv)
+			}
+			if covF < seeds*9/10 || covC < seeds*9/10 {
+				t.Errorf("±2 uncertainties cover the final in %d and cv in %d of %d seeds; want at least 90 %%", covF, covC, seeds)
+			}
+			t.Logf("mean final %.4f m, mean cv %.5f m²/day; coverage %d, %d of %d", mF, mC, covF, covC, seeds)
+		})
+	}
+}
+
+// The forecast against the window start on the clean single-drainage
+// record (logged with -v: the data behind the table in the report and
+// the page's spread line). Each later start is less biased: the final
+// settlement rises towards the truth until the higher modes are gone
+// (Terzaghi 1943: they only ever make the early rate look faster).
+func TestAsaokaStartsTable(t *testing.T) {
+	t.Parallel()
+	ts, ss := noisyTerzaghi(0.5, 0.02, 4, 10, 1, 0, 0)
+	a, err := Asaoka(ts, ss, 0, AsaokaOptions{AutoStart: true, Thickness: 4, DrainedEnds: 1})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for i, r := range a.Starts {
+		t.Logf("from day %4g (Tv %.3g): final %.4f m, cv %.5f m²/day, higher modes %.2g", r.From, r.From*0.02/16, r.Final, r.Cv, r.HigherModes)
+		if i > 0 && r.HigherModes > FirstModeShare && !(r.Final > a.Starts[i-1].Final) {
+			t.Errorf("from day %g the forecast %.5g does not rise from %.5g", r.From, r.Final, a.Starts[i-1].Final)
+		}
+	}
+}
