@@ -31,7 +31,7 @@ import (
 // trip, and a decoded value is reflect.DeepEqual to the encoded one.
 const (
 	resultMagic  = "porelight-result-1\n"
-	projectMagic = "porelight-project-1\n"
+	projectMagic = "porelight-project-2\n"
 )
 
 // errBinary is the reason of every error of UnmarshalBinary.

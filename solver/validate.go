@@ -158,7 +158,7 @@ func Validate(p *Project) error {
 	}
 
 	if p.Monitoring != nil {
-		validMonitoring(&ps, p.Monitoring, height)
+		validMonitoring(&ps, p.Monitoring, height, len(p.Layers))
 	}
 
 	m := p.Mesh

@@ -288,8 +288,18 @@ func (c *Comparison) cvNote(a asaoka) string {
 	if a.Res.DrainagePath == 0 {
 		return ""
 	}
-	return fmt.Sprintf("an equivalent value for the whole column, drainage path %s m; the parabolic-isochrone form gives %s",
-		sig(a.Res.DrainagePath, 3), sig(a.Res.CvParabolic, 3))
+	var names []string
+	for _, i := range a.Res.Layers {
+		if c.P != nil && i >= 0 && i < len(c.P.Layers) {
+			names = append(names, recordName(c.P.Layers[i].Name, "layer", i))
+		}
+	}
+	through := "the consolidating layers"
+	if len(names) > 0 {
+		through = strings.Join(names, ", ")
+	}
+	return fmt.Sprintf("for %s (drainage path %s m; the compressible layers unless chosen in the file, monitoring.asaoka.layers); the parabolic-isochrone form gives %s",
+		through, sig(a.Res.DrainagePath, 3), sig(a.Res.CvParabolic, 3))
 }
 
 func (c *Comparison) betas(a asaoka) string {

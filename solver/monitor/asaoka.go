@@ -44,6 +44,9 @@ type AsaokaOptions struct {
 	// path is Thickness/DrainedEnds. Either zero: no cv is reported.
 	Thickness   float64
 	DrainedEnds int
+	// Layers are the indices of the consolidating layers that Thickness
+	// sums (AsaokaOptionsFor; informative only, copied to the result).
+	Layers []int
 	// AutoStart, when From is zero, starts the window where the first
 	// mode dominates the record (see FirstModeShare) instead of at
 	// AfterTime. AsaokaOptionsFor sets it.
@@ -51,13 +54,29 @@ type AsaokaOptions struct {
 }
 
 // AsaokaOptionsFor returns the options that read a settlement record of
-// p: AfterTime = LastLoadChange(p), the whole column as the consolidating
-// layer and its drained ends. For a column of several compressible layers
-// the cv so found is an equivalent value for the column as a whole.
+// p: AfterTime = LastLoadChange(p), the window start of the first-mode
+// criterion (AutoStart) unless p.Monitoring.Asaoka saves one, and as the
+// consolidating layer the layers p.Monitoring.Asaoka names, or else
+// ConsolidatingLayers(p), with the drained ends of the column. When
+// several layers consolidate, the cv so found is an equivalent value for
+// them together.
 func AsaokaOptionsFor(p *solver.Project) AsaokaOptions {
 	o := AsaokaOptions{AfterTime: solver.LastLoadChange(p), AutoStart: true}
-	for _, l := range p.Layers {
-		o.Thickness += l.Thickness
+	var saved *solver.AsaokaSettings
+	if p.Monitoring != nil {
+		saved = p.Monitoring.Asaoka
+	}
+	if saved != nil {
+		o.From, o.To = saved.From, saved.To
+		o.Layers = append([]int(nil), saved.Layers...)
+	}
+	if len(o.Layers) == 0 {
+		o.Layers = ConsolidatingLayers(p)
+	}
+	for _, i := range o.Layers {
+		if i >= 0 && i < len(p.Layers) {
+			o.Thickness += p.Layers[i].Thickness
+		}
 	}
 	for _, b := range []solver.Boundary{p.Top, p.Bottom} {
 		if b.Drained {
@@ -65,6 +84,32 @@ func AsaokaOptionsFor(p *solver.Project) AsaokaOptions {
 		}
 	}
 	return o
+}
+
+// CompressibleShare is the smallest mv, as a share of the largest mv in
+// the column, of a layer that ConsolidatingLayers counts as compressible.
+const CompressibleShare = 0.1
+
+// ConsolidatingLayers returns the indices of the compressible layers of
+// p: those with mv at least CompressibleShare times the largest mv of the
+// column, and those whose mv follows from an e–log σ' curve (mv = 0). A
+// crust or sand layer, far stiffer, is left out, so the drainage path
+// runs through the clay the settlement comes from rather than the whole
+// column. It assumes the stiff layers drain freely (a stiff layer of low
+// k between the clay and a drained end lengthens the true path; then
+// choose the layers in the file, monitoring.asaoka.layers).
+func ConsolidatingLayers(p *solver.Project) []int {
+	largest := 0.0
+	for _, l := range p.Layers {
+		largest = math.Max(largest, l.Mv)
+	}
+	var out []int
+	for i, l := range p.Layers {
+		if l.Mv == 0 || l.Mv >= CompressibleShare*largest {
+			out = append(out, i)
+		}
+	}
+	return out
 }
 
 // AsaokaResult is the outcome of Asaoka's method on one settlement
@@ -96,8 +141,10 @@ type AsaokaResult struct {
 	Final   float64 `json:"final"`
 	FinalSE float64 `json:"finalSE"`
 	// DrainagePath is the length d of the drainage path, m (0 when the
-	// options give no thickness).
+	// options give no thickness), through the layers Layers (indices into
+	// the project's layers; empty when the options name none).
 	DrainagePath float64 `json:"drainagePath"`
+	Layers       []int   `json:"layers,omitempty"`
 	// Cv is the coefficient of consolidation from the slowest Terzaghi
 	// mode, −4d² ln β1/(π² Δt), and CvSE its standard error; CvParabolic
 	// is Asaoka's parabolic-isochrone form −5d² ln β1/(12 Δt), about
@@ -301,6 +348,7 @@ func asaoka(times, settlements []float64, interval float64, opt AsaokaOptions, a
 		return nil, err
 	}
 	a.AutoStart = auto
+	a.Layers = append([]int(nil), opt.Layers...)
 	a.HigherModes = higherModeShare(a, opt.AfterTime)
 	a.spread(times, settlements, interval, opt, at)
 	return a, nil
@@ -413,7 +461,8 @@ func PlateAsaoka(p *solver.Project, i int, interval float64) (*AsaokaResult, err
 }
 
 // PlateAsaokaWindow is PlateAsaoka reading only the readings from day
-// from to day to (AsaokaOptions.From and To; zero keeps their defaults).
+// from to day to (AsaokaOptions.From and To; zero keeps the window saved
+// in p.Monitoring.Asaoka, or the defaults).
 // A reading time that cannot be resolved is reported as the
 // solver.Problems of solver.ReadingTimesAt. Problems name the plate's
 // fields: "monitoring.plates[2].readings" for the record as a whole,
@@ -441,7 +490,12 @@ func PlateAsaokaWindow(p *solver.Project, i int, interval, from, to float64) (*A
 		vs[j] = r.Value
 	}
 	opt := AsaokaOptionsFor(p)
-	opt.From, opt.To = from, to
+	if from != 0 {
+		opt.From = from
+	}
+	if to != 0 {
+		opt.To = to
+	}
 	return asaoka(ts, vs, interval, opt, at)
 }
 

@@ -3,8 +3,10 @@ package monitor
 import (
 	"math"
 	"math/rand/v2"
+	"slices"
 	"testing"
 
+	"porelight/solver"
 	"porelight/solver/internal/series"
 )
 
@@ -144,5 +146,58 @@ func TestAsaokaStartsTable(t *testing.T) {
 		if i > 0 && r.HigherModes > FirstModeShare && !(r.Final > a.Starts[i-1].Final) {
 			t.Errorf("from day %g the forecast %.5g does not rise from %.5g", r.From, r.Final, a.Starts[i-1].Final)
 		}
+	}
+}
+
+// The drainage path of the implied cv runs through the compressible
+// layers only: for a crust over clay over sand, drained at both ends, a
+// Terzaghi record of the clay alone (d = half the clay, internal/series)
+// gives back the clay's cv within 5 % by default, while the whole column
+// as the path would make it (9/6)² = 2.25 times too large. The saved
+// choices (monitoring.asaoka) replace the defaults: another layer list
+// changes the path, and a saved window start is the one read.
+func TestAsaokaDrainagePath(t *testing.T) {
+	t.Parallel()
+	const sInf, cv, clay = 0.3, 0.02, 6.0
+	ts, ss := noisyTerzaghi(sInf, cv, clay/2, 5, 1, 0, 0)
+	p := &solver.Project{
+		Format: solver.Format,
+		Layers: []solver.Layer{
+			{Name: "crust", Thickness: 1, GammaSat: 19, K: 1e-6, Mv: 2e-5},
+			{Name: "clay", Thickness: clay, GammaSat: 17, K: 1e-9, Mv: 5e-4},
+			{Name: "sand", Thickness: 2, GammaSat: 20, K: 1e-4, Mv: 1e-5},
+		},
+		Top:        solver.Boundary{Drained: true},
+		Bottom:     solver.Boundary{Drained: true},
+		Loads:      []solver.Load{{Q: 50}},
+		Monitoring: &solver.Monitoring{Plates: []solver.Plate{{}}},
+	}
+	for j := range ts {
+		p.Monitoring.Plates[0].Readings = append(p.Monitoring.Plates[0].Readings, solver.Reading{T: ts[j], Value: ss[j]})
+	}
+	if err := solver.Validate(p); err != nil {
+		t.Fatal(err)
+	}
+	if got := ConsolidatingLayers(p); !slices.Equal(got, []int{1}) {
+		t.Fatalf("consolidating layers %v, want [1]", got)
+	}
+	a, err := PlateAsaoka(p, 0, 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if a.DrainagePath != clay/2 || !slices.Equal(a.Layers, []int{1}) || math.Abs(a.Cv/cv-1) > 0.05 || math.Abs(a.Final/sInf-1) > 0.01 {
+		t.Errorf("path %g m through %v, cv %.4g (true %.4g, 5 %%), final %.4g (true %.4g, 1 %%)", a.DrainagePath, a.Layers, a.Cv, cv, a.Final, sInf)
+	}
+	p.Monitoring.Asaoka = &solver.AsaokaSettings{From: 300, Layers: []int{0, 1, 2}}
+	if err := solver.Validate(p); err != nil {
+		t.Fatal(err)
+	}
+	b, err := PlateAsaoka(p, 0, 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	// cv scales with d² for the same β1 rate; Δt differs, so compare λd².
+	if b.DrainagePath != 4.5 || b.Times[0] != 300 || b.AutoStart || math.Abs(b.Cv/cv/2.25-1) > 0.05 {
+		t.Errorf("saved choices: path %g m (want 4.5), start %g (want 300), auto %v, cv %.4g (want %.4g within 5 %%)", b.DrainagePath, b.Times[0], b.AutoStart, b.Cv, 2.25*cv)
 	}
 }
