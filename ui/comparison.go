@@ -319,6 +319,12 @@ func (c *Comparison) windowText(a asaoka) string {
 	return s
 }
 
+// hyperbolic is the hyperbolic method's forecast on the same readings.
+func (c *Comparison) hyperbolic(a asaoka) string {
+	h := a.Res.Hyperbolic
+	return fmt.Sprintf("%.0f mm with the slope correction of Sridharan et al. (1987); the plain hyperbola gives %.0f mm, which for Terzaghi-type consolidation is about 20 %% too high", h.Corrected*1000, h.Final*1000)
+}
+
 // startsText lists the forecast for other window starts; the ± of the
 // forecast includes the spread of those at or after the chosen start.
 func (c *Comparison) startsText(a asaoka) string {

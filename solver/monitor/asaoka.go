@@ -177,6 +177,10 @@ type AsaokaResult struct {
 	FinalUncertainty float64 `json:"finalUncertainty"`
 	CvUncertainty    float64 `json:"cvUncertainty"`
 
+	// Hyperbolic is the hyperbolic method on the same readings, a
+	// cross-check (nil when it gives no forecast; see Hyperbolic).
+	Hyperbolic *HyperbolicResult `json:"hyperbolic,omitempty"`
+
 	readings int // readings in the window
 }
 
@@ -351,6 +355,7 @@ func asaoka(times, settlements []float64, interval float64, opt AsaokaOptions, a
 	a.Layers = append([]int(nil), opt.Layers...)
 	a.HigherModes = higherModeShare(a, opt.AfterTime)
 	a.spread(times, settlements, interval, opt, at)
+	a.Hyperbolic = Hyperbolic(times, settlements, opt.AfterTime, a.Times[0], a.Times[len(a.Times)-1])
 	return a, nil
 }
 

@@ -8,6 +8,8 @@ import (
 
 	"porelight/solver"
 	"porelight/solver/internal/series"
+
+	"gonum.org/v1/gonum/stat"
 )
 
 // noisyTerzaghi is a settlement record s∞·U(cv t/d²) (Terzaghi 1943,
@@ -199,5 +201,66 @@ func TestAsaokaDrainagePath(t *testing.T) {
 	// cv scales with d² for the same β1 rate; Δt differs, so compare λd².
 	if b.DrainagePath != 4.5 || b.Times[0] != 300 || b.AutoStart || math.Abs(b.Cv/cv/2.25-1) > 0.05 {
 		t.Errorf("saved choices: path %g m (want 4.5), start %g (want 300), auto %v, cv %.4g (want %.4g within 5 %%)", b.DrainagePath, b.Times[0], b.AutoStart, b.Cv, 2.25*cv)
+	}
+}
+
+// The slope of T/U against T over 60–90 % consolidation, from Terzaghi's
+// series (internal/series), is the 0.818 Sridharan et al. (1987) quote
+// (from memory); HyperbolicSlope rounds it. Tolerance 0.01 absolute.
+func TestHyperbolicSlope(t *testing.T) {
+	t.Parallel()
+	var xs, ys []float64
+	for T := 0.001; T < 3; T += 0.001 {
+		if u := series.TerzaghiU(T); u >= 0.6 && u <= 0.9 {
+			xs = append(xs, T)
+			ys = append(ys, T/u)
+		}
+	}
+	_, slope := stat.LinearRegression(xs, ys, nil, false)
+	if math.Abs(slope-0.818) > 0.01 || math.Abs(slope-HyperbolicSlope) > 0.01 {
+		t.Errorf("slope %.4f, want 0.818 (Sridharan et al. 1987) within 0.01", slope)
+	}
+}
+
+// The hyperbolic method on an exact hyperbola s = τ/(α + βτ) recovers
+// 1/β to rounding (1e-9 relative; the formula, from memory, checked by
+// computation), and on Terzaghi records in Asaoka's default window shows
+// its known tendency (Sridharan et al. 1987): the plain asymptote lies
+// 10–25 % above the truth, while the corrected forecast is within 3 % of
+// it and of Asaoka's (the band the slope's range dependence allows: 0.821
+// over 60–90 %, 0.83 over 50–90 %).
+func TestHyperbolic(t *testing.T) {
+	t.Parallel()
+	var ts, ss []float64
+	for j := range 20 {
+		tau := 10 * float64(j)
+		ts = append(ts, 5+tau)
+		ss = append(ss, 0.02+tau/(40+2.5*tau))
+	}
+	h := Hyperbolic(ts, ss, 5, 0, 0)
+	if h == nil || math.Abs(h.Final/(0.02+1/2.5)-1) > 1e-9 || math.Abs(h.Alpha/40-1) > 1e-9 {
+		t.Fatalf("exact hyperbola: %+v", h)
+	}
+	const sInf, cv = 0.5, 0.02
+	for _, c := range []struct {
+		d     float64
+		ends  int
+		step  float64
+		sigma float64
+	}{{4, 1, 10, 0}, {3, 2, 7, 0}, {4, 1, 10, 0.001}} {
+		ts, ss := noisyTerzaghi(sInf, cv, c.d, c.step, 1, c.sigma, 3)
+		a, err := Asaoka(ts, ss, 0, AsaokaOptions{AutoStart: true, Thickness: c.d * float64(c.ends), DrainedEnds: c.ends})
+		if err != nil {
+			t.Fatal(err)
+		}
+		h := a.Hyperbolic
+		if h == nil {
+			t.Fatalf("d %g: no hyperbolic forecast", c.d)
+		}
+		over := h.Final/sInf - 1
+		if over < 0.10 || over > 0.25 || math.Abs(h.Corrected/sInf-1) > 0.03 || math.Abs(h.Corrected/a.Final-1) > 0.03 {
+			t.Errorf("d %g, noise %g: plain %.4g (%.1f %% over), corrected %.4g, Asaoka %.4g, truth %.4g", c.d, c.sigma, h.Final, 100*over, h.Corrected, a.Final, sInf)
+		}
+		t.Logf("d %g noise %g: plain %.4f corrected %.4f asaoka %.4f", c.d, c.sigma, h.Final, h.Corrected, a.Final)
 	}
 }
