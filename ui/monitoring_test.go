@@ -2,6 +2,7 @@ package ui
 
 import (
 	"encoding/json"
+	"fmt"
 	"math"
 	"slices"
 	"strings"
@@ -383,5 +384,31 @@ func TestFitError(t *testing.T) {
 		if got := fitError(c.err); got != c.want {
 			t.Errorf("%s: %q, want %q", c.name, got, c.want)
 		}
+	}
+}
+
+// On the demo, each plate's Asaoka card shows how the window was chosen,
+// the forecasts for other window starts (whose spread the ± includes),
+// the hyperbolic cross-check and the layers of the drainage path, with the
+// figures the solver gives (monitor.PlateAsaoka).
+func TestAsaokaCardExplains(t *testing.T) {
+	p := newPage(t, Sources{})
+	a, err := monitor.PlateAsaoka(p.root.resultFor, 0, 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	checks := map[string]string{
+		"asaoka-0-window":     "first Terzaghi mode",
+		"asaoka-0-starts":     fmt.Sprintf("spread of %.0f mm", a.FinalSpread*1000),
+		"asaoka-0-hyperbolic": fmt.Sprintf("%.0f mm with the slope correction", a.Hyperbolic.Corrected*1000),
+		"asaoka-0-final":      fmt.Sprintf("%.0f", a.Final*1000),
+	}
+	for id, want := range checks {
+		if got := p.text(id); !strings.Contains(got, want) {
+			t.Errorf("%s: %q does not say %q", id, got, want)
+		}
+	}
+	if got := p.text("asaoka-0-cv"); !strings.Contains(p.text("asaoka-0"), "drainage path") {
+		t.Errorf("cv %q: the card names no drainage path", got)
 	}
 }
