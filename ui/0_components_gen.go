@@ -751,6 +751,11 @@ func (c *Backfit) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 				vgn.SetInnerHTML(c.runs())
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "fit-assumption"}}}
+				vgparent.AppendChild(vgn)
+				vgn.SetInnerHTML(c.S.res.Assumption)
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
 				if len(c.correlated()) > 0 {
 					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "ul", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-warnings"}}}
 					vgparent.AppendChild(vgn)

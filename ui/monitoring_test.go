@@ -312,6 +312,9 @@ func TestFitApplyRevert(t *testing.T) {
 	if got := p.text("fit-param-0-mult"); !strings.HasPrefix(got, "2.0") {
 		t.Errorf("multiplier shows %q", got)
 	}
+	if got := p.text("fit-assumption"); !strings.Contains(got, "independent readings") || !strings.Contains(got, "Student's t") {
+		t.Errorf("the fit does not state its assumption: %q", got)
+	}
 	if got := p.text("fit-rms"); !strings.Contains(got, "Settlement:") || !strings.Contains(got, "Pore pressure:") {
 		t.Errorf("RMS lines %q", got)
 	}
