@@ -4,6 +4,8 @@ package main
 
 import (
 	"encoding/json"
+	"os"
+	"strings"
 	"syscall/js"
 	"testing"
 
@@ -90,5 +92,28 @@ func TestMonitorAPI(t *testing.T) {
 		if len(ps) == 0 || ps[0].Path != c.path || ps[0].Message == "" {
 			t.Errorf("%s: problems %+v, want the first at %q", c.name, ps, c.path)
 		}
+	}
+}
+
+// The README's JavaScript API example runs as written against the demo
+// (no exception; it logs the plate's forecast).
+func TestReadmeExample(t *testing.T) {
+	data, err := os.ReadFile("../README.md")
+	if err != nil {
+		t.Fatal(err)
+	}
+	s := string(data)
+	i := strings.Index(s, "## JavaScript API")
+	j := strings.Index(s[i:], "```js\n")
+	if i < 0 || j < 0 {
+		t.Fatal("README has no JavaScript API example")
+	}
+	code := s[i+j+len("```js\n"):]
+	code = code[:strings.Index(code, "```")]
+	a := &api{demo: demoBytes(t)}
+	a.register(js.Global())
+	defer js.Global().Delete("porelight")
+	if err := catch(func() { js.Global().Call("eval", "(function(){"+code+"})()") }); err != nil {
+		t.Errorf("the README example fails: %v", err)
 	}
 }

@@ -47,6 +47,9 @@ type AsaokaOptions struct {
 	// Layers are the indices of the consolidating layers that Thickness
 	// sums (AsaokaOptionsFor; informative only, copied to the result).
 	Layers []int
+	// LoadOrigin is the time origin of the hyperbolic method, days
+	// (LoadOrigin(p) in AsaokaOptionsFor; zero: day 0).
+	LoadOrigin float64
 	// AutoStart, when From is zero, starts the window where the first
 	// mode dominates the record (see FirstModeShare) instead of at
 	// AfterTime. AsaokaOptionsFor sets it.
@@ -61,7 +64,7 @@ type AsaokaOptions struct {
 // several layers consolidate, the cv so found is an equivalent value for
 // them together.
 func AsaokaOptionsFor(p *solver.Project) AsaokaOptions {
-	o := AsaokaOptions{AfterTime: solver.LastLoadChange(p), AutoStart: true}
+	o := AsaokaOptions{AfterTime: solver.LastLoadChange(p), AutoStart: true, LoadOrigin: LoadOrigin(p)}
 	var saved *solver.AsaokaSettings
 	if p.Monitoring != nil {
 		saved = p.Monitoring.Asaoka
@@ -355,7 +358,7 @@ func asaoka(times, settlements []float64, interval float64, opt AsaokaOptions, a
 	a.Layers = append([]int(nil), opt.Layers...)
 	a.HigherModes = higherModeShare(a, opt.AfterTime)
 	a.spread(times, settlements, interval, opt, at)
-	a.Hyperbolic = Hyperbolic(times, settlements, opt.AfterTime, a.Times[0], a.Times[len(a.Times)-1])
+	a.Hyperbolic = Hyperbolic(times, settlements, opt.LoadOrigin, a.Times[0], a.Times[len(a.Times)-1])
 	return a, nil
 }
 

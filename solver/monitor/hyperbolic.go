@@ -3,6 +3,8 @@ package monitor
 import (
 	"math"
 
+	"porelight/solver"
+
 	"gonum.org/v1/gonum/stat"
 )
 
@@ -15,65 +17,51 @@ const HyperbolicSlope = 0.82
 
 // HyperbolicResult is the hyperbolic method on one settlement record.
 type HyperbolicResult struct {
-	// T0 and S0 are the origin: the day the load stops changing and the
-	// settlement then (interpolated in the record, or its first reading
-	// at or after T0). Times and Settlements are the readings fitted.
+	// T0 is the time origin, days (see Hyperbolic); Times and
+	// Settlements are the readings fitted.
 	T0          float64   `json:"t0"`
-	S0          float64   `json:"s0"`
 	Times       []float64 `json:"times"`
 	Settlements []float64 `json:"settlements"`
 	// Alpha (day/m) and Beta (1/m) are the least squares line
-	// τ/Δs = α + β τ, τ = t − T0, Δs = s − S0.
+	// τ/s = α + β τ, τ = t − T0.
 	Alpha float64 `json:"alpha"`
 	Beta  float64 `json:"beta"`
-	// Final is the plain hyperbola's asymptote S0 + 1/β (Tan 1971), which
-	// on a Terzaghi record lies about 20 % above the truth; Corrected is
-	// S0 + HyperbolicSlope/β (Sridharan et al. 1987), the forecast to set
+	// Final is the plain hyperbola's asymptote 1/β (Tan 1971), which on
+	// a Terzaghi record lies about 20 % above the truth; Corrected is
+	// HyperbolicSlope/β (Sridharan et al. 1987), the forecast to set
 	// beside Asaoka's.
 	Final     float64 `json:"final"`
 	Corrected float64 `json:"corrected"`
 }
 
-// Hyperbolic applies the hyperbolic method to the readings of a from
-// the start of its window to its end, with the origin at afterTime (the
-// last change of load): a settlement–time curve s = S0 + τ/(α + βτ) has
-// τ/(s − S0) = α + βτ, a straight line whose slope β gives the final
-// settlement S0 + 1/β (Tan 1971, from memory). Terzaghi's U(T) is not a
+// Hyperbolic applies the hyperbolic method to the readings from day
+// from to day to (zero: the last reading), with the time origin t0 and
+// zero settlement there: a settlement–time curve s = τ/(α + βτ), τ = t −
+// t0, has τ/s = α + βτ, a straight line whose slope β gives the final
+// settlement 1/β (Tan 1971, from memory). Terzaghi's U(T) is not a
 // hyperbola: T/U is straight only between about 60 % and 90 % and there
 // has slope 0.82, not 1, so the plain asymptote overestimates the final
 // settlement (Sridharan et al. 1987: by about 1/0.82, 22 %); Corrected
-// applies their slope. It returns nil when the window holds fewer than 3
-// readings after the origin or the line does not rise (β ≤ 0).
-func Hyperbolic(times, settlements []float64, afterTime, from, to float64) *HyperbolicResult {
-	if len(times) == 0 {
-		return nil
-	}
-	h := &HyperbolicResult{T0: afterTime}
-	k := 0
-	for k < len(times) && times[k] < afterTime {
-		k++
-	}
-	switch {
-	case k == len(times):
-		return nil
-	case k == 0 || times[k] == afterTime:
-		h.T0, h.S0 = times[k], settlements[k]
-	default:
-		h.S0 = interpAt(times[k-1], settlements[k-1], times[k], settlements[k], afterTime)
-	}
+// applies their slope. The origin must be where consolidation starts
+// (LoadOrigin: the middle of the loading, the usual correction for
+// construction time); an origin later in the consolidation makes the
+// correction wrong. It returns nil when fewer than 3 readings are fitted
+// or the line does not rise (β ≤ 0).
+func Hyperbolic(times, settlements []float64, t0, from, to float64) *HyperbolicResult {
+	h := &HyperbolicResult{T0: t0}
 	end := math.Inf(1)
 	if to > 0 {
 		end = to
 	}
 	var xs, ys []float64
 	for j, t := range times {
-		if t < from || t > end || t <= h.T0 || settlements[j] <= h.S0 {
+		if t < from || t > end || t <= t0 || !(settlements[j] > 0) {
 			continue
 		}
 		h.Times = append(h.Times, t)
 		h.Settlements = append(h.Settlements, settlements[j])
-		xs = append(xs, t-h.T0)
-		ys = append(ys, (t-h.T0)/(settlements[j]-h.S0))
+		xs = append(xs, t-t0)
+		ys = append(ys, (t-t0)/settlements[j])
 	}
 	if len(xs) < 3 {
 		return nil
@@ -82,7 +70,26 @@ func Hyperbolic(times, settlements []float64, afterTime, from, to float64) *Hype
 	if !(h.Beta > 0) || math.IsInf(1/h.Beta, 0) {
 		return nil
 	}
-	h.Final = h.S0 + 1/h.Beta
-	h.Corrected = h.S0 + HyperbolicSlope/h.Beta
+	h.Final = 1 / h.Beta
+	h.Corrected = HyperbolicSlope / h.Beta
 	return h
+}
+
+// LoadOrigin is the time origin of the hyperbolic method for p: the
+// middle of the loading stages that add load, weighted by the load each
+// adds (for one ramp, its midpoint: the usual correction for
+// construction time; common practice). Stages that remove load are left
+// out. Zero when no stage adds load.
+func LoadOrigin(p *solver.Project) float64 {
+	sum, w := 0.0, 0.0
+	for _, l := range p.Loads {
+		if l.Q > 0 {
+			sum += l.Q * (l.Start + l.Ramp/2)
+			w += l.Q
+		}
+	}
+	if w == 0 {
+		return 0
+	}
+	return sum / w
 }

@@ -3,6 +3,7 @@ package monitor
 import (
 	"math"
 	"math/rand/v2"
+	"os"
 	"slices"
 	"testing"
 
@@ -235,10 +236,10 @@ func TestHyperbolic(t *testing.T) {
 	for j := range 20 {
 		tau := 10 * float64(j)
 		ts = append(ts, 5+tau)
-		ss = append(ss, 0.02+tau/(40+2.5*tau))
+		ss = append(ss, tau/(40+2.5*tau))
 	}
 	h := Hyperbolic(ts, ss, 5, 0, 0)
-	if h == nil || math.Abs(h.Final/(0.02+1/2.5)-1) > 1e-9 || math.Abs(h.Alpha/40-1) > 1e-9 {
+	if h == nil || math.Abs(h.Final*2.5-1) > 1e-9 || math.Abs(h.Alpha/40-1) > 1e-9 || math.Abs(h.Corrected/h.Final-HyperbolicSlope) > 1e-12 {
 		t.Fatalf("exact hyperbola: %+v", h)
 	}
 	const sInf, cv = 0.5, 0.02
@@ -262,5 +263,55 @@ func TestHyperbolic(t *testing.T) {
 			t.Errorf("d %g, noise %g: plain %.4g (%.1f %% over), corrected %.4g, Asaoka %.4g, truth %.4g", c.d, c.sigma, h.Final, 100*over, h.Corrected, a.Final, sInf)
 		}
 		t.Logf("d %g noise %g: plain %.4f corrected %.4f asaoka %.4f", c.d, c.sigma, h.Final, h.Corrected, a.Final)
+	}
+}
+
+// The origin of the hyperbolic method is the load-weighted middle of the
+// stages that add load (the construction-time correction; common
+// practice): one ramp 0–30 days gives 15; stages of 40 kPa over 0–20 and
+// 30 kPa over 120–135 give (40·10 + 30·127.5)/70; a removal is ignored.
+// Exact arithmetic, tolerance 1e-12.
+func TestLoadOrigin(t *testing.T) {
+	t.Parallel()
+	cases := []struct {
+		loads []solver.Load
+		want  float64
+	}{
+		{nil, 0},
+		{[]solver.Load{{Q: 50}}, 0},
+		{[]solver.Load{{Start: 0, Ramp: 30, Q: 60}}, 15},
+		{[]solver.Load{{Ramp: 20, Q: 40}, {Start: 120, Ramp: 15, Q: 30}, {Start: 400, Q: -20}}, (40*10 + 30*127.5) / 70},
+	}
+	for _, c := range cases {
+		if got := LoadOrigin(&solver.Project{Loads: c.loads}); math.Abs(got-c.want) > 1e-12 {
+			t.Errorf("loads %+v: origin %g, want %g", c.loads, got, c.want)
+		}
+	}
+}
+
+// On the demo (staged loading, a partial removal, two clays), the
+// hyperbolic cross-check agrees with Asaoka's forecast within the ±
+// Asaoka states (FinalUncertainty): a consistency check of the two
+// methods on the same readings, not against an independent truth.
+func TestDemoHyperbolicAgrees(t *testing.T) {
+	t.Parallel()
+	data, err := os.ReadFile(demoFile)
+	if err != nil {
+		t.Fatal(err)
+	}
+	p, err := solver.Decode(data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for i := range p.Monitoring.Plates {
+		a, err := PlateAsaoka(p, i, 0)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if a.Hyperbolic == nil || math.Abs(a.Hyperbolic.Corrected-a.Final) > a.FinalUncertainty {
+			t.Errorf("plate %d: Asaoka %.4g ± %.2g m, hyperbolic %+v", i, a.Final, a.FinalUncertainty, a.Hyperbolic)
+			continue
+		}
+		t.Logf("plate %d: Asaoka %.4f ± %.4f m (SE %.4f, spread %.4f), hyperbolic %.4f (plain %.4f), cv %.4g ± %.2g", i, a.Final, a.FinalUncertainty, a.FinalSE, a.FinalSpread, a.Hyperbolic.Corrected, a.Hyperbolic.Final, a.Cv, a.CvUncertainty)
 	}
 }
