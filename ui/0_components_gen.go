@@ -1447,6 +1447,11 @@ func (c *Comparison) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 											vgn.AddAttrInterface("data-value", exact(a.Res.Hyperbolic.Corrected))
 											vgn.AddAttrInterface("id", a.ID+"-hyperbolic")
 											vgn.SetInnerHTML(c.hyperbolic(a))
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: " "}
+											vgparent.AppendChild(vgn)
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(c.hyperbolicNote(a))
 										}
 									}
 								}

@@ -321,8 +321,11 @@ func (c *Comparison) windowText(a asaoka) string {
 
 // hyperbolic is the hyperbolic method's forecast on the same readings.
 func (c *Comparison) hyperbolic(a asaoka) string {
-	h := a.Res.Hyperbolic
-	return fmt.Sprintf("%.0f mm with the slope correction of Sridharan et al. (1987); the plain hyperbola gives %.0f mm, which for Terzaghi-type consolidation is about 20 %% too high", h.Corrected*1000, h.Final*1000)
+	return fmt.Sprintf("%.0f mm", a.Res.Hyperbolic.Corrected*1000)
+}
+
+func (c *Comparison) hyperbolicNote(a asaoka) string {
+	return fmt.Sprintf("with the slope correction of Sridharan et al. (1987); the plain hyperbola gives %.0f mm, which for Terzaghi-type consolidation is about 20 %% too high", a.Res.Hyperbolic.Final*1000)
 }
 
 // startsText lists the forecast for other window starts; the ± of the
