@@ -11,8 +11,6 @@ import (
 
 	"gonum.org/v1/gonum/integrate/quad"
 	"gonum.org/v1/gonum/mat"
-
-	"porelight/solver/internal/series"
 )
 
 // The rate constants behind the two cv forms in the doc of Asaoka, by
@@ -63,11 +61,7 @@ func TestAsaokaRateConstants(t *testing.T) {
 // path d under an instantaneous load, read every step days up to Tv = 1
 // (Terzaghi 1943, summed by internal/series).
 func terzaghiRecord(sInf, cv, d, step float64) (ts, ss []float64) {
-	for t := 0.0; t <= d*d/cv*(1+1e-12); t += step {
-		ts = append(ts, t)
-		ss = append(ss, sInf*series.TerzaghiU(cv*t/(d*d)))
-	}
-	return ts, ss
+	return noisyTerzaghi(sInf, cv, d, step, 1, 0, 0)
 }
 
 // Asaoka on an exact Terzaghi record recovers the final settlement and,

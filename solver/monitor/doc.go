@@ -29,10 +29,21 @@
 // other window starts (AsaokaResult.Starts) and folds their spread into
 // the ± it states (FinalUncertainty, CvUncertainty).
 //
+// The implied cv is for the consolidating layers: those named in the
+// file (monitoring.asaoka.layers) or else the compressible ones
+// (ConsolidatingLayers), not the whole column. Hyperbolic applies the
+// hyperbolic method (Tan 1971; with the slope correction of Sridharan et
+// al. 1987) to the same readings as a cross-check; Asaoka's result
+// carries it.
+//
 // BackFit fits multipliers on k (so on cv) of chosen layers, and
 // optionally one scale on settlement, to the records by Gauss–Newton with
 // gonum/optimize, solving the whole column for each trial, with standard
-// errors from the Jacobian (Bates & Watts 1988).
+// errors from the Jacobian (Bates & Watts 1988). These assume independent
+// readings; they are widened by the effective sample size from the
+// residuals' lag-1 autocorrelation, and the 95 % ranges use Student's t
+// (FitResult.Assumption says so in words). The fit compares the linear
+// (mv) settlement curve only.
 //
 // The package uses only solver's exported API, so it sees the column as
 // the page and the JavaScript API do. Units: m, kPa, day, m²/day.

@@ -3,7 +3,6 @@ package monitor
 import (
 	"math"
 	"math/rand/v2"
-	"os"
 	"slices"
 	"testing"
 
@@ -295,14 +294,7 @@ func TestLoadOrigin(t *testing.T) {
 // methods on the same readings, not against an independent truth.
 func TestDemoHyperbolicAgrees(t *testing.T) {
 	t.Parallel()
-	data, err := os.ReadFile(demoFile)
-	if err != nil {
-		t.Fatal(err)
-	}
-	p, err := solver.Decode(data)
-	if err != nil {
-		t.Fatal(err)
-	}
+	p := readDemo(t)
 	for i := range p.Monitoring.Plates {
 		a, err := PlateAsaoka(p, i, 0)
 		if err != nil {
