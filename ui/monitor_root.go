@@ -286,3 +286,10 @@ func (c *Root) revertFit() {
 	c.note("info", "Reverted: the layers have the k and mv they had before the fit was applied.")
 	c.edited()
 }
+
+// setAsaoka saves the choices for Asaoka's method in the project; the
+// results are reused, as for any edit of the field records.
+func (c *Root) setAsaoka(a *solver.AsaokaSettings) {
+	c.form.SetAsaoka(a)
+	c.edited()
+}

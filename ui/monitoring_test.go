@@ -415,3 +415,34 @@ func TestAsaokaCardExplains(t *testing.T) {
 		t.Errorf("the card names no drainage path or hyperbolic correction: %q", got)
 	}
 }
+
+// The drainage path and the window of Asaoka's method are chosen on the
+// page and saved in the project (monitoring.asaoka): taking the crust out
+// of the demo's path shortens it by the crust's half (two drained ends),
+// and a typed window start is saved; the card follows once the edit is
+// committed. Figures from monitor.PlateAsaoka on the saved project.
+func TestAsaokaChoicesSaved(t *testing.T) {
+	p := newPage(t, Sources{})
+	before := p.root.resultFor
+	if p.find("asaoka-layer-0") == nil || !slices.Contains(monitor.AsaokaOptionsFor(before).Layers, 0) {
+		t.Fatal("no drainage path choice for the crust, or the crust is not in the default path")
+	}
+	p.fire("asaoka-layer-0", "change", map[string]any{"checked": false})
+	p.typeInto("asaoka-from", "600")
+	a := p.root.Form().Draft().Monitoring.Asaoka
+	if a == nil || a.From != 600 || slices.Contains(a.Layers, 0) || len(a.Layers) == 0 {
+		t.Fatalf("saved choices %+v", a)
+	}
+	model := p.root.Form().Model()
+	want, err := monitor.PlateAsaoka(model, 0, 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	d := 0.0
+	for _, i := range a.Layers {
+		d += model.Layers[i].Thickness
+	}
+	if want.DrainagePath != d/2 || want.Times[0] < 600 {
+		t.Errorf("path %g m (want %g), window from day %g", want.DrainagePath, d/2, want.Times[0])
+	}
+}

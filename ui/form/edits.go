@@ -27,12 +27,14 @@ func (f *Form) AddLayer(i int) {
 	l.Name = fmt.Sprintf("Layer %d", len(f.draft.Layers)+1)
 	at := min(max(i+1, 0), len(f.draft.Layers))
 	f.draft.Layers = slices.Insert(f.draft.Layers, at, l)
-	f.remap("layers", func(old int) int {
+	shift := func(old int) int {
 		if old >= at {
 			return old + 1
 		}
 		return old
-	})
+	}
+	f.remap("layers", shift)
+	f.remapAsaokaLayers(shift)
 	f.check()
 }
 
@@ -43,6 +45,7 @@ func (f *Form) RemoveLayer(i int) {
 	}
 	f.draft.Layers = slices.Delete(f.draft.Layers, i, i+1)
 	f.remap("layers", Removed(i))
+	f.remapAsaokaLayers(Removed(i))
 	f.check()
 }
 
@@ -54,7 +57,7 @@ func (f *Form) MoveLayer(i, d int) {
 		return
 	}
 	f.draft.Layers[i], f.draft.Layers[j] = f.draft.Layers[j], f.draft.Layers[i]
-	f.remap("layers", func(old int) int {
+	swap := func(old int) int {
 		switch old {
 		case i:
 			return j
@@ -62,7 +65,9 @@ func (f *Form) MoveLayer(i, d int) {
 			return i
 		}
 		return old
-	})
+	}
+	f.remap("layers", swap)
+	f.remapAsaokaLayers(swap)
 	f.check()
 }
 
