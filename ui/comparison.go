@@ -398,7 +398,7 @@ func (c *Comparison) cvNote(a asaoka) string {
 	if len(names) > 0 {
 		through = strings.Join(names, ", ")
 	}
-	return fmt.Sprintf("for %s (drainage path %s m; the compressible layers unless chosen in the file, monitoring.asaoka.layers); the parabolic-isochrone form gives %s",
+	return fmt.Sprintf("for %s (drainage path %s m: their thickness over the drained ends of the column; choose the layers above); the parabolic-isochrone form gives %s",
 		through, sig(a.Res.DrainagePath, 3), sig(a.Res.CvParabolic, 3))
 }
 
