@@ -31,7 +31,7 @@ import (
 // trip, and a decoded value is reflect.DeepEqual to the encoded one.
 const (
 	resultMagic  = "porelight-result-2\n"  // 2: stage stresses, submerged fill, the soil model's series
-	projectMagic = "porelight-project-2\n" // 2: fills and loaded areas, drains, the soil model
+	projectMagic = "porelight-project-2\n" // 2: fills and loaded areas, drains, the soil model, Asaoka settings
 )
 
 // errBinary is the reason of every error of UnmarshalBinary.

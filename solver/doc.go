@@ -422,6 +422,12 @@
 //	monitoring.plates[i]…value m      −1000 … 1000                    ErrOutOfRange
 //	monitoring.piezometers[i].depth m 0 … column height               ErrNegative, ErrOutOfRange
 //	monitoring.piezometers[i]…value kPa −10⁶ … 10⁶                    ErrOutOfRange
+//	monitoring.asaoka.from    day     0 … 10⁹ (absent: first-mode     ErrNegative, ErrOutOfRange
+//	                                  criterion, package monitor)
+//	monitoring.asaoka.to      day     0 … 10⁹, after from (absent:    ErrNegative, ErrOutOfRange
+//	                                  the last reading)
+//	monitoring.asaoka.layers[i] –     0 … len(layers)−1, each once    ErrOutOfRange, ErrConflict
+//	                                  (absent: the compressible layers)
 //	monitoring.*              see Monitoring and its validation
 //	layers[i].ch              m²/day  10⁻⁹ … 10⁷ (absent: khKv·cv)    ErrNotPositive, ErrOutOfRange
 //	layers[i].khKv            –       0.01 … 1000 (absent: 1); not    ErrNotPositive, ErrOutOfRange,

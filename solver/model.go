@@ -296,6 +296,8 @@ type Monitoring struct {
 	Plates []Plate `json:"plates,omitempty"`
 	// Piezometers are pore pressure records at given depths.
 	Piezometers []PiezometerRecord `json:"piezometers,omitempty"`
+	// Asaoka holds the choices for Asaoka's method (nil: the defaults).
+	Asaoka *AsaokaSettings `json:"asaoka,omitempty"`
 }
 
 // Plate is the settlement record of one plate; Readings are settlements, m,

@@ -29,7 +29,8 @@ func daysBetween(a, b time.Time) float64 {
 
 // validMonitoring checks the field readings of a project: every problem
 // is added to ps with its path (monitoring.plates[0].readings[3].t …).
-// height is the column height, m (0 when unknown).
+// height is the column height, m (0 when unknown), and layers the number
+// of layers.
 //
 // A reading gives either t (days after day 0, ≥ 0) or date (YYYY-MM-DD,
 // which needs monitoring.start), not both; because t = 0 is the JSON zero
@@ -38,7 +39,10 @@ func daysBetween(a, b time.Time) float64 {
 // one before is ErrNotSorted, the same time again ErrDuplicate. Values
 // must be finite; a piezometer must lie within the column. A record may be
 // empty (a plate set up but not read yet).
-func validMonitoring(ps *Problems, m *Monitoring, height float64) {
+func validMonitoring(ps *Problems, m *Monitoring, height float64, layers int) {
+	if m.Asaoka != nil {
+		validAsaoka(ps, m.Asaoka, layers)
+	}
 	v := monitorCheck{ps: ps, hasStart: m.Start != ""}
 	if v.hasStart {
 		if t, ok := parseDate(m.Start); ok {
@@ -174,4 +178,39 @@ func ReadingTimesAt(m *Monitoring, rs []Reading, list string) ([]float64, error)
 		return nil, err
 	}
 	return ts, nil
+}
+
+// AsaokaSettings are the choices for Asaoka's method saved with the
+// records (package monitor applies the method).
+type AsaokaSettings struct {
+	// From and To bound the readings the method reads, days after day 0.
+	// Zero From: the start the first-mode criterion chooses (never before
+	// the last change of load); zero To: the last reading.
+	From float64 `json:"from,omitempty"`
+	To   float64 `json:"to,omitempty"`
+	// Layers are the indices of the layers that consolidate: their total
+	// thickness, over the number of drained ends of the column, is the
+	// drainage path of the implied cv. Empty: the compressible layers
+	// (package monitor, ConsolidatingLayers).
+	Layers []int `json:"layers,omitempty"`
+}
+
+// validAsaoka checks the saved choices for Asaoka's method.
+func validAsaoka(ps *Problems, a *AsaokaSettings, layers int) {
+	const at = "monitoring.asaoka"
+	from := upTo(ps, at+".from", a.From, MaxTime, "days")
+	if upTo(ps, at+".to", a.To, MaxTime, "days") && from && a.To > 0 && a.To <= a.From {
+		ps.Add(at+".to", ErrOutOfRange, fmt.Sprintf("day %g is not after the start of the window, day %g", a.To, a.From))
+	}
+	seen := map[int]bool{}
+	for i, l := range a.Layers {
+		lp := IndexPath(at+".layers", i)
+		switch {
+		case l < 0 || l >= layers:
+			ps.Add(lp, ErrOutOfRange, fmt.Sprintf("layer %d does not exist (the column has %d layers, numbered from 0)", l, layers))
+		case seen[l]:
+			ps.Add(lp, ErrConflict, fmt.Sprintf("layer %d again; give each layer once", l))
+		}
+		seen[l] = true
+	}
 }

@@ -107,6 +107,15 @@ func TestValidateMonitoring(t *testing.T) {
 			[]monProblem{{piezo + ".depth", ErrOutOfRange}}},
 		{"piezometer above the top", func(m *Monitoring) { m.Piezometers[0].Depth = -0.5 },
 			[]monProblem{{piezo + ".depth", ErrNegative}}},
+		{"Asaoka choices saved", func(m *Monitoring) { m.Asaoka = &AsaokaSettings{From: 30, To: 300, Layers: []int{0}} }, nil},
+		{"Asaoka window ends before it starts", func(m *Monitoring) { m.Asaoka = &AsaokaSettings{From: 30, To: 20} },
+			[]monProblem{{"monitoring.asaoka.to", ErrOutOfRange}}},
+		{"Asaoka window start negative, end beyond the bound", func(m *Monitoring) { m.Asaoka = &AsaokaSettings{From: -1, To: 2 * MaxTime} },
+			[]monProblem{{"monitoring.asaoka.from", ErrNegative}, {"monitoring.asaoka.to", ErrOutOfRange}}},
+		{"Asaoka window start not finite", func(m *Monitoring) { m.Asaoka = &AsaokaSettings{From: nan} },
+			[]monProblem{{"monitoring.asaoka.from", ErrNotFinite}}},
+		{"Asaoka layers out of range and repeated", func(m *Monitoring) { m.Asaoka = &AsaokaSettings{Layers: []int{0, 9, 0, -1}} },
+			[]monProblem{{"monitoring.asaoka.layers[1]", ErrOutOfRange}, {"monitoring.asaoka.layers[2]", ErrConflict}, {"monitoring.asaoka.layers[3]", ErrOutOfRange}}},
 		{"every problem at once", func(m *Monitoring) {
 			m.Plates[0].Readings[1].T = 7
 			m.Plates[0].Readings[3].T = 3

@@ -170,7 +170,7 @@ func Validate(p *Project) error {
 	}
 
 	if p.Monitoring != nil {
-		validMonitoring(&ps, p.Monitoring, height)
+		validMonitoring(&ps, p.Monitoring, height, len(p.Layers))
 	}
 	validDrains(&ps, p, height)
 	validIteratedWithDrains(&ps, p)

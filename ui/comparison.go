@@ -3,6 +3,7 @@ package ui
 import (
 	"fmt"
 	"math"
+	"slices"
 	"strings"
 
 	"github.com/vugu/vugu"
@@ -30,9 +31,13 @@ type Comparison struct {
 	TogglePlots func()
 	// Printing opens every fold, for Print report.
 	Printing bool
+	// SetAsaoka saves the choices for Asaoka's method (window, layers of
+	// the drainage path) in the project; nil: they are not saved.
+	SetAsaoka func(*solver.AsaokaSettings)
 
-	from, to string          // Asaoka window as typed, days ("" = default)
-	shown    map[string]bool // record path → its reading table unfolded
+	from, to       string          // Asaoka window as typed, days ("" = default)
+	fromSet, toSet bool            // the user typed in the field
+	shown          map[string]bool // record path → its reading table unfolded
 
 	res  []resRecord // for the inputs in made
 	asa  []asaoka
@@ -200,8 +205,8 @@ func (c *Comparison) window() (from, to float64, fromMsg, toMsg string) {
 		}
 		return x, msg
 	}
-	from, fromMsg = read(c.from)
-	to, toMsg = read(c.to)
+	from, fromMsg = read(c.fromText())
+	to, toMsg = read(c.toText())
 	if fromMsg == "" && toMsg == "" && to > 0 && to <= from {
 		toMsg = "must be after the start of the window"
 	}
@@ -211,8 +216,103 @@ func (c *Comparison) window() (from, to float64, fromMsg, toMsg string) {
 func (c *Comparison) fromProblem() string { _, _, m, _ := c.window(); return m }
 func (c *Comparison) toProblem() string   { _, _, _, m := c.window(); return m }
 
-func (c *Comparison) setFrom(e vugu.DOMEvent) { c.from = e.PropString("target", "value") }
-func (c *Comparison) setTo(e vugu.DOMEvent)   { c.to = e.PropString("target", "value") }
+func (c *Comparison) setFrom(e vugu.DOMEvent) {
+	c.from, c.fromSet = e.PropString("target", "value"), true
+	c.saveAsaoka(nil)
+}
+
+func (c *Comparison) setTo(e vugu.DOMEvent) {
+	c.to, c.toSet = e.PropString("target", "value"), true
+	c.saveAsaoka(nil)
+}
+
+// saved is the project's saved choices for Asaoka's method (never nil).
+func (c *Comparison) saved() solver.AsaokaSettings {
+	if c.P == nil || c.P.Monitoring == nil || c.P.Monitoring.Asaoka == nil {
+		return solver.AsaokaSettings{}
+	}
+	return *c.P.Monitoring.Asaoka
+}
+
+// fromText and toText are the window as typed, or as saved in the file.
+func (c *Comparison) fromText() string {
+	if c.fromSet {
+		return c.from
+	}
+	if v := c.saved().From; v > 0 {
+		return sig(v, 6)
+	}
+	return ""
+}
+
+func (c *Comparison) toText() string {
+	if c.toSet {
+		return c.to
+	}
+	if v := c.saved().To; v > 0 {
+		return sig(v, 6)
+	}
+	return ""
+}
+
+// saveAsaoka saves the window typed (when it reads) and layers (nil:
+// those saved) in the project.
+func (c *Comparison) saveAsaoka(layers []int) {
+	if c.SetAsaoka == nil {
+		return
+	}
+	from, to, fm, tm := c.window()
+	if fm != "" || tm != "" {
+		return
+	}
+	a := c.saved()
+	a.From, a.To = from, to
+	if layers != nil {
+		a.Layers = layers
+	}
+	c.SetAsaoka(&a)
+}
+
+// pathLayer is one layer's choice in the drainage path.
+type pathLayer struct {
+	I    int
+	ID   string
+	Name string
+	On   bool
+}
+
+// pathLayers lists the layers with whether the drainage path of the
+// implied cv runs through them (saved, or the compressible ones).
+func (c *Comparison) pathLayers() []pathLayer {
+	if c.P == nil {
+		return nil
+	}
+	on := monitor.AsaokaOptionsFor(c.P).Layers
+	var out []pathLayer
+	for i, l := range c.P.Layers {
+		out = append(out, pathLayer{I: i, ID: fmt.Sprintf("asaoka-layer-%d", i), Name: recordName(l.Name, "Layer", i), On: slices.Contains(on, i)})
+	}
+	return out
+}
+
+// togglePath adds layer i to the drainage path or takes it out (the
+// last one stays); the default set is saved as no choice.
+func (c *Comparison) togglePath(i int) {
+	on := monitor.AsaokaOptionsFor(c.P).Layers
+	if j := slices.Index(on, i); j >= 0 {
+		if len(on) == 1 {
+			return
+		}
+		on = slices.Delete(slices.Clone(on), j, j+1)
+	} else {
+		on = append(slices.Clone(on), i)
+		slices.Sort(on)
+	}
+	if slices.Equal(on, monitor.ConsolidatingLayers(c.P)) {
+		on = []int{}
+	}
+	c.saveAsaoka(on)
+}
 
 // lastChange is the day the load last changes in the project.
 func (c *Comparison) lastChange() float64 {
@@ -274,14 +374,14 @@ func plateAsaoka(p *solver.Project, i int, from, to float64) (*monitor.AsaokaRes
 }
 
 func (c *Comparison) final(a asaoka) string {
-	return pm(a.Res.Final*1000, a.Res.FinalSE*1000) + " mm"
+	return pm(a.Res.Final*1000, a.Res.FinalUncertainty*1000) + " mm"
 }
 
 func (c *Comparison) cv(a asaoka) string {
 	if a.Res.DrainagePath == 0 {
 		return "– (the column has no drained end)"
 	}
-	return pm(a.Res.Cv, a.Res.CvSE) + " m²/day"
+	return pm(a.Res.Cv, a.Res.CvUncertainty) + " m²/day"
 }
 
 // ch is the horizontal coefficient the slope implies on a drained site
@@ -301,8 +401,18 @@ func (c *Comparison) cvNote(a asaoka) string {
 	if a.Res.DrainagePath == 0 {
 		return ""
 	}
-	return fmt.Sprintf("an equivalent value for the whole column, drainage path %s m; the parabolic-isochrone form gives %s",
-		sig(a.Res.DrainagePath, 3), sig(a.Res.CvParabolic, 3))
+	var names []string
+	for _, i := range a.Res.Layers {
+		if c.P != nil && i >= 0 && i < len(c.P.Layers) {
+			names = append(names, recordName(c.P.Layers[i].Name, "layer", i))
+		}
+	}
+	through := "the consolidating layers"
+	if len(names) > 0 {
+		through = strings.Join(names, ", ")
+	}
+	return fmt.Sprintf("for %s (drainage path %s m: their thickness over the drained ends of the column; choose the layers above); the parabolic-isochrone form gives %s",
+		through, sig(a.Res.DrainagePath, 3), sig(a.Res.CvParabolic, 3))
 }
 
 func (c *Comparison) betas(a asaoka) string {
@@ -312,7 +422,33 @@ func (c *Comparison) betas(a asaoka) string {
 func (c *Comparison) windowText(a asaoka) string {
 	r := a.Res
 	n := len(r.Times)
-	return fmt.Sprintf("day %s to %s, %d points every %s days", sig(r.Times[0], 4), sig(r.Times[n-1], 4), n, sig(r.Interval, 3))
+	s := fmt.Sprintf("day %s to %s, %d points every %s days", sig(r.Times[0], 4), sig(r.Times[n-1], 4), n, sig(r.Interval, 3))
+	switch {
+	case r.AutoStart && r.HigherModes > monitor.FirstModeShare:
+		s += fmt.Sprintf("; the record is too short for the first Terzaghi mode to dominate (higher modes %.0f %% of the rate at the start), so the forecast is likely low", 100*r.HigherModes)
+	case r.AutoStart:
+		s += fmt.Sprintf("; starts where the first Terzaghi mode dominates (higher modes below %.0f %% of the rate)", 100*monitor.FirstModeShare)
+	}
+	return s
+}
+
+// hyperbolic is the hyperbolic method's forecast on the same readings.
+func (c *Comparison) hyperbolic(a asaoka) string {
+	return fmt.Sprintf("%.0f mm", a.Res.Hyperbolic.Corrected*1000)
+}
+
+func (c *Comparison) hyperbolicNote(a asaoka) string {
+	return fmt.Sprintf("with the slope correction of Sridharan et al. (1987); the plain hyperbola gives %.0f mm, which for Terzaghi-type consolidation is about 20 %% too high", a.Res.Hyperbolic.Final*1000)
+}
+
+// startsText lists the forecast for other window starts; the ± of the
+// forecast includes the spread of those at or after the chosen start.
+func (c *Comparison) startsText(a asaoka) string {
+	var parts []string
+	for _, r := range a.Res.Starts {
+		parts = append(parts, fmt.Sprintf("day %s: %.0f mm", sig(r.From, 4), r.Final*1000))
+	}
+	return strings.Join(parts, ", ") + fmt.Sprintf(" (the ± above includes a spread of %.0f mm over the later starts)", a.Res.FinalSpread*1000)
 }
 
 func (c *Comparison) exportAsaoka(a asaoka, format string) {

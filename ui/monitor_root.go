@@ -285,3 +285,10 @@ func setLayerCh(f *form.Form, i int, l solver.Layer) {
 	f.Edit(lp(i, "khKv"), text(l.KhKv, 1))
 	f.Edit(lp(i, "ch"), text(l.Ch, solver.DaysPerYear))
 }
+
+// setAsaoka saves the choices for Asaoka's method in the project; the
+// results are reused, as for any edit of the field records.
+func (c *Root) setAsaoka(a *solver.AsaokaSettings) {
+	c.form.SetAsaoka(a)
+	c.edited()
+}

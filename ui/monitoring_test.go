@@ -2,6 +2,7 @@ package ui
 
 import (
 	"encoding/json"
+	"fmt"
 	"math"
 	"slices"
 	"strings"
@@ -311,6 +312,9 @@ func TestFitApplyRevert(t *testing.T) {
 	if got := p.text("fit-param-0-mult"); !strings.HasPrefix(got, "2.0") {
 		t.Errorf("multiplier shows %q", got)
 	}
+	if got := p.text("fit-assumption"); !strings.Contains(got, "independent readings") || !strings.Contains(got, "Student's t") {
+		t.Errorf("the fit does not state its assumption: %q", got)
+	}
 	if got := p.text("fit-rms"); !strings.Contains(got, "Settlement:") || !strings.Contains(got, "Pore pressure:") {
 		t.Errorf("RMS lines %q", got)
 	}
@@ -383,5 +387,62 @@ func TestFitError(t *testing.T) {
 		if got := fitError(c.err); got != c.want {
 			t.Errorf("%s: %q, want %q", c.name, got, c.want)
 		}
+	}
+}
+
+// On the demo, each plate's Asaoka card shows how the window was chosen,
+// the forecasts for other window starts (whose spread the ± includes),
+// the hyperbolic cross-check and the layers of the drainage path, with the
+// figures the solver gives (monitor.PlateAsaoka).
+func TestAsaokaCardExplains(t *testing.T) {
+	p := newPage(t, Sources{})
+	a, err := monitor.PlateAsaoka(p.root.resultFor, 0, 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	checks := map[string]string{
+		"asaoka-0-window":     "first Terzaghi mode",
+		"asaoka-0-starts":     fmt.Sprintf("spread of %.0f mm", a.FinalSpread*1000),
+		"asaoka-0-hyperbolic": fmt.Sprintf("%.0f mm", a.Hyperbolic.Corrected*1000),
+		"asaoka-0-final":      fmt.Sprintf("%.0f", a.Final*1000),
+	}
+	for id, want := range checks {
+		if got := p.text(id); !strings.Contains(got, want) {
+			t.Errorf("%s: %q does not say %q", id, got, want)
+		}
+	}
+	if got := p.text("asaoka-0"); !strings.Contains(got, "drainage path") || !strings.Contains(got, "slope correction of Sridharan") {
+		t.Errorf("the card names no drainage path or hyperbolic correction: %q", got)
+	}
+}
+
+// The drainage path and the window of Asaoka's method are chosen on the
+// page and saved in the project (monitoring.asaoka): taking the crust out
+// of the demo's path shortens it by the crust's half (two drained ends),
+// and a typed window start is saved; the card follows once the edit is
+// committed. Figures from monitor.PlateAsaoka on the saved project.
+func TestAsaokaChoicesSaved(t *testing.T) {
+	p := newPage(t, Sources{})
+	before := p.root.resultFor
+	if p.find("asaoka-layer-0") == nil || !slices.Contains(monitor.AsaokaOptionsFor(before).Layers, 0) {
+		t.Fatal("no drainage path choice for the crust, or the crust is not in the default path")
+	}
+	p.fire("asaoka-layer-0", "change", map[string]any{"checked": false})
+	p.typeInto("asaoka-from", "600")
+	a := p.root.Form().Draft().Monitoring.Asaoka
+	if a == nil || a.From != 600 || slices.Contains(a.Layers, 0) || len(a.Layers) == 0 {
+		t.Fatalf("saved choices %+v", a)
+	}
+	model := p.root.Form().Model()
+	want, err := monitor.PlateAsaoka(model, 0, 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	d := 0.0
+	for _, i := range a.Layers {
+		d += model.Layers[i].Thickness
+	}
+	if want.DrainagePath != d/2 || want.Times[0] < 600 {
+		t.Errorf("path %g m (want %g), window from day %g", want.DrainagePath, d/2, want.Times[0])
 	}
 }

@@ -17,6 +17,8 @@ import (
 //	porelight.solve(projectJSON)    // → result JSON, or {"error": {"problems": [{"path", "message"}…]}}
 //	porelight.validate(projectJSON) // → JSON list of problems, [] when the project is valid
 //	porelight.demo()                // → the demo project JSON
+//	porelight.asaoka(project, opts) // → Asaoka's method per plate (monitor_api.go)
+//	porelight.backfit(project, spec)// → the back-fit result (monitor_api.go)
 //
 // A project may also be passed as an object; it is stringified first. No
 // call throws: every failure, a panic included, comes back as problems.
@@ -150,6 +152,7 @@ func (a *api) register(obj js.Value) {
 		return a.Validate(s)
 	}))
 	o.Set("demo", js.FuncOf(func(js.Value, []js.Value) any { return string(a.demo) }))
+	a.registerMonitor(o)
 	obj.Set("porelight", o)
 }
 

@@ -51,16 +51,42 @@ type AsaokaOptions struct {
 	// reads the whole slope as radial flow.
 	De, Mu     float64
 	VerticalCv float64
+	// Layers are the indices of the consolidating layers that Thickness
+	// sums (AsaokaOptionsFor; informative only, copied to the result).
+	Layers []int
+	// LoadOrigin is the time origin of the hyperbolic method, days
+	// (LoadOrigin(p) in AsaokaOptionsFor; zero: day 0).
+	LoadOrigin float64
+	// AutoStart, when From is zero, starts the window where the first
+	// mode dominates the record (see FirstModeShare) instead of at
+	// AfterTime. AsaokaOptionsFor sets it.
+	AutoStart bool
 }
 
 // AsaokaOptionsFor returns the options that read a settlement record of
-// p: AfterTime = LastLoadChange(p), the whole column as the consolidating
-// layer and its drained ends. For a column of several compressible layers
-// the cv so found is an equivalent value for the column as a whole.
+// p: AfterTime = LastLoadChange(p), the window start of the first-mode
+// criterion (AutoStart) unless p.Monitoring.Asaoka saves one, and as the
+// consolidating layer the layers p.Monitoring.Asaoka names, or else
+// ConsolidatingLayers(p), with the drained ends of the column. When
+// several layers consolidate, the cv so found is an equivalent value for
+// them together.
 func AsaokaOptionsFor(p *solver.Project) AsaokaOptions {
-	o := AsaokaOptions{AfterTime: solver.LastLoadChange(p)}
-	for _, l := range p.Layers {
-		o.Thickness += l.Thickness
+	o := AsaokaOptions{AfterTime: solver.LastLoadChange(p), AutoStart: true, LoadOrigin: LoadOrigin(p)}
+	var saved *solver.AsaokaSettings
+	if p.Monitoring != nil {
+		saved = p.Monitoring.Asaoka
+	}
+	if saved != nil {
+		o.From, o.To = saved.From, saved.To
+		o.Layers = append([]int(nil), saved.Layers...)
+	}
+	if len(o.Layers) == 0 {
+		o.Layers = ConsolidatingLayers(p)
+	}
+	for _, i := range o.Layers {
+		if i >= 0 && i < len(p.Layers) {
+			o.Thickness += p.Layers[i].Thickness
+		}
 	}
 	for _, b := range []solver.Boundary{p.Top, p.Bottom} {
 		if b.Drained {
@@ -68,6 +94,32 @@ func AsaokaOptionsFor(p *solver.Project) AsaokaOptions {
 		}
 	}
 	return o
+}
+
+// CompressibleShare is the smallest mv, as a share of the largest mv in
+// the column, of a layer that ConsolidatingLayers counts as compressible.
+const CompressibleShare = 0.1
+
+// ConsolidatingLayers returns the indices of the compressible layers of
+// p: those with mv at least CompressibleShare times the largest mv of the
+// column, and those whose mv follows from an e–log σ' curve (mv = 0). A
+// crust or sand layer, far stiffer, is left out, so the drainage path
+// runs through the clay the settlement comes from rather than the whole
+// column. It assumes the stiff layers drain freely (a stiff layer of low
+// k between the clay and a drained end lengthens the true path; then
+// choose the layers in the file, monitoring.asaoka.layers).
+func ConsolidatingLayers(p *solver.Project) []int {
+	largest := 0.0
+	for _, l := range p.Layers {
+		largest = math.Max(largest, l.Mv)
+	}
+	var out []int
+	for i, l := range p.Layers {
+		if l.Mv == 0 || l.Mv >= CompressibleShare*largest {
+			out = append(out, i)
+		}
+	}
+	return out
 }
 
 // AsaokaResult is the outcome of Asaoka's method on one settlement
@@ -99,8 +151,10 @@ type AsaokaResult struct {
 	Final   float64 `json:"final"`
 	FinalSE float64 `json:"finalSE"`
 	// DrainagePath is the length d of the drainage path, m (0 when the
-	// options give no thickness).
+	// options give no thickness), through the layers Layers (indices into
+	// the project's layers; empty when the options name none).
 	DrainagePath float64 `json:"drainagePath"`
+	Layers       []int   `json:"layers,omitempty"`
 	// Cv is the coefficient of consolidation from the slowest Terzaghi
 	// mode, −4d² ln β1/(π² Δt), and CvSE its standard error; CvParabolic
 	// is Asaoka's parabolic-isochrone form −5d² ln β1/(12 Δt), about
@@ -113,6 +167,45 @@ type AsaokaResult struct {
 	// error: Ch = (De² μ/8)(−ln β1/Δt − π² cv/(4d²)); 0 otherwise.
 	Ch   float64 `json:"ch,omitempty"`
 	ChSE float64 `json:"chSE,omitempty"`
+
+	// AutoStart says the window start was chosen by the first-mode
+	// criterion (AsaokaOptions.AutoStart); HigherModes is the estimated
+	// share of the higher modes in the settlement rate at the window
+	// start, exp(−8λ(t_0 − AfterTime)) with λ = −ln β1/Δt (see
+	// FirstModeShare). A share above FirstModeShare means the record is
+	// too short for the criterion and the forecast is biased low.
+	AutoStart   bool    `json:"autoStart"`
+	HigherModes float64 `json:"higherModes"`
+	// Starts is the forecast for a range of window starts, from AfterTime
+	// to the latest start that leaves 6 readings (at most 12 rows): how
+	// the answer depends on the choice of the window.
+	Starts []AsaokaStart `json:"starts,omitempty"`
+	// FinalSpread and CvSpread are the largest departures of Final and Cv
+	// over the rows of Starts that start at or after this window's start
+	// (so also meet the criterion) and keep at least half of its readings
+	// (later windows read only the flat tail, where noise rules);
+	// FinalUncertainty and
+	// CvUncertainty combine them with the standard errors,
+	// √(SE² + spread²), and are the ± to quote.
+	FinalSpread      float64 `json:"finalSpread"`
+	CvSpread         float64 `json:"cvSpread"`
+	FinalUncertainty float64 `json:"finalUncertainty"`
+	CvUncertainty    float64 `json:"cvUncertainty"`
+
+	// Hyperbolic is the hyperbolic method on the same readings, a
+	// cross-check (nil when it gives no forecast; see Hyperbolic).
+	Hyperbolic *HyperbolicResult `json:"hyperbolic,omitempty"`
+
+	readings int // readings in the window
+}
+
+// AsaokaStart is Asaoka's forecast for a window that starts on day From.
+type AsaokaStart struct {
+	From        float64 `json:"from"`
+	Final       float64 `json:"final"`
+	FinalSE     float64 `json:"finalSE"`
+	Cv          float64 `json:"cv"`
+	HigherModes float64 `json:"higherModes"`
 }
 
 // Forecast returns the settlement the fitted relation predicts at t days:
@@ -199,6 +292,11 @@ func (a *AsaokaResult) Forecast(t float64) float64 {
 // faster than vertical flow alone would. With well resistance μ varies
 // with depth: give its average, and read Ch as an equivalent value.
 //
+// With AutoStart and no From, the window starts where the first mode
+// dominates, by the criterion of FirstModeShare; the result then also
+// lists the forecast for a range of window starts (Starts) and states an
+// uncertainty that includes their spread (FinalUncertainty).
+//
 // Readings before AfterTime are left out, not refused: a record that
 // starts with the construction is read from the end of the loading on.
 // Refusals (errors wrapping the reason) are:
@@ -275,6 +373,28 @@ func asaoka(times, settlements []float64, interval float64, opt AsaokaOptions, a
 		return nil, refuse(AsaokaFrom, ErrDuringLoading, "%v: the window starts on day %g, before the load stops changing on day %g", ErrDuringLoading, opt.From, opt.AfterTime)
 	}
 	start := math.Max(opt.From, opt.AfterTime)
+	auto := opt.AutoStart && opt.From == 0
+	if auto {
+		var err error
+		if start, err = firstModeStart(times, settlements, interval, opt, at); err != nil {
+			return nil, err
+		}
+	}
+	a, err := asaokaWindow(times, settlements, interval, start, opt, at)
+	if err != nil {
+		return nil, err
+	}
+	a.AutoStart = auto
+	a.Layers = append([]int(nil), opt.Layers...)
+	a.HigherModes = higherModeShare(a, opt.AfterTime)
+	a.spread(times, settlements, interval, opt, at)
+	a.Hyperbolic = Hyperbolic(times, settlements, opt.LoadOrigin, a.Times[0], a.Times[len(a.Times)-1])
+	return a, nil
+}
+
+// asaokaWindow fits Asaoka's relation to the readings from day start
+// (and up to opt.To).
+func asaokaWindow(times, settlements []float64, interval, start float64, opt AsaokaOptions, at recordPaths) (*AsaokaResult, error) {
 	end := math.Inf(1)
 	if opt.To > 0 {
 		end = opt.To
@@ -313,7 +433,7 @@ func asaoka(times, settlements []float64, interval float64, opt AsaokaOptions, a
 		return nil, refuse(AsaokaInterval, ErrTooFewPoints, "%v: an interval of %g days gives %d points between day %g and day %g; use at most %.4g days", ErrTooFewPoints, interval, n, t0, t1, span/float64(asaokaMinPoints-1))
 	}
 
-	a := &AsaokaResult{Interval: interval, Times: make([]float64, n), Settlements: make([]float64, n)}
+	a := &AsaokaResult{Interval: interval, Times: make([]float64, n), Settlements: make([]float64, n), readings: inWindow}
 	k := first
 	for j := range n {
 		t := t0 + float64(j)*interval
@@ -388,7 +508,8 @@ func PlateAsaoka(p *solver.Project, i int, interval float64) (*AsaokaResult, err
 }
 
 // PlateAsaokaWindow is PlateAsaoka reading only the readings from day
-// from to day to (AsaokaOptions.From and To; zero keeps their defaults).
+// from to day to (AsaokaOptions.From and To; zero keeps the window saved
+// in p.Monitoring.Asaoka, or the defaults).
 // A reading time that cannot be resolved is reported as the
 // solver.Problems of solver.ReadingTimesAt. Problems name the plate's
 // fields: "monitoring.plates[2].readings" for the record as a whole,
@@ -416,7 +537,12 @@ func PlateAsaokaWindow(p *solver.Project, i int, interval, from, to float64) (*A
 		vs[j] = r.Value
 	}
 	opt := AsaokaOptionsFor(p)
-	opt.From, opt.To = from, to
+	if from != 0 {
+		opt.From = from
+	}
+	if to != 0 {
+		opt.To = to
+	}
 	return asaoka(ts, vs, interval, opt, at)
 }
 

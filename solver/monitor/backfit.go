@@ -12,6 +12,7 @@ import (
 
 	"gonum.org/v1/gonum/mat"
 	"gonum.org/v1/gonum/optimize"
+	"gonum.org/v1/gonum/stat/distuv"
 )
 
 // FitData selects the records BackFit compares the prediction with.
@@ -29,7 +30,6 @@ const (
 	fitStep        = 1e-4         // forward difference step in ln(multiplier)
 	maxLogMult     = 13.815510558 // ln 1e6: multipliers stay within 1e-6 … 1e6
 	fitTolerance   = 0.01         // stop when a Gauss–Newton step is below 1 % of the standard error
-	z95            = 1.959963985  // two-sided 95 % point of the normal distribution
 )
 
 // Reasons BackFit refuses a request, beside ErrTooFewPoints and the
@@ -103,6 +103,23 @@ type FitResult struct {
 	Correlation [][]float64 `json:"correlation"`
 	// Readings is the number of readings compared.
 	Readings int `json:"readings"`
+	// The standard errors assume independent readings; field readings
+	// are usually serially correlated (a plate settles with its
+	// neighbourhood, an instrument drifts), which makes that assumption
+	// optimistic. Lag1 is the lag-1 autocorrelation ρ of the weighted
+	// residuals, pooled over the records (each in time order);
+	// EffectiveReadings is n(1 − ρ)/(1 + ρ) when ρ > 0, else n (the
+	// effective sample size of an AR(1) series; common practice, e.g.
+	// Wilks, Statistical Methods in the Atmospheric Sciences, from
+	// memory). The SE and LogSE of Params are those of independent
+	// readings times √(n/EffectiveReadings), and Low and High use
+	// TQuantile, the two-sided 95 % point of Student's t with
+	// EffectiveReadings − p degrees of freedom (at least 1), instead of
+	// the normal 1.96. Assumption says this in words.
+	Lag1              float64 `json:"lag1"`
+	EffectiveReadings float64 `json:"effectiveReadings"`
+	TQuantile         float64 `json:"tQuantile"`
+	Assumption        string  `json:"assumption"`
 	// ResidualVariance is Σr²/(n − p) of the weighted residuals r
 	// (reading minus prediction, over its sigma) for n readings and p
 	// parameters: about 1 when the sigmas are right.
@@ -357,13 +374,22 @@ func BackFit(p *solver.Project, spec FitSpec, opt *solver.Options) (*FitResult, 
 	}
 	st := f.stats(ev)
 	out := &FitResult{Readings: f.n, ResidualVariance: st.s2, Converged: st.small, Status: status}
+	out.Lag1 = f.lag1(f.residuals(ev.pred))
+	out.EffectiveReadings = float64(f.n)
+	if out.Lag1 > 0 {
+		out.EffectiveReadings *= (1 - out.Lag1) / (1 + out.Lag1)
+	}
+	widen := math.Sqrt(float64(f.n) / out.EffectiveReadings)
+	out.TQuantile = distuv.StudentsT{Mu: 0, Sigma: 1, Nu: math.Max(1, out.EffectiveReadings-float64(np))}.Quantile(0.975)
+	out.Assumption = fmt.Sprintf("standard errors for independent readings, widened ×%.2g for the serial correlation of the residuals (lag-1 %.2f: %.0f effective of %d readings); 95 %% ranges with Student's t (%.3g)",
+		widen, out.Lag1, out.EffectiveReadings, f.n, out.TQuantile)
 	for i := range np {
 		m := math.Exp(xs[i])
 		fp := FitParam{Name: "settlement scale", Layer: -1, Multiplier: m, Determined: st.determined[i]}
 		if fp.Determined {
-			lse := math.Sqrt(st.cov.At(i, i))
+			lse := widen * math.Sqrt(st.cov.At(i, i))
 			fp.LogSE, fp.SE = lse, m*lse
-			fp.Low, fp.High = m*math.Exp(-z95*lse), m*math.Exp(z95*lse)
+			fp.Low, fp.High = m*math.Exp(-out.TQuantile*lse), m*math.Exp(out.TQuantile*lse)
 		}
 		if i < len(spec.Layers) {
 			li := spec.Layers[i]
@@ -698,6 +724,27 @@ func (f *fitter) residuals(pred []float64) []float64 {
 		}
 	}
 	return r
+}
+
+// lag1 is the lag-1 autocorrelation of the residuals r, pooled over the
+// records: Σ r_j r_(j+1) within each record over Σ r_j² (0 when all
+// residuals vanish).
+func (f *fitter) lag1(r []float64) float64 {
+	num, den, k := 0.0, 0.0, 0
+	for _, rec := range f.recs {
+		n := len(rec.times)
+		for j := range n {
+			den += r[k+j] * r[k+j]
+			if j+1 < n {
+				num += r[k+j] * r[k+j+1]
+			}
+		}
+		k += n
+	}
+	if !(den > 0) {
+		return 0
+	}
+	return math.Min(num/den, 0.99)
 }
 
 func (f *fitter) objective(x []float64) float64 {

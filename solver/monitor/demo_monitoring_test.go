@@ -126,14 +126,7 @@ func TestDemoMonitoring(t *testing.T) {
 	if *updateDemo {
 		writeDemoMonitoring(t)
 	}
-	data, err := os.ReadFile(demoFile)
-	if err != nil {
-		t.Fatal(err)
-	}
-	p, err := solver.Decode(data)
-	if err != nil {
-		t.Fatal(err)
-	}
+	p := readDemo(t)
 	if err := solver.Validate(p); err != nil {
 		t.Fatal(err)
 	}
@@ -170,4 +163,18 @@ func TestDemoMonitoring(t *testing.T) {
 	if k := fr.Params[0]; !k.Determined || math.Abs(math.Log(k.Multiplier/demoKFactor)) > 3*k.LogSE || !fr.Converged {
 		t.Errorf("upper clay k × %.4g ± %.2g, want %g within 3 standard errors (%s)", k.Multiplier, k.SE, demoKFactor, fr.Status)
 	}
+}
+
+// readDemo decodes the demo project file.
+func readDemo(t *testing.T) *solver.Project {
+	t.Helper()
+	data, err := os.ReadFile(demoFile)
+	if err != nil {
+		t.Fatal(err)
+	}
+	p, err := solver.Decode(data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return p
 }

@@ -23,12 +23,27 @@
 // β0 + β1 s_(j−1) is fitted by least squares, s∞ = β0/(1 − β1), and cv
 // follows from the first Terzaghi mode, cv = −4d² ln β1/(π² Δt), with d
 // the drainage path (the parabolic isochrone form 5d²/12 is reported
-// beside it).
+// beside it). By default (AsaokaOptionsFor) the window starts where the
+// first mode dominates the rate, a criterion from the fit itself
+// (FirstModeShare, window.go), and the result lists the forecast for
+// other window starts (AsaokaResult.Starts) and folds their spread into
+// the ± it states (FinalUncertainty, CvUncertainty).
+//
+// The implied cv is for the consolidating layers: those named in the
+// file (monitoring.asaoka.layers) or else the compressible ones
+// (ConsolidatingLayers), not the whole column. Hyperbolic applies the
+// hyperbolic method (Tan 1971; with the slope correction of Sridharan et
+// al. 1987) to the same readings as a cross-check; Asaoka's result
+// carries it.
 //
 // BackFit fits multipliers on k (so on cv) of chosen layers, and
 // optionally one scale on settlement, to the records by Gauss–Newton with
 // gonum/optimize, solving the whole column for each trial, with standard
-// errors from the Jacobian (Bates & Watts 1988).
+// errors from the Jacobian (Bates & Watts 1988). These assume independent
+// readings; they are widened by the effective sample size from the
+// residuals' lag-1 autocorrelation, and the 95 % ranges use Student's t
+// (FitResult.Assumption says so in words). The fit compares the linear
+// (mv) settlement curve only.
 //
 // The package uses only solver's exported API, so it sees the column as
 // the page and the JavaScript API do. Units: m, kPa, day, m²/day.

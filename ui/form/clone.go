@@ -66,5 +66,6 @@ func cloneMonitoring(m *solver.Monitoring) *solver.Monitoring {
 	for i := range c.Piezometers {
 		c.Piezometers[i].Readings = slices.Clone(c.Piezometers[i].Readings)
 	}
+	c.Asaoka = cloneAsaoka(m.Asaoka)
 	return &c
 }
