@@ -209,7 +209,7 @@
 // Cc and cv, the linear limit, unloading along Cr, observed orders 2 in h
 // and Δt. The model is small strain (1 + e0 throughout); large-strain
 // consolidation (Gibson et al. 1967) and creep beyond Cα after primary
-// are not covered.
+// are not covered. Vertical drains work with it (see Vertical drains).
 //
 // # Vertical drains
 //
@@ -233,7 +233,23 @@
 // (lumped by rows for linear elements, like the capacity): the band and
 // the cost of a step do not change, and the mesh has nodes at the drains'
 // ends. ch is a layer's Ch, or KhKv·cv (kh = KhKv·k); the well term uses
-// kh = ch mv γw.
+// kh = ch mv γw. Since mv·ch = kh/γw the sink's coefficient is
+// 8 kh/(γw De² μ), whatever mv is.
+//
+// Both soil models take drains. In the iterated loop (the non-linear
+// model, or a swelling mv) each layer keeps its kh/kv: KhKv, or the ratio
+// a given Ch implies at the layer's mv (as given, or the secant of its
+// curve), kh = Ch mv γw. Each element's kh is then kh/kv times its k at
+// the iterate's void ratio, and the sink (with μ, whose well term depends
+// on kh) is reassembled from it with the conductivity at every iteration:
+// ch = kh/(mv γw) thus scales with k(e)/k0, and like cv inversely with the
+// element's mv. Under Davis & Raymond's (1965) assumption (Ck = Cc, so
+// k ∝ mv) ch stays constant, and pure radial flow gives exactly Hansbo's
+// ū = Δσ exp(−8 Th/μ): the degree of dissipation follows Hansbo, while
+// the degree of settlement, log(σ'/σ'0)/log(σ'f/σ'0), runs ahead of it;
+// with vertical flow as well Carrillo's product holds only in the linear
+// limit (checked against an independent finite-difference solution,
+// package solver/internal/nlradial).
 //
 // The drains discharge freely at their outlet and carry its pressure
 // change ud(t) (zero unless the outlet end has a pressure history): the
@@ -246,7 +262,8 @@
 // drains alone, no vertical flow), two more solves on the same mesh and
 // steps, relative to the same final state as Us; under one instantaneous
 // load with fully penetrating drains and one μ they obey Carrillo's
-// (1942) 1 − U = (1 − Uv)(1 − Uh). Not modelled: drain
+// (1942) 1 − U = (1 − Uv)(1 − Uh) on the linear model (on the non-linear
+// one only in its linear limit). Not modelled: drain
 // clogging, folding or crimping, installation effects beyond the smear
 // zone, and drains that lose contact with the blanket.
 //

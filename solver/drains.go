@@ -153,6 +153,106 @@ func (c *column) assembleSink(mv []float64, lumped bool) *fem.Band {
 	return c.assembleSinkKh(c.elementKh(mv), lumped)
 }
 
+// iteratedSink is the drains' sink in the iterated time loop
+// (nonlinear.go), where k changes element by element: kh follows k with
+// each layer's kh/kv held (khKv, or the ratio a given ch implies at the
+// layer's mv, kh = ch·mv·γw, so that ch scales with k(e)/k0 and, as cv
+// does, inversely with the element's mv), and the sink is reassembled
+// from kh = (kh/kv)·k(e) at every iterate. Sized once: add and source
+// allocate nothing.
+type iteratedSink struct {
+	tr     *transient
+	lumped bool
+	ratio  []float64 // per element: kh/k of its layer (0 where the drains do not reach)
+	coef   []float64 // per element: 8 kh/(γw De² μ), per day (μ uniform)
+	band   *fem.Band
+	ones   []float64
+	rows   []float64
+}
+
+// newIteratedSink returns the sink for the column of tr with mv per layer
+// (what fixes kh/kv where a layer gives ch), or nil without drains.
+func newIteratedSink(tr *transient, mv []float64, lumped bool) *iteratedSink {
+	c := tr.c
+	if c.drains == nil {
+		return nil
+	}
+	m := c.m
+	s := &iteratedSink{tr: tr, lumped: lumped, band: fem.NewBand(m.Nodes(), m.Order)}
+	kh := c.elementKh(mv)
+	s.ratio = make([]float64, m.Elements())
+	s.coef = make([]float64, m.Elements())
+	for e := range kh {
+		if k := c.p.Layers[m.Layer[e]].K; kh[e] > 0 && k > 0 {
+			s.ratio[e] = kh[e] / k
+		}
+	}
+	s.ones = make([]float64, m.Nodes())
+	for i := range s.ones {
+		s.ones[i] = 1
+	}
+	s.rows = make([]float64, m.Nodes())
+	return s
+}
+
+// add assembles the sink for the conductivities cc (k/γw per element,
+// m²/(kPa·day)) and adds it to cond; in the radial-only solve of the Uh
+// figure cond holds the sink alone. With well resistance μ varies with
+// depth and with kh (Hansbo 1981), so the sink is integrated at the
+// Gauss points, as assembleSinkKh does; without it, from the exact
+// element matrices.
+func (s *iteratedSink) add(cond *fem.Band, cc []float64) {
+	c := s.tr.c
+	m, dc := c.m, c.drains
+	if c.radialOnly {
+		clear(cond.AB)
+	}
+	if dc.Qw == 0 {
+		for e, r := range s.ratio {
+			s.coef[e] = 8 * r * cc[e] / (dc.De * dc.De * dc.Mu0)
+		}
+		m.AssembleConstant(s.band, s.coef, true, s.lumped)
+	} else {
+		clear(s.band.AB)
+		m.Assemble(s.band, func(e int, z float64) float64 {
+			if s.ratio[e] == 0 {
+				return 0
+			}
+			kh := s.ratio[e] * cc[e] * c.gw / soil.SecondsPerDay
+			return 8 * s.ratio[e] * cc[e] / (dc.De * dc.De * dc.Mu(z, kh))
+		}, true)
+		if s.lumped {
+			s.band.MulVec(s.rows, s.ones)
+			clear(s.band.AB)
+			for i, v := range s.rows {
+				s.band.AB[i*(s.band.KD+1)] = v
+			}
+		}
+	}
+	for i, v := range s.band.AB {
+		cond.AB[i] += v
+	}
+}
+
+// source adds to the right-hand side rhs of the step from t0 by dt what
+// the sink draws toward the drains' outlet pressure ud(t) (the pressure
+// history where they discharge, if any): Δt (θ ud(t0+dt) + (1−θ) ud(t0))
+// S·1, the term transient.step obtains by stepping on u − ud.
+func (s *iteratedSink) source(rhs []float64, theta, t0, dt float64) {
+	out := s.tr.outlet()
+	if out == nil {
+		return
+	}
+	ud := theta*historyAt(out, t0+dt, true) + (1-theta)*historyAt(out, t0, false)
+	if ud == 0 {
+		return
+	}
+	s.band.MulVec(s.rows, s.ones)
+	for i, v := range s.rows {
+		rhs[i] += dt * ud * v
+	}
+}
+
 // assembleSinkKh returns the sink's matrix for the horizontal
 // permeability of each element, kh (m/s; 0 where the drains do not
 // reach): since mv·ch = kh/γw, the coefficient is 8 kh/(γw De² μ(z)),
@@ -351,7 +451,8 @@ type DrainResult struct {
 	// Cell is the resolved unit cell and drained range.
 	Cell DrainCell `json:"cell"`
 	// Layers gives each layer's ch, m²/day, and kh, m/s, where the drains
-	// reach it (0 elsewhere).
+	// reach it (0 elsewhere), at the layer's mv and k (on the non-linear
+	// model, the start: kh then follows k element by element).
 	Layers []DrainLayer `json:"layers"`
 	// Depth and Mu give μ along the drains (with well resistance it grows
 	// away from the discharging end), m and dimensionless.

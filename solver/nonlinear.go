@@ -62,6 +62,7 @@ type nonlinear struct {
 	cm, cc  []float64 // the coefficients of the iterate: secant mv, k/γw
 
 	mass, cond *fem.Band
+	sink       *iteratedSink // the drains' radial sink on cond (nil: no drains)
 	f          fem.Factor
 	u0, u1     []float64
 	rhs        []float64
@@ -107,6 +108,7 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 	nl.cond = fem.NewBand(n, m.Order)
 	nl.u0, nl.u1, nl.rhs, nl.du, nl.r0 = make([]float64, n), make([]float64, n), make([]float64, n), make([]float64, n), make([]float64, n)
 	nl.du2 = make([]float64, n)
+	nl.sink = newIteratedSink(tr, mvs, nl.lumped)
 	return nl
 }
 
@@ -208,6 +210,9 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 		nl.coefficients(theta, tr.sigma, nl.u1)
 		nl.m.AssembleConstant(nl.mass, nl.cm, true, nl.lumped)
 		nl.m.AssembleConstant(nl.cond, nl.cc, false, false)
+		if nl.sink != nil {
+			nl.sink.add(nl.cond, nl.cc)
+		}
 		if err := fem.FactorizeSum(&nl.f, nl.mass, nl.cond, theta*dt, tr.lo, tr.hi); err != nil {
 			return tr.c.numerical(err, fmt.Sprintf("the non-linear consolidation step from %.4g to %.4g days", t0, t0+dt))
 		}
@@ -216,6 +221,9 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 			fem.ThetaRHS(nl.rhs, nl.u0, ds, nl.mass.AB, nl.cond.AB, c)
 		} else {
 			fem.BandThetaRHS(nl.rhs, nl.u0, ds, nl.mass, nl.cond, c)
+		}
+		if nl.sink != nil {
+			nl.sink.source(nl.rhs, theta, t0, dt)
 		}
 		fem.MoveHeldSum(nl.rhs, nl.mass, nl.cond, theta*dt, nl.u1, tr.held)
 		nl.f.Solve(nl.rhs)

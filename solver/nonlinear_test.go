@@ -12,7 +12,7 @@ import (
 // solveUniform runs Solve's steps on p with the initial effective stress
 // replaced by s0 at every node: the weightless column of the classical
 // consolidation theories (Davis & Raymond 1965 take σ'0 uniform with
-// depth). Only tests use it; the column, its steady state and the
+// depth), with the drains' Uv and Uh as Solve gives them. Only tests use it; the column, its steady state and the
 // consolidation are the solver's own.
 func solveUniform(t *testing.T, p *Project, s0 float64) *Result {
 	t.Helper()
@@ -32,6 +32,11 @@ func solveUniform(t *testing.T, p *Project, s0 float64) *Result {
 	r.Steady = st
 	if err := c.consolidate(&r.Steady, r, nil, warn); err != nil {
 		t.Fatal(err)
+	}
+	if c.drains != nil { // as Solve does
+		if err := c.drainReference(&r.Steady, r, nil, true); err != nil {
+			t.Fatal(err)
+		}
 	}
 	return r
 }

@@ -69,20 +69,3 @@ func validSoilModel(ps *Problems, i int, l Layer) {
 		ps.Add(JoinPath(ec, g.name), ErrConflict, fmt.Sprintf("give one of sigmaP, ocr, pop and sigmaPProfile (%s is given too)", first))
 	}
 }
-
-// validIteratedWithDrains refuses what the iterated time loop (the
-// non-linear model, a swelling mv) cannot yet do: step with the drains'
-// radial sink. Without the refusal the drains would be silently left out.
-func validIteratedWithDrains(ps *Problems, p *Project) {
-	if p.Drains == nil {
-		return
-	}
-	if p.Model == ModelNonlinear {
-		ps.Add("model", ErrConflict, "the non-linear model does not take vertical drains yet; use the linear model with drains, or remove the drains")
-	}
-	for i, l := range p.Layers {
-		if l.MvUnload != 0 {
-			ps.Add(JoinPath(IndexPath("layers", i), "mvUnload"), ErrConflict, "a swelling mv does not work with vertical drains yet; leave it empty, or remove the drains")
-		}
-	}
-}

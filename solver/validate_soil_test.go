@@ -31,11 +31,6 @@ func TestValidateSoilModel(t *testing.T) {
 			c.SigmaP = 50
 			c.SigmaPProfile = []DepthValue{{Z: 1, Value: 40}}
 		}, []decProblem{{"layers[1].ecurve.sigmaPProfile", ErrConflict}}},
-		{"non-linear model with drains", func(p *Project) {
-			p.Model = ModelNonlinear
-			p.Layers[0].MvUnload = 1e-5
-			p.Drains = &Drains{Pattern: "triangular", Spacing: 1.5, Diameter: 0.05}
-		}, []decProblem{{"model", ErrConflict}, {"layers[0].mvUnload", ErrConflict}}},
 		{"profile out of order, value zero", func(p *Project) {
 			curve(p).SigmaPProfile = []DepthValue{{Z: 3, Value: 40}, {Z: 2, Value: 0}}
 		}, []decProblem{{"layers[1].ecurve.sigmaPProfile[1].z", ErrNotSorted}, {"layers[1].ecurve.sigmaPProfile[1].value", ErrNotPositive}}},

@@ -2255,7 +2255,7 @@ func (c *Drains) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 				vgparent.AppendChild(vgn)
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
 				vgparent.AppendChild(vgn)
-				vgn.SetInnerHTML(vugu.HTML("Give ch, or kh/kv (ch = kh/kv × cv). Below the tip the column drains only vertically. Not modelled: clogging, folding, the loss of qw with time and lateral pressure, and installation effects beyond the smear zone."))
+				vgn.SetInnerHTML(vugu.HTML("Give ch, or kh/kv (ch = kh/kv × cv; on the non-linear model kh/kv stays fixed, so ch follows k as cv does). Below the tip the column drains only vertically. Not modelled: clogging, folding, the loss of qw with time and lateral pressure, and installation effects beyond the smear zone."))
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-design pl-noprint"}}}
