@@ -593,7 +593,7 @@ func (c *Backfit) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 					Func:      func(event vugu.DOMEvent) { c.setScale(event) },
 					// TODO: implement capture, etc. mostly need to decide syntax
 				})
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "title", Val: "One factor on mv and k of every layer: scales the settlement, keeps every cv"}}}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "title", Val: "One factor on mv and k (and Cc, Cr, Ck of an e–log curve) of every layer: scales the primary settlement, keeps every cv"}}}
 				vgparent.AppendChild(vgn)
 				vgn.SetInnerHTML(vugu.HTML("settlement scale"))
 			}
@@ -849,6 +849,13 @@ func (c *Backfit) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "fit-runs"}}}
 				vgparent.AppendChild(vgn)
 				vgn.SetInnerHTML(c.runs())
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+				if c.S.res.Curve != "" {
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "fit-curve"}}}
+					vgparent.AppendChild(vgn)
+					vgn.SetInnerHTML("The plate readings were compared with the " + c.S.res.Curve + ", the settlement the summary uses.")
+				}
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "fit-assumption"}}}

@@ -312,6 +312,9 @@ func TestFitApplyRevert(t *testing.T) {
 	if got := p.text("fit-param-0-mult"); !strings.HasPrefix(got, "2.0") {
 		t.Errorf("multiplier shows %q", got)
 	}
+	if got := p.text("fit-curve"); !strings.Contains(got, "primary settlement from mv (linear model)") {
+		t.Errorf("the fit does not say which settlement it compared with: %q", got)
+	}
 	if got := p.text("fit-assumption"); !strings.Contains(got, "independent readings") || !strings.Contains(got, "Student's t") {
 		t.Errorf("the fit does not state its assumption: %q", got)
 	}

@@ -4,6 +4,7 @@ import (
 	"math"
 
 	"porelight/solver"
+	"porelight/solver/monitor"
 )
 
 // Time figure layout, pixels.
@@ -146,9 +147,11 @@ func SettlementFitFigure(p *solver.Project, r, fit *solver.Result, w, h int) *Fi
 	}
 	all := [][]float64{s.Settlement, s.SettlementElog, s.Secondary, total}
 	var fs *solver.Series
+	var fitted []float64 // what the back-fit compared with the readings
 	if fit != nil && fit.Consolidation != nil {
 		fs = &fit.Consolidation.Series
-		all = append(all, fs.Settlement)
+		fitted, _ = monitor.FittedSettlement(fit)
+		all = append(all, fitted)
 	}
 	for _, m := range recs {
 		all = append(all, m.vs)
@@ -173,7 +176,14 @@ func SettlementFitFigure(p *solver.Project, r, fit *solver.Result, w, h int) *Fi
 		f.addSeries(pn, clip, "Primary + secondary", styleAt(3), s.Time, total, readTime("s", " m", 3))
 	}
 	if fs != nil {
-		f.addSeries(pn, clip, "From mv, back-fitted", styleAt(4), fs.Time, fs.Settlement, readTime("s", " m", 3))
+		name := "From mv"
+		if fit.Summary.Model == solver.ModelNonlinear {
+			name = "Non-linear model"
+		}
+		if len(fs.Secondary) == len(fs.Time) {
+			name += " + secondary"
+		}
+		f.addSeries(pn, clip, name+", back-fitted", styleAt(4), fs.Time, fitted, readTime("s", " m", 3))
 	}
 	for i, m := range recs {
 		f.addPoints(pn, clip, "plate "+m.name+", measured", markAt(i), m.ts, m.vs, readTime("measured s", " m", 3))
