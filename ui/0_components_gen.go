@@ -5920,6 +5920,39 @@ func (c *Plots) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 		vgn.SetInnerHTML(vugu.HTML("Plots \x3Cspan class=\"pl-sub\"\x3Ehover a curve to read values\x3C/span\x3E"))
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
+		if c.hasStart() {
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-row pl-noprint"}}}
+			vgparent.AppendChild(vgn)
+			{
+				vgparent := vgn
+				_ = vgparent
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-check"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "plot-dates"}}}
+				vgparent.AppendChild(vgn)
+				{
+					vgparent := vgn
+					_ = vgparent
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "input", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "checkbox"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "plot-dates"}}}
+					vgparent.AppendChild(vgn)
+					{
+						b, err := vjson.Marshal(c.Dates)
+						if err != nil {
+							panic(err)
+						}
+						vgn.Prop = append(vgn.Prop, vugu.VGProperty{Key: "checked", JSONVal: vjson.RawMessage(b)})
+					}
+					vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+						EventType: "change",
+						Func:      func(event vugu.DOMEvent) { c.setDates(event) },
+						// TODO: implement capture, etc. mostly need to decide syntax
+					})
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "title", Val: "A linear time axis of calendar dates from monitoring.start, for the settlement and piezometer plots"}}}
+					vgparent.AppendChild(vgn)
+					vgn.SetInnerHTML(vugu.HTML("settlement and piezometers on calendar dates"))
+				}
+			}
+		}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
 		for vgiterkeyt, k := range plotKinds {
 			var vgiterkey interface{} = vgiterkeyt
 			_ = vgiterkey
@@ -6009,6 +6042,7 @@ func (c *Plots) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgin.BuildEnv.WireComponent(vgcomp)
 						}
 						vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+						vgcomp.Dates = c.Dates
 						vgcomp.Fit = c.Fit
 						vgcomp.Project = c.P
 						vgcomp.Result = c.R
@@ -6050,6 +6084,7 @@ func (c *Plots) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgin.BuildEnv.WireComponent(vgcomp)
 						}
 						vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+						vgcomp.Dates = c.Dates
 						vgcomp.Fit = c.Fit
 						vgcomp.Project = c.P
 						vgcomp.Result = c.R
@@ -6651,10 +6686,12 @@ func (c *Root) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgin.BuildEnv.WireComponent(vgcomp)
 						}
 						vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+						vgcomp.Dates = c.dates
 						vgcomp.Export = c.exportPlot
 						vgcomp.Fit = c.fitOverlay()
 						vgcomp.P = c.resultFor
 						vgcomp.R = c.result
+						vgcomp.SetDates = c.setPlotDates
 						vgout.Components = append(vgout.Components, vgcomp)
 						vgn = &vugu.VGNode{Component: vgcomp}
 						vgparent.AppendChild(vgn)

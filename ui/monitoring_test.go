@@ -449,3 +449,31 @@ func TestAsaokaChoicesSaved(t *testing.T) {
 		t.Errorf("path %g m (want %g), window from day %g", want.DrainagePath, d/2, want.Times[0])
 	}
 }
+
+// With monitoring.start the plots offer calendar dates: ticking the box
+// redraws the settlement and piezometer plots on a date axis from day 0,
+// and their SVG export follows; without a start there is no box.
+func TestPlotsOnDates(t *testing.T) {
+	pr := monColumn()
+	p := monPage(t, pr)
+	if p.find("plot-dates") != nil {
+		t.Error("the calendar date choice shows without monitoring.start")
+	}
+	pr.Monitoring.Start = "2026-03-02"
+	p = monPage(t, pr)
+	if p.find("plot-dates") == nil {
+		t.Fatal("no calendar date choice with monitoring.start set")
+	}
+	const title = "Date (day 0 = 2026-03-02)"
+	if strings.Contains(p.html(), title) {
+		t.Error("the plots start on calendar dates")
+	}
+	p.fire("plot-dates", "change", map[string]any{"checked": true})
+	if n := strings.Count(p.html(), title); n != 2 {
+		t.Errorf("%d plots on calendar dates, want 2 (settlement and piezometers)", n)
+	}
+	svg, _, err := plotFile("settlement", "svg", p.root.resultFor, p.root.Result(), nil, p.root.dates)
+	if err != nil || !strings.Contains(string(svg), title) {
+		t.Errorf("the SVG export is not on calendar dates (%v)", err)
+	}
+}

@@ -63,6 +63,7 @@ type Root struct {
 	need      *fillNeed    // the fill needed for a finished level (fill-need.go)
 	fold      folds        // which secondary sections are unfolded (folds.go)
 	printing  bool         // Print report is under way: every fold is open
+	dates     bool         // the record plots run on calendar dates
 }
 
 type notice struct {
@@ -448,7 +449,7 @@ func (c *Root) exportPlot(name, format string) {
 		c.note("error", "There are no results to export yet.")
 		return
 	}
-	data, mime, err := plotFile(name, format, c.resultFor, c.result, c.fitOverlay())
+	data, mime, err := plotFile(name, format, c.resultFor, c.result, c.fitOverlay(), c.dates)
 	if err == nil {
 		err = c.host().Download(baseName(c.resultFor)+"-"+name+"."+format, mime, data)
 	}
@@ -487,3 +488,7 @@ func (c *Root) printTitle() string {
 	}
 	return "Untitled project"
 }
+
+// setPlotDates puts the settlement and piezometer plots on calendar dates
+// (on) or log time.
+func (c *Root) setPlotDates(on bool) { c.dates = on }

@@ -2,6 +2,7 @@ package plot
 
 import (
 	"math"
+	"time"
 
 	"porelight/solver"
 	"porelight/solver/monitor"
@@ -38,6 +39,49 @@ func (f *Figure) timeFigure(tlo, thi, ylo, yhi float64, ylabel string, down bool
 	f.axis(box, pn.Y, yt, sideLeft, ylabel)
 	f.Panels = append(f.Panels, pn)
 	return pn, f.clip(box)
+}
+
+// dateFigure is timeFigure with a linear time axis of calendar dates:
+// day 0 is start, the axis runs over [tlo, thi] days, ticked by
+// DateTicks.
+func (f *Figure) dateFigure(start time.Time, tlo, thi, ylo, yhi float64, ylabel string, down bool) (*Panel, string) {
+	box := Box{timeLeft, timeTop, f.W - legendW - 8 - timeLeft, f.H - timeBottom - timeTop}
+	lo, hi, step := NiceRange(ylo, yhi, int(math.Max(2, box.H/45)))
+	y := Scale{Lo: lo, Hi: hi, A: box.Bottom(), B: box.Y}
+	if down {
+		y.A, y.B = box.Y, box.Bottom()
+	}
+	pn := &Panel{Box: box, X: Scale{Lo: tlo, Hi: thi, A: box.X, B: box.Right()}, Y: y}
+	xt, yt := DateTicks(start, tlo, thi, box.W), LinearTicks(lo, hi, step)
+	f.grid(pn, xt, true)
+	f.grid(pn, yt, false)
+	f.frame(box)
+	f.axis(box, pn.X, xt, sideBottom, "Date (day 0 = "+start.Format(solver.DateLayout)+")")
+	f.axis(box, pn.Y, yt, sideLeft, ylabel)
+	f.Panels = append(f.Panels, pn)
+	return pn, f.clip(box)
+}
+
+// recordFigure lays out the panel of a plot of records against time: on
+// calendar dates when dates is set and p's monitoring has a valid start
+// (over day 0, or the first reading if earlier, to 1.5 times the last
+// reading or 30 days, within the simulated time), else on log time over
+// the series and the readings.
+func (f *Figure) recordFigure(p *solver.Project, s *solver.Series, recs []record, dates bool, ylo, yhi float64, ylabel string, down bool) (*Panel, string) {
+	tlo, thi, _ := positiveTimeRange(s.Time)
+	if start, ok := MonitoringStart(p); dates && ok {
+		lo, last := 0.0, 0.0
+		for _, r := range recs {
+			for _, t := range r.ts {
+				if isFinite(t) {
+					lo, last = math.Min(lo, t), math.Max(last, t)
+				}
+			}
+		}
+		return f.dateFigure(start, lo, math.Min(thi, math.Max(1.5*last, 30)), ylo, yhi, ylabel, down)
+	}
+	tlo, thi = readingSpan(tlo, thi, recs)
+	return f.timeFigure(tlo, thi, ylo, yhi, ylabel, down)
 }
 
 // positiveTimeRange returns the smallest positive and the largest finite
@@ -131,6 +175,13 @@ func SettlementFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
 // SettlementFitFigure is SettlementFigure plus, when fit is not nil, the
 // settlement from mv of a back-fitted project.
 func SettlementFitFigure(p *solver.Project, r, fit *solver.Result, w, h int) *Figure {
+	return SettlementTimeFigure(p, r, fit, false, w, h)
+}
+
+// SettlementTimeFigure is SettlementFitFigure on a linear axis of
+// calendar dates when dates is set and monitoring.start is a valid date
+// (see recordFigure), else on log time.
+func SettlementTimeFigure(p *solver.Project, r, fit *solver.Result, dates bool, w, h int) *Figure {
 	f := newFigure("plot-settlement", "Settlement", w, h)
 	s, msg := consolidationSeries(r)
 	if s == nil {
@@ -160,10 +211,8 @@ func SettlementFitFigure(p *solver.Project, r, fit *solver.Result, w, h int) *Fi
 	if !ok {
 		return f.message("No settlement results in this solve.")
 	}
-	tlo, thi, _ := positiveTimeRange(s.Time)
-	tlo, thi = readingSpan(tlo, thi, recs)
 	lo, hi = padRange(math.Min(0, lo), math.Max(0, hi))
-	pn, clip := f.timeFigure(tlo, thi, lo, hi, "Settlement, m", true)
+	pn, clip := f.recordFigure(p, s, recs, dates, lo, hi, "Settlement, m", true)
 	if r.Summary.Model == solver.ModelNonlinear {
 		// One solution: the series is the non-linear model's settlement.
 		f.addSeries(pn, clip, "Non-linear model", styleAt(1), s.Time, s.Settlement, readTime("s", " m", 3))
@@ -208,6 +257,13 @@ func PiezometersFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
 // PiezometersFitFigure is PiezometersFigure plus, when fit is not nil, the
 // pore pressure of a back-fitted project at the depths of the records.
 func PiezometersFitFigure(p *solver.Project, r, fit *solver.Result, w, h int) *Figure {
+	return PiezometersTimeFigure(p, r, fit, false, w, h)
+}
+
+// PiezometersTimeFigure is PiezometersFitFigure on calendar dates when
+// dates is set and monitoring.start is a valid date, as
+// SettlementTimeFigure.
+func PiezometersTimeFigure(p *solver.Project, r, fit *solver.Result, dates bool, w, h int) *Figure {
 	f := newFigure("plot-piezometers", "Piezometers: pore pressure against time", w, h)
 	s, msg := consolidationSeries(r)
 	if s == nil {
@@ -232,10 +288,8 @@ func PiezometersFitFigure(p *solver.Project, r, fit *solver.Result, w, h int) *F
 	if !ok {
 		return f.message(msgNoPiezometers)
 	}
-	tlo, thi, _ := positiveTimeRange(s.Time)
-	tlo, thi = readingSpan(tlo, thi, recs)
 	lo, hi = padRange(math.Min(0, lo), math.Max(0, hi))
-	pn, clip := f.timeFigure(tlo, thi, lo, hi, "Pore pressure, kPa", false)
+	pn, clip := f.recordFigure(p, s, recs, dates, lo, hi, "Pore pressure, kPa", false)
 	if lo < 0 {
 		y := pn.Y.Map(0)
 		f.path("M"+coord(pn.Box.X)+" "+coord(y)+" H"+coord(pn.Box.Right()), inkRule, "none", 1)
