@@ -1004,9 +1004,17 @@ func (c *Comparison) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 		}
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
-		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "res-prediction"}}}
 		vgparent.AppendChild(vgn)
-		vgn.SetInnerHTML(vugu.HTML("Prediction: settlement from mv, and the pore pressure at the instrument\x26#39;s depth, interpolated in time at each reading. Differences are measured minus predicted."))
+		{
+			vgparent := vgn
+			_ = vgparent
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+			vgparent.AppendChild(vgn)
+			vgn.SetInnerHTML(c.predictionNote())
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: ", and the pore pressure at the instrument's depth, interpolated in time at each reading. Differences are measured minus predicted."}
+			vgparent.AppendChild(vgn)
+		}
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "residuals"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid pl-out"}}}
@@ -1252,7 +1260,12 @@ func (c *Comparison) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 		{
 			vgparent := vgn
 			_ = vgparent
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "The readings are resampled at equal steps and each settlement is plotted against the one before; under constant load the points fall on a line that meets the 45° line at the final settlement. The method needs readings from after the last change of load, once the points lie on a straight line. Predicted final settlement from mv: "}
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "The readings are resampled at equal steps and each settlement is plotted against the one before; under constant load the points fall on a line that meets the 45° line at the final settlement. The method needs readings from after the last change of load, once the points lie on a straight line. "}
+			vgparent.AppendChild(vgn)
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+			vgparent.AppendChild(vgn)
+			vgn.SetInnerHTML(c.predictedLabel())
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: ": "}
 			vgparent.AppendChild(vgn)
 			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "strong", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "asaoka-predicted"}}}
 			vgparent.AppendChild(vgn)

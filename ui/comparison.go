@@ -182,13 +182,30 @@ func (c *Comparison) exportResiduals() {
 	}
 }
 
-// predictedFinal is the prediction's final settlement from mv, for
-// comparison with the forecasts.
+// predictedFinal is the prediction's final primary settlement under the
+// model the summary uses, for comparison with the forecasts.
 func (c *Comparison) predictedFinal() string {
-	if c.R == nil || c.R.Summary.SettlementLinear == nil {
+	if c.R == nil || c.R.Summary.Settlement == nil {
 		return "–"
 	}
-	return fmt.Sprintf("%.0f mm", *c.R.Summary.SettlementLinear*1000)
+	return fmt.Sprintf("%.0f mm", *c.R.Summary.Settlement*1000)
+}
+
+// predictedLabel names the figure predictedFinal shows.
+func (c *Comparison) predictedLabel() string {
+	if c.R != nil && c.R.Summary.Model == solver.ModelNonlinear {
+		return "Predicted final primary settlement of the non-linear model"
+	}
+	return "Predicted final primary settlement from mv"
+}
+
+// predictionNote says which settlement the readings are compared with:
+// the one the back-fit uses (monitor.FittedSettlement).
+func (c *Comparison) predictionNote() string {
+	if _, curve := monitor.FittedSettlement(c.R); curve != "" {
+		return "Prediction: the " + curve
+	}
+	return "Prediction: settlement from mv"
 }
 
 // Asaoka's method.

@@ -208,6 +208,12 @@ func TestResidualsByHand(t *testing.T) {
 	if u := recs[2]; u.N != 0 || !strings.Contains(u.Problem, "no prediction at 3 m") || u.Name != "Piezometer 2" {
 		t.Errorf("piezometer without a prediction: %+v", u)
 	}
+	// With secondary compression the plate is compared with primary plus
+	// secondary, the curve the back-fit uses: 6 − (5 + 1), 18 − (20 + 3).
+	r.Consolidation.Series.Secondary = []float64{0, 0.002, 0.004}
+	if d := residuals(p, r)[0].Rows; math.Abs(d[0].Diff-0) > 1e-9 || math.Abs(d[1].Diff+5) > 1e-9 {
+		t.Errorf("with secondary compression: differences %g and %g mm, want 0 and −5", d[0].Diff, d[1].Diff)
+	}
 }
 
 // The page adds a record's depth to the solve (not to the project), so
@@ -225,6 +231,9 @@ func TestMonitoringComparisonOnPage(t *testing.T) {
 	}
 	if p.find("mon-caution") == nil {
 		t.Error("the comparison has no caution")
+	}
+	if got := p.text("res-prediction"); !strings.Contains(got, "the primary settlement from mv (linear model)") {
+		t.Errorf("the comparison does not name the settlement it compares with: %q", got)
 	}
 	var names []string
 	for _, f := range []*plot.Figure{
