@@ -5933,12 +5933,12 @@ func (c *Plots) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 		vgn.SetInnerHTML(vugu.HTML("Plots \x3Cspan class=\"pl-sub\"\x3Ehover a curve to read values\x3C/span\x3E"))
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
-		if c.hasStart() {
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-row pl-noprint"}}}
-			vgparent.AppendChild(vgn)
-			{
-				vgparent := vgn
-				_ = vgparent
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-row pl-noprint"}}}
+		vgparent.AppendChild(vgn)
+		{
+			vgparent := vgn
+			_ = vgparent
+			if c.hasStart() {
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-check"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "plot-dates"}}}
 				vgparent.AppendChild(vgn)
 				{
@@ -5962,6 +5962,29 @@ func (c *Plots) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 					vgparent.AppendChild(vgn)
 					vgn.SetInnerHTML(vugu.HTML("settlement and piezometers on calendar dates"))
 				}
+			}
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-check"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "plot-level"}}}
+			vgparent.AppendChild(vgn)
+			{
+				vgparent := vgn
+				_ = vgparent
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "input", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "checkbox"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "plot-level"}}}
+				vgparent.AppendChild(vgn)
+				{
+					b, err := vjson.Marshal(c.Level)
+					if err != nil {
+						panic(err)
+					}
+					vgn.Prop = append(vgn.Prop, vugu.VGProperty{Key: "checked", JSONVal: vjson.RawMessage(b)})
+				}
+				vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+					EventType: "change",
+					Func:      func(event vugu.DOMEvent) { c.setLevel(event) },
+					// TODO: implement capture, etc. mostly need to decide syntax
+				})
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "title", Val: "The water level a standpipe at each piezometer would show: total head u/γw − z, m above the top of the column"}}}
+				vgparent.AppendChild(vgn)
+				vgn.SetInnerHTML(vugu.HTML("piezometers as water level (m)"))
 			}
 		}
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
@@ -6099,6 +6122,7 @@ func (c *Plots) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 						vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
 						vgcomp.Dates = c.Dates
 						vgcomp.Fit = c.Fit
+						vgcomp.Level = c.Level
 						vgcomp.Project = c.P
 						vgcomp.Result = c.R
 						vgout.Components = append(vgout.Components, vgcomp)
@@ -6702,9 +6726,11 @@ func (c *Root) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 						vgcomp.Dates = c.dates
 						vgcomp.Export = c.exportPlot
 						vgcomp.Fit = c.fitOverlay()
+						vgcomp.Level = c.level
 						vgcomp.P = c.resultFor
 						vgcomp.R = c.result
 						vgcomp.SetDates = c.setPlotDates
+						vgcomp.SetLevel = c.setPlotLevel
 						vgout.Components = append(vgout.Components, vgcomp)
 						vgn = &vugu.VGNode{Component: vgcomp}
 						vgparent.AppendChild(vgn)

@@ -481,8 +481,16 @@ func TestPlotsOnDates(t *testing.T) {
 	if n := strings.Count(p.html(), title); n != 2 {
 		t.Errorf("%d plots on calendar dates, want 2 (settlement and piezometers)", n)
 	}
-	svg, _, err := plotFile("settlement", "svg", p.root.resultFor, p.root.Result(), nil, p.root.dates)
+	svg, _, err := plotFile("settlement", "svg", p.root.resultFor, p.root.Result(), nil, plot.RecordAxes{Dates: p.root.dates})
 	if err != nil || !strings.Contains(string(svg), title) {
 		t.Errorf("the SVG export is not on calendar dates (%v)", err)
+	}
+	const level = "Water level (total head), m above the top"
+	if strings.Contains(p.html(), level) {
+		t.Error("the piezometers start as water levels")
+	}
+	p.fire("plot-level", "change", map[string]any{"checked": true})
+	if !strings.Contains(p.html(), level) {
+		t.Error("the piezometer plot does not show water levels once chosen")
 	}
 }

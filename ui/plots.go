@@ -20,6 +20,16 @@ type Plots struct {
 	// (when monitoring.start is set); SetDates changes it, in the Root.
 	Dates    bool
 	SetDates func(on bool)
+	// Level shows the piezometers as water levels (m) instead of pore
+	// pressure; SetLevel changes it, in the Root.
+	Level    bool
+	SetLevel func(on bool)
+}
+
+func (c *Plots) setLevel(e vugu.DOMEvent) {
+	if c.SetLevel != nil {
+		c.SetLevel(e.PropBool("target", "checked"))
+	}
 }
 
 // hasStart says whether the records have a day 0 date, so that the
@@ -37,24 +47,24 @@ func (c *Plots) setDates(e vugu.DOMEvent) {
 
 type plotKind struct {
 	Name, Title, Lower string
-	svg                func(p *solver.Project, r, fit *solver.Result, dates bool) string
+	svg                func(p *solver.Project, r, fit *solver.Result, ax plot.RecordAxes) string
 	csv                func(*solver.Result) string
 }
 
 // noFit adapts the SVG writer of a plot that draws no back-fit.
-func noFit(svg func(*solver.Project, *solver.Result, int, int) string) func(*solver.Project, *solver.Result, *solver.Result, bool) string {
-	return func(p *solver.Project, r, _ *solver.Result, _ bool) string { return svg(p, r, 0, 0) }
+func noFit(svg func(*solver.Project, *solver.Result, int, int) string) func(*solver.Project, *solver.Result, *solver.Result, plot.RecordAxes) string {
+	return func(p *solver.Project, r, _ *solver.Result, _ plot.RecordAxes) string { return svg(p, r, 0, 0) }
 }
 
 // plotKinds are the plots in page order.
 var plotKinds = []plotKind{
 	{"isochrones", "Isochrones of excess pore pressure", "isochrone", noFit(plot.IsochronesSVG), plot.IsochronesCSV},
-	{"settlement", "Settlement against time", "settlement", func(p *solver.Project, r, fit *solver.Result, dates bool) string {
-		return plot.SettlementTimeFigure(p, r, fit, dates, 0, 0).SVG()
+	{"settlement", "Settlement against time", "settlement", func(p *solver.Project, r, fit *solver.Result, ax plot.RecordAxes) string {
+		return plot.SettlementTimeFigure(p, r, fit, ax.Dates, 0, 0).SVG()
 	}, plot.SettlementCSV},
 	{"degree", "Average degree of consolidation", "degree of consolidation", noFit(plot.DegreeSVG), plot.DegreeCSV},
-	{"piezometers", "Piezometers", "piezometer", func(p *solver.Project, r, fit *solver.Result, dates bool) string {
-		return plot.PiezometersTimeFigure(p, r, fit, dates, 0, 0).SVG()
+	{"piezometers", "Piezometers", "piezometer", func(p *solver.Project, r, fit *solver.Result, ax plot.RecordAxes) string {
+		return plot.PiezometersTimeFigure(p, r, fit, ax, 0, 0).SVG()
 	}, plot.PiezometersCSV},
 	{"steady", "Steady state: head, pore pressure and stresses", "steady state", noFit(plot.SteadySVG), plot.SteadyCSV},
 	{"stress", "Added vertical stress with depth", "added stress", noFit(plot.StressSVG), plot.StressCSV},
@@ -62,15 +72,15 @@ var plotKinds = []plotKind{
 
 // plotFile returns the download of one plot: its SVG drawing or the
 // numbers behind it as CSV. fit is the back-fitted result the plot shows,
-// or nil; dates puts the record plots on calendar dates, as on the page.
-func plotFile(name, format string, p *solver.Project, r, fit *solver.Result, dates bool) (data []byte, mime string, err error) {
+// or nil; ax the axes of the record plots, as on the page.
+func plotFile(name, format string, p *solver.Project, r, fit *solver.Result, ax plot.RecordAxes) (data []byte, mime string, err error) {
 	for _, k := range plotKinds {
 		if k.Name != name {
 			continue
 		}
 		switch format {
 		case "svg":
-			return []byte(k.svg(p, r, fit, dates)), "image/svg+xml", nil
+			return []byte(k.svg(p, r, fit, ax)), "image/svg+xml", nil
 		case "csv":
 			return []byte(k.csv(r)), "text/csv", nil
 		}

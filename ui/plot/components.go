@@ -52,12 +52,13 @@ type Piezometers struct {
 	Result        *solver.Result
 	Fit           *solver.Result
 	Dates         bool // as for Settlement
+	Level         bool // as water levels, m (RecordAxes.Level)
 	Width, Height int
 }
 
 // Figure builds the figure drawn for the current props.
 func (c *Piezometers) Figure() *Figure {
-	return PiezometersTimeFigure(c.Project, c.Result, c.Fit, c.Dates, c.Width, c.Height)
+	return PiezometersTimeFigure(c.Project, c.Result, c.Fit, RecordAxes{Dates: c.Dates, Level: c.Level}, c.Width, c.Height)
 }
 
 // SteadyProfiles draws SteadyFigure.

@@ -2,6 +2,7 @@ package plot
 
 import (
 	"fmt"
+	"math"
 	"strings"
 	"testing"
 	"time"
@@ -120,7 +121,7 @@ func TestRecordFiguresOnDates(t *testing.T) {
 		Plates:      []solver.Plate{{Name: "A", Readings: []solver.Reading{{T: 0}, {T: 5, Value: 0.02}, {T: 60, Value: 0.08}}}},
 		Piezometers: []solver.PiezometerRecord{{Name: "U", Depth: 3, Readings: []solver.Reading{{T: 0, Value: 20}, {T: 60, Value: 45}}}},
 	}}
-	for _, f := range []*Figure{SettlementTimeFigure(p, r, nil, true, 0, 0), PiezometersTimeFigure(p, r, nil, true, 0, 0)} {
+	for _, f := range []*Figure{SettlementTimeFigure(p, r, nil, true, 0, 0), PiezometersTimeFigure(p, r, nil, RecordAxes{Dates: true}, 0, 0)} {
 		pn := f.Panels[0]
 		if pn.X.Log || pn.X.Lo != 0 || pn.X.Hi != 90 {
 			t.Errorf("%s: x axis %+v, want linear over 0 … 90 days (1.5 × the last reading)", f.ID, pn.X)
@@ -137,5 +138,38 @@ func TestRecordFiguresOnDates(t *testing.T) {
 	q.Monitoring = &solver.Monitoring{Plates: p.Monitoring.Plates}
 	if f := SettlementTimeFigure(&q, r, nil, true, 0, 0); !f.Panels[0].X.Log {
 		t.Error("without monitoring.start the settlement plot left the log axis")
+	}
+}
+
+// As water levels, a piezometer at depth z reading u shows u/γw − z m
+// above the top (total head, as Steady.Head; common practice), and the
+// excess Δu/γw: for u = 58.86 kPa at 3 m with γw = 9.81, 6 − 3 = 3 m.
+func TestPiezometersAsLevel(t *testing.T) {
+	t.Parallel()
+	r := &solver.Result{Consolidation: &solver.Consolidation{Series: solver.Series{
+		Time:        []float64{0, 10, 100},
+		Piezometers: []solver.Piezometer{{Depth: 3, Pore: []float64{29.43, 58.86, 29.43}, Excess: []float64{0, 29.43, 0}}}}}}
+	p := &solver.Project{Monitoring: &solver.Monitoring{
+		Piezometers: []solver.PiezometerRecord{{Name: "U", Depth: 3, Readings: []solver.Reading{{T: 10, Value: 58.86}}}}}}
+	f := PiezometersTimeFigure(p, r, nil, RecordAxes{Level: true}, 0, 0)
+	if !hasText(f, "Water level (total head), m above the top") {
+		t.Error("no water level axis title")
+	}
+	want := map[string]float64{"z = 3 m, h": 3, "z = 3 m, Δu/γw excess": 3, "piezometer U, measured": 3}
+	for _, s := range f.Panels[0].Series {
+		w, ok := want[s.Name]
+		if !ok {
+			t.Errorf("unexpected series %q", s.Name)
+			continue
+		}
+		delete(want, s.Name)
+		for _, pt := range s.Pts {
+			if pt.DX == 10 && math.Abs(pt.DY-w) > 1e-9 {
+				t.Errorf("%s at day 10: %g m, want %g ± 1e-9", s.Name, pt.DY, w)
+			}
+		}
+	}
+	if len(want) > 0 {
+		t.Errorf("series missing: %v", want)
 	}
 }

@@ -257,31 +257,70 @@ func PiezometersFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
 // PiezometersFitFigure is PiezometersFigure plus, when fit is not nil, the
 // pore pressure of a back-fitted project at the depths of the records.
 func PiezometersFitFigure(p *solver.Project, r, fit *solver.Result, w, h int) *Figure {
-	return PiezometersTimeFigure(p, r, fit, false, w, h)
+	return PiezometersTimeFigure(p, r, fit, RecordAxes{}, w, h)
 }
 
-// PiezometersTimeFigure is PiezometersFitFigure on calendar dates when
-// dates is set and monitoring.start is a valid date, as
-// SettlementTimeFigure.
-func PiezometersTimeFigure(p *solver.Project, r, fit *solver.Result, dates bool, w, h int) *Figure {
-	f := newFigure("plot-piezometers", "Piezometers: pore pressure against time", w, h)
+// RecordAxes chooses how the plots of records against time show them.
+type RecordAxes struct {
+	// Dates puts the time axis on calendar dates when monitoring.start is
+	// a valid date (see recordFigure).
+	Dates bool
+	// Level shows the piezometers as the water level a standpipe there
+	// would show, m above the top of the column (negative below it): the
+	// total head u/γw − z, as Steady.Head, and the excess as Δu/γw.
+	Level bool
+}
+
+// PiezometersTimeFigure is PiezometersFitFigure with the axes ax.
+func PiezometersTimeFigure(p *solver.Project, r, fit *solver.Result, ax RecordAxes, w, h int) *Figure {
+	title := "Piezometers: pore pressure against time"
+	if ax.Level {
+		title = "Piezometers: water level against time"
+	}
+	f := newFigure("plot-piezometers", title, w, h)
 	s, msg := consolidationSeries(r)
 	if s == nil {
 		return f.message(msg)
 	}
+	// The pressure u at depth z as drawn: u itself, kPa, or the level
+	// u/γw − z, m; an excess as Δu or Δu/γw.
+	gw := solver.DefaultGammaW
+	if p != nil {
+		gw = solver.ResolveGammaW(p)
+	}
+	at := func(z float64, vs []float64) []float64 {
+		if !ax.Level {
+			return vs
+		}
+		out := make([]float64, len(vs))
+		for i, v := range vs {
+			out[i] = v/gw - z
+		}
+		return out
+	}
+	excess := func(vs []float64) []float64 {
+		if !ax.Level {
+			return vs
+		}
+		return scaled(vs, 1/gw)
+	}
+	name, dname, unit, ylabel := "u", "Δu", " kPa", "Pore pressure, kPa"
+	if ax.Level {
+		name, dname, unit, ylabel = "h", "Δu/γw", " m", "Water level (total head), m above the top"
+	}
 	recs := piezometerRecords(p)
 	var all [][]float64
 	for _, pz := range s.Piezometers {
-		all = append(all, pz.Pore, pz.Excess)
+		all = append(all, at(pz.Depth, pz.Pore), excess(pz.Excess))
 	}
 	var fs *solver.Series
 	if fit != nil && fit.Consolidation != nil {
 		fs = &fit.Consolidation.Series
 	}
 	for _, m := range recs {
-		all = append(all, m.vs)
+		all = append(all, at(m.depth, m.vs))
 		if fz := depthIndex(fs, m.depth); fz >= 0 {
-			all = append(all, fs.Piezometers[fz].Pore)
+			all = append(all, at(m.depth, fs.Piezometers[fz].Pore))
 		}
 	}
 	lo, hi, ok := finiteRange(all...)
@@ -289,31 +328,31 @@ func PiezometersTimeFigure(p *solver.Project, r, fit *solver.Result, dates bool,
 		return f.message(msgNoPiezometers)
 	}
 	lo, hi = padRange(math.Min(0, lo), math.Max(0, hi))
-	pn, clip := f.recordFigure(p, s, recs, dates, lo, hi, "Pore pressure, kPa", false)
+	pn, clip := f.recordFigure(p, s, recs, ax.Dates, lo, hi, ylabel, false)
 	if lo < 0 {
 		y := pn.Y.Map(0)
 		f.path("M"+coord(pn.Box.X)+" "+coord(y)+" H"+coord(pn.Box.Right()), inkRule, "none", 1)
 	}
 	for i, pz := range s.Piezometers {
-		at := "z = " + sig(pz.Depth, 3) + " m"
+		z := "z = " + sig(pz.Depth, 3) + " m"
 		st := styleAt(i)
-		f.addSeries(pn, clip, at+", u", st, s.Time, pz.Pore, readTime("u", " kPa", 3))
+		f.addSeries(pn, clip, z+", "+name, st, s.Time, at(pz.Depth, pz.Pore), readTime(name, unit, 3))
 		ex := withDash(st, excessDash)
 		ex.Width = math.Max(1.25, st.Width-0.5)
-		f.addSeries(pn, clip, at+", Δu excess", ex, s.Time, pz.Excess, readTime("Δu", " kPa", 3))
+		f.addSeries(pn, clip, z+", "+dname+" excess", ex, s.Time, excess(pz.Excess), readTime(dname, unit, 3))
 	}
 	for j, m := range recs {
 		k := depthIndex(s, m.depth)
 		if fz := depthIndex(fs, m.depth); fz >= 0 {
 			st := withDash(styleAt(max(k, 0)), fitDash)
 			st.Width = 1.5
-			f.addSeries(pn, clip, "z = "+sig(m.depth, 3)+" m, u back-fitted", st, fs.Time, fs.Piezometers[fz].Pore, readTime("u", " kPa", 3))
+			f.addSeries(pn, clip, "z = "+sig(m.depth, 3)+" m, "+name+" back-fitted", st, fs.Time, at(m.depth, fs.Piezometers[fz].Pore), readTime(name, unit, 3))
 		}
 		mk := markAt(j)
 		if k >= 0 {
 			mk.Stroke = styleAt(k).Stroke
 		}
-		f.addPoints(pn, clip, "piezometer "+m.name+", measured", mk, m.ts, m.vs, readTime("measured u", " kPa", 3))
+		f.addPoints(pn, clip, "piezometer "+m.name+", measured", mk, m.ts, at(m.depth, m.vs), readTime("measured "+name, unit, 3))
 	}
 	f.legend(f.W-legendW+8, timeTop+8, legendW-12, int((f.H-timeTop-20)/16), f.allSeries())
 	return f
