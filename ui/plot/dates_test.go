@@ -173,3 +173,58 @@ func TestPiezometersAsLevel(t *testing.T) {
 		t.Errorf("series missing: %v", want)
 	}
 }
+
+// The load is drawn in a strip above the settlement plot on the same
+// time axis (log or dates): the same x scale, the strip ends above the
+// plot, its value axis holds the largest load and its tick labels stay
+// at least one font height (11 px) apart; with no load change there is
+// no strip.
+func TestSettlementLoadStrip(t *testing.T) {
+	t.Parallel()
+	r := &solver.Result{Consolidation: &solver.Consolidation{Series: solver.Series{
+		Time: []float64{0, 10, 30, 100, 1000}, Settlement: []float64{0, 0.02, 0.05, 0.1, 0.12},
+		Load: []float64{0, 20, 60, 60, 40}}}}
+	p := &solver.Project{Monitoring: &solver.Monitoring{Start: "2026-03-02",
+		Plates: []solver.Plate{{Name: "A", Readings: []solver.Reading{{T: 5, Value: 0.01}, {T: 60, Value: 0.08}}}}}}
+	for _, dates := range []bool{false, true} {
+		f := SettlementTimeFigure(p, r, nil, dates, 0, 0)
+		if len(f.Panels) != 2 {
+			t.Fatalf("dates %v: %d panels, want the settlement and the load", dates, len(f.Panels))
+		}
+		main, load := f.Panels[0], f.Panels[1]
+		if load.X != main.X || load.Box.X != main.Box.X || load.Box.W != main.Box.W {
+			t.Errorf("dates %v: the load strip's time axis %+v differs from the plot's %+v", dates, load.X, main.X)
+		}
+		if !(load.Box.Bottom() < main.Box.Y) || load.Box.Y < 0 {
+			t.Errorf("dates %v: strip %+v overlaps the plot %+v or leaves the figure", dates, load.Box, main.Box)
+		}
+		if !(load.Y.Hi >= 60) || load.Y.Lo > 0 {
+			t.Errorf("dates %v: load axis %g … %g does not hold 0 … 60 kPa", dates, load.Y.Lo, load.Y.Hi)
+		}
+		if len(load.Series) != 1 || load.Series[0].Name != "Load at the surface" {
+			t.Errorf("dates %v: strip series %v", dates, load.Series)
+		}
+		if !hasText(f, "Load, kPa") {
+			t.Errorf("dates %v: no load axis title", dates)
+		}
+		var ys []float64
+		for _, tx := range f.Texts {
+			if tx.Anchor == "end" && tx.Y >= load.Box.Y && tx.Y <= load.Box.Bottom()+4 {
+				ys = append(ys, tx.Y)
+			}
+		}
+		if len(ys) < 2 {
+			t.Errorf("dates %v: %d load tick labels", dates, len(ys))
+		}
+		for i := 1; i < len(ys); i++ {
+			if math.Abs(ys[i]-ys[i-1]) < 11 {
+				t.Errorf("dates %v: load tick labels %.1f px apart, want ≥ 11", dates, math.Abs(ys[i]-ys[i-1]))
+			}
+		}
+	}
+	flat := *r.Consolidation
+	flat.Series.Load = []float64{50, 50, 50, 50, 50}
+	if f := SettlementTimeFigure(p, &solver.Result{Consolidation: &flat}, nil, false, 0, 0); len(f.Panels) != 1 {
+		t.Errorf("a constant load still gets a strip: %d panels", len(f.Panels))
+	}
+}

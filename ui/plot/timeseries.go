@@ -17,10 +17,11 @@ const (
 
 // timeFigure lays out one panel with a log time axis (days) at the bottom
 // and a linear y axis on the left over [ylo, yhi] widened to nice ticks;
-// down puts ylo at the top (values grow downward). It returns the panel
-// and its clip id.
-func (f *Figure) timeFigure(tlo, thi, ylo, yhi float64, ylabel string, down bool) (*Panel, string) {
-	box := Box{timeLeft, timeTop, f.W - legendW - 8 - timeLeft, f.H - timeBottom - timeTop}
+// down puts ylo at the top (values grow downward). top is the y of the
+// panel's top edge (timeTop, or lower below a companion panel). It
+// returns the panel and its clip id.
+func (f *Figure) timeFigure(top, tlo, thi, ylo, yhi float64, ylabel string, down bool) (*Panel, string) {
+	box := Box{timeLeft, top, f.W - legendW - 8 - timeLeft, f.H - timeBottom - top}
 	// The first steps after a load are minutes long; more than six decades
 	// before the end only flatten the interesting part.
 	tlo = math.Max(tlo, thi*1e-6)
@@ -32,6 +33,7 @@ func (f *Figure) timeFigure(tlo, thi, ylo, yhi float64, ylabel string, down bool
 	}
 	pn := &Panel{Box: box, X: Scale{Lo: tlo, Hi: thi, A: box.X, B: box.Right(), Log: true}, Y: y}
 	xt, yt := LogTicks(tlo, thi), LinearTicks(lo, hi, step)
+	pn.XTicks = xt
 	f.grid(pn, xt, true)
 	f.grid(pn, yt, false)
 	f.frame(box)
@@ -44,8 +46,8 @@ func (f *Figure) timeFigure(tlo, thi, ylo, yhi float64, ylabel string, down bool
 // dateFigure is timeFigure with a linear time axis of calendar dates:
 // day 0 is start, the axis runs over [tlo, thi] days, ticked by
 // DateTicks.
-func (f *Figure) dateFigure(start time.Time, tlo, thi, ylo, yhi float64, ylabel string, down bool) (*Panel, string) {
-	box := Box{timeLeft, timeTop, f.W - legendW - 8 - timeLeft, f.H - timeBottom - timeTop}
+func (f *Figure) dateFigure(start time.Time, top, tlo, thi, ylo, yhi float64, ylabel string, down bool) (*Panel, string) {
+	box := Box{timeLeft, top, f.W - legendW - 8 - timeLeft, f.H - timeBottom - top}
 	lo, hi, step := NiceRange(ylo, yhi, int(math.Max(2, box.H/45)))
 	y := Scale{Lo: lo, Hi: hi, A: box.Bottom(), B: box.Y}
 	if down {
@@ -53,6 +55,7 @@ func (f *Figure) dateFigure(start time.Time, tlo, thi, ylo, yhi float64, ylabel 
 	}
 	pn := &Panel{Box: box, X: Scale{Lo: tlo, Hi: thi, A: box.X, B: box.Right()}, Y: y}
 	xt, yt := DateTicks(start, tlo, thi, box.W), LinearTicks(lo, hi, step)
+	pn.XTicks = xt
 	f.grid(pn, xt, true)
 	f.grid(pn, yt, false)
 	f.frame(box)
@@ -67,7 +70,7 @@ func (f *Figure) dateFigure(start time.Time, tlo, thi, ylo, yhi float64, ylabel 
 // (over day 0, or the first reading if earlier, to 1.5 times the last
 // reading or 30 days, within the simulated time), else on log time over
 // the series and the readings.
-func (f *Figure) recordFigure(p *solver.Project, s *solver.Series, recs []record, dates bool, ylo, yhi float64, ylabel string, down bool) (*Panel, string) {
+func (f *Figure) recordFigure(p *solver.Project, s *solver.Series, recs []record, dates bool, top, ylo, yhi float64, ylabel string, down bool) (*Panel, string) {
 	tlo, thi, _ := positiveTimeRange(s.Time)
 	if start, ok := MonitoringStart(p); dates && ok {
 		lo, last := 0.0, 0.0
@@ -78,10 +81,33 @@ func (f *Figure) recordFigure(p *solver.Project, s *solver.Series, recs []record
 				}
 			}
 		}
-		return f.dateFigure(start, lo, math.Min(thi, math.Max(1.5*last, 30)), ylo, yhi, ylabel, down)
+		return f.dateFigure(start, top, lo, math.Min(thi, math.Max(1.5*last, 30)), ylo, yhi, ylabel, down)
 	}
 	tlo, thi = readingSpan(tlo, thi, recs)
-	return f.timeFigure(tlo, thi, ylo, yhi, ylabel, down)
+	return f.timeFigure(top, tlo, thi, ylo, yhi, ylabel, down)
+}
+
+// The load panel above the settlement plot, pixels: its height and the
+// gap below it.
+const (
+	loadPanelH   = 64
+	loadPanelGap = 12
+)
+
+// loadPanel draws the surface load of s (kPa) over [lo, hi] in a strip
+// above the panel main, on main's time axis (the same scale, so a time
+// is at the same x in both): its grid, frame, value axis and curve. It
+// is the figure's last panel.
+func (f *Figure) loadPanel(main *Panel, s *solver.Series, lo, hi float64) {
+	box := Box{main.Box.X, main.Box.Y - loadPanelGap - loadPanelH, main.Box.W, loadPanelH}
+	nlo, nhi, step := NiceRange(lo, hi, 2)
+	pn := &Panel{Box: box, X: main.X, Y: Scale{Lo: nlo, Hi: nhi, A: box.Bottom(), B: box.Y}}
+	f.grid(pn, main.XTicks, true)
+	f.grid(pn, LinearTicks(nlo, nhi, step), false)
+	f.frame(box)
+	f.axis(box, pn.Y, LinearTicks(nlo, nhi, step), sideLeft, "Load, kPa")
+	f.Panels = append(f.Panels, pn)
+	f.addSeries(pn, f.clip(box), "Load at the surface", Style{Stroke: inkMuted, Width: 1.5}, s.Time, s.Load, readTime("q", " kPa", 3))
 }
 
 // positiveTimeRange returns the smallest positive and the largest finite
@@ -140,7 +166,7 @@ func DegreeFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
 		return f.message("No degree of consolidation: the load history makes no net change.")
 	}
 	tlo, thi, _ := positiveTimeRange(s.Time)
-	pn, clip := f.timeFigure(tlo, thi, 0, 100, "Degree of consolidation, %", true)
+	pn, clip := f.timeFigure(timeTop, tlo, thi, 0, 100, "Degree of consolidation, %", true)
 	f.addSeries(pn, clip, "Us, settlement", styleAt(0), s.Time, scaled(s.Us, 100), readTime("Us", " %", 3))
 	f.addSeries(pn, clip, "Up, pore pressure", styleAt(1), s.Time, scaled(s.Up, 100), readTime("Up", " %", 3))
 	f.addDrainDegrees(pn, clip, s, r)
@@ -212,7 +238,17 @@ func SettlementTimeFigure(p *solver.Project, r, fit *solver.Result, dates bool, 
 		return f.message("No settlement results in this solve.")
 	}
 	lo, hi = padRange(math.Min(0, lo), math.Max(0, hi))
-	pn, clip := f.recordFigure(p, s, recs, dates, lo, hi, "Settlement, m", true)
+	// The load above, on the same time axis, when it changes.
+	top := float64(timeTop)
+	loadLo, loadHi, hasLoad := finiteRange(s.Load)
+	hasLoad = hasLoad && loadHi-loadLo > 0
+	if hasLoad {
+		top += loadPanelH + loadPanelGap
+	}
+	pn, clip := f.recordFigure(p, s, recs, dates, top, lo, hi, "Settlement, m", true)
+	if hasLoad {
+		f.loadPanel(pn, s, math.Min(0, loadLo), math.Max(0, loadHi))
+	}
 	if r.Summary.Model == solver.ModelNonlinear {
 		// One solution: the series is the non-linear model's settlement.
 		f.addSeries(pn, clip, "Non-linear model", styleAt(1), s.Time, s.Settlement, readTime("s", " m", 3))
@@ -328,7 +364,7 @@ func PiezometersTimeFigure(p *solver.Project, r, fit *solver.Result, ax RecordAx
 		return f.message(msgNoPiezometers)
 	}
 	lo, hi = padRange(math.Min(0, lo), math.Max(0, hi))
-	pn, clip := f.recordFigure(p, s, recs, ax.Dates, lo, hi, ylabel, false)
+	pn, clip := f.recordFigure(p, s, recs, ax.Dates, timeTop, lo, hi, ylabel, false)
 	if lo < 0 {
 		y := pn.Y.Map(0)
 		f.path("M"+coord(pn.Box.X)+" "+coord(y)+" H"+coord(pn.Box.Right()), inkRule, "none", 1)
