@@ -91,7 +91,7 @@ func (f *Figure) recordFigure(p *solver.Project, s *solver.Series, recs []record
 // gap below it.
 const (
 	loadPanelH   = 64
-	loadPanelGap = 12
+	loadPanelGap = 16
 )
 
 // loadPanel draws the surface load of s (kPa) over [lo, hi] in a strip
