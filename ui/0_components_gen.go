@@ -1088,6 +1088,33 @@ func (c *Comparison) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 		}
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
+		if len(c.recs()) > 0 {
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "figure", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "fig-residuals"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-figure"}}}
+			vgparent.AppendChild(vgn)
+			{
+				vgparent := vgn
+				_ = vgparent
+				{
+					vgcompKey := vugu.MakeCompKey(0x5A52D04CAF7297A5^vgin.CurrentPositionHash(), vgiterkey)
+					// ask BuildEnv for prior instance of this specific component
+					vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*plot.Residuals)
+					if vgcomp == nil {
+						// create new one if needed
+						vgcomp = new(plot.Residuals)
+						vgin.BuildEnv.WireComponent(vgcomp)
+					}
+					vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+					vgcomp.Dates = c.Dates
+					vgcomp.Project = c.P
+					vgcomp.Records = c.residualRecords()
+					vgout.Components = append(vgout.Components, vgcomp)
+					vgn = &vugu.VGNode{Component: vgcomp}
+					vgparent.AppendChild(vgn)
+				}
+			}
+		}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
 		for vgiterkeyt, r := range c.recs() {
 			var vgiterkey interface{} = vgiterkeyt
 			_ = vgiterkey
@@ -6748,6 +6775,7 @@ func (c *Root) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 								vgin.BuildEnv.WireComponent(vgcomp)
 							}
 							vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+							vgcomp.Dates = c.dates
 							vgcomp.Download = c.download
 							vgcomp.P = c.resultFor
 							vgcomp.PlotsOpen = c.asaokaOpen()

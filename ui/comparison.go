@@ -22,8 +22,11 @@ import (
 // each on its own, and the Asaoka plots, all together. The figures stay
 // in view.
 type Comparison struct {
-	P        *solver.Project // the project R belongs to, records included
-	R        *solver.Result
+	P *solver.Project // the project R belongs to, records included
+	R *solver.Result
+	// Dates draws the differences against calendar dates (the plots'
+	// choice, when monitoring.start is set).
+	Dates    bool
 	Download func(name, mime string, data []byte)
 	// PlotsOpen says whether the Asaoka plots show; TogglePlots asks the
 	// Root to open or close them.
@@ -494,4 +497,21 @@ func noprintIf(b bool) string {
 		return " pl-noprint"
 	}
 	return ""
+}
+
+// residualRecords are the differences of the records for the plot of
+// differences against time.
+func (c *Comparison) residualRecords() []plot.ResidualRecord {
+	var out []plot.ResidualRecord
+	for _, r := range c.recs() {
+		rr := plot.ResidualRecord{Name: r.Name, Pressure: r.Kind == form.Piezometers}
+		for _, row := range r.Rows {
+			if row.OK {
+				rr.Times = append(rr.Times, row.T)
+				rr.Diffs = append(rr.Diffs, row.Diff)
+			}
+		}
+		out = append(out, rr)
+	}
+	return out
 }

@@ -460,8 +460,9 @@ func TestAsaokaChoicesSaved(t *testing.T) {
 }
 
 // With monitoring.start the plots offer calendar dates: ticking the box
-// redraws the settlement and piezometer plots on a date axis from day 0,
-// and their SVG export follows; without a start there is no box.
+// redraws the settlement and piezometer plots and the differences against
+// time on a date axis from day 0, and the SVG export follows; without a
+// start there is no box. The differences plot shows under the residuals.
 func TestPlotsOnDates(t *testing.T) {
 	pr := monColumn()
 	p := monPage(t, pr)
@@ -477,9 +478,14 @@ func TestPlotsOnDates(t *testing.T) {
 	if strings.Contains(p.html(), title) {
 		t.Error("the plots start on calendar dates")
 	}
+	if p.find("plot-residuals") == nil {
+		t.Error("no plot of the differences against time")
+	}
 	p.fire("plot-dates", "change", map[string]any{"checked": true})
-	if n := strings.Count(p.html(), title); n != 2 {
-		t.Errorf("%d plots on calendar dates, want 2 (settlement and piezometers)", n)
+	// The settlement and piezometer plots, and both panels (plates,
+	// piezometers) of the differences against time.
+	if n := strings.Count(p.html(), title); n != 4 {
+		t.Errorf("%d time axes on calendar dates, want 4 (settlement, piezometers, the two panels of differences)", n)
 	}
 	svg, _, err := plotFile("settlement", "svg", p.root.resultFor, p.root.Result(), nil, plot.RecordAxes{Dates: p.root.dates})
 	if err != nil || !strings.Contains(string(svg), title) {
