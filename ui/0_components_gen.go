@@ -593,7 +593,7 @@ func (c *Backfit) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 					Func:      func(event vugu.DOMEvent) { c.setScale(event) },
 					// TODO: implement capture, etc. mostly need to decide syntax
 				})
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "title", Val: "One factor on mv and k of every layer: scales the settlement, keeps every cv"}}}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "title", Val: "One factor on mv and k (and Cc, Cr, Ck of an e–log curve) of every layer: scales the primary settlement, keeps every cv"}}}
 				vgparent.AppendChild(vgn)
 				vgn.SetInnerHTML(vugu.HTML("settlement scale"))
 			}
@@ -851,6 +851,13 @@ func (c *Backfit) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 				vgn.SetInnerHTML(c.runs())
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
+				if c.S.res.Curve != "" {
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "fit-curve"}}}
+					vgparent.AppendChild(vgn)
+					vgn.SetInnerHTML("The plate readings were compared with the " + c.S.res.Curve + ", the settlement the summary uses.")
+				}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "fit-assumption"}}}
 				vgparent.AppendChild(vgn)
 				vgn.SetInnerHTML(c.S.res.Assumption)
@@ -997,9 +1004,17 @@ func (c *Comparison) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 		}
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
-		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "res-prediction"}}}
 		vgparent.AppendChild(vgn)
-		vgn.SetInnerHTML(vugu.HTML("Prediction: settlement from mv, and the pore pressure at the instrument\x26#39;s depth, interpolated in time at each reading. Differences are measured minus predicted."))
+		{
+			vgparent := vgn
+			_ = vgparent
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+			vgparent.AppendChild(vgn)
+			vgn.SetInnerHTML(c.predictionNote())
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: ", and the pore pressure at the instrument's depth, interpolated in time at each reading. Differences are measured minus predicted."}
+			vgparent.AppendChild(vgn)
+		}
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "residuals"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid pl-out"}}}
@@ -1070,6 +1085,33 @@ func (c *Comparison) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 			}
 			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 			vgparent.AppendChild(vgn)
+		}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+		if len(c.recs()) > 0 {
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "figure", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "fig-residuals"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-figure"}}}
+			vgparent.AppendChild(vgn)
+			{
+				vgparent := vgn
+				_ = vgparent
+				{
+					vgcompKey := vugu.MakeCompKey(0x5A52D04CAF7297A5^vgin.CurrentPositionHash(), vgiterkey)
+					// ask BuildEnv for prior instance of this specific component
+					vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*plot.Residuals)
+					if vgcomp == nil {
+						// create new one if needed
+						vgcomp = new(plot.Residuals)
+						vgin.BuildEnv.WireComponent(vgcomp)
+					}
+					vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+					vgcomp.Dates = c.Dates
+					vgcomp.Project = c.P
+					vgcomp.Records = c.residualRecords()
+					vgout.Components = append(vgout.Components, vgcomp)
+					vgn = &vugu.VGNode{Component: vgcomp}
+					vgparent.AppendChild(vgn)
+				}
+			}
 		}
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
@@ -1245,7 +1287,12 @@ func (c *Comparison) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 		{
 			vgparent := vgn
 			_ = vgparent
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "The readings are resampled at equal steps and each settlement is plotted against the one before; under constant load the points fall on a line that meets the 45° line at the final settlement. The method needs readings from after the last change of load, once the points lie on a straight line. Predicted final settlement from mv: "}
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "The readings are resampled at equal steps and each settlement is plotted against the one before; under constant load the points fall on a line that meets the 45° line at the final settlement. The method needs readings from after the last change of load, once the points lie on a straight line. "}
+			vgparent.AppendChild(vgn)
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+			vgparent.AppendChild(vgn)
+			vgn.SetInnerHTML(c.predictedLabel())
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: ": "}
 			vgparent.AppendChild(vgn)
 			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "strong", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "asaoka-predicted"}}}
 			vgparent.AppendChild(vgn)
@@ -5913,6 +5960,62 @@ func (c *Plots) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 		vgn.SetInnerHTML(vugu.HTML("Plots \x3Cspan class=\"pl-sub\"\x3Ehover a curve to read values\x3C/span\x3E"))
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-row pl-noprint"}}}
+		vgparent.AppendChild(vgn)
+		{
+			vgparent := vgn
+			_ = vgparent
+			if c.hasStart() {
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-check"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "plot-dates"}}}
+				vgparent.AppendChild(vgn)
+				{
+					vgparent := vgn
+					_ = vgparent
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "input", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "checkbox"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "plot-dates"}}}
+					vgparent.AppendChild(vgn)
+					{
+						b, err := vjson.Marshal(c.Dates)
+						if err != nil {
+							panic(err)
+						}
+						vgn.Prop = append(vgn.Prop, vugu.VGProperty{Key: "checked", JSONVal: vjson.RawMessage(b)})
+					}
+					vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+						EventType: "change",
+						Func:      func(event vugu.DOMEvent) { c.setDates(event) },
+						// TODO: implement capture, etc. mostly need to decide syntax
+					})
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "title", Val: "A linear time axis of calendar dates from monitoring.start, for the settlement and piezometer plots"}}}
+					vgparent.AppendChild(vgn)
+					vgn.SetInnerHTML(vugu.HTML("settlement and piezometers on calendar dates"))
+				}
+			}
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-check"}, vugu.VGAttribute{Namespace: "", Key: "for", Val: "plot-level"}}}
+			vgparent.AppendChild(vgn)
+			{
+				vgparent := vgn
+				_ = vgparent
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "input", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "checkbox"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "plot-level"}}}
+				vgparent.AppendChild(vgn)
+				{
+					b, err := vjson.Marshal(c.Level)
+					if err != nil {
+						panic(err)
+					}
+					vgn.Prop = append(vgn.Prop, vugu.VGProperty{Key: "checked", JSONVal: vjson.RawMessage(b)})
+				}
+				vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+					EventType: "change",
+					Func:      func(event vugu.DOMEvent) { c.setLevel(event) },
+					// TODO: implement capture, etc. mostly need to decide syntax
+				})
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "title", Val: "The water level a standpipe at each piezometer would show: total head u/γw − z, m above the top of the column"}}}
+				vgparent.AppendChild(vgn)
+				vgn.SetInnerHTML(vugu.HTML("piezometers as water level (m)"))
+			}
+		}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
 		for vgiterkeyt, k := range plotKinds {
 			var vgiterkey interface{} = vgiterkeyt
 			_ = vgiterkey
@@ -6002,6 +6105,7 @@ func (c *Plots) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgin.BuildEnv.WireComponent(vgcomp)
 						}
 						vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+						vgcomp.Dates = c.Dates
 						vgcomp.Fit = c.Fit
 						vgcomp.Project = c.P
 						vgcomp.Result = c.R
@@ -6043,7 +6147,9 @@ func (c *Plots) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgin.BuildEnv.WireComponent(vgcomp)
 						}
 						vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+						vgcomp.Dates = c.Dates
 						vgcomp.Fit = c.Fit
+						vgcomp.Level = c.Level
 						vgcomp.Project = c.P
 						vgcomp.Result = c.R
 						vgout.Components = append(vgout.Components, vgcomp)
@@ -6644,10 +6750,14 @@ func (c *Root) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgin.BuildEnv.WireComponent(vgcomp)
 						}
 						vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+						vgcomp.Dates = c.dates
 						vgcomp.Export = c.exportPlot
 						vgcomp.Fit = c.fitOverlay()
+						vgcomp.Level = c.level
 						vgcomp.P = c.resultFor
 						vgcomp.R = c.result
+						vgcomp.SetDates = c.setPlotDates
+						vgcomp.SetLevel = c.setPlotLevel
 						vgout.Components = append(vgout.Components, vgcomp)
 						vgn = &vugu.VGNode{Component: vgcomp}
 						vgparent.AppendChild(vgn)
@@ -6665,6 +6775,7 @@ func (c *Root) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 								vgin.BuildEnv.WireComponent(vgcomp)
 							}
 							vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+							vgcomp.Dates = c.dates
 							vgcomp.Download = c.download
 							vgcomp.P = c.resultFor
 							vgcomp.PlotsOpen = c.asaokaOpen()

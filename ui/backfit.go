@@ -98,7 +98,7 @@ func (c *Backfit) rows() []fitRow {
 	res := c.S.res
 	var out []fitRow
 	for k, p := range res.Params {
-		r := fitRow{ID: fmt.Sprintf("fit-param-%d", k), Name: "Settlement scale (mv and k of every layer)", CvBefore: "–", CvAfter: "unchanged"}
+		r := fitRow{ID: fmt.Sprintf("fit-param-%d", k), Name: "Settlement scale (mv, k and e–log indices of every layer)", CvBefore: "–", CvAfter: "unchanged"}
 		if p.Layer >= 0 {
 			name := fmt.Sprintf("layer %d", p.Layer+1)
 			if p.Layer < len(c.S.model.Layers) {

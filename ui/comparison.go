@@ -22,8 +22,11 @@ import (
 // each on its own, and the Asaoka plots, all together. The figures stay
 // in view.
 type Comparison struct {
-	P        *solver.Project // the project R belongs to, records included
-	R        *solver.Result
+	P *solver.Project // the project R belongs to, records included
+	R *solver.Result
+	// Dates draws the differences against calendar dates (the plots'
+	// choice, when monitoring.start is set).
+	Dates    bool
 	Download func(name, mime string, data []byte)
 	// PlotsOpen says whether the Asaoka plots show; TogglePlots asks the
 	// Root to open or close them.
@@ -182,13 +185,30 @@ func (c *Comparison) exportResiduals() {
 	}
 }
 
-// predictedFinal is the prediction's final settlement from mv, for
-// comparison with the forecasts.
+// predictedFinal is the prediction's final primary settlement under the
+// model the summary uses, for comparison with the forecasts.
 func (c *Comparison) predictedFinal() string {
-	if c.R == nil || c.R.Summary.SettlementLinear == nil {
+	if c.R == nil || c.R.Summary.Settlement == nil {
 		return "–"
 	}
-	return fmt.Sprintf("%.0f mm", *c.R.Summary.SettlementLinear*1000)
+	return fmt.Sprintf("%.0f mm", *c.R.Summary.Settlement*1000)
+}
+
+// predictedLabel names the figure predictedFinal shows.
+func (c *Comparison) predictedLabel() string {
+	if c.R != nil && c.R.Summary.Model == solver.ModelNonlinear {
+		return "Predicted final primary settlement of the non-linear model"
+	}
+	return "Predicted final primary settlement from mv"
+}
+
+// predictionNote says which settlement the readings are compared with:
+// the one the back-fit uses (monitor.FittedSettlement).
+func (c *Comparison) predictionNote() string {
+	if _, curve := monitor.FittedSettlement(c.R); curve != "" {
+		return "Prediction: the " + curve
+	}
+	return "Prediction: settlement from mv"
 }
 
 // Asaoka's method.
@@ -477,4 +497,21 @@ func noprintIf(b bool) string {
 		return " pl-noprint"
 	}
 	return ""
+}
+
+// residualRecords are the differences of the records for the plot of
+// differences against time.
+func (c *Comparison) residualRecords() []plot.ResidualRecord {
+	var out []plot.ResidualRecord
+	for _, r := range c.recs() {
+		rr := plot.ResidualRecord{Name: r.Name, Pressure: r.Kind == form.Piezometers}
+		for _, row := range r.Rows {
+			if row.OK {
+				rr.Times = append(rr.Times, row.T)
+				rr.Diffs = append(rr.Diffs, row.Diff)
+			}
+		}
+		out = append(out, rr)
+	}
+	return out
 }

@@ -208,6 +208,12 @@ func TestResidualsByHand(t *testing.T) {
 	if u := recs[2]; u.N != 0 || !strings.Contains(u.Problem, "no prediction at 3 m") || u.Name != "Piezometer 2" {
 		t.Errorf("piezometer without a prediction: %+v", u)
 	}
+	// With secondary compression the plate is compared with primary plus
+	// secondary, the curve the back-fit uses: 6 − (5 + 1), 18 − (20 + 3).
+	r.Consolidation.Series.Secondary = []float64{0, 0.002, 0.004}
+	if d := residuals(p, r)[0].Rows; math.Abs(d[0].Diff-0) > 1e-9 || math.Abs(d[1].Diff+5) > 1e-9 {
+		t.Errorf("with secondary compression: differences %g and %g mm, want 0 and −5", d[0].Diff, d[1].Diff)
+	}
 }
 
 // The page adds a record's depth to the solve (not to the project), so
@@ -225,6 +231,9 @@ func TestMonitoringComparisonOnPage(t *testing.T) {
 	}
 	if p.find("mon-caution") == nil {
 		t.Error("the comparison has no caution")
+	}
+	if got := p.text("res-prediction"); !strings.Contains(got, "the primary settlement from mv (linear model)") {
+		t.Errorf("the comparison does not name the settlement it compares with: %q", got)
 	}
 	var names []string
 	for _, f := range []*plot.Figure{
@@ -311,6 +320,9 @@ func TestFitApplyRevert(t *testing.T) {
 	}
 	if got := p.text("fit-param-0-mult"); !strings.HasPrefix(got, "2.0") {
 		t.Errorf("multiplier shows %q", got)
+	}
+	if got := p.text("fit-curve"); !strings.Contains(got, "primary settlement from mv (linear model)") {
+		t.Errorf("the fit does not say which settlement it compared with: %q", got)
 	}
 	if got := p.text("fit-assumption"); !strings.Contains(got, "independent readings") || !strings.Contains(got, "Student's t") {
 		t.Errorf("the fit does not state its assumption: %q", got)
@@ -444,5 +456,47 @@ func TestAsaokaChoicesSaved(t *testing.T) {
 	}
 	if want.DrainagePath != d/2 || want.Times[0] < 600 {
 		t.Errorf("path %g m (want %g), window from day %g", want.DrainagePath, d/2, want.Times[0])
+	}
+}
+
+// With monitoring.start the plots offer calendar dates: ticking the box
+// redraws the settlement and piezometer plots and the differences against
+// time on a date axis from day 0, and the SVG export follows; without a
+// start there is no box. The differences plot shows under the residuals.
+func TestPlotsOnDates(t *testing.T) {
+	pr := monColumn()
+	p := monPage(t, pr)
+	if p.find("plot-dates") != nil {
+		t.Error("the calendar date choice shows without monitoring.start")
+	}
+	pr.Monitoring.Start = "2026-03-02"
+	p = monPage(t, pr)
+	if p.find("plot-dates") == nil {
+		t.Fatal("no calendar date choice with monitoring.start set")
+	}
+	const title = "Date (day 0 = 2026-03-02)"
+	if strings.Contains(p.html(), title) {
+		t.Error("the plots start on calendar dates")
+	}
+	if p.find("plot-residuals") == nil {
+		t.Error("no plot of the differences against time")
+	}
+	p.fire("plot-dates", "change", map[string]any{"checked": true})
+	// The settlement and piezometer plots, and both panels (plates,
+	// piezometers) of the differences against time.
+	if n := strings.Count(p.html(), title); n != 4 {
+		t.Errorf("%d time axes on calendar dates, want 4 (settlement, piezometers, the two panels of differences)", n)
+	}
+	svg, _, err := plotFile("settlement", "svg", p.root.resultFor, p.root.Result(), nil, plot.RecordAxes{Dates: p.root.dates})
+	if err != nil || !strings.Contains(string(svg), title) {
+		t.Errorf("the SVG export is not on calendar dates (%v)", err)
+	}
+	const level = "Water level (total head), m above the top"
+	if strings.Contains(p.html(), level) {
+		t.Error("the piezometers start as water levels")
+	}
+	p.fire("plot-level", "change", map[string]any{"checked": true})
+	if !strings.Contains(p.html(), level) {
+		t.Error("the piezometer plot does not show water levels once chosen")
 	}
 }

@@ -5,11 +5,14 @@ import (
 	"math"
 
 	"porelight/solver"
+	"porelight/solver/monitor"
 	"porelight/ui/form"
 )
 
 // Residuals: each reading against the prediction at its time. The
-// prediction is the settlement from mv (Series.Settlement) for a plate
+// prediction is the settlement the back-analysis compares with
+// (monitor.FittedSettlement: the settlement of the model the summary
+// uses, plus the secondary compression when there is one) for a plate
 // and the pore pressure at the record's depth (Piezometer.Pore) for a
 // piezometer, interpolated linearly in time between the solver's steps
 // with solver.SeriesAt, as the back-analysis does. Settlements are shown in mm, pressures in kPa.
@@ -52,7 +55,7 @@ func residuals(p *solver.Project, r *solver.Result) []resRecord {
 		rec := resRecord{Path: form.RecordPath(form.Plates, i), Name: recordName(pl.Name, "Plate", i), Kind: form.Plates, Unit: "mm"}
 		var ys []float64
 		if ser != nil {
-			ys = ser.Settlement
+			ys, _ = monitor.FittedSettlement(r)
 		}
 		compare(&rec, m, pl.Readings, ser, ys, 1000)
 		out = append(out, rec)

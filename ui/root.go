@@ -15,6 +15,7 @@ import (
 	"porelight/solver"
 	"porelight/solver/monitor"
 	"porelight/ui/form"
+	"porelight/ui/plot"
 )
 
 // AutosaveKey is the browser storage key of the autosaved project.
@@ -63,6 +64,8 @@ type Root struct {
 	need      *fillNeed    // the fill needed for a finished level (fill-need.go)
 	fold      folds        // which secondary sections are unfolded (folds.go)
 	printing  bool         // Print report is under way: every fold is open
+	dates     bool         // the record plots run on calendar dates
+	level     bool         // the piezometer plot shows water levels
 }
 
 type notice struct {
@@ -448,7 +451,7 @@ func (c *Root) exportPlot(name, format string) {
 		c.note("error", "There are no results to export yet.")
 		return
 	}
-	data, mime, err := plotFile(name, format, c.resultFor, c.result, c.fitOverlay())
+	data, mime, err := plotFile(name, format, c.resultFor, c.result, c.fitOverlay(), plot.RecordAxes{Dates: c.dates, Level: c.level})
 	if err == nil {
 		err = c.host().Download(baseName(c.resultFor)+"-"+name+"."+format, mime, data)
 	}
@@ -487,3 +490,11 @@ func (c *Root) printTitle() string {
 	}
 	return "Untitled project"
 }
+
+// setPlotDates puts the settlement and piezometer plots on calendar dates
+// (on) or log time.
+func (c *Root) setPlotDates(on bool) { c.dates = on }
+
+// setPlotLevel shows the piezometers as water levels, m (on), or as pore
+// pressure.
+func (c *Root) setPlotLevel(on bool) { c.level = on }

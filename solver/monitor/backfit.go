@@ -70,10 +70,14 @@ type FitSpec struct {
 	// excess pore pressure stays and the linear settlement curve scales
 	// by S (its final value too); it is the same as scaling the predicted
 	// curve, but done in the project so that the fitted project shows it.
-	// The steady flux through the column scales with S too, and under a
-	// fixed inflow at an undrained end so does the steady head loss (by
-	// 1/S); the fit sees this, as every prediction comes from Solve. The
-	// e–log σ' settlement is not scaled.
+	// Where a layer has an e–log curve, its Cc, Cr and Ck are multiplied
+	// by S as well, so its e–log settlement scales by S and, in the
+	// non-linear model, every strain does while k(e) and cv stay; its Cα
+	// stays (one given as CalphaCc becomes the explicit Calpha), so the
+	// secondary compression is not scaled. The steady flux through the
+	// column scales with S too, and under a fixed inflow at an undrained
+	// end so does the steady head loss (by 1/S); the fit sees this, as
+	// every prediction comes from Solve.
 	Scale bool `json:"scale,omitempty"`
 	// Data selects the records; the zero value uses all of them.
 	Data FitData `json:"data,omitempty"`
@@ -93,6 +97,18 @@ type FitSpec struct {
 
 // FitResult is the outcome of BackFit.
 type FitResult struct {
+	// Model is the consolidation model of the summary
+	// (solver.Summary.Model) and Curve names the settlement the plate
+	// readings are compared with, in words: that model's settlement
+	// (solver.Series.Settlement: from mv in the linear model, the one
+	// non-linear solution in the non-linear model, with the drains
+	// wherever the project has them), plus the secondary compression
+	// (Series.Secondary) when a layer has a Cα, as a plate measures both.
+	// The linear model's headline settlement is the one from mv; its
+	// e–log σ′ estimate (Series.SettlementElog) is not a solution of the
+	// time loop and is not fitted.
+	Model string `json:"model"`
+	Curve string `json:"curve"`
 	// Params holds one entry per fitted layer, in the order of
 	// FitSpec.Layers, then the settlement scale when fitted.
 	Params []FitParam `json:"params"`
@@ -201,8 +217,11 @@ type FitRecord struct {
 //
 // The parameters are the natural logarithms of the multipliers, so the
 // multipliers stay positive; they start at 0 (the project as given). For
-// each trial the project is solved in full (Solve), the linear settlement
-// series and the pore pressure at each piezometer's depth are
+// each trial the project is solved in full (Solve), the settlement of the
+// model the summary uses (FittedSettlement: the linear or non-linear
+// solution, with the drains, plus the secondary compression when there
+// is one; FitResult.Curve names it) and the pore pressure at each
+// piezometer's depth are
 // interpolated linearly in time at the reading times, and the weighted
 // residuals r = (prediction − reading)/σ are formed, σ being the record's
 // sigma (see FitSpec). The sum ½Σr² is minimised by Gauss–Newton: the
@@ -373,7 +392,8 @@ func BackFit(p *solver.Project, spec FitSpec, opt *solver.Options) (*FitResult, 
 		return nil, atFitted(err)
 	}
 	st := f.stats(ev)
-	out := &FitResult{Readings: f.n, ResidualVariance: st.s2, Converged: st.small, Status: status}
+	out := &FitResult{Readings: f.n, ResidualVariance: st.s2, Converged: st.small, Status: status, Model: r0.Summary.Model}
+	_, out.Curve = FittedSettlement(r0)
 	out.Lag1 = f.lag1(f.residuals(ev.pred))
 	out.EffectiveReadings = float64(f.n)
 	if out.Lag1 > 0 {
@@ -562,8 +582,8 @@ func (f *fitter) collect(p *solver.Project) error {
 	return nil
 }
 
-// apply multiplies the layers' k (and, with the scale, mv) by the
-// multipliers exp(x).
+// apply multiplies the layers' k (and, with the scale, mv and the e–log
+// indices Cc, Cr, Ck) by the multipliers exp(x).
 func (f *fitter) apply(ls []solver.Layer, x []float64) {
 	for i, li := range f.spec.Layers {
 		ls[li].K *= math.Exp(x[i])
@@ -575,8 +595,17 @@ func (f *fitter) apply(ls []solver.Layer, x []float64) {
 	if f.spec.Scale {
 		s := math.Exp(x[f.np-1])
 		for i := range ls {
-			ls[i].K *= s
-			ls[i].Mv = f.mv0[i] * s
+			l := &ls[i]
+			l.K *= s
+			l.Mv = f.mv0[i] * s
+			if ec := l.ECurve; ec != nil {
+				if l.CalphaCc > 0 {
+					l.Calpha, l.CalphaCc = l.CalphaCc*ec.Cc, 0
+				}
+				c := *ec
+				c.Cc, c.Cr, c.Ck = s*ec.Cc, s*ec.Cr, s*ec.Ck
+				l.ECurve = &c
+			}
 		}
 	}
 }
@@ -697,12 +726,14 @@ func atFitted(err error) error {
 	return ps
 }
 
-// extract interpolates the series of r at the reading times.
+// extract interpolates the series of r at the reading times: the
+// settlement of FittedSettlement, and the pore pressure.
 func (f *fitter) extract(r *solver.Result) []float64 {
 	ser := &r.Consolidation.Series
 	out := make([]float64, 0, f.n)
+	total, _ := FittedSettlement(r)
 	for _, rec := range f.recs {
-		ys := ser.Settlement
+		ys := total
 		if rec.kind == kindPressure {
 			ys = ser.Piezometers[rec.pz].Pore
 		}
@@ -711,6 +742,34 @@ func (f *fitter) extract(r *solver.Result) []float64 {
 		}
 	}
 	return out
+}
+
+// FittedSettlement is the settlement history of r that BackFit compares
+// the plate readings with, at the times of r's series, and its name in
+// words (see FitResult.Curve): the series of the model the summary uses
+// (Series.Settlement, which is already the non-linear solution in the
+// non-linear model and includes the drains where there are drains) plus
+// the secondary compression when r has one. Nil without consolidation.
+func FittedSettlement(r *solver.Result) ([]float64, string) {
+	if r == nil || r.Consolidation == nil {
+		return nil, ""
+	}
+	ser := &r.Consolidation.Series
+	curve := "primary settlement from mv (linear model)"
+	if r.Summary.Model == solver.ModelNonlinear {
+		curve = "primary settlement of the non-linear model (e–log σ′ curves)"
+	}
+	if r.Drains != nil {
+		curve += ", with the drains"
+	}
+	if len(ser.Secondary) != len(ser.Settlement) {
+		return ser.Settlement, curve
+	}
+	total := make([]float64, len(ser.Settlement))
+	for i, s := range ser.Settlement {
+		total[i] = s + ser.Secondary[i]
+	}
+	return total, curve + ", plus secondary compression (Cα)"
 }
 
 // residuals returns (prediction − reading)/σ for every reading.

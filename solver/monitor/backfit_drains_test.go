@@ -41,6 +41,9 @@ func TestBackFitCh(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
+	if want := "primary settlement from mv (linear model), with the drains"; res.Model != solver.ModelLinear || res.Curve != want {
+		t.Errorf("compared with %q (model %q), want %q", res.Curve, res.Model, want)
+	}
 	fp := res.Params[0]
 	if fp.Name != "layers[0].ch" || math.Abs(fp.Multiplier-2) > 0.02 {
 		t.Errorf("fitted %s × %.4f, want × 2 ± 1 %%", fp.Name, fp.Multiplier)

@@ -42,8 +42,13 @@
 // errors from the Jacobian (Bates & Watts 1988). These assume independent
 // readings; they are widened by the effective sample size from the
 // residuals' lag-1 autocorrelation, and the 95 % ranges use Student's t
-// (FitResult.Assumption says so in words). The fit compares the linear
-// (mv) settlement curve only.
+// (FitResult.Assumption says so in words). The plates are compared with
+// the settlement of the model the summary uses (FittedSettlement: the
+// linear or the non-linear solution, with the drains where there are
+// any, plus the secondary compression when a layer has a Cα), which
+// FitResult.Model and FitResult.Curve name; the settlement scale
+// multiplies the e–log indices as well as mv, so it scales the
+// non-linear settlement too.
 //
 // The package uses only solver's exported API, so it sees the column as
 // the page and the JavaScript API do. Units: m, kPa, day, m²/day.

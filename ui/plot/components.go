@@ -37,12 +37,13 @@ type Settlement struct {
 	Project       *solver.Project
 	Result        *solver.Result
 	Fit           *solver.Result
+	Dates         bool // on calendar dates when monitoring.start is set
 	Width, Height int
 }
 
 // Figure builds the figure drawn for the current props.
 func (c *Settlement) Figure() *Figure {
-	return SettlementFitFigure(c.Project, c.Result, c.Fit, c.Width, c.Height)
+	return SettlementTimeFigure(c.Project, c.Result, c.Fit, c.Dates, c.Width, c.Height)
 }
 
 // Piezometers draws PiezometersFitFigure; Fit as for Settlement.
@@ -50,12 +51,14 @@ type Piezometers struct {
 	Project       *solver.Project
 	Result        *solver.Result
 	Fit           *solver.Result
+	Dates         bool // as for Settlement
+	Level         bool // as water levels, m (RecordAxes.Level)
 	Width, Height int
 }
 
 // Figure builds the figure drawn for the current props.
 func (c *Piezometers) Figure() *Figure {
-	return PiezometersFitFigure(c.Project, c.Result, c.Fit, c.Width, c.Height)
+	return PiezometersTimeFigure(c.Project, c.Result, c.Fit, RecordAxes{Dates: c.Dates, Level: c.Level}, c.Width, c.Height)
 }
 
 // SteadyProfiles draws SteadyFigure.

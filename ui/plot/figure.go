@@ -81,6 +81,9 @@ type Panel struct {
 	Box    Box
 	X, Y   Scale
 	Series []*Series
+	// XTicks are the ticks of the time axis where a time figure made
+	// them, for a companion panel on the same axis.
+	XTicks []Tick
 }
 
 // Figure is a complete plot reduced to drawing primitives, in drawing

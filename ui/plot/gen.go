@@ -13,7 +13,12 @@
 //
 // Conventions: depth increases downward on every depth axis and the layer
 // strip is drawn to the same scale; settlement and the degree of
-// consolidation also grow downward; time axes are logarithmic (days).
+// consolidation also grow downward; time axes are logarithmic (days),
+// except that the record plots can run on calendar dates from
+// monitoring.start (DateTicks, RecordAxes) and the differences of the
+// records against time (ResidualsFigure) are on a linear axis. The
+// settlement plot draws the surface load in a strip above it, on its own
+// time axis.
 // Colours, lightness and dash patterns are varied together so that curves
 // stay apart when printed in grey.
 //

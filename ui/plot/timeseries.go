@@ -2,8 +2,10 @@ package plot
 
 import (
 	"math"
+	"time"
 
 	"porelight/solver"
+	"porelight/solver/monitor"
 )
 
 // Time figure layout, pixels.
@@ -15,10 +17,11 @@ const (
 
 // timeFigure lays out one panel with a log time axis (days) at the bottom
 // and a linear y axis on the left over [ylo, yhi] widened to nice ticks;
-// down puts ylo at the top (values grow downward). It returns the panel
-// and its clip id.
-func (f *Figure) timeFigure(tlo, thi, ylo, yhi float64, ylabel string, down bool) (*Panel, string) {
-	box := Box{timeLeft, timeTop, f.W - legendW - 8 - timeLeft, f.H - timeBottom - timeTop}
+// down puts ylo at the top (values grow downward). top is the y of the
+// panel's top edge (timeTop, or lower below a companion panel). It
+// returns the panel and its clip id.
+func (f *Figure) timeFigure(top, tlo, thi, ylo, yhi float64, ylabel string, down bool) (*Panel, string) {
+	box := Box{timeLeft, top, f.W - legendW - 8 - timeLeft, f.H - timeBottom - top}
 	// The first steps after a load are minutes long; more than six decades
 	// before the end only flatten the interesting part.
 	tlo = math.Max(tlo, thi*1e-6)
@@ -30,6 +33,7 @@ func (f *Figure) timeFigure(tlo, thi, ylo, yhi float64, ylabel string, down bool
 	}
 	pn := &Panel{Box: box, X: Scale{Lo: tlo, Hi: thi, A: box.X, B: box.Right(), Log: true}, Y: y}
 	xt, yt := LogTicks(tlo, thi), LinearTicks(lo, hi, step)
+	pn.XTicks = xt
 	f.grid(pn, xt, true)
 	f.grid(pn, yt, false)
 	f.frame(box)
@@ -37,6 +41,73 @@ func (f *Figure) timeFigure(tlo, thi, ylo, yhi float64, ylabel string, down bool
 	f.axis(box, pn.Y, yt, sideLeft, ylabel)
 	f.Panels = append(f.Panels, pn)
 	return pn, f.clip(box)
+}
+
+// dateFigure is timeFigure with a linear time axis of calendar dates:
+// day 0 is start, the axis runs over [tlo, thi] days, ticked by
+// DateTicks.
+func (f *Figure) dateFigure(start time.Time, top, tlo, thi, ylo, yhi float64, ylabel string, down bool) (*Panel, string) {
+	box := Box{timeLeft, top, f.W - legendW - 8 - timeLeft, f.H - timeBottom - top}
+	lo, hi, step := NiceRange(ylo, yhi, int(math.Max(2, box.H/45)))
+	y := Scale{Lo: lo, Hi: hi, A: box.Bottom(), B: box.Y}
+	if down {
+		y.A, y.B = box.Y, box.Bottom()
+	}
+	pn := &Panel{Box: box, X: Scale{Lo: tlo, Hi: thi, A: box.X, B: box.Right()}, Y: y}
+	xt, yt := DateTicks(start, tlo, thi, box.W), LinearTicks(lo, hi, step)
+	pn.XTicks = xt
+	f.grid(pn, xt, true)
+	f.grid(pn, yt, false)
+	f.frame(box)
+	f.axis(box, pn.X, xt, sideBottom, "Date (day 0 = "+start.Format(solver.DateLayout)+")")
+	f.axis(box, pn.Y, yt, sideLeft, ylabel)
+	f.Panels = append(f.Panels, pn)
+	return pn, f.clip(box)
+}
+
+// recordFigure lays out the panel of a plot of records against time: on
+// calendar dates when dates is set and p's monitoring has a valid start
+// (over day 0, or the first reading if earlier, to 1.5 times the last
+// reading or 30 days, within the simulated time), else on log time over
+// the series and the readings.
+func (f *Figure) recordFigure(p *solver.Project, s *solver.Series, recs []record, dates bool, top, ylo, yhi float64, ylabel string, down bool) (*Panel, string) {
+	tlo, thi, _ := positiveTimeRange(s.Time)
+	if start, ok := MonitoringStart(p); dates && ok {
+		lo, last := 0.0, 0.0
+		for _, r := range recs {
+			for _, t := range r.ts {
+				if isFinite(t) {
+					lo, last = math.Min(lo, t), math.Max(last, t)
+				}
+			}
+		}
+		return f.dateFigure(start, top, lo, math.Min(thi, math.Max(1.5*last, 30)), ylo, yhi, ylabel, down)
+	}
+	tlo, thi = readingSpan(tlo, thi, recs)
+	return f.timeFigure(top, tlo, thi, ylo, yhi, ylabel, down)
+}
+
+// The load panel above the settlement plot, pixels: its height and the
+// gap below it.
+const (
+	loadPanelH   = 64
+	loadPanelGap = 16
+)
+
+// loadPanel draws the surface load of s (kPa) over [lo, hi] in a strip
+// above the panel main, on main's time axis (the same scale, so a time
+// is at the same x in both): its grid, frame, value axis and curve. It
+// is the figure's last panel.
+func (f *Figure) loadPanel(main *Panel, s *solver.Series, lo, hi float64) {
+	box := Box{main.Box.X, main.Box.Y - loadPanelGap - loadPanelH, main.Box.W, loadPanelH}
+	nlo, nhi, step := NiceRange(lo, hi, 2)
+	pn := &Panel{Box: box, X: main.X, Y: Scale{Lo: nlo, Hi: nhi, A: box.Bottom(), B: box.Y}}
+	f.grid(pn, main.XTicks, true)
+	f.grid(pn, LinearTicks(nlo, nhi, step), false)
+	f.frame(box)
+	f.axis(box, pn.Y, LinearTicks(nlo, nhi, step), sideLeft, "Load, kPa")
+	f.Panels = append(f.Panels, pn)
+	f.addSeries(pn, f.clip(box), "Load at the surface", Style{Stroke: inkMuted, Width: 1.5}, s.Time, s.Load, readTime("q", " kPa", 3))
 }
 
 // positiveTimeRange returns the smallest positive and the largest finite
@@ -95,7 +166,7 @@ func DegreeFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
 		return f.message("No degree of consolidation: the load history makes no net change.")
 	}
 	tlo, thi, _ := positiveTimeRange(s.Time)
-	pn, clip := f.timeFigure(tlo, thi, 0, 100, "Degree of consolidation, %", true)
+	pn, clip := f.timeFigure(timeTop, tlo, thi, 0, 100, "Degree of consolidation, %", true)
 	f.addSeries(pn, clip, "Us, settlement", styleAt(0), s.Time, scaled(s.Us, 100), readTime("Us", " %", 3))
 	f.addSeries(pn, clip, "Up, pore pressure", styleAt(1), s.Time, scaled(s.Up, 100), readTime("Up", " %", 3))
 	f.addDrainDegrees(pn, clip, s, r)
@@ -130,6 +201,13 @@ func SettlementFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
 // SettlementFitFigure is SettlementFigure plus, when fit is not nil, the
 // settlement from mv of a back-fitted project.
 func SettlementFitFigure(p *solver.Project, r, fit *solver.Result, w, h int) *Figure {
+	return SettlementTimeFigure(p, r, fit, false, w, h)
+}
+
+// SettlementTimeFigure is SettlementFitFigure on a linear axis of
+// calendar dates when dates is set and monitoring.start is a valid date
+// (see recordFigure), else on log time.
+func SettlementTimeFigure(p *solver.Project, r, fit *solver.Result, dates bool, w, h int) *Figure {
 	f := newFigure("plot-settlement", "Settlement", w, h)
 	s, msg := consolidationSeries(r)
 	if s == nil {
@@ -146,9 +224,11 @@ func SettlementFitFigure(p *solver.Project, r, fit *solver.Result, w, h int) *Fi
 	}
 	all := [][]float64{s.Settlement, s.SettlementElog, s.Secondary, total}
 	var fs *solver.Series
+	var fitted []float64 // what the back-fit compared with the readings
 	if fit != nil && fit.Consolidation != nil {
 		fs = &fit.Consolidation.Series
-		all = append(all, fs.Settlement)
+		fitted, _ = monitor.FittedSettlement(fit)
+		all = append(all, fitted)
 	}
 	for _, m := range recs {
 		all = append(all, m.vs)
@@ -157,10 +237,18 @@ func SettlementFitFigure(p *solver.Project, r, fit *solver.Result, w, h int) *Fi
 	if !ok {
 		return f.message("No settlement results in this solve.")
 	}
-	tlo, thi, _ := positiveTimeRange(s.Time)
-	tlo, thi = readingSpan(tlo, thi, recs)
 	lo, hi = padRange(math.Min(0, lo), math.Max(0, hi))
-	pn, clip := f.timeFigure(tlo, thi, lo, hi, "Settlement, m", true)
+	// The load above, on the same time axis, when it changes.
+	top := float64(timeTop)
+	loadLo, loadHi, hasLoad := finiteRange(s.Load)
+	hasLoad = hasLoad && loadHi-loadLo > 0
+	if hasLoad {
+		top += loadPanelH + loadPanelGap
+	}
+	pn, clip := f.recordFigure(p, s, recs, dates, top, lo, hi, "Settlement, m", true)
+	if hasLoad {
+		f.loadPanel(pn, s, math.Min(0, loadLo), math.Max(0, loadHi))
+	}
 	if r.Summary.Model == solver.ModelNonlinear {
 		// One solution: the series is the non-linear model's settlement.
 		f.addSeries(pn, clip, "Non-linear model", styleAt(1), s.Time, s.Settlement, readTime("s", " m", 3))
@@ -173,7 +261,14 @@ func SettlementFitFigure(p *solver.Project, r, fit *solver.Result, w, h int) *Fi
 		f.addSeries(pn, clip, "Primary + secondary", styleAt(3), s.Time, total, readTime("s", " m", 3))
 	}
 	if fs != nil {
-		f.addSeries(pn, clip, "From mv, back-fitted", styleAt(4), fs.Time, fs.Settlement, readTime("s", " m", 3))
+		name := "From mv"
+		if fit.Summary.Model == solver.ModelNonlinear {
+			name = "Non-linear model"
+		}
+		if len(fs.Secondary) == len(fs.Time) {
+			name += " + secondary"
+		}
+		f.addSeries(pn, clip, name+", back-fitted", styleAt(4), fs.Time, fitted, readTime("s", " m", 3))
 	}
 	for i, m := range recs {
 		f.addPoints(pn, clip, "plate "+m.name+", measured", markAt(i), m.ts, m.vs, readTime("measured s", " m", 3))
@@ -198,58 +293,102 @@ func PiezometersFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
 // PiezometersFitFigure is PiezometersFigure plus, when fit is not nil, the
 // pore pressure of a back-fitted project at the depths of the records.
 func PiezometersFitFigure(p *solver.Project, r, fit *solver.Result, w, h int) *Figure {
-	f := newFigure("plot-piezometers", "Piezometers: pore pressure against time", w, h)
+	return PiezometersTimeFigure(p, r, fit, RecordAxes{}, w, h)
+}
+
+// RecordAxes chooses how the plots of records against time show them.
+type RecordAxes struct {
+	// Dates puts the time axis on calendar dates when monitoring.start is
+	// a valid date (see recordFigure).
+	Dates bool
+	// Level shows the piezometers as the water level a standpipe there
+	// would show, m above the top of the column (negative below it): the
+	// total head u/γw − z, as Steady.Head, and the excess as Δu/γw.
+	Level bool
+}
+
+// PiezometersTimeFigure is PiezometersFitFigure with the axes ax.
+func PiezometersTimeFigure(p *solver.Project, r, fit *solver.Result, ax RecordAxes, w, h int) *Figure {
+	title := "Piezometers: pore pressure against time"
+	if ax.Level {
+		title = "Piezometers: water level against time"
+	}
+	f := newFigure("plot-piezometers", title, w, h)
 	s, msg := consolidationSeries(r)
 	if s == nil {
 		return f.message(msg)
 	}
+	// The pressure u at depth z as drawn: u itself, kPa, or the level
+	// u/γw − z, m; an excess as Δu or Δu/γw.
+	gw := solver.DefaultGammaW
+	if p != nil {
+		gw = solver.ResolveGammaW(p)
+	}
+	at := func(z float64, vs []float64) []float64 {
+		if !ax.Level {
+			return vs
+		}
+		out := make([]float64, len(vs))
+		for i, v := range vs {
+			out[i] = v/gw - z
+		}
+		return out
+	}
+	excess := func(vs []float64) []float64 {
+		if !ax.Level {
+			return vs
+		}
+		return scaled(vs, 1/gw)
+	}
+	name, dname, unit, ylabel := "u", "Δu", " kPa", "Pore pressure, kPa"
+	if ax.Level {
+		name, dname, unit, ylabel = "h", "Δu/γw", " m", "Water level (total head), m above the top"
+	}
 	recs := piezometerRecords(p)
 	var all [][]float64
 	for _, pz := range s.Piezometers {
-		all = append(all, pz.Pore, pz.Excess)
+		all = append(all, at(pz.Depth, pz.Pore), excess(pz.Excess))
 	}
 	var fs *solver.Series
 	if fit != nil && fit.Consolidation != nil {
 		fs = &fit.Consolidation.Series
 	}
 	for _, m := range recs {
-		all = append(all, m.vs)
+		all = append(all, at(m.depth, m.vs))
 		if fz := depthIndex(fs, m.depth); fz >= 0 {
-			all = append(all, fs.Piezometers[fz].Pore)
+			all = append(all, at(m.depth, fs.Piezometers[fz].Pore))
 		}
 	}
 	lo, hi, ok := finiteRange(all...)
 	if !ok {
 		return f.message(msgNoPiezometers)
 	}
-	tlo, thi, _ := positiveTimeRange(s.Time)
-	tlo, thi = readingSpan(tlo, thi, recs)
 	lo, hi = padRange(math.Min(0, lo), math.Max(0, hi))
-	pn, clip := f.timeFigure(tlo, thi, lo, hi, "Pore pressure, kPa", false)
+	pn, clip := f.recordFigure(p, s, recs, ax.Dates, timeTop, lo, hi, ylabel, false)
 	if lo < 0 {
 		y := pn.Y.Map(0)
 		f.path("M"+coord(pn.Box.X)+" "+coord(y)+" H"+coord(pn.Box.Right()), inkRule, "none", 1)
 	}
 	for i, pz := range s.Piezometers {
-		at := "z = " + sig(pz.Depth, 3) + " m"
+		z := "z = " + sig(pz.Depth, 3) + " m"
 		st := styleAt(i)
-		f.addSeries(pn, clip, at+", u", st, s.Time, pz.Pore, readTime("u", " kPa", 3))
+		f.addSeries(pn, clip, z+", "+name, st, s.Time, at(pz.Depth, pz.Pore), readTime(name, unit, 3))
 		ex := withDash(st, excessDash)
 		ex.Width = math.Max(1.25, st.Width-0.5)
-		f.addSeries(pn, clip, at+", Δu excess", ex, s.Time, pz.Excess, readTime("Δu", " kPa", 3))
+		f.addSeries(pn, clip, z+", "+dname+" excess", ex, s.Time, excess(pz.Excess), readTime(dname, unit, 3))
 	}
 	for j, m := range recs {
 		k := depthIndex(s, m.depth)
 		if fz := depthIndex(fs, m.depth); fz >= 0 {
 			st := withDash(styleAt(max(k, 0)), fitDash)
 			st.Width = 1.5
-			f.addSeries(pn, clip, "z = "+sig(m.depth, 3)+" m, u back-fitted", st, fs.Time, fs.Piezometers[fz].Pore, readTime("u", " kPa", 3))
+			f.addSeries(pn, clip, "z = "+sig(m.depth, 3)+" m, "+name+" back-fitted", st, fs.Time, at(m.depth, fs.Piezometers[fz].Pore), readTime(name, unit, 3))
 		}
 		mk := markAt(j)
 		if k >= 0 {
 			mk.Stroke = styleAt(k).Stroke
 		}
-		f.addPoints(pn, clip, "piezometer "+m.name+", measured", mk, m.ts, m.vs, readTime("measured u", " kPa", 3))
+		f.addPoints(pn, clip, "piezometer "+m.name+", measured", mk, m.ts, at(m.depth, m.vs), readTime("measured "+name, unit, 3))
 	}
 	f.legend(f.W-legendW+8, timeTop+8, legendW-12, int((f.H-timeTop-20)/16), f.allSeries())
 	return f
