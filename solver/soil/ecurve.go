@@ -122,7 +122,12 @@ func (s *Point) Toward(to float64) float64 {
 	if to == s.sig {
 		return 0
 	}
-	lto := s.log10Of(to)
+	return s.along(s.log10Of(to))
+}
+
+// along is the compression from the present state to the stress whose
+// base-10 logarithm is lto: Cr up to the largest past stress, Cc beyond.
+func (s *Point) along(lto float64) float64 {
 	c := s.Curve
 	switch {
 	case lto <= s.lsig:
@@ -134,26 +139,23 @@ func (s *Point) Toward(to float64) float64 {
 }
 
 // MoveTo follows the curve to effective stress to; it matches Compress
-// (tested) with the logarithms of the stresses carried along.
-func (s *Point) MoveTo(to float64) {
+// (tested) with the logarithms of the stresses carried along. It returns
+// the compression the move added, what Toward would have returned, so
+// that a caller needing both pays one logarithm.
+func (s *Point) MoveTo(to float64) float64 {
 	s.start()
 	to = max(to, MinEffective)
 	if to == s.sig {
-		return
+		return 0
 	}
 	lto := s.log10Of(to)
-	c := s.Curve
-	switch {
-	case lto <= s.lsig:
-		s.de -= c.Cr * (s.lsig - lto)
-	case lto <= s.lpeak:
-		s.de += c.Cr * (lto - s.lsig)
-	default:
-		s.de += c.Cr*(s.lpeak-s.lsig) + c.Cc*(lto-s.lpeak)
-		s.lpeak = lto
-		s.peak = to
+	de := s.along(lto)
+	s.de += de
+	if lto > s.lpeak {
+		s.lpeak, s.peak = lto, to
 	}
 	s.sig, s.lsig = to, lto
+	return de
 }
 
 // Secondary is the secondary compression of a layer of thickness h (Mesri
