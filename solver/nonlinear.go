@@ -66,11 +66,12 @@ type nonlinear struct {
 	ct      []float64 // lumped capacity: the tangent mv at the iterate (nil otherwise)
 
 	mass, cond *fem.Band
-	massT      *fem.Band // lumped: the capacity of the tangent mv (ct)
 	f          fem.Factor
 	u0, u1     []float64
 	rhs        []float64
-	au         []float64 // A(u) u of the iterate
+	au         []float64 // A(u) u of the iterate (lumped: the pivots)
+	lw         []float64 // lumped: the off-diagonal of A', then of L
+	half, invH []float64 // lumped: per element h/2 and 1/h
 	du, du2    []float64 // the change of u over the last step and the one before
 	r0         []float64 // the last iteration's update
 	lastDt     float64   // the last step's length (0: no step to extrapolate from)
@@ -119,11 +120,17 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 	nl.mass = fem.NewBand(n, m.Order)
 	if nl.lumped {
 		nl.ct = f()
-		nl.massT = fem.NewBand(n, m.Order)
 	}
 	nl.cond = fem.NewBand(n, m.Order)
 	nl.u0, nl.u1, nl.rhs, nl.du, nl.r0 = make([]float64, n), make([]float64, n), make([]float64, n), make([]float64, n), make([]float64, n)
 	nl.du2, nl.au = make([]float64, n), make([]float64, n)
+	if nl.lumped {
+		nl.lw, nl.half, nl.invH = make([]float64, n), f(), f()
+		for e := range ne {
+			h := m.Z[e+1] - m.Z[e]
+			nl.half[e], nl.invH[e] = h/2, 1/h
+		}
+	}
 	return nl
 }
 
@@ -239,11 +246,13 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 	copy(nl.u1, tr.u)
 	switch {
 	case nl.lastDt > 0 && nl.lastDt2 > 0:
+		// With rates v1 = du/h1, v2 = du2/h2 and a = (v1 − v2)/((h1+h2)/2),
+		// u += v1 dt + a dt (dt+h1)/2 = α du − β du2.
 		h1, h2 := nl.lastDt, nl.lastDt2
+		q := dt * (dt + h1) / (h1 + h2)
+		alpha, beta := (dt+q)/h1, q/h2
 		for i := tr.lo; i < tr.hi; i++ {
-			v1, v2 := nl.du[i]/h1, nl.du2[i]/h2
-			a := (v1 - v2) / ((h1 + h2) / 2)
-			nl.u1[i] += v1*dt + a*dt*(dt+h1)/2
+			nl.u1[i] += alpha*nl.du[i] - beta*nl.du2[i]
 		}
 	case nl.lastDt > 0:
 		r := dt / nl.lastDt
@@ -257,8 +266,6 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 	change, omega := math.Inf(1), 1.0
 	for it := range NonlinearMaxIterations {
 		nl.coefficients(theta, tr.sigma, nl.u1)
-		nl.m.AssembleConstant(nl.mass, nl.cm, true, nl.lumped)
-		nl.m.AssembleConstant(nl.cond, nl.cc, false, false)
 		// The update solves A' r = b(u) − A(u) u, with A(u) = M(u) + θΔt
 		// K(u) and b(u) = (M(u) − (1−θ)Δt K(u)) u⁰ + M(u) Δσ (held nodes
 		// at their values), so that its fixed point is the step's
@@ -272,26 +279,23 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 		// the factor of the step's first iterate, a chord iteration, was
 		// measured too: 10 % more iterations, which cost more than the
 		// factorisations saved.)
-		a := nl.mass
 		if nl.lumped {
-			a = nl.massT
-			nl.m.AssembleConstant(a, nl.ct, true, true)
-		}
-		if err := fem.FactorizeSum(&nl.f, a, nl.cond, theta*dt, tr.lo, tr.hi); err != nil {
-			return tr.c.numerical(err, fmt.Sprintf("the non-linear consolidation step from %.4g to %.4g days", t0, t0+dt))
-		}
-		c := (1 - theta) * dt
-		if nl.lumped {
-			fem.ThetaRHS(nl.rhs, nl.u0, ds, nl.mass.AB, nl.cond.AB, c)
-			fem.ThetaRHS(nl.au, nl.u1, nil, nl.mass.AB, nl.cond.AB, -theta*dt)
+			if err := nl.solveLumped(theta, dt, ds); err != nil {
+				return tr.c.numerical(err, fmt.Sprintf("the non-linear consolidation step from %.4g to %.4g days", t0, t0+dt))
+			}
 		} else {
-			fem.BandThetaRHS(nl.rhs, nl.u0, ds, nl.mass, nl.cond, c)
+			nl.m.AssembleConstant(nl.mass, nl.cm, true, false)
+			nl.m.AssembleConstant(nl.cond, nl.cc, false, false)
+			if err := fem.FactorizeSum(&nl.f, nl.mass, nl.cond, theta*dt, tr.lo, tr.hi); err != nil {
+				return tr.c.numerical(err, fmt.Sprintf("the non-linear consolidation step from %.4g to %.4g days", t0, t0+dt))
+			}
+			fem.BandThetaRHS(nl.rhs, nl.u0, ds, nl.mass, nl.cond, (1-theta)*dt)
 			fem.BandThetaRHS(nl.au, nl.u1, nil, nl.mass, nl.cond, -theta*dt)
+			for i := tr.lo; i < tr.hi; i++ {
+				nl.rhs[i] -= nl.au[i]
+			}
+			nl.f.Solve(nl.rhs)
 		}
-		for i := tr.lo; i < tr.hi; i++ {
-			nl.rhs[i] -= nl.au[i]
-		}
-		nl.f.Solve(nl.rhs)
 		// r = G(u) − u, the update of the iteration, relaxed by
 		// Aitken's factor (Irons & Tuck 1969; Küttler & Wall 2008):
 		// ω ← −ω (r₀·(r − r₀))/|r − r₀|², which halves the update where
@@ -302,7 +306,9 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 		num, den := 0.0, 0.0
 		for i := tr.lo; i < tr.hi; i++ {
 			r := nl.rhs[i]
-			change = max(change, math.Abs(r))
+			if a := math.Abs(r); !(a <= change) { // NaN too
+				change = a
+			}
 			if it > 0 {
 				d := r - nl.r0[i]
 				num += nl.r0[i] * d
@@ -343,6 +349,71 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 	nl.lastDt, nl.lastDt2 = dt, nl.lastDt
 	copy(tr.u, nl.u1)
 	nl.commit(t0+dt, tr.sigma, tr.u)
+	return nil
+}
+
+// solveLumped is the update of one iteration for linear elements with
+// the lumped capacity: it writes r to rhs[lo:hi] from the coefficients of
+// the iterate (cm, ct, cc), solving A' r = b(u) − A(u) u with one pass
+// that assembles the tridiagonal A' and the residual and one that
+// factorises A' = L D Lᵀ (a symmetric positive definite tridiagonal
+// matrix) and substitutes; r is zero at the held nodes, so their columns
+// drop out. It computes what AssembleConstant, FactorizeSum, ThetaRHS and
+// Factor.Solve compute on the bands, without their passes over the band
+// storage. No allocation.
+func (nl *nonlinear) solveLumped(theta, dt float64, ds []float64) error {
+	tr := nl.tr
+	c0, c1 := (1-theta)*dt, theta*dt
+	d, l, r := nl.au, nl.lw, nl.rhs // A': diagonal, then inverse pivots; off-diagonal, then L; residual
+	clear(d)
+	clear(r)
+	// Element e, nodes a = e and b = e+1: its secant capacity cm h/2 times
+	// each node's change u⁰ + Δσ − u, and its flux g (w_a − w_b) with
+	// g = cc/h and w = (1−θ)Δt u⁰ + θΔt u, which leaves a and enters b.
+	// A' takes the tangent capacity ct h/2 and θΔt g.
+	va := nl.u0[0] - nl.u1[0]
+	if ds != nil {
+		va += ds[0]
+	}
+	wa := c0*nl.u0[0] + c1*nl.u1[0]
+	for e, hh := range nl.half {
+		vb := nl.u0[e+1] - nl.u1[e+1]
+		if ds != nil {
+			vb += ds[e+1]
+		}
+		wb := c0*nl.u0[e+1] + c1*nl.u1[e+1]
+		g := nl.cc[e] * nl.invH[e]
+		f := g * (wa - wb)
+		ms := nl.cm[e] * hh
+		r[e] += ms*va - f
+		r[e+1] += ms*vb + f
+		a := nl.ct[e]*hh + c1*g
+		d[e] += a
+		d[e+1] += a
+		l[e] = -c1 * g
+		va, wa = vb, wb
+	}
+	// A' = L D Lᵀ on the free rows, L y = r, then Lᵀ x = D⁻¹ y.
+	lo, hi := tr.lo, tr.hi
+	for i := lo; i < hi; i++ {
+		piv := d[i]
+		if i > lo {
+			m := l[i-1] * d[i-1]
+			piv -= m * l[i-1]
+			r[i] -= m * r[i-1]
+			l[i-1] = m
+		}
+		if !(piv > 0 && piv <= math.MaxFloat64) { // positive and finite
+			return &fem.NotDefiniteError{Node: i, Pivot: piv}
+		}
+		d[i] = 1 / piv
+	}
+	for i := hi - 1; i >= lo; i-- {
+		r[i] *= d[i]
+		if i+1 < hi {
+			r[i] -= l[i] * r[i+1]
+		}
+	}
 	return nil
 }
 
