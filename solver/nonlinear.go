@@ -73,9 +73,11 @@ type nonlinear struct {
 	lw         []float64 // lumped: the off-diagonal of A', then of L
 	half, invH []float64 // lumped: per element h/2 and 1/h
 	du, du2    []float64 // the change of u over the last step and the one before
+	du3        []float64 // and the one before that
 	r0         []float64 // the last iteration's update
 	lastDt     float64   // the last step's length (0: no step to extrapolate from)
 	lastDt2    float64   // the one before (0: none)
+	lastDt3    float64   // and the one before that (0: none)
 
 	// Statistics.
 	iterations, steps int
@@ -123,7 +125,7 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 	}
 	nl.cond = fem.NewBand(n, m.Order)
 	nl.u0, nl.u1, nl.rhs, nl.du, nl.r0 = make([]float64, n), make([]float64, n), make([]float64, n), make([]float64, n), make([]float64, n)
-	nl.du2, nl.au = make([]float64, n), make([]float64, n)
+	nl.du2, nl.du3, nl.au = make([]float64, n), make([]float64, n), make([]float64, n)
 	if nl.lumped {
 		nl.lw, nl.half, nl.invH = make([]float64, n), f(), f()
 		for e := range ne {
@@ -240,11 +242,25 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 	// something jumped since (then u is no longer where that step ended).
 	// With two steps behind, the extrapolation is quadratic in time.
 	if nl.lastDt > 0 && !slices.Equal(tr.u, nl.u1) {
-		nl.lastDt, nl.lastDt2 = 0, 0
+		nl.lastDt, nl.lastDt2, nl.lastDt3 = 0, 0, 0
 	}
 	copy(nl.u0, tr.u)
 	copy(nl.u1, tr.u)
 	switch {
+	case nl.lastDt > 0 && nl.lastDt2 > 0 && nl.lastDt3 > 0:
+		// Cubic: Lagrange's polynomial through u at the last four step
+		// ends (τ = 0, −h1, −h1−h2, −h1−h2−h3, u relative to now 0, −du,
+		// −du−du2, −du−du2−du3), at τ = dt.
+		t1 := -nl.lastDt
+		t2 := t1 - nl.lastDt2
+		t3 := t2 - nl.lastDt3
+		l1 := (dt - 0) * (dt - t2) * (dt - t3) / ((t1 - 0) * (t1 - t2) * (t1 - t3))
+		l2 := (dt - 0) * (dt - t1) * (dt - t3) / ((t2 - 0) * (t2 - t1) * (t2 - t3))
+		l3 := (dt - 0) * (dt - t1) * (dt - t2) / ((t3 - 0) * (t3 - t1) * (t3 - t2))
+		w1, w2, w3 := -(l1 + l2 + l3), -(l2 + l3), -l3
+		for i := tr.lo; i < tr.hi; i++ {
+			nl.u1[i] += w1*nl.du[i] + w2*nl.du2[i] + w3*nl.du3[i]
+		}
 	case nl.lastDt > 0 && nl.lastDt2 > 0:
 		// With rates v1 = du/h1, v2 = du2/h2 and a = (v1 − v2)/((h1+h2)/2),
 		// u += v1 dt + a dt (dt+h1)/2 = α du − β du2.
@@ -342,11 +358,11 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 		nl.unconverged++
 		nl.worst = math.Max(nl.worst, change)
 	}
-	nl.du, nl.du2 = nl.du2, nl.du
+	nl.du, nl.du2, nl.du3 = nl.du3, nl.du, nl.du2
 	for i := range nl.du {
 		nl.du[i] = nl.u1[i] - nl.u0[i]
 	}
-	nl.lastDt, nl.lastDt2 = dt, nl.lastDt
+	nl.lastDt, nl.lastDt2, nl.lastDt3 = dt, nl.lastDt, nl.lastDt2
 	copy(tr.u, nl.u1)
 	nl.commit(t0+dt, tr.sigma, tr.u)
 	return nil
