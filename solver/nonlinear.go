@@ -64,6 +64,8 @@ type nonlinear struct {
 	floor   []float64 // curved elements: the least mv·σ', 1e-6 Cc/(ln 10 (1+e0))
 	kExp    []float64 // curved elements with Ck > 0: −ln 10/Ck
 	ct      []float64 // lumped capacity: the tangent mv at the iterate (nil otherwise)
+	tanR    []float64 // curved elements: the tangent mv·σ' below σ'p, floored (Cr)
+	tanC    []float64 // and on the virgin line (Cc)
 
 	mass, cond *fem.Band
 	f          fem.Factor
@@ -101,7 +103,7 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 	f := func() []float64 { return make([]float64, ne) }
 	nl.mv, nl.mvu, nl.sig, nl.peak, nl.strain = f(), f(), f(), f(), f()
 	nl.k0, nl.ck, nl.cm, nl.cc = f(), f(), f(), f()
-	nl.inv, nl.floor, nl.kExp = f(), f(), f()
+	nl.inv, nl.floor, nl.kExp, nl.tanR, nl.tanC = f(), f(), f(), f(), f()
 	for e := range ne {
 		l := &c.p.Layers[m.Layer[e]]
 		nl.mv[e] = mvs[m.Layer[e]]
@@ -114,6 +116,8 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 			nl.ck[e] = l.ECurve.Ck
 			nl.inv[e] = 1 / (1 + cu.E0)
 			nl.floor[e] = 1e-6 * cu.Cc / (math.Ln10 * (1 + cu.E0))
+			nl.tanR[e] = max(cu.Cr/(math.Ln10*(1+cu.E0)), nl.floor[e])
+			nl.tanC[e] = max(cu.Cc/(math.Ln10*(1+cu.E0)), nl.floor[e])
 			if nl.ck[e] > 0 {
 				nl.kExp[e] = -math.Ln10 / nl.ck[e]
 			}
@@ -198,11 +202,11 @@ func (nl *nonlinear) coefficients(theta float64, sigma, u []float64) {
 			nl.cm[e] = mvT
 			if nl.ct != nil {
 				// The tangent at the iterate, with the same floor.
-				idx, at := p.Curve.Cr, max(to, soil.MinEffective)
+				t := nl.tanR[e]
 				if to > p.Peak() {
-					idx = p.Curve.Cc
+					t = nl.tanC[e]
 				}
-				nl.ct[e] = max(idx*inv/math.Ln10, nl.floor[e]) / at
+				nl.ct[e] = t / max(to, soil.MinEffective)
 			}
 			nl.cc[e] = nl.k0[e]
 			if nl.ck[e] > 0 {
@@ -319,24 +323,34 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 		// jumps from Cr to Cc) and lengthens it where they creep.
 		last := change
 		change = 0
-		num, den := 0.0, 0.0
-		for i := tr.lo; i < tr.hi; i++ {
-			r := nl.rhs[i]
-			if a := math.Abs(r); !(a <= change) { // NaN too
-				change = a
+		if it == 0 {
+			// ω = 1: the update goes with the same pass.
+			for i := tr.lo; i < tr.hi; i++ {
+				r := nl.rhs[i]
+				if a := math.Abs(r); !(a <= change) { // NaN too
+					change = a
+				}
+				nl.r0[i] = r
+				nl.u1[i] += r
 			}
-			if it > 0 {
+		} else {
+			num, den := 0.0, 0.0
+			for i := tr.lo; i < tr.hi; i++ {
+				r := nl.rhs[i]
+				if a := math.Abs(r); !(a <= change) {
+					change = a
+				}
 				d := r - nl.r0[i]
 				num += nl.r0[i] * d
 				den += d * d
+				nl.r0[i] = r
 			}
-			nl.r0[i] = r
-		}
-		if it > 0 && den > 0 {
-			omega = min(max(-omega*num/den, 0.05), 2)
-		}
-		for i := tr.lo; i < tr.hi; i++ {
-			nl.u1[i] += omega * nl.r0[i]
+			if den > 0 {
+				omega = min(max(-omega*num/den, 0.05), 2)
+			}
+			for i := tr.lo; i < tr.hi; i++ {
+				nl.u1[i] += omega * nl.r0[i]
+			}
 		}
 		nl.iterations++
 		// Converged when the change, or the error it implies, is within
@@ -381,8 +395,7 @@ func (nl *nonlinear) solveLumped(theta, dt float64, ds []float64) error {
 	tr := nl.tr
 	c0, c1 := (1-theta)*dt, theta*dt
 	d, l, r := nl.au, nl.lw, nl.rhs // A': diagonal, then inverse pivots; off-diagonal, then L; residual
-	clear(d)
-	clear(r)
+	d[0], r[0] = 0, 0               // every later entry is first written by its element's loop
 	// Element e, nodes a = e and b = e+1: its secant capacity cm h/2 times
 	// each node's change u⁰ + Δσ − u, and its flux g (w_a − w_b) with
 	// g = cc/h and w = (1−θ)Δt u⁰ + θΔt u, which leaves a and enters b.
@@ -402,10 +415,10 @@ func (nl *nonlinear) solveLumped(theta, dt float64, ds []float64) error {
 		f := g * (wa - wb)
 		ms := nl.cm[e] * hh
 		r[e] += ms*va - f
-		r[e+1] += ms*vb + f
+		r[e+1] = ms*vb + f
 		a := nl.ct[e]*hh + c1*g
 		d[e] += a
-		d[e+1] += a
+		d[e+1] = a
 		l[e] = -c1 * g
 		va, wa = vb, wb
 	}
