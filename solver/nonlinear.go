@@ -422,20 +422,40 @@ func (nl *nonlinear) solveLumped(theta, dt float64, ds []float64) error {
 		l[e] = -c1 * g
 		va, wa = vb, wb
 	}
-	// A' = L D Lᵀ on the free rows, L y = r, then Lᵀ x = D⁻¹ y.
+	// A' = L D Lᵀ on the free rows, L y = r, then Lᵀ x = D⁻¹ y. The
+	// pivots come first, alone: each waits on the last, so they are taken
+	// as ratios of the leading principal minors, P_i = d_i P_{i−1} −
+	// l²_{i−1} P_{i−2}, pivot_i = P_i/P_{i−1} (a recurrence of products,
+	// its division off the chain), with P rescaled by 2^±500 (exactly)
+	// when it leaves [2^−500, 2^500]. The multipliers and the forward
+	// substitution, which do not feed the pivots, follow in a second pass.
 	lo, hi := tr.lo, tr.hi
+	if lo < hi {
+		pm2, pm1 := 1.0, d[lo]
+		for i := lo + 1; i < hi; i++ {
+			p := d[i]*pm1 - l[i-1]*l[i-1]*pm2
+			d[i] = p / pm1
+			pm2, pm1 = pm1, p
+			if a := math.Abs(p); a > 0x1p500 {
+				pm2, pm1 = pm2*0x1p-500, pm1*0x1p-500
+			} else if a < 0x1p-500 {
+				pm2, pm1 = pm2*0x1p500, pm1*0x1p500
+			}
+		}
+	}
+	inv := 0.0 // 1/pivot of the row before
 	for i := lo; i < hi; i++ {
 		piv := d[i]
-		if i > lo {
-			m := l[i-1] * d[i-1]
-			piv -= m * l[i-1]
-			r[i] -= m * r[i-1]
-			l[i-1] = m
-		}
 		if !(piv > 0 && piv <= math.MaxFloat64) { // positive and finite
 			return &fem.NotDefiniteError{Node: i, Pivot: piv}
 		}
-		d[i] = 1 / piv
+		if i > lo {
+			m := l[i-1] * inv
+			r[i] -= m * r[i-1]
+			l[i-1] = m
+		}
+		inv = 1 / piv
+		d[i] = inv
 	}
 	for i := hi - 1; i >= lo; i-- {
 		r[i] *= d[i]
