@@ -192,10 +192,12 @@
 //
 //	(M(u¹) + θΔt K(u¹)) u¹ = (M(u¹) − (1−θ)Δt K(u¹)) u⁰ + M(u¹) (σ¹ − σ⁰),
 //
-// (k held within MinK … MaxK, the bounds of layers[i].k), by Picard
-// iteration on the same banded assembly, each update relaxed
+// (k held within MinK … MaxK, the bounds of layers[i].k), by iteration on
+// the residual of that equation (with linear elements the matrix takes
+// the tangent mv at the iterate, Newton's method in the storage term;
+// quadratic elements keep the secant, Picard's), each update relaxed
 // by Aitken's factor (Irons & Tuck 1969), from a first iterate
-// extrapolated from the last two steps, until the largest change of
+// extrapolated from the last three steps, until the largest change of
 // excess pressure between iterates is at most NonlinearTolerance (1e-6)
 // of the project's largest stress change; a step that has not converged
 // in NonlinearMaxIterations (30) keeps its last iterate and the result

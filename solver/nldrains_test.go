@@ -292,7 +292,10 @@ func TestNonlinearDrainsStepAllocates(t *testing.T) {
 					}
 				})
 			}
-			if a, b := count(100), count(400); b > a+2 {
+			// One allocation a step would add 300; the few the series
+			// may take growing past their estimated capacity (amortised,
+			// O(log steps)) are allowed, as they vary with the run.
+			if a, b := count(100), count(400); b > a+8 {
 				t.Errorf("%g allocations for 100 steps, %g for 400: the loop allocates", a, b)
 			}
 		})

@@ -25,15 +25,18 @@ func PermeabilityAfter(k, de, ck float64) float64 {
 	if ck <= 0 {
 		return k
 	}
-	return k * exp(-math.Ln10*de/ck)
+	return k * Exp(-math.Ln10*de/ck)
 }
 
-// exp is math.Exp, by its Taylor series where |y| < 1e-2 (error below
+// Exp is math.Exp, by its Taylor series where |y| < 1e-2 (error below
 // y⁶/720 < 2e-15 relative): the time loop evaluates it for every element
 // and iteration, mostly at small arguments.
-func exp(y float64) float64 {
+func Exp(y float64) float64 {
+	if y > -1e-4 && y < 1e-4 {
+		return 1 + y*(1+y*(0.5+y*(1.0/6))) // remainder below y⁴/24 < 5e-18
+	}
 	if y > -1e-2 && y < 1e-2 {
-		return 1 + y*(1+y*(0.5+y*(1.0/6+y*(1.0/24+y/120))))
+		return 1 + y*(1+y*(0.5+y*(1.0/6+y*(1.0/24+y*(1.0/120)))))
 	}
 	return math.Exp(y)
 }
