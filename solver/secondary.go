@@ -32,7 +32,10 @@ type primaryEnds struct {
 	stride int         // keep every stride-th record (memory bound)
 	count  int
 	now    []float64 // per layer settlement now (scratch)
-	d      []float64 // nodal σ − u, for the linear stepper
+	// ew holds ∫ N_a dz of every element's local nodes (Order+1 per
+	// element), for the linear stepper: a layer's settlement is then one
+	// dot product per element instead of a quadrature.
+	ew []float64
 }
 
 // maxEndHistory bounds the numbers primaryEnds keeps; past it, it keeps
@@ -43,7 +46,7 @@ const maxEndHistory = 1_000_000
 // the number of records the loop will make.
 func (k *consolidation) prepareEnds(capacity int) {
 	p := k.c.p
-	pe := &primaryEnds{now: make([]float64, len(p.Layers)), d: make([]float64, k.c.m.Nodes())}
+	pe := &primaryEnds{now: make([]float64, len(p.Layers))}
 	for i := range p.Layers {
 		if calphaOf(&p.Layers[i]) > 0 && p.Layers[i].ECurve != nil {
 			pe.layers = append(pe.layers, i)
@@ -51,6 +54,17 @@ func (k *consolidation) prepareEnds(capacity int) {
 	}
 	if len(pe.layers) == 0 {
 		return
+	}
+	m := k.c.m
+	np := m.Order + 1
+	unit := make([]float64, m.Nodes())
+	pe.ew = make([]float64, m.Elements()*np)
+	for e := range m.Elements() {
+		for a := range np {
+			unit[e*m.Order+a] = 1
+			pe.ew[e*np+a] = m.Integrate(unit, e)
+			unit[e*m.Order+a] = 0
+		}
 	}
 	pe.stride = max(1, (len(pe.layers)*capacity+maxEndHistory-1)/maxEndHistory)
 	keep := capacity/pe.stride + 2
@@ -70,13 +84,15 @@ func (k *consolidation) layerNow(dst []float64) {
 		k.nl.layerSettlements(dst)
 		return
 	}
-	m, tr, d := k.c.m, k.tr, k.ends.d
-	for i := range d {
-		d[i] = tr.sigma[i] - tr.u[i]
-	}
+	m, tr, ew := k.c.m, k.tr, k.ends.ew
+	np := m.Order + 1
 	for e := range m.Elements() {
-		l := m.Layer[e]
-		dst[l] += tr.mv[l] * m.Integrate(d, e)
+		n0 := e * m.Order
+		v := 0.0
+		for a := range np {
+			v += ew[e*np+a] * (tr.sigma[n0+a] - tr.u[n0+a])
+		}
+		dst[m.Layer[e]] += tr.mv[m.Layer[e]] * v
 	}
 }
 
