@@ -219,9 +219,12 @@ func TestE2EReliability(t *testing.T) {
 		}
 		for i, c := range cases {
 			t.Run(c.name, func(t *testing.T) {
-				remove := onNewDocument(t, ctx, fmt.Sprintf(`if (location.protocol === "file:") {
-					try { localStorage.setItem(%q, %s); } catch (e) {}
-				}`, "porelight.autosave", strconv.Quote(c.stored)))
+				// The script corrupts the autosave of one document only:
+				// removing it can race a later navigation, and a script
+				// that lingered would corrupt the next subtest's reload.
+				remove := onNewDocument(t, ctx, fmt.Sprintf(`if (location.protocol === "file:" && !sessionStorage.getItem(%q)) {
+					try { sessionStorage.setItem(%q, "1"); localStorage.setItem(%q, %s); } catch (e) {}
+				}`, fmt.Sprintf("corrupted-%d", i), fmt.Sprintf("corrupted-%d", i), "porelight.autosave", strconv.Quote(c.stored)))
 				open(t, ctx, pageURL)
 				remove()
 				msg := lastNotice(t, ctx, "error")
@@ -436,10 +439,11 @@ func TestE2EReliability(t *testing.T) {
 				if c.path == "stepping.firstStep" {
 					typeInto(t, ctx, "stepping-growth", "1")
 				}
-				typeInto(t, ctx, id, c.text)
-				// A poll costs nothing when the page is quick; 20 s leaves
-				// room for a loaded 2-core machine re-rendering every
-				// keystroke while an intermediate value is solved.
+				// One input event: typed key by key, "0.0001" on the way
+				// to "0.00001" is a legal 130,000-element column whose
+				// solve and redraw could hold a loaded machine past the
+				// wait. A poll costs nothing when the page is quick.
+				paste(t, ctx, id, c.text)
 				got := poll[string](t, ctx, fmt.Sprintf(`document.getElementById(%q)?.textContent`, id+"-err"), 20*time.Second)
 				if got != want {
 					t.Errorf("beside #%s: %q, natively %q", id, got, want)
@@ -477,9 +481,9 @@ func TestE2EReliability(t *testing.T) {
 		}
 		throttle(6)
 		defer throttle(1)
-		// About 6 s natively, far longer in the page's worker (which the
+		// About 15 s natively (65,000 elements), far longer in the page's worker (which the
 		// throttling does not slow down).
-		typeInto(t, ctx, "mesh-maxSize", "0.0005")
+		paste(t, ctx, "mesh-maxSize", "0.0002")
 		restarts := eval[int](t, ctx, `porelightWorkers.stats().restarts`)
 		status := poll[string](t, ctx, `document.getElementById("solve-cancel") && /Solving… [1-9]/.test(document.getElementById("status").textContent) && document.getElementById("status").textContent`, 20*time.Second)
 		t.Logf("status while solving: %q", status)
