@@ -562,6 +562,20 @@ func (k *consolidation) finalNonlinear() {
 	if k.nl == nil {
 		return
 	}
+	if k.tr.sub != nil {
+		// The final state so far submerged the fill by the mv settlement;
+		// the iterated laws settle by their own amount, so the fill below
+		// the water table, the final stress and the settlement are solved
+		// again together with them.
+		_, hs := k.tr.settleFinal(k.sigInf, k.uInf, func() float64 {
+			sum := 0.0
+			for _, v := range k.nl.projected(k.sigInf, k.uInf) {
+				sum += v
+			}
+			return sum
+		})
+		k.r.Summary.Submerged = ptr(hs)
+	}
 	k.nlFinal = k.nl.projected(k.sigInf, k.uInf)
 	den := 0.0
 	for _, s := range k.nlFinal {

@@ -290,11 +290,13 @@
 //
 // Fill that comes to lie below the water table as the ground settles
 // loses weight (submergence): a submerged metre weighs γsat − γw instead
-// of γ. The time loop takes the submerged thickness from the linear
-// settlement of the previous step; the final state solves
+// of γ. The time loop takes the submerged thickness from the settlement
+// of the previous step (of the model in use); the final state solves
 // s∞ = ∫ mv (σ∞(s∞) − u∞) dz exactly, so the linear final settlement and
 // Us are self-consistent (for one layer, fully submerged as it settles,
-// s = mv H q/(1 + mv H γw)). The water table stays at its initial level;
+// s = mv H q/(1 + mv H γw)); on the non-linear model it solves s∞ = the
+// iterated laws' settlement under σ∞(s∞) in the same way, so the
+// headline, the series' end and Summary.Submerged agree. The water table stays at its initial level;
 // only fill below it is counted, not soil above it that settles into it.
 // Result.Consolidation.Stages gives every stage's q and I(z);
 // Summary.Submerged the final submerged thickness. Every stage's area

@@ -253,29 +253,23 @@ func (sb *submergence) lost(loads []Load, t float64, left bool, s float64) float
 
 // settleFinal solves the final state with submergence: the settlement s∞
 // for which the final stress change, reduced by the fill submerged at s∞,
-// gives back s∞ = ∫ mv (σ∞ − u∞) dz. It rewrites sigInf and returns s∞
-// and the submerged thickness. mv must be set (setMv). Without fill it
-// returns zeros and leaves sigInf alone.
-func (tr *transient) settleFinal(sigInf, uInf []float64) (s, hs float64) {
+// gives back s∞ = settle(), the settlement of the soil model in use under
+// sigInf (∫ mv (σ∞ − u∞) dz for the linear model, mvSettlement). It
+// rewrites sigInf and returns s∞ and the submerged thickness. Without
+// fill it returns zeros and leaves sigInf alone.
+func (tr *transient) settleFinal(sigInf, uInf []float64, settle func() float64) (s, hs float64) {
 	sb := tr.sub
 	if sb == nil {
 		return 0, 0
 	}
-	p, m := tr.c.p, tr.c.m
 	inf := math.Inf(1)
 	g := func(s float64) float64 {
 		tr.stressWith(sigInf, inf, false, s)
-		sum := 0.0
-		for i := range tr.tmp {
-			tr.tmp[i] = sigInf[i] - uInf[i]
-		}
-		for e := range m.Elements() {
-			sum += tr.mv[m.Layer[e]] * m.Integrate(tr.tmp, e)
-		}
-		return sum
+		return settle()
 	}
-	// g does not increase with s and is constant for s ≤ zw, so
-	// s − g(s) increases: bisect between zw and g(zw).
+	// g does not increase with s (more fill submerged, less load) and is
+	// constant for s ≤ zw, so s − g(s) increases: bisect between zw and
+	// g(zw).
 	g0 := g(math.Min(sb.zw, 0))
 	if g0 <= sb.zw {
 		s = g0
@@ -295,7 +289,21 @@ func (tr *transient) settleFinal(sigInf, uInf []float64) (s, hs float64) {
 		s = (lo + hi) / 2
 	}
 	tr.stressWith(sigInf, inf, false, s)
-	return s, sb.submerged(p.Loads, inf, false, s)
+	return s, sb.submerged(tr.c.p.Loads, inf, false, s)
+}
+
+// mvSettlement is ∫ mv (σ∞ − u∞) dz, m: the linear model's final
+// settlement under sigInf. mv must be set (setMv).
+func (tr *transient) mvSettlement(sigInf, uInf []float64) float64 {
+	m := tr.c.m
+	for i := range tr.tmp {
+		tr.tmp[i] = sigInf[i] - uInf[i]
+	}
+	sum := 0.0
+	for e := range m.Elements() {
+		sum += tr.mv[m.Layer[e]] * m.Integrate(tr.tmp, e)
+	}
+	return sum
 }
 
 // stageFactors is Δσ/q of every load stage at the nodes, computed once
@@ -371,7 +379,7 @@ func (k *consolidation) submerge() {
 	if k.tr.sub == nil {
 		return
 	}
-	_, hs := k.tr.settleFinal(k.sigInf, k.uInf)
+	_, hs := k.tr.settleFinal(k.sigInf, k.uInf, func() float64 { return k.tr.mvSettlement(k.sigInf, k.uInf) })
 	k.r.Summary.Submerged = ptr(hs)
 }
 
