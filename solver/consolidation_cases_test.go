@@ -16,7 +16,7 @@ type consolidationCase struct {
 	Working string          `json:"working"`
 	Project json.RawMessage `json:"project"`
 	Expect  []struct {
-		Quantity string  `json:"quantity"` // t50, t90, tTarget, settlementLinear, settlementElog, us, up, uv, uh (drains), layers[i].settlementLinear|settlementElog
+		Quantity string  `json:"quantity"` // t50, t90, tTarget, settlement (the headline model's), settlementLinear, settlementElog, us, up, uv, uh (drains), layers[i].settlementLinear|settlementElog
 		T        float64 `json:"t"`        // for series quantities, days
 		Value    float64 `json:"value"`
 		Tol      float64 `json:"tol"`
@@ -93,6 +93,8 @@ func quantity(r *Result, name string, t float64) (float64, error) {
 		return deref(sm.SettlementLinear)
 	case "settlementElog":
 		return deref(sm.SettlementElog)
+	case "settlement":
+		return deref(sm.Settlement)
 	case "us", "up":
 		if r.Consolidation == nil {
 			return 0, fmt.Errorf("no consolidation results")
