@@ -128,7 +128,7 @@ func TestReadBrowser(t *testing.T) {
 		return p
 	}
 	good := write("good.json", `{"firstPlotMs": 900, "editToPlotMs": 212.5, "editToPlotNoDebounceMs": 12.5,
-		"heapBeforeBytes": 4e6, "heapAfterBytes": 6e6, "solves": 1000, "machine": "test", "later": true}`)
+		"editToPlotNonlinearNoDebounceMs": 61, "heapBeforeBytes": 4e6, "heapAfterBytes": 6e6, "solves": 1000, "machine": "test", "later": true}`)
 	b, err := readBrowser(good)
 	if err != nil || *b.Solves != 1000 || *b.EditToPlotNoDebounceMs != 12.5 {
 		t.Fatalf("readBrowser(good) = %+v, %v", b, err)
@@ -139,8 +139,8 @@ func TestReadBrowser(t *testing.T) {
 		verdicts = append(verdicts, row[len(row)-1])
 	}
 	// 900 ms ≤ 1.5 s; 212.5 ms includes the typing pause (report only);
-	// 12.5 ms ≤ 50 ms; 2 MB < 5 MB.
-	if want := []string{"yes", "—", "yes", "yes"}; !slices.Equal(verdicts, want) {
+	// 12.5 ms ≤ 50 ms; 61 ms on the non-linear model > 50 ms; 2 MB < 5 MB.
+	if want := []string{"yes", "—", "yes", "no", "yes"}; !slices.Equal(verdicts, want) {
 		t.Errorf("verdicts %q, want %q", verdicts, want)
 	}
 	missing := write("missing.json", `{"firstPlotMs": 900, "editToPlotMs": 12, "heapBeforeBytes": 1, "heapAfterBytes": 2}`)

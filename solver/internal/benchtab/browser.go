@@ -17,10 +17,11 @@ type browserFigures struct {
 	HeapAfterBytes  *float64 `json:"heapAfterBytes"`  // and after them
 	Solves          *int     `json:"solves"`
 
-	EditToPlotNoDebounceMs *float64 `json:"editToPlotNoDebounceMs"` // the same from the end of the page's pause before a solve
-	JSHeapBeforeBytes      *float64 `json:"jsHeapBeforeBytes"`      // JavaScript heap; 0 when unavailable
-	JSHeapAfterBytes       *float64 `json:"jsHeapAfterBytes"`
-	Machine                string   `json:"machine"`
+	EditToPlotNoDebounceMs          *float64 `json:"editToPlotNoDebounceMs"`          // the same from the end of the page's pause before a solve
+	EditToPlotNonlinearNoDebounceMs *float64 `json:"editToPlotNonlinearNoDebounceMs"` // the same on the non-linear model
+	JSHeapBeforeBytes               *float64 `json:"jsHeapBeforeBytes"`               // JavaScript heap; 0 when unavailable
+	JSHeapAfterBytes                *float64 `json:"jsHeapAfterBytes"`
+	Machine                         string   `json:"machine"`
 }
 
 // Goals of section 5.
