@@ -23,6 +23,13 @@ type helperPatch struct {
 }
 
 var helperPatches = []helperPatch{
+	// Every name and value arrives through readString, a few thousand
+	// each render, most of them short ASCII (attribute names, ids,
+	// classes, numbers): a TextDecoder call costs more than building
+	// such a string by hand. Longer or non-ASCII strings still go
+	// through the decoder.
+	{"string reader", `readString(){var e=this.dataView.getUint32(this.offset),t=x.decode(new DataView(this.dataView.buffer,this.dataView.byteOffset+this.offset+4,e));return this.offset+=e+4,t}`,
+		`readString(){var e=this.dataView.getUint32(this.offset),o=this.offset+4,t=null;if(e<=48){let s="";for(let i=0;i<e;i++){let c=this.dataView.getUint8(o+i);if(c>127){s=null;break}s+=String.fromCharCode(c)}t=s}if(t===null)t=x.decode(new DataView(this.dataView.buffer,this.dataView.byteOffset+o,e));return this.offset+=e+4,t}`, 1},
 	{"attribute", `e.setAttribute(t,n),x.elAttrNames[t]=!0`,
 		`e.getAttribute(t)!==n&&e.setAttribute(t,n),x.elAttrNames[t]=!0`, 1},
 	{"attribute in a namespace", `t.setAttributeNS(e,n,s),x.elAttrNames[n]=!0`,
