@@ -42,6 +42,10 @@ type browserBench struct {
 	Solves                          int     `json:"solves"`
 	JSHeapBeforeBytes               float64 `json:"jsHeapBeforeBytes"` // performance.memory.usedJSHeapSize after a collection; 0 when unavailable
 	JSHeapAfterBytes                float64 `json:"jsHeapAfterBytes"`
+	KeystrokeMs                     float64 `json:"keystrokeMs"`    // keystroke's input event → next frame painted, median over the keystrokes typed into a layer's k and the title
+	KeystrokeMaxMs                  float64 `json:"keystrokeMaxMs"` // and the slowest of them
+	Paste500Ms                      float64 `json:"paste500Ms"`     // 500 readings pasted into a plate's box (one input event, as from the clipboard) → painted, plus "Use" → painted, median
+	Insert500Ms                     float64 `json:"insert500Ms"`    // the same text inserted by the DevTools protocol (one input event per line and line break), median
 	Machine                         string  `json:"machine"`
 }
 
@@ -164,6 +168,10 @@ func TestBrowserBench(t *testing.T) {
 		poll[bool](t, ctx, `document.getElementById("status").textContent.includes("up to date")`, 60*time.Second)
 	})
 
+	t.Run("typing", func(t *testing.T) {
+		b.KeystrokeMs, b.KeystrokeMaxMs = benchTyping(t, ctx)
+	})
+
 	t.Run("1000 solves", func(t *testing.T) {
 		type heap struct {
 			Wasm float64 `json:"wasm"`
@@ -197,6 +205,10 @@ func TestBrowserBench(t *testing.T) {
 		b.JSHeapBeforeBytes, b.JSHeapAfterBytes = before.JS, after.JS
 		t.Logf("porelight.solve(demo) ×%d: median %.1f ms; wasm memory %.2f → %.2f MB; JS heap %.2f → %.2f MB",
 			len(times), median(times), before.Wasm/1e6, after.Wasm/1e6, before.JS/1e6, after.JS/1e6)
+	})
+
+	t.Run("paste 500 readings", func(t *testing.T) {
+		b.Paste500Ms, b.Insert500Ms = benchPaste(t, ctx)
 	})
 
 	b.Machine = machine(product)
@@ -312,4 +324,131 @@ func machine(product string) string {
 	}
 	return fmt.Sprintf("%s, %d cores, %s/%s, %s headless, %s, %s, %s", cpu, runtime.NumCPU(), runtime.GOOS, runtime.GOARCH,
 		strings.Replace(product, "/", " ", 1), runtime.Version(), load, time.Now().UTC().Format("2006-01-02 15:04 UTC"))
+}
+
+// paintProbe notes, for every input event and click, the time from the
+// event (its timeStamp) to the next frame painted after the page's
+// render. The page renders in a task of its own queued while its handler
+// runs (wasm/coalesce.go); this listener, on the document, runs after
+// that handler, so its zero-delay timeout fires after the render. A
+// requestAnimationFrame callback then runs just before the next frame's
+// style, layout and paint, and a message posted from it arrives once
+// they are done.
+const paintProbe = `(() => {
+	if (window.__paint) return;
+	const P = window.__paint = [];
+	const ch = new MessageChannel();
+	let pending = [];
+	ch.port1.onmessage = () => { const now = performance.now(); for (const r of pending) r.painted = now - r.at; pending = []; };
+	const note = e => {
+		const r = {kind: e.type, at: e.timeStamp, painted: 0};
+		P.push(r);
+		setTimeout(() => requestAnimationFrame(() => { pending.push(r); ch.port2.postMessage(0); }), 0);
+	};
+	document.addEventListener("input", note);
+	document.addEventListener("click", note);
+})()`
+
+// painted waits for the paint after the last of n events noted by
+// paintProbe and returns the times of the last n.
+func painted(t *testing.T, ctx context.Context, n int) []float64 {
+	t.Helper()
+	return poll[[]float64](t, ctx, fmt.Sprintf(`(() => {
+		const P = window.__paint.slice(-%d);
+		return P.length === %[1]d && P.every(r => r.painted > 0) && P.map(r => r.painted);
+	})()`, n), 30*time.Second)
+}
+
+// benchTyping types into a number field (layer 2's k) and a text field
+// (the title) key by key, about eight keys a second, as a person types,
+// and returns the median and the largest time from a keystroke's input
+// event to the next frame painted.
+func benchTyping(t *testing.T, ctx context.Context) (medianMs, maxMs float64) {
+	eval[chromedp.Void](t, ctx, paintProbe)
+	var all []float64
+	for round := range 3 {
+		for _, f := range []struct{ id, text string }{
+			{"layers-1-k", fmt.Sprintf("2.%de-9", round+1)},
+			{"title", fmt.Sprintf(" rev %c", 'A'+round)},
+		} {
+			within(t, ctx, 10*time.Second, chromedp.Focus(chromedp.ID(f.id)))
+			if f.id != "title" {
+				eval[chromedp.Void](t, ctx, fmt.Sprintf(`document.getElementById(%q).select()`, f.id))
+			}
+			for _, r := range f.text {
+				within(t, ctx, 10*time.Second, chromedp.KeyEvent(string(r)))
+				time.Sleep(125 * time.Millisecond)
+			}
+			ms := painted(t, ctx, len(f.text))
+			if round > 0 { // the first round warms up
+				all = append(all, ms...)
+			}
+		}
+		// let the solve of the last value finish before the next round
+		poll[bool](t, ctx, `document.getElementById("status").textContent.includes("up to date")`, 30*time.Second)
+	}
+	t.Logf("%d keystrokes: input event → next frame painted median %.1f ms (min %.1f, max %.1f)",
+		len(all), median(all), slices.Min(all), slices.Max(all))
+	return median(all), slices.Max(all)
+}
+
+// benchPaste pastes 500 readings into the first settlement plate's
+// paste box and uses them, four times (the first warms up), and returns
+// the medians of (paste → painted) + ("Use" → painted), for a paste as
+// the browser makes it from the clipboard (the whole text in one input
+// event) and for the same text inserted by the DevTools protocol, which
+// the browser delivers as one input event per line and per line break.
+func benchPaste(t *testing.T, ctx context.Context) (pasteMs, insertMs float64) {
+	eval[chromedp.Void](t, ctx, paintProbe)
+	const id = "monitoring-plates-0"
+	if !eval[bool](t, ctx, `!!document.getElementById("records-body")`) {
+		within(t, ctx, 10*time.Second, chromedp.Click(chromedp.ID("records-toggle")))
+	}
+	if !eval[bool](t, ctx, `!!document.getElementById("`+id+`-paste")`) {
+		within(t, ctx, 10*time.Second, chromedp.Click(chromedp.ID(id+"-toggle")))
+	}
+	poll[bool](t, ctx, `!!document.getElementById("`+id+`-paste")`, 10*time.Second)
+	var pastes, inserts []float64
+	for round := range 8 {
+		var sb strings.Builder
+		for i := range 500 {
+			fmt.Fprintf(&sb, "%d\t%.1f\n", 2*i, 300*(1-1/(1+float64(i)/(60+float64(round)))))
+		}
+		insert := round%2 == 1
+		n0 := eval[int](t, ctx, `window.__paint.length`)
+		if insert {
+			paste(t, ctx, id+"-paste", sb.String())
+		} else {
+			eval[chromedp.Void](t, ctx, fmt.Sprintf(`(() => {
+				const e = document.getElementById(%q);
+				e.focus();
+				e.value = %q;
+				e.dispatchEvent(new InputEvent("input", {bubbles: true, inputType: "insertFromPaste"}));
+			})()`, id+"-paste", sb.String()))
+		}
+		painted(t, ctx, 1)
+		// from the first input event to the paint after the last
+		p := eval[float64](t, ctx, fmt.Sprintf(`(() => { const P = window.__paint, l = P[P.length-1]; return l.at + l.painted - P[%d].at; })()`, n0))
+		within(t, ctx, 10*time.Second, chromedp.Click(chromedp.ID(id+"-paste-use")))
+		u := painted(t, ctx, 1)[0]
+		if n := eval[string](t, ctx, `document.getElementById("`+id+`-span").textContent`); !strings.HasPrefix(n, "500 readings") {
+			t.Fatalf("after Use the plate says %q, not 500 readings", n)
+		}
+		how := "pasted"
+		if insert {
+			how = "inserted"
+		}
+		t.Logf("round %d, %s: → painted %.0f ms, Use → painted %.0f ms", round+1, how, p, u)
+		switch {
+		case round < 2: // warm-up
+		case insert:
+			inserts = append(inserts, p+u)
+		default:
+			pastes = append(pastes, p+u)
+		}
+		poll[bool](t, ctx, `document.getElementById("status").textContent.includes("up to date")`, 30*time.Second)
+	}
+	t.Logf("500 readings pasted and used: median %.0f ms (min %.0f, max %.0f); inserted as text and used: median %.0f ms (min %.0f, max %.0f)",
+		median(pastes), slices.Min(pastes), slices.Max(pastes), median(inserts), slices.Min(inserts), slices.Max(inserts))
+	return median(pastes), median(inserts)
 }

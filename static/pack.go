@@ -179,8 +179,17 @@ func wrap(s string, n int) string {
 
 // HelperScript reads the renderer's helper script, the string constant
 // jsHelperScript in domrender/renderer-js-script.go of the vugu module at
-// vuguDir.
+// vuguDir, and patches it to write only what changed (helper.go).
 func HelperScript(vuguDir string) (string, error) {
+	s, err := helperSource(vuguDir)
+	if err != nil {
+		return "", err
+	}
+	return patchHelper(s)
+}
+
+// helperSource is the helper script as vugu has it.
+func helperSource(vuguDir string) (string, error) {
 	file := filepath.Join(vuguDir, "domrender", "renderer-js-script.go")
 	f, err := parser.ParseFile(token.NewFileSet(), file, nil, 0)
 	if err != nil {

@@ -6,9 +6,13 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"io/fs"
 	"math/rand"
+	"os"
 	"os/exec"
+	"path/filepath"
 	"regexp"
+	"slices"
 	"strconv"
 	"strings"
 	"testing"
@@ -358,5 +362,62 @@ console.log(mem.buffer.byteLength / 65536, over);`
 	}
 	if got := strings.TrimSpace(string(out)); got != "4 RangeError" {
 		t.Errorf("node says %q, want 4 pages and a RangeError past the cap", got)
+	}
+}
+
+// TestPatchHelper: every patch finds its place in the helper of the vugu
+// in use once (twice for text and comments), and a helper without one is
+// refused rather than shipped unpatched.
+func TestPatchHelper(t *testing.T) {
+	out, err := exec.Command("go", "list", "-m", "-f", "{{.Dir}}", "github.com/vugu/vugu").Output()
+	if err != nil {
+		t.Skipf("go list: %v", err)
+	}
+	raw, err := helperSource(strings.TrimSpace(string(out)))
+	if err != nil {
+		t.Fatal(err)
+	}
+	s, err := patchHelper(raw)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, p := range helperPatches {
+		if got := strings.Count(s, p.new); got != p.n {
+			t.Errorf("%s: the patched helper has the new code %d times, want %d", p.what, got, p.n)
+		}
+		if _, err := patchHelper(strings.Replace(raw, p.old, "", 1)); err == nil {
+			t.Errorf("%s: a helper without the place to patch is accepted", p.what)
+		}
+	}
+}
+
+// TestTargetProps: every property of an event's target that the page's
+// Go code reads is among those the patched helper sends.
+func TestTargetProps(t *testing.T) {
+	re := regexp.MustCompile(`Prop[A-Za-z0-9]*\("target",\s*"([^"]+)"`)
+	n := 0
+	for _, dir := range []string{"../ui", "../wasm"} {
+		err := filepath.WalkDir(dir, func(path string, d fs.DirEntry, err error) error {
+			if err != nil || d.IsDir() || !strings.HasSuffix(path, ".go") {
+				return err
+			}
+			src, err := os.ReadFile(path)
+			if err != nil {
+				return err
+			}
+			for _, m := range re.FindAllStringSubmatch(string(src), -1) {
+				n++
+				if !slices.Contains(TargetProps, m[1]) {
+					t.Errorf("%s reads the event target's %q, which the helper does not send (TargetProps)", path, m[1])
+				}
+			}
+			return nil
+		})
+		if err != nil {
+			t.Fatal(err)
+		}
+	}
+	if n == 0 {
+		t.Error("found no reads of an event target's properties: the pattern is out of date")
 	}
 }

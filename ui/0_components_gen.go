@@ -1320,6 +1320,7 @@ func (c *Comparison) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
 				vgparent.AppendChild(vgn)
 				vgn.AddAttrInterface("class", "pl-field"+badClass(c.fromProblem()))
+				vgn.AddAttrInterface("data-used", usedIf(c.fromText() == "", c.fromHint()))
 				{
 					vgparent := vgn
 					_ = vgparent
@@ -1359,6 +1360,7 @@ func (c *Comparison) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
 				vgparent.AppendChild(vgn)
 				vgn.AddAttrInterface("class", "pl-field"+badClass(c.toProblem()))
+				vgn.AddAttrInterface("data-used", usedIf(c.toText() == "", "last reading"))
 				{
 					vgparent := vgn
 					_ = vgparent
@@ -2501,6 +2503,7 @@ func (c *Field) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 	vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
 	vgout.Out = append(vgout.Out, vgn) // root for output
 	vgn.AddAttrInterface("class", c.class())
+	vgn.AddAttrInterface("data-used", c.used())
 	{
 		vgparent := vgn
 		_ = vgparent
@@ -6016,9 +6019,11 @@ func (c *Plots) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 		}
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
-		for vgiterkeyt, k := range plotKinds {
-			var vgiterkey interface{} = vgiterkeyt
+		for i, k := range plotKinds {
+			var vgiterkey interface{} = i
 			_ = vgiterkey
+			i := i
+			_ = i
 			k := k
 			_ = k
 			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "figure", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-figure"}}}
@@ -6029,7 +6034,7 @@ func (c *Plots) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 				_ = vgparent
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "figcaption", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-figtools pl-noprint"}}}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-figtools pl-noprint"}, vugu.VGAttribute{Namespace: "", Key: "role", Val: "group"}}}
 				vgparent.AppendChild(vgn)
 				vgn.AddAttrInterface("aria-label", k.Title)
 				{
@@ -6199,6 +6204,11 @@ func (c *Plots) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 				}
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "figcaption", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-printonly pl-caption"}}}
+				vgparent.AppendChild(vgn)
+				vgn.SetInnerHTML("Figure " + itoa(i+1) + ". " + k.Title + ".")
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
 			}
 		}
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
@@ -6226,6 +6236,13 @@ func (c *Root) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 	{
 		vgparent := vgn
 		_ = vgparent
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+		if c.form != nil {
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "style", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "print-margins"}}}
+			vgparent.AppendChild(vgn)
+			vgn.SetInnerHTML(c.printStyle())
+		}
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "header", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-head"}}}

@@ -57,6 +57,16 @@ func (c *Field) placeholder() any {
 	return nil
 }
 
+// used is what an empty input stands for, printed in its place (the
+// data-used attribute, shown by the print style sheet); nil when the
+// input holds a value.
+func (c *Field) used() any {
+	if s := c.F.Used(c.Path); s != "" {
+		return s
+	}
+	return nil
+}
+
 func (c *Field) ariaLabel() string {
 	if c.Unit == "" || c.Unit == "–" {
 		return c.Label

@@ -76,7 +76,12 @@ func (c *Root) print() {
 		return
 	}
 	go func() {
-		c.host().Yield() // the render after the click runs before this returns
+		// The page renders in a task of its own after the click
+		// (wasm/coalesce.go), queued in the same turn as this goroutine's
+		// first yield, perhaps after it: the second yield returns after
+		// that render.
+		c.host().Yield()
+		c.host().Yield()
 		c.host().Print() // returns when the dialogue closes
 		c.Env.Lock()
 		c.printing = false

@@ -28,8 +28,15 @@ func (c *Layers) remove(i int)  { c.F.RemoveLayer(i); c.Changed() }
 func (c *Layers) move(i, d int) { c.F.MoveLayer(i, d); c.Changed() }
 
 // cv is the coefficient of consolidation (soil.Cv) of layer i in m²/day,
-// from the draft when mv is given, else from the last results.
+// from the draft when mv is given, else from the last results. It is
+// shown only from valid inputs: while k, mv, γw or the layer's e–log
+// parameters need attention, the draft may still hold an older value, and
+// a figure beside the faulty input would be stale.
 func (c *Layers) cv(i int) string {
+	if c.F.Problem(lp(i, "k")) != "" || c.F.Problem(lp(i, "mv")) != "" || c.F.Problem("gammaW") != "" ||
+		len(c.F.ProblemsUnder(lp(i, "ecurve"))) > 0 {
+		return "–"
+	}
 	p := c.F.Draft()
 	l := p.Layers[i]
 	gw := solver.ResolveGammaW(p)

@@ -226,15 +226,18 @@ func (c *Root) applyFit() {
 		return
 	}
 	s.before = slices.Clone(d.Layers)
+	// The fitted values go in to fitFigures significant figures: their
+	// ranges are far wider than the last of them.
+	fitted := func(v float64) string { return form.FormatSig(v, fitFigures) }
 	for i, l := range s.res.Project.Layers {
 		if l.K != d.Layers[i].K {
-			c.form.Edit(lp(i, "k"), form.FormatNumber(l.K))
+			c.form.Edit(lp(i, "k"), fitted(l.K))
 		}
 		if l.Mv != d.Layers[i].Mv {
-			c.form.Edit(lp(i, "mv"), form.FormatNumber(l.Mv))
+			c.form.Edit(lp(i, "mv"), fitted(l.Mv))
 		}
 		if l.Ch != d.Layers[i].Ch || l.KhKv != d.Layers[i].KhKv {
-			setLayerCh(c.form, i, l)
+			setLayerCh(c.form, i, l, fitted)
 		}
 	}
 	s.applied = true
@@ -265,7 +268,7 @@ func (c *Root) revertFit() {
 			c.form.Edit(lp(i, "mv"), text)
 		}
 		if l.Ch != d.Layers[i].Ch || l.KhKv != d.Layers[i].KhKv {
-			setLayerCh(c.form, i, l)
+			setLayerCh(c.form, i, l, form.FormatNumber)
 		}
 	}
 	s.applied, s.before = false, nil
@@ -273,14 +276,18 @@ func (c *Root) revertFit() {
 	c.edited()
 }
 
+// fitFigures is the number of significant figures of a fitted value
+// applied to the project.
+const fitFigures = 3
+
 // setLayerCh types layer l's ch (m²/year on the page) and kh/kv into row
-// i, empty where zero.
-func setLayerCh(f *form.Form, i int, l solver.Layer) {
+// i, written by format, empty where zero.
+func setLayerCh(f *form.Form, i int, l solver.Layer, format func(float64) string) {
 	text := func(v, scale float64) string {
 		if v == 0 {
 			return ""
 		}
-		return form.FormatNumber(v * scale)
+		return format(v * scale)
 	}
 	f.Edit(lp(i, "khKv"), text(l.KhKv, 1))
 	f.Edit(lp(i, "ch"), text(l.Ch, solver.DaysPerYear))

@@ -336,8 +336,13 @@ func TestFitApplyRevert(t *testing.T) {
 	k0 := p.root.Form().Draft().Layers[0].K
 	p.fire("fit-apply", "click", nil)
 	k1 := p.root.Form().Draft().Layers[0].K
-	if math.Abs(k1/k0-res.Params[0].Multiplier) > 1e-9 {
+	// Applied to 3 significant figures: within half a unit of the third
+	// (5e-3 relative), and typed so.
+	if math.Abs(k1/(k0*res.Params[0].Multiplier)-1) > 5e-3 {
 		t.Errorf("applied k %g, want %g × %g", k1, k0, res.Params[0].Multiplier)
+	}
+	if s := p.root.Form().Text(lp(0, "k")); len(strings.TrimLeft(strings.Split(strings.ReplaceAll(s, ".", ""), "e")[0], "0")) > 3 {
+		t.Errorf("the applied k reads %q: more than 3 significant figures", s)
 	}
 	if p.root.resultFor.Layers[0].K != k1 {
 		t.Error("the project was not solved again with the fitted k")

@@ -66,6 +66,7 @@ type Root struct {
 	printing  bool         // Print report is under way: every fold is open
 	dates     bool         // the record plots run on calendar dates
 	level     bool         // the piezometer plot shows water levels
+	rev       printRev     // the revision printed in the header (print.go)
 }
 
 type notice struct {

@@ -63,7 +63,14 @@ func run(demo []byte) {
 	root := &ui.Root{Host: h, Env: ee, Version: version}
 	root.Start(src)
 	first := true
+	drain := drainer(renderer)
 	for ok := true; ok; ok = renderer.EventWait() {
+		if !first {
+			settle() // coalesce.go
+			if drain != nil && !drain() {
+				break
+			}
+		}
 		ee.RLock()
 		br := env.RunBuild(root)
 		ee.RUnlock()

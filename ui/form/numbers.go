@@ -45,6 +45,21 @@ func parseList(s string) ([]float64, string) {
 	return xs, ""
 }
 
+// FormatSig writes x rounded to n significant figures, as FormatNumber
+// writes: for values the page computes and types into a field (a
+// back-fitted k), whose further digits only look precise.
+// FormatSig(1.54762679591e-9, 3) is "1.55e-9".
+func FormatSig(x float64, n int) string {
+	if x == 0 || math.IsNaN(x) || math.IsInf(x, 0) || n < 1 {
+		return FormatNumber(x)
+	}
+	r, err := strconv.ParseFloat(strconv.FormatFloat(x, 'e', n-1, 64), 64)
+	if err != nil {
+		return FormatNumber(x)
+	}
+	return FormatNumber(r)
+}
+
 // FormatNumber writes x briefly and exactly enough to read back the same:
 // 1.5e-09 → "1.5e-9", 0.30000000000000004 → "0.3".
 func FormatNumber(x float64) string {

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"reflect"
 	"strings"
+	"sync"
 
 	"porelight/solver"
 )
@@ -78,7 +79,20 @@ func deref(v reflect.Value, alloc bool) (_ reflect.Value, ok bool) {
 
 // leafKind is the reflect kind of the value at path (String, Float64, Int
 // or Bool), found from the types alone so that absent values have one too.
+// Every input asks for it on every render, so each path's answer is kept
+// (the types never change).
 func leafKind(path string) reflect.Kind {
+	if k, ok := leafKinds.Load(path); ok {
+		return k.(reflect.Kind)
+	}
+	k := findLeafKind(path)
+	leafKinds.Store(path, k)
+	return k
+}
+
+var leafKinds, ids sync.Map // path → reflect.Kind; path → element id
+
+func findLeafKind(path string) reflect.Kind {
 	steps, err := solver.ParsePath(path)
 	if err != nil {
 		return reflect.Invalid
@@ -224,6 +238,12 @@ func Boundary(p *solver.Project, end string) *solver.Boundary {
 // "layers[2].ecurve.cc" → "layers-2-ecurve-cc". Ids are stable, so browser
 // tests and labels can refer to them.
 func IDOf(path string) string {
-	r := strings.NewReplacer("[", "-", "]", "", ".", "-")
-	return r.Replace(path)
+	if id, ok := ids.Load(path); ok {
+		return id.(string)
+	}
+	id := idReplacer.Replace(path)
+	ids.Store(path, id)
+	return id
 }
+
+var idReplacer = strings.NewReplacer("[", "-", "]", "", ".", "-")

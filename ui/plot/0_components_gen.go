@@ -88,153 +88,53 @@ func (c *Chart) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 		vgn.SetInnerHTML(c.Fig.Title)
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n\t"}
 		vgparent.AppendChild(vgn)
-		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "svg", Data: "defs", Attr: []vugu.VGAttribute(nil)}
-		vgparent.AppendChild(vgn)
-		{
-			vgparent := vgn
-			_ = vgparent
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n\t\t"}
-			vgparent.AppendChild(vgn)
-			for i, ce := range c.Fig.Clips {
-				var vgiterkey interface{} = i
-				_ = vgiterkey
-				i := i
-				_ = i
-				ce := ce
-				_ = ce
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "svg", Data: "clipPath", Attr: []vugu.VGAttribute(nil)}
-				vgparent.AppendChild(vgn)
-				vgn.AddAttrInterface("id", ce.ID)
-				{
-					vgparent := vgn
-					_ = vgparent
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n\t\t\t"}
-					vgparent.AppendChild(vgn)
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "svg", Data: "rect", Attr: []vugu.VGAttribute(nil)}
-					vgparent.AppendChild(vgn)
-					vgn.AddAttrInterface("height", coord(ce.H))
-					vgn.AddAttrInterface("width", coord(ce.W))
-					vgn.AddAttrInterface("x", coord(ce.X))
-					vgn.AddAttrInterface("y", coord(ce.Y))
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n\t\t"}
-					vgparent.AppendChild(vgn)
-				}
-			}
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n\t"}
-			vgparent.AppendChild(vgn)
-		}
-		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n\t"}
-		vgparent.AppendChild(vgn)
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "svg", Data: "g", Attr: []vugu.VGAttribute{{Namespace: "", Key: "pointer-events", Val: "none"}}}
 		vgparent.AppendChild(vgn)
-		{
-			vgparent := vgn
-			_ = vgparent
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n\t\t"}
+		vgn.SetInnerHTML(c.body())
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n\t"}
+		vgparent.AppendChild(vgn)
+		if c.hover != nil {
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "svg", Data: "g", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "porelight-chart-hover"}, vugu.VGAttribute{Namespace: "", Key: "pointer-events", Val: "none"}}}
 			vgparent.AppendChild(vgn)
-			for i, re := range c.Fig.Rects {
-				var vgiterkey interface{} = i
-				_ = vgiterkey
-				i := i
-				_ = i
-				re := re
-				_ = re
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "svg", Data: "rect", Attr: []vugu.VGAttribute(nil)}
+			{
+				vgparent := vgn
+				_ = vgparent
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n\t\t"}
 				vgparent.AppendChild(vgn)
-				vgn.AddAttrInterface("fill", re.FillAttr())
-				vgn.AddAttrInterface("height", coord(re.H))
-				vgn.AddAttrInterface("stroke", re.StrokeAttr())
-				vgn.AddAttrInterface("stroke-width", coord(re.StrokeWidth))
-				vgn.AddAttrInterface("width", coord(re.W))
-				vgn.AddAttrInterface("x", coord(re.X))
-				vgn.AddAttrInterface("y", coord(re.Y))
-			}
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n\t\t"}
-			vgparent.AppendChild(vgn)
-			for i, pe := range c.Fig.Paths {
-				var vgiterkey interface{} = i
-				_ = vgiterkey
-				i := i
-				_ = i
-				pe := pe
-				_ = pe
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "svg", Data: "path", Attr: []vugu.VGAttribute{{Namespace: "", Key: "stroke-linejoin", Val: "round"}}}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "svg", Data: "circle", Attr: []vugu.VGAttribute{{Namespace: "", Key: "r", Val: "4.5"}, vugu.VGAttribute{Namespace: "", Key: "fill", Val: "#ffffff"}, vugu.VGAttribute{Namespace: "", Key: "stroke-width", Val: "2"}}}
 				vgparent.AppendChild(vgn)
-				vgn.AddAttrInterface("clip-path", pe.ClipRef())
-				vgn.AddAttrInterface("d", pe.D)
-				vgn.AddAttrInterface("fill", orNone(pe.Fill))
-				vgn.AddAttrInterface("stroke", orNone(pe.Stroke))
-				vgn.AddAttrInterface("stroke-dasharray", orNone(pe.Dash))
-				vgn.AddAttrInterface("stroke-width", coord(pe.Width))
-			}
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n\t\t"}
-			vgparent.AppendChild(vgn)
-			for i, te := range c.Fig.Texts {
-				var vgiterkey interface{} = i
-				_ = vgiterkey
-				i := i
-				_ = i
-				te := te
-				_ = te
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "svg", Data: "text", Attr: []vugu.VGAttribute{{Namespace: "", Key: "stroke-width", Val: "3"}, vugu.VGAttribute{Namespace: "", Key: "stroke-linejoin", Val: "round"}, vugu.VGAttribute{Namespace: "", Key: "paint-order", Val: "stroke"}}}
+				vgn.AddAttrInterface("cx", coord(c.hover.X))
+				vgn.AddAttrInterface("cy", coord(c.hover.Y))
+				vgn.AddAttrInterface("stroke", c.hover.Stroke)
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n\t\t"}
 				vgparent.AppendChild(vgn)
-				vgn.AddAttrInterface("fill", te.Fill)
-				vgn.AddAttrInterface("font-size", coord(te.Size))
-				vgn.AddAttrInterface("font-weight", te.Weight())
-				vgn.AddAttrInterface("stroke", te.HaloStroke())
-				vgn.AddAttrInterface("text-anchor", te.Anchor)
-				vgn.AddAttrInterface("transform", te.Transform())
-				vgn.AddAttrInterface("x", coord(te.X))
-				vgn.AddAttrInterface("y", coord(te.Y))
-				vgn.SetInnerHTML(te.Text)
-			}
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n\t\t"}
-			vgparent.AppendChild(vgn)
-			if c.hover != nil {
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "svg", Data: "g", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "porelight-chart-hover"}}}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "svg", Data: "rect", Attr: []vugu.VGAttribute{{Namespace: "", Key: "rx", Val: "3"}, vugu.VGAttribute{Namespace: "", Key: "fill", Val: "#ffffff"}, vugu.VGAttribute{Namespace: "", Key: "fill-opacity", Val: "0.94"}, vugu.VGAttribute{Namespace: "", Key: "stroke", Val: "#33373d"}, vugu.VGAttribute{Namespace: "", Key: "stroke-width", Val: "0.75"}}}
 				vgparent.AppendChild(vgn)
-				{
-					vgparent := vgn
-					_ = vgparent
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n\t\t\t"}
+				vgn.AddAttrInterface("height", coord(c.hover.Box.H))
+				vgn.AddAttrInterface("width", coord(c.hover.Box.W))
+				vgn.AddAttrInterface("x", coord(c.hover.Box.X))
+				vgn.AddAttrInterface("y", coord(c.hover.Box.Y))
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n\t\t"}
+				vgparent.AppendChild(vgn)
+				for i, te := range c.hover.Lines {
+					var vgiterkey interface{} = i
+					_ = vgiterkey
+					i := i
+					_ = i
+					te := te
+					_ = te
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "svg", Data: "text", Attr: []vugu.VGAttribute(nil)}
 					vgparent.AppendChild(vgn)
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "svg", Data: "circle", Attr: []vugu.VGAttribute{{Namespace: "", Key: "r", Val: "4.5"}, vugu.VGAttribute{Namespace: "", Key: "fill", Val: "#ffffff"}, vugu.VGAttribute{Namespace: "", Key: "stroke-width", Val: "2"}}}
-					vgparent.AppendChild(vgn)
-					vgn.AddAttrInterface("cx", coord(c.hover.X))
-					vgn.AddAttrInterface("cy", coord(c.hover.Y))
-					vgn.AddAttrInterface("stroke", c.hover.Stroke)
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n\t\t\t"}
-					vgparent.AppendChild(vgn)
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "svg", Data: "rect", Attr: []vugu.VGAttribute{{Namespace: "", Key: "rx", Val: "3"}, vugu.VGAttribute{Namespace: "", Key: "fill", Val: "#ffffff"}, vugu.VGAttribute{Namespace: "", Key: "fill-opacity", Val: "0.94"}, vugu.VGAttribute{Namespace: "", Key: "stroke", Val: "#33373d"}, vugu.VGAttribute{Namespace: "", Key: "stroke-width", Val: "0.75"}}}
-					vgparent.AppendChild(vgn)
-					vgn.AddAttrInterface("height", coord(c.hover.Box.H))
-					vgn.AddAttrInterface("width", coord(c.hover.Box.W))
-					vgn.AddAttrInterface("x", coord(c.hover.Box.X))
-					vgn.AddAttrInterface("y", coord(c.hover.Box.Y))
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n\t\t\t"}
-					vgparent.AppendChild(vgn)
-					for i, te := range c.hover.Lines {
-						var vgiterkey interface{} = i
-						_ = vgiterkey
-						i := i
-						_ = i
-						te := te
-						_ = te
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "svg", Data: "text", Attr: []vugu.VGAttribute(nil)}
-						vgparent.AppendChild(vgn)
-						vgn.AddAttrInterface("fill", te.Fill)
-						vgn.AddAttrInterface("font-size", coord(te.Size))
-						vgn.AddAttrInterface("font-weight", te.Weight())
-						vgn.AddAttrInterface("x", coord(te.X))
-						vgn.AddAttrInterface("y", coord(te.Y))
-						vgn.SetInnerHTML(te.Text)
-					}
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n\t\t"}
-					vgparent.AppendChild(vgn)
+					vgn.AddAttrInterface("fill", te.Fill)
+					vgn.AddAttrInterface("font-size", coord(te.Size))
+					vgn.AddAttrInterface("font-weight", te.Weight())
+					vgn.AddAttrInterface("x", coord(te.X))
+					vgn.AddAttrInterface("y", coord(te.Y))
+					vgn.SetInnerHTML(te.Text)
 				}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n\t"}
+				vgparent.AppendChild(vgn)
 			}
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n\t"}
-			vgparent.AppendChild(vgn)
 		}
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)

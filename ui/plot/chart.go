@@ -17,6 +17,20 @@ type Chart struct {
 	px, py float64 // pointer, figure pixels
 	on     bool    // pointer over the svg
 	hover  *Hover  // read-out for this build
+
+	markup    vugu.HTML // Body of markupFor
+	markupFor *Figure
+}
+
+// body is the figure's markup, made once per figure: the page receives
+// it as one string, which the renderer sets only when it changed
+// (static.PatchHelper), instead of some three thousand attributes each
+// render. The read-out stays apart, as elements of its own.
+func (c *Chart) body() vugu.HTML {
+	if c.markupFor != c.Fig {
+		c.markup, c.markupFor = vugu.HTML(c.Fig.Body()), c.Fig
+	}
+	return c.markup
 }
 
 // Compute prepares the read-out for the coming build.

@@ -14,11 +14,15 @@ type Isochrones struct {
 	Project       *solver.Project
 	Result        *solver.Result
 	Width, Height int
+
+	memo figMemo
 }
 
 // Figure builds the figure drawn for the current props.
 func (c *Isochrones) Figure() *Figure {
-	return IsochronesFigure(c.Project, c.Result, c.Width, c.Height)
+	return c.memo.get(figKey{p: c.Project, r: c.Result, w: c.Width, h: c.Height}, func() *Figure {
+		return IsochronesFigure(c.Project, c.Result, c.Width, c.Height)
+	})
 }
 
 // Degree draws DegreeFigure.
@@ -26,10 +30,16 @@ type Degree struct {
 	Project       *solver.Project
 	Result        *solver.Result
 	Width, Height int
+
+	memo figMemo
 }
 
 // Figure builds the figure drawn for the current props.
-func (c *Degree) Figure() *Figure { return DegreeFigure(c.Project, c.Result, c.Width, c.Height) }
+func (c *Degree) Figure() *Figure {
+	return c.memo.get(figKey{p: c.Project, r: c.Result, w: c.Width, h: c.Height}, func() *Figure {
+		return DegreeFigure(c.Project, c.Result, c.Width, c.Height)
+	})
+}
 
 // Settlement draws SettlementFitFigure: Fit, when set, is the result of a
 // back-fitted project drawn beside the prediction.
@@ -39,11 +49,15 @@ type Settlement struct {
 	Fit           *solver.Result
 	Dates         bool // on calendar dates when monitoring.start is set
 	Width, Height int
+
+	memo figMemo
 }
 
 // Figure builds the figure drawn for the current props.
 func (c *Settlement) Figure() *Figure {
-	return SettlementTimeFigure(c.Project, c.Result, c.Fit, c.Dates, c.Width, c.Height)
+	return c.memo.get(figKey{p: c.Project, r: c.Result, fit: c.Fit, a: c.Dates, w: c.Width, h: c.Height}, func() *Figure {
+		return SettlementTimeFigure(c.Project, c.Result, c.Fit, c.Dates, c.Width, c.Height)
+	})
 }
 
 // Piezometers draws PiezometersFitFigure; Fit as for Settlement.
@@ -54,11 +68,15 @@ type Piezometers struct {
 	Dates         bool // as for Settlement
 	Level         bool // as water levels, m (RecordAxes.Level)
 	Width, Height int
+
+	memo figMemo
 }
 
 // Figure builds the figure drawn for the current props.
 func (c *Piezometers) Figure() *Figure {
-	return PiezometersTimeFigure(c.Project, c.Result, c.Fit, RecordAxes{Dates: c.Dates, Level: c.Level}, c.Width, c.Height)
+	return c.memo.get(figKey{p: c.Project, r: c.Result, fit: c.Fit, a: c.Dates, b: c.Level, w: c.Width, h: c.Height}, func() *Figure {
+		return PiezometersTimeFigure(c.Project, c.Result, c.Fit, RecordAxes{Dates: c.Dates, Level: c.Level}, c.Width, c.Height)
+	})
 }
 
 // SteadyProfiles draws SteadyFigure.
@@ -66,9 +84,13 @@ type SteadyProfiles struct {
 	Project       *solver.Project
 	Result        *solver.Result
 	Width, Height int
+
+	memo figMemo
 }
 
 // Figure builds the figure drawn for the current props.
 func (c *SteadyProfiles) Figure() *Figure {
-	return SteadyFigure(c.Project, c.Result, c.Width, c.Height)
+	return c.memo.get(figKey{p: c.Project, r: c.Result, w: c.Width, h: c.Height}, func() *Figure {
+		return SteadyFigure(c.Project, c.Result, c.Width, c.Height)
+	})
 }

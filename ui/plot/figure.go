@@ -2,6 +2,7 @@ package plot
 
 import (
 	"math"
+	"slices"
 	"strings"
 	"unicode/utf8"
 )
@@ -105,6 +106,8 @@ type Figure struct {
 	Paths  []PathEl
 	Texts  []TextEl
 	Panels []*Panel
+
+	ticked []Box // the tick labels drawn on horizontal axes, kept apart (axis)
 }
 
 // size returns the figure size from requested pixels: zero means the
@@ -224,6 +227,9 @@ func (f *Figure) grid(p *Panel, ticks []Tick, vertical bool) {
 // mapping tick values with s, and the axis title.
 func (f *Figure) axis(box Box, s Scale, ticks []Tick, side axisSide, title string) {
 	var d strings.Builder
+	if side != sideLeft {
+		ticks = f.spaced(s, ticks, box)
+	}
 	for _, t := range ticks {
 		v := s.Map(t.Value)
 		if !isFinite(v) {
@@ -263,6 +269,60 @@ func (f *Figure) axis(box Box, s Scale, ticks []Tick, side axisSide, title strin
 		t := f.text(box.X-44, box.Y+box.H/2, title, "middle", 12, inkText)
 		t.Rotate = -90
 	}
+}
+
+// tickGap is the least space between two tick labels, pixels.
+const tickGap = 4
+
+// tickBox is the box a horizontal axis's tick label takes when centred on
+// x with its baseline at y, with a generous width (digits and the minus
+// sign run to about 0.6 em in the usual sans-serif faces), so that labels
+// kept apart here stay apart in the browser.
+func tickBox(x, y float64, label string) Box {
+	w := float64(utf8.RuneCountInString(label)) * 11 * 0.62
+	return Box{x - w/2, y - 11, w, 11}
+}
+
+// spaced drops tick labels (never the ticks) of a horizontal axis so that
+// no two collide: it keeps every k-th label for the least k at which the
+// labels clear each other, then drops any that would touch a label another
+// panel already drew beside this one. The labels kept are noted in
+// f.ticked.
+func (f *Figure) spaced(s Scale, ticks []Tick, box Box) []Tick {
+	var idx []int
+	for i, t := range ticks {
+		if t.Label != "" && isFinite(s.Map(t.Value)) {
+			idx = append(idx, i)
+		}
+	}
+	clear := func(a, b Box) bool { return a.Right()+tickGap <= b.X || b.Right()+tickGap <= a.X }
+	at := func(i int) Box { return tickBox(s.Map(ticks[i].Value), box.Y, ticks[i].Label) }
+	k := 1
+	for ; k < len(idx); k++ {
+		ok := true
+		for j := k; j < len(idx) && ok; j += k {
+			ok = clear(at(idx[j-k]), at(idx[j]))
+		}
+		if ok {
+			break
+		}
+	}
+	out := slices.Clone(ticks)
+	for n, i := range idx {
+		b := at(i)
+		keep := n%k == 0
+		for _, o := range f.ticked {
+			if keep && math.Abs(o.Y-b.Y) < 1 && !clear(o, b) {
+				keep = false
+			}
+		}
+		if keep {
+			f.ticked = append(f.ticked, b)
+		} else {
+			out[i].Label = ""
+		}
+	}
+	return out
 }
 
 // frame outlines a panel.

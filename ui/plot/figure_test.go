@@ -2,6 +2,7 @@ package plot
 
 import (
 	"math"
+	"slices"
 	"strings"
 	"testing"
 
@@ -331,5 +332,31 @@ func TestSteadyPreconsolidation(t *testing.T) {
 	// At the top of the crust σ'0 = 0 (raised to 0.1 kPa), so σ'p = POP + 0.1.
 	if got := sp.Pts[0].DX; math.Abs(got-20.1) > 1e-9 {
 		t.Errorf("σ'p at the surface %g kPa, want 20.1 (σ'0 + POP)", got)
+	}
+}
+
+// TestIsochroneLabelsInDays: the curves are named in days, as the times
+// are typed (Project.Times is in days): 3,650 days is "3650 d", never the
+// "9.99 yr" a conversion at 365.25 days a year rounds it to.
+func TestIsochroneLabelsInDays(t *testing.T) {
+	t.Parallel()
+	r := synthResult()
+	want := map[float64]string{1: "1 d", 10: "10 d", 30: "30 d", 100: "100 d", 365: "365 d", 1000: "1000 d"}
+	r.Consolidation.Isochrones[4].Time = 3650
+	want[3650] = "3650 d"
+	delete(want, 365)
+	f := IsochronesFigure(synthProject(), r, 640, 420)
+	var got []string
+	for _, tx := range f.Texts {
+		got = append(got, tx.Text)
+	}
+	all := strings.Join(got, "|")
+	for _, w := range want {
+		if !strings.Contains(all, "t = "+w) || !slices.Contains(got, w) {
+			t.Errorf("no legend entry %q and curve label %q in %q", "t = "+w, w, all)
+		}
+	}
+	if strings.Contains(all, " yr") {
+		t.Errorf("an isochrone is labelled in years: %q", all)
 	}
 }

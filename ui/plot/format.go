@@ -104,6 +104,16 @@ func timeLabel(days float64) string {
 	return sig(days, 3) + " d"
 }
 
+// dayLabel formats an output time the way it was typed: in days (the
+// unit of Project.Times), as the shortest decimal that reads back the
+// same, "3650 d" rather than "9.99 yr".
+func dayLabel(days float64) string {
+	if !isFinite(days) {
+		return "–"
+	}
+	return strconv.FormatFloat(days, 'f', -1, 64) + " d"
+}
+
 // csvNum formats a value for CSV: up to 10 significant figures, ASCII,
 // shortest form; NaN and ±Inf give an empty cell.
 func csvNum(v float64) string {

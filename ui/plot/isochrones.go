@@ -50,7 +50,8 @@ func IsochronesFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
 	pn := panels[0]
 	var labels []TextEl
 	for i, iso := range isos {
-		name := "t = " + timeLabel(iso.Time)
+		name := "t = " + dayLabel(iso.Time) // in the unit of the times typed
+
 		read := func(q Pt) string {
 			return "z = " + sig(q.DY, 3) + " m, u = " + sig(q.DX, 3) + " kPa"
 		}
@@ -58,7 +59,7 @@ func IsochronesFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
 		if s == nil {
 			continue
 		}
-		if l, ok := curveLabel(pn.Box, s, timeLabel(iso.Time)); ok {
+		if l, ok := curveLabel(pn.Box, s, dayLabel(iso.Time)); ok {
 			labels = append(labels, l)
 		}
 	}

@@ -2,6 +2,7 @@ package plot
 
 import (
 	"math"
+	"reflect"
 
 	"porelight/solver"
 )
@@ -112,9 +113,19 @@ type Residuals struct {
 	Records       []ResidualRecord
 	Dates         bool
 	Width, Height int
+
+	memo    figMemo
+	records []ResidualRecord // the records memo's figure shows
 }
 
-// Figure builds the figure drawn for the current props.
+// Figure builds the figure drawn for the current props, once per change
+// of them (the records are made anew on every render, so they are
+// compared by value).
 func (c *Residuals) Figure() *Figure {
-	return ResidualsFigure(c.Project, c.Records, c.Dates, c.Width, c.Height)
+	if !reflect.DeepEqual(c.records, c.Records) {
+		c.memo, c.records = figMemo{}, c.Records
+	}
+	return c.memo.get(figKey{p: c.Project, a: c.Dates, w: c.Width, h: c.Height}, func() *Figure {
+		return ResidualsFigure(c.Project, c.Records, c.Dates, c.Width, c.Height)
+	})
 }

@@ -125,7 +125,13 @@ func SectionFigure(p *solver.Project, w, h int) *Figure {
 type Section struct {
 	Project       *solver.Project
 	Width, Height int
+
+	memo figMemo
 }
 
 // Figure builds the figure drawn for the current props.
-func (c *Section) Figure() *Figure { return SectionFigure(c.Project, c.Width, c.Height) }
+func (c *Section) Figure() *Figure {
+	return c.memo.get(figKey{p: c.Project, w: c.Width, h: c.Height}, func() *Figure {
+		return SectionFigure(c.Project, c.Width, c.Height)
+	})
+}

@@ -163,7 +163,13 @@ type StageStress struct {
 	Project       *solver.Project
 	Result        *solver.Result
 	Width, Height int
+
+	memo figMemo
 }
 
 // Figure builds the figure drawn for the current props.
-func (c *StageStress) Figure() *Figure { return StressFigure(c.Project, c.Result, c.Width, c.Height) }
+func (c *StageStress) Figure() *Figure {
+	return c.memo.get(figKey{p: c.Project, r: c.Result, w: c.Width, h: c.Height}, func() *Figure {
+		return StressFigure(c.Project, c.Result, c.Width, c.Height)
+	})
+}

@@ -79,43 +79,57 @@ func (f *Figure) SVG() string {
 	b.WriteString(">")
 	esc(&b, f.Title)
 	b.WriteString("</title>\n")
+	f.writeBody(&b)
+	b.WriteString("</svg>\n")
+	return b.String()
+}
+
+// Body is the markup inside the svg element but for the title: the clip
+// paths, rectangles, paths and texts, as SVG writes them. Chart puts it
+// into the page as one piece.
+func (f *Figure) Body() string {
+	var b strings.Builder
+	b.Grow(4096 + 64*len(f.Texts) + 16*len(f.Paths))
+	f.writeBody(&b)
+	return b.String()
+}
+
+func (f *Figure) writeBody(b *strings.Builder) {
 	if len(f.Clips) > 0 {
 		b.WriteString("<defs>")
 		for _, c := range f.Clips {
 			b.WriteString("<clipPath")
-			attr(&b, "id", c.ID)
+			attr(b, "id", c.ID)
 			b.WriteString("><rect")
-			boxAttrs(&b, c.Box)
+			boxAttrs(b, c.Box)
 			b.WriteString("/></clipPath>")
 		}
 		b.WriteString("</defs>\n")
 	}
 	for _, r := range f.Rects {
 		b.WriteString("<rect")
-		boxAttrs(&b, r.Box)
-		attr(&b, "fill", r.FillAttr())
-		attr(&b, "stroke", r.StrokeAttr())
-		attr(&b, "stroke-width", coord(r.StrokeWidth))
+		boxAttrs(b, r.Box)
+		attr(b, "fill", r.FillAttr())
+		attr(b, "stroke", r.StrokeAttr())
+		attr(b, "stroke-width", coord(r.StrokeWidth))
 		b.WriteString("/>\n")
 	}
 	for _, p := range f.Paths {
 		b.WriteString("<path")
-		attr(&b, "d", p.D)
-		attr(&b, "fill", orNone(p.Fill))
-		attr(&b, "stroke", orNone(p.Stroke))
-		attr(&b, "stroke-width", coord(p.Width))
-		attr(&b, "stroke-dasharray", orNone(p.Dash))
-		attr(&b, "stroke-linejoin", "round")
+		attr(b, "d", p.D)
+		attr(b, "fill", orNone(p.Fill))
+		attr(b, "stroke", orNone(p.Stroke))
+		attr(b, "stroke-width", coord(p.Width))
+		attr(b, "stroke-dasharray", orNone(p.Dash))
+		attr(b, "stroke-linejoin", "round")
 		if p.Clip != "" {
-			attr(&b, "clip-path", p.ClipRef())
+			attr(b, "clip-path", p.ClipRef())
 		}
 		b.WriteString("/>\n")
 	}
 	for _, t := range f.Texts {
-		writeText(&b, t)
+		writeText(b, t)
 	}
-	b.WriteString("</svg>\n")
-	return b.String()
 }
 
 func writeText(b *strings.Builder, t TextEl) {

@@ -83,6 +83,7 @@ func (f *Figure) recordFigure(p *solver.Project, s *solver.Series, recs []record
 		}
 		return f.dateFigure(start, top, lo, math.Min(thi, math.Max(1.5*last, 30)), ylo, yhi, ylabel, down)
 	}
+	tlo, thi, _ = fittedTimeRange(s)
 	tlo, thi = readingSpan(tlo, thi, recs)
 	return f.timeFigure(top, tlo, thi, ylo, yhi, ylabel, down)
 }
@@ -120,6 +121,64 @@ func positiveTimeRange(ts []float64) (lo, hi float64, ok bool) {
 		}
 	}
 	return lo, hi, lo <= hi
+}
+
+// fittedTimeRange is the span of log time a plot of s shows: from a
+// third of the time the column starts to change to three times the time
+// it stops, over the degrees of consolidation, the settlement and the
+// secondary compression (a change is 0.5 % of a series' whole change).
+// The solver's run starts minutes after a load and goes on long after the
+// last change; drawn whole, it squeezed the curves into a few decades of
+// an axis that always ran from 0.01 to 10⁵ days. ok is false when s has
+// no positive time.
+func fittedTimeRange(s *solver.Series) (lo, hi float64, ok bool) {
+	tmin, tmax, ok := positiveTimeRange(s.Time)
+	if !ok {
+		return 0, 0, false
+	}
+	lo, hi = math.Inf(1), math.Inf(-1)
+	for _, y := range [][]float64{s.Us, s.Up, s.Settlement, s.Secondary} {
+		if len(y) != len(s.Time) {
+			continue
+		}
+		first, last := -1, -1
+		for i, v := range y {
+			if s.Time[i] > 0 && isFinite(v) {
+				if first < 0 {
+					first = i
+				}
+				last = i
+			}
+		}
+		if first < 0 {
+			continue
+		}
+		y0, yn, span := y[first], y[last], 0.0
+		for i := first; i <= last; i++ {
+			if isFinite(y[i]) {
+				span = math.Max(span, math.Abs(y[i]-y0))
+			}
+		}
+		if !(span > 0) {
+			continue
+		}
+		for i := first; i <= last; i++ {
+			if isFinite(y[i]) && math.Abs(y[i]-y0) >= 0.005*span {
+				lo = math.Min(lo, s.Time[i])
+				break
+			}
+		}
+		for i := last; i >= first; i-- {
+			if isFinite(y[i]) && math.Abs(y[i]-yn) >= 0.005*span {
+				hi = math.Max(hi, s.Time[min(i+1, last)])
+				break
+			}
+		}
+	}
+	if !(lo <= hi) {
+		return tmin, tmax, true
+	}
+	return math.Max(tmin, lo/3), math.Min(tmax, hi*3), true
 }
 
 // consolidationSeries returns the series of r, or a message saying why
@@ -165,7 +224,7 @@ func DegreeFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
 	if _, _, ok := finiteRange(s.Us, s.Up); !ok {
 		return f.message("No degree of consolidation: the load history makes no net change.")
 	}
-	tlo, thi, _ := positiveTimeRange(s.Time)
+	tlo, thi, _ := fittedTimeRange(s)
 	pn, clip := f.timeFigure(timeTop, tlo, thi, 0, 100, "Degree of consolidation, %", true)
 	f.addSeries(pn, clip, "Us, settlement", styleAt(0), s.Time, scaled(s.Us, 100), readTime("Us", " %", 3))
 	f.addSeries(pn, clip, "Up, pore pressure", styleAt(1), s.Time, scaled(s.Up, 100), readTime("Up", " %", 3))

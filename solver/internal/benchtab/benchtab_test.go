@@ -143,6 +143,21 @@ func TestReadBrowser(t *testing.T) {
 	if want := []string{"yes", "—", "yes", "no", "yes"}; !slices.Equal(verdicts, want) {
 		t.Errorf("verdicts %q, want %q", verdicts, want)
 	}
+	// The typing rows (edit to plot 212.5 ms > 50 ms without the pause
+	// figure): 25 ms ≤ 30 ms, 1.2 s > 1 s, the inserted paste
+	// reported only.
+	typing := write("typing.json", `{"firstPlotMs": 900, "editToPlotMs": 212.5, "heapBeforeBytes": 4e6, "heapAfterBytes": 6e6, "solves": 1000,
+		"keystrokeMs": 25, "keystrokeMaxMs": 40, "paste500Ms": 1200, "insert500Ms": 1500}`)
+	if b, err = readBrowser(typing); err != nil {
+		t.Fatal(err)
+	}
+	verdicts = nil
+	for _, row := range (&report{browser: b}).summary().rows {
+		verdicts = append(verdicts, row[len(row)-1])
+	}
+	if want := []string{"yes", "no", "yes", "no", "—", "yes"}; !slices.Equal(verdicts, want) {
+		t.Errorf("verdicts with the typing rows %q, want %q", verdicts, want)
+	}
 	missing := write("missing.json", `{"firstPlotMs": 900, "editToPlotMs": 12, "heapBeforeBytes": 1, "heapAfterBytes": 2}`)
 	if _, err := readBrowser(missing); err == nil {
 		t.Errorf("readBrowser accepted a file without \"solves\"")

@@ -21,6 +21,10 @@ type browserFigures struct {
 	EditToPlotNonlinearNoDebounceMs *float64 `json:"editToPlotNonlinearNoDebounceMs"` // the same on the non-linear model
 	JSHeapBeforeBytes               *float64 `json:"jsHeapBeforeBytes"`               // JavaScript heap; 0 when unavailable
 	JSHeapAfterBytes                *float64 `json:"jsHeapAfterBytes"`
+	KeystrokeMs                     *float64 `json:"keystrokeMs"`    // a keystroke's input event to the next frame painted, median
+	KeystrokeMaxMs                  *float64 `json:"keystrokeMaxMs"` // and the slowest
+	Paste500Ms                      *float64 `json:"paste500Ms"`     // 500 readings pasted (one input event) and used, to the frames painted
+	Insert500Ms                     *float64 `json:"insert500Ms"`    // the same text inserted as one input event per line and line break
 	Machine                         string   `json:"machine"`
 }
 
@@ -28,6 +32,8 @@ type browserFigures struct {
 const (
 	firstPlotGoalMs  = 1500
 	editToPlotGoalMs = 50
+	keystrokeGoalMs  = 30
+	pasteGoalMs      = 1000
 	heapGrowthGoal   = 5_000_000 // bytes (10⁶ to the MB), over heapSolves solves
 	heapSolves       = 1000
 )

@@ -137,6 +137,21 @@ func (r *report) summary() *table {
 		if v := b.EditToPlotNonlinearNoDebounceMs; v != nil {
 			t.add("5 browser", "the same on the non-linear model (solve and redraw)", fmt.Sprintf("%.1f ms", *v), "", "", "≤ 50 ms", holds(*v <= editToPlotGoalMs))
 		}
+		if v := b.KeystrokeMs; v != nil {
+			worst := ""
+			if m := b.KeystrokeMaxMs; m != nil {
+				worst = fmt.Sprintf("slowest %.1f ms", *m)
+			}
+			t.add("5 browser", "keystroke in a field, demo loaded: input event to the next frame painted (median)", fmt.Sprintf("%.1f ms", *v), worst,
+				fmt.Sprintf("%.2f of goal", *v/keystrokeGoalMs), "≤ 30 ms", holds(*v <= keystrokeGoalMs))
+		}
+		if v := b.Paste500Ms; v != nil {
+			t.add("5 browser", "paste 500 readings into a plate and use them, to the frames painted", fmt.Sprintf("%.0f ms", *v), "",
+				fmt.Sprintf("%.2f of goal", *v/pasteGoalMs), "≤ 1 s", holds(*v <= pasteGoalMs))
+		}
+		if v := b.Insert500Ms; v != nil {
+			t.add("5 browser", "the same 500 lines inserted as text (one input event per line and line break)", fmt.Sprintf("%.0f ms", *v), "", "", "report only", "—")
+		}
 		heapRow := func(what string, before, after float64) {
 			ok := holds(after-before < heapGrowthGoal)
 			if *b.Solves < heapSolves {
