@@ -60,6 +60,10 @@ type Project struct {
 	// Drains, when given, is a pattern of vertical drains over a depth
 	// range of the column; nil means none.
 	Drains *Drains `json:"drains,omitempty"`
+	// Decisions holds the questions of the site decisions: the residual
+	// settlement after a handover date, and the surcharge design. Nil
+	// means none asked.
+	Decisions *Decisions `json:"decisions,omitempty"`
 	// Mesh and Stepping control the numerics; zero values are defaults.
 	Mesh     MeshSettings `json:"mesh,omitzero"`
 	Stepping Stepping     `json:"stepping,omitzero"`
@@ -376,4 +380,35 @@ type DrainDesign struct {
 	Degree float64 `json:"degree,omitempty"`
 	// Time is when it must be reached, days after day 0, > 0.
 	Time float64 `json:"time"`
+}
+
+// Decisions are the site questions answered from the solved column (see
+// the package documentation, Site decisions).
+type Decisions struct {
+	// Handover is the day after which settlement matters (paving,
+	// handover), days after day 0, > 0 and before the design life. Solve
+	// then gives Result.Residual: the settlement still to come after it,
+	// to Project.DesignLife. Zero means not asked.
+	Handover float64 `json:"handover,omitempty"`
+	// Surcharge, when given, asks when the surcharge may come off and
+	// what follows (SurchargeRemoval). Solve ignores it.
+	Surcharge *SurchargeDesign `json:"surcharge,omitempty"`
+}
+
+// SurchargeDesign is the question of the surcharge design helper
+// (SurchargeRemoval): a temporary surcharge is placed with a lift and
+// taken off by a later stage; when may it come off so that no primary
+// settlement under the permanent load is left?
+type SurchargeDesign struct {
+	// Removal is the index (0-based) in Project.Loads of the stage that
+	// takes the surcharge off (a negative q or fill thickness). Nil means
+	// the last such stage.
+	Removal *int `json:"removal,omitempty"`
+	// WithSecondary adds to the target the secondary compression the
+	// permanent load alone would give by Project.DesignLife: the
+	// surcharge then also pays for the creep ahead.
+	WithSecondary bool `json:"withSecondary,omitempty"`
+	// RemoveBy, when > 0, is the day by which the surcharge must come
+	// off: the helper then also finds the surcharge needed for it.
+	RemoveBy float64 `json:"removeBy,omitempty"`
 }
