@@ -215,7 +215,7 @@ func TestDecodeValid(t *testing.T) {
 // A project written by Encode decodes to the same value, every field set.
 func TestEncodeDecodeRoundTrip(t *testing.T) {
 	t.Parallel()
-	head := -0.5
+	head, removal := -0.5, 1
 	full := &Project{
 		Format: Format, Title: "Round trip", Notes: "Invented.",
 		Units:  &Units{Length: "m", Stress: "kPa", Time: "day", K: "m/s"},
@@ -235,6 +235,7 @@ func TestEncodeDecodeRoundTrip(t *testing.T) {
 		Piezometers:   []float64{2.5},
 		TargetDegree:  0.9,
 		DesignLife:    10000,
+		Decisions:     &Decisions{Handover: 500, Surcharge: &SurchargeDesign{Removal: &removal, WithSecondary: true, RemoveBy: 600}},
 		Mesh:          MeshSettings{Order: 2, MaxSize: 0.05, MinPerLayer: 6},
 		Stepping:      Stepping{Theta: 0.6, DampedSteps: -1, FirstStep: 0.01, Growth: 1.1, EndTime: 20000},
 	}

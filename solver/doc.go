@@ -303,6 +303,44 @@
 // finished surface at a chosen level on a chosen day, after the
 // predicted settlement (the secant method on whole solves).
 //
+// # Site decisions
+//
+// Project.Decisions asks the questions the engineer is paid to answer once
+// the model is right (file decisions.go, residual.go, surcharge.go); they
+// read the solved series, never a second model.
+//
+// Residual settlement: with Decisions.Handover set (the day of paving or
+// handover, before the design life) Solve gives Result.Residual, the
+// settlement still to come between that day and Project.DesignLife: the
+// primary settlement left and the secondary compression yet to happen, per
+// layer and in total, and the whole settlement at the design life. Both
+// come from the model the summary names (Summary.Model): each layer's
+// primary settlement is its series (Series.Layers, kept for this, summing
+// to Series.Settlement) at the day, or its final settlement past the end
+// of the simulation; its secondary is its Mesri (1973) estimate there.
+//
+// Surcharge design: SurchargeRemoval answers Decisions.Surcharge after
+// Aldrich (1965) and Johnson (1970). The surcharge is what the removal
+// stage (Removal, or the last stage that takes load off) takes off; the
+// lift is the last stage before it that adds load. The permanent load
+// alone is the project with the removal acting over the lift's own ramp
+// (the surcharge never placed); its final primary settlement (plus, with
+// WithSecondary, its secondary at the design life) is the target. Solved
+// with the surcharge left on, the removal may come when (a) the settlement
+// reaches the target (Average; the degree it needs, for a normally
+// consolidated layer log(σ'p/σ'0)/log(σ'ps/σ'0), Degree) and (b) every
+// node has reached the change of effective stress the permanent load alone
+// gives it at the end (Everywhere, at LagDepth the last to get there):
+// Johnson's point that the average hides the least consolidated part,
+// which would go on settling. RemoveOn is the later, not before the lift
+// is complete; After is the solve run forward with the removal moved
+// there (settlement at removal, rebound, final, and the residual to the
+// design life). With RemoveBy, the surcharge needed for a removal by that
+// day (the lift and the removal grow together, so the permanent load
+// stays) by bisection in log surcharge on whole solves. In the linear model
+// the rebound follows mvUnload where given and mv otherwise (a warning says
+// it is then overestimated).
+//
 // # Field monitoring
 //
 // Project.Monitoring holds settlement plates and piezometer records, each a
@@ -339,7 +377,10 @@
 //	  "mesh": {"order": 1, "maxSize": 0.1, "minPerLayer": 4},
 //	  "drains": {"pattern": "triangular", "spacing": 1.5, "width": 0.1, "thickness": 0.004,
 //	             "equivalent": "perimeter", "smearRatio": 3, "smearK": 3, "qw": 3e-6,
-//	             "discharge": "top", "depth": 12}
+//	             "discharge": "top", "depth": 12},
+//	  "designLife": 18262.5,
+//	  "decisions": {"handover": 700,
+//	                "surcharge": {"removal": 1, "withSecondary": false, "removeBy": 300}}
 //	}
 //
 // A layer may also give "ch" (m²/day) or "khKv" for the drains.
@@ -468,6 +509,15 @@
 //	drains.toLayer            –       a layer index; not with depth   ErrOutOfRange, ErrConflict
 //	drains.design.degree      –       0 < value < 1 (absent: 0.9)     ErrOutOfRange
 //	drains.design.time        day     > 0 … MaxTime                   ErrNotPositive, ErrOutOfRange
+//	decisions.handover        day     > 0, < designLife (absent: not  ErrNotPositive, ErrOutOfRange,
+//	                                  asked)                          ErrConflict
+//	decisions.surcharge       –       some stage removes load         ErrRequired
+//	decisions.surcharge.removal –     a stage index whose q (fill     ErrOutOfRange, ErrConflict
+//	                                  thickness) is negative, after a
+//	                                  lift of the same kind that placed
+//	                                  at least as much
+//	decisions.surcharge.removeBy day  > 0 … MaxTime, after the lift   ErrNotPositive, ErrOutOfRange,
+//	                                  (SurchargeRemoval)              ErrConflict
 //	top|bottom.excess         –       with drains: at the outlet only ErrConflict
 //	                                  (or the same at both ends)
 //
