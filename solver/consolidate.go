@@ -80,7 +80,7 @@ func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path
 	}
 	if opt != nil && opt.watch != nil {
 		k.watch = opt.watch.step
-		opt.watch.final(k.sigInf, k.uInf)
+		opt.watch.final(k.sigInf, k.uInf, k.st.Effective)
 	}
 	k.sublayers()
 	k.deriveMv()

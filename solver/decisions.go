@@ -30,6 +30,65 @@ func validDecisions(ps *Problems, p *Project) {
 			ps.Add(err.Path, err.Err, err.Message)
 		}
 	}
+	if s := d.Strength; s != nil {
+		validStrength(ps, s, len(p.Layers))
+	}
+}
+
+// validStrength checks the strength laws, the factor of safety and the
+// profile days.
+func validStrength(ps *Problems, s *StrengthCheck, layers int) {
+	at := JoinPath(DecisionsPath, "strength")
+	if s.FS == 0 {
+		ps.Add(JoinPath(at, "fs"), ErrRequired, "give the factor of safety of the bearing check (local rules set it)")
+	} else {
+		bounded(ps, JoinPath(at, "fs"), s.FS, 1, MaxStrengthFS, "")
+	}
+	if len(s.Laws) == 0 {
+		ps.Add(JoinPath(at, "laws"), ErrRequired, "give the undrained strength of at least one layer")
+	}
+	seen := map[int]bool{}
+	for i, l := range s.Laws {
+		li := IndexPath(JoinPath(at, "laws"), i)
+		switch {
+		case l.Layer < 0 || l.Layer >= layers:
+			ps.Add(JoinPath(li, "layer"), ErrOutOfRange, fmt.Sprintf("no layer %d: the column has %d", l.Layer+1, layers))
+		case seen[l.Layer]:
+			ps.Add(JoinPath(li, "layer"), ErrConflict, fmt.Sprintf("layer %d has a law already", l.Layer+1))
+		}
+		seen[l.Layer] = true
+		switch l.Law {
+		case StrengthSHANSEP:
+			bounded(ps, JoinPath(li, "s"), l.S, 0, MaxStrengthRatio, "")
+			if finite(ps, JoinPath(li, "m"), l.M) {
+				inRange(ps, JoinPath(li, "m"), l.M, 0, MaxStrengthExponent, "")
+			}
+		case StrengthRatio:
+			bounded(ps, JoinPath(li, "ratio"), l.Ratio, 0, MaxStrengthRatio, "")
+		case StrengthMeasured:
+			if len(l.Su0) == 0 {
+				ps.Add(JoinPath(li, "su0"), ErrRequired, "give the measured su at one depth at least")
+			}
+			validProfile(ps, JoinPath(li, "su0"), l.Su0, MaxSu, "kPa")
+			for j, dv := range l.Su0 {
+				if !(dv.Value > 0) {
+					ps.Add(JoinPath(IndexPath(JoinPath(li, "su0"), j), "value"), ErrNotPositive, fmt.Sprintf("got %g", dv.Value))
+				}
+			}
+			upTo(ps, JoinPath(li, "gain"), l.Gain, MaxStrengthRatio, "")
+		default:
+			ps.Add(JoinPath(li, "law"), ErrOutOfRange, fmt.Sprintf("got %q, the laws are %q, %q and %q", l.Law, StrengthSHANSEP, StrengthRatio, StrengthMeasured))
+		}
+	}
+	if len(s.Times) > MaxStrengthTimes {
+		ps.Add(JoinPath(at, "times"), ErrTooLarge, fmt.Sprintf("%d days, the limit is %d", len(s.Times), MaxStrengthTimes))
+	}
+	for i, t := range s.Times {
+		ti := IndexPath(JoinPath(at, "times"), i)
+		if upTo(ps, ti, t, MaxTime, "days") && i > 0 && t <= s.Times[i-1] {
+			ps.Add(ti, ErrNotSorted, fmt.Sprintf("%g follows %g", t, s.Times[i-1]))
+		}
+	}
 }
 
 // surchargeStages returns the stage that takes the surcharge off

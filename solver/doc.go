@@ -306,7 +306,8 @@
 // # Site decisions
 //
 // Project.Decisions asks the questions the engineer is paid to answer once
-// the model is right (file decisions.go, residual.go, surcharge.go); they
+// the model is right (files decisions.go, residual.go, surcharge.go,
+// strength.go); they
 // read the solved series, never a second model.
 //
 // Residual settlement: with Decisions.Handover set (the day of paving or
@@ -340,6 +341,20 @@
 // stays) by bisection in log surcharge on whole solves. In the linear model
 // the rebound follows mvUnload where given and mv otherwise (a warning says
 // it is then overestimated).
+//
+// Strength gain: StrengthGain answers Decisions.Strength. Each element of
+// a layer with a law has σ'v = σ'0 + σ − u from the solve and σ'p, the
+// largest of its initial σ'p and every σ'v it has reached; its su is
+// S σ'v (σ'p/σ'v)^m (SHANSEP: Ladd & Foott 1974; Ladd 1991; S ≈ 0.22,
+// m ≈ 0.8 are common practice, hints only), Ratio σ'p, or a measured
+// Su0(z) plus Gain·max(0, σ'v − σ'0). It gives su profiles at
+// StrengthCheck.Times, and for every stage that adds load the screening
+// bearing check Nc·su/FS against the surface pressure once the stage is
+// complete (Nc = π + 2, Prandtl's strip; su the thickness-weighted mean of
+// the layers with a law; FS the user's), at the planned start and as the
+// earliest day, from a solve of the stages that start before it alone.
+// This is a screening check: the stability of an embankment needs a
+// slope-stability analysis and the rules that apply locally.
 //
 // # Field monitoring
 //
@@ -380,7 +395,11 @@
 //	             "discharge": "top", "depth": 12},
 //	  "designLife": 18262.5,
 //	  "decisions": {"handover": 700,
-//	                "surcharge": {"removal": 1, "withSecondary": false, "removeBy": 300}}
+//	                "surcharge": {"removal": 1, "withSecondary": false, "removeBy": 300},
+//	                "strength": {"fs": 1.3, "times": [100, 400],
+//	                             "laws": [{"layer": 0, "law": "shansep", "s": 0.22, "m": 0.8},
+//	                                      {"layer": 1, "law": "ratio", "ratio": 0.22},
+//	                                      {"layer": 2, "law": "measured", "su0": [{"z": 3, "value": 12}], "gain": 0.2}]}}
 //	}
 //
 // A layer may also give "ch" (m²/day) or "khKv" for the drains.
@@ -518,6 +537,16 @@
 //	                                  at least as much
 //	decisions.surcharge.removeBy day  > 0 … MaxTime, after the lift   ErrNotPositive, ErrOutOfRange,
 //	                                  (SurchargeRemoval)              ErrConflict
+//	decisions.strength.fs     –       1 … 10, required                ErrRequired, ErrOutOfRange
+//	decisions.strength.laws   –       at least one                    ErrRequired
+//	  [i].layer               –       a layer index, once each        ErrOutOfRange, ErrConflict
+//	  [i].law                 –       "shansep", "ratio", "measured"  ErrOutOfRange
+//	  [i].s, [i].ratio        –       > 0 … 5                         ErrNotPositive, ErrOutOfRange
+//	  [i].m                   –       0 … 2                           ErrOutOfRange
+//	  [i].su0                 kPa     measured: ≥ 1 point, z sorted,  ErrRequired, ErrNotSorted,
+//	                                  value > 0 … 10⁴                 ErrNotPositive
+//	  [i].gain                –       0 … 5                           ErrNegative, ErrOutOfRange
+//	decisions.strength.times  day     0 … MaxTime, increasing, ≤ 50   ErrNotSorted, ErrTooLarge
 //	top|bottom.excess         –       with drains: at the outlet only ErrConflict
 //	                                  (or the same at both ends)
 //

@@ -393,7 +393,56 @@ type Decisions struct {
 	// Surcharge, when given, asks when the surcharge may come off and
 	// what follows (SurchargeRemoval). Solve ignores it.
 	Surcharge *SurchargeDesign `json:"surcharge,omitempty"`
+	// Strength, when given, asks how the undrained strength grows with
+	// consolidation and when each lift may be placed (StrengthGain).
+	// Solve ignores it.
+	Strength *StrengthCheck `json:"strength,omitempty"`
 }
+
+// StrengthCheck is the question of the strength gain screening check
+// (StrengthGain): undrained strength laws for some layers, the factor of
+// safety of the bearing check, and the days of the su profiles wanted.
+type StrengthCheck struct {
+	// Laws give the undrained strength of the layers they name; layers
+	// without one are left out of the check (sand, fill).
+	Laws []StrengthLaw `json:"laws"`
+	// FS is the factor of safety the bearing check Nc·su/FS applies,
+	// ≥ 1; required (local rules set it).
+	FS float64 `json:"fs"`
+	// Times are the days of the su profiles wanted, increasing.
+	Times []float64 `json:"times,omitempty"`
+}
+
+// StrengthLaw is the undrained strength of one layer as a function of
+// its effective vertical stress σ'v and preconsolidation stress σ'p (the
+// largest of the given σ'p and every σ'v reached since).
+type StrengthLaw struct {
+	// Layer is the index (0-based) of the layer in Project.Layers.
+	Layer int `json:"layer"`
+	// Law is StrengthSHANSEP (su = S σ'v OCR^m, Ladd & Foott 1974),
+	// StrengthRatio (su = Ratio σ'p) or StrengthMeasured (su = the
+	// measured Su0 profile plus Gain times the rise of σ'v).
+	Law string `json:"law"`
+	// S and M are the SHANSEP parameters (S about 0.22 and m about 0.8
+	// are common practice, as hints only).
+	S float64 `json:"s,omitempty"`
+	M float64 `json:"m,omitempty"`
+	// Ratio is su/σ'p (about 0.22 is common practice, as a hint only).
+	Ratio float64 `json:"ratio,omitempty"`
+	// Su0 is the measured initial su against depth (z in m below the
+	// top, value in kPa > 0; linear between points, constant beyond).
+	Su0 []DepthValue `json:"su0,omitempty"`
+	// Gain is Δsu/Δσ'v, the strength gained per kPa of effective stress
+	// gained, ≥ 0.
+	Gain float64 `json:"gain,omitempty"`
+}
+
+// The undrained strength laws (StrengthLaw.Law).
+const (
+	StrengthSHANSEP  = "shansep"
+	StrengthRatio    = "ratio"
+	StrengthMeasured = "measured"
+)
 
 // SurchargeDesign is the question of the surcharge design helper
 // (SurchargeRemoval): a temporary surcharge is placed with a lift and

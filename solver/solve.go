@@ -31,9 +31,10 @@ type Options struct {
 }
 
 // watcher sees the final nodal total stress and pore pressure change of a
-// consolidation once, then their values after every recorded step.
+// consolidation once (with the initial effective stress s0), then their
+// values after every recorded step.
 type watcher struct {
-	final func(sigInf, uInf []float64)
+	final func(sigInf, uInf, s0 []float64)
 	step  func(t float64, sigma, u []float64)
 }
 

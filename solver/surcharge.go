@@ -161,7 +161,7 @@ func surchargeRemoval(p *Project, opt *Options, solve solveFunc) (*SurchargePlan
 	perm.Loads[removal].Start, perm.Loads[removal].Ramp = p.Loads[lift].Start, p.Loads[lift].Ramp
 	var target []float64
 	o := *base
-	o.watch = &watcher{final: func(s, u []float64) {
+	o.watch = &watcher{final: func(s, u, _ []float64) {
 		target = make([]float64, len(s))
 		for i := range s {
 			target[i] = s[i] - u[i]
@@ -266,7 +266,7 @@ func removalTimes(q *Project, removal, lift int, target []float64, goal float64,
 	var times, worst []float64
 	var lagNode []int
 	o := *base
-	o.watch = &watcher{final: func([]float64, []float64) {}, step: func(t float64, s, u []float64) {
+	o.watch = &watcher{final: func(_, _, _ []float64) {}, step: func(t float64, s, u []float64) {
 		w, at := math.Inf(1), -1
 		for i, v := range target {
 			if v > 1e-9*scale {

@@ -211,4 +211,11 @@ func TestSurchargeDemo(t *testing.T) {
 	if r.Residual == nil || r.Residual.Time != p.Decisions.Handover {
 		t.Errorf("demo residual %+v", r.Residual)
 	}
+	sg, err := StrengthGain(p, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(sg.Profiles) != len(p.Decisions.Strength.Times) || len(sg.Lifts) != 2 {
+		t.Errorf("demo strength: %d profiles, %d lifts", len(sg.Profiles), len(sg.Lifts))
+	}
 }
