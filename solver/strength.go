@@ -28,6 +28,10 @@ type StrengthResult struct {
 	Profiles []SuProfile `json:"profiles"`
 	// Lifts holds the check of every stage that adds load, in order.
 	Lifts []LiftCheck `json:"lifts"`
+	// Time and Mean are the mean su of the layers with a law against
+	// time under the project's whole load history, days and kPa.
+	Time []float64 `json:"time"`
+	Mean []float64 `json:"mean"`
 }
 
 // SuProfile is the undrained strength at the centre of every element of
@@ -99,7 +103,10 @@ func strengthGain(p *Project, opt *Options, solve solveFunc) (*StrengthResult, e
 	if err != nil {
 		return nil, err
 	}
-	res.Profiles = tr.profiles
+	res.Profiles, res.Time, res.Mean = tr.profiles, tr.times, tr.mean
+	if res.Profiles == nil {
+		res.Profiles = []SuProfile{}
+	}
 	for j, l := range p.Loads {
 		if l.Pressure() <= 0 {
 			continue
