@@ -281,6 +281,7 @@ func (k *consolidation) prepareSeries() *Consolidation {
 	for i := range ser.Piezometers {
 		ser.Piezometers[i].Pore = make([]float64, 0, capacity)
 		ser.Piezometers[i].Excess = make([]float64, 0, capacity)
+		ser.Piezometers[i].Added = make([]float64, 0, capacity)
 	}
 	// The effective stress is followed element by element where an e–log
 	// curve needs it, and where it may fall: under a load removal or a
@@ -373,6 +374,7 @@ func (k *consolidation) record(ser *Series, t float64) {
 		ex := pz.at.Read(tr.u)
 		ser.Piezometers[i].Excess = append(ser.Piezometers[i].Excess, ex)
 		ser.Piezometers[i].Pore = append(ser.Piezometers[i].Pore, pz.steady+ex)
+		ser.Piezometers[i].Added = append(ser.Piezometers[i].Added, pz.at.Read(tr.sigma))
 	}
 }
 

@@ -356,6 +356,12 @@
 // This is a screening check: the stability of an embankment needs a
 // slope-stability analysis and the rules that apply locally.
 //
+// Construction control: Series.Piezometers carries the added total stress
+// at each piezometer (Added, after submergence), and PoreRatios (file
+// poreratio.go) gives its pore pressure ratio Δu/Δσ and the degree of
+// dissipation of the stage under way, 1 − Δu/Δu_peak, predicted and, for
+// a piezometer record at the same depth, measured.
+//
 // # Field monitoring
 //
 // Project.Monitoring holds settlement plates and piezometer records, each a
@@ -483,7 +489,8 @@
 //	initialExcess[k].value    kPa     −10⁵ … 10⁵                      ErrOutOfRange
 //	times[j]                  day     > 0, ≤ 10⁹, increasing          ErrNotPositive, ErrOutOfRange, ErrNotSorted
 //	times                     –       nodes × (count + 7) + steps ×   ErrTooLarge
-//	                                  (7 + 2 piezometers) ≤ MaxStored
+//	                                  (7 + 3 piezometers, + layers
+//	                                  with a handover) ≤ MaxStored
 //	piezometers[j]            m       0 … column height               ErrNegative, ErrOutOfRange
 //	targetDegree              –       0 < value < 1 (absent: 0.95)    ErrOutOfRange
 //	designLife                day     > 0, ≤ 10⁹ (absent: 50 years)   ErrNotPositive, ErrOutOfRange

@@ -197,6 +197,10 @@ type Piezometer struct {
 	// excess); Excess the change from the initial steady state.
 	Pore   []float64 `json:"pore"`
 	Excess []float64 `json:"excess"`
+	// Added is the change of total vertical stress there, kPa (the
+	// stages' Δσ, less the weight fill loses below the water table): the
+	// denominator of the pore pressure ratio (PoreRatios).
+	Added []float64 `json:"added"`
 }
 
 // Summary collects the headline figures. Pointer fields are nil where the

@@ -69,6 +69,10 @@ type LiftCheck struct {
 	// Earliest is the first day, not before Ready, on which Nc·su/FS
 	// reaches Pressure (nil: not in the simulated time).
 	Earliest *float64 `json:"earliest,omitempty"`
+	// Time and Mean are the mean su against time under the stages before
+	// this one alone, the curve Su and Earliest are read from (days, kPa).
+	Time []float64 `json:"time"`
+	Mean []float64 `json:"mean"`
 }
 
 // StrengthGain answers Decisions.Strength (which must be set) for a valid
@@ -126,6 +130,7 @@ func strengthGain(p *Project, opt *Options, solve solveFunc) (*StrengthResult, e
 		if err != nil {
 			return nil, err
 		}
+		lc.Time, lc.Mean = t.times, t.mean
 		lc.Su = SeriesAt(t.times, t.mean, l.Start)
 		lc.Carries = BearingNc * lc.Su / sc.FS
 		lc.Safe = lc.Carries >= lc.Pressure

@@ -23,7 +23,8 @@ import (
 // TestE2EDecisions works out the demo's site decisions in the built page:
 // the settlement after handover per layer matches the native solve (to the
 // 0.1 mm shown), the removal day and each lift's earliest day read as
-// the native answers, a handover after the design life shows its problem
+// the native answers, the demo's piezometer record is compared with its
+// predicted pore pressure ratio, a handover after the design life shows its problem
 // at its input, the section fits 1024, 1366, 1920 and 400 px wide windows
 // (its tables scroll sideways within it),
 // and nothing goes to the network or the console.
@@ -75,6 +76,10 @@ func TestE2EDecisions(t *testing.T) {
 	}
 	if n := eval[int](t, ctx, `document.querySelectorAll("#plot-surcharge path").length`); n < 4 {
 		t.Errorf("the surcharge plot has %d paths", n)
+	}
+	// The piezometer record of the demo is compared with its prediction.
+	if cells := eval[[]string](t, ctx, `[...document.querySelectorAll("#decisions-ratio-0 td")].map(td => td.textContent)`); len(cells) != 6 || cells[2] == "–" {
+		t.Errorf("first row of the pore pressure ratios: %q", cells)
 	}
 
 	typeInto(t, ctx, "decisions-handover", "99999")

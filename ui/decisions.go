@@ -338,3 +338,46 @@ func residualRow(p *solver.Project, r *solver.Residual) sumRow {
 	return sumRow{ID: "sum-residual", Label: "Settlement after handover, " + when(p, r.Time), Value: mm(r.Total), Exact: exact(r.Total),
 		Note: fmt.Sprintf("to the end of the design life: %s primary, %s secondary (site decisions)", signedMM(r.Primary), mm(r.Secondary))}
 }
+
+// poreRatios are the piezometers' pore pressure ratios of the last solve.
+func (c *Decisions) poreRatios() []solver.PoreRatio {
+	if c.P == nil || c.R == nil {
+		return nil
+	}
+	prs, err := solver.PoreRatios(c.P, c.R)
+	if err != nil {
+		return nil
+	}
+	return prs
+}
+
+// ratioRow compares, at one piezometer, the last reading with the
+// prediction on its day, or gives the prediction at the last output time.
+type ratioRow struct {
+	Name, Day, Measured, Predicted, MeasuredD, PredictedD string
+}
+
+func (c *Decisions) ratioRows() []ratioRow {
+	var out []ratioRow
+	for _, pr := range c.poreRatios() {
+		if len(pr.Time) == 0 {
+			continue
+		}
+		r := ratioRow{Name: "z = " + sig(pr.Depth, 3) + " m", Measured: "–", MeasuredD: "–"}
+		day := pr.Time[len(pr.Time)-1]
+		if n := len(pr.MeasuredTime); n > 0 {
+			r.Name += " (" + pr.Record + ")"
+			day = pr.MeasuredTime[n-1]
+			r.Measured, r.MeasuredD = sig(pr.MeasuredRatio[n-1], 2), sig(100*pr.MeasuredDissipation[n-1], 3)
+		} else if ts := c.P.Times; len(ts) > 0 {
+			day = ts[len(ts)-1]
+		}
+		r.Day = when(c.P, day)
+		r.Predicted = sig(solver.SeriesAt(pr.Time, pr.Ratio, day), 2)
+		r.PredictedD = sig(100*solver.SeriesAt(pr.Time, pr.Dissipation, day), 3)
+		out = append(out, r)
+	}
+	return out
+}
+
+func (c *Decisions) ratioFigure() *plot.Figure { return plot.PoreRatioFigure(c.poreRatios(), 0, 0) }
