@@ -1,6 +1,9 @@
 package solver
 
-import "fmt"
+import (
+	"fmt"
+	"math"
+)
 
 // DecisionsPath is the path of Project.Decisions in problems.
 const DecisionsPath = "decisions"
@@ -134,6 +137,29 @@ func surchargeStages(p *Project) (removal, lift int, err *Problem) {
 		return 0, 0, &Problem{Path: at, Err: ErrConflict, Message: fmt.Sprintf("stage %d takes off %.4g kPa, more than the lift before it (stage %d) placed, %.4g kPa", removal+1, -r.Pressure(), lift+1, p.Loads[lift].Pressure())}
 	}
 	return removal, lift, nil
+}
+
+// designOptions are the options of the solves of a design helper (the
+// surcharge, the strength gain): no reference solves for the drains, and
+// opt's Progress (if any) over a run of solves whose number is not known
+// ahead: the k-th solve (from 0) covers [1 − 2⁻ᵏ, 1 − 2⁻ᵏ⁻¹] of the
+// fraction reported, so it only grows. A solve's fraction falling back
+// marks the next solve.
+func designOptions(opt *Options) *Options {
+	o := &Options{NoDrainReference: true}
+	if opt == nil || opt.Progress == nil {
+		return o
+	}
+	k, last := 0, 0.0
+	o.Progress = func(f float64) bool {
+		if f < last {
+			k++
+		}
+		last = f
+		w := math.Ldexp(1, -k)
+		return opt.Progress(1 - w + w*f/2)
+	}
+	return o
 }
 
 // layerSeries is the number of per-layer series a solve of p keeps at

@@ -98,10 +98,7 @@ func strengthGain(p *Project, opt *Options, solve solveFunc) (*StrengthResult, e
 		return nil, err
 	}
 	sc := p.Decisions.Strength
-	base := &Options{NoDrainReference: true}
-	if opt != nil {
-		base.Progress = opt.Progress
-	}
+	base := designOptions(opt)
 	res := &StrengthResult{Nc: BearingNc, FS: sc.FS, Profiles: []SuProfile{}, Lifts: []LiftCheck{}}
 	tr, err := trackStrength(p, sc.Times, base, solve)
 	if err != nil {

@@ -151,10 +151,7 @@ func surchargeRemoval(p *Project, opt *Options, solve solveFunc) (*SurchargePlan
 		ps.Add(JoinPath(DecisionsPath, "surcharge.removeBy"), ErrConflict, fmt.Sprintf("day %g is before the lift that places the surcharge is complete (stage %d, day %g)", d.RemoveBy, lift+1, liftEnd))
 		return nil, ps
 	}
-	base := &Options{NoDrainReference: true}
-	if opt != nil {
-		base.Progress = opt.Progress
-	}
+	base := designOptions(opt)
 	// The permanent load alone: the removal acts with the lift.
 	perm := copyLoads(p)
 	perm.Decisions = nil

@@ -219,3 +219,22 @@ func TestSurchargeDemo(t *testing.T) {
 		t.Errorf("demo strength: %d profiles, %d lifts", len(sg.Profiles), len(sg.Lifts))
 	}
 }
+
+// The progress of a design helper only grows over its run of solves, and
+// a cancel still stops it.
+func TestDesignOptionsProgress(t *testing.T) {
+	t.Parallel()
+	var got []float64
+	o := designOptions(&Options{Progress: func(f float64) bool { got = append(got, f); return f < 0.8 }})
+	for _, f := range []float64{0.2, 0.9, 1, 0.1, 0.5, 1, 0.3, 1} {
+		o.Progress(f)
+	}
+	for i := 1; i < len(got); i++ {
+		if !(got[i] >= got[i-1]) || got[i] >= 1 {
+			t.Fatalf("progress %v does not grow within [0, 1)", got)
+		}
+	}
+	if o.Progress(1) {
+		t.Errorf("a cancel past 0.8 was not passed on: %v", got)
+	}
+}
