@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"reflect"
+	"strconv"
 	"strings"
 	"sync/atomic"
 	"time"
@@ -381,3 +382,34 @@ func (c *Decisions) ratioRows() []ratioRow {
 }
 
 func (c *Decisions) ratioFigure() *plot.Figure { return plot.PoreRatioFigure(c.poreRatios(), 0, 0) }
+
+// removalOption is one choice of the stage that takes the surcharge off.
+type removalOption struct {
+	Value, Text string
+	Selected    bool
+}
+
+// removalOptions are the stages that take load off, after the solver's
+// own choice (the last of them).
+func (c *Decisions) removalOptions() []removalOption {
+	var chosen *int
+	if c.surchargeOn() {
+		chosen = c.draft().Decisions.Surcharge.Removal
+	}
+	out := []removalOption{{Value: "-1", Text: "the last stage that takes load off", Selected: chosen == nil}}
+	for i, l := range c.draft().Loads {
+		if l.Pressure() < 0 {
+			out = append(out, removalOption{Value: fmt.Sprint(i), Text: fmt.Sprintf("stage %d (day %s, %s kPa)", i+1, sig(l.Start, 4), sig(l.Pressure(), 3)), Selected: chosen != nil && *chosen == i})
+		}
+	}
+	return out
+}
+
+func (c *Decisions) setRemoval(e vugu.DOMEvent) {
+	i, err := strconv.Atoi(e.PropString("target", "value"))
+	if err != nil {
+		return
+	}
+	c.F.SetSurchargeRemoval(i)
+	c.Changed()
+}

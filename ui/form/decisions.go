@@ -147,3 +147,33 @@ func (f *Form) renumberStrength(to func(old int) int) {
 		f.remap("decisions.strength.laws", Removed(i))
 	}
 }
+
+// SetSurchargeRemoval names the stage that takes the surcharge off (its
+// index in loads), or leaves the choice to the solver (the last stage
+// that takes load off) with i < 0.
+func (f *Form) SetSurchargeRemoval(i int) {
+	d := f.decisions()
+	if d.Surcharge == nil {
+		d.Surcharge = &solver.SurchargeDesign{}
+	}
+	d.Surcharge.Removal = nil
+	if i >= 0 {
+		d.Surcharge.Removal = &i
+	}
+	f.check()
+}
+
+// renumberRemoval follows the removal of a load stage: the surcharge's
+// removal stays with its stage, and goes back to the solver's choice
+// when its stage is removed.
+func (f *Form) renumberRemoval(to func(old int) int) {
+	d := f.draft.Decisions
+	if d == nil || d.Surcharge == nil || d.Surcharge.Removal == nil {
+		return
+	}
+	if j := to(*d.Surcharge.Removal); j >= 0 {
+		d.Surcharge.Removal = &j
+		return
+	}
+	d.Surcharge.Removal = nil
+}

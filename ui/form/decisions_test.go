@@ -40,6 +40,17 @@ func TestDecisionsEdits(t *testing.T) {
 	if len(s.Laws) != 1 || s.Laws[0].Layer != 1 || s.Laws[0].Law != solver.StrengthRatio || f.Text("decisions.strength.laws[0].ratio") != "0,25" {
 		t.Errorf("after removing layer 2: %+v, text %q", s.Laws, f.Text("decisions.strength.laws[0].ratio"))
 	}
+	// The removal named stays with its stage.
+	f.SetSurchargeRemoval(1)
+	f.AddLoad()
+	f.RemoveLoad(0)
+	if r := f.Draft().Decisions.Surcharge.Removal; r == nil || *r != 0 {
+		t.Errorf("after removing stage 1 the removal is %v, want stage 2 now at 0", r)
+	}
+	f.RemoveLoad(0)
+	if r := f.Draft().Decisions.Surcharge.Removal; r != nil {
+		t.Errorf("after removing its stage the removal is %v, want the solver's choice", *r)
+	}
 	f.SetStrengthLaw(1, "")
 	f.SetSurcharge(false)
 	if d := f.Draft().Decisions; d.Strength != nil || d.Surcharge != nil || d.Handover != 700 {

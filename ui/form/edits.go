@@ -95,6 +95,7 @@ func (f *Form) RemoveLoad(i int) {
 	}
 	f.draft.Loads = slices.Delete(f.draft.Loads, i, i+1)
 	f.remap("loads", Removed(i))
+	f.renumberRemoval(Removed(i))
 	f.check()
 }
 
