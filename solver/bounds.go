@@ -145,6 +145,17 @@ const (
 	MinQw         = 1e-12
 	MaxQw         = 1.0
 
+	// Strength gain (decisions.strength). MaxStrengthFS bounds fs (1.3–1.5
+	// are usual for staged embankments, common practice); MaxStrengthRatio
+	// bounds a law's s, ratio and gain (su/σ'v of clays lies near
+	// 0.2–0.35); MaxStrengthExponent its m (0.8 usual); MaxSu a measured
+	// su, kPa (soft clays 5–50); MaxStrengthTimes the su profiles asked.
+	MaxStrengthFS       = 10.0
+	MaxStrengthRatio    = 5.0
+	MaxStrengthExponent = 2.0
+	MaxSu               = 1e4
+	MaxStrengthTimes    = 50
+
 	// MaxPlateReading bounds a settlement plate's readings, m, and
 	// MaxPressureReading a piezometer's, kPa, in absolute value.
 	MaxPlateReading    = 1e3

@@ -53,7 +53,15 @@ type consolidation struct {
 	nlDrained []float64
 	nlFinal   []float64 // per layer: the final settlement from the end state
 
-	ends *primaryEnds // per layer end of primary (nil: no layer has a Cα)
+	ends     *primaryEnds    // per layer end of primary (nil: no layer has a Cα)
+	secParts []secondaryPart // the layers with a secondary compression estimate
+
+	// layerW are the element weights of layerNow when the series keeps
+	// every layer's settlement (Series.Layers), layerBuf its scratch.
+	layerW, layerBuf []float64
+	// watch, when set (Options.watch), sees the nodal total stress and
+	// pore pressure change after every recorded step.
+	watch func(t float64, sigma, u []float64)
 }
 
 // probe is a piezometer: where to read the excess, and the steady pore
@@ -69,6 +77,10 @@ func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path
 	k := &consolidation{c: c, st: st, r: r, warn: warn, tr: newTransient(c, opt)}
 	if err := k.finalState(); err != nil {
 		return err
+	}
+	if opt != nil && opt.watch != nil {
+		k.watch = opt.watch.step
+		opt.watch.final(k.sigInf, k.uInf, k.st.Effective)
 	}
 	k.sublayers()
 	k.deriveMv()
@@ -87,6 +99,7 @@ func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path
 	k.elogSummary()
 	k.degreeTimes()
 	k.secondary()
+	k.residual()
 	c.meshWarnings(k.mv, warn)
 	k.earlyTimes()
 	return nil
@@ -258,9 +271,17 @@ func (k *consolidation) prepareSeries() *Consolidation {
 		ser.SettlementElog = make([]float64, 0, capacity)
 	}
 	k.prepareEnds(capacity)
+	if n := layerSeries(p); n > 0 {
+		k.layerW, k.layerBuf = k.elementWeights(), make([]float64, n)
+		ser.Layers = make([][]float64, n)
+		for i := range ser.Layers {
+			ser.Layers[i] = make([]float64, 0, capacity)
+		}
+	}
 	for i := range ser.Piezometers {
 		ser.Piezometers[i].Pore = make([]float64, 0, capacity)
 		ser.Piezometers[i].Excess = make([]float64, 0, capacity)
+		ser.Piezometers[i].Added = make([]float64, 0, capacity)
 	}
 	// The effective stress is followed element by element where an e–log
 	// curve needs it, and where it may fall: under a load removal or a
@@ -336,14 +357,24 @@ func (k *consolidation) record(ser *Series, t float64) {
 		}
 	}
 	if k.ends != nil {
-		k.layerNow(k.ends.now)
+		k.layerNow(k.ends.now, k.ends.ew)
 		k.ends.observe(t, k.ends.now)
+	}
+	if k.layerW != nil {
+		k.layerNow(k.layerBuf, k.layerW)
+		for i, v := range k.layerBuf {
+			ser.Layers[i] = append(ser.Layers[i], v)
+		}
+	}
+	if k.watch != nil {
+		k.watch(t, tr.sigma, tr.u)
 	}
 	for i := range k.probes {
 		pz := &k.probes[i]
 		ex := pz.at.Read(tr.u)
 		ser.Piezometers[i].Excess = append(ser.Piezometers[i].Excess, ex)
 		ser.Piezometers[i].Pore = append(ser.Piezometers[i].Pore, pz.steady+ex)
+		ser.Piezometers[i].Added = append(ser.Piezometers[i].Added, pz.at.Read(tr.sigma))
 	}
 }
 

@@ -215,7 +215,7 @@ func TestDecodeValid(t *testing.T) {
 // A project written by Encode decodes to the same value, every field set.
 func TestEncodeDecodeRoundTrip(t *testing.T) {
 	t.Parallel()
-	head := -0.5
+	head, removal := -0.5, 1
 	full := &Project{
 		Format: Format, Title: "Round trip", Notes: "Invented.",
 		Units:  &Units{Length: "m", Stress: "kPa", Time: "day", K: "m/s"},
@@ -235,8 +235,11 @@ func TestEncodeDecodeRoundTrip(t *testing.T) {
 		Piezometers:   []float64{2.5},
 		TargetDegree:  0.9,
 		DesignLife:    10000,
-		Mesh:          MeshSettings{Order: 2, MaxSize: 0.05, MinPerLayer: 6},
-		Stepping:      Stepping{Theta: 0.6, DampedSteps: -1, FirstStep: 0.01, Growth: 1.1, EndTime: 20000},
+		Decisions: &Decisions{Handover: 500, Surcharge: &SurchargeDesign{Removal: &removal, WithSecondary: true, RemoveBy: 600},
+			Strength: &StrengthCheck{FS: 1.4, Times: []float64{100, 200}, Laws: []StrengthLaw{
+				{Layer: 0, Law: StrengthSHANSEP, S: 0.25, M: 0.8}, {Layer: 1, Law: StrengthMeasured, Su0: []DepthValue{{2, 10}, {5, 20}}, Gain: 0.2}}}},
+		Mesh:     MeshSettings{Order: 2, MaxSize: 0.05, MinPerLayer: 6},
+		Stepping: Stepping{Theta: 0.6, DampedSteps: -1, FirstStep: 0.01, Growth: 1.1, EndTime: 20000},
 	}
 	demo, err := os.ReadFile("../testdata/demo.json")
 	if err != nil {

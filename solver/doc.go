@@ -305,6 +305,65 @@
 // finished surface at a chosen level on a chosen day, after the
 // predicted settlement (the secant method on whole solves).
 //
+// # Site decisions
+//
+// Project.Decisions asks the questions the engineer is paid to answer once
+// the model is right (files decisions.go, residual.go, surcharge.go,
+// strength.go); they
+// read the solved series, never a second model.
+//
+// Residual settlement: with Decisions.Handover set (the day of paving or
+// handover, before the design life) Solve gives Result.Residual, the
+// settlement still to come between that day and Project.DesignLife: the
+// primary settlement left and the secondary compression yet to happen, per
+// layer and in total, and the whole settlement at the design life. Both
+// come from the model the summary names (Summary.Model): each layer's
+// primary settlement is its series (Series.Layers, kept for this, summing
+// to Series.Settlement) at the day, or its final settlement past the end
+// of the simulation; its secondary is its Mesri (1973) estimate there.
+//
+// Surcharge design: SurchargeRemoval answers Decisions.Surcharge after
+// Aldrich (1965) and Johnson (1970). The surcharge is what the removal
+// stage (Removal, or the last stage that takes load off) takes off; the
+// lift is the last stage before it that adds load. The permanent load
+// alone is the project with the removal acting over the lift's own ramp
+// (the surcharge never placed); its final primary settlement (plus, with
+// WithSecondary, its secondary at the design life) is the target. Solved
+// with the surcharge left on, the removal may come when (a) the settlement
+// reaches the target (Average; the degree it needs, for a normally
+// consolidated layer log(σ'p/σ'0)/log(σ'ps/σ'0), Degree) and (b) every
+// node has reached the change of effective stress the permanent load alone
+// gives it at the end (Everywhere, at LagDepth the last to get there):
+// Johnson's point that the average hides the least consolidated part,
+// which would go on settling. RemoveOn is the later, not before the lift
+// is complete; After is the solve run forward with the removal moved
+// there (settlement at removal, rebound, final, and the residual to the
+// design life). With RemoveBy, the surcharge needed for a removal by that
+// day (the lift and the removal grow together, so the permanent load
+// stays) by bisection in log surcharge on whole solves. In the linear model
+// the rebound follows mvUnload where given and mv otherwise (a warning says
+// it is then overestimated).
+//
+// Strength gain: StrengthGain answers Decisions.Strength. Each element of
+// a layer with a law has σ'v = σ'0 + σ − u from the solve and σ'p, the
+// largest of its initial σ'p and every σ'v it has reached; its su is
+// S σ'v (σ'p/σ'v)^m (SHANSEP: Ladd & Foott 1974; Ladd 1991; S ≈ 0.22,
+// m ≈ 0.8 are common practice, hints only), Ratio σ'p, or a measured
+// Su0(z) plus Gain·max(0, σ'v − σ'0). It gives su profiles at
+// StrengthCheck.Times, and for every stage that adds load the screening
+// bearing check Nc·su/FS against the surface pressure once the stage is
+// complete (Nc = π + 2, Prandtl's strip; su the thickness-weighted mean of
+// the layers with a law; FS the user's), at the planned start and as the
+// earliest day, from a solve of the stages that start before it alone.
+// This is a screening check: the stability of an embankment needs a
+// slope-stability analysis and the rules that apply locally.
+//
+// Construction control: Series.Piezometers carries the added total stress
+// at each piezometer (Added, after submergence), and PoreRatios (file
+// poreratio.go) gives its pore pressure ratio Δu/Δσ and the degree of
+// dissipation of the stage under way, 1 − Δu/Δu_peak, predicted and, for
+// a piezometer record at the same depth, measured.
+//
 // # Field monitoring
 //
 // Project.Monitoring holds settlement plates and piezometer records, each a
@@ -341,7 +400,14 @@
 //	  "mesh": {"order": 1, "maxSize": 0.1, "minPerLayer": 4},
 //	  "drains": {"pattern": "triangular", "spacing": 1.5, "width": 0.1, "thickness": 0.004,
 //	             "equivalent": "perimeter", "smearRatio": 3, "smearK": 3, "qw": 3e-6,
-//	             "discharge": "top", "depth": 12}
+//	             "discharge": "top", "depth": 12},
+//	  "designLife": 18262.5,
+//	  "decisions": {"handover": 700,
+//	                "surcharge": {"removal": 1, "withSecondary": false, "removeBy": 300},
+//	                "strength": {"fs": 1.3, "times": [100, 400],
+//	                             "laws": [{"layer": 0, "law": "shansep", "s": 0.22, "m": 0.8},
+//	                                      {"layer": 1, "law": "ratio", "ratio": 0.22},
+//	                                      {"layer": 2, "law": "measured", "su0": [{"z": 3, "value": 12}], "gain": 0.2}]}}
 //	}
 //
 // A layer may also give "ch" (m²/day) or "khKv" for the drains.
@@ -425,7 +491,8 @@
 //	initialExcess[k].value    kPa     −10⁵ … 10⁵                      ErrOutOfRange
 //	times[j]                  day     > 0, ≤ 10⁹, increasing          ErrNotPositive, ErrOutOfRange, ErrNotSorted
 //	times                     –       nodes × (count + 7) + steps ×   ErrTooLarge
-//	                                  (7 + 2 piezometers) ≤ MaxStored
+//	                                  (7 + 3 piezometers, + layers
+//	                                  with a handover) ≤ MaxStored
 //	piezometers[j]            m       0 … column height               ErrNegative, ErrOutOfRange
 //	targetDegree              –       0 < value < 1 (absent: 0.95)    ErrOutOfRange
 //	designLife                day     > 0, ≤ 10⁹ (absent: 50 years)   ErrNotPositive, ErrOutOfRange
@@ -470,6 +537,25 @@
 //	drains.toLayer            –       a layer index; not with depth   ErrOutOfRange, ErrConflict
 //	drains.design.degree      –       0 < value < 1 (absent: 0.9)     ErrOutOfRange
 //	drains.design.time        day     > 0 … MaxTime                   ErrNotPositive, ErrOutOfRange
+//	decisions.handover        day     > 0, < designLife (absent: not  ErrNotPositive, ErrOutOfRange,
+//	                                  asked)                          ErrConflict
+//	decisions.surcharge       –       some stage removes load         ErrRequired
+//	decisions.surcharge.removal –     a stage index whose q (fill     ErrOutOfRange, ErrConflict
+//	                                  thickness) is negative, after a
+//	                                  lift of the same kind that placed
+//	                                  at least as much
+//	decisions.surcharge.removeBy day  > 0 … MaxTime, after the lift   ErrNotPositive, ErrOutOfRange,
+//	                                  (SurchargeRemoval)              ErrConflict
+//	decisions.strength.fs     –       1 … 10, required                ErrRequired, ErrOutOfRange
+//	decisions.strength.laws   –       at least one                    ErrRequired
+//	  [i].layer               –       a layer index, once each        ErrOutOfRange, ErrConflict
+//	  [i].law                 –       "shansep", "ratio", "measured"  ErrOutOfRange
+//	  [i].s, [i].ratio        –       > 0 … 5                         ErrNotPositive, ErrOutOfRange
+//	  [i].m                   –       0 … 2                           ErrOutOfRange
+//	  [i].su0                 kPa     measured: ≥ 1 point, z sorted,  ErrRequired, ErrNotSorted,
+//	                                  value > 0 … 10⁴                 ErrNotPositive
+//	  [i].gain                –       0 … 5                           ErrNegative, ErrOutOfRange
+//	decisions.strength.times  day     0 … MaxTime, increasing, ≤ 50   ErrNotSorted, ErrTooLarge
 //	top|bottom.excess         –       with drains: at the outlet only ErrConflict
 //	                                  (or the same at both ends)
 //

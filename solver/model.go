@@ -60,6 +60,10 @@ type Project struct {
 	// Drains, when given, is a pattern of vertical drains over a depth
 	// range of the column; nil means none.
 	Drains *Drains `json:"drains,omitempty"`
+	// Decisions holds the questions of the site decisions: the residual
+	// settlement after a handover date, and the surcharge design. Nil
+	// means none asked.
+	Decisions *Decisions `json:"decisions,omitempty"`
 	// Mesh and Stepping control the numerics; zero values are defaults.
 	Mesh     MeshSettings `json:"mesh,omitzero"`
 	Stepping Stepping     `json:"stepping,omitzero"`
@@ -376,4 +380,84 @@ type DrainDesign struct {
 	Degree float64 `json:"degree,omitempty"`
 	// Time is when it must be reached, days after day 0, > 0.
 	Time float64 `json:"time"`
+}
+
+// Decisions are the site questions answered from the solved column (see
+// the package documentation, Site decisions).
+type Decisions struct {
+	// Handover is the day after which settlement matters (paving,
+	// handover), days after day 0, > 0 and before the design life. Solve
+	// then gives Result.Residual: the settlement still to come after it,
+	// to Project.DesignLife. Zero means not asked.
+	Handover float64 `json:"handover,omitempty"`
+	// Surcharge, when given, asks when the surcharge may come off and
+	// what follows (SurchargeRemoval). Solve ignores it.
+	Surcharge *SurchargeDesign `json:"surcharge,omitempty"`
+	// Strength, when given, asks how the undrained strength grows with
+	// consolidation and when each lift may be placed (StrengthGain).
+	// Solve ignores it.
+	Strength *StrengthCheck `json:"strength,omitempty"`
+}
+
+// StrengthCheck is the question of the strength gain screening check
+// (StrengthGain): undrained strength laws for some layers, the factor of
+// safety of the bearing check, and the days of the su profiles wanted.
+type StrengthCheck struct {
+	// Laws give the undrained strength of the layers they name; layers
+	// without one are left out of the check (sand, fill).
+	Laws []StrengthLaw `json:"laws"`
+	// FS is the factor of safety the bearing check Nc·su/FS applies,
+	// ≥ 1; required (local rules set it).
+	FS float64 `json:"fs"`
+	// Times are the days of the su profiles wanted, increasing.
+	Times []float64 `json:"times,omitempty"`
+}
+
+// StrengthLaw is the undrained strength of one layer as a function of
+// its effective vertical stress σ'v and preconsolidation stress σ'p (the
+// largest of the given σ'p and every σ'v reached since).
+type StrengthLaw struct {
+	// Layer is the index (0-based) of the layer in Project.Layers.
+	Layer int `json:"layer"`
+	// Law is StrengthSHANSEP (su = S σ'v OCR^m, Ladd & Foott 1974),
+	// StrengthRatio (su = Ratio σ'p) or StrengthMeasured (su = the
+	// measured Su0 profile plus Gain times the rise of σ'v).
+	Law string `json:"law"`
+	// S and M are the SHANSEP parameters (S about 0.22 and m about 0.8
+	// are common practice, as hints only).
+	S float64 `json:"s,omitempty"`
+	M float64 `json:"m,omitempty"`
+	// Ratio is su/σ'p (about 0.22 is common practice, as a hint only).
+	Ratio float64 `json:"ratio,omitempty"`
+	// Su0 is the measured initial su against depth (z in m below the
+	// top, value in kPa > 0; linear between points, constant beyond).
+	Su0 []DepthValue `json:"su0,omitempty"`
+	// Gain is Δsu/Δσ'v, the strength gained per kPa of effective stress
+	// gained, ≥ 0.
+	Gain float64 `json:"gain,omitempty"`
+}
+
+// The undrained strength laws (StrengthLaw.Law).
+const (
+	StrengthSHANSEP  = "shansep"
+	StrengthRatio    = "ratio"
+	StrengthMeasured = "measured"
+)
+
+// SurchargeDesign is the question of the surcharge design helper
+// (SurchargeRemoval): a temporary surcharge is placed with a lift and
+// taken off by a later stage; when may it come off so that no primary
+// settlement under the permanent load is left?
+type SurchargeDesign struct {
+	// Removal is the index (0-based) in Project.Loads of the stage that
+	// takes the surcharge off (a negative q or fill thickness). Nil means
+	// the last such stage.
+	Removal *int `json:"removal,omitempty"`
+	// WithSecondary adds to the target the secondary compression the
+	// permanent load alone would give by Project.DesignLife: the
+	// surcharge then also pays for the creep ahead.
+	WithSecondary bool `json:"withSecondary,omitempty"`
+	// RemoveBy, when > 0, is the day by which the surcharge must come
+	// off: the helper then also finds the surcharge needed for it.
+	RemoveBy float64 `json:"removeBy,omitempty"`
 }

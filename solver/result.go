@@ -18,6 +18,9 @@ type Result struct {
 	Summary Summary `json:"summary"`
 	// Drains is nil without drains or without consolidation.
 	Drains *DrainResult `json:"drains,omitempty"`
+	// Residual is the settlement still to come after
+	// Decisions.Handover (nil when not asked or without consolidation).
+	Residual *Residual `json:"residual,omitempty"`
 	// Warnings are conditions the results do not cover well; they never
 	// stop a solve.
 	Warnings []Warning `json:"warnings"`
@@ -154,6 +157,10 @@ type Series struct {
 	// Piezometers holds the pore pressure histories at the requested
 	// depths, in the order given.
 	Piezometers []Piezometer `json:"piezometers,omitempty"`
+	// Layers holds, per layer, its primary settlement at each time under
+	// Summary.Model, m; they sum to Settlement. Kept only when a residual
+	// settlement is asked (Decisions.Handover), empty otherwise.
+	Layers [][]float64 `json:"layers,omitempty"`
 }
 
 // SeriesAt is the value at time t of a history ys recorded at the times
@@ -190,6 +197,10 @@ type Piezometer struct {
 	// excess); Excess the change from the initial steady state.
 	Pore   []float64 `json:"pore"`
 	Excess []float64 `json:"excess"`
+	// Added is the change of total vertical stress there, kPa (the
+	// stages' Δσ, less the weight fill loses below the water table): the
+	// denominator of the pore pressure ratio (PoreRatios).
+	Added []float64 `json:"added"`
 }
 
 // Summary collects the headline figures. Pointer fields are nil where the

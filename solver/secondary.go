@@ -55,17 +55,7 @@ func (k *consolidation) prepareEnds(capacity int) {
 	if len(pe.layers) == 0 {
 		return
 	}
-	m := k.c.m
-	np := m.Order + 1
-	unit := make([]float64, m.Nodes())
-	pe.ew = make([]float64, m.Elements()*np)
-	for e := range m.Elements() {
-		for a := range np {
-			unit[e*m.Order+a] = 1
-			pe.ew[e*np+a] = m.Integrate(unit, e)
-			unit[e*m.Order+a] = 0
-		}
-	}
+	pe.ew = k.elementWeights()
 	pe.stride = max(1, (len(pe.layers)*capacity+maxEndHistory-1)/maxEndHistory)
 	keep := capacity/pe.stride + 2
 	pe.times = make([]float64, 0, keep)
@@ -76,15 +66,32 @@ func (k *consolidation) prepareEnds(capacity int) {
 	k.ends = pe
 }
 
+// elementWeights returns ∫ N_a dz of every element's local nodes
+// (Order+1 per element), the weights of layerNow.
+func (k *consolidation) elementWeights() []float64 {
+	m := k.c.m
+	np := m.Order + 1
+	unit := make([]float64, m.Nodes())
+	ew := make([]float64, m.Elements()*np)
+	for e := range m.Elements() {
+		for a := range np {
+			unit[e*m.Order+a] = 1
+			ew[e*np+a] = m.Integrate(unit, e)
+			unit[e*m.Order+a] = 0
+		}
+	}
+	return ew
+}
+
 // layerNow writes each layer's settlement now to dst, from the model
-// that drives the loop. No allocation.
-func (k *consolidation) layerNow(dst []float64) {
+// that drives the loop, with the element weights ew. No allocation.
+func (k *consolidation) layerNow(dst, ew []float64) {
 	clear(dst)
 	if k.nl != nil {
 		k.nl.layerSettlements(dst)
 		return
 	}
-	m, tr, ew := k.c.m, k.tr, k.ends.ew
+	m, tr := k.c.m, k.tr
 	np := m.Order + 1
 	for e := range m.Elements() {
 		n0 := e * m.Order
@@ -148,8 +155,7 @@ func (k *consolidation) secondary() {
 		}
 	}
 	sum, missing := 0.0, false
-	type part struct{ t0, tp, ca, cr, ep, h float64 }
-	var parts []part
+	var parts []secondaryPart
 	for j, i := range k.ends.layers {
 		l := &p.Layers[i]
 		ca := calphaOf(l)
@@ -181,9 +187,9 @@ func (k *consolidation) secondary() {
 				k.warn(JoinPath(at, "calphaReduced"), fmt.Sprintf("load is removed at %.4g days: with the full Cα the secondary rate after it is overestimated; give calphaReduced for the reduced rate", removal))
 			}
 		}
-		pt := part{t0, tp, ca, cr, ep, l.Thickness}
+		pt := secondaryPart{i, t0, tp, removal, ca, cr, ep, l.Thickness}
 		parts = append(parts, pt)
-		s := secondaryAt(pt.t0, pt.tp, removal, pt.ca, pt.cr, pt.ep, pt.h, life)
+		s := pt.at(life)
 		r.Summary.Layers[i].Secondary = ptr(s)
 		r.Summary.Layers[i].SecondaryStart = ptr(tp)
 		sum += s
@@ -192,13 +198,28 @@ func (k *consolidation) secondary() {
 		return
 	}
 	r.Summary.Secondary = ptr(sum)
+	k.secParts = parts
 	ser := &r.Consolidation.Series
 	ser.Secondary = make([]float64, len(ser.Time))
 	for j, t := range ser.Time {
 		for _, pt := range parts {
-			ser.Secondary[j] += secondaryAt(pt.t0, pt.tp, removal, pt.ca, pt.cr, pt.ep, pt.h, t)
+			ser.Secondary[j] += pt.at(t)
 		}
 	}
+}
+
+// secondaryPart is what one layer's secondary compression needs: its
+// index, the start t0 of the stage its end of primary tp follows, the
+// last removal of load tr (NaN: none), Cα before and after it, the void
+// ratio at the end of primary and the thickness.
+type secondaryPart struct {
+	layer                     int
+	t0, tp, tr, ca, cr, ep, h float64
+}
+
+// at is the layer's secondary compression at time t, m.
+func (pt secondaryPart) at(t float64) float64 {
+	return secondaryAt(pt.t0, pt.tp, pt.tr, pt.ca, pt.cr, pt.ep, pt.h, t)
 }
 
 // secondaryAt is one layer's secondary compression at time t, m: Mesri's

@@ -24,6 +24,18 @@ type Options struct {
 	// stay empty); the rest of Result.Drains is filled. The design
 	// helper needs only Us.
 	NoDrainReference bool
+
+	// watch, when set, follows the nodal stresses of the main
+	// consolidation (the surcharge design's check point by point).
+	watch *watcher
+}
+
+// watcher sees the final nodal total stress and pore pressure change of a
+// consolidation once (with the initial effective stress s0), then their
+// values after every recorded step.
+type watcher struct {
+	final func(sigInf, uInf, s0 []float64)
+	step  func(t float64, sigma, u []float64)
 }
 
 // Solve validates p and computes the steady seepage state and, when the
@@ -60,10 +72,13 @@ func solveValid(p *Project, opt *Options) (*Result, error) {
 	r.Summary.Flux = r.Steady.Flux
 	if HasConsolidation(p) {
 		main, ref := opt, opt
+		if opt != nil && opt.watch != nil {
+			ref = &Options{Progress: opt.Progress} // the watch is the main solve's
+		}
 		if c.drains != nil && opt != nil && opt.Progress != nil && !opt.NoDrainReference {
 			// Two thirds of the work are the solves with vertical flow
 			// alone and with radial flow alone.
-			main = &Options{Progress: func(f float64) bool { return opt.Progress(f / 3) }}
+			main = &Options{Progress: func(f float64) bool { return opt.Progress(f / 3) }, watch: opt.watch}
 			ref = &Options{Progress: func(f float64) bool { return opt.Progress(1.0/3 + 2*f/3) }}
 		}
 		if err := c.consolidate(&r.Steady, r, main, warn); err != nil {

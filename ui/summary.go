@@ -105,6 +105,9 @@ func (c *Summary) rows() []sumRow {
 	if s.Secondary == nil && !noLoad && c.R.Consolidation != nil {
 		rows[5].Note = "needs Cα (and e0) for a layer"
 	}
+	if res := c.R.Residual; res != nil {
+		rows = append(rows, residualRow(c.P, res))
+	}
 	if s.Submerged != nil {
 		rows = append(rows, length("sum-submerged", "Fill below the water table", s.Submerged, "at the end: it weighs γsat − γw there, and the settlement allows for it"))
 	}

@@ -40,6 +40,7 @@ func cloneProject(p *solver.Project) *solver.Project {
 	q.Piezometers = slices.Clone(p.Piezometers)
 	q.Monitoring = cloneMonitoring(p.Monitoring)
 	q.Drains = cloneDrains(p.Drains)
+	q.Decisions = cloneDecisions(p.Decisions)
 	return &q
 }
 

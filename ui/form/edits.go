@@ -35,6 +35,7 @@ func (f *Form) AddLayer(i int) {
 	}
 	f.remap("layers", inserted)
 	f.renumberTip(inserted)
+	f.renumberStrength(inserted)
 	f.remapAsaokaLayers(inserted)
 	f.check()
 }
@@ -47,6 +48,7 @@ func (f *Form) RemoveLayer(i int) {
 	f.draft.Layers = slices.Delete(f.draft.Layers, i, i+1)
 	f.remap("layers", Removed(i))
 	f.renumberTip(Removed(i))
+	f.renumberStrength(Removed(i))
 	f.remapAsaokaLayers(Removed(i))
 	f.check()
 }
@@ -70,6 +72,7 @@ func (f *Form) MoveLayer(i, d int) {
 	}
 	f.remap("layers", swapped)
 	f.renumberTip(swapped)
+	f.renumberStrength(swapped)
 	f.remapAsaokaLayers(swapped)
 	f.check()
 }
@@ -92,6 +95,7 @@ func (f *Form) RemoveLoad(i int) {
 	}
 	f.draft.Loads = slices.Delete(f.draft.Loads, i, i+1)
 	f.remap("loads", Removed(i))
+	f.renumberRemoval(Removed(i))
 	f.check()
 }
 

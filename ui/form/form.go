@@ -242,6 +242,8 @@ var pageFields = func() map[string]bool {
 	add("drains.", "pattern", "spacing", "diameter", "width", "thickness", "equivalent", "smearRatio", "smearK",
 		"qw", "discharge", "top", "depth", "design.degree", "design.time")
 	add("monitoring.", "start")
+	add("decisions.", "handover", "surcharge.removeBy", "strength.fs")
+	add("decisions.strength.laws[#].", "s", "m", "ratio", "gain")
 	add("monitoring.plates[#].", "name", "readings[#].t", "readings[#].value")
 	add("monitoring.piezometers[#].", "name", "depth", "readings[#].t", "readings[#].value")
 	return m

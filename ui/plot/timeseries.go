@@ -332,6 +332,7 @@ func SettlementTimeFigure(p *solver.Project, r, fit *solver.Result, dates bool, 
 	for i, m := range recs {
 		f.addPoints(pn, clip, "plate "+m.name+", measured", markAt(i), m.ts, m.vs, readTime("measured s", " m", 3))
 	}
+	f.residualMarks(pn, clip, r)
 	f.legend(f.W-legendW+8, timeTop+8, legendW-12, int((f.H-timeTop-20)/16), f.allSeries())
 	return f
 }
