@@ -100,7 +100,7 @@ func (k *consolidation) finalState() error {
 		return err
 	}
 	k.bps = breakpoints(k.c.p, k.tr.set.EndTime)
-	if len(k.tr.held) == 0 && k.c.drains == nil {
+	if !k.tr.canDrain() {
 		k.warn("", "both ends are undrained: the excess pore pressure cannot drain, so no consolidation settlement develops")
 	}
 	return nil
@@ -229,7 +229,7 @@ func (k *consolidation) prepareSeries() *Consolidation {
 		}
 	}
 	k.denP = dot(tr.wLength, k.sigInf) - dot(tr.wLength, k.uInf)
-	k.defined = math.Abs(k.denS) > 1e-12*math.Max(1, math.Abs(*k.r.Summary.SettlementLinear)) && (len(tr.held) > 0 || k.c.drains != nil)
+	k.defined = math.Abs(k.denS) > 1e-12*math.Max(1, math.Abs(*k.r.Summary.SettlementLinear)) && tr.canDrain()
 	// Up's denominator ∫Δσ'∞ dz vanishes when the final change of
 	// effective stress is zero everywhere (a load applied, then removed)
 	// or rises in one part of the column as much as it falls in another,
@@ -240,7 +240,7 @@ func (k *consolidation) prepareSeries() *Consolidation {
 	for i, w := range tr.wLength {
 		absP += w * math.Abs(k.sigInf[i]-k.uInf[i])
 	}
-	k.definedUp = (len(tr.held) > 0 || k.c.drains != nil) && math.Abs(k.denP) > 1e-9*absP
+	k.definedUp = tr.canDrain() && math.Abs(k.denP) > 1e-9*absP
 	if k.defined && !k.definedUp {
 		k.warn("loads", "the degree of dissipation Up is not shown: the final change of effective stress sums to zero over the column (it rises in one part as much as it falls in another, or returns to where it started), so Up would be 0/0; Us and the settlement are unaffected")
 	}

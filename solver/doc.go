@@ -213,6 +213,28 @@
 // consolidation (Gibson et al. 1967) and creep beyond Cα after primary
 // are not covered. Vertical drains work with it (see Vertical drains).
 //
+// # Drains inside the column and leaky ends
+//
+// A layer with an Outlet drains to it (a sand layer cut by a ditch or
+// tapped by relief wells): its pore pressure is held at the outlet's head
+// (Outlet.Head, or hydrostatic) at every node of the layer. In the steady
+// state those nodes are held like a drained end: MoveHeld moves their
+// heads into the neighbours' equations and their rows become the identity
+// (fem.Band.Isolate) inside the factorised block. During consolidation the
+// excess there stays zero: their rows and columns are isolated in the
+// capacity (identity) and conductivity (zero) matrices and their source is
+// dropped, on the linear stepper and in the iterated loop alike, so the
+// layers on either side drain to it as to a drained end.
+//
+// An end with a Resistance R (days) drains through it (a leaky end): the
+// flow out is (h − h_b)/R, a Robin condition. In the weak form the end's
+// boundary term w·q becomes w·(h_b − h)/R, adding 1/R to the end's
+// diagonal and h_b/R to its right-hand side in the steady state (R in
+// seconds, k in m/s), and 1/(γw R) to the conductivity for the excess,
+// whose value beyond the end stays zero (a pressure history needs a free
+// end). R → 0 gives the drained end, R → ∞ the sealed one. Drains and
+// these two are not combined (Validate refuses it).
+//
 // # Vertical drains
 //
 // Project.Drains puts a pattern of vertical drains (triangular or square,
@@ -398,6 +420,12 @@
 //	                                  other end drained
 //	top|bottom.excess[j].t    day     0 … 10⁹, not decreasing         ErrNegative, ErrOutOfRange, ErrNotSorted
 //	top|bottom.excess[j].value kPa    −10⁵ … 10⁵; drained end only    ErrOutOfRange, ErrConflict
+//	                                  (not with a resistance)
+//	top|bottom.resistance     day     10⁻⁶ … 10¹²; drained end only;  ErrNotPositive, ErrOutOfRange,
+//	                                  not with drains                 ErrConflict
+//	layers[i].outlet.head     m       −10⁴ … 10⁴ (absent: −waterTable); ErrOutOfRange, ErrConflict
+//	                                  not with drains; touching
+//	                                  outlets share one head
 //	loads                     –       at most MaxLoads                ErrTooLarge
 //	loads[j].start, .ramp     day     0 … 10⁹                         ErrNegative, ErrOutOfRange
 //	loads[j].q                kPa     −10⁵ … 10⁵ (negative removes)   ErrOutOfRange

@@ -124,6 +124,19 @@ type Layer struct {
 	// when Ch is not given (ch = KhKv·cv, kh = KhKv·k). Zero means 1.
 	// Give Ch or KhKv, not both.
 	KhKv float64 `json:"khKv,omitempty"`
+	// Outlet, when given, marks the layer as draining to an outlet (a
+	// sand layer cut by a ditch or tapped by relief wells): its pore
+	// pressure is held at the outlet's head throughout the layer, in the
+	// steady state and during consolidation (where the excess there stays
+	// zero). Nil means the layer drains only through its neighbours.
+	Outlet *Outlet `json:"outlet,omitempty"`
+}
+
+// Outlet is where a draining layer lets its water go.
+type Outlet struct {
+	// Head is the total head held in the layer, m above the top of the
+	// column. Nil means hydrostatic: −WaterTable.
+	Head *float64 `json:"head,omitempty"`
 }
 
 // ECurve holds the parameters of the e–log σ' compression model.
@@ -173,7 +186,22 @@ type Boundary struct {
 	// linear in time between points and constant beyond them. Empty means
 	// zero throughout.
 	Excess []TimeValue `json:"excess,omitempty"`
+	// Resistance, when > 0 at a drained end, makes the end drain through
+	// a resistance (a leaky end: a thin tight layer or a clogged filter
+	// between the column and the water beyond), days: the thickness over
+	// the permeability, d/k, of what lies between. The flow out of the
+	// column is then (h − Head)/Resistance in the steady state (a Darcy
+	// velocity) and (u − u_b)/(γw·Resistance) for the excess, with u_b =
+	// 0 (a pressure history needs a free end). Zero means a freely
+	// drained end; a very large value approaches a sealed one.
+	Resistance float64 `json:"resistance,omitempty"`
 }
+
+// holds reports whether the end holds its pore pressure (drained freely).
+func (b Boundary) holds() bool { return b.Drained && b.Resistance == 0 }
+
+// leaky reports whether the end drains through a resistance.
+func (b Boundary) leaky() bool { return b.Drained && b.Resistance > 0 }
 
 // Load is one load stage: a pressure change q at the top, or a fill of
 // given thickness and unit weight, applied linearly from Start over Ramp,

@@ -243,6 +243,7 @@ func (nl *nonlinear) coefficients(theta float64, sigma, u []float64) {
 func (nl *nonlinear) step(theta, t0, dt float64) error {
 	tr := nl.tr
 	ds := tr.stressStep(t0, dt)
+	tr.zeroPins(ds)
 	tr.heldValues(tr.next, t0+dt, true)
 	// The first iterate extrapolates the last step's change, unless
 	// something jumped since (then u is no longer where that step ended).
@@ -314,6 +315,8 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 			if nl.sink != nil {
 				nl.sink.add(nl.cond, nl.cc)
 			}
+			tr.addLeaks(nl.cond)
+			tr.isolatePins(nl.mass, nl.cond)
 			if err := fem.FactorizeSum(&nl.f, nl.mass, nl.cond, theta*dt, tr.lo, tr.hi); err != nil {
 				return tr.c.numerical(err, fmt.Sprintf("the non-linear consolidation step from %.4g to %.4g days", t0, t0+dt))
 			}
@@ -432,6 +435,26 @@ func (nl *nonlinear) solveLumped(theta, dt float64, ds []float64) error {
 		d[e+1] = a
 		l[e] = -c1 * g
 		va, wa = vb, wb
+	}
+	// A leaky end passes (u − 0)/(γw R) out: θΔt of it on A', the flux of
+	// w on the residual. A draining layer's node keeps u = 0: its row is
+	// the identity and its update zero.
+	if a := tr.leakTop; a > 0 {
+		d[0] += c1 * a
+		r[0] -= a * (c0*nl.u0[0] + c1*nl.u1[0])
+	}
+	if a, j := tr.leakBottom, len(nl.half); a > 0 {
+		d[j] += c1 * a
+		r[j] -= a * (c0*nl.u0[j] + c1*nl.u1[j])
+	}
+	for _, j := range tr.pinned {
+		d[j], r[j] = 1, 0
+		if j > 0 {
+			l[j-1] = 0
+		}
+		if j < len(nl.half) {
+			l[j] = 0
+		}
 	}
 	// A' = L D Lᵀ on the free rows, L y = r, then Lᵀ x = D⁻¹ y. The
 	// pivots come first, alone: each waits on the last, so they are taken

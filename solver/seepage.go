@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"slices"
 
 	"porelight/solver/fem"
 	"porelight/solver/soil"
@@ -57,8 +58,9 @@ func (c *column) steady(warn func(path, msg string)) (Steady, error) {
 	n := m.Nodes()
 	h := make([]float64, n)
 	hydro := -p.WaterTable
+	pins := c.pins()
 	switch {
-	case !p.Top.Drained && !p.Bottom.Drained:
+	case !p.Top.Drained && !p.Bottom.Drained && len(pins) == 0:
 		// No end holds a head: with no inflow (Validate refuses an inflow
 		// here) the water stands at the water table.
 		for i := range h {
@@ -68,28 +70,62 @@ func (c *column) steady(warn func(path, msg string)) (Steady, error) {
 	default:
 		k := fem.NewBand(n, m.Order)
 		m.Assemble(k, func(e int, _ float64) float64 { return p.Layers[m.Layer[e]].K }, false)
+		// rhs is the inflow through each end (a leaky end's h_b/R), extra
+		// a leaky end's 1/R on the diagonal.
+		rhs, extra := make([]float64, n), make([]float64, n)
 		lo, hi := 0, n
 		var held []int
-		if p.Top.Drained {
-			h[0] = headOr(p.Top.Head, hydro)
-			held, lo = append(held, 0), 1
-		} else {
-			h[0] = p.Top.Inflow
+		ends := []struct {
+			b    Boundary
+			node int
+		}{{p.Top, 0}, {p.Bottom, n - 1}}
+		for _, e := range ends {
+			switch {
+			case e.b.holds():
+				h[e.node] = headOr(e.b.Head, hydro)
+				held = append(held, e.node)
+			case e.b.leaky():
+				a := endLeak(e.b)
+				extra[e.node] += a
+				rhs[e.node] += a * headOr(e.b.Head, hydro)
+			default:
+				rhs[e.node] += e.b.Inflow
+			}
 		}
-		if p.Bottom.Drained {
-			h[n-1] = headOr(p.Bottom.Head, hydro)
-			held, hi = append(held, n-1), n-1
-		} else {
-			h[n-1] += p.Bottom.Inflow
+		var inner []int // draining layers' nodes inside the factorised block
+		for _, pn := range pins {
+			if slices.Contains(held, pn.node) {
+				continue // a held end keeps its own head
+			}
+			h[pn.node] = pn.head
+			held = append(held, pn.node)
+			inner = append(inner, pn.node)
 		}
-		inflow := append([]float64(nil), h...) // right-hand side before the held ends move into it
-		fem.MoveHeld(h, k, h, held)
+		if slices.Contains(held, 0) {
+			lo = 1
+		}
+		if slices.Contains(held, n-1) {
+			hi = n - 1
+		}
+		kf := &fem.Band{N: k.N, KD: k.KD, AB: append([]float64(nil), k.AB...)}
+		for i, a := range extra {
+			if a != 0 {
+				kf.Add(i, i, a)
+			}
+		}
+		b := append([]float64(nil), rhs...)
+		fem.MoveHeld(b, kf, h, held)
+		for _, j := range inner {
+			kf.Isolate(j, 1)
+			b[j] = h[j]
+		}
 		var f fem.Factor
-		if err := fem.Factorize(&f, k, lo, hi); err != nil {
+		if err := fem.Factorize(&f, kf, lo, hi); err != nil {
 			return Steady{}, c.numerical(err, "the steady seepage equations")
 		}
-		f.Solve(h)
-		fem.Refine(h, inflow, k, &f, lo, hi)
+		f.Solve(b)
+		copy(h[lo:hi], b[lo:hi])
+		fem.RefineWith(h, rhs, k, extra, inner, &f, lo, hi)
 	}
 
 	s := Steady{Depth: append([]float64(nil), m.Z...), Head: h}

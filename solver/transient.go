@@ -13,26 +13,31 @@ import (
 // change of every load stage, and the workspace, so that a step allocates
 // nothing.
 type transient struct {
-	c        *column
-	mv       []float64 // per layer, 1/kPa
-	k, mass  *fem.Band // conductivity (k/γw, m²/(kPa·day)) and mv-mass
-	sink     *fem.Band // the drains' radial sink (nil without drains)
-	kSink    *fem.Band // k + sink, what the stepper steps with drains
-	stepper  *fem.Stepper
-	held     []int
-	lo, hi   int // free unknowns
-	u        []float64
-	tmp      []float64
-	next     []float64    // held values at the end of a step
-	sigma    []float64    // total stress change at the nodes, kPa
-	shapes   [][]float64  // per load stage: Q·factor at the nodes
-	wMass    []float64    // ∫ mv Nᵢ dz
-	wLength  []float64    // ∫ Nᵢ dz
-	set      Stepping     // resolved
-	sub      *submergence // nil without fill stages
-	settled  float64      // settlement of the top at the last record, m
-	sigmaHs  float64      // the submerged fill thickness sigma holds, m
-	progress func(float64) bool
+	c       *column
+	mv      []float64 // per layer, 1/kPa
+	k, mass *fem.Band // conductivity (k/γw, m²/(kPa·day)) and mv-mass
+	sink    *fem.Band // the drains' radial sink (nil without drains)
+	kSink   *fem.Band // k + sink, what the stepper steps with drains
+	stepper *fem.Stepper
+	held    []int
+	lo, hi  int // free unknowns
+	// leakTop and leakBottom are the leaky ends' 1/(γw R), m/(kPa·day)
+	// (0: not leaky), already in k; pinned lists the nodes draining
+	// layers hold at zero excess (see outlets.go).
+	leakTop, leakBottom float64
+	pinned              []int
+	u                   []float64
+	tmp                 []float64
+	next                []float64    // held values at the end of a step
+	sigma               []float64    // total stress change at the nodes, kPa
+	shapes              [][]float64  // per load stage: Q·factor at the nodes
+	wMass               []float64    // ∫ mv Nᵢ dz
+	wLength             []float64    // ∫ Nᵢ dz
+	set                 Stepping     // resolved
+	sub                 *submergence // nil without fill stages
+	settled             float64      // settlement of the top at the last record, m
+	sigmaHs             float64      // the submerged fill thickness sigma holds, m
+	progress            func(float64) bool
 }
 
 // newTransient assembles the conductivity matrix of c and sizes the
@@ -54,14 +59,15 @@ func newTransient(c *column, opt *Options) *transient {
 	m.Load(tr.wLength, func(float64) float64 { return 1 })
 
 	tr.lo, tr.hi = 0, n
-	if p.Top.Drained && !c.radialOnly {
+	if p.Top.holds() && !c.radialOnly {
 		tr.lo = 1
 		tr.held = append(tr.held, 0)
 	}
-	if p.Bottom.Drained && !c.radialOnly {
+	if p.Bottom.holds() && !c.radialOnly {
 		tr.hi = n - 1
 		tr.held = append(tr.held, n-1)
 	}
+	tr.setLeaks()
 	tr.u = make([]float64, n)
 	tr.tmp = make([]float64, n)
 	tr.next = make([]float64, len(tr.held))
@@ -118,6 +124,7 @@ func (tr *transient) setMv(mv []float64) {
 		}
 		k = tr.kSink
 	}
+	tr.isolatePins(tr.mass, k)
 	tr.stepper = fem.NewStepper(tr.mass, k, tr.held, lumped)
 }
 
@@ -203,6 +210,7 @@ func (tr *transient) step(theta, t0, dt float64) error {
 	if out := tr.outlet(); out != nil {
 		ds = tr.shiftToOutlet(out, ds, t0, t0+dt)
 	}
+	tr.zeroPins(ds)
 	if err := tr.stepper.Step(tr.u, ds, tr.next, theta, dt); err != nil {
 		return tr.c.numerical(err, fmt.Sprintf("the consolidation step from %.4g to %.4g days", t0, t0+dt))
 	}
@@ -249,6 +257,7 @@ func (tr *transient) jump(t float64) {
 			tr.u[j] += profileAt(p.InitialExcess, tr.c.m.Z[j], 0)
 		}
 	}
+	tr.zeroPins(tr.u)
 	tr.stressAt(tr.sigma, t, false)
 	tr.setHeld(tr.u, t, false)
 }
@@ -261,7 +270,7 @@ func (tr *transient) final() (sigma, u []float64, err error) {
 	sigma = make([]float64, n)
 	tr.stressAt(sigma, math.Inf(1), false)
 	u = make([]float64, n)
-	if len(tr.held) == 0 {
+	if len(tr.held) == 0 && len(tr.pinned) == 0 && tr.leakTop == 0 && tr.leakBottom == 0 {
 		if tr.c.drains == nil {
 			copy(u, sigma)
 		}
@@ -278,9 +287,17 @@ func (tr *transient) final() (sigma, u []float64, err error) {
 	rhs := make([]float64, n)
 	copy(rhs, u)
 	clear(rhs[tr.lo:tr.hi])
-	fem.MoveHeld(rhs, tr.k, u, tr.held)
+	k := tr.k
+	if len(tr.pinned) > 0 {
+		// The draining layers' nodes stay at zero excess: identity rows.
+		k = &fem.Band{N: tr.k.N, KD: tr.k.KD, AB: append([]float64(nil), tr.k.AB...)}
+		for _, j := range tr.pinned {
+			k.Isolate(j, 1)
+		}
+	}
+	fem.MoveHeld(rhs, k, u, tr.held)
 	var f fem.Factor
-	if err := fem.Factorize(&f, tr.k, tr.lo, tr.hi); err != nil {
+	if err := fem.Factorize(&f, k, tr.lo, tr.hi); err != nil {
 		return nil, nil, tr.c.numerical(err, "the final drained state")
 	}
 	f.Solve(rhs)

@@ -115,7 +115,8 @@ func Validate(p *Project) error {
 
 	validBoundary(&ps, "top", p.Top)
 	validBoundary(&ps, "bottom", p.Bottom)
-	if !p.Top.Drained && !p.Bottom.Drained {
+	validOutlets(&ps, p)
+	if !p.Top.Drained && !p.Bottom.Drained && !hasOutlet(p) {
 		for _, c := range []struct {
 			at string
 			q  float64
@@ -237,6 +238,14 @@ func validBoundary(ps *Problems, at string, b Boundary) {
 	}
 	if len(b.Excess) > 0 && !b.Drained {
 		ps.Add(at+".excess", ErrConflict, "a pressure history needs a drained end")
+	}
+	if b.Resistance != 0 && bounded(ps, at+".resistance", b.Resistance, MinResistance, MaxResistance, "days") {
+		switch {
+		case !b.Drained:
+			ps.Add(at+".resistance", ErrConflict, "a resistance needs a drained end (it drains through the resistance); an undrained end is sealed")
+		case len(b.Excess) > 0:
+			ps.Add(at+".excess", ErrConflict, "a pressure history needs a freely drained end; this end drains through a resistance")
+		}
 	}
 	for i, tv := range b.Excess {
 		p := fmt.Sprintf("%s.excess[%d]", at, i)
