@@ -54,6 +54,9 @@ type consolidation struct {
 	nlFinal   []float64 // per layer: the final settlement from the end state
 
 	ends *primaryEnds // per layer end of primary (nil: no layer has a Cα)
+
+	checks *checks // the heave and uplift checks through time
+	jumped bool    // the state to record follows an instantaneous change
 }
 
 // probe is a piezometer: where to read the excess, and the steady pore
@@ -258,6 +261,8 @@ func (k *consolidation) prepareSeries() *Consolidation {
 		ser.SettlementElog = make([]float64, 0, capacity)
 	}
 	k.prepareEnds(capacity)
+	k.checks = newChecks(k.c, k.st)
+	k.checks.prepare(capacity, p.Loads)
 	for i := range ser.Piezometers {
 		ser.Piezometers[i].Pore = make([]float64, 0, capacity)
 		ser.Piezometers[i].Excess = make([]float64, 0, capacity)
@@ -339,6 +344,8 @@ func (k *consolidation) record(ser *Series, t float64) {
 		k.layerNow(k.ends.now)
 		k.ends.observe(t, k.ends.now)
 	}
+	k.checks.observe(t, tr.sigma, tr.u, k.jumped)
+	k.jumped = false
 	for i := range k.probes {
 		pz := &k.probes[i]
 		ex := pz.at.Read(tr.u)
@@ -363,6 +370,7 @@ func (k *consolidation) march() error {
 		if bps[0].kind&bpJump != 0 {
 			tr.jump(0)
 			damp = tr.set.DampedSteps
+			k.jumped = true
 		}
 		bi = 1
 	}
@@ -405,6 +413,7 @@ func (k *consolidation) march() error {
 			if b.kind&bpJump != 0 {
 				tr.jump(t)
 				damp = tr.set.DampedSteps
+				k.jumped = true
 			}
 			if b.kind&(bpRestart|bpJump) != 0 {
 				dt = tr.set.FirstStep
@@ -421,6 +430,8 @@ func (k *consolidation) march() error {
 			}
 		}
 	}
+	k.checks.longTerm(k.sigInf, k.uInf)
+	k.checks.summarise(k.r)
 	k.r.Stats.Steps = k.steps
 	k.r.Stats.Factorizations = tr.stepper.Factorizations()
 	k.r.Stats.Scheme = res.Start

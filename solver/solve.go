@@ -76,10 +76,9 @@ func solveValid(p *Project, opt *Options) (*Result, error) {
 		}
 		r.Consolidation.Stages = c.stageStresses()
 	}
-	for _, l := range r.Steady.Layers {
-		if l.HeaveFactor != nil && (r.Summary.MinHeaveFactor == nil || *l.HeaveFactor < *r.Summary.MinHeaveFactor) {
-			r.Summary.MinHeaveFactor = ptr(*l.HeaveFactor)
-		}
+	if r.Consolidation == nil {
+		// The checks of the steady state: initial and long term alike.
+		newChecks(c, &r.Steady).summarise(r)
 	}
 	if path, v, ok := firstNonFinite(reflect.ValueOf(r).Elem(), ""); ok {
 		var ps Problems

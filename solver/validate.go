@@ -218,7 +218,7 @@ func Validate(p *Project) error {
 			ps.Add("stepping.firstStep", ErrTooLarge, fmt.Sprintf("about %d time steps, the limit is %d; use a larger stepping.firstStep or stepping.growth", steps, MaxSteps))
 		case float64(steps)*float64(nodes) > MaxWork:
 			ps.Add("stepping.firstStep", ErrTooLarge, fmt.Sprintf("about %d time steps × %d nodes, the limit is %d; use a larger stepping.firstStep or stepping.growth, or a larger mesh.maxSize", steps, nodes, MaxWork))
-		case float64(nodes)*float64(len(p.Times)+7)+float64(steps)*float64(7+2*len(p.Piezometers)+drainSeries(p)) > MaxStored:
+		case float64(nodes)*float64(len(p.Times)+7)+float64(steps)*float64(7+2*len(p.Piezometers)+drainSeries(p)+checkSeries(p)) > MaxStored:
 			ps.Add("times", ErrTooLarge, fmt.Sprintf("the results would hold %d output times × %d nodes and %d time steps, more than the limit of %d numbers; use fewer output times or a larger mesh.maxSize", len(p.Times), nodes, steps, MaxStored))
 		}
 	}
