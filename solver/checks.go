@@ -131,9 +131,25 @@ func newChecks(c *column, st *Steady) *checks {
 	p, m := c.p, c.m
 	ch := &checks{c: c, st: st}
 	node := func(i int) int { return m.Order * m.First[i] }
+	// A layer an excavation cuts is checked below its floor; one it
+	// removes is not checked.
+	site := func(kind string, i int) (checkSite, bool) {
+		s := checkSite{kind: kind, layer: i, top: node(i), base: node(i + 1), zTop: c.tops[i], zB: c.tops[i+1]}
+		if c.digStage >= 0 {
+			if s.base <= c.digNode {
+				return s, false
+			}
+			if s.top < c.digNode {
+				s.top, s.zTop = c.digNode, m.Z[c.digNode]
+			}
+		}
+		return s, true
+	}
 	for _, i := range c.upliftSites() {
 		for _, kind := range []string{CheckPrism, CheckUplift} {
-			ch.sites = append(ch.sites, checkSite{kind: kind, layer: i, top: node(i), base: node(i + 1), zTop: c.tops[i], zB: c.tops[i+1]})
+			if s, ok := site(kind, i); ok {
+				ch.sites = append(ch.sites, s)
+			}
 		}
 	}
 	// Heave: the layers with upward steady flow first, so that they get
@@ -143,8 +159,10 @@ func newChecks(c *column, st *Steady) *checks {
 			if st.Layers[i].Upward != up {
 				continue
 			}
-			ch.sites = append(ch.sites, checkSite{kind: CheckHeave, layer: i, top: node(i), base: node(i + 1), zTop: c.tops[i], zB: c.tops[i+1],
-				ic: (l.GammaSat - c.gw) / c.gw})
+			if s, ok := site(CheckHeave, i); ok {
+				s.ic = (l.GammaSat - c.gw) / c.gw
+				ch.sites = append(ch.sites, s)
+			}
 		}
 	}
 	ch.out = make([]Check, len(ch.sites))

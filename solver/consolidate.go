@@ -70,6 +70,9 @@ type probe struct {
 // and fills r.Consolidation, the settlement summary and warnings.
 func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path, msg string)) error {
 	k := &consolidation{c: c, st: st, r: r, warn: warn, tr: newTransient(c, opt)}
+	if c.digStage >= 0 {
+		k.tr.digExcess = c.digHeldExcess(st)
+	}
 	if err := k.finalState(); err != nil {
 		return err
 	}
@@ -133,7 +136,7 @@ func (k *consolidation) sublayers() {
 		li := m.Layer[e]
 		l := &p.Layers[li]
 		k.points[e] = soil.NewPoint(soil.Curve{}, z1-z0, s0, s0)
-		if l.ECurve == nil {
+		if l.ECurve == nil || k.c.isDug(e) {
 			continue
 		}
 		ec := l.ECurve
@@ -273,8 +276,8 @@ func (k *consolidation) prepareSeries() *Consolidation {
 	// submerged. Under loading alone σ' = σ'0 + σ − u cannot drop below
 	// σ'0, since u ≤ σ.
 	k.followStress = k.anyCurve || tr.sub != nil
-	for _, l := range p.Loads {
-		k.followStress = k.followStress || l.Pressure() < 0
+	for i := range p.Loads {
+		k.followStress = k.followStress || StagePressure(p, i) < 0
 	}
 	for _, b := range []Boundary{p.Top, p.Bottom} {
 		for _, tv := range b.Excess {
@@ -289,7 +292,7 @@ func (k *consolidation) prepareSeries() *Consolidation {
 func (k *consolidation) record(ser *Series, t float64) {
 	p, m, tr := k.c.p, k.c.m, k.tr
 	ser.Time = append(ser.Time, t)
-	ser.Load = append(ser.Load, surcharge(p.Loads, t))
+	ser.Load = append(ser.Load, surcharge(p, t))
 	if tr.sub != nil {
 		ser.Load[len(ser.Load)-1] -= tr.sub.lost(p.Loads, t, false, tr.settled)
 	}
@@ -318,6 +321,9 @@ func (k *consolidation) record(ser *Series, t float64) {
 	} else if k.followStress {
 		total := 0.0
 		for e := range k.points {
+			if k.c.isDug(e) {
+				continue
+			}
 			s := &k.points[e]
 			to := s.S0 + m.Centre(tr.sigma, e) - m.Centre(tr.u, e)
 			if to < 0 && !k.negativeWarned {

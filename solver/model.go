@@ -228,6 +228,26 @@ type Load struct {
 	// them (e.g. an influence factor from an elastic stress solution).
 	// Empty means factor 1 at every depth.
 	Profile []DepthValue `json:"profile,omitempty"`
+	// Dig, when given, makes the stage an excavation: soil removed from
+	// the top of the column down to Dig.Depth over the stage's ramp (or
+	// at once), unloading the soil below by the weight removed, with the
+	// water inside the excavation at Dig.WaterLevel. Q must be 0 and the
+	// stage has no Fill, Area or Profile.
+	Dig *Dig `json:"dig,omitempty"`
+}
+
+// Dig is an excavation from the top of the column. Depths stay measured
+// from the original top: results below the floor are at their depth
+// below the ground as it was before digging.
+type Dig struct {
+	// Depth is the floor of the excavation once complete, m below the
+	// original top, inside the column.
+	Depth float64 `json:"depth"`
+	// WaterLevel is the depth of the water standing inside the
+	// excavation, m below the original top: at or below Depth means
+	// pumped dry (the floor at zero pore pressure). Nil means the water
+	// table (the excavation floods to it; no pumping).
+	WaterLevel *float64 `json:"waterLevel,omitempty"`
 }
 
 // Fill is a layer of earth placed on the top of the column.

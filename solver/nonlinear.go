@@ -109,6 +109,9 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 		l := &c.p.Layers[m.Layer[e]]
 		nl.mv[e] = mvs[m.Layer[e]]
 		nl.mvu[e] = l.MvUnload
+		if c.isDug(e) { // taken out by the excavation: no storage
+			nl.mv[e], nl.mvu[e] = 0, 0
+		}
 		nl.sig[e] = pts[e].S0
 		nl.peak[e] = pts[e].S0
 		nl.k0[e] = l.K * soil.SecondsPerDay / c.gw
@@ -505,7 +508,7 @@ func (nl *nonlinear) commit(t float64, sigma, u []float64) {
 	for e := range nl.pts {
 		p := &nl.pts[e]
 		to := p.S0 + nl.mean(sigma, e) - nl.mean(u, e)
-		if to < 0 && math.IsNaN(nl.negativeAt) {
+		if to < 0 && math.IsNaN(nl.negativeAt) && !nl.tr.c.isDug(e) {
 			_, z0, z1 := nl.m.Span(e)
 			nl.negativeAt, nl.negativeT = (z0+z1)/2, t
 		}

@@ -23,6 +23,11 @@ type column struct {
 	radialOnly bool
 	// factors is Δσ/q of every load stage at the nodes (stageFactors).
 	factors [][]float64
+	// The excavation (see excavation.go): its stage (−1: none), the node
+	// of its floor and the elements above it (nil: none).
+	digStage int
+	digNode  int
+	dug      []bool
 }
 
 // newColumn fills in the defaults of a validated project and meshes it.
@@ -36,8 +41,9 @@ func newColumn(p *Project) *column {
 	}
 	c.height = c.tops[len(p.Layers)]
 	ms := ResolveMesh(p)
-	c.m = fem.NewMeshBreaks(th, ms.Order, ms.MaxSize, ms.MinPerLayer, drainBreaks(p))
+	c.m = fem.NewMeshBreaks(th, ms.Order, ms.MaxSize, ms.MinPerLayer, meshBreaks(p))
 	c.drains = ResolveDrains(p)
+	c.setDig()
 	return c
 }
 
@@ -194,26 +200,7 @@ func (c *column) steady(warn func(path, msg string)) (Steady, error) {
 // totalStress is the vertical total stress at depth z before loading, kPa:
 // the weight of soil above (moist above the water table, saturated below)
 // plus any water standing above the top.
-func (c *column) totalStress(z float64) float64 {
-	wt := c.p.WaterTable
-	s := 0.0
-	if wt < 0 {
-		s = c.gw * -wt
-	}
-	for i, l := range c.p.Layers {
-		top, bot := c.tops[i], math.Min(c.tops[i+1], z)
-		if bot <= top {
-			break
-		}
-		g := l.Gamma
-		if g == 0 {
-			g = l.GammaSat
-		}
-		dry := math.Max(0, math.Min(bot, wt)-top)
-		s += g*dry + l.GammaSat*(bot-top-dry)
-	}
-	return s
-}
+func (c *column) totalStress(z float64) float64 { return overburden(c.p, z) }
 
 func headOr(h *float64, def float64) float64 {
 	if h != nil {

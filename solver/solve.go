@@ -51,6 +51,7 @@ func solveValid(p *Project, opt *Options) (*Result, error) {
 	oddValues(p, warn)
 	drainWarnings(p, warn)
 	loadWarnings(p, c.height, warn)
+	digWarnings(p, warn)
 	st, err := c.steady(warn)
 	if err != nil {
 		return nil, err

@@ -335,12 +335,12 @@ func (c *column) stageStresses() []StageStress {
 	}
 	factors := c.stageFactors()
 	out := make([]StageStress, len(p.Loads))
-	for i, l := range p.Loads {
+	for i := range p.Loads {
 		f := make([]float64, len(idx))
 		for k, j := range idx {
 			f[k] = factors[i][j]
 		}
-		out[i] = StageStress{Q: l.Pressure(), Depth: depth, Factor: f}
+		out[i] = StageStress{Q: StagePressure(p, i), Depth: depth, Factor: f}
 	}
 	return out
 }

@@ -26,18 +26,21 @@ type transient struct {
 	// layers hold at zero excess (see outlets.go).
 	leakTop, leakBottom float64
 	pinned              []int
-	u                   []float64
-	tmp                 []float64
-	next                []float64    // held values at the end of a step
-	sigma               []float64    // total stress change at the nodes, kPa
-	shapes              [][]float64  // per load stage: Q·factor at the nodes
-	wMass               []float64    // ∫ mv Nᵢ dz
-	wLength             []float64    // ∫ Nᵢ dz
-	set                 Stepping     // resolved
-	sub                 *submergence // nil without fill stages
-	settled             float64      // settlement of the top at the last record, m
-	sigmaHs             float64      // the submerged fill thickness sigma holds, m
-	progress            func(float64) bool
+	// digExcess is the excess held at an excavation's floor (and above)
+	// once it is complete, kPa (setDig).
+	digExcess float64
+	u         []float64
+	tmp       []float64
+	next      []float64    // held values at the end of a step
+	sigma     []float64    // total stress change at the nodes, kPa
+	shapes    [][]float64  // per load stage: Q·factor at the nodes
+	wMass     []float64    // ∫ mv Nᵢ dz
+	wLength   []float64    // ∫ Nᵢ dz
+	set       Stepping     // resolved
+	sub       *submergence // nil without fill stages
+	settled   float64      // settlement of the top at the last record, m
+	sigmaHs   float64      // the submerged fill thickness sigma holds, m
+	progress  func(float64) bool
 }
 
 // newTransient assembles the conductivity matrix of c and sizes the
@@ -58,15 +61,18 @@ func newTransient(c *column, opt *Options) *transient {
 	tr.wLength = make([]float64, n)
 	m.Load(tr.wLength, func(float64) float64 { return 1 })
 
-	tr.lo, tr.hi = 0, n
-	if p.Top.holds() && !c.radialOnly {
-		tr.lo = 1
-		tr.held = append(tr.held, 0)
+	if !c.radialOnly {
+		// An excavation holds every node from the top to its floor.
+		for j := range c.digNode + 1 {
+			if j > 0 || p.Top.holds() || c.digStage >= 0 {
+				tr.held = append(tr.held, j)
+			}
+		}
+		if p.Bottom.holds() {
+			tr.held = append(tr.held, n-1)
+		}
 	}
-	if p.Bottom.holds() && !c.radialOnly {
-		tr.hi = n - 1
-		tr.held = append(tr.held, n-1)
-	}
+	tr.lo, tr.hi = fem.HeldRuns(n, tr.held)
 	tr.setLeaks()
 	tr.u = make([]float64, n)
 	tr.tmp = make([]float64, n)
@@ -74,9 +80,9 @@ func newTransient(c *column, opt *Options) *transient {
 	tr.sigma = make([]float64, n)
 	tr.shapes = make([][]float64, len(p.Loads))
 	factors := c.stageFactors()
-	for i, l := range p.Loads {
+	for i := range p.Loads {
 		f := make([]float64, n)
-		q := l.Pressure()
+		q := StagePressure(p, i)
 		for j, v := range factors[i] {
 			f[j] = q * v
 		}
@@ -102,7 +108,12 @@ func (tr *transient) setMv(mv []float64) {
 	m := tr.c.m
 	tr.mv = mv
 	clear(tr.mass.AB)
-	m.Assemble(tr.mass, func(e int, _ float64) float64 { return mv[m.Layer[e]] }, true)
+	m.Assemble(tr.mass, func(e int, _ float64) float64 {
+		if tr.c.isDug(e) {
+			return 0 // taken out by the excavation
+		}
+		return mv[m.Layer[e]]
+	}, true)
 	ones := make([]float64, m.Nodes())
 	for i := range ones {
 		ones[i] = 1
@@ -138,6 +149,9 @@ func (tr *transient) layerSettlement(sigma, u []float64) []float64 {
 	}
 	out := make([]float64, len(tr.mv))
 	for e := range m.Elements() {
+		if tr.c.isDug(e) {
+			continue
+		}
 		l := m.Layer[e]
 		out[l] += tr.mv[l] * m.Integrate(d, e)
 	}
@@ -156,7 +170,12 @@ func (tr *transient) boundary(top bool, t float64, left bool) float64 {
 // heldValues writes the prescribed values at time t of the held nodes, in
 // the order of tr.held, to dst (limits from the left with left set).
 func (tr *transient) heldValues(dst []float64, t float64, left bool) {
+	c := tr.c
 	for i, j := range tr.held {
+		if c.digStage >= 0 && j <= c.digNode {
+			dst[i] = tr.digExcess * c.p.Loads[c.digStage].fraction(t, left)
+			continue
+		}
 		dst[i] = tr.boundary(j == 0, t, left)
 	}
 }

@@ -139,8 +139,11 @@ func Validate(p *Project) error {
 		if l.Fill != nil {
 			validFill(&ps, at+"fill", l, gw)
 		}
-		if l.Area != nil {
+		if l.Area != nil && l.Dig == nil {
 			validArea(&ps, at+"area", l)
+		}
+		if l.Dig != nil {
+			validDig(&ps, at, p, i, height)
 		}
 	}
 	validProfile(&ps, "initialExcess", p.InitialExcess, MaxStress, "kPa")
