@@ -135,12 +135,12 @@ func newChecks(c *column, st *Steady) *checks {
 	// removes is not checked.
 	site := func(kind string, i int) (checkSite, bool) {
 		s := checkSite{kind: kind, layer: i, top: node(i), base: node(i + 1), zTop: c.tops[i], zB: c.tops[i+1]}
-		if c.digStage >= 0 {
-			if s.base <= c.digNode {
+		if c.zoneStage >= 0 {
+			if s.base <= c.zoneNode {
 				return s, false
 			}
-			if s.top < c.digNode {
-				s.top, s.zTop = c.digNode, m.Z[c.digNode]
+			if s.top < c.zoneNode {
+				s.top, s.zTop = c.zoneNode, m.Z[c.zoneNode]
 			}
 		}
 		return s, true

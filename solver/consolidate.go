@@ -70,8 +70,8 @@ type probe struct {
 // and fills r.Consolidation, the settlement summary and warnings.
 func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path, msg string)) error {
 	k := &consolidation{c: c, st: st, r: r, warn: warn, tr: newTransient(c, opt)}
-	if c.digStage >= 0 {
-		k.tr.digExcess = c.digHeldExcess(st)
+	if c.zoneStage >= 0 {
+		k.tr.zoneTarget = c.zoneTargets(st)
 	}
 	if err := k.finalState(); err != nil {
 		return err

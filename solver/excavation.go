@@ -24,20 +24,30 @@ import (
 // the drains' ends and an excavation's floor.
 func meshBreaks(p *Project) []float64 {
 	b := drainBreaks(p)
-	if i := digStage(p); i >= 0 {
-		b = append(b, p.Loads[i].Dig.Depth)
+	if i := zoneStage(p); i >= 0 {
+		b = append(b, zoneDepth(p.Loads[i]))
 	}
 	return b
 }
 
-// digStage is the index of the excavation stage of p, or −1.
-func digStage(p *Project) int {
+// zoneStage is the index of the stage of p that holds the top of the
+// column (an excavation or a lowered water table), or −1.
+func zoneStage(p *Project) int {
 	for i, l := range p.Loads {
-		if l.Dig != nil {
+		if l.Dig != nil || l.Lower != nil {
 			return i
 		}
 	}
 	return -1
+}
+
+// zoneDepth is the depth down to which stage l holds the column: the
+// excavation's floor or the new water table.
+func zoneDepth(l Load) float64 {
+	if l.Dig != nil {
+		return l.Dig.Depth
+	}
+	return l.Lower.WaterTable
 }
 
 // overburden is the vertical total stress at depth z before loading,
@@ -85,6 +95,9 @@ func StagePressure(p *Project, i int) float64 {
 	if d := l.Dig; d != nil {
 		return pitWater(p, d, d.Depth) - overburden(p, d.Depth)
 	}
+	if w := l.Lower; w != nil {
+		return -drained(p, w.WaterTable, w.WaterTable)
+	}
 	return l.Pressure()
 }
 
@@ -108,8 +121,8 @@ func validDig(ps *Problems, at string, p *Project, i int, height float64) {
 	case len(l.Profile) > 0:
 		ps.Add(at+"profile", ErrConflict, "an excavation unloads every depth below its floor alike; a profile is not modelled with it")
 	}
-	if j := digStage(p); j != i {
-		ps.Add(at+"dig", ErrConflict, fmt.Sprintf("one excavation per project (stage %d already digs); give the final floor in one stage", j+1))
+	if j := zoneStage(p); j != i {
+		ps.Add(at+"dig", ErrConflict, fmt.Sprintf("one excavation or lowering of the water table per project (stage %d already is one); give the final floor in one stage", j+1))
 	}
 	if p.Drains != nil {
 		ps.Add(at+"dig", ErrConflict, "an excavation is not modelled together with vertical drains")
@@ -121,8 +134,8 @@ func validDig(ps *Problems, at string, p *Project, i int, height float64) {
 
 // digWarnings says what an excavation project assumes.
 func digWarnings(p *Project, warn func(path, msg string)) {
-	i := digStage(p)
-	if i < 0 {
+	i := zoneStage(p)
+	if i < 0 || p.Loads[i].Dig == nil {
 		return
 	}
 	d := p.Loads[i]
@@ -136,18 +149,22 @@ func digWarnings(p *Project, warn func(path, msg string)) {
 	}
 }
 
-// setDig finds the excavation's floor node and the elements above it.
+// setDig finds the deepest node the top zone holds and, under an
+// excavation, the elements above its floor.
 func (c *column) setDig() {
-	c.digStage = digStage(c.p)
-	if c.digStage < 0 {
+	c.zoneStage = zoneStage(c.p)
+	if c.zoneStage < 0 {
 		return
 	}
-	D := c.p.Loads[c.digStage].Dig.Depth
+	l := c.p.Loads[c.zoneStage]
 	m := c.m
-	c.digNode = nodeAtDepth(m.Z, D)
+	c.zoneNode = nodeAtDepth(m.Z, zoneDepth(l))
+	if l.Dig == nil {
+		return
+	}
 	c.dug = make([]bool, m.Elements())
 	for e := range c.dug {
-		c.dug[e] = e*m.Order+m.Order <= c.digNode
+		c.dug[e] = e*m.Order+m.Order <= c.zoneNode
 	}
 }
 
@@ -165,10 +182,83 @@ func nodeAtDepth(zs []float64, z float64) int {
 	return best
 }
 
-// digHeldExcess is the excess pore pressure at the floor once the
-// excavation is complete: the water inside it against the steady pore
-// pressure there, kPa.
-func (c *column) digHeldExcess(st *Steady) float64 {
-	d := c.p.Loads[c.digStage].Dig
-	return pitWater(c.p, d, c.m.Z[c.digNode]) - st.Pore[c.digNode]
+// zoneTargets is the excess pore pressure held at the nodes from the top
+// down to c.zoneNode once the stage is complete, kPa: under an excavation
+// the water inside it at the floor against the steady pore pressure there
+// (everywhere above too); under a lowered water table the steady pore
+// pressure removed (the soil above the new water table drains to zero
+// pore pressure).
+func (c *column) zoneTargets(st *Steady) []float64 {
+	l := c.p.Loads[c.zoneStage]
+	out := make([]float64, c.zoneNode+1)
+	for j := range out {
+		if d := l.Dig; d != nil {
+			out[j] = pitWater(c.p, d, c.m.Z[c.zoneNode]) - st.Pore[c.zoneNode]
+		} else {
+			out[j] = -math.Max(st.Pore[j], 0)
+		}
+	}
+	return out
+}
+
+// drained is the weight the soil between the water table and depth
+// min(z, to) loses when the water table falls to depth to, kPa: Σ (γsat −
+// γ) over that band, layer by layer (zero for a layer without a moist
+// unit weight: a clay held saturated by capillarity).
+func drained(p *Project, z, to float64) float64 {
+	from, bot := math.Max(p.WaterTable, 0), math.Min(z, to)
+	s, top := 0.0, 0.0
+	for _, l := range p.Layers {
+		a, b := math.Max(top, from), math.Min(top+l.Thickness, bot)
+		if b > a && l.Gamma != 0 {
+			s += (l.GammaSat - l.Gamma) * (b - a)
+		}
+		top += l.Thickness
+	}
+	return s
+}
+
+// lowerFactor is Δσ/q at depth z of a stage that lowers the water table
+// to depth to: the weight lost above z over that lost above the new water
+// table (0 when no layer in the band has a moist unit weight).
+func lowerFactor(p *Project, to, z float64) float64 {
+	q := drained(p, to, to)
+	if q == 0 {
+		return 0
+	}
+	return drained(p, z, to) / q
+}
+
+// validLower checks the lowering of the water table of stage i (at is
+// "loads[i].").
+func validLower(ps *Problems, at string, p *Project, i int, height float64) {
+	l := p.Loads[i]
+	w := l.Lower.WaterTable
+	if within(ps, at+"lower.waterTable", w, MaxHead, "m") {
+		switch {
+		case w <= math.Max(p.WaterTable, 0):
+			ps.Add(at+"lower.waterTable", ErrOutOfRange, fmt.Sprintf("the new water table (%g m) must lie below the present one (%g m) and below the top", w, p.WaterTable))
+		case height > 0 && w >= height:
+			ps.Add(at+"lower.waterTable", ErrOutOfRange, fmt.Sprintf("the new water table (%g m) lies at or below the base of the column (%g m): model a drawdown below the column by a pressure history at the base (bottom.excess)", w, height))
+		}
+	}
+	switch {
+	case l.Q != 0:
+		ps.Add(at+"q", ErrConflict, "a lowered water table takes its stress change from the unit weights; leave q empty")
+	case l.Fill != nil, l.Dig != nil:
+		ps.Add(at+"lower", ErrConflict, "a stage lowers the water table, digs or places fill, one of them")
+	case l.Area != nil:
+		ps.Add(at+"area", ErrConflict, "a lowered water table covers the whole column; a loaded area is not modelled with it")
+	case len(l.Profile) > 0:
+		ps.Add(at+"profile", ErrConflict, "a lowered water table takes its stress with depth from the unit weights; a profile is not modelled with it")
+	}
+	if j := zoneStage(p); j != i {
+		ps.Add(at+"lower", ErrConflict, fmt.Sprintf("one excavation or lowering of the water table per project (stage %d already is one)", j+1))
+	}
+	if p.Drains != nil {
+		ps.Add(at+"lower", ErrConflict, "a lowered water table is not modelled together with vertical drains; give a pressure history at the drains' outlet instead")
+	}
+	if len(p.Top.Excess) > 0 {
+		ps.Add("top.excess", ErrConflict, "with a lowered water table the pore pressure above it follows the lowering; a pressure history at the top is not modelled with it")
+	}
 }

@@ -234,6 +234,19 @@ type Load struct {
 	// water inside the excavation at Dig.WaterLevel. Q must be 0 and the
 	// stage has no Fill, Area or Profile.
 	Dig *Dig `json:"dig,omitempty"`
+	// Lower, when given, makes the stage a lowering of the water table
+	// (a drawdown from the top): over the stage's ramp (or at once) the
+	// pore pressure above the new water table falls to zero and the soil
+	// there weighs its moist unit weight (gamma) instead of gammaSat.
+	// Q must be 0 and the stage has no Fill, Area, Profile or Dig.
+	Lower *Lowering `json:"lower,omitempty"`
+}
+
+// Lowering is a drawdown of the water table from its initial depth.
+type Lowering struct {
+	// WaterTable is the new depth of the water table, m below the top:
+	// below the initial one, inside the column.
+	WaterTable float64 `json:"waterTable"`
 }
 
 // Dig is an excavation from the top of the column. Depths stay measured

@@ -126,7 +126,7 @@ func (tr *transient) setLeaks() {
 		tr.k.Add(n-1, n-1, tr.leakBottom)
 	}
 	for _, pn := range c.pins() {
-		if !slices.Contains(tr.held, pn.node) && pn.node > c.digNode {
+		if !slices.Contains(tr.held, pn.node) && pn.node > c.zoneNode {
 			tr.pinned = append(tr.pinned, pn.node)
 		}
 	}

@@ -23,11 +23,13 @@ type column struct {
 	radialOnly bool
 	// factors is Δσ/q of every load stage at the nodes (stageFactors).
 	factors [][]float64
-	// The excavation (see excavation.go): its stage (−1: none), the node
-	// of its floor and the elements above it (nil: none).
-	digStage int
-	digNode  int
-	dug      []bool
+	// The stage that holds the top of the column (an excavation or a
+	// lowered water table, see excavation.go): its index (−1: none), the
+	// deepest node it holds, and for an excavation the elements above
+	// its floor (nil: none).
+	zoneStage int
+	zoneNode  int
+	dug       []bool
 }
 
 // newColumn fills in the defaults of a validated project and meshes it.

@@ -306,6 +306,10 @@ func (c *column) stageFactors() [][]float64 {
 		for i, l := range c.p.Loads {
 			f := make([]float64, c.m.Nodes())
 			for j, z := range c.m.Z {
+				if w := l.Lower; w != nil {
+					f[j] = lowerFactor(c.p, w.WaterTable, z)
+					continue
+				}
 				f[j] = l.Factor(z)
 			}
 			c.factors[i] = f

@@ -26,9 +26,9 @@ type transient struct {
 	// layers hold at zero excess (see outlets.go).
 	leakTop, leakBottom float64
 	pinned              []int
-	// digExcess is the excess held at an excavation's floor (and above)
-	// once it is complete, kPa (setDig).
-	digExcess float64
+	// zoneTarget is the excess held at the nodes from the top to
+	// c.zoneNode once the stage that holds them is complete, kPa.
+	zoneTarget []float64
 	u         []float64
 	tmp       []float64
 	next      []float64    // held values at the end of a step
@@ -63,8 +63,8 @@ func newTransient(c *column, opt *Options) *transient {
 
 	if !c.radialOnly {
 		// An excavation holds every node from the top to its floor.
-		for j := range c.digNode + 1 {
-			if j > 0 || p.Top.holds() || c.digStage >= 0 {
+		for j := range c.zoneNode + 1 {
+			if j > 0 || p.Top.holds() || c.zoneStage >= 0 {
 				tr.held = append(tr.held, j)
 			}
 		}
@@ -172,8 +172,8 @@ func (tr *transient) boundary(top bool, t float64, left bool) float64 {
 func (tr *transient) heldValues(dst []float64, t float64, left bool) {
 	c := tr.c
 	for i, j := range tr.held {
-		if c.digStage >= 0 && j <= c.digNode {
-			dst[i] = tr.digExcess * c.p.Loads[c.digStage].fraction(t, left)
+		if c.zoneStage >= 0 && j <= c.zoneNode {
+			dst[i] = tr.zoneTarget[j] * c.p.Loads[c.zoneStage].fraction(t, left)
 			continue
 		}
 		dst[i] = tr.boundary(j == 0, t, left)

@@ -145,6 +145,9 @@ func Validate(p *Project) error {
 		if l.Dig != nil {
 			validDig(&ps, at, p, i, height)
 		}
+		if l.Lower != nil {
+			validLower(&ps, at, p, i, height)
+		}
 	}
 	validProfile(&ps, "initialExcess", p.InitialExcess, MaxStress, "kPa")
 
