@@ -29,18 +29,18 @@ type transient struct {
 	// zoneTarget is the excess held at the nodes from the top to
 	// c.zoneNode once the stage that holds them is complete, kPa.
 	zoneTarget []float64
-	u         []float64
-	tmp       []float64
-	next      []float64    // held values at the end of a step
-	sigma     []float64    // total stress change at the nodes, kPa
-	shapes    [][]float64  // per load stage: Q·factor at the nodes
-	wMass     []float64    // ∫ mv Nᵢ dz
-	wLength   []float64    // ∫ Nᵢ dz
-	set       Stepping     // resolved
-	sub       *submergence // nil without fill stages
-	settled   float64      // settlement of the top at the last record, m
-	sigmaHs   float64      // the submerged fill thickness sigma holds, m
-	progress  func(float64) bool
+	u          []float64
+	tmp        []float64
+	next       []float64    // held values at the end of a step
+	sigma      []float64    // total stress change at the nodes, kPa
+	shapes     [][]float64  // per load stage: Q·factor at the nodes
+	wMass      []float64    // ∫ mv Nᵢ dz
+	wLength    []float64    // ∫ Nᵢ dz
+	set        Stepping     // resolved
+	sub        *submergence // nil without fill stages
+	settled    float64      // settlement of the top at the last record, m
+	sigmaHs    float64      // the submerged fill thickness sigma holds, m
+	progress   func(float64) bool
 }
 
 // newTransient assembles the conductivity matrix of c and sizes the
