@@ -52,6 +52,7 @@ func solveValid(p *Project, opt *Options) (*Result, error) {
 	drainWarnings(p, warn)
 	loadWarnings(p, c.height, warn)
 	digWarnings(p, warn)
+	groundwaterWarnings(p, c.height, warn)
 	st, err := c.steady(warn)
 	if err != nil {
 		return nil, err
