@@ -29,6 +29,7 @@ type consolidation struct {
 	tr   *transient
 
 	sigInf, uInf []float64 // final total stress and pore pressure change
+	uZone        []float64 // the top zone's part of uInf (nil: no zone; see drainedAt)
 	bps          []breakpoint
 
 	points         []soil.Point // e–log state per element
@@ -85,7 +86,9 @@ func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path
 		return err
 	}
 	if k.nl != nil {
-		k.nl.warnings(warn)
+		// The linear model's record loop has warned of a negative σ'
+		// itself; the non-linear model's commit is the only one that sees it.
+		k.nl.warnings(warn, k.nonlinearModel())
 		r.Stats.Iterations = k.nl.iterations
 	}
 	k.finalNonlinear()
@@ -103,6 +106,9 @@ func (k *consolidation) finalState() error {
 	var err error
 	k.sigInf, k.uInf, err = k.tr.final()
 	if err != nil {
+		return err
+	}
+	if k.uZone, err = k.tr.zoneDrained(); err != nil {
 		return err
 	}
 	k.bps = breakpoints(k.c.p, k.tr.set.EndTime)
@@ -148,12 +154,13 @@ func (k *consolidation) sublayers() {
 		return
 	}
 	final := append([]soil.Point(nil), k.points...)
-	stress := make([]float64, m.Nodes())
+	stress, ub := make([]float64, m.Nodes()), make([]float64, m.Nodes())
 	for _, b := range k.bps {
 		k.tr.stressAt(stress, b.t, false)
+		k.drainedAt(ub, b.t)
 		for e := range final {
 			if k.curved[e] {
-				final[e].MoveTo(final[e].S0 + m.Centre(stress, e) - m.Centre(k.uInf, e))
+				final[e].MoveTo(final[e].S0 + m.Centre(stress, e) - m.Centre(ub, e))
 			}
 		}
 	}
@@ -568,7 +575,7 @@ func (k *consolidation) iterated() {
 		pts = append([]soil.Point(nil), k.points...) // the e–log estimate keeps its own
 	}
 	k.nl = newNonlinear(k.tr, pts, law, k.mv, k.tr.stressScale())
-	k.nlDrained = k.nl.drained(k.bps, k.sigInf, k.uInf)
+	k.nlDrained = k.nl.drained(k.bps, k.sigInf, k.uInf, k.drainedAt)
 }
 
 // finalNonlinear takes the iterated model's final settlement from its end

@@ -94,7 +94,8 @@ func TestDigSwellsByHand(t *testing.T) {
 // 0.6 upward and ic/i = ((19 − 9.81)/9.81)/0.6 = 1.561 (Terzaghi 1943,
 // common practice); the prism at the base holds σ = 19·8 − 19·3 = 95 kPa
 // against u = 9.81·8 = 78.48 kPa: 1.2105. Tolerance 1e-9 relative (the
-// end heads are held, the steady state nodally exact).
+// end heads are held, the steady state nodally exact). The swelling by
+// hand is below.
 func TestDigPumpedHeaveByHand(t *testing.T) {
 	t.Parallel()
 	clay := Layer{Name: "clay", GammaSat: 19, K: 1e-9, Mv: 5e-4, MvUnload: 1e-4}
@@ -136,6 +137,20 @@ func TestDigPumpedHeaveByHand(t *testing.T) {
 	} {
 		if math.Abs(c.got-c.want) > 1e-9*c.want {
 			t.Errorf("%s = %.10g, by hand %.10g (tolerance 1e-9 relative)", c.what, c.got, c.want)
+		}
+	}
+	// The clay below the floor swells along its swelling mv (1e-4 1/kPa):
+	// Δσ' = −57 + 29.43 (1 − ξ) kPa over the 5 m (ξ from the floor, the
+	// pore pressure falling linearly to the held floor), all of it
+	// negative, so s = 1e-4 (−57·5 + 29.43·5/2) = −21.14 mm by hand; the
+	// mv figure and the model's agree (tolerance 1e-6 relative).
+	swell := 1e-4 * (-57*5 + 3*gw*5/2)
+	for _, c := range []struct {
+		what string
+		got  float64
+	}{{"settlement", *r.Summary.Settlement}, {"settlement from mv", *r.Summary.SettlementLinear}} {
+		if math.Abs(c.got-swell) > 1e-6*math.Abs(swell) {
+			t.Errorf("%s %.8g m, by hand %.8g m", c.what, c.got, swell)
 		}
 	}
 	// Nothing is checked in the layer the excavation removes.

@@ -555,17 +555,17 @@ func (nl *nonlinear) layerSettlements(dst []float64) {
 // path (each breakpoint's total stress against the final pore pressure,
 // then the final state) and returns each layer's final settlement, m: the
 // denominator of Us.
-func (nl *nonlinear) drained(bps []breakpoint, sigInf, uInf []float64) []float64 {
+func (nl *nonlinear) drained(bps []breakpoint, sigInf, uInf []float64, uAt func(dst []float64, t float64) []float64) []float64 {
 	cp := &nonlinear{tr: nl.tr, m: nl.m, curved: nl.curved, mv: nl.mv, mvu: nl.mvu, ck: nl.ck, kExp: nl.kExp, kLo: nl.kLo, kHi: nl.kHi,
 		k0:     append([]float64(nil), nl.k0...),
 		pts:    append([]soil.Point(nil), nl.pts...),
 		sig:    append([]float64(nil), nl.sig...),
 		peak:   append([]float64(nil), nl.peak...),
 		strain: make([]float64, len(nl.strain)), negativeAt: math.NaN()}
-	stress := make([]float64, nl.m.Nodes())
+	stress, ub := make([]float64, nl.m.Nodes()), make([]float64, nl.m.Nodes())
 	for _, b := range bps {
 		nl.tr.stressAt(stress, b.t, false)
-		cp.commit(b.t, stress, uInf)
+		cp.commit(b.t, stress, uAt(ub, b.t))
 	}
 	cp.commit(math.Inf(1), sigInf, uInf)
 	out := make([]float64, len(nl.tr.c.p.Layers))
@@ -612,14 +612,14 @@ func (tr *transient) stressScale() float64 {
 	return s
 }
 
-// warnings reports an iteration that did not converge and an effective
-// stress that fell below zero.
-func (nl *nonlinear) warnings(warn func(path, msg string)) {
+// warnings reports an iteration that did not converge and, with
+// negative set, an effective stress that fell below zero.
+func (nl *nonlinear) warnings(warn func(path, msg string), negative bool) {
 	if nl.unconverged > 0 {
 		warn("stepping.firstStep", fmt.Sprintf("the non-linear iteration did not converge within %d iterations in %d of %d steps (first at %.4g days, a step of %.3g days; largest remaining change %.3g kPa against the tolerance %.3g kPa): results there are approximate; use a smaller stepping.firstStep (e.g. %.3g days) or a stepping.growth nearer 1",
 			NonlinearMaxIterations, nl.unconverged, nl.steps, nl.firstBad, nl.badStep, nl.worst, nl.tol, nl.badStep/4))
 	}
-	if !math.IsNaN(nl.negativeAt) {
+	if negative && !math.IsNaN(nl.negativeAt) {
 		warn("loads", fmt.Sprintf("the effective stress falls below zero at %.3g m near %.4g days: the soil would lose contact (heave); results there are not physical", nl.negativeAt, nl.negativeT))
 	}
 }

@@ -303,6 +303,31 @@ func (tr *transient) final() (sigma, u []float64, err error) {
 		return sigma, u, nil
 	}
 	tr.setHeld(u, math.Inf(1), false)
+	if err := tr.drainedWith(u, "the final drained state"); err != nil {
+		return nil, nil, err
+	}
+	return sigma, u, nil
+}
+
+// zoneDrained is the drained pore pressure change the top zone's held
+// values alone give (every other held value zero), nil without a zone:
+// the drained state at time t is uInf + (f(t) − 1)·zoneDrained with f the
+// zone stage's fraction, since the zone's values follow its stage while
+// the ends hold their final values along the drained path.
+func (tr *transient) zoneDrained() ([]float64, error) {
+	c := tr.c
+	if c.zoneStage < 0 {
+		return nil, nil
+	}
+	u := make([]float64, len(tr.u))
+	copy(u, tr.zoneTarget)
+	return u, tr.drainedWith(u, "the drained state of the excavation or lowering")
+}
+
+// drainedWith solves K u = 0 for the free nodes of u, whose held nodes
+// hold their values on entry.
+func (tr *transient) drainedWith(u []float64, what string) error {
+	n := len(u)
 	rhs := make([]float64, n)
 	copy(rhs, u)
 	clear(rhs[tr.lo:tr.hi])
@@ -317,11 +342,24 @@ func (tr *transient) final() (sigma, u []float64, err error) {
 	fem.MoveHeld(rhs, k, u, tr.held)
 	var f fem.Factor
 	if err := fem.Factorize(&f, k, tr.lo, tr.hi); err != nil {
-		return nil, nil, tr.c.numerical(err, "the final drained state")
+		return tr.c.numerical(err, what)
 	}
 	f.Solve(rhs)
 	copy(u[tr.lo:tr.hi], rhs[tr.lo:tr.hi])
-	return sigma, u, nil
+	return nil
+}
+
+// drainedAt writes to dst the drained pore pressure change at breakpoint
+// time t: uInf, with the top zone's part at its stage's fraction.
+func (k *consolidation) drainedAt(dst []float64, t float64) []float64 {
+	copy(dst, k.uInf)
+	if k.uZone != nil {
+		f := k.c.p.Loads[k.c.zoneStage].fraction(t, false) - 1
+		for i, v := range k.uZone {
+			dst[i] += f * v
+		}
+	}
+	return dst
 }
 
 // startText describes the damped start for the result.
