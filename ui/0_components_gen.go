@@ -2969,7 +2969,7 @@ func (c *Ground) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							{
 								vgparent := vgn
 								_ = vgparent
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "drained through a resistance (leaky)"}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "leaky (through a resistance)"}
 								vgparent.AppendChild(vgn)
 							}
 							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "undrained"}}}
@@ -3299,242 +3299,84 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 		vgn.SetInnerHTML(vugu.HTML("Layers \x3Cspan class=\"pl-sub\"\x3Etop to bottom\x3C/span\x3E"))
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
-		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "layers"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid"}}}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-scrollx"}}}
 		vgparent.AppendChild(vgn)
 		{
 			vgparent := vgn
 			_ = vgparent
 			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 			vgparent.AppendChild(vgn)
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
-			vgparent.AppendChild(vgn)
-			vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth class=\"pl-num\"\x3E#\x3C/th\x3E\x3Cth\x3EName\x3C/th\x3E\x3Cth\x3EThickness\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eγsat\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkN/m³\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eγ moist\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkN/m³\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Ek\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em/s\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Emv\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E1/kPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Ecv (derived)\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em²/day\x3C/span\x3E\x3C/th\x3E\x3Cth title=\"The layer drains to an outlet (a sand layer cut by a ditch, relief wells): its pore pressure is held at the outlet\x26#39;s head\"\x3EDrains to an outlet\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Ehead, m\x3C/span\x3E\x3C/th\x3E\x3Cth class=\"pl-noprint\"\x3E\x3Cspan class=\"pl-vh\"\x3ERow actions\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-			vgparent.AppendChild(vgn)
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "layers"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid"}}}
 			vgparent.AppendChild(vgn)
 			{
 				vgparent := vgn
 				_ = vgparent
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
-				for i := range c.F.Draft().Layers {
-					var vgiterkey interface{} = i
-					_ = vgiterkey
-					i := i
-					_ = i
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
+				vgparent.AppendChild(vgn)
+				vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth class=\"pl-num\"\x3E#\x3C/th\x3E\x3Cth\x3EName\x3C/th\x3E\x3Cth\x3EThickness\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eγsat\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkN/m³\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eγ moist\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkN/m³\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Ek\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em/s\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Emv\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E1/kPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Ecv (derived)\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em²/day\x3C/span\x3E\x3C/th\x3E\x3Cth title=\"The layer drains to an outlet (a sand layer cut by a ditch, relief wells): its pore pressure is held at the outlet\x26#39;s head\"\x3EDrains to an outlet\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Ehead, m\x3C/span\x3E\x3C/th\x3E\x3Cth class=\"pl-noprint\"\x3E\x3Cspan class=\"pl-vh\"\x3ERow actions\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
+				vgparent.AppendChild(vgn)
+				{
+					vgparent := vgn
+					_ = vgparent
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 					vgparent.AppendChild(vgn)
-					vgn.AddAttrInterface("id", fmt.Sprintf("layer-row-%d", i))
-					{
-						vgparent := vgn
-						_ = vgparent
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					for i := range c.F.Draft().Layers {
+						var vgiterkey interface{} = i
+						_ = vgiterkey
+						i := i
+						_ = i
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
 						vgparent.AppendChild(vgn)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-num"}}}
-						vgparent.AppendChild(vgn)
-						vgn.SetInnerHTML(i + 1)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-						vgparent.AppendChild(vgn)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-						vgparent.AppendChild(vgn)
+						vgn.AddAttrInterface("id", fmt.Sprintf("layer-row-%d", i))
 						{
 							vgparent := vgn
 							_ = vgparent
-							{
-								vgcompKey := vugu.MakeCompKey(0x37B14EEEB4543273^vgin.CurrentPositionHash(), vgiterkey)
-								// ask BuildEnv for prior instance of this specific component
-								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-								if vgcomp == nil {
-									// create new one if needed
-									vgcomp = new(Field)
-									vgin.BuildEnv.WireComponent(vgcomp)
-								}
-								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-								vgcomp.Changed = c.Changed
-								vgcomp.F = c.F
-								vgcomp.Label = "Name of layer " + itoa(i+1)
-								vgcomp.Path = lp(i, "name")
-								vgcomp.Wide = true
-								vgout.Components = append(vgout.Components, vgcomp)
-								vgn = &vugu.VGNode{Component: vgcomp}
-								vgparent.AppendChild(vgn)
-							}
-						}
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-						vgparent.AppendChild(vgn)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-						vgparent.AppendChild(vgn)
-						{
-							vgparent := vgn
-							_ = vgparent
-							{
-								vgcompKey := vugu.MakeCompKey(0xC9B52D2DED69F08D^vgin.CurrentPositionHash(), vgiterkey)
-								// ask BuildEnv for prior instance of this specific component
-								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-								if vgcomp == nil {
-									// create new one if needed
-									vgcomp = new(Field)
-									vgin.BuildEnv.WireComponent(vgcomp)
-								}
-								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-								vgcomp.Bare = true
-								vgcomp.Changed = c.Changed
-								vgcomp.F = c.F
-								vgcomp.Label = "Thickness of layer " + itoa(i+1)
-								vgcomp.Path = lp(i, "thickness")
-								vgcomp.Unit = "m"
-								vgout.Components = append(vgout.Components, vgcomp)
-								vgn = &vugu.VGNode{Component: vgcomp}
-								vgparent.AppendChild(vgn)
-							}
-						}
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-						vgparent.AppendChild(vgn)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-						vgparent.AppendChild(vgn)
-						{
-							vgparent := vgn
-							_ = vgparent
-							{
-								vgcompKey := vugu.MakeCompKey(0xE9B6C21A9680A0A5^vgin.CurrentPositionHash(), vgiterkey)
-								// ask BuildEnv for prior instance of this specific component
-								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-								if vgcomp == nil {
-									// create new one if needed
-									vgcomp = new(Field)
-									vgin.BuildEnv.WireComponent(vgcomp)
-								}
-								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-								vgcomp.Bare = true
-								vgcomp.Changed = c.Changed
-								vgcomp.F = c.F
-								vgcomp.Label = "Saturated unit weight of layer " + itoa(i+1)
-								vgcomp.Path = lp(i, "gammaSat")
-								vgcomp.Unit = "kN/m³"
-								vgout.Components = append(vgout.Components, vgcomp)
-								vgn = &vugu.VGNode{Component: vgcomp}
-								vgparent.AppendChild(vgn)
-							}
-						}
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-						vgparent.AppendChild(vgn)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-						vgparent.AppendChild(vgn)
-						{
-							vgparent := vgn
-							_ = vgparent
-							{
-								vgcompKey := vugu.MakeCompKey(0x6369AB11FB7FF0F^vgin.CurrentPositionHash(), vgiterkey)
-								// ask BuildEnv for prior instance of this specific component
-								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-								if vgcomp == nil {
-									// create new one if needed
-									vgcomp = new(Field)
-									vgin.BuildEnv.WireComponent(vgcomp)
-								}
-								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-								vgcomp.Bare = true
-								vgcomp.Changed = c.Changed
-								vgcomp.F = c.F
-								vgcomp.Hint = "Empty: the same as γsat"
-								vgcomp.Label = "Unit weight above the water table, layer " + itoa(i+1)
-								vgcomp.Path = lp(i, "gamma")
-								vgcomp.Unit = "kN/m³"
-								vgout.Components = append(vgout.Components, vgcomp)
-								vgn = &vugu.VGNode{Component: vgcomp}
-								vgparent.AppendChild(vgn)
-							}
-						}
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-						vgparent.AppendChild(vgn)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-						vgparent.AppendChild(vgn)
-						{
-							vgparent := vgn
-							_ = vgparent
-							{
-								vgcompKey := vugu.MakeCompKey(0xC28074EA1A59E982^vgin.CurrentPositionHash(), vgiterkey)
-								// ask BuildEnv for prior instance of this specific component
-								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-								if vgcomp == nil {
-									// create new one if needed
-									vgcomp = new(Field)
-									vgin.BuildEnv.WireComponent(vgcomp)
-								}
-								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-								vgcomp.Bare = true
-								vgcomp.Changed = c.Changed
-								vgcomp.F = c.F
-								vgcomp.Label = "Permeability of layer " + itoa(i+1)
-								vgcomp.Path = lp(i, "k")
-								vgcomp.Unit = "m/s"
-								vgout.Components = append(vgout.Components, vgcomp)
-								vgn = &vugu.VGNode{Component: vgcomp}
-								vgparent.AppendChild(vgn)
-							}
-						}
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-						vgparent.AppendChild(vgn)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-						vgparent.AppendChild(vgn)
-						{
-							vgparent := vgn
-							_ = vgparent
-							{
-								vgcompKey := vugu.MakeCompKey(0x2B305CC655609E85^vgin.CurrentPositionHash(), vgiterkey)
-								// ask BuildEnv for prior instance of this specific component
-								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-								if vgcomp == nil {
-									// create new one if needed
-									vgcomp = new(Field)
-									vgin.BuildEnv.WireComponent(vgcomp)
-								}
-								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-								vgcomp.Bare = true
-								vgcomp.Changed = c.Changed
-								vgcomp.F = c.F
-								vgcomp.Hint = "Empty: derived from the e–log σ′ parameters"
-								vgcomp.Label = "Coefficient of volume compressibility of layer " + itoa(i+1)
-								vgcomp.Path = lp(i, "mv")
-								vgcomp.Unit = "1/kPa"
-								vgout.Components = append(vgout.Components, vgcomp)
-								vgn = &vugu.VGNode{Component: vgcomp}
-								vgparent.AppendChild(vgn)
-							}
-						}
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-						vgparent.AppendChild(vgn)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-derived"}}}
-						vgparent.AppendChild(vgn)
-						vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-cv", i))
-						vgn.SetInnerHTML(c.cv(i))
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-						vgparent.AppendChild(vgn)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-outlet"}}}
-						vgparent.AppendChild(vgn)
-						{
-							vgparent := vgn
-							_ = vgparent
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "input", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "checkbox"}}}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 							vgparent.AppendChild(vgn)
-							vgn.AddAttrInterface("aria-label", "Layer "+itoa(i+1)+" drains to an outlet")
-							vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-outlet", i))
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-num"}}}
+							vgparent.AppendChild(vgn)
+							vgn.SetInnerHTML(i + 1)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
 							{
-								b, err := vjson.Marshal(c.F.Draft().Layers[i].Outlet != nil)
-								if err != nil {
-									panic(err)
-								}
-								vgn.Prop = append(vgn.Prop, vugu.VGProperty{Key: "checked", JSONVal: vjson.RawMessage(b)})
-							}
-							vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
-								EventType: "change",
-								Func:      func(event vugu.DOMEvent) { c.setOutlet(i, event) },
-								// TODO: implement capture, etc. mostly need to decide syntax
-							})
-							if c.F.Draft().Layers[i].Outlet != nil {
+								vgparent := vgn
+								_ = vgparent
 								{
-									vgcompKey := vugu.MakeCompKey(0xE5D18531B16620E5^vgin.CurrentPositionHash(), vgiterkey)
+									vgcompKey := vugu.MakeCompKey(0x37B14EEEB4543273^vgin.CurrentPositionHash(), vgiterkey)
+									// ask BuildEnv for prior instance of this specific component
+									vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+									if vgcomp == nil {
+										// create new one if needed
+										vgcomp = new(Field)
+										vgin.BuildEnv.WireComponent(vgcomp)
+									}
+									vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+									vgcomp.Changed = c.Changed
+									vgcomp.F = c.F
+									vgcomp.Label = "Name of layer " + itoa(i+1)
+									vgcomp.Path = lp(i, "name")
+									vgcomp.Wide = true
+									vgout.Components = append(vgout.Components, vgcomp)
+									vgn = &vugu.VGNode{Component: vgcomp}
+									vgparent.AppendChild(vgn)
+								}
+							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							{
+								vgparent := vgn
+								_ = vgparent
+								{
+									vgcompKey := vugu.MakeCompKey(0xC9B52D2DED69F08D^vgin.CurrentPositionHash(), vgiterkey)
 									// ask BuildEnv for prior instance of this specific component
 									vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 									if vgcomp == nil {
@@ -3546,90 +3388,258 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 									vgcomp.Bare = true
 									vgcomp.Changed = c.Changed
 									vgcomp.F = c.F
-									vgcomp.Hint = "Total head held in the layer, m above the top; empty: hydrostatic from the water table"
-									vgcomp.Label = "Head held in layer " + itoa(i+1)
-									vgcomp.Path = lp(i, "outlet.head")
+									vgcomp.Label = "Thickness of layer " + itoa(i+1)
+									vgcomp.Path = lp(i, "thickness")
 									vgcomp.Unit = "m"
 									vgout.Components = append(vgout.Components, vgcomp)
 									vgn = &vugu.VGNode{Component: vgcomp}
 									vgparent.AppendChild(vgn)
 								}
 							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							{
+								vgparent := vgn
+								_ = vgparent
+								{
+									vgcompKey := vugu.MakeCompKey(0xE9B6C21A9680A0A5^vgin.CurrentPositionHash(), vgiterkey)
+									// ask BuildEnv for prior instance of this specific component
+									vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+									if vgcomp == nil {
+										// create new one if needed
+										vgcomp = new(Field)
+										vgin.BuildEnv.WireComponent(vgcomp)
+									}
+									vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+									vgcomp.Bare = true
+									vgcomp.Changed = c.Changed
+									vgcomp.F = c.F
+									vgcomp.Label = "Saturated unit weight of layer " + itoa(i+1)
+									vgcomp.Path = lp(i, "gammaSat")
+									vgcomp.Unit = "kN/m³"
+									vgout.Components = append(vgout.Components, vgcomp)
+									vgn = &vugu.VGNode{Component: vgcomp}
+									vgparent.AppendChild(vgn)
+								}
+							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							{
+								vgparent := vgn
+								_ = vgparent
+								{
+									vgcompKey := vugu.MakeCompKey(0x6369AB11FB7FF0F^vgin.CurrentPositionHash(), vgiterkey)
+									// ask BuildEnv for prior instance of this specific component
+									vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+									if vgcomp == nil {
+										// create new one if needed
+										vgcomp = new(Field)
+										vgin.BuildEnv.WireComponent(vgcomp)
+									}
+									vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+									vgcomp.Bare = true
+									vgcomp.Changed = c.Changed
+									vgcomp.F = c.F
+									vgcomp.Hint = "Empty: the same as γsat"
+									vgcomp.Label = "Unit weight above the water table, layer " + itoa(i+1)
+									vgcomp.Path = lp(i, "gamma")
+									vgcomp.Unit = "kN/m³"
+									vgout.Components = append(vgout.Components, vgcomp)
+									vgn = &vugu.VGNode{Component: vgcomp}
+									vgparent.AppendChild(vgn)
+								}
+							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							{
+								vgparent := vgn
+								_ = vgparent
+								{
+									vgcompKey := vugu.MakeCompKey(0xC28074EA1A59E982^vgin.CurrentPositionHash(), vgiterkey)
+									// ask BuildEnv for prior instance of this specific component
+									vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+									if vgcomp == nil {
+										// create new one if needed
+										vgcomp = new(Field)
+										vgin.BuildEnv.WireComponent(vgcomp)
+									}
+									vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+									vgcomp.Bare = true
+									vgcomp.Changed = c.Changed
+									vgcomp.F = c.F
+									vgcomp.Label = "Permeability of layer " + itoa(i+1)
+									vgcomp.Path = lp(i, "k")
+									vgcomp.Unit = "m/s"
+									vgout.Components = append(vgout.Components, vgcomp)
+									vgn = &vugu.VGNode{Component: vgcomp}
+									vgparent.AppendChild(vgn)
+								}
+							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							{
+								vgparent := vgn
+								_ = vgparent
+								{
+									vgcompKey := vugu.MakeCompKey(0x2B305CC655609E85^vgin.CurrentPositionHash(), vgiterkey)
+									// ask BuildEnv for prior instance of this specific component
+									vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+									if vgcomp == nil {
+										// create new one if needed
+										vgcomp = new(Field)
+										vgin.BuildEnv.WireComponent(vgcomp)
+									}
+									vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+									vgcomp.Bare = true
+									vgcomp.Changed = c.Changed
+									vgcomp.F = c.F
+									vgcomp.Hint = "Empty: derived from the e–log σ′ parameters"
+									vgcomp.Label = "Coefficient of volume compressibility of layer " + itoa(i+1)
+									vgcomp.Path = lp(i, "mv")
+									vgcomp.Unit = "1/kPa"
+									vgout.Components = append(vgout.Components, vgcomp)
+									vgn = &vugu.VGNode{Component: vgcomp}
+									vgparent.AppendChild(vgn)
+								}
+							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-derived"}}}
+							vgparent.AppendChild(vgn)
+							vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-cv", i))
+							vgn.SetInnerHTML(c.cv(i))
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-outlet"}}}
+							vgparent.AppendChild(vgn)
+							{
+								vgparent := vgn
+								_ = vgparent
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "input", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "checkbox"}}}
+								vgparent.AppendChild(vgn)
+								vgn.AddAttrInterface("aria-label", "Layer "+itoa(i+1)+" drains to an outlet")
+								vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-outlet", i))
+								{
+									b, err := vjson.Marshal(c.F.Draft().Layers[i].Outlet != nil)
+									if err != nil {
+										panic(err)
+									}
+									vgn.Prop = append(vgn.Prop, vugu.VGProperty{Key: "checked", JSONVal: vjson.RawMessage(b)})
+								}
+								vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+									EventType: "change",
+									Func:      func(event vugu.DOMEvent) { c.setOutlet(i, event) },
+									// TODO: implement capture, etc. mostly need to decide syntax
+								})
+								if c.F.Draft().Layers[i].Outlet != nil {
+									{
+										vgcompKey := vugu.MakeCompKey(0xE5D18531B16620E5^vgin.CurrentPositionHash(), vgiterkey)
+										// ask BuildEnv for prior instance of this specific component
+										vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+										if vgcomp == nil {
+											// create new one if needed
+											vgcomp = new(Field)
+											vgin.BuildEnv.WireComponent(vgcomp)
+										}
+										vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+										vgcomp.Bare = true
+										vgcomp.Changed = c.Changed
+										vgcomp.F = c.F
+										vgcomp.Hint = "Total head held in the layer, m above the top; empty: hydrostatic from the water table"
+										vgcomp.Label = "Head held in layer " + itoa(i+1)
+										vgcomp.Path = lp(i, "outlet.head")
+										vgcomp.Unit = "m"
+										vgout.Components = append(vgout.Components, vgcomp)
+										vgn = &vugu.VGNode{Component: vgcomp}
+										vgparent.AppendChild(vgn)
+									}
+								}
+							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-actions pl-noprint"}}}
+							vgparent.AppendChild(vgn)
+							{
+								vgparent := vgn
+								_ = vgparent
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-icon"}}}
+								vgparent.AppendChild(vgn)
+								vgn.AddAttrInterface("disabled", i == 0)
+								vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-up", i))
+								vgn.AddAttrInterface("title", "Move layer "+itoa(i+1)+" up")
+								vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+									EventType: "click",
+									Func:      func(event vugu.DOMEvent) { c.move(i, -1) },
+									// TODO: implement capture, etc. mostly need to decide syntax
+								})
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "↑"}
+									vgparent.AppendChild(vgn)
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-icon"}}}
+								vgparent.AppendChild(vgn)
+								vgn.AddAttrInterface("disabled", i == len(c.F.Draft().Layers)-1)
+								vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-down", i))
+								vgn.AddAttrInterface("title", "Move layer "+itoa(i+1)+" down")
+								vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+									EventType: "click",
+									Func:      func(event vugu.DOMEvent) { c.move(i, 1) },
+									// TODO: implement capture, etc. mostly need to decide syntax
+								})
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "↓"}
+									vgparent.AppendChild(vgn)
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-icon"}}}
+								vgparent.AppendChild(vgn)
+								vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-insert", i))
+								vgn.AddAttrInterface("title", "Insert a layer below layer "+itoa(i+1))
+								vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+									EventType: "click",
+									Func:      func(event vugu.DOMEvent) { c.add(i) },
+									// TODO: implement capture, etc. mostly need to decide syntax
+								})
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "+"}
+									vgparent.AppendChild(vgn)
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-icon"}}}
+								vgparent.AppendChild(vgn)
+								vgn.AddAttrInterface("disabled", len(c.F.Draft().Layers) == 1)
+								vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-remove", i))
+								vgn.AddAttrInterface("title", "Remove layer "+itoa(i+1))
+								vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+									EventType: "click",
+									Func:      func(event vugu.DOMEvent) { c.remove(i) },
+									// TODO: implement capture, etc. mostly need to decide syntax
+								})
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "×"}
+									vgparent.AppendChild(vgn)
+								}
+							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
 						}
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-						vgparent.AppendChild(vgn)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-actions pl-noprint"}}}
-						vgparent.AppendChild(vgn)
-						{
-							vgparent := vgn
-							_ = vgparent
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-icon"}}}
-							vgparent.AppendChild(vgn)
-							vgn.AddAttrInterface("disabled", i == 0)
-							vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-up", i))
-							vgn.AddAttrInterface("title", "Move layer "+itoa(i+1)+" up")
-							vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
-								EventType: "click",
-								Func:      func(event vugu.DOMEvent) { c.move(i, -1) },
-								// TODO: implement capture, etc. mostly need to decide syntax
-							})
-							{
-								vgparent := vgn
-								_ = vgparent
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "↑"}
-								vgparent.AppendChild(vgn)
-							}
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-icon"}}}
-							vgparent.AppendChild(vgn)
-							vgn.AddAttrInterface("disabled", i == len(c.F.Draft().Layers)-1)
-							vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-down", i))
-							vgn.AddAttrInterface("title", "Move layer "+itoa(i+1)+" down")
-							vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
-								EventType: "click",
-								Func:      func(event vugu.DOMEvent) { c.move(i, 1) },
-								// TODO: implement capture, etc. mostly need to decide syntax
-							})
-							{
-								vgparent := vgn
-								_ = vgparent
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "↓"}
-								vgparent.AppendChild(vgn)
-							}
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-icon"}}}
-							vgparent.AppendChild(vgn)
-							vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-insert", i))
-							vgn.AddAttrInterface("title", "Insert a layer below layer "+itoa(i+1))
-							vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
-								EventType: "click",
-								Func:      func(event vugu.DOMEvent) { c.add(i) },
-								// TODO: implement capture, etc. mostly need to decide syntax
-							})
-							{
-								vgparent := vgn
-								_ = vgparent
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "+"}
-								vgparent.AppendChild(vgn)
-							}
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-icon"}}}
-							vgparent.AppendChild(vgn)
-							vgn.AddAttrInterface("disabled", len(c.F.Draft().Layers) == 1)
-							vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-remove", i))
-							vgn.AddAttrInterface("title", "Remove layer "+itoa(i+1))
-							vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
-								EventType: "click",
-								Func:      func(event vugu.DOMEvent) { c.remove(i) },
-								// TODO: implement capture, etc. mostly need to decide syntax
-							})
-							{
-								vgparent := vgn
-								_ = vgparent
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "×"}
-								vgparent.AppendChild(vgn)
-							}
-						}
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-						vgparent.AppendChild(vgn)
 					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
 				}
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)

@@ -108,13 +108,13 @@ func (c *Summary) rows() []sumRow {
 	if s.Submerged != nil {
 		rows = append(rows, length("sum-submerged", "Fill below the water table", s.Submerged, "at the end: it weighs γsat − γw there, and the settlement allows for it"))
 	}
-	heave := c.governing("sum-heave", "Least factor against heave over time (ic/i)", s.Heave, "no upward flow at any time")
+	heave := c.governing("sum-heave", "Least factor, heave (ic/i)", s.Heave, "no upward flow at any time")
 	if s.Heave != nil && s.Heave.Factor < 1 {
 		heave.Note = "below 1: the upward gradient exceeds the critical gradient; " + heave.Note
 	}
 	rows = append(rows,
-		c.governing("sum-prism", "Least factor against uplift over time, whole overburden (σ/u)", s.Prism, "no low-permeability layer over a more permeable one"),
-		c.governing("sum-uplift", "Least factor against uplift over time, the layer alone", s.Uplift, "no low-permeability layer over a more permeable one"))
+		c.governing("sum-prism", "Least factor, uplift (σ/u, all above)", s.Prism, "no low-permeability layer over a more permeable one"),
+		c.governing("sum-uplift", "Least factor, uplift (layer alone)", s.Uplift, "no low-permeability layer over a more permeable one"))
 	dir := "downward"
 	if s.Flux < 0 {
 		dir = "upward"
@@ -161,7 +161,7 @@ func (c *Summary) governing(id, label string, g *solver.Governing, none string) 
 	if c.P != nil && hasDig(c.P) {
 		below = "m below the original top"
 	}
-	r.Note = fmt.Sprintf("%s, %s %s, %s", where, sig(g.Depth, 3), below, when)
+	r.Note = fmt.Sprintf("least over time: %s, %s %s, %s", where, sig(g.Depth, 3), below, when)
 	if g.Factor < 1 {
 		r.Class = "pl-alarm"
 	}
