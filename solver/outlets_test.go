@@ -49,17 +49,23 @@ func sandwich(outlet, nonlinear bool, s0, q float64) (*Project, float64) {
 // follows Terzaghi's U too (Davis & Raymond 1965). The sand's own storage
 // (1e-7 of the clay's mv per metre, 0.1 m) and its tiny resistance shift
 // t50 by far less than the tolerance: 1.5 % on t50 (mesh of 0.05 m,
-// t50 read between log-spaced steps), 3 % on the ratio.
+// t50 read between log-spaced steps), 3 % on the ratio; linear and
+// quadratic elements (the consistent capacity on the band path).
 func TestOutletHalvesPath(t *testing.T) {
 	t.Parallel()
 	const s0, q = 50.0, 50.0
 	tv50 := series.TvForU(0.5)
-	for _, nonlinear := range []bool{false, true} {
-		t.Run(fmt.Sprintf("nonlinear=%v", nonlinear), func(t *testing.T) {
+	for _, c := range []struct {
+		nonlinear bool
+		order     int
+	}{{false, 1}, {true, 1}, {false, 2}, {true, 2}} {
+		nonlinear := c.nonlinear
+		t.Run(fmt.Sprintf("nonlinear=%v,order=%d", nonlinear, c.order), func(t *testing.T) {
 			t.Parallel()
 			t50 := map[bool]float64{}
 			for _, outlet := range []bool{false, true} {
 				p, cv := sandwich(outlet, nonlinear, s0, q)
+				p.Mesh.Order = c.order
 				r := solveUniform(t, p, s0)
 				if r.Summary.T50 == nil {
 					t.Fatalf("outlet=%v: no t50", outlet)
