@@ -1,6 +1,7 @@
 package ui
 
 import (
+	"strconv"
 	"strings"
 	"testing"
 )
@@ -42,5 +43,13 @@ func TestPageExcavationAndDrains(t *testing.T) {
 	}
 	if note := p.html(); !strings.Contains(note, "below the original top") {
 		t.Error("the summary does not say where the governing check acts")
+	}
+	// The table of the checks through time, folded until opened, gives
+	// the summary's least factor in its row.
+	p.fire("tables-toggle", "click", nil)
+	g := r.Summary.Heave
+	row := p.text("checks-" + strconv.Itoa(g.Check))
+	if !strings.Contains(row, sig(g.Factor, 3)) {
+		t.Errorf("the checks table row %q lacks the summary's %s", row, sig(g.Factor, 3))
 	}
 }
