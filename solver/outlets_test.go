@@ -117,7 +117,9 @@ func nodeAt(zs []float64, z float64) int {
 // 1e-4, where a sealed end gives none). The drained limit is Terzaghi's
 // t50 = 0.1967 H²/cv for one drained end (series.TvForU), tolerance 1.5 %;
 // the ordering is a fact of the Robin condition (more resistance, slower
-// drainage), checked on both models.
+// drainage), checked on both models. On the linear model t50 also
+// matches the series of the leaky layer (series.LeakyTv: λ tan λ = Bi,
+// Carslaw & Jaeger 1959) within 1.5 %.
 func TestLeakyEndLimits(t *testing.T) {
 	t.Parallel()
 	for _, model := range []string{ModelLinear, ModelNonlinear} {
@@ -155,6 +157,16 @@ func TestLeakyEndLimits(t *testing.T) {
 					t.Errorf("R = %g days: t50 = %.4g days, the drained end gives %.4g (Terzaghi, tolerance 1.5 %%)", R, got, terz)
 				}
 				t.Logf("R = %g days: t50 = %.5g days (drained: %.5g)", R, got, terz)
+				if model == ModelLinear && R > 1e-6 {
+					// The Robin end's own series (series.LeakyU, the slab
+					// with a radiation boundary), Bi = H/(k R) with k in
+					// m/day: tolerance 1.5 %.
+					bi := 5 / (clay.K * soil.SecondsPerDay * R)
+					want := series.LeakyTv(0.5, bi) * 25 / cv
+					if math.Abs(got-want) > 0.015*want {
+						t.Errorf("R = %g days (Bi %.3g): t50 = %.5g days, the leaky series gives %.5g (tolerance 1.5 %%)", R, bi, got, want)
+					}
+				}
 				if got <= last {
 					t.Errorf("R = %g days: t50 = %.4g days is not above %.4g at the smaller resistance", R, got, last)
 				}
