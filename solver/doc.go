@@ -57,7 +57,9 @@
 // # Equations
 //
 // Steady seepage solves d/dz (k dh/dz) = 0 for the total head h, with a
-// fixed head at a drained end and a fixed inflow at an undrained one. Pore
+// fixed head at a drained end, a fixed inflow at an undrained one, a
+// leakage (h − h_b)/R at an end draining through a resistance, and the
+// outlet's head held throughout a layer that drains to an outlet. Pore
 // pressure is u = γw (h + z); the total vertical stress comes from the unit
 // weights (moist above the water table, saturated below) and the effective
 // stress is σ' = σ − u.

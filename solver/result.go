@@ -46,8 +46,9 @@ type Steady struct {
 	// before any load, kPa.
 	Total     []float64 `json:"total"`
 	Effective []float64 `json:"effective"`
-	// Flux is the Darcy velocity, m/s, positive downward. It is the same
-	// in every layer.
+	// Flux is the Darcy velocity, m/s, positive downward: the same in
+	// every layer, unless a layer drains to an outlet (then the
+	// thickness-weighted mean of the layers' fluxes, which Layers give).
 	Flux float64 `json:"flux"`
 	// KEquivalent is the equivalent vertical permeability of the column,
 	// m/s (thickness-weighted harmonic mean).
