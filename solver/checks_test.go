@@ -78,3 +78,60 @@ func TestUpliftArtesianByHand(t *testing.T) {
 		t.Errorf("the prism series has %d values for %d times", len(prism.Series), len(r.Consolidation.Series.Time))
 	}
 }
+
+// TestUpliftDigByHand is the case with a real excavation: 10 m of
+// clay cap (γsat 18 kN/m³, 1e-9 m/s) over 4 m of gravel (1e-3 m/s) held
+// at a head of 3 m above the top, the water table at the top; 4 m (72
+// kPa of soil) dug away at once on day 10 and pumped dry. By hand (the
+// prism above the aquifer, Terzaghi 1943, common practice): the head at
+// the clay's base is 3·(10/1e-9)/(10/1e-9 + 4/1e-3) m, u = γw (h + 10) =
+// 127.5 kPa; σ = 180 kPa before, 180 − 72 = 108 kPa after (the pit is dry,
+// no water left in it): F = 1.412 before, 0.847 after and in the long
+// term (where the floor's head of −4 m moves the gravel's by a few
+// micrometres, through the resistances in series). Tolerance 1e-9 relative for the steady and long-term figures,
+// 1e-4 for the least (the gravel's last excess at the interface).
+func TestUpliftDigByHand(t *testing.T) {
+	t.Parallel()
+	p := &Project{Format: Format,
+		Layers: []Layer{
+			{Name: "clay cap", Thickness: 10, GammaSat: 18, K: 1e-9, Mv: 2e-4, MvUnload: 5e-5},
+			{Name: "gravel", Thickness: 4, GammaSat: 20, K: 1e-3, Mv: 1e-6},
+		},
+		Top: Boundary{Drained: true}, Bottom: Boundary{Drained: true, Head: ptr(3)},
+		Loads: []Load{{Start: 10, Dig: &Dig{Depth: 4, WaterLevel: ptr(4)}}},
+	}
+	r, err := Solve(p, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	gw := DefaultGammaW
+	h := 3 * (10 / 1e-9) / (10/1e-9 + 4/1e-3)
+	u := gw * (h + 10)
+	// Once drained, the floor (head −4 m) and the gravel's base (3 m)
+	// drive the flow through the 6 m of clay left and the gravel.
+	hL := 3 - 7*(4/1e-3)/(6/1e-9+4/1e-3)
+	uL := gw * (hL + 10)
+	var prism *Check
+	for i := range r.Checks {
+		if c := &r.Checks[i]; c.Kind == CheckPrism && c.Layer == 0 {
+			prism = c
+		}
+	}
+	if prism == nil {
+		t.Fatal("no prism check at the clay's base")
+	}
+	for _, c := range []struct {
+		what      string
+		got, want float64
+		tol       float64
+	}{
+		{"before digging", prism.Initial, 180 / u, 1e-9},
+		{"after digging", prism.Stages[0], 108 / u, 1e-4},
+		{"long term", prism.LongTerm, 108 / uL, 1e-9},
+		{"summary", r.Summary.Prism.Factor, 108 / uL, 1e-4},
+	} {
+		if math.Abs(c.got-c.want) > c.tol*c.want {
+			t.Errorf("prism factor %s = %.6g, by hand %.6g (tolerance %g relative)", c.what, c.got, c.want, c.tol)
+		}
+	}
+}
