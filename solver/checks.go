@@ -135,7 +135,7 @@ func newChecks(c *column, st *Steady) *checks {
 	// removes is not checked.
 	site := func(kind string, i int) (checkSite, bool) {
 		s := checkSite{kind: kind, layer: i, top: node(i), base: node(i + 1), zTop: c.tops[i], zB: c.tops[i+1]}
-		if c.zoneStage >= 0 {
+		if c.dug != nil {
 			if s.base <= c.zoneNode {
 				return s, false
 			}

@@ -82,3 +82,29 @@ func TestLowerValidation(t *testing.T) {
 		})
 	}
 }
+
+// TestLowerKeepsChecks checks that a lowered water table, unlike an
+// excavation, leaves every layer's checks in place (nothing is removed).
+func TestLowerKeepsChecks(t *testing.T) {
+	t.Parallel()
+	p := &Project{Format: Format,
+		Layers: []Layer{{Name: "sand", Thickness: 3, GammaSat: 20, Gamma: 17, K: 1e-5, Mv: 1e-5}, {Name: "clay", Thickness: 5, GammaSat: 18, K: 1e-9, Mv: 1e-3}},
+		Top:    Boundary{Drained: true}, Bottom: Boundary{Drained: true},
+		Loads:  []Load{{Lower: &Lowering{WaterTable: 3}}}}
+	r, err := Solve(p, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	seen := map[int]bool{}
+	for _, c := range r.Checks {
+		if c.Kind == CheckHeave {
+			seen[c.Layer] = true
+			if c.Layer == 0 && c.Top != 0 {
+				t.Errorf("the sand's heave check starts at %g m, want its top", c.Top)
+			}
+		}
+	}
+	if !seen[0] || !seen[1] {
+		t.Errorf("heave checks of layers %v, want both", seen)
+	}
+}
