@@ -135,3 +135,47 @@ func TestUpliftDigByHand(t *testing.T) {
 		}
 	}
 }
+
+// TestUpliftDigOverTime digs the cap of TestUpliftDigByHand over 20 days
+// (from day 10): halfway, on day 20, half the soil is gone, so the prism
+// factor is (180 − 36)/127.5 = 1.129 by hand (the gravel holds the
+// interface at its head within micrometres; tolerance 1e-4), and it falls
+// to 0.847 at the end of the dig.
+func TestUpliftDigOverTime(t *testing.T) {
+	t.Parallel()
+	p := &Project{Format: Format,
+		Layers: []Layer{
+			{Name: "clay cap", Thickness: 10, GammaSat: 18, K: 1e-9, Mv: 2e-4, MvUnload: 5e-5},
+			{Name: "gravel", Thickness: 4, GammaSat: 20, K: 1e-3, Mv: 1e-6},
+		},
+		Top: Boundary{Drained: true}, Bottom: Boundary{Drained: true, Head: ptr(3)},
+		Loads: []Load{{Start: 10, Ramp: 20, Dig: &Dig{Depth: 4, WaterLevel: ptr(4)}}},
+		Times: []float64{20, 30},
+	}
+	r, err := Solve(p, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	u := DefaultGammaW * (3*(10/1e-9)/(10/1e-9+4/1e-3) + 10)
+	var prism *Check
+	for i := range r.Checks {
+		if c := &r.Checks[i]; c.Kind == CheckPrism && c.Layer == 0 {
+			prism = c
+		}
+	}
+	if prism == nil || len(prism.Series) == 0 {
+		t.Fatal("no prism series at the clay's base")
+	}
+	ts := r.Consolidation.Series.Time
+	for _, c := range []struct{ t, want float64 }{{20, 144 / u}, {30, 108 / u}} {
+		got := math.NaN()
+		for i, tt := range ts {
+			if tt == c.t {
+				got = prism.Series[i]
+			}
+		}
+		if !(math.Abs(got-c.want) <= 1e-4*c.want) {
+			t.Errorf("prism factor on day %g = %.6g, by hand %.6g (tolerance 1e-4 relative)", c.t, got, c.want)
+		}
+	}
+}
