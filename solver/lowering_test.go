@@ -90,7 +90,7 @@ func TestLowerKeepsChecks(t *testing.T) {
 	p := &Project{Format: Format,
 		Layers: []Layer{{Name: "sand", Thickness: 3, GammaSat: 20, Gamma: 17, K: 1e-5, Mv: 1e-5}, {Name: "clay", Thickness: 5, GammaSat: 18, K: 1e-9, Mv: 1e-3}},
 		Top:    Boundary{Drained: true}, Bottom: Boundary{Drained: true},
-		Loads:  []Load{{Lower: &Lowering{WaterTable: 3}}}}
+		Loads: []Load{{Lower: &Lowering{WaterTable: 3}}}}
 	r, err := Solve(p, nil)
 	if err != nil {
 		t.Fatal(err)
