@@ -15,7 +15,7 @@ const factorCacheFloats = 4 << 20
 //
 // with u¹ given at the held nodes. M and K are symmetric band matrices of
 // one shape; the free unknowns are Lo … Hi-1 and Held lists the held
-// nodes (at most the two ends). A diagonal M (Lumped) with a tridiagonal K
+// nodes (runs from either end, see HeldRuns). A diagonal M (Lumped) with a tridiagonal K
 // takes a fused one-pass right-hand side. Each distinct (θ, Δt) is
 // factorised once and reused.
 type Stepper struct {
