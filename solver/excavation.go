@@ -262,3 +262,16 @@ func validLower(ps *Problems, at string, p *Project, i int, height float64) {
 		ps.Add("top.excess", ErrConflict, "with a lowered water table the pore pressure above it follows the lowering; a pressure history at the top is not modelled with it")
 	}
 }
+
+// drainedAt writes to dst the drained pore pressure change at breakpoint
+// time t: uInf, with the top zone's part at its stage's fraction.
+func (k *consolidation) drainedAt(dst []float64, t float64) []float64 {
+	copy(dst, k.uInf)
+	if k.uZone != nil {
+		f := k.c.p.Loads[k.c.zoneStage].fraction(t, false) - 1
+		for i, v := range k.uZone {
+			dst[i] += f * v
+		}
+	}
+	return dst
+}

@@ -349,19 +349,6 @@ func (tr *transient) drainedWith(u []float64, what string) error {
 	return nil
 }
 
-// drainedAt writes to dst the drained pore pressure change at breakpoint
-// time t: uInf, with the top zone's part at its stage's fraction.
-func (k *consolidation) drainedAt(dst []float64, t float64) []float64 {
-	copy(dst, k.uInf)
-	if k.uZone != nil {
-		f := k.c.p.Loads[k.c.zoneStage].fraction(t, false) - 1
-		for i, v := range k.uZone {
-			dst[i] += f * v
-		}
-	}
-	return dst
-}
-
 // startText describes the damped start for the result.
 func (tr *transient) startText() string {
 	theta, damped := tr.set.Theta, tr.set.DampedSteps
