@@ -160,6 +160,14 @@ const (
 	// MaxPressureReading a piezometer's, kPa, in absolute value.
 	MaxPlateReading    = 1e3
 	MaxPressureReading = 1e6
+
+	// MinResistance and MaxResistance bound top|bottom.resistance, days
+	// (d/k of what lies beyond a leaky end: a 1 m clay seam of 1e-9 m/s is
+	// about 1.2·10⁴ days, a geotextile filter well under a day). The
+	// leakage coefficient 1/(γw·R) then stays between 10⁻¹³ and 10⁸
+	// m/(kPa·day), inside the range of the conductivities k/(γw Δz).
+	MinResistance = 1e-6
+	MaxResistance = 1e12
 )
 
 // inRange adds an ErrOutOfRange problem at path unless lo ≤ v ≤ hi (v

@@ -29,6 +29,7 @@ type consolidation struct {
 	tr   *transient
 
 	sigInf, uInf []float64 // final total stress and pore pressure change
+	uZone        []float64 // the top zone's part of uInf (nil: no zone; see drainedAt)
 	bps          []breakpoint
 
 	points         []soil.Point // e–log state per element
@@ -62,6 +63,9 @@ type consolidation struct {
 	// watch, when set (Options.watch), sees the nodal total stress and
 	// pore pressure change after every recorded step.
 	watch func(t float64, sigma, u []float64)
+
+	checks *checks // the heave and uplift checks through time
+	jumped bool    // the state to record follows an instantaneous change
 }
 
 // probe is a piezometer: where to read the excess, and the steady pore
@@ -75,6 +79,9 @@ type probe struct {
 // and fills r.Consolidation, the settlement summary and warnings.
 func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path, msg string)) error {
 	k := &consolidation{c: c, st: st, r: r, warn: warn, tr: newTransient(c, opt)}
+	if c.zoneStage >= 0 {
+		k.tr.zoneTarget = c.zoneTargets(st)
+	}
 	if err := k.finalState(); err != nil {
 		return err
 	}
@@ -91,7 +98,9 @@ func (c *column) consolidate(st *Steady, r *Result, opt *Options, warn func(path
 		return err
 	}
 	if k.nl != nil {
-		k.nl.warnings(warn)
+		// The linear model's record loop has warned of a negative σ'
+		// itself; the non-linear model's commit is the only one that sees it.
+		k.nl.warnings(warn, k.nonlinearModel())
 		r.Stats.Iterations = k.nl.iterations
 	}
 	k.finalNonlinear()
@@ -112,8 +121,11 @@ func (k *consolidation) finalState() error {
 	if err != nil {
 		return err
 	}
+	if k.uZone, err = k.tr.zoneDrained(); err != nil {
+		return err
+	}
 	k.bps = breakpoints(k.c.p, k.tr.set.EndTime)
-	if len(k.tr.held) == 0 && k.c.drains == nil {
+	if !k.tr.canDrain() {
 		k.warn("", "both ends are undrained: the excess pore pressure cannot drain, so no consolidation settlement develops")
 	}
 	return nil
@@ -143,7 +155,7 @@ func (k *consolidation) sublayers() {
 		li := m.Layer[e]
 		l := &p.Layers[li]
 		k.points[e] = soil.NewPoint(soil.Curve{}, z1-z0, s0, s0)
-		if l.ECurve == nil {
+		if l.ECurve == nil || k.c.isDug(e) {
 			continue
 		}
 		ec := l.ECurve
@@ -155,12 +167,13 @@ func (k *consolidation) sublayers() {
 		return
 	}
 	final := append([]soil.Point(nil), k.points...)
-	stress := make([]float64, m.Nodes())
+	stress, ub := make([]float64, m.Nodes()), make([]float64, m.Nodes())
 	for _, b := range k.bps {
 		k.tr.stressAt(stress, b.t, false)
+		k.drainedAt(ub, b.t)
 		for e := range final {
 			if k.curved[e] {
-				final[e].MoveTo(final[e].S0 + m.Centre(stress, e) - m.Centre(k.uInf, e))
+				final[e].MoveTo(final[e].S0 + m.Centre(stress, e) - m.Centre(ub, e))
 			}
 		}
 	}
@@ -242,7 +255,7 @@ func (k *consolidation) prepareSeries() *Consolidation {
 		}
 	}
 	k.denP = dot(tr.wLength, k.sigInf) - dot(tr.wLength, k.uInf)
-	k.defined = math.Abs(k.denS) > 1e-12*math.Max(1, math.Abs(*k.r.Summary.SettlementLinear)) && (len(tr.held) > 0 || k.c.drains != nil)
+	k.defined = math.Abs(k.denS) > 1e-12*math.Max(1, math.Abs(*k.r.Summary.SettlementLinear)) && tr.canDrain()
 	// Up's denominator ∫Δσ'∞ dz vanishes when the final change of
 	// effective stress is zero everywhere (a load applied, then removed)
 	// or rises in one part of the column as much as it falls in another,
@@ -253,7 +266,7 @@ func (k *consolidation) prepareSeries() *Consolidation {
 	for i, w := range tr.wLength {
 		absP += w * math.Abs(k.sigInf[i]-k.uInf[i])
 	}
-	k.definedUp = (len(tr.held) > 0 || k.c.drains != nil) && math.Abs(k.denP) > 1e-9*absP
+	k.definedUp = tr.canDrain() && math.Abs(k.denP) > 1e-9*absP
 	if k.defined && !k.definedUp {
 		k.warn("loads", "the degree of dissipation Up is not shown: the final change of effective stress sums to zero over the column (it rises in one part as much as it falls in another, or returns to where it started), so Up would be 0/0; Us and the settlement are unaffected")
 	}
@@ -278,6 +291,8 @@ func (k *consolidation) prepareSeries() *Consolidation {
 			ser.Layers[i] = make([]float64, 0, capacity)
 		}
 	}
+	k.checks = newChecks(k.c, k.st)
+	k.checks.prepare(capacity, p.Loads)
 	for i := range ser.Piezometers {
 		ser.Piezometers[i].Pore = make([]float64, 0, capacity)
 		ser.Piezometers[i].Excess = make([]float64, 0, capacity)
@@ -289,8 +304,8 @@ func (k *consolidation) prepareSeries() *Consolidation {
 	// submerged. Under loading alone σ' = σ'0 + σ − u cannot drop below
 	// σ'0, since u ≤ σ.
 	k.followStress = k.anyCurve || tr.sub != nil
-	for _, l := range p.Loads {
-		k.followStress = k.followStress || l.Pressure() < 0
+	for i := range p.Loads {
+		k.followStress = k.followStress || StagePressure(p, i) < 0
 	}
 	for _, b := range []Boundary{p.Top, p.Bottom} {
 		for _, tv := range b.Excess {
@@ -305,7 +320,7 @@ func (k *consolidation) prepareSeries() *Consolidation {
 func (k *consolidation) record(ser *Series, t float64) {
 	p, m, tr := k.c.p, k.c.m, k.tr
 	ser.Time = append(ser.Time, t)
-	ser.Load = append(ser.Load, surcharge(p.Loads, t))
+	ser.Load = append(ser.Load, surcharge(p, t))
 	if tr.sub != nil {
 		ser.Load[len(ser.Load)-1] -= tr.sub.lost(p.Loads, t, false, tr.settled)
 	}
@@ -334,6 +349,9 @@ func (k *consolidation) record(ser *Series, t float64) {
 	} else if k.followStress {
 		total := 0.0
 		for e := range k.points {
+			if k.c.isDug(e) {
+				continue
+			}
 			s := &k.points[e]
 			to := s.S0 + m.Centre(tr.sigma, e) - m.Centre(tr.u, e)
 			if to < 0 && !k.negativeWarned {
@@ -369,6 +387,8 @@ func (k *consolidation) record(ser *Series, t float64) {
 	if k.watch != nil {
 		k.watch(t, tr.sigma, tr.u)
 	}
+	k.checks.observe(t, tr.sigma, tr.u, k.jumped)
+	k.jumped = false
 	for i := range k.probes {
 		pz := &k.probes[i]
 		ex := pz.at.Read(tr.u)
@@ -394,6 +414,7 @@ func (k *consolidation) march() error {
 		if bps[0].kind&bpJump != 0 {
 			tr.jump(0)
 			damp = tr.set.DampedSteps
+			k.jumped = true
 		}
 		bi = 1
 	}
@@ -436,6 +457,7 @@ func (k *consolidation) march() error {
 			if b.kind&bpJump != 0 {
 				tr.jump(t)
 				damp = tr.set.DampedSteps
+				k.jumped = true
 			}
 			if b.kind&(bpRestart|bpJump) != 0 {
 				dt = tr.set.FirstStep
@@ -452,6 +474,8 @@ func (k *consolidation) march() error {
 			}
 		}
 	}
+	k.checks.longTerm(k.sigInf, k.uInf)
+	k.checks.summarise(k.r)
 	k.r.Stats.Steps = k.steps
 	k.r.Stats.Factorizations = tr.stepper.Factorizations()
 	k.r.Stats.Scheme = res.Start
@@ -582,7 +606,7 @@ func (k *consolidation) iterated() {
 		pts = append([]soil.Point(nil), k.points...) // the e–log estimate keeps its own
 	}
 	k.nl = newNonlinear(k.tr, pts, law, k.mv, k.tr.stressScale())
-	k.nlDrained = k.nl.drained(k.bps, k.sigInf, k.uInf)
+	k.nlDrained = k.nl.drained(k.bps, k.sigInf, k.uInf, k.drainedAt)
 }
 
 // finalNonlinear takes the iterated model's final settlement from its end

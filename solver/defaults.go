@@ -171,7 +171,7 @@ func HasConsolidation(p *Project) bool {
 func elementCount(p *Project) int {
 	ms := ResolveMesh(p)
 	n := 0
-	breaks, top := drainBreaks(p), 0.0
+	breaks, top := meshBreaks(p), 0.0
 	for _, l := range p.Layers {
 		if l.Thickness/ms.MaxSize > MaxElements {
 			return MaxElements + 1

@@ -57,7 +57,9 @@
 // # Equations
 //
 // Steady seepage solves d/dz (k dh/dz) = 0 for the total head h, with a
-// fixed head at a drained end and a fixed inflow at an undrained one. Pore
+// fixed head at a drained end, a fixed inflow at an undrained one, a
+// leakage (h − h_b)/R at an end draining through a resistance, and the
+// outlet's head held throughout a layer that drains to an outlet. Pore
 // pressure is u = γw (h + z); the total vertical stress comes from the unit
 // weights (moist above the water table, saturated below) and the effective
 // stress is σ' = σ − u.
@@ -213,6 +215,28 @@
 // consolidation (Gibson et al. 1967) and creep beyond Cα after primary
 // are not covered. Vertical drains work with it (see Vertical drains).
 //
+// # Drains inside the column and leaky ends
+//
+// A layer with an Outlet drains to it (a sand layer cut by a ditch or
+// tapped by relief wells): its pore pressure is held at the outlet's head
+// (Outlet.Head, or hydrostatic) at every node of the layer. In the steady
+// state those nodes are held like a drained end: MoveHeld moves their
+// heads into the neighbours' equations and their rows become the identity
+// (fem.Band.Isolate) inside the factorised block. During consolidation the
+// excess there stays zero: their rows and columns are isolated in the
+// capacity (identity) and conductivity (zero) matrices and their source is
+// dropped, on the linear stepper and in the iterated loop alike, so the
+// layers on either side drain to it as to a drained end.
+//
+// An end with a Resistance R (days) drains through it (a leaky end): the
+// flow out is (h − h_b)/R, a Robin condition. In the weak form the end's
+// boundary term w·q becomes w·(h_b − h)/R, adding 1/R to the end's
+// diagonal and h_b/R to its right-hand side in the steady state (R in
+// seconds, k in m/s), and 1/(γw R) to the conductivity for the excess,
+// whose value beyond the end stays zero (a pressure history needs a free
+// end). R → 0 gives the drained end, R → ∞ the sealed one. Drains and
+// these two are not combined (Validate refuses it).
+//
 // # Vertical drains
 //
 // Project.Drains puts a pattern of vertical drains (triangular or square,
@@ -364,6 +388,63 @@
 // dissipation of the stage under way, 1 − Δu/Δu_peak, predicted and, for
 // a piezometer record at the same depth, measured.
 //
+// # Excavations and the water table lowered
+//
+// A stage with a Dig removes the soil from the top down to Dig.Depth, at
+// once or linearly over its ramp. σ'0 and σ'p (and so the OCR) are those
+// of the whole column before digging: the overburden removed has preloaded
+// what lies below, which then swells along Cr (non-linear model, e–log
+// estimate) or its swelling mv (Layer.MvUnload) with the cv that goes with
+// it. Below the floor the total stress falls by the overburden removed
+// less the water left standing in the excavation (StagePressure); the
+// nodes from the top down to the floor are held at the water inside the
+// excavation against the steady pore pressure at the floor (pumping:
+// Dig.WaterLevel at or below the floor holds the floor at zero pore
+// pressure), changing with the stage, and the elements above the floor
+// carry no storage and settle nothing. For the consolidation the soil
+// above the floor counts as removed from the start, draining at the
+// floor (a warning says so when another stage starts before the dig is
+// complete). Depths stay measured from the original top, so the floor is
+// at Dig.Depth in every result; the settlement series is that of the
+// floor (negative: heave).
+//
+// A stage with a Lower lowers the water table to Lowering.WaterTable: over
+// the stage the pore pressure above the new water table falls to zero (the
+// nodes there are held at minus their steady pore pressure) and the soil
+// in the band between the old and the new water table weighs its moist
+// unit weight instead of γsat, so the total stress at and below a depth z
+// falls by Σ (γsat − γ) over the band above z. This holds for sand, gravel
+// and fill, which drain as the water leaves. A clay held saturated by
+// capillarity keeps γsat above the new water table: give it no gamma (the
+// default), and only its pore pressure changes; the suction it then
+// carries is taken as zero, so the effective stress rise above the water
+// table is underestimated there (on the safe side for settlement of the
+// layers below, not for the clay's own). A water table lowered below the
+// column is a pressure history at the base (bottom.excess).
+//
+// # Heave and uplift through time
+//
+// Result.Checks follows three checks (common practice; the factors
+// required are set by local codes): ic/i in every layer with upward flow
+// (CheckHeave, i from the heads at the layer's ends); at the base of every
+// layer at least 100 times less permeable than the layer below, and of a
+// fine-grained bottom layer (k < 1e-7 m/s) on a drained or leaky base, the
+// whole overburden against the water pressure there (CheckPrism:
+// Terzaghi's prism above an aquifer) and the layer's own weight against
+// the rise of water pressure across it (CheckUplift). Pore pressure is the
+// steady pressure plus the excess, total stress the steady stress plus the
+// stages' change, so digging, pumping, drawdown and loads all count. Each
+// is evaluated in the initial steady state, at every time step, for every
+// stage from its completion until the next stage starts (Check.Stages),
+// and in the long-term state; the instant of an undrained jump itself is
+// skipped (its pressures at the edges of permeable layers are artefacts of
+// the instantaneous change) and the first step after it is checked.
+// Summary.Heave, Uplift and Prism name the least factor of each kind over
+// all of these, with its layer, depth and time (nil time: long term), and
+// Summary.MinHeaveFactor is the least ic/i. Factors are capped at
+// FactorCap (100: nothing pushes). A layer an excavation cuts is checked
+// from its floor down; one it removes is not checked.
+//
 // # Field monitoring
 //
 // Project.Monitoring holds settlement plates and piezometer records, each a
@@ -466,6 +547,12 @@
 //	                                  other end drained
 //	top|bottom.excess[j].t    day     0 … 10⁹, not decreasing         ErrNegative, ErrOutOfRange, ErrNotSorted
 //	top|bottom.excess[j].value kPa    −10⁵ … 10⁵; drained end only    ErrOutOfRange, ErrConflict
+//	                                  (not with a resistance)
+//	top|bottom.resistance     day     10⁻⁶ … 10¹²; drained end only;  ErrNotPositive, ErrOutOfRange,
+//	                                  not with drains                 ErrConflict
+//	layers[i].outlet.head     m       −10⁴ … 10⁴ (absent: −waterTable); ErrOutOfRange, ErrConflict
+//	                                  not with drains; touching
+//	                                  outlets share one head
 //	loads                     –       at most MaxLoads                ErrTooLarge
 //	loads[j].start, .ramp     day     0 … 10⁹                         ErrNegative, ErrOutOfRange
 //	loads[j].q                kPa     −10⁵ … 10⁵ (negative removes)   ErrOutOfRange
@@ -487,6 +574,13 @@
 //	                                  vertical), embankment only
 //	loads[j].area.x, .y       m       −10⁵ … 10⁵; y for a rectangle   ErrOutOfRange, ErrConflict
 //	                                  only; a circle takes x = y = 0
+//	loads[j].dig.depth        m       > 0, above the base; one dig or ErrNotPositive, ErrOutOfRange,
+//	                                  lowering per project; not with  ErrConflict
+//	                                  q, fill, area, profile, drains,
+//	                                  top.excess
+//	loads[j].dig.waterLevel   m       −10⁴ … 10⁴ (absent: waterTable) ErrOutOfRange
+//	loads[j].lower.waterTable m       below waterTable and the top,   ErrOutOfRange, ErrConflict
+//	                                  above the base; as dig.depth
 //	initialExcess[k].z        m       −10⁴ … 10⁴, increasing          ErrOutOfRange, ErrNotSorted
 //	initialExcess[k].value    kPa     −10⁵ … 10⁵                      ErrOutOfRange
 //	times[j]                  day     > 0, ≤ 10⁹, increasing          ErrNotPositive, ErrOutOfRange, ErrNotSorted
@@ -573,8 +667,10 @@
 // in-situ effective stress, an OCR that leaves less than 5 kPa of σ'p near
 // the surface, a layer without an e–log curve in the non-linear model, a
 // load removal without a reduced Cα, a non-linear step that did not
-// converge, suction or negative effective stress in the steady state, and
-// a column that cannot drain.
+// converge, suction or negative effective stress in the steady state, a
+// column that cannot drain, a head at the top that differs from the water
+// table's (and a sealed top under a base head), a water table below the
+// column, and a load stage that starts before an excavation is complete.
 //
 // # Scope
 //

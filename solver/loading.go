@@ -71,10 +71,10 @@ func (l Load) fraction(t float64, left bool) float64 {
 
 // surcharge is the pressure of the stages at the surface at time t, kPa,
 // before any submergence.
-func surcharge(loads []Load, t float64) float64 {
+func surcharge(p *Project, t float64) float64 {
 	s := 0.0
-	for _, l := range loads {
-		s += l.Pressure() * l.fraction(t, false)
+	for i, l := range p.Loads {
+		s += StagePressure(p, i) * l.fraction(t, false)
 	}
 	return s
 }

@@ -128,6 +128,19 @@ type Layer struct {
 	// when Ch is not given (ch = KhKv·cv, kh = KhKv·k). Zero means 1.
 	// Give Ch or KhKv, not both.
 	KhKv float64 `json:"khKv,omitempty"`
+	// Outlet, when given, marks the layer as draining to an outlet (a
+	// sand layer cut by a ditch or tapped by relief wells): its pore
+	// pressure is held at the outlet's head throughout the layer, in the
+	// steady state and during consolidation (where the excess there stays
+	// zero). Nil means the layer drains only through its neighbours.
+	Outlet *Outlet `json:"outlet,omitempty"`
+}
+
+// Outlet is where a draining layer lets its water go.
+type Outlet struct {
+	// Head is the total head held in the layer, m above the top of the
+	// column. Nil means hydrostatic: −WaterTable.
+	Head *float64 `json:"head,omitempty"`
 }
 
 // ECurve holds the parameters of the e–log σ' compression model.
@@ -177,7 +190,22 @@ type Boundary struct {
 	// linear in time between points and constant beyond them. Empty means
 	// zero throughout.
 	Excess []TimeValue `json:"excess,omitempty"`
+	// Resistance, when > 0 at a drained end, makes the end drain through
+	// a resistance (a leaky end: a thin tight layer or a clogged filter
+	// between the column and the water beyond), days: the thickness over
+	// the permeability, d/k, of what lies between. The flow out of the
+	// column is then (h − Head)/Resistance in the steady state (a Darcy
+	// velocity) and (u − u_b)/(γw·Resistance) for the excess, with u_b =
+	// 0 (a pressure history needs a free end). Zero means a freely
+	// drained end; a very large value approaches a sealed one.
+	Resistance float64 `json:"resistance,omitempty"`
 }
+
+// holds reports whether the end holds its pore pressure (drained freely).
+func (b Boundary) holds() bool { return b.Drained && b.Resistance == 0 }
+
+// leaky reports whether the end drains through a resistance.
+func (b Boundary) leaky() bool { return b.Drained && b.Resistance > 0 }
 
 // Load is one load stage: a pressure change q at the top, or a fill of
 // given thickness and unit weight, applied linearly from Start over Ramp,
@@ -204,6 +232,39 @@ type Load struct {
 	// them (e.g. an influence factor from an elastic stress solution).
 	// Empty means factor 1 at every depth.
 	Profile []DepthValue `json:"profile,omitempty"`
+	// Dig, when given, makes the stage an excavation: soil removed from
+	// the top of the column down to Dig.Depth over the stage's ramp (or
+	// at once), unloading the soil below by the weight removed, with the
+	// water inside the excavation at Dig.WaterLevel. Q must be 0 and the
+	// stage has no Fill, Area or Profile.
+	Dig *Dig `json:"dig,omitempty"`
+	// Lower, when given, makes the stage a lowering of the water table
+	// (a drawdown from the top): over the stage's ramp (or at once) the
+	// pore pressure above the new water table falls to zero and the soil
+	// there weighs its moist unit weight (gamma) instead of gammaSat.
+	// Q must be 0 and the stage has no Fill, Area, Profile or Dig.
+	Lower *Lowering `json:"lower,omitempty"`
+}
+
+// Lowering is a drawdown of the water table from its initial depth.
+type Lowering struct {
+	// WaterTable is the new depth of the water table, m below the top:
+	// below the initial one, inside the column.
+	WaterTable float64 `json:"waterTable"`
+}
+
+// Dig is an excavation from the top of the column. Depths stay measured
+// from the original top: results below the floor are at their depth
+// below the ground as it was before digging.
+type Dig struct {
+	// Depth is the floor of the excavation once complete, m below the
+	// original top, inside the column.
+	Depth float64 `json:"depth"`
+	// WaterLevel is the depth of the water standing inside the
+	// excavation, m below the original top: at or below Depth means
+	// pumped dry (the floor at zero pore pressure). Nil means the water
+	// table (the excavation floods to it; no pumping).
+	WaterLevel *float64 `json:"waterLevel,omitempty"`
 }
 
 // Fill is a layer of earth placed on the top of the column.

@@ -109,6 +109,9 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 		l := &c.p.Layers[m.Layer[e]]
 		nl.mv[e] = mvs[m.Layer[e]]
 		nl.mvu[e] = l.MvUnload
+		if c.isDug(e) { // taken out by the excavation: no storage
+			nl.mv[e], nl.mvu[e] = 0, 0
+		}
 		nl.sig[e] = pts[e].S0
 		nl.peak[e] = pts[e].S0
 		nl.k0[e] = l.K * soil.SecondsPerDay / c.gw
@@ -243,6 +246,7 @@ func (nl *nonlinear) coefficients(theta float64, sigma, u []float64) {
 func (nl *nonlinear) step(theta, t0, dt float64) error {
 	tr := nl.tr
 	ds := tr.stressStep(t0, dt)
+	tr.zeroPins(ds)
 	tr.heldValues(tr.next, t0+dt, true)
 	// The first iterate extrapolates the last step's change, unless
 	// something jumped since (then u is no longer where that step ended).
@@ -314,6 +318,8 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 			if nl.sink != nil {
 				nl.sink.add(nl.cond, nl.cc)
 			}
+			tr.addLeaks(nl.cond)
+			tr.isolatePins(nl.mass, nl.cond)
 			if err := fem.FactorizeSum(&nl.f, nl.mass, nl.cond, theta*dt, tr.lo, tr.hi); err != nil {
 				return tr.c.numerical(err, fmt.Sprintf("the non-linear consolidation step from %.4g to %.4g days", t0, t0+dt))
 			}
@@ -433,6 +439,26 @@ func (nl *nonlinear) solveLumped(theta, dt float64, ds []float64) error {
 		l[e] = -c1 * g
 		va, wa = vb, wb
 	}
+	// A leaky end passes (u − 0)/(γw R) out: θΔt of it on A', the flux of
+	// w on the residual. A draining layer's node keeps u = 0: its row is
+	// the identity and its update zero.
+	if a := tr.leakTop; a > 0 {
+		d[0] += c1 * a
+		r[0] -= a * (c0*nl.u0[0] + c1*nl.u1[0])
+	}
+	if a, j := tr.leakBottom, len(nl.half); a > 0 {
+		d[j] += c1 * a
+		r[j] -= a * (c0*nl.u0[j] + c1*nl.u1[j])
+	}
+	for _, j := range tr.pinned {
+		d[j], r[j] = 1, 0
+		if j > 0 {
+			l[j-1] = 0
+		}
+		if j < len(nl.half) {
+			l[j] = 0
+		}
+	}
 	// A' = L D Lᵀ on the free rows, L y = r, then Lᵀ x = D⁻¹ y. The
 	// pivots come first, alone: each waits on the last, so they are taken
 	// as ratios of the leading principal minors, P_i = d_i P_{i−1} −
@@ -482,7 +508,7 @@ func (nl *nonlinear) commit(t float64, sigma, u []float64) {
 	for e := range nl.pts {
 		p := &nl.pts[e]
 		to := p.S0 + nl.mean(sigma, e) - nl.mean(u, e)
-		if to < 0 && math.IsNaN(nl.negativeAt) {
+		if to < 0 && math.IsNaN(nl.negativeAt) && !nl.tr.c.isDug(e) {
 			_, z0, z1 := nl.m.Span(e)
 			nl.negativeAt, nl.negativeT = (z0+z1)/2, t
 		}
@@ -529,17 +555,17 @@ func (nl *nonlinear) layerSettlements(dst []float64) {
 // path (each breakpoint's total stress against the final pore pressure,
 // then the final state) and returns each layer's final settlement, m: the
 // denominator of Us.
-func (nl *nonlinear) drained(bps []breakpoint, sigInf, uInf []float64) []float64 {
+func (nl *nonlinear) drained(bps []breakpoint, sigInf, uInf []float64, uAt func(dst []float64, t float64) []float64) []float64 {
 	cp := &nonlinear{tr: nl.tr, m: nl.m, curved: nl.curved, mv: nl.mv, mvu: nl.mvu, ck: nl.ck, kExp: nl.kExp, kLo: nl.kLo, kHi: nl.kHi,
 		k0:     append([]float64(nil), nl.k0...),
 		pts:    append([]soil.Point(nil), nl.pts...),
 		sig:    append([]float64(nil), nl.sig...),
 		peak:   append([]float64(nil), nl.peak...),
 		strain: make([]float64, len(nl.strain)), negativeAt: math.NaN()}
-	stress := make([]float64, nl.m.Nodes())
+	stress, ub := make([]float64, nl.m.Nodes()), make([]float64, nl.m.Nodes())
 	for _, b := range bps {
 		nl.tr.stressAt(stress, b.t, false)
-		cp.commit(b.t, stress, uInf)
+		cp.commit(b.t, stress, uAt(ub, b.t))
 	}
 	cp.commit(math.Inf(1), sigInf, uInf)
 	out := make([]float64, len(nl.tr.c.p.Layers))
@@ -586,14 +612,14 @@ func (tr *transient) stressScale() float64 {
 	return s
 }
 
-// warnings reports an iteration that did not converge and an effective
-// stress that fell below zero.
-func (nl *nonlinear) warnings(warn func(path, msg string)) {
+// warnings reports an iteration that did not converge and, with
+// negative set, an effective stress that fell below zero.
+func (nl *nonlinear) warnings(warn func(path, msg string), negative bool) {
 	if nl.unconverged > 0 {
 		warn("stepping.firstStep", fmt.Sprintf("the non-linear iteration did not converge within %d iterations in %d of %d steps (first at %.4g days, a step of %.3g days; largest remaining change %.3g kPa against the tolerance %.3g kPa): results there are approximate; use a smaller stepping.firstStep (e.g. %.3g days) or a stepping.growth nearer 1",
 			NonlinearMaxIterations, nl.unconverged, nl.steps, nl.firstBad, nl.badStep, nl.worst, nl.tol, nl.badStep/4))
 	}
-	if !math.IsNaN(nl.negativeAt) {
+	if negative && !math.IsNaN(nl.negativeAt) {
 		warn("loads", fmt.Sprintf("the effective stress falls below zero at %.3g m near %.4g days: the soil would lose contact (heave); results there are not physical", nl.negativeAt, nl.negativeT))
 	}
 }

@@ -16,6 +16,8 @@ type Result struct {
 	Consolidation *Consolidation `json:"consolidation,omitempty"`
 	// Summary collects the headline figures.
 	Summary Summary `json:"summary"`
+	// Checks are the heave and uplift checks through time (see Check).
+	Checks []Check `json:"checks,omitempty"`
 	// Drains is nil without drains or without consolidation.
 	Drains *DrainResult `json:"drains,omitempty"`
 	// Residual is the settlement still to come after
@@ -47,8 +49,9 @@ type Steady struct {
 	// before any load, kPa.
 	Total     []float64 `json:"total"`
 	Effective []float64 `json:"effective"`
-	// Flux is the Darcy velocity, m/s, positive downward. It is the same
-	// in every layer.
+	// Flux is the Darcy velocity, m/s, positive downward: the same in
+	// every layer, unless a layer drains to an outlet (then the
+	// thickness-weighted mean of the layers' fluxes, which Layers give).
 	Flux float64 `json:"flux"`
 	// KEquivalent is the equivalent vertical permeability of the column,
 	// m/s (thickness-weighted harmonic mean).
@@ -232,9 +235,19 @@ type Summary struct {
 	DesignLife float64  `json:"designLife"` // day
 	// Layers holds per-layer settlement figures.
 	Layers []LayerSummary `json:"layers"`
-	// MinHeaveFactor is the smallest heave factor of any layer with
-	// upward flow (nil when there is none).
+	// MinHeaveFactor is the smallest heave factor ic/i of any layer at
+	// any time: the steady state, every time step and the long-term state
+	// (nil when no layer ever has upward flow); Heave names where and when.
 	MinHeaveFactor *float64 `json:"minHeaveFactor,omitempty"`
+	// Heave, Uplift and Prism are the governing checks of each kind over
+	// time (nil when nothing ever pushes): ic/i, a low-permeability
+	// layer's own weight against the water pressure across it, and the
+	// whole overburden against the water pressure at its base (Terzaghi's
+	// prism). The figures are for comparison with the factors local codes
+	// require; they do not choose them.
+	Heave  *Governing `json:"heave,omitempty"`
+	Uplift *Governing `json:"uplift,omitempty"`
+	Prism  *Governing `json:"prism,omitempty"`
 	// Flux is the steady Darcy velocity, m/s, positive downward.
 	Flux float64 `json:"flux"`
 	// Submerged is the thickness of fill below the water table once all

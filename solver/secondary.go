@@ -99,7 +99,9 @@ func (k *consolidation) layerNow(dst, ew []float64) {
 		for a := range np {
 			v += ew[e*np+a] * (tr.sigma[n0+a] - tr.u[n0+a])
 		}
-		dst[m.Layer[e]] += tr.mv[m.Layer[e]] * v
+		if !k.c.isDug(e) {
+			dst[m.Layer[e]] += tr.mv[m.Layer[e]] * v
+		}
 	}
 }
 

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"slices"
 
 	"porelight/solver/fem"
 	"porelight/solver/soil"
@@ -22,6 +23,13 @@ type column struct {
 	radialOnly bool
 	// factors is Δσ/q of every load stage at the nodes (stageFactors).
 	factors [][]float64
+	// The stage that holds the top of the column (an excavation or a
+	// lowered water table, see excavation.go): its index (−1: none), the
+	// deepest node it holds, and for an excavation the elements above
+	// its floor (nil: none).
+	zoneStage int
+	zoneNode  int
+	dug       []bool
 }
 
 // newColumn fills in the defaults of a validated project and meshes it.
@@ -35,8 +43,9 @@ func newColumn(p *Project) *column {
 	}
 	c.height = c.tops[len(p.Layers)]
 	ms := ResolveMesh(p)
-	c.m = fem.NewMeshBreaks(th, ms.Order, ms.MaxSize, ms.MinPerLayer, drainBreaks(p))
+	c.m = fem.NewMeshBreaks(th, ms.Order, ms.MaxSize, ms.MinPerLayer, meshBreaks(p))
 	c.drains = ResolveDrains(p)
+	c.setDig()
 	return c
 }
 
@@ -57,8 +66,9 @@ func (c *column) steady(warn func(path, msg string)) (Steady, error) {
 	n := m.Nodes()
 	h := make([]float64, n)
 	hydro := -p.WaterTable
+	pins := c.pins()
 	switch {
-	case !p.Top.Drained && !p.Bottom.Drained:
+	case !p.Top.Drained && !p.Bottom.Drained && len(pins) == 0:
 		// No end holds a head: with no inflow (Validate refuses an inflow
 		// here) the water stands at the water table.
 		for i := range h {
@@ -68,28 +78,62 @@ func (c *column) steady(warn func(path, msg string)) (Steady, error) {
 	default:
 		k := fem.NewBand(n, m.Order)
 		m.Assemble(k, func(e int, _ float64) float64 { return p.Layers[m.Layer[e]].K }, false)
+		// rhs is the inflow through each end (a leaky end's h_b/R), extra
+		// a leaky end's 1/R on the diagonal.
+		rhs, extra := make([]float64, n), make([]float64, n)
 		lo, hi := 0, n
 		var held []int
-		if p.Top.Drained {
-			h[0] = headOr(p.Top.Head, hydro)
-			held, lo = append(held, 0), 1
-		} else {
-			h[0] = p.Top.Inflow
+		ends := []struct {
+			b    Boundary
+			node int
+		}{{p.Top, 0}, {p.Bottom, n - 1}}
+		for _, e := range ends {
+			switch {
+			case e.b.holds():
+				h[e.node] = headOr(e.b.Head, hydro)
+				held = append(held, e.node)
+			case e.b.leaky():
+				a := endLeak(e.b)
+				extra[e.node] += a
+				rhs[e.node] += a * headOr(e.b.Head, hydro)
+			default:
+				rhs[e.node] += e.b.Inflow
+			}
 		}
-		if p.Bottom.Drained {
-			h[n-1] = headOr(p.Bottom.Head, hydro)
-			held, hi = append(held, n-1), n-1
-		} else {
-			h[n-1] += p.Bottom.Inflow
+		var inner []int // draining layers' nodes inside the factorised block
+		for _, pn := range pins {
+			if slices.Contains(held, pn.node) {
+				continue // a held end keeps its own head
+			}
+			h[pn.node] = pn.head
+			held = append(held, pn.node)
+			inner = append(inner, pn.node)
 		}
-		inflow := append([]float64(nil), h...) // right-hand side before the held ends move into it
-		fem.MoveHeld(h, k, h, held)
+		if slices.Contains(held, 0) {
+			lo = 1
+		}
+		if slices.Contains(held, n-1) {
+			hi = n - 1
+		}
+		kf := &fem.Band{N: k.N, KD: k.KD, AB: append([]float64(nil), k.AB...)}
+		for i, a := range extra {
+			if a != 0 {
+				kf.Add(i, i, a)
+			}
+		}
+		b := append([]float64(nil), rhs...)
+		fem.MoveHeld(b, kf, h, held)
+		for _, j := range inner {
+			kf.Isolate(j, 1)
+			b[j] = h[j]
+		}
 		var f fem.Factor
-		if err := fem.Factorize(&f, k, lo, hi); err != nil {
+		if err := fem.Factorize(&f, kf, lo, hi); err != nil {
 			return Steady{}, c.numerical(err, "the steady seepage equations")
 		}
-		f.Solve(h)
-		fem.Refine(h, inflow, k, &f, lo, hi)
+		f.Solve(b)
+		copy(h[lo:hi], b[lo:hi])
+		fem.RefineWith(h, rhs, k, extra, inner, &f, lo, hi)
 	}
 
 	s := Steady{Depth: append([]float64(nil), m.Z...), Head: h}
@@ -158,26 +202,7 @@ func (c *column) steady(warn func(path, msg string)) (Steady, error) {
 // totalStress is the vertical total stress at depth z before loading, kPa:
 // the weight of soil above (moist above the water table, saturated below)
 // plus any water standing above the top.
-func (c *column) totalStress(z float64) float64 {
-	wt := c.p.WaterTable
-	s := 0.0
-	if wt < 0 {
-		s = c.gw * -wt
-	}
-	for i, l := range c.p.Layers {
-		top, bot := c.tops[i], math.Min(c.tops[i+1], z)
-		if bot <= top {
-			break
-		}
-		g := l.Gamma
-		if g == 0 {
-			g = l.GammaSat
-		}
-		dry := math.Max(0, math.Min(bot, wt)-top)
-		s += g*dry + l.GammaSat*(bot-top-dry)
-	}
-	return s
-}
+func (c *column) totalStress(z float64) float64 { return overburden(c.p, z) }
 
 func headOr(h *float64, def float64) float64 {
 	if h != nil {

@@ -63,6 +63,8 @@ func solveValid(p *Project, opt *Options) (*Result, error) {
 	oddValues(p, warn)
 	drainWarnings(p, warn)
 	loadWarnings(p, c.height, warn)
+	digWarnings(p, warn)
+	groundwaterWarnings(p, c.height, warn)
 	st, err := c.steady(warn)
 	if err != nil {
 		return nil, err
@@ -91,10 +93,9 @@ func solveValid(p *Project, opt *Options) (*Result, error) {
 		}
 		r.Consolidation.Stages = c.stageStresses()
 	}
-	for _, l := range r.Steady.Layers {
-		if l.HeaveFactor != nil && (r.Summary.MinHeaveFactor == nil || *l.HeaveFactor < *r.Summary.MinHeaveFactor) {
-			r.Summary.MinHeaveFactor = ptr(*l.HeaveFactor)
-		}
+	if r.Consolidation == nil {
+		// The checks of the steady state: initial and long term alike.
+		newChecks(c, &r.Steady).summarise(r)
 	}
 	if path, v, ok := firstNonFinite(reflect.ValueOf(r).Elem(), ""); ok {
 		var ps Problems

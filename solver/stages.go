@@ -314,6 +314,10 @@ func (c *column) stageFactors() [][]float64 {
 		for i, l := range c.p.Loads {
 			f := make([]float64, c.m.Nodes())
 			for j, z := range c.m.Z {
+				if w := l.Lower; w != nil {
+					f[j] = lowerFactor(c.p, w.WaterTable, z)
+					continue
+				}
 				f[j] = l.Factor(z)
 			}
 			c.factors[i] = f
@@ -343,12 +347,12 @@ func (c *column) stageStresses() []StageStress {
 	}
 	factors := c.stageFactors()
 	out := make([]StageStress, len(p.Loads))
-	for i, l := range p.Loads {
+	for i := range p.Loads {
 		f := make([]float64, len(idx))
 		for k, j := range idx {
 			f[k] = factors[i][j]
 		}
-		out[i] = StageStress{Q: l.Pressure(), Depth: depth, Factor: f}
+		out[i] = StageStress{Q: StagePressure(p, i), Depth: depth, Factor: f}
 	}
 	return out
 }

@@ -168,7 +168,7 @@ func surchargeRemoval(p *Project, opt *Options, solve solveFunc) (*SurchargePlan
 	if err != nil {
 		return nil, err
 	}
-	plan := &SurchargePlan{Removal: removal, Lift: lift, Surcharge: -p.Loads[removal].Pressure(), Permanent: surcharge(p.Loads, math.Inf(1))}
+	plan := &SurchargePlan{Removal: removal, Lift: lift, Surcharge: -p.Loads[removal].Pressure(), Permanent: surcharge(p, math.Inf(1))}
 	if rp.Summary.Settlement == nil {
 		ps.Add("loads", ErrRequired, "the permanent load gives no settlement")
 		return nil, ps
@@ -378,7 +378,7 @@ func surchargeNeeded(p *Project, removal, lift int, by, liftEnd float64, withSur
 	for tHi > by {
 		lo, tLo = hi, tHi
 		hi *= 2
-		if hi > limit || hi > 64*math.Max(q0, surcharge(p.Loads, math.Inf(1))) {
+		if hi > limit || hi > 64*math.Max(q0, surcharge(p, math.Inf(1))) {
 			ps.Add(path, ErrOutOfRange, fmt.Sprintf("no surcharge up to %.4g kPa lets it come off by day %g", hi/2, by))
 			return nil, ps
 		}

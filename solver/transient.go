@@ -13,26 +13,34 @@ import (
 // change of every load stage, and the workspace, so that a step allocates
 // nothing.
 type transient struct {
-	c        *column
-	mv       []float64 // per layer, 1/kPa
-	k, mass  *fem.Band // conductivity (k/γw, m²/(kPa·day)) and mv-mass
-	sink     *fem.Band // the drains' radial sink (nil without drains)
-	kSink    *fem.Band // k + sink, what the stepper steps with drains
-	stepper  *fem.Stepper
-	held     []int
-	lo, hi   int // free unknowns
-	u        []float64
-	tmp      []float64
-	next     []float64    // held values at the end of a step
-	sigma    []float64    // total stress change at the nodes, kPa
-	shapes   [][]float64  // per load stage: Q·factor at the nodes
-	wMass    []float64    // ∫ mv Nᵢ dz
-	wLength  []float64    // ∫ Nᵢ dz
-	set      Stepping     // resolved
-	sub      *submergence // nil without fill stages
-	settled  float64      // settlement of the top at the last record, m
-	sigmaHs  float64      // the submerged fill thickness sigma holds, m
-	progress func(float64) bool
+	c       *column
+	mv      []float64 // per layer, 1/kPa
+	k, mass *fem.Band // conductivity (k/γw, m²/(kPa·day)) and mv-mass
+	sink    *fem.Band // the drains' radial sink (nil without drains)
+	kSink   *fem.Band // k + sink, what the stepper steps with drains
+	stepper *fem.Stepper
+	held    []int
+	lo, hi  int // free unknowns
+	// leakTop and leakBottom are the leaky ends' 1/(γw R), m/(kPa·day)
+	// (0: not leaky), already in k; pinned lists the nodes draining
+	// layers hold at zero excess (see outlets.go).
+	leakTop, leakBottom float64
+	pinned              []int
+	// zoneTarget is the excess held at the nodes from the top to
+	// c.zoneNode once the stage that holds them is complete, kPa.
+	zoneTarget []float64
+	u          []float64
+	tmp        []float64
+	next       []float64    // held values at the end of a step
+	sigma      []float64    // total stress change at the nodes, kPa
+	shapes     [][]float64  // per load stage: Q·factor at the nodes
+	wMass      []float64    // ∫ mv Nᵢ dz
+	wLength    []float64    // ∫ Nᵢ dz
+	set        Stepping     // resolved
+	sub        *submergence // nil without fill stages
+	settled    float64      // settlement of the top at the last record, m
+	sigmaHs    float64      // the submerged fill thickness sigma holds, m
+	progress   func(float64) bool
 }
 
 // newTransient assembles the conductivity matrix of c and sizes the
@@ -53,24 +61,28 @@ func newTransient(c *column, opt *Options) *transient {
 	tr.wLength = make([]float64, n)
 	m.Load(tr.wLength, func(float64) float64 { return 1 })
 
-	tr.lo, tr.hi = 0, n
-	if p.Top.Drained && !c.radialOnly {
-		tr.lo = 1
-		tr.held = append(tr.held, 0)
+	if !c.radialOnly {
+		// An excavation holds every node from the top to its floor.
+		for j := range c.zoneNode + 1 {
+			if j > 0 || p.Top.holds() || c.zoneStage >= 0 {
+				tr.held = append(tr.held, j)
+			}
+		}
+		if p.Bottom.holds() {
+			tr.held = append(tr.held, n-1)
+		}
 	}
-	if p.Bottom.Drained && !c.radialOnly {
-		tr.hi = n - 1
-		tr.held = append(tr.held, n-1)
-	}
+	tr.lo, tr.hi = fem.HeldRuns(n, tr.held)
+	tr.setLeaks()
 	tr.u = make([]float64, n)
 	tr.tmp = make([]float64, n)
 	tr.next = make([]float64, len(tr.held))
 	tr.sigma = make([]float64, n)
 	tr.shapes = make([][]float64, len(p.Loads))
 	factors := c.stageFactors()
-	for i, l := range p.Loads {
+	for i := range p.Loads {
 		f := make([]float64, n)
-		q := l.Pressure()
+		q := StagePressure(p, i)
 		for j, v := range factors[i] {
 			f[j] = q * v
 		}
@@ -96,7 +108,12 @@ func (tr *transient) setMv(mv []float64) {
 	m := tr.c.m
 	tr.mv = mv
 	clear(tr.mass.AB)
-	m.Assemble(tr.mass, func(e int, _ float64) float64 { return mv[m.Layer[e]] }, true)
+	m.Assemble(tr.mass, func(e int, _ float64) float64 {
+		if tr.c.isDug(e) {
+			return 0 // taken out by the excavation
+		}
+		return mv[m.Layer[e]]
+	}, true)
 	ones := make([]float64, m.Nodes())
 	for i := range ones {
 		ones[i] = 1
@@ -118,6 +135,7 @@ func (tr *transient) setMv(mv []float64) {
 		}
 		k = tr.kSink
 	}
+	tr.isolatePins(tr.mass, k)
 	tr.stepper = fem.NewStepper(tr.mass, k, tr.held, lumped)
 }
 
@@ -131,6 +149,9 @@ func (tr *transient) layerSettlement(sigma, u []float64) []float64 {
 	}
 	out := make([]float64, len(tr.mv))
 	for e := range m.Elements() {
+		if tr.c.isDug(e) {
+			continue
+		}
 		l := m.Layer[e]
 		out[l] += tr.mv[l] * m.Integrate(d, e)
 	}
@@ -149,7 +170,12 @@ func (tr *transient) boundary(top bool, t float64, left bool) float64 {
 // heldValues writes the prescribed values at time t of the held nodes, in
 // the order of tr.held, to dst (limits from the left with left set).
 func (tr *transient) heldValues(dst []float64, t float64, left bool) {
+	c := tr.c
 	for i, j := range tr.held {
+		if c.zoneStage >= 0 && j <= c.zoneNode {
+			dst[i] = tr.zoneTarget[j] * c.p.Loads[c.zoneStage].fraction(t, left)
+			continue
+		}
 		dst[i] = tr.boundary(j == 0, t, left)
 	}
 }
@@ -203,6 +229,7 @@ func (tr *transient) step(theta, t0, dt float64) error {
 	if out := tr.outlet(); out != nil {
 		ds = tr.shiftToOutlet(out, ds, t0, t0+dt)
 	}
+	tr.zeroPins(ds)
 	if err := tr.stepper.Step(tr.u, ds, tr.next, theta, dt); err != nil {
 		return tr.c.numerical(err, fmt.Sprintf("the consolidation step from %.4g to %.4g days", t0, t0+dt))
 	}
@@ -249,6 +276,7 @@ func (tr *transient) jump(t float64) {
 			tr.u[j] += profileAt(p.InitialExcess, tr.c.m.Z[j], 0)
 		}
 	}
+	tr.zeroPins(tr.u)
 	tr.stressAt(tr.sigma, t, false)
 	tr.setHeld(tr.u, t, false)
 }
@@ -261,7 +289,7 @@ func (tr *transient) final() (sigma, u []float64, err error) {
 	sigma = make([]float64, n)
 	tr.stressAt(sigma, math.Inf(1), false)
 	u = make([]float64, n)
-	if len(tr.held) == 0 {
+	if len(tr.held) == 0 && len(tr.pinned) == 0 && tr.leakTop == 0 && tr.leakBottom == 0 {
 		if tr.c.drains == nil {
 			copy(u, sigma)
 		}
@@ -275,17 +303,50 @@ func (tr *transient) final() (sigma, u []float64, err error) {
 		return sigma, u, nil
 	}
 	tr.setHeld(u, math.Inf(1), false)
+	if err := tr.drainedWith(u, "the final drained state"); err != nil {
+		return nil, nil, err
+	}
+	return sigma, u, nil
+}
+
+// zoneDrained is the drained pore pressure change the top zone's held
+// values alone give (every other held value zero), nil without a zone:
+// the drained state at time t is uInf + (f(t) − 1)·zoneDrained with f the
+// zone stage's fraction, since the zone's values follow its stage while
+// the ends hold their final values along the drained path.
+func (tr *transient) zoneDrained() ([]float64, error) {
+	c := tr.c
+	if c.zoneStage < 0 {
+		return nil, nil
+	}
+	u := make([]float64, len(tr.u))
+	copy(u, tr.zoneTarget)
+	return u, tr.drainedWith(u, "the drained state of the excavation or lowering")
+}
+
+// drainedWith solves K u = 0 for the free nodes of u, whose held nodes
+// hold their values on entry.
+func (tr *transient) drainedWith(u []float64, what string) error {
+	n := len(u)
 	rhs := make([]float64, n)
 	copy(rhs, u)
 	clear(rhs[tr.lo:tr.hi])
-	fem.MoveHeld(rhs, tr.k, u, tr.held)
+	k := tr.k
+	if len(tr.pinned) > 0 {
+		// The draining layers' nodes stay at zero excess: identity rows.
+		k = &fem.Band{N: tr.k.N, KD: tr.k.KD, AB: append([]float64(nil), tr.k.AB...)}
+		for _, j := range tr.pinned {
+			k.Isolate(j, 1)
+		}
+	}
+	fem.MoveHeld(rhs, k, u, tr.held)
 	var f fem.Factor
-	if err := fem.Factorize(&f, tr.k, tr.lo, tr.hi); err != nil {
-		return nil, nil, tr.c.numerical(err, "the final drained state")
+	if err := fem.Factorize(&f, k, tr.lo, tr.hi); err != nil {
+		return tr.c.numerical(err, what)
 	}
 	f.Solve(rhs)
 	copy(u[tr.lo:tr.hi], rhs[tr.lo:tr.hi])
-	return sigma, u, nil
+	return nil
 }
 
 // startText describes the damped start for the result.

@@ -115,7 +115,8 @@ func Validate(p *Project) error {
 
 	validBoundary(&ps, "top", p.Top)
 	validBoundary(&ps, "bottom", p.Bottom)
-	if !p.Top.Drained && !p.Bottom.Drained {
+	validOutlets(&ps, p)
+	if !p.Top.Drained && !p.Bottom.Drained && !hasOutlet(p) {
 		for _, c := range []struct {
 			at string
 			q  float64
@@ -138,8 +139,14 @@ func Validate(p *Project) error {
 		if l.Fill != nil {
 			validFill(&ps, at+"fill", l, gw)
 		}
-		if l.Area != nil {
+		if l.Area != nil && l.Dig == nil {
 			validArea(&ps, at+"area", l)
+		}
+		if l.Dig != nil {
+			validDig(&ps, at, p, i, height)
+		}
+		if l.Lower != nil {
+			validLower(&ps, at, p, i, height)
 		}
 	}
 	validProfile(&ps, "initialExcess", p.InitialExcess, MaxStress, "kPa")
@@ -218,7 +225,7 @@ func Validate(p *Project) error {
 			ps.Add("stepping.firstStep", ErrTooLarge, fmt.Sprintf("about %d time steps, the limit is %d; use a larger stepping.firstStep or stepping.growth", steps, MaxSteps))
 		case float64(steps)*float64(nodes) > MaxWork:
 			ps.Add("stepping.firstStep", ErrTooLarge, fmt.Sprintf("about %d time steps × %d nodes, the limit is %d; use a larger stepping.firstStep or stepping.growth, or a larger mesh.maxSize", steps, nodes, MaxWork))
-		case float64(nodes)*float64(len(p.Times)+7)+float64(steps)*float64(7+3*len(p.Piezometers)+drainSeries(p)+layerSeries(p)) > MaxStored:
+		case float64(nodes)*float64(len(p.Times)+7)+float64(steps)*float64(7+3*len(p.Piezometers)+drainSeries(p)+layerSeries(p)+checkSeries(p)) > MaxStored:
 			ps.Add("times", ErrTooLarge, fmt.Sprintf("the results would hold %d output times × %d nodes and %d time steps, more than the limit of %d numbers; use fewer output times or a larger mesh.maxSize", len(p.Times), nodes, steps, MaxStored))
 		}
 	}
@@ -238,6 +245,14 @@ func validBoundary(ps *Problems, at string, b Boundary) {
 	}
 	if len(b.Excess) > 0 && !b.Drained {
 		ps.Add(at+".excess", ErrConflict, "a pressure history needs a drained end")
+	}
+	if b.Resistance != 0 && bounded(ps, at+".resistance", b.Resistance, MinResistance, MaxResistance, "days") {
+		switch {
+		case !b.Drained:
+			ps.Add(at+".resistance", ErrConflict, "a resistance needs a drained end (it drains through the resistance); an undrained end is sealed")
+		case len(b.Excess) > 0:
+			ps.Add(at+".excess", ErrConflict, "a pressure history needs a freely drained end; this end drains through a resistance")
+		}
 	}
 	for i, tv := range b.Excess {
 		p := fmt.Sprintf("%s.excess[%d]", at, i)

@@ -4041,20 +4041,63 @@ func (c *Ground) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							_ = vgparent
 							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "drained"}}}
 							vgparent.AppendChild(vgn)
-							vgn.AddAttrInterface("selected", c.b(end).Drained)
+							vgn.AddAttrInterface("selected", c.drainage(end) == "drained")
 							{
 								vgparent := vgn
 								_ = vgparent
 								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "drained (free-draining)"}
 								vgparent.AppendChild(vgn)
 							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "leaky"}}}
+							vgparent.AppendChild(vgn)
+							vgn.AddAttrInterface("selected", c.drainage(end) == "leaky")
+							{
+								vgparent := vgn
+								_ = vgparent
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "leaky (through a resistance)"}
+								vgparent.AppendChild(vgn)
+							}
 							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "undrained"}}}
 							vgparent.AppendChild(vgn)
-							vgn.AddAttrInterface("selected", !c.b(end).Drained)
+							vgn.AddAttrInterface("selected", c.drainage(end) == "undrained")
 							{
 								vgparent := vgn
 								_ = vgparent
 								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "undrained (no drainage)"}
+								vgparent.AppendChild(vgn)
+							}
+						}
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
+					if c.drainage(end) == "leaky" {
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "label", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-pair"}}}
+						vgparent.AppendChild(vgn)
+						vgn.AddAttrInterface("for", end+"-resistance")
+						{
+							vgparent := vgn
+							_ = vgparent
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							vgn.SetInnerHTML(vugu.HTML("Resistance"))
+							{
+								vgcompKey := vugu.MakeCompKey(0xE4F4DF4A9514C58E^vgin.CurrentPositionHash(), vgiterkey)
+								// ask BuildEnv for prior instance of this specific component
+								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+								if vgcomp == nil {
+									// create new one if needed
+									vgcomp = new(Field)
+									vgin.BuildEnv.WireComponent(vgcomp)
+								}
+								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+								vgcomp.Changed = c.Changed
+								vgcomp.F = c.F
+								vgcomp.Hint = "Thickness over permeability (d/k, in days) of what lies between this end and the water beyond it; the flow out is the head difference over it"
+								vgcomp.Label = "Resistance of the leaky " + end
+								vgcomp.Path = end + ".resistance"
+								vgcomp.Unit = "day"
+								vgout.Components = append(vgout.Components, vgcomp)
+								vgn = &vugu.VGNode{Component: vgcomp}
 								vgparent.AppendChild(vgn)
 							}
 						}
@@ -4072,7 +4115,7 @@ func (c *Ground) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent.AppendChild(vgn)
 							vgn.SetInnerHTML(vugu.HTML("Head"))
 							{
-								vgcompKey := vugu.MakeCompKey(0xE4F4DF4A9514C58E^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0x7FBCDC68F45C861C^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -4106,7 +4149,7 @@ func (c *Ground) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent.AppendChild(vgn)
 							vgn.SetInnerHTML(vugu.HTML("Inflow"))
 							{
-								vgcompKey := vugu.MakeCompKey(0x7FBCDC68F45C861C^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0xB372832F85968C9^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -4129,7 +4172,7 @@ func (c *Ground) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 					}
 					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 					vgparent.AppendChild(vgn)
-					if c.b(end).Drained {
+					if c.drainage(end) == "drained" {
 						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-history"}}}
 						vgparent.AppendChild(vgn)
 						{
@@ -4181,7 +4224,7 @@ func (c *Ground) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 													vgparent := vgn
 													_ = vgparent
 													{
-														vgcompKey := vugu.MakeCompKey(0xB372832F85968C9^vgin.CurrentPositionHash(), vgiterkey)
+														vgcompKey := vugu.MakeCompKey(0x9C4E0D15A8A79850^vgin.CurrentPositionHash(), vgiterkey)
 														// ask BuildEnv for prior instance of this specific component
 														vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 														if vgcomp == nil {
@@ -4209,7 +4252,7 @@ func (c *Ground) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 													vgparent := vgn
 													_ = vgparent
 													{
-														vgcompKey := vugu.MakeCompKey(0x9C4E0D15A8A79850^vgin.CurrentPositionHash(), vgiterkey)
+														vgcompKey := vugu.MakeCompKey(0x547B6AD86320A836^vgin.CurrentPositionHash(), vgiterkey)
 														// ask BuildEnv for prior instance of this specific component
 														vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 														if vgcomp == nil {
@@ -4341,290 +4384,347 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 		vgn.SetInnerHTML(vugu.HTML("Layers \x3Cspan class=\"pl-sub\"\x3Etop to bottom\x3C/span\x3E"))
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
-		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "layers"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid"}}}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-scrollx"}}}
 		vgparent.AppendChild(vgn)
 		{
 			vgparent := vgn
 			_ = vgparent
 			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 			vgparent.AppendChild(vgn)
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
-			vgparent.AppendChild(vgn)
-			vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth class=\"pl-num\"\x3E#\x3C/th\x3E\x3Cth\x3EName\x3C/th\x3E\x3Cth\x3EThickness\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eγsat\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkN/m³\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eγ moist\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkN/m³\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Ek\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em/s\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Emv\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E1/kPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Ecv (derived)\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em²/day\x3C/span\x3E\x3C/th\x3E\x3Cth class=\"pl-noprint\"\x3E\x3Cspan class=\"pl-vh\"\x3ERow actions\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-			vgparent.AppendChild(vgn)
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "layers"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid"}}}
 			vgparent.AppendChild(vgn)
 			{
 				vgparent := vgn
 				_ = vgparent
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
-				for i := range c.F.Draft().Layers {
-					var vgiterkey interface{} = i
-					_ = vgiterkey
-					i := i
-					_ = i
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
+				vgparent.AppendChild(vgn)
+				vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth class=\"pl-num\"\x3E#\x3C/th\x3E\x3Cth\x3EName\x3C/th\x3E\x3Cth\x3EThickness\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eγsat\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkN/m³\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eγ moist\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3EkN/m³\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Ek\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em/s\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Emv\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E1/kPa\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Ecv (derived)\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em²/day\x3C/span\x3E\x3C/th\x3E\x3Cth title=\"The layer drains to an outlet (a sand layer cut by a ditch, relief wells): its pore pressure is held at the outlet\x26#39;s head\"\x3EDrains to an outlet\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Ehead, m\x3C/span\x3E\x3C/th\x3E\x3Cth class=\"pl-noprint\"\x3E\x3Cspan class=\"pl-vh\"\x3ERow actions\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
+				vgparent.AppendChild(vgn)
+				{
+					vgparent := vgn
+					_ = vgparent
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 					vgparent.AppendChild(vgn)
-					vgn.AddAttrInterface("id", fmt.Sprintf("layer-row-%d", i))
-					{
-						vgparent := vgn
-						_ = vgparent
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					for i := range c.F.Draft().Layers {
+						var vgiterkey interface{} = i
+						_ = vgiterkey
+						i := i
+						_ = i
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
 						vgparent.AppendChild(vgn)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-num"}}}
-						vgparent.AppendChild(vgn)
-						vgn.SetInnerHTML(i + 1)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-						vgparent.AppendChild(vgn)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-						vgparent.AppendChild(vgn)
+						vgn.AddAttrInterface("id", fmt.Sprintf("layer-row-%d", i))
 						{
 							vgparent := vgn
 							_ = vgparent
-							{
-								vgcompKey := vugu.MakeCompKey(0x37B14EEEB4543273^vgin.CurrentPositionHash(), vgiterkey)
-								// ask BuildEnv for prior instance of this specific component
-								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-								if vgcomp == nil {
-									// create new one if needed
-									vgcomp = new(Field)
-									vgin.BuildEnv.WireComponent(vgcomp)
-								}
-								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-								vgcomp.Changed = c.Changed
-								vgcomp.F = c.F
-								vgcomp.Label = "Name of layer " + itoa(i+1)
-								vgcomp.Path = lp(i, "name")
-								vgcomp.Wide = true
-								vgout.Components = append(vgout.Components, vgcomp)
-								vgn = &vugu.VGNode{Component: vgcomp}
-								vgparent.AppendChild(vgn)
-							}
-						}
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-						vgparent.AppendChild(vgn)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-						vgparent.AppendChild(vgn)
-						{
-							vgparent := vgn
-							_ = vgparent
-							{
-								vgcompKey := vugu.MakeCompKey(0xC9B52D2DED69F08D^vgin.CurrentPositionHash(), vgiterkey)
-								// ask BuildEnv for prior instance of this specific component
-								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-								if vgcomp == nil {
-									// create new one if needed
-									vgcomp = new(Field)
-									vgin.BuildEnv.WireComponent(vgcomp)
-								}
-								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-								vgcomp.Bare = true
-								vgcomp.Changed = c.Changed
-								vgcomp.F = c.F
-								vgcomp.Label = "Thickness of layer " + itoa(i+1)
-								vgcomp.Path = lp(i, "thickness")
-								vgcomp.Unit = "m"
-								vgout.Components = append(vgout.Components, vgcomp)
-								vgn = &vugu.VGNode{Component: vgcomp}
-								vgparent.AppendChild(vgn)
-							}
-						}
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-						vgparent.AppendChild(vgn)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-						vgparent.AppendChild(vgn)
-						{
-							vgparent := vgn
-							_ = vgparent
-							{
-								vgcompKey := vugu.MakeCompKey(0xE9B6C21A9680A0A5^vgin.CurrentPositionHash(), vgiterkey)
-								// ask BuildEnv for prior instance of this specific component
-								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-								if vgcomp == nil {
-									// create new one if needed
-									vgcomp = new(Field)
-									vgin.BuildEnv.WireComponent(vgcomp)
-								}
-								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-								vgcomp.Bare = true
-								vgcomp.Changed = c.Changed
-								vgcomp.F = c.F
-								vgcomp.Label = "Saturated unit weight of layer " + itoa(i+1)
-								vgcomp.Path = lp(i, "gammaSat")
-								vgcomp.Unit = "kN/m³"
-								vgout.Components = append(vgout.Components, vgcomp)
-								vgn = &vugu.VGNode{Component: vgcomp}
-								vgparent.AppendChild(vgn)
-							}
-						}
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-						vgparent.AppendChild(vgn)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-						vgparent.AppendChild(vgn)
-						{
-							vgparent := vgn
-							_ = vgparent
-							{
-								vgcompKey := vugu.MakeCompKey(0x6369AB11FB7FF0F^vgin.CurrentPositionHash(), vgiterkey)
-								// ask BuildEnv for prior instance of this specific component
-								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-								if vgcomp == nil {
-									// create new one if needed
-									vgcomp = new(Field)
-									vgin.BuildEnv.WireComponent(vgcomp)
-								}
-								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-								vgcomp.Bare = true
-								vgcomp.Changed = c.Changed
-								vgcomp.F = c.F
-								vgcomp.Hint = "Empty: the same as γsat"
-								vgcomp.Label = "Unit weight above the water table, layer " + itoa(i+1)
-								vgcomp.Path = lp(i, "gamma")
-								vgcomp.Unit = "kN/m³"
-								vgout.Components = append(vgout.Components, vgcomp)
-								vgn = &vugu.VGNode{Component: vgcomp}
-								vgparent.AppendChild(vgn)
-							}
-						}
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-						vgparent.AppendChild(vgn)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-						vgparent.AppendChild(vgn)
-						{
-							vgparent := vgn
-							_ = vgparent
-							{
-								vgcompKey := vugu.MakeCompKey(0xC28074EA1A59E982^vgin.CurrentPositionHash(), vgiterkey)
-								// ask BuildEnv for prior instance of this specific component
-								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-								if vgcomp == nil {
-									// create new one if needed
-									vgcomp = new(Field)
-									vgin.BuildEnv.WireComponent(vgcomp)
-								}
-								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-								vgcomp.Bare = true
-								vgcomp.Changed = c.Changed
-								vgcomp.F = c.F
-								vgcomp.Label = "Permeability of layer " + itoa(i+1)
-								vgcomp.Path = lp(i, "k")
-								vgcomp.Unit = "m/s"
-								vgout.Components = append(vgout.Components, vgcomp)
-								vgn = &vugu.VGNode{Component: vgcomp}
-								vgparent.AppendChild(vgn)
-							}
-						}
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-						vgparent.AppendChild(vgn)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-						vgparent.AppendChild(vgn)
-						{
-							vgparent := vgn
-							_ = vgparent
-							{
-								vgcompKey := vugu.MakeCompKey(0x2B305CC655609E85^vgin.CurrentPositionHash(), vgiterkey)
-								// ask BuildEnv for prior instance of this specific component
-								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-								if vgcomp == nil {
-									// create new one if needed
-									vgcomp = new(Field)
-									vgin.BuildEnv.WireComponent(vgcomp)
-								}
-								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-								vgcomp.Bare = true
-								vgcomp.Changed = c.Changed
-								vgcomp.F = c.F
-								vgcomp.Hint = "Empty: derived from the e–log σ′ parameters"
-								vgcomp.Label = "Coefficient of volume compressibility of layer " + itoa(i+1)
-								vgcomp.Path = lp(i, "mv")
-								vgcomp.Unit = "1/kPa"
-								vgout.Components = append(vgout.Components, vgcomp)
-								vgn = &vugu.VGNode{Component: vgcomp}
-								vgparent.AppendChild(vgn)
-							}
-						}
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-						vgparent.AppendChild(vgn)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-derived"}}}
-						vgparent.AppendChild(vgn)
-						vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-cv", i))
-						vgn.SetInnerHTML(c.cv(i))
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-						vgparent.AppendChild(vgn)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-actions pl-noprint"}}}
-						vgparent.AppendChild(vgn)
-						{
-							vgparent := vgn
-							_ = vgparent
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-icon"}}}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 							vgparent.AppendChild(vgn)
-							vgn.AddAttrInterface("disabled", i == 0)
-							vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-up", i))
-							vgn.AddAttrInterface("title", "Move layer "+itoa(i+1)+" up")
-							vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
-								EventType: "click",
-								Func:      func(event vugu.DOMEvent) { c.move(i, -1) },
-								// TODO: implement capture, etc. mostly need to decide syntax
-							})
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-num"}}}
+							vgparent.AppendChild(vgn)
+							vgn.SetInnerHTML(i + 1)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
 							{
 								vgparent := vgn
 								_ = vgparent
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "↑"}
-								vgparent.AppendChild(vgn)
+								{
+									vgcompKey := vugu.MakeCompKey(0x37B14EEEB4543273^vgin.CurrentPositionHash(), vgiterkey)
+									// ask BuildEnv for prior instance of this specific component
+									vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+									if vgcomp == nil {
+										// create new one if needed
+										vgcomp = new(Field)
+										vgin.BuildEnv.WireComponent(vgcomp)
+									}
+									vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+									vgcomp.Changed = c.Changed
+									vgcomp.F = c.F
+									vgcomp.Label = "Name of layer " + itoa(i+1)
+									vgcomp.Path = lp(i, "name")
+									vgcomp.Wide = true
+									vgout.Components = append(vgout.Components, vgcomp)
+									vgn = &vugu.VGNode{Component: vgcomp}
+									vgparent.AppendChild(vgn)
+								}
 							}
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-icon"}}}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 							vgparent.AppendChild(vgn)
-							vgn.AddAttrInterface("disabled", i == len(c.F.Draft().Layers)-1)
-							vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-down", i))
-							vgn.AddAttrInterface("title", "Move layer "+itoa(i+1)+" down")
-							vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
-								EventType: "click",
-								Func:      func(event vugu.DOMEvent) { c.move(i, 1) },
-								// TODO: implement capture, etc. mostly need to decide syntax
-							})
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
 							{
 								vgparent := vgn
 								_ = vgparent
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "↓"}
-								vgparent.AppendChild(vgn)
+								{
+									vgcompKey := vugu.MakeCompKey(0xC9B52D2DED69F08D^vgin.CurrentPositionHash(), vgiterkey)
+									// ask BuildEnv for prior instance of this specific component
+									vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+									if vgcomp == nil {
+										// create new one if needed
+										vgcomp = new(Field)
+										vgin.BuildEnv.WireComponent(vgcomp)
+									}
+									vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+									vgcomp.Bare = true
+									vgcomp.Changed = c.Changed
+									vgcomp.F = c.F
+									vgcomp.Label = "Thickness of layer " + itoa(i+1)
+									vgcomp.Path = lp(i, "thickness")
+									vgcomp.Unit = "m"
+									vgout.Components = append(vgout.Components, vgcomp)
+									vgn = &vugu.VGNode{Component: vgcomp}
+									vgparent.AppendChild(vgn)
+								}
 							}
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-icon"}}}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 							vgparent.AppendChild(vgn)
-							vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-insert", i))
-							vgn.AddAttrInterface("title", "Insert a layer below layer "+itoa(i+1))
-							vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
-								EventType: "click",
-								Func:      func(event vugu.DOMEvent) { c.add(i) },
-								// TODO: implement capture, etc. mostly need to decide syntax
-							})
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
 							{
 								vgparent := vgn
 								_ = vgparent
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "+"}
-								vgparent.AppendChild(vgn)
+								{
+									vgcompKey := vugu.MakeCompKey(0xE9B6C21A9680A0A5^vgin.CurrentPositionHash(), vgiterkey)
+									// ask BuildEnv for prior instance of this specific component
+									vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+									if vgcomp == nil {
+										// create new one if needed
+										vgcomp = new(Field)
+										vgin.BuildEnv.WireComponent(vgcomp)
+									}
+									vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+									vgcomp.Bare = true
+									vgcomp.Changed = c.Changed
+									vgcomp.F = c.F
+									vgcomp.Label = "Saturated unit weight of layer " + itoa(i+1)
+									vgcomp.Path = lp(i, "gammaSat")
+									vgcomp.Unit = "kN/m³"
+									vgout.Components = append(vgout.Components, vgcomp)
+									vgn = &vugu.VGNode{Component: vgcomp}
+									vgparent.AppendChild(vgn)
+								}
 							}
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-icon"}}}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 							vgparent.AppendChild(vgn)
-							vgn.AddAttrInterface("disabled", len(c.F.Draft().Layers) == 1)
-							vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-remove", i))
-							vgn.AddAttrInterface("title", "Remove layer "+itoa(i+1))
-							vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
-								EventType: "click",
-								Func:      func(event vugu.DOMEvent) { c.remove(i) },
-								// TODO: implement capture, etc. mostly need to decide syntax
-							})
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
 							{
 								vgparent := vgn
 								_ = vgparent
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "×"}
-								vgparent.AppendChild(vgn)
+								{
+									vgcompKey := vugu.MakeCompKey(0x6369AB11FB7FF0F^vgin.CurrentPositionHash(), vgiterkey)
+									// ask BuildEnv for prior instance of this specific component
+									vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+									if vgcomp == nil {
+										// create new one if needed
+										vgcomp = new(Field)
+										vgin.BuildEnv.WireComponent(vgcomp)
+									}
+									vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+									vgcomp.Bare = true
+									vgcomp.Changed = c.Changed
+									vgcomp.F = c.F
+									vgcomp.Hint = "Empty: the same as γsat"
+									vgcomp.Label = "Unit weight above the water table, layer " + itoa(i+1)
+									vgcomp.Path = lp(i, "gamma")
+									vgcomp.Unit = "kN/m³"
+									vgout.Components = append(vgout.Components, vgcomp)
+									vgn = &vugu.VGNode{Component: vgcomp}
+									vgparent.AppendChild(vgn)
+								}
 							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							{
+								vgparent := vgn
+								_ = vgparent
+								{
+									vgcompKey := vugu.MakeCompKey(0xC28074EA1A59E982^vgin.CurrentPositionHash(), vgiterkey)
+									// ask BuildEnv for prior instance of this specific component
+									vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+									if vgcomp == nil {
+										// create new one if needed
+										vgcomp = new(Field)
+										vgin.BuildEnv.WireComponent(vgcomp)
+									}
+									vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+									vgcomp.Bare = true
+									vgcomp.Changed = c.Changed
+									vgcomp.F = c.F
+									vgcomp.Label = "Permeability of layer " + itoa(i+1)
+									vgcomp.Path = lp(i, "k")
+									vgcomp.Unit = "m/s"
+									vgout.Components = append(vgout.Components, vgcomp)
+									vgn = &vugu.VGNode{Component: vgcomp}
+									vgparent.AppendChild(vgn)
+								}
+							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							{
+								vgparent := vgn
+								_ = vgparent
+								{
+									vgcompKey := vugu.MakeCompKey(0x2B305CC655609E85^vgin.CurrentPositionHash(), vgiterkey)
+									// ask BuildEnv for prior instance of this specific component
+									vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+									if vgcomp == nil {
+										// create new one if needed
+										vgcomp = new(Field)
+										vgin.BuildEnv.WireComponent(vgcomp)
+									}
+									vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+									vgcomp.Bare = true
+									vgcomp.Changed = c.Changed
+									vgcomp.F = c.F
+									vgcomp.Hint = "Empty: derived from the e–log σ′ parameters"
+									vgcomp.Label = "Coefficient of volume compressibility of layer " + itoa(i+1)
+									vgcomp.Path = lp(i, "mv")
+									vgcomp.Unit = "1/kPa"
+									vgout.Components = append(vgout.Components, vgcomp)
+									vgn = &vugu.VGNode{Component: vgcomp}
+									vgparent.AppendChild(vgn)
+								}
+							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-derived"}}}
+							vgparent.AppendChild(vgn)
+							vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-cv", i))
+							vgn.SetInnerHTML(c.cv(i))
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-outlet"}}}
+							vgparent.AppendChild(vgn)
+							{
+								vgparent := vgn
+								_ = vgparent
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "input", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "checkbox"}}}
+								vgparent.AppendChild(vgn)
+								vgn.AddAttrInterface("aria-label", "Layer "+itoa(i+1)+" drains to an outlet")
+								vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-outlet", i))
+								{
+									b, err := vjson.Marshal(c.F.Draft().Layers[i].Outlet != nil)
+									if err != nil {
+										panic(err)
+									}
+									vgn.Prop = append(vgn.Prop, vugu.VGProperty{Key: "checked", JSONVal: vjson.RawMessage(b)})
+								}
+								vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+									EventType: "change",
+									Func:      func(event vugu.DOMEvent) { c.setOutlet(i, event) },
+									// TODO: implement capture, etc. mostly need to decide syntax
+								})
+								if c.F.Draft().Layers[i].Outlet != nil {
+									{
+										vgcompKey := vugu.MakeCompKey(0xE5D18531B16620E5^vgin.CurrentPositionHash(), vgiterkey)
+										// ask BuildEnv for prior instance of this specific component
+										vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+										if vgcomp == nil {
+											// create new one if needed
+											vgcomp = new(Field)
+											vgin.BuildEnv.WireComponent(vgcomp)
+										}
+										vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+										vgcomp.Bare = true
+										vgcomp.Changed = c.Changed
+										vgcomp.F = c.F
+										vgcomp.Hint = "Total head held in the layer, m above the top; empty: hydrostatic from the water table"
+										vgcomp.Label = "Head held in layer " + itoa(i+1)
+										vgcomp.Path = lp(i, "outlet.head")
+										vgcomp.Unit = "m"
+										vgout.Components = append(vgout.Components, vgcomp)
+										vgn = &vugu.VGNode{Component: vgcomp}
+										vgparent.AppendChild(vgn)
+									}
+								}
+							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-actions pl-noprint"}}}
+							vgparent.AppendChild(vgn)
+							{
+								vgparent := vgn
+								_ = vgparent
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-icon"}}}
+								vgparent.AppendChild(vgn)
+								vgn.AddAttrInterface("disabled", i == 0)
+								vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-up", i))
+								vgn.AddAttrInterface("title", "Move layer "+itoa(i+1)+" up")
+								vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+									EventType: "click",
+									Func:      func(event vugu.DOMEvent) { c.move(i, -1) },
+									// TODO: implement capture, etc. mostly need to decide syntax
+								})
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "↑"}
+									vgparent.AppendChild(vgn)
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-icon"}}}
+								vgparent.AppendChild(vgn)
+								vgn.AddAttrInterface("disabled", i == len(c.F.Draft().Layers)-1)
+								vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-down", i))
+								vgn.AddAttrInterface("title", "Move layer "+itoa(i+1)+" down")
+								vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+									EventType: "click",
+									Func:      func(event vugu.DOMEvent) { c.move(i, 1) },
+									// TODO: implement capture, etc. mostly need to decide syntax
+								})
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "↓"}
+									vgparent.AppendChild(vgn)
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-icon"}}}
+								vgparent.AppendChild(vgn)
+								vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-insert", i))
+								vgn.AddAttrInterface("title", "Insert a layer below layer "+itoa(i+1))
+								vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+									EventType: "click",
+									Func:      func(event vugu.DOMEvent) { c.add(i) },
+									// TODO: implement capture, etc. mostly need to decide syntax
+								})
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "+"}
+									vgparent.AppendChild(vgn)
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-icon"}}}
+								vgparent.AppendChild(vgn)
+								vgn.AddAttrInterface("disabled", len(c.F.Draft().Layers) == 1)
+								vgn.AddAttrInterface("id", fmt.Sprintf("layers-%d-remove", i))
+								vgn.AddAttrInterface("title", "Remove layer "+itoa(i+1))
+								vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+									EventType: "click",
+									Func:      func(event vugu.DOMEvent) { c.remove(i) },
+									// TODO: implement capture, etc. mostly need to decide syntax
+								})
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "×"}
+									vgparent.AppendChild(vgn)
+								}
+							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
 						}
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-						vgparent.AppendChild(vgn)
 					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+					vgparent.AppendChild(vgn)
 				}
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
@@ -4777,7 +4877,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent := vgn
 							_ = vgparent
 							{
-								vgcompKey := vugu.MakeCompKey(0xE5D18531B16620E5^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0x4BB1BCEDD954B293^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -4805,7 +4905,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent := vgn
 							_ = vgparent
 							{
-								vgcompKey := vugu.MakeCompKey(0x4BB1BCEDD954B293^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0xEE5921351A1BA2B^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -4833,7 +4933,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent := vgn
 							_ = vgparent
 							{
-								vgcompKey := vugu.MakeCompKey(0xEE5921351A1BA2B^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0x27C3C3F3C9153431^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -4861,7 +4961,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent := vgn
 							_ = vgparent
 							{
-								vgcompKey := vugu.MakeCompKey(0x27C3C3F3C9153431^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0x2FE8BCF883F8C090^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -4890,7 +4990,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent := vgn
 							_ = vgparent
 							{
-								vgcompKey := vugu.MakeCompKey(0x2FE8BCF883F8C090^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0xA93AB01435404191^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -4919,7 +5019,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent := vgn
 							_ = vgparent
 							{
-								vgcompKey := vugu.MakeCompKey(0xA93AB01435404191^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0xE0D022467C72EB79^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -4948,7 +5048,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent := vgn
 							_ = vgparent
 							{
-								vgcompKey := vugu.MakeCompKey(0xE0D022467C72EB79^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0xC6FF8B0F512B0270^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -5047,7 +5147,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 											vgparent := vgn
 											_ = vgparent
 											{
-												vgcompKey := vugu.MakeCompKey(0xC6FF8B0F512B0270^vgin.CurrentPositionHash(), vgiterkey)
+												vgcompKey := vugu.MakeCompKey(0x5B47B1180EC9BA1^vgin.CurrentPositionHash(), vgiterkey)
 												// ask BuildEnv for prior instance of this specific component
 												vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 												if vgcomp == nil {
@@ -5075,7 +5175,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 											vgparent := vgn
 											_ = vgparent
 											{
-												vgcompKey := vugu.MakeCompKey(0x5B47B1180EC9BA1^vgin.CurrentPositionHash(), vgiterkey)
+												vgcompKey := vugu.MakeCompKey(0x64F70B86CAAED030^vgin.CurrentPositionHash(), vgiterkey)
 												// ask BuildEnv for prior instance of this specific component
 												vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 												if vgcomp == nil {
@@ -5206,7 +5306,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent := vgn
 							_ = vgparent
 							{
-								vgcompKey := vugu.MakeCompKey(0x64F70B86CAAED030^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0xF3EBA29AC3A90306^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -5235,7 +5335,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent := vgn
 							_ = vgparent
 							{
-								vgcompKey := vugu.MakeCompKey(0xF3EBA29AC3A90306^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0x3184E726D7F6684D^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -5264,7 +5364,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent := vgn
 							_ = vgparent
 							{
-								vgcompKey := vugu.MakeCompKey(0x3184E726D7F6684D^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0x6EE6C50BE6168EDB^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -5293,7 +5393,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent := vgn
 							_ = vgparent
 							{
-								vgcompKey := vugu.MakeCompKey(0x6EE6C50BE6168EDB^vgin.CurrentPositionHash(), vgiterkey)
+								vgcompKey := vugu.MakeCompKey(0xE0E3A27818615231^vgin.CurrentPositionHash(), vgiterkey)
 								// ask BuildEnv for prior instance of this specific component
 								vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 								if vgcomp == nil {
@@ -5353,7 +5453,7 @@ func (c *Loads) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 		vgparent.AppendChild(vgn)
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "h2", Attr: []vugu.VGAttribute(nil)}
 		vgparent.AppendChild(vgn)
-		vgn.SetInnerHTML(vugu.HTML("Load stages \x3Cspan class=\"pl-sub\"\x3Ea pressure or a fill on the top, over the whole top or a finite area; negative q or thickness removes load\x3C/span\x3E"))
+		vgn.SetInnerHTML(vugu.HTML("Load stages \x3Cspan class=\"pl-sub\"\x3Ea pressure or a fill on the top, over the whole top or a finite area (negative q or thickness removes load); an excavation from the top; a lowered water table\x3C/span\x3E"))
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
 		if len(c.F.Draft().Loads) > 0 {
@@ -5476,7 +5576,7 @@ func (c *Loads) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 										_ = vgparent
 										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "q"}}}
 										vgparent.AppendChild(vgn)
-										vgn.AddAttrInterface("selected", !c.isFill(i))
+										vgn.AddAttrInterface("selected", c.kind(i) == "q")
 										{
 											vgparent := vgn
 											_ = vgparent
@@ -5485,25 +5585,125 @@ func (c *Loads) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 										}
 										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "fill"}}}
 										vgparent.AppendChild(vgn)
-										vgn.AddAttrInterface("selected", c.isFill(i))
+										vgn.AddAttrInterface("selected", c.kind(i) == "fill")
 										{
 											vgparent := vgn
 											_ = vgparent
 											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "fill"}
 											vgparent.AppendChild(vgn)
 										}
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "dig"}}}
+										vgparent.AppendChild(vgn)
+										vgn.AddAttrInterface("selected", c.kind(i) == "dig")
+										{
+											vgparent := vgn
+											_ = vgparent
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "excavation"}
+											vgparent.AppendChild(vgn)
+										}
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute{{Namespace: "", Key: "value", Val: "lower"}}}
+										vgparent.AppendChild(vgn)
+										vgn.AddAttrInterface("selected", c.kind(i) == "lower")
+										{
+											vgparent := vgn
+											_ = vgparent
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "water table lowered"}
+											vgparent.AppendChild(vgn)
+										}
 									}
 								}
 								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 								vgparent.AppendChild(vgn)
-								if !c.isFill(i) {
-									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+								if c.kind(i) == "dig" {
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-fill"}}}
 									vgparent.AppendChild(vgn)
 									{
 										vgparent := vgn
 										_ = vgparent
 										{
 											vgcompKey := vugu.MakeCompKey(0xECB0EC21615B14AC^vgin.CurrentPositionHash(), vgiterkey)
+											// ask BuildEnv for prior instance of this specific component
+											vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+											if vgcomp == nil {
+												// create new one if needed
+												vgcomp = new(Field)
+												vgin.BuildEnv.WireComponent(vgcomp)
+											}
+											vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+											vgcomp.Changed = c.Changed
+											vgcomp.F = c.F
+											vgcomp.Hint = "Depth of the finished floor below the original top; depths in the results stay measured from the original top"
+											vgcomp.Label = fmt.Sprintf("Floor of the excavation of stage %d, below the original top", i+1)
+											vgcomp.Path = loadPath(i, "dig.depth")
+											vgcomp.Unit = "m"
+											vgout.Components = append(vgout.Components, vgcomp)
+											vgn = &vugu.VGNode{Component: vgcomp}
+											vgparent.AppendChild(vgn)
+										}
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: " "}
+										vgparent.AppendChild(vgn)
+										{
+											vgcompKey := vugu.MakeCompKey(0x8AD5910469D96F40^vgin.CurrentPositionHash(), vgiterkey)
+											// ask BuildEnv for prior instance of this specific component
+											vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+											if vgcomp == nil {
+												// create new one if needed
+												vgcomp = new(Field)
+												vgin.BuildEnv.WireComponent(vgcomp)
+											}
+											vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+											vgcomp.Changed = c.Changed
+											vgcomp.F = c.F
+											vgcomp.Hint = "Depth of the water inside the excavation below the original top; at or below the floor: pumped dry; empty: flooded to the water table"
+											vgcomp.Label = fmt.Sprintf("Water level inside the excavation of stage %d, below the original top", i+1)
+											vgcomp.Path = loadPath(i, "dig.waterLevel")
+											vgcomp.Unit = "m water"
+											vgout.Components = append(vgout.Components, vgcomp)
+											vgn = &vugu.VGNode{Component: vgcomp}
+											vgparent.AppendChild(vgn)
+										}
+									}
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								if c.kind(i) == "lower" {
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-fill"}}}
+									vgparent.AppendChild(vgn)
+									{
+										vgparent := vgn
+										_ = vgparent
+										{
+											vgcompKey := vugu.MakeCompKey(0xC13B35787452427B^vgin.CurrentPositionHash(), vgiterkey)
+											// ask BuildEnv for prior instance of this specific component
+											vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+											if vgcomp == nil {
+												// create new one if needed
+												vgcomp = new(Field)
+												vgin.BuildEnv.WireComponent(vgcomp)
+											}
+											vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+											vgcomp.Changed = c.Changed
+											vgcomp.F = c.F
+											vgcomp.Hint = "The water table falls to this depth below the top; the soil above it drains to zero pore pressure and takes its moist unit weight (a layer without one stays saturated)"
+											vgcomp.Label = fmt.Sprintf("New water table depth of stage %d", i+1)
+											vgcomp.Path = loadPath(i, "lower.waterTable")
+											vgcomp.Unit = "m"
+											vgout.Components = append(vgout.Components, vgcomp)
+											vgn = &vugu.VGNode{Component: vgcomp}
+											vgparent.AppendChild(vgn)
+										}
+									}
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								if c.kind(i) == "q" {
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+									vgparent.AppendChild(vgn)
+									{
+										vgparent := vgn
+										_ = vgparent
+										{
+											vgcompKey := vugu.MakeCompKey(0x2A23299431884E2^vgin.CurrentPositionHash(), vgiterkey)
 											// ask BuildEnv for prior instance of this specific component
 											vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 											if vgcomp == nil {
@@ -5525,14 +5725,14 @@ func (c *Loads) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 								}
 								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 								vgparent.AppendChild(vgn)
-								if c.isFill(i) {
+								if c.kind(i) == "fill" {
 									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-fill"}}}
 									vgparent.AppendChild(vgn)
 									{
 										vgparent := vgn
 										_ = vgparent
 										{
-											vgcompKey := vugu.MakeCompKey(0x8AD5910469D96F40^vgin.CurrentPositionHash(), vgiterkey)
+											vgcompKey := vugu.MakeCompKey(0xED5CDDC968DD9DDB^vgin.CurrentPositionHash(), vgiterkey)
 											// ask BuildEnv for prior instance of this specific component
 											vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 											if vgcomp == nil {
@@ -5555,33 +5755,45 @@ func (c *Loads) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 								}
 								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 								vgparent.AppendChild(vgn)
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-								vgparent.AppendChild(vgn)
-								{
-									vgparent := vgn
-									_ = vgparent
-									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "select", Attr: []vugu.VGAttribute(nil)}
+								if c.zone(i) {
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
 									vgparent.AppendChild(vgn)
-									vgn.AddAttrInterface("aria-label", fmt.Sprintf("Loaded area of stage %d", i+1))
-									vgn.AddAttrInterface("id", fmt.Sprintf("loads-%d-areakind", i))
-									vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
-										EventType: "change",
-										Func:      func(event vugu.DOMEvent) { c.setArea(i, event) },
-										// TODO: implement capture, etc. mostly need to decide syntax
-									})
 									{
 										vgparent := vgn
 										_ = vgparent
-										for vgiterkeyt, k := range areaKinds {
-											var vgiterkey interface{} = vgiterkeyt
-											_ = vgiterkey
-											k := k
-											_ = k
-											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute(nil)}
-											vgparent.AppendChild(vgn)
-											vgn.AddAttrInterface("selected", c.areaKind(i) == k.Value)
-											vgn.AddAttrInterface("value", k.Value)
-											vgn.SetInnerHTML(k.Label)
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "whole column"}
+										vgparent.AppendChild(vgn)
+									}
+								}
+								if !c.zone(i) {
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+									vgparent.AppendChild(vgn)
+									{
+										vgparent := vgn
+										_ = vgparent
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "select", Attr: []vugu.VGAttribute(nil)}
+										vgparent.AppendChild(vgn)
+										vgn.AddAttrInterface("aria-label", fmt.Sprintf("Loaded area of stage %d", i+1))
+										vgn.AddAttrInterface("id", fmt.Sprintf("loads-%d-areakind", i))
+										vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+											EventType: "change",
+											Func:      func(event vugu.DOMEvent) { c.setArea(i, event) },
+											// TODO: implement capture, etc. mostly need to decide syntax
+										})
+										{
+											vgparent := vgn
+											_ = vgparent
+											for vgiterkeyt, k := range areaKinds {
+												var vgiterkey interface{} = vgiterkeyt
+												_ = vgiterkey
+												k := k
+												_ = k
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "option", Attr: []vugu.VGAttribute(nil)}
+												vgparent.AppendChild(vgn)
+												vgn.AddAttrInterface("selected", c.areaKind(i) == k.Value)
+												vgn.AddAttrInterface("value", k.Value)
+												vgn.SetInnerHTML(k.Label)
+											}
 										}
 									}
 								}
@@ -5660,7 +5872,7 @@ func (c *Loads) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 													vgparent.AppendChild(vgn)
 													vgn.SetInnerHTML(s.Label)
 													{
-														vgcompKey := vugu.MakeCompKey(0xC13B35787452427B^vgin.CurrentPositionHash(), vgiterkey)
+														vgcompKey := vugu.MakeCompKey(0xFE1E14D9ECDBD2A0^vgin.CurrentPositionHash(), vgiterkey)
 														// ask BuildEnv for prior instance of this specific component
 														vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 														if vgcomp == nil {
@@ -5787,6 +5999,18 @@ func (c *Loads) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 					vgparent.AppendChild(vgn)
 				}
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
+			}
+		}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
+		if c.hasDig() {
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "loads-dig-note"}}}
+			vgparent.AppendChild(vgn)
+			{
+				vgparent := vgn
+				_ = vgparent
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "An excavation removes the soil from the top down to its floor: the soil below swells from the state the full overburden left, its floor drains to the water inside the excavation (pumped dry when the water level is at or below the floor), and every depth in the results stays measured from the original top. The heave and uplift factors under the summary follow it through time."}
 				vgparent.AppendChild(vgn)
 			}
 		}
@@ -7286,6 +7510,26 @@ func (c *Plots) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 				}
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
+				if k.Name == "checks" {
+					{
+						vgcompKey := vugu.MakeCompKey(0x5FBEE06E8FEB1FB5^vgin.CurrentPositionHash(), vgiterkey)
+						// ask BuildEnv for prior instance of this specific component
+						vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*plot.Checks)
+						if vgcomp == nil {
+							// create new one if needed
+							vgcomp = new(plot.Checks)
+							vgin.BuildEnv.WireComponent(vgcomp)
+						}
+						vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+						vgcomp.Project = c.P
+						vgcomp.Result = c.R
+						vgout.Components = append(vgout.Components, vgcomp)
+						vgn = &vugu.VGNode{Component: vgcomp}
+						vgparent.AppendChild(vgn)
+					}
+				}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+				vgparent.AppendChild(vgn)
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "figcaption", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-printonly pl-caption"}}}
 				vgparent.AppendChild(vgn)
 				vgn.SetInnerHTML("Figure " + itoa(i+1) + ". " + k.Title + ".")
@@ -8346,7 +8590,7 @@ func (c *Tables) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 							vgparent.AppendChild(vgn)
 							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
 							vgparent.AppendChild(vgn)
-							vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth\x3ELayer\x3C/th\x3E\x3Cth\x3ETop\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EBase\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EFlow\x3C/th\x3E\x3Cth\x3EGradient i\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECritical ic\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eic/i\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Ecv\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em²/day\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
+							vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth\x3ELayer\x3C/th\x3E\x3Cth\x3ETop\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EBase\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em\x3C/span\x3E\x3C/th\x3E\x3Cth\x3EFlow\x3C/th\x3E\x3Cth\x3EGradient i\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ECritical ic\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Eic/i, initial\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E\x3C/th\x3E\x3Cth\x3Ecv\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em²/day\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
 							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 							vgparent.AppendChild(vgn)
 							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
@@ -8414,7 +8658,7 @@ func (c *Tables) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 								vgparent.AppendChild(vgn)
 								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "h3", Attr: []vugu.VGAttribute(nil)}
 								vgparent.AppendChild(vgn)
-								vgn.SetInnerHTML(vugu.HTML("Uplift under low-permeability layers"))
+								vgn.SetInnerHTML(vugu.HTML("Uplift under low-permeability layers, initial steady state"))
 								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 								vgparent.AppendChild(vgn)
 								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "uplift-table"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid pl-out"}}}
@@ -8473,6 +8717,143 @@ func (c *Tables) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 									vgparent.AppendChild(vgn)
 								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+							}
+						}
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+						vgparent.AppendChild(vgn)
+						if len(c.R.Checks) > 0 {
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							{
+								vgparent := vgn
+								_ = vgparent
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "h3", Attr: []vugu.VGAttribute(nil)}
+								vgparent.AppendChild(vgn)
+								vgn.SetInnerHTML(vugu.HTML("Heave and uplift through time"))
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "checks-table"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid pl-out"}}}
+								vgparent.AppendChild(vgn)
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+									vgparent.AppendChild(vgn)
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
+									vgparent.AppendChild(vgn)
+									{
+										vgparent := vgn
+										_ = vgparent
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
+										vgparent.AppendChild(vgn)
+										{
+											vgparent := vgn
+											_ = vgparent
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(vugu.HTML("Check"))
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(vugu.HTML("Layer"))
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(vugu.HTML("At\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Em\x3C/span\x3E"))
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(vugu.HTML("Initial\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E"))
+											for j := range c.stageCount() {
+												var vgiterkey interface{} = j
+												_ = vgiterkey
+												j := j
+												_ = j
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(fmt.Sprintf("After stage %d", j+1))
+											}
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(vugu.HTML("Long term\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E"))
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(vugu.HTML("Least\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E"))
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(vugu.HTML("When"))
+										}
+									}
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+									vgparent.AppendChild(vgn)
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
+									vgparent.AppendChild(vgn)
+									{
+										vgparent := vgn
+										_ = vgparent
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+										vgparent.AppendChild(vgn)
+										for i, k := range c.R.Checks {
+											var vgiterkey interface{} = i
+											_ = vgiterkey
+											i := i
+											_ = i
+											k := k
+											_ = k
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.AddAttrInterface("id", fmt.Sprintf("checks-%d", i))
+											{
+												vgparent := vgn
+												_ = vgparent
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+												vgparent.AppendChild(vgn)
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(checkName(k.Kind))
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-name"}}}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(c.layerName(k.Layer))
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(sig(checkDepth(k), 4))
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(factorText(k.Initial))
+												for vgiterkeyt, f := range k.Stages {
+													var vgiterkey interface{} = vgiterkeyt
+													_ = vgiterkey
+													f := f
+													_ = f
+													vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+													vgparent.AppendChild(vgn)
+													vgn.SetInnerHTML(factorText(f))
+												}
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(factorText(k.LongTerm))
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(factorText(k.Least))
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+												vgparent.AppendChild(vgn)
+												vgn.SetInnerHTML(leastWhen(k))
+												vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+												vgparent.AppendChild(vgn)
+											}
+										}
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+										vgparent.AppendChild(vgn)
+									}
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+									vgparent.AppendChild(vgn)
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
+								vgparent.AppendChild(vgn)
+								vgn.SetInnerHTML(vugu.HTML("Heave: ic/i across the layer. Whole overburden: the total stress at the layer\x26#39;s base against the water pressure there (Terzaghi\x26#39;s prism). Layer alone: the layer\x26#39;s own weight against the rise of water pressure across it. “After stage” is the least from the stage\x26#39;s completion until the next stage starts; depths are from the original top; “≥ 100”: nothing pushes. Local codes set the factors required."))
 								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 								vgparent.AppendChild(vgn)
 							}

@@ -31,7 +31,7 @@ func endTitle(end string) string {
 }
 
 func (c *Ground) setDrained(end string, e vugu.DOMEvent) {
-	c.F.SetBool(end+".drained", e.PropString("target", "value") == "drained")
+	c.F.SetDrainage(end, e.PropString("target", "value"))
 	c.Changed()
 }
 
@@ -50,9 +50,4 @@ func (c *Ground) endProblems() []string {
 	return out
 }
 
-func (c *Ground) drainage(end string) string {
-	if c.b(end).Drained {
-		return "drained"
-	}
-	return "undrained"
-}
+func (c *Ground) drainage(end string) string { return form.Drainage(c.b(end)) }

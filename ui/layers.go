@@ -95,3 +95,8 @@ func sigmaPPath(i, j int, leaf string) string {
 
 func (c *Layers) addSigmaP(i int)       { c.F.AddSigmaPPoint(i); c.Changed() }
 func (c *Layers) removeSigmaP(i, j int) { c.F.RemoveSigmaPPoint(i, j); c.Changed() }
+
+func (c *Layers) setOutlet(i int, e vugu.DOMEvent) {
+	c.F.SetOutlet(i, e.PropBool("target", "checked"))
+	c.Changed()
+}

@@ -50,8 +50,28 @@ func (c *Loads) method(i int) string {
 }
 
 func (c *Loads) setKind(i int, e vugu.DOMEvent) {
-	c.F.SetFill(i, e.PropString("target", "value") == "fill")
+	c.F.SetStageKind(i, e.PropString("target", "value"))
 	c.Changed()
+}
+
+// kind is what stage i is (form.StageKind).
+func (c *Loads) kind(i int) string { return form.StageKind(c.load(i)) }
+
+// zone reports whether stage i digs or lowers the water table: it acts
+// on the whole column and has no area.
+func (c *Loads) zone(i int) bool {
+	k := c.kind(i)
+	return k == form.KindDig || k == form.KindLower
+}
+
+// hasDig reports whether a stage is an excavation.
+func (c *Loads) hasDig() bool {
+	for i := range c.F.Draft().Loads {
+		if c.kind(i) == form.KindDig {
+			return true
+		}
+	}
+	return false
 }
 
 func (c *Loads) setArea(i int, e vugu.DOMEvent) {
@@ -122,8 +142,8 @@ func (c *Loads) areaProblems(i int) []string {
 // (a fill's γ × thickness, before submergence).
 func (c *Loads) total(i int) string {
 	q := 0.0
-	for _, l := range c.F.Draft().Loads[:i+1] {
-		q += l.Pressure()
+	for j := range c.F.Draft().Loads[:i+1] {
+		q += solver.StagePressure(c.F.Draft(), j)
 	}
 	return sig(q, 4)
 }

@@ -68,6 +68,7 @@ var plotKinds = []plotKind{
 	}, plot.PiezometersCSV},
 	{"steady", "Steady state: head, pore pressure and stresses", "steady state", noFit(plot.SteadySVG), plot.SteadyCSV},
 	{"stress", "Added vertical stress with depth", "added stress", noFit(plot.StressSVG), plot.StressCSV},
+	{"checks", "Heave and uplift factors against time", "heave and uplift", noFit(plot.ChecksSVG), plot.ChecksCSV},
 }
 
 // plotFile returns the download of one plot: its SVG drawing or the

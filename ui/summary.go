@@ -111,14 +111,13 @@ func (c *Summary) rows() []sumRow {
 	if s.Submerged != nil {
 		rows = append(rows, length("sum-submerged", "Fill below the water table", s.Submerged, "at the end: it weighs γsat − γw there, and the settlement allows for it"))
 	}
-	heave := sumRow{ID: "sum-heave", Label: "Least factor against heave (ic/i)", Value: "–", Note: "no upward flow"}
-	if f := s.MinHeaveFactor; f != nil {
-		heave.Value, heave.Exact, heave.Note = sig(*f, 3), exact(*f), "upward flow; compare with the factor your code requires"
-		if *f < 1 {
-			heave.Class = "pl-alarm"
-			heave.Note = "below 1: the upward gradient exceeds the critical gradient"
-		}
+	heave := c.governing("sum-heave", "Least factor, heave (ic/i)", s.Heave, "no upward flow at any time")
+	if s.Heave != nil && s.Heave.Factor < 1 {
+		heave.Note = "below 1: the upward gradient exceeds the critical gradient; " + heave.Note
 	}
+	rows = append(rows,
+		c.governing("sum-prism", "Least factor, uplift (σ/u, all above)", s.Prism, "no low-permeability layer over a more permeable one"),
+		c.governing("sum-uplift", "Least factor, uplift (layer alone)", s.Uplift, "no low-permeability layer over a more permeable one"))
 	dir := "downward"
 	if s.Flux < 0 {
 		dir = "upward"
@@ -140,6 +139,47 @@ func (c *Summary) rows() []sumRow {
 		rows = append(rows, r, h)
 	}
 	return rows
+}
+
+// governing is the row of the least factor of one check over time, with
+// where and when it occurs; none says why there is no figure.
+func (c *Summary) governing(id, label string, g *solver.Governing, none string) sumRow {
+	r := sumRow{ID: id, Label: label, Value: "–", Note: none}
+	if g == nil {
+		return r
+	}
+	r.Value, r.Exact = sig(g.Factor, 3), exact(g.Factor)
+	when := "in the long term (all drained)"
+	switch {
+	case g.Time != nil && *g.Time == 0:
+		when = "initially"
+	case g.Time != nil:
+		when = "at " + duration(*g.Time)
+	}
+	where := fmt.Sprintf("layer %d", g.Layer+1)
+	if c.P != nil && g.Layer < len(c.P.Layers) && c.P.Layers[g.Layer].Name != "" {
+		where += " “" + c.P.Layers[g.Layer].Name + "”"
+	}
+	below := "m down"
+	if c.P != nil && hasDig(c.P) {
+		below = "m below the original top"
+	}
+	r.Note = fmt.Sprintf("least over time: %s, %s %s, %s", where, sig(g.Depth, 3), below, when)
+	if g.Factor < 1 {
+		r.Class = "pl-alarm"
+	}
+	return r
+}
+
+// hasDig reports whether a stage of p is an excavation,
+// so that depths are said to be from the original top.
+func hasDig(p *solver.Project) bool {
+	for _, l := range p.Loads {
+		if l.Dig != nil {
+			return true
+		}
+	}
+	return false
 }
 
 // drainRows are U, Uv and Uh at the output times, with drains.

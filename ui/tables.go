@@ -21,6 +21,9 @@ func (c *Tables) hint() string {
 	if len(c.R.Steady.Uplift) > 0 {
 		parts = append(parts, "uplift")
 	}
+	if len(c.R.Checks) > 0 {
+		parts = append(parts, "heave and uplift through time")
+	}
 	if c.hasSettlement() {
 		parts = append(parts, "settlement")
 	}
@@ -30,11 +33,12 @@ func (c *Tables) hint() string {
 		layers = "the layer"
 	}
 	s := "Tables for " + layers + ": " + parts[0]
-	switch len(parts) {
-	case 2:
-		s += " and " + parts[1]
-	case 3:
-		s += ", " + parts[1] + " and " + parts[2]
+	for i, part := range parts[1:] {
+		if i == len(parts)-2 {
+			s += " and " + part
+		} else {
+			s += ", " + part
+		}
 	}
 	return s
 }
@@ -102,4 +106,50 @@ func (c *Tables) modelHead() string {
 		return "Non-linear model (mm)"
 	}
 	return "Linear model (mm)"
+}
+
+// stageCount is the number of per-stage columns of the checks table.
+func (c *Tables) stageCount() int {
+	if len(c.R.Checks) == 0 {
+		return 0
+	}
+	return len(c.R.Checks[0].Stages)
+}
+
+func checkName(kind string) string {
+	switch kind {
+	case solver.CheckHeave:
+		return "heave, ic/i"
+	case solver.CheckPrism:
+		return "uplift, whole overburden"
+	}
+	return "uplift, layer alone"
+}
+
+// checkDepth is where a check acts: the layer's top for heave (the
+// excavation's floor in a layer it cuts), its base for uplift.
+func checkDepth(k solver.Check) float64 {
+	if k.Kind == solver.CheckHeave {
+		return k.Top
+	}
+	return k.Base
+}
+
+func factorText(f float64) string {
+	if f >= solver.FactorCap {
+		return "≥ 100"
+	}
+	return sig(f, 3)
+}
+
+func leastWhen(k solver.Check) string {
+	switch {
+	case k.Least >= solver.FactorCap:
+		return "–"
+	case k.LeastTime == nil:
+		return "long term"
+	case *k.LeastTime == 0:
+		return "initially"
+	}
+	return duration(*k.LeastTime)
 }

@@ -64,3 +64,22 @@ func (b *Band) Lump() {
 		b.AB[i*(b.KD+1)] = s
 	}
 }
+
+// Isolate makes row and column j those of the identity scaled by diag:
+// A[j][j] = diag and A[i][j] = A[j][i] = 0 for i ≠ j. A node held at
+// zero inside the column (where MoveHeld has nothing to move) keeps its
+// row in the factorised block this way, and the matrix stays symmetric
+// positive definite when diag > 0 (with diag = 0 the row drops out of a
+// sum a + c·b whose other term holds it). O(KD).
+func (b *Band) Isolate(j int, diag float64) {
+	ld := b.KD + 1
+	for d := 1; d < ld; d++ {
+		if j+d < b.N {
+			b.AB[j*ld+d] = 0
+		}
+		if i := j - d; i >= 0 {
+			b.AB[i*ld+d] = 0
+		}
+	}
+	b.AB[j*ld] = diag
+}

@@ -53,6 +53,16 @@ const maxRefine = 3
 // accurate element by element and each step shrinks the error by the
 // factor's relative accuracy. O(n·kd) per step.
 func Refine(h, rhs []float64, a *Band, f *Factor, lo, hi int) {
+	RefineWith(h, rhs, a, nil, nil, f, lo, hi)
+}
+
+// RefineWith is Refine for the matrix K + diag(extra), K a pure
+// conduction operator (rows summing to zero) and extra a non-negative
+// diagonal (a leakage at some nodes; nil: none), with the nodes listed
+// in held (inside lo … hi-1, isolated in the factor by Band.Isolate)
+// kept at their values. The residual is rᵢ = rhsᵢ − Σⱼ Kᵢⱼ (hⱼ − hᵢ) −
+// extraᵢ hᵢ over j ≠ i, zero at the held rows. It allocates one vector.
+func RefineWith(h, rhs []float64, a *Band, extra []float64, held []int, f *Factor, lo, hi int) {
 	r := make([]float64, len(h))
 	for range maxRefine {
 		for i := lo; i < hi; i++ {
@@ -62,7 +72,15 @@ func Refine(h, rhs []float64, a *Band, f *Factor, lo, hi int) {
 					s -= a.At(i, j) * (h[j] - h[i])
 				}
 			}
+			if extra != nil {
+				s -= extra[i] * h[i]
+			}
 			r[i] = s
+		}
+		for _, j := range held {
+			if j >= lo && j < hi {
+				r[j] = 0
+			}
 		}
 		f.Solve(r)
 		done := true

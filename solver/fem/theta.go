@@ -1,5 +1,7 @@
 package fem
 
+import "slices"
+
 // stepKey identifies one factorisation of M + θΔt·K.
 type stepKey struct{ theta, dt float64 }
 
@@ -13,7 +15,7 @@ const factorCacheFloats = 4 << 20
 //
 // with u¹ given at the held nodes. M and K are symmetric band matrices of
 // one shape; the free unknowns are Lo … Hi-1 and Held lists the held
-// nodes (at most the two ends). A diagonal M (Lumped) with a tridiagonal K
+// nodes (runs from either end, see HeldRuns). A diagonal M (Lumped) with a tridiagonal K
 // takes a fused one-pass right-hand side. Each distinct (θ, Δt) is
 // factorised once and reused.
 type Stepper struct {
@@ -33,25 +35,37 @@ type Stepper struct {
 }
 
 // NewStepper returns a stepper for capacity m and conductivity k with the
-// given held nodes, which must be 0 and/or N-1. It panics when m and k
-// differ in shape.
+// given held nodes, which must be runs of nodes from either end (0, 1, …
+// and N-1, N-2, …: an end, or a part of the column taken out from an end).
+// It panics when m and k differ in shape or a held node is not in such a
+// run.
 func NewStepper(m, k *Band, held []int, lumped bool) *Stepper {
 	if m.N != k.N || m.KD != k.KD {
 		panic("fem: capacity and conductivity differ in shape")
 	}
 	s := &Stepper{M: m, K: k, Lo: 0, Hi: m.N, Held: held, Lumped: lumped,
 		cache: map[stepKey]*Factor{}, rhs: make([]float64, m.N)}
+	s.Lo, s.Hi = HeldRuns(m.N, held)
 	for _, j := range held {
-		switch j {
-		case 0:
-			s.Lo = 1
-		case m.N - 1:
-			s.Hi = m.N - 1
-		default:
-			panic("fem: only the end nodes may be held")
+		if j >= s.Lo && j < s.Hi {
+			panic("fem: only runs of nodes from the ends may be held")
 		}
 	}
 	return s
+}
+
+// HeldRuns returns the free block lo … hi-1 left by held nodes that run
+// from the ends of a column of n nodes: lo is the first node from the top
+// not held, hi one past the last from the base not held.
+func HeldRuns(n int, held []int) (lo, hi int) {
+	lo, hi = 0, n
+	for lo < n && slices.Contains(held, lo) {
+		lo++
+	}
+	for hi > lo && slices.Contains(held, hi-1) {
+		hi--
+	}
+	return lo, hi
 }
 
 // Factorizations is the number of factorisations made so far.

@@ -20,6 +20,10 @@ func cloneProject(p *solver.Project) *solver.Project {
 			c := *l.ECurve
 			q.Layers[i].ECurve = &c
 		}
+		if o := l.Outlet; o != nil {
+			c := solver.Outlet{Head: clonePtr(o.Head)}
+			q.Layers[i].Outlet = &c
+		}
 	}
 	q.Top = cloneBoundary(p.Top)
 	q.Bottom = cloneBoundary(p.Bottom)
@@ -34,6 +38,14 @@ func cloneProject(p *solver.Project) *solver.Project {
 			a := *l.Area
 			q.Loads[i].Area = &a
 		}
+		if d := l.Dig; d != nil {
+			c := solver.Dig{Depth: d.Depth, WaterLevel: clonePtr(d.WaterLevel)}
+			q.Loads[i].Dig = &c
+		}
+		if w := l.Lower; w != nil {
+			c := *w
+			q.Loads[i].Lower = &c
+		}
 	}
 	q.InitialExcess = slices.Clone(p.InitialExcess)
 	q.Times = slices.Clone(p.Times)
@@ -42,6 +54,14 @@ func cloneProject(p *solver.Project) *solver.Project {
 	q.Drains = cloneDrains(p.Drains)
 	q.Decisions = cloneDecisions(p.Decisions)
 	return &q
+}
+
+func clonePtr(v *float64) *float64 {
+	if v == nil {
+		return nil
+	}
+	c := *v
+	return &c
 }
 
 func cloneBoundary(b solver.Boundary) solver.Boundary {

@@ -230,11 +230,12 @@ var pageFields = func() map[string]bool {
 		"ecurve.e0", "ecurve.cc", "ecurve.cr", "ecurve.sigmaP", "ecurve.ocr", "ecurve.pop", "ecurve.ck",
 		"ecurve.sigmaPProfile[#].z", "ecurve.sigmaPProfile[#].value")
 	for _, end := range []string{"top.", "bottom."} {
-		add(end, "head", "inflow", "excess[#].t", "excess[#].value")
+		add(end, "head", "inflow", "resistance", "excess[#].t", "excess[#].value")
 	}
 	add("loads[#].", "start", "ramp", "q", "fill.thickness", "fill.gamma", "fill.gammaSat",
 		"area.width", "area.length", "area.radius", "area.slope", "area.x", "area.y",
-		"profile[#].z", "profile[#].value")
+		"profile[#].z", "profile[#].value", "dig.depth", "dig.waterLevel", "lower.waterTable")
+	add("layers[#].", "outlet.head")
 	add("initialExcess[#].", "z", "value")
 	add("mesh.", "order", "maxSize", "minPerLayer")
 	add("stepping.", "theta", "dampedSteps", "firstStep", "growth", "endTime")

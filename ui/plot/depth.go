@@ -172,6 +172,7 @@ func (f *Figure) strip(box Box, depth Scale, bs []band, p *solver.Project) {
 		f.path("M"+coord(x-4)+" "+coord(y+3)+" h8 M"+coord(x-2.5)+" "+coord(y+6)+" h5", inkAxis, "none", 1)
 	}
 	f.stripDrains(box, depth, p)
+	f.stripZone(box, depth, p)
 	f.frame(box)
 }
 
