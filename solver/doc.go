@@ -468,6 +468,13 @@
 //	drains.toLayer            –       a layer index; not with depth   ErrOutOfRange, ErrConflict
 //	drains.design.degree      –       0 < value < 1 (absent: 0.9)     ErrOutOfRange
 //	drains.design.time        day     > 0 … MaxTime                   ErrNotPositive, ErrOutOfRange
+//	uncertainty.runs          –       2 … 20000 (absent: 500)         ErrOutOfRange
+//	uncertainty.seed          –       0 … 2⁵³−1                       ErrOutOfRange
+//	uncertainty.date          day     0 … MaxTime (absent: the end of ErrNegative, ErrOutOfRange
+//	                                  the last load change)
+//	uncertainty.layers        –       at most one per layer           ErrOutOfRange
+//	uncertainty.layers[i].k, .mv, .ch –  COV 0 … 3 (absent: fixed)    ErrNegative, ErrOutOfRange
+//	uncertainty.layers[i].kMv –       −1 … 1 (absent: 0)              ErrOutOfRange
 //	top|bottom.excess         –       with drains: at the outlet only ErrConflict
 //	                                  (or the same at both ends)
 //

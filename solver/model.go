@@ -60,6 +60,10 @@ type Project struct {
 	// Drains, when given, is a pattern of vertical drains over a depth
 	// range of the column; nil means none.
 	Drains *Drains `json:"drains,omitempty"`
+	// Uncertainty, when given, describes how uncertain the layers' k, mv
+	// and ch are, for the Monte Carlo of package solver/uncertain; Solve
+	// itself ignores it (beyond validating it).
+	Uncertainty *Uncertainty `json:"uncertainty,omitempty"`
 	// Mesh and Stepping control the numerics; zero values are defaults.
 	Mesh     MeshSettings `json:"mesh,omitzero"`
 	Stepping Stepping     `json:"stepping,omitzero"`

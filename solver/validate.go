@@ -173,6 +173,7 @@ func Validate(p *Project) error {
 		validMonitoring(&ps, p.Monitoring, height, len(p.Layers))
 	}
 	validDrains(&ps, p, height)
+	validUncertainty(&ps, p)
 
 	m := p.Mesh
 	if m.Order != 0 && m.Order != 1 && m.Order != 2 {
