@@ -30,6 +30,7 @@ var numberDefaults = map[string]float64{
 	"drains.smearRatio":    solver.DefaultSmearRatio,
 	"drains.smearK":        solver.DefaultSmearK,
 	"drains.design.degree": solver.DefaultDesignDegree,
+	"uncertainty.runs":     solver.DefaultRuns,
 }
 
 // Placeholder is the text an empty input at path shows: the default its
@@ -71,6 +72,8 @@ func defaultHint(path string) (string, bool) {
 		return "0", true
 	case "drains.depth":
 		return "base", true
+	case "uncertainty.date":
+		return "end of loading", true // solver.ResolveUncertaintyDate
 	}
 	leaf := path[strings.LastIndexByte(path, '.')+1:]
 	switch {
@@ -97,6 +100,11 @@ func defaultHint(path string) (string, bool) {
 		}
 	case leaf == "inflow":
 		return "0 (sealed)", true
+	case strings.HasPrefix(path, "uncertainty.layers["):
+		if leaf == "kMv" {
+			return "0", true
+		}
+		return "0 (fixed)", true
 	}
 	return "", false
 }
@@ -115,6 +123,9 @@ func scaleOf(path string) float64 {
 	}
 	if strings.HasPrefix(path, "layers[") && strings.HasSuffix(path, ".ch") {
 		return solver.DaysPerYear // m²/day → m²/year
+	}
+	if strings.HasPrefix(path, "uncertainty.layers[") && !strings.HasSuffix(path, ".kMv") {
+		return 100 // coefficient of variation: fraction → %
 	}
 	if strings.HasPrefix(path, "monitoring.plates[") && strings.HasSuffix(path, ".value") {
 		return 1000 // settlement readings: m → mm

@@ -36,6 +36,7 @@ func (f *Form) AddLayer(i int) {
 	f.remap("layers", inserted)
 	f.renumberTip(inserted)
 	f.remapAsaokaLayers(inserted)
+	f.remapUncertainty(inserted)
 	f.check()
 }
 
@@ -48,6 +49,7 @@ func (f *Form) RemoveLayer(i int) {
 	f.remap("layers", Removed(i))
 	f.renumberTip(Removed(i))
 	f.remapAsaokaLayers(Removed(i))
+	f.remapUncertainty(Removed(i))
 	f.check()
 }
 
@@ -71,6 +73,7 @@ func (f *Form) MoveLayer(i, d int) {
 	f.remap("layers", swapped)
 	f.renumberTip(swapped)
 	f.remapAsaokaLayers(swapped)
+	f.remapUncertainty(swapped)
 	f.check()
 }
 

@@ -241,6 +241,7 @@ var pageFields = func() map[string]bool {
 	add("layers[#].", "ch", "khKv")
 	add("drains.", "pattern", "spacing", "diameter", "width", "thickness", "equivalent", "smearRatio", "smearK",
 		"qw", "discharge", "top", "depth", "design.degree", "design.time")
+	add("uncertainty.", "runs", "seed", "date", "layers[#].k", "layers[#].mv", "layers[#].ch", "layers[#].kMv")
 	add("monitoring.", "start")
 	add("monitoring.plates[#].", "name", "readings[#].t", "readings[#].value")
 	add("monitoring.piezometers[#].", "name", "depth", "readings[#].t", "readings[#].value")
