@@ -62,6 +62,7 @@ type Root struct {
 	fit       *fitState    // back-analysis of the field records (monitor_root.go)
 	design    *designState // the drain design helper (drains_root.go)
 	need      *fillNeed    // the fill needed for a finished level (fill-need.go)
+	rng       *rangeState  // the Monte Carlo of the uncertainty section (uncertain_root.go)
 	fold      folds        // which secondary sections are unfolded (folds.go)
 	printing  bool         // Print report is under way: every fold is open
 	dates     bool         // the record plots run on calendar dates
