@@ -7617,147 +7617,95 @@ func (c *Uncertain) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 				}
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "range-layers"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid pl-small"}}}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-scrollx"}}}
 				vgparent.AppendChild(vgn)
 				{
 					vgparent := vgn
 					_ = vgparent
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-					vgparent.AppendChild(vgn)
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
-					vgparent.AppendChild(vgn)
-					{
-						vgparent := vgn
-						_ = vgparent
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
-						vgparent.AppendChild(vgn)
-						{
-							vgparent := vgn
-							_ = vgparent
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
-							vgparent.AppendChild(vgn)
-							vgn.SetInnerHTML(vugu.HTML("Layer"))
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
-							vgparent.AppendChild(vgn)
-							vgn.SetInnerHTML(vugu.HTML("COV of k\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E%\x3C/span\x3E"))
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
-							vgparent.AppendChild(vgn)
-							vgn.SetInnerHTML(vugu.HTML("COV of mv, Cc\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E%\x3C/span\x3E"))
-							if c.drains() {
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
-								vgparent.AppendChild(vgn)
-								{
-									vgparent := vgn
-									_ = vgparent
-									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "COV of ch"}
-									vgparent.AppendChild(vgn)
-									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "br", Attr: []vugu.VGAttribute(nil)}
-									vgparent.AppendChild(vgn)
-									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-u"}}}
-									vgparent.AppendChild(vgn)
-									{
-										vgparent := vgn
-										_ = vgparent
-										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "%"}
-										vgparent.AppendChild(vgn)
-									}
-								}
-							}
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
-							vgparent.AppendChild(vgn)
-							vgn.SetInnerHTML(vugu.HTML("ρ (ln k, ln mv)\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E"))
-						}
-					}
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-					vgparent.AppendChild(vgn)
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "range-layers"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid pl-small"}}}
 					vgparent.AppendChild(vgn)
 					{
 						vgparent := vgn
 						_ = vgparent
 						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 						vgparent.AppendChild(vgn)
-						for vgiterkeyt, i := range c.rows() {
-							var vgiterkey interface{} = vgiterkeyt
-							_ = vgiterkey
-							i := i
-							_ = i
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
+						vgparent.AppendChild(vgn)
+						{
+							vgparent := vgn
+							_ = vgparent
 							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
 							vgparent.AppendChild(vgn)
 							{
 								vgparent := vgn
 								_ = vgparent
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
 								vgparent.AppendChild(vgn)
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+								vgn.SetInnerHTML(vugu.HTML("Layer"))
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
 								vgparent.AppendChild(vgn)
-								vgn.SetInnerHTML(c.layerName(i))
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgn.SetInnerHTML(vugu.HTML("COV of k\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E%\x3C/span\x3E"))
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
 								vgparent.AppendChild(vgn)
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-								vgparent.AppendChild(vgn)
-								{
-									vgparent := vgn
-									_ = vgparent
-									{
-										vgcompKey := vugu.MakeCompKey(0xDEDA8EBC3FAB66EF^vgin.CurrentPositionHash(), vgiterkey)
-										// ask BuildEnv for prior instance of this specific component
-										vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-										if vgcomp == nil {
-											// create new one if needed
-											vgcomp = new(Field)
-											vgin.BuildEnv.WireComponent(vgcomp)
-										}
-										vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-										vgcomp.Bare = true
-										vgcomp.Changed = c.Changed
-										vgcomp.F = c.F
-										vgcomp.Label = fmt.Sprintf("Coefficient of variation of k, layer %d", i+1)
-										vgcomp.Path = spreadField(i, "k")
-										vgcomp.Unit = "%"
-										vgout.Components = append(vgout.Components, vgcomp)
-										vgn = &vugu.VGNode{Component: vgcomp}
-										vgparent.AppendChild(vgn)
-									}
-								}
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-								vgparent.AppendChild(vgn)
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-								vgparent.AppendChild(vgn)
-								{
-									vgparent := vgn
-									_ = vgparent
-									{
-										vgcompKey := vugu.MakeCompKey(0x54FE638F565B37E5^vgin.CurrentPositionHash(), vgiterkey)
-										// ask BuildEnv for prior instance of this specific component
-										vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-										if vgcomp == nil {
-											// create new one if needed
-											vgcomp = new(Field)
-											vgin.BuildEnv.WireComponent(vgcomp)
-										}
-										vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-										vgcomp.Bare = true
-										vgcomp.Changed = c.Changed
-										vgcomp.F = c.F
-										vgcomp.Label = fmt.Sprintf("Coefficient of variation of mv and Cc, layer %d", i+1)
-										vgcomp.Path = spreadField(i, "mv")
-										vgcomp.Unit = "%"
-										vgout.Components = append(vgout.Components, vgcomp)
-										vgn = &vugu.VGNode{Component: vgcomp}
-										vgparent.AppendChild(vgn)
-									}
-								}
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-								vgparent.AppendChild(vgn)
+								vgn.SetInnerHTML(vugu.HTML("COV of mv, Cc\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E%\x3C/span\x3E"))
 								if c.drains() {
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+									vgparent.AppendChild(vgn)
+									{
+										vgparent := vgn
+										_ = vgparent
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "COV of ch"}
+										vgparent.AppendChild(vgn)
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "br", Attr: []vugu.VGAttribute(nil)}
+										vgparent.AppendChild(vgn)
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-u"}}}
+										vgparent.AppendChild(vgn)
+										{
+											vgparent := vgn
+											_ = vgparent
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "%"}
+											vgparent.AppendChild(vgn)
+										}
+									}
+								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "th", Attr: []vugu.VGAttribute(nil)}
+								vgparent.AppendChild(vgn)
+								vgn.SetInnerHTML(vugu.HTML("ρ (ln k, ln mv)\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3E–\x3C/span\x3E"))
+							}
+						}
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+						vgparent.AppendChild(vgn)
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
+						vgparent.AppendChild(vgn)
+						{
+							vgparent := vgn
+							_ = vgparent
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
+							for vgiterkeyt, i := range c.rows() {
+								var vgiterkey interface{} = vgiterkeyt
+								_ = vgiterkey
+								i := i
+								_ = i
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
+								vgparent.AppendChild(vgn)
+								{
+									vgparent := vgn
+									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+									vgparent.AppendChild(vgn)
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+									vgparent.AppendChild(vgn)
+									vgn.SetInnerHTML(c.layerName(i))
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+									vgparent.AppendChild(vgn)
 									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
 									vgparent.AppendChild(vgn)
 									{
 										vgparent := vgn
 										_ = vgparent
 										{
-											vgcompKey := vugu.MakeCompKey(0x8E83D9998F748EDE^vgin.CurrentPositionHash(), vgiterkey)
+											vgcompKey := vugu.MakeCompKey(0xDEDA8EBC3FAB66EF^vgin.CurrentPositionHash(), vgiterkey)
 											// ask BuildEnv for prior instance of this specific component
 											vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
 											if vgcomp == nil {
@@ -7769,52 +7717,110 @@ func (c *Uncertain) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 											vgcomp.Bare = true
 											vgcomp.Changed = c.Changed
 											vgcomp.F = c.F
-											vgcomp.Label = fmt.Sprintf("Coefficient of variation of ch, layer %d", i+1)
-											vgcomp.Path = spreadField(i, "ch")
+											vgcomp.Label = fmt.Sprintf("Coefficient of variation of k, layer %d", i+1)
+											vgcomp.Path = spreadField(i, "k")
 											vgcomp.Unit = "%"
 											vgout.Components = append(vgout.Components, vgcomp)
 											vgn = &vugu.VGNode{Component: vgcomp}
 											vgparent.AppendChild(vgn)
 										}
 									}
-								}
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-								vgparent.AppendChild(vgn)
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-								vgparent.AppendChild(vgn)
-								{
-									vgparent := vgn
-									_ = vgparent
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+									vgparent.AppendChild(vgn)
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+									vgparent.AppendChild(vgn)
 									{
-										vgcompKey := vugu.MakeCompKey(0x2A8FB313E482CA4^vgin.CurrentPositionHash(), vgiterkey)
-										// ask BuildEnv for prior instance of this specific component
-										vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
-										if vgcomp == nil {
-											// create new one if needed
-											vgcomp = new(Field)
-											vgin.BuildEnv.WireComponent(vgcomp)
+										vgparent := vgn
+										_ = vgparent
+										{
+											vgcompKey := vugu.MakeCompKey(0x54FE638F565B37E5^vgin.CurrentPositionHash(), vgiterkey)
+											// ask BuildEnv for prior instance of this specific component
+											vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+											if vgcomp == nil {
+												// create new one if needed
+												vgcomp = new(Field)
+												vgin.BuildEnv.WireComponent(vgcomp)
+											}
+											vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+											vgcomp.Bare = true
+											vgcomp.Changed = c.Changed
+											vgcomp.F = c.F
+											vgcomp.Label = fmt.Sprintf("Coefficient of variation of mv and Cc, layer %d", i+1)
+											vgcomp.Path = spreadField(i, "mv")
+											vgcomp.Unit = "%"
+											vgout.Components = append(vgout.Components, vgcomp)
+											vgn = &vugu.VGNode{Component: vgcomp}
+											vgparent.AppendChild(vgn)
 										}
-										vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
-										vgcomp.Bare = true
-										vgcomp.Changed = c.Changed
-										vgcomp.F = c.F
-										vgcomp.Label = fmt.Sprintf("Correlation of ln k and ln mv, layer %d", i+1)
-										vgcomp.Path = spreadField(i, "kMv")
-										vgcomp.Unit = "–"
-										vgout.Components = append(vgout.Components, vgcomp)
-										vgn = &vugu.VGNode{Component: vgcomp}
-										vgparent.AppendChild(vgn)
 									}
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+									vgparent.AppendChild(vgn)
+									if c.drains() {
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+										vgparent.AppendChild(vgn)
+										{
+											vgparent := vgn
+											_ = vgparent
+											{
+												vgcompKey := vugu.MakeCompKey(0x8E83D9998F748EDE^vgin.CurrentPositionHash(), vgiterkey)
+												// ask BuildEnv for prior instance of this specific component
+												vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+												if vgcomp == nil {
+													// create new one if needed
+													vgcomp = new(Field)
+													vgin.BuildEnv.WireComponent(vgcomp)
+												}
+												vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+												vgcomp.Bare = true
+												vgcomp.Changed = c.Changed
+												vgcomp.F = c.F
+												vgcomp.Label = fmt.Sprintf("Coefficient of variation of ch, layer %d", i+1)
+												vgcomp.Path = spreadField(i, "ch")
+												vgcomp.Unit = "%"
+												vgout.Components = append(vgout.Components, vgcomp)
+												vgn = &vugu.VGNode{Component: vgcomp}
+												vgparent.AppendChild(vgn)
+											}
+										}
+									}
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+									vgparent.AppendChild(vgn)
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+									vgparent.AppendChild(vgn)
+									{
+										vgparent := vgn
+										_ = vgparent
+										{
+											vgcompKey := vugu.MakeCompKey(0x2A8FB313E482CA4^vgin.CurrentPositionHash(), vgiterkey)
+											// ask BuildEnv for prior instance of this specific component
+											vgcomp, _ := vgin.BuildEnv.CachedComponent(vgcompKey).(*Field)
+											if vgcomp == nil {
+												// create new one if needed
+												vgcomp = new(Field)
+												vgin.BuildEnv.WireComponent(vgcomp)
+											}
+											vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
+											vgcomp.Bare = true
+											vgcomp.Changed = c.Changed
+											vgcomp.F = c.F
+											vgcomp.Label = fmt.Sprintf("Correlation of ln k and ln mv, layer %d", i+1)
+											vgcomp.Path = spreadField(i, "kMv")
+											vgcomp.Unit = "–"
+											vgout.Components = append(vgout.Components, vgcomp)
+											vgn = &vugu.VGNode{Component: vgcomp}
+											vgparent.AppendChild(vgn)
+										}
+									}
+									vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+									vgparent.AppendChild(vgn)
 								}
-								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-								vgparent.AppendChild(vgn)
 							}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+							vgparent.AppendChild(vgn)
 						}
 						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 						vgparent.AppendChild(vgn)
 					}
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-					vgparent.AppendChild(vgn)
 				}
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
@@ -7925,55 +7931,61 @@ func (c *Uncertain) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 						_ = vgparent
 						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 						vgparent.AppendChild(vgn)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "range-quantiles"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid pl-small"}}}
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-scrollx"}}}
 						vgparent.AppendChild(vgn)
 						{
 							vgparent := vgn
 							_ = vgparent
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-							vgparent.AppendChild(vgn)
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
-							vgparent.AppendChild(vgn)
-							vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth\x3E\x3C/th\x3E\x3Cth\x3EP10\x3C/th\x3E\x3Cth\x3EP50\x3C/th\x3E\x3Cth\x3EP90\x3C/th\x3E\x3Cth\x3EUnit\x3C/th\x3E\x3C/tr\x3E"))
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-							vgparent.AppendChild(vgn)
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "range-quantiles"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid pl-small"}}}
 							vgparent.AppendChild(vgn)
 							{
 								vgparent := vgn
 								_ = vgparent
-								for vgiterkeyt, r := range c.quantRows() {
-									var vgiterkey interface{} = vgiterkeyt
-									_ = vgiterkey
-									r := r
-									_ = r
-									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
-									vgparent.AppendChild(vgn)
-									vgn.AddAttrInterface("id", r.ID)
-									{
-										vgparent := vgn
-										_ = vgparent
-										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
+								vgparent.AppendChild(vgn)
+								vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth\x3E\x3C/th\x3E\x3Cth\x3EP10\x3C/th\x3E\x3Cth\x3EP50\x3C/th\x3E\x3Cth\x3EP90\x3C/th\x3E\x3Cth\x3EUnit\x3C/th\x3E\x3C/tr\x3E"))
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
+								vgparent.AppendChild(vgn)
+								{
+									vgparent := vgn
+									_ = vgparent
+									for vgiterkeyt, r := range c.quantRows() {
+										var vgiterkey interface{} = vgiterkeyt
+										_ = vgiterkey
+										r := r
+										_ = r
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
 										vgparent.AppendChild(vgn)
-										vgn.SetInnerHTML(r.Name)
-										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-										vgparent.AppendChild(vgn)
-										vgn.SetInnerHTML(r.cell(r.Q.P10))
-										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-										vgparent.AppendChild(vgn)
-										vgn.AddAttrInterface("data-value", fmt.Sprint(r.Q.P50))
-										vgn.SetInnerHTML(r.cell(r.Q.P50))
-										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-										vgparent.AppendChild(vgn)
-										vgn.SetInnerHTML(r.cell(r.Q.P90))
-										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-										vgparent.AppendChild(vgn)
-										vgn.SetInnerHTML(r.Unit)
+										vgn.AddAttrInterface("id", r.ID)
+										{
+											vgparent := vgn
+											_ = vgparent
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(r.Name)
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(r.cell(r.Q.P10))
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.AddAttrInterface("data-value", fmt.Sprint(r.Q.P50))
+											vgn.SetInnerHTML(r.cell(r.Q.P50))
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(r.cell(r.Q.P90))
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(r.Unit)
+										}
 									}
 								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
 							}
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-							vgparent.AppendChild(vgn)
 						}
 						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 						vgparent.AppendChild(vgn)
@@ -8081,53 +8093,59 @@ func (c *Uncertain) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 						}
 						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 						vgparent.AppendChild(vgn)
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "range-sensitivity"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid pl-small"}}}
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-scrollx"}}}
 						vgparent.AppendChild(vgn)
 						{
 							vgparent := vgn
 							_ = vgparent
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-							vgparent.AppendChild(vgn)
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
-							vgparent.AppendChild(vgn)
-							vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth\x3EInput, ranked by its effect on t90\x3C/th\x3E\x3Cth\x3Et90 at its P10\x3C/th\x3E\x3Cth\x3Et90 at its P90\x3C/th\x3E\x3Cth\x3ERemaining at P10\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Emm\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ERemaining at P90\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Emm\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-							vgparent.AppendChild(vgn)
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "table", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "range-sensitivity"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-grid pl-small"}}}
 							vgparent.AppendChild(vgn)
 							{
 								vgparent := vgn
 								_ = vgparent
-								for vgiterkeyt, s := range c.swingRows() {
-									var vgiterkey interface{} = vgiterkeyt
-									_ = vgiterkey
-									s := s
-									_ = s
-									vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
-									vgparent.AppendChild(vgn)
-									{
-										vgparent := vgn
-										_ = vgparent
-										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "thead", Attr: []vugu.VGAttribute(nil)}
+								vgparent.AppendChild(vgn)
+								vgn.SetInnerHTML(vugu.HTML("\x3Ctr\x3E\x3Cth\x3EInput, ranked by its effect on t90\x3C/th\x3E\x3Cth\x3Et90 at its P10\x3C/th\x3E\x3Cth\x3Et90 at its P90\x3C/th\x3E\x3Cth\x3ERemaining at P10\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Emm\x3C/span\x3E\x3C/th\x3E\x3Cth\x3ERemaining at P90\x3Cbr/\x3E\x3Cspan class=\"pl-u\"\x3Emm\x3C/span\x3E\x3C/th\x3E\x3C/tr\x3E"))
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tbody", Attr: []vugu.VGAttribute(nil)}
+								vgparent.AppendChild(vgn)
+								{
+									vgparent := vgn
+									_ = vgparent
+									for vgiterkeyt, s := range c.swingRows() {
+										var vgiterkey interface{} = vgiterkeyt
+										_ = vgiterkey
+										s := s
+										_ = s
+										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "tr", Attr: []vugu.VGAttribute(nil)}
 										vgparent.AppendChild(vgn)
-										vgn.SetInnerHTML(c.swingName(s))
-										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-										vgparent.AppendChild(vgn)
-										vgn.SetInnerHTML(optT90(s.Low))
-										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-										vgparent.AppendChild(vgn)
-										vgn.SetInnerHTML(optT90(s.High))
-										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-										vgparent.AppendChild(vgn)
-										vgn.SetInnerHTML(sig(1000*s.Low.Remaining, 3))
-										vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
-										vgparent.AppendChild(vgn)
-										vgn.SetInnerHTML(sig(1000*s.High.Remaining, 3))
+										{
+											vgparent := vgn
+											_ = vgparent
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(c.swingName(s))
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(optT90(s.Low))
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(optT90(s.High))
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(sig(1000*s.Low.Remaining, 3))
+											vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "td", Attr: []vugu.VGAttribute(nil)}
+											vgparent.AppendChild(vgn)
+											vgn.SetInnerHTML(sig(1000*s.High.Remaining, 3))
+										}
 									}
 								}
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+								vgparent.AppendChild(vgn)
 							}
-							vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-							vgparent.AppendChild(vgn)
 						}
 						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 						vgparent.AppendChild(vgn)

@@ -133,6 +133,7 @@ func (c *Root) stopRange() {
 	}
 	s.busy = false
 	s.elapsed = time.Since(s.started)
+	s.combine()
 	s.note = fmt.Sprintf("Stopped after %d of %d runs.", s.done, s.total)
 }
 
@@ -165,7 +166,7 @@ func (c *Root) rangeInWorkers(ctx context.Context, g int64, b Batcher, model *so
 			if s.gen.Load() == g {
 				s.partial[k] = f * float64(chunks[k][1]-chunks[k][0])
 			}
-			if time.Since(s.lastDraw) > 150*time.Millisecond {
+			if time.Since(s.lastDraw) > redrawEvery {
 				s.lastDraw = time.Now()
 				c.Env.UnlockRender()
 			} else {
@@ -177,8 +178,8 @@ func (c *Root) rangeInWorkers(ctx context.Context, g int64, b Batcher, model *so
 			return
 		}
 		c.Env.Lock()
-		defer c.Env.UnlockRender()
 		if s.gen.Load() != g || errors.Is(err, context.Canceled) {
+			c.Env.UnlockOnly()
 			return
 		}
 		if err == nil {
@@ -187,6 +188,16 @@ func (c *Root) rangeInWorkers(ctx context.Context, g int64, b Batcher, model *so
 		if err != nil && s.err == "" {
 			s.err = err.Error()
 		}
+		// Every render rebuilds the whole page on the page's own thread,
+		// which shares the cores with the workers: draw the growing
+		// bands at most every redrawEvery (finishRange draws the last).
+		if err != nil || k < 0 || time.Since(s.lastDraw) > redrawEvery {
+			s.lastDraw = time.Now()
+			s.combine()
+			c.Env.UnlockRender()
+			return
+		}
+		c.Env.UnlockOnly()
 	}
 	wg.Add(1)
 	go send(-1, uncertain.Batch{Project: model, Plan: plan, Sensitivity: true})
@@ -236,12 +247,24 @@ func (c *Root) takeAnswer(s *rangeState, k int, out []byte) error {
 	s.partial[k] = 0
 	s.samples = append(s.samples, a.Samples...)
 	s.done = len(s.samples)
-	bands := uncertain.Combine(s.plan, s.samples)
-	s.bands = &bands
 	return nil
 }
 
+// combine makes the bands of the samples so far.
+func (s *rangeState) combine() {
+	if len(s.samples) == 0 {
+		return
+	}
+	bands := uncertain.Combine(s.plan, s.samples)
+	s.bands = &bands
+}
+
+// redrawEvery is the least time between two redraws of a running Monte
+// Carlo.
+const redrawEvery = time.Second
+
 func (c *Root) finishRange(s *rangeState) {
+	s.combine()
 	s.busy = false
 	s.elapsed = time.Since(s.started)
 	if s.stop != nil {
@@ -278,8 +301,7 @@ func (c *Root) rangeHere(ctx context.Context, g int64, model *solver.Project, pl
 			if lock() {
 				s.samples = append(s.samples, got...)
 				s.done = len(s.samples)
-				bands := uncertain.Combine(plan, s.samples)
-				s.bands = &bands
+				s.combine()
 			}
 			unlock()
 		}
