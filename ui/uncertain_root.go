@@ -203,7 +203,7 @@ func (c *Root) rangeInWorkers(ctx context.Context, g int64, b Batcher, model *so
 	go send(-1, uncertain.Batch{Project: model, Plan: plan, Sensitivity: true})
 	for k, ch := range chunks {
 		wg.Add(1)
-		go send(k, uncertain.Batch{Project: model, Plan: plan, From: ch[0], To: ch[1]})
+		go send(k, uncertain.Batch{Project: model, Plan: plan, From: ch[0], To: ch[1], Binary: true})
 	}
 	wg.Wait()
 	if noWorker.Load() {
@@ -228,6 +228,16 @@ func (c *Root) rangeInWorkers(ctx context.Context, g int64, b Batcher, model *so
 
 // takeAnswer adds one batch's answer to s (under the render lock).
 func (c *Root) takeAnswer(s *rangeState, k int, out []byte) error {
+	if uncertain.IsBinarySamples(out) {
+		got, err := uncertain.DecodeSamples(out)
+		if err != nil {
+			return errors.New("a worker's answer could not be read: " + err.Error())
+		}
+		s.partial[k] = 0
+		s.samples = append(s.samples, got...)
+		s.done = len(s.samples)
+		return nil
+	}
 	var a struct {
 		uncertain.Answer
 		Error *struct {

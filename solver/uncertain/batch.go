@@ -17,6 +17,9 @@ type Batch struct {
 	From        int             `json:"from"`
 	To          int             `json:"to"`
 	Sensitivity bool            `json:"sensitivity,omitempty"`
+	// Binary asks for the samples in the binary form (EncodeSamples)
+	// instead of the JSON of an Answer.
+	Binary bool `json:"binary,omitempty"`
 }
 
 // Answer is what a Batch gives.
@@ -52,6 +55,9 @@ func RunBatch(data []byte, progress func(float64) bool) ([]byte, error) {
 		a.Samples = Range(b.Project, b.Plan, b.From, b.To, func(done int) bool {
 			return progress == nil || progress(float64(done)/float64(n))
 		})
+		if b.Binary {
+			return EncodeSamples(a.Samples), nil
+		}
 	}
 	return json.Marshal(a)
 }

@@ -237,3 +237,24 @@ func TestQuantile(t *testing.T) {
 		}
 	}
 }
+
+// The binary form of samples gives back what went in, nil t90 and
+// problems included, and refuses a damaged copy.
+func TestSamplesWire(t *testing.T) {
+	t90 := 123.5
+	in := []Sample{
+		{Run: 3, Settlement: []float64{0, 0.1, math.Inf(1)}, Degree: []float64{0, 0.5, 1}, T90: &t90, Final: 0.7, Remaining: 0.2},
+		{Run: 4, Problem: "layers[1].k: is out of range"},
+		{Run: 900, Settlement: []float64{1}},
+	}
+	data := EncodeSamples(in)
+	out, err := DecodeSamples(data)
+	if err != nil || !reflect.DeepEqual(out, in) {
+		t.Fatalf("round trip: %+v, %v", out, err)
+	}
+	for _, cut := range []int{len(data) - 1, len(data) / 2, len(samplesMagic) + 1} {
+		if _, err := DecodeSamples(data[:cut]); err == nil {
+			t.Errorf("a copy cut at %d of %d bytes was read", cut, len(data))
+		}
+	}
+}

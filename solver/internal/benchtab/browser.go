@@ -20,7 +20,14 @@ type browserFigures struct {
 	EditToPlotNoDebounceMs *float64 `json:"editToPlotNoDebounceMs"` // the same from the end of the page's pause before a solve
 	JSHeapBeforeBytes      *float64 `json:"jsHeapBeforeBytes"`      // JavaScript heap; 0 when unavailable
 	JSHeapAfterBytes       *float64 `json:"jsHeapAfterBytes"`
-	Machine                string   `json:"machine"`
+	// The Monte Carlo of the demo in the page (static/browserbench_test.go).
+	RangeRuns        int       `json:"rangeRuns"`
+	RangeWorkers     int       `json:"rangeWorkers"`
+	RangeMs          float64   `json:"rangeMs"`
+	RangeOneWorkerMs float64   `json:"rangeOneWorkerMs"`
+	RangeMaxGapMs    float64   `json:"rangeMaxGapMs"`
+	RangeMemoryBytes []float64 `json:"rangeMemoryBytes"`
+	Machine          string    `json:"machine"`
 }
 
 // Goals of section 5.
@@ -29,6 +36,8 @@ const (
 	editToPlotGoalMs = 50
 	heapGrowthGoal   = 5_000_000 // bytes (10⁶ to the MB), over heapSolves solves
 	heapSolves       = 1000
+	rangeGoalMs      = 10000 // 1,000 realisations of the demo in the page
+	rangeSpeedupGoal = 1.7   // one worker per core (two here) against one
 )
 
 // readBrowser decodes the browser benchmark's file and requires its five
