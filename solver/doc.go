@@ -475,6 +475,15 @@
 //	uncertainty.layers        –       at most one per layer           ErrOutOfRange
 //	uncertainty.layers[i].k, .mv, .ch –  COV 0 … 3 (absent: fixed)    ErrNegative, ErrOutOfRange
 //	uncertainty.layers[i].kMv –       −1 … 1 (absent: 0)              ErrOutOfRange
+//	variants                  –       at most 12                      ErrTooLarge
+//	variants[i].name          –       required, unique                ErrRequired, ErrConflict
+//	variants[i].drainSpacing  m       as drains.spacing; needs drains ErrConflict, as drains.spacing
+//	variants[i].loads, .layers –      at most one per stage, layer    ErrOutOfRange
+//	variants[i].loads[j].*    –       as loads[j]; fillThickness only ErrConflict, as loads[j]
+//	                                  on a fill stage
+//	variants[i].layers[j].*   –       as layers[j].k, .mv, .ch        as layers[j]
+//	variants[i]               –       any other problem of the        as that field
+//	                                  project with the option applied
 //	top|bottom.excess         –       with drains: at the outlet only ErrConflict
 //	                                  (or the same at both ends)
 //

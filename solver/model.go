@@ -64,6 +64,11 @@ type Project struct {
 	// and ch are, for the Monte Carlo of package solver/uncertain; Solve
 	// itself ignores it (beyond validating it).
 	Uncertainty *Uncertainty `json:"uncertainty,omitempty"`
+	// Variants are named options of the same ground, each a set of
+	// changes to this project (Variant.Apply), solved beside it by
+	// package solver/compare; Solve itself ignores them (beyond
+	// validating them).
+	Variants []Variant `json:"variants,omitempty"`
 	// Mesh and Stepping control the numerics; zero values are defaults.
 	Mesh     MeshSettings `json:"mesh,omitzero"`
 	Stepping Stepping     `json:"stepping,omitzero"`

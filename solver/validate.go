@@ -174,6 +174,9 @@ func Validate(p *Project) error {
 	}
 	validDrains(&ps, p, height)
 	validUncertainty(&ps, p)
+	if len(ps) == 0 {
+		validVariants(&ps, p)
+	}
 
 	m := p.Mesh
 	if m.Order != 0 && m.Order != 1 && m.Order != 2 {
