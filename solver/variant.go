@@ -16,7 +16,7 @@ type Variant struct {
 	NoDrains bool `json:"noDrains,omitempty"`
 	// DrainSpacing replaces drains.spacing, m (the project must have
 	// drains).
-	DrainSpacing *float64 `json:"drainSpacing,omitempty"`
+	DrainSpacing *float64      `json:"drainSpacing,omitempty"`
 	Loads        []LoadChange  `json:"loads,omitempty"`
 	Layers       []LayerChange `json:"layers,omitempty"`
 }

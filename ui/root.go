@@ -59,14 +59,15 @@ type Root struct {
 	gen       atomic.Int64 // bumped by every committed edit; a solve of an older one is dropped
 	notices   []notice
 	shareURL  string
-	fit       *fitState    // back-analysis of the field records (monitor_root.go)
-	design    *designState // the drain design helper (drains_root.go)
-	need      *fillNeed    // the fill needed for a finished level (fill-need.go)
-	rng       *rangeState  // the Monte Carlo of the uncertainty section (uncertain_root.go)
-	fold      folds        // which secondary sections are unfolded (folds.go)
-	printing  bool         // Print report is under way: every fold is open
-	dates     bool         // the record plots run on calendar dates
-	level     bool         // the piezometer plot shows water levels
+	fit       *fitState     // back-analysis of the field records (monitor_root.go)
+	design    *designState  // the drain design helper (drains_root.go)
+	need      *fillNeed     // the fill needed for a finished level (fill-need.go)
+	rng       *rangeState   // the Monte Carlo of the uncertainty section (uncertain_root.go)
+	cmp       *compareState // the comparison of the options (variants_root.go)
+	fold      folds         // which secondary sections are unfolded (folds.go)
+	printing  bool          // Print report is under way: every fold is open
+	dates     bool          // the record plots run on calendar dates
+	level     bool          // the piezometer plot shows water levels
 }
 
 type notice struct {

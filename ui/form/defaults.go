@@ -37,6 +37,9 @@ var numberDefaults = map[string]float64{
 // empty value means, or "hydrostatic" for a boundary head left out. ok is
 // false for an input with no placeholder.
 func Placeholder(path string) (text string, ok bool) {
+	if strings.HasPrefix(path, "variants[") && !IsText(path) {
+		return "as given", true // an option's change left empty keeps the project's value
+	}
 	if h, ok := defaultHint(path); ok {
 		return h, true
 	}
@@ -120,6 +123,9 @@ func scaleOf(path string) float64 {
 		return 100 // fraction → %
 	case "drains.qw":
 		return solver.DaysPerYear * 86400 // m³/s → m³/year
+	}
+	if strings.HasPrefix(path, "variants[") && strings.HasSuffix(path, ".ch") {
+		return solver.DaysPerYear // m²/day → m²/year, as the drains table
 	}
 	if strings.HasPrefix(path, "layers[") && strings.HasSuffix(path, ".ch") {
 		return solver.DaysPerYear // m²/day → m²/year
