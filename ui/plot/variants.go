@@ -64,7 +64,8 @@ func VariantsFigure(curves []Curve, degree bool, w, h int) *Figure {
 	}
 	lo, hi, _ := finiteRange(all...)
 	if degree {
-		lo, hi = 0, math.Max(100, hi)
+		// 0–100 %, higher only as far as a surcharge later removed takes Us.
+		lo, hi = 0, math.Max(100, math.Ceil(hi))
 	} else {
 		lo, hi = padRange(math.Min(0, lo), math.Max(0, hi))
 	}
