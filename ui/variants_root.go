@@ -10,6 +10,19 @@ import (
 	optcmp "porelight/solver/compare"
 )
 
+// WideSolver is a Solver whose solves may use one worker per core (the
+// page's own solves keep to the pool's usual size, leaving a core to the
+// page): wasm/ queues them like the Monte Carlo's batches.
+type WideSolver interface {
+	SolveWide(ctx context.Context, project []byte, progress func(float64)) ([]byte, error)
+}
+
+type wideSolver struct{ w WideSolver }
+
+func (s wideSolver) Solve(ctx context.Context, project []byte, progress func(float64)) ([]byte, error) {
+	return s.w.SolveWide(ctx, project, progress)
+}
+
 // compareState is the last comparison of the options.
 type compareState struct {
 	busy     bool
@@ -45,6 +58,9 @@ func (c *Root) runCompare() {
 	g := s.gen.Add(1)
 	s.busy, s.err, s.outcomes, s.model, s.done = true, "", make([]optcmp.Outcome, len(projects)), model, 0
 	sv, workers := c.host().(Solver)
+	if w, ok := c.host().(WideSolver); ok {
+		sv, workers = wideSolver{w}, true
+	}
 	solveOne := func(i int) optcmp.Outcome {
 		if workers && c.Env != nil {
 			data, err := solveInput(projects[i]).MarshalBinary()

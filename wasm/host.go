@@ -196,6 +196,13 @@ func (h host) Batch(ctx context.Context, batch []byte, progress func(float64)) (
 	return h.call(ctx, "vary-batch", batch, progress)
 }
 
+// SolveWide is Solve for the comparison of options: the pool spreads
+// these over one worker per core, like the Monte Carlo's batches (see
+// ui.WideSolver).
+func (h host) SolveWide(ctx context.Context, project []byte, progress func(float64)) ([]byte, error) {
+	return h.call(ctx, "vary-solve", project, progress)
+}
+
 // call runs op on payload in the pool and waits for the answer.
 func (host) call(ctx context.Context, op string, payload []byte, progress func(float64)) ([]byte, error) {
 	pool := js.Global().Get("porelightWorkers")

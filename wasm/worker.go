@@ -30,6 +30,8 @@ var progressEvery = 50 * time.Millisecond
 //	               (a Uint8Array of solver.Project.MarshalBinary): both
 //	               ends skip JSON, which costs about as much as a small
 //	               solve in wasm
+//	op "vary-solve" → "solve-binary" for the page's comparison of
+//	               options: the pool lets these use one worker per core
 //	op "validate"  → the problems JSON, as porelight.validate returns it
 //	op "vary-batch" → the JSON of an uncertain.Answer for the JSON of an
 //	               uncertain.Batch (realisations of a Monte Carlo, or
@@ -70,7 +72,7 @@ func serveWorker(a *api) {
 // call answers one goCall.
 func (a *api) call(op string, project []byte, progress js.Value) []byte {
 	switch op {
-	case "solve", "solve-binary":
+	case "solve", "solve-binary", "vary-solve":
 		var report func(float64)
 		if progress.Type() == js.TypeFunction {
 			last := time.Now()
@@ -81,7 +83,7 @@ func (a *api) call(op string, project []byte, progress js.Value) []byte {
 				}
 			}
 		}
-		if op == "solve-binary" {
+		if op != "solve" {
 			return a.solveTo(project, report, marshalBinary)
 		}
 		return a.solveJSON(project, report)

@@ -334,9 +334,8 @@
 			}
 		}
 
-		// call runs op ("solve", "solve-binary", "validate" or "vary-batch";
-		// see
-		// wasm/worker.go) on payload, a JSON string (or, for
+		// call runs op ("solve", "solve-binary", "validate", "vary-batch" or
+		// "vary-solve"; see wasm/worker.go) on payload, a JSON string (or, for
 		// "solve-binary", a Uint8Array of a binary project),
 		// in a worker. onDone(bytes, noWorker) is called once: bytes is a
 		// Uint8Array of the answer (JSON, or a binary result for "solve-binary"), or noWorker says why no worker
