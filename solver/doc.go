@@ -481,9 +481,16 @@
 //	variants[i].loads, .layers –      at most one per stage, layer    ErrOutOfRange
 //	variants[i].loads[j].*    –       as loads[j]; fillThickness only ErrConflict, as loads[j]
 //	                                  on a fill stage
-//	variants[i].layers[j].*   –       as layers[j].k, .mv, .ch        as layers[j]
+//	variants[i].layers[j].*   –       as layers[j].thickness, .k,     as layers[j]
+//	                                  .mv, .ch
 //	variants[i]               –       any other problem of the        as that field
 //	                                  project with the option applied
+//	variants[i].name          –       not "As given" (the project)    ErrConflict
+//	alignment.sections        –       at most 50                      ErrTooLarge
+//	alignment.sections[i].chainage m  −10⁷ … 10⁷, increasing          ErrOutOfRange, ErrNotSorted
+//	alignment.sections[i].option –    a variant's name, or empty      ErrOutOfRange
+//	alignment.date            day     0 … MaxTime (absent: design life) ErrNegative, ErrOutOfRange
+//	alignment.limit           –       0 … 1 (absent: not checked)     ErrNegative, ErrOutOfRange
 //	top|bottom.excess         –       with drains: at the outlet only ErrConflict
 //	                                  (or the same at both ends)
 //

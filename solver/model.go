@@ -69,6 +69,9 @@ type Project struct {
 	// package solver/compare; Solve itself ignores them (beyond
 	// validating them).
 	Variants []Variant `json:"variants,omitempty"`
+	// Alignment places the project and its options at chainages along
+	// a line (nil: none).
+	Alignment *Alignment `json:"alignment,omitempty"`
 	// Mesh and Stepping control the numerics; zero values are defaults.
 	Mesh     MeshSettings `json:"mesh,omitzero"`
 	Stepping Stepping     `json:"stepping,omitzero"`

@@ -177,6 +177,7 @@ func Validate(p *Project) error {
 	if len(ps) == 0 {
 		validVariants(&ps, p)
 	}
+	validAlignment(&ps, p)
 
 	m := p.Mesh
 	if m.Order != 0 && m.Order != 1 && m.Order != 2 {

@@ -30,8 +30,10 @@ type LoadChange struct {
 	FillThickness *float64 `json:"fillThickness,omitempty"`
 }
 
-// LayerChange changes one layer's k, m/s, mv, 1/kPa, or ch, m²/day.
+// LayerChange changes one layer's thickness, m, k, m/s, mv, 1/kPa, or
+// ch, m²/day.
 type LayerChange struct {
+	Thickness *float64 `json:"thickness,omitempty"`
 	K  *float64 `json:"k,omitempty"`
 	Mv *float64 `json:"mv,omitempty"`
 	Ch *float64 `json:"ch,omitempty"`
@@ -40,13 +42,17 @@ type LayerChange struct {
 // MaxVariants is the most variants one project holds.
 const MaxVariants = 12
 
-// Apply returns a copy of p with v's changes, without p's Variants and
+// BaseOptionName names the project as given beside its options (a
+// section's Option left empty means it).
+const BaseOptionName = "As given"
+
+// Apply returns a copy of p with v's changes, without p's Variants, Alignment and
 // Uncertainty (an option is solved as a project of its own). p is
 // unchanged; the copy shares nothing that Apply changes. Changes to
 // stages or layers p does not have are ignored (Validate refuses them).
 func (v *Variant) Apply(p *Project) *Project {
 	q := *p
-	q.Variants, q.Uncertainty = nil, nil
+	q.Variants, q.Uncertainty, q.Alignment = nil, nil, nil
 	if v.NoDrains {
 		q.Drains = nil
 	} else if v.DrainSpacing != nil && p.Drains != nil {
@@ -78,6 +84,7 @@ func (v *Variant) Apply(p *Project) *Project {
 				break
 			}
 			l := &q.Layers[i]
+			set(&l.Thickness, c.Thickness)
 			set(&l.K, c.K)
 			set(&l.Mv, c.Mv)
 			set(&l.Ch, c.Ch)
@@ -116,7 +123,7 @@ func variantPath(at string, v *Variant, path string) (string, bool) {
 		}
 	case steps[0].Name == "layers" && steps[0].Index >= 0 && steps[0].Index < len(v.Layers) && len(steps) > 1:
 		c, leaf := v.Layers[steps[0].Index], strings.TrimPrefix(path, IndexPath("layers", steps[0].Index)+".")
-		if (leaf == "k" && c.K != nil) || (leaf == "mv" && c.Mv != nil) || (leaf == "ch" && c.Ch != nil) {
+		if (leaf == "k" && c.K != nil) || (leaf == "mv" && c.Mv != nil) || (leaf == "ch" && c.Ch != nil) || (leaf == "thickness" && c.Thickness != nil) {
 			return JoinPath(IndexPath(JoinPath(at, "layers"), steps[0].Index), leaf), true
 		}
 	}
@@ -141,6 +148,8 @@ func validVariants(ps *Problems, p *Project) {
 			ps.Add(JoinPath(at, "name"), ErrRequired, "name the option")
 		case names[name]:
 			ps.Add(JoinPath(at, "name"), ErrConflict, fmt.Sprintf("another option is called %q", name))
+		case name == BaseOptionName:
+			ps.Add(JoinPath(at, "name"), ErrConflict, fmt.Sprintf("%q names the project itself", name))
 		}
 		names[name] = true
 		if v.DrainSpacing != nil && (p.Drains == nil || v.NoDrains) {
@@ -163,6 +172,78 @@ func validVariants(ps *Problems, p *Project) {
 				continue
 			}
 			*ps = append(*ps, Problem{Path: at, Message: "with this option, " + pr.Path + " " + pr.Message, Err: pr.Err})
+		}
+	}
+}
+
+// Alignment places columns (the project as given, or one of its options)
+// at chainages along a line, for the settlement profile at a date and
+// the differential settlement and angular distortion between
+// neighbouring sections (package solver/compare).
+type Alignment struct {
+	Sections []Section `json:"sections"`
+	// Date is the day of the profile; zero means the design life.
+	Date float64 `json:"date,omitempty"`
+	// Limit is the angular distortion (differential settlement over
+	// distance) the engineer accepts, e.g. 0.002 for 1/500; zero: none
+	// given, nothing checked. 0 … 1.
+	Limit float64 `json:"limit,omitempty"`
+}
+
+// Section is one column of an alignment.
+type Section struct {
+	Name string `json:"name,omitempty"`
+	// Chainage is the distance along the alignment, m; increasing from
+	// one section to the next.
+	Chainage float64 `json:"chainage"`
+	// Option names the variant the column is ("" or BaseOptionName: the
+	// project as given).
+	Option string `json:"option,omitempty"`
+}
+
+// Bounds of an alignment.
+const (
+	MaxSections = 50
+	MaxChainage = 1e7 // m
+)
+
+// ResolveAlignmentDate is the day of the profile: Alignment.Date, or the
+// design life.
+func ResolveAlignmentDate(p *Project) float64 {
+	if p.Alignment != nil && p.Alignment.Date > 0 {
+		return p.Alignment.Date
+	}
+	return ResolveDesignLife(p)
+}
+
+func validAlignment(ps *Problems, p *Project) {
+	a := p.Alignment
+	if a == nil {
+		return
+	}
+	if len(a.Sections) > MaxSections {
+		ps.Add("alignment.sections", ErrTooLarge, fmt.Sprintf("%d sections, the limit is %d", len(a.Sections), MaxSections))
+		return
+	}
+	if a.Date != 0 {
+		upTo(ps, "alignment.date", a.Date, MaxTime, "days")
+	}
+	if a.Limit != 0 {
+		upTo(ps, "alignment.limit", a.Limit, 1, "")
+	}
+	names := map[string]bool{"": true, BaseOptionName: true}
+	for _, v := range p.Variants {
+		names[strings.TrimSpace(v.Name)] = true
+	}
+	for i, s := range a.Sections {
+		at := IndexPath("alignment.sections", i)
+		if within(ps, JoinPath(at, "chainage"), s.Chainage, MaxChainage, "m") && i > 0 {
+			if prev := a.Sections[i-1].Chainage; !(s.Chainage > prev) {
+				ps.Add(JoinPath(at, "chainage"), ErrNotSorted, fmt.Sprintf("%s m after %s m", num(s.Chainage), num(prev)))
+			}
+		}
+		if !names[strings.TrimSpace(s.Option)] {
+			ps.Add(JoinPath(at, "option"), ErrOutOfRange, fmt.Sprintf("no option is called %q", s.Option))
 		}
 	}
 }

@@ -9,7 +9,7 @@ import (
 )
 
 // BaseName names the project as given among its options.
-const BaseName = "As given"
+const BaseName = solver.BaseOptionName
 
 // Outcome is one option's solve.
 type Outcome struct {
@@ -38,7 +38,7 @@ type Figures struct {
 // of its options applied, in order.
 func Projects(p *solver.Project) (names []string, ps []*solver.Project) {
 	base := *p
-	base.Variants, base.Uncertainty = nil, nil
+	base.Variants, base.Uncertainty, base.Alignment = nil, nil, nil
 	names, ps = []string{BaseName}, []*solver.Project{&base}
 	for i := range p.Variants {
 		names = append(names, p.Variants[i].Name)
@@ -88,4 +88,73 @@ func Take(r *solver.Result, date float64) Figures {
 		f.Remaining = f.Final - uncertain.TotalAt(&r.Consolidation.Series, date)
 	}
 	return f
+}
+
+// Point is one section of the profile: the settlement at the date, m
+// (primary of the model plus secondary), of the option it is.
+type Point struct {
+	Name       string  `json:"name"`
+	Chainage   float64 `json:"chainage"` // m
+	Option     string  `json:"option"`
+	Settlement float64 `json:"settlement"`
+	Problem    string  `json:"problem,omitempty"`
+}
+
+// Span is the stretch between two neighbouring sections: the
+// differential settlement (next less previous, m) and the angular
+// distortion |differential| / distance, with Over set when it exceeds
+// the alignment's limit (never without one).
+type Span struct {
+	From, To     int
+	Differential float64 `json:"differential"`
+	Distortion   float64 `json:"distortion"`
+	Over         bool    `json:"over"`
+}
+
+// Profile reads the alignment of p off outcomes (Solve(p)): each
+// section's settlement at solver.ResolveAlignmentDate(p), and the spans
+// between neighbours (none across a section without a result).
+func Profile(p *solver.Project, outcomes []Outcome) (points []Point, spans []Span) {
+	if p.Alignment == nil {
+		return nil, nil
+	}
+	date := solver.ResolveAlignmentDate(p)
+	byName := map[string]*Outcome{}
+	for i := range outcomes {
+		byName[outcomes[i].Name] = &outcomes[i]
+	}
+	for _, s := range p.Alignment.Sections {
+		opt := s.Option
+		if opt == "" {
+			opt = BaseName
+		}
+		pt := Point{Name: s.Name, Chainage: s.Chainage, Option: opt}
+		switch o := byName[opt]; {
+		case o == nil:
+			pt.Problem = "no option called " + opt
+		case o.Result == nil || o.Result.Consolidation == nil:
+			pt.Problem = "no settlement: " + o.Problem
+		default:
+			pt.Settlement = uncertain.TotalAt(&o.Result.Consolidation.Series, date)
+		}
+		points = append(points, pt)
+	}
+	for i := 1; i < len(points); i++ {
+		a, b := points[i-1], points[i]
+		if a.Problem != "" || b.Problem != "" {
+			continue
+		}
+		d := b.Settlement - a.Settlement
+		sp := Span{From: i - 1, To: i, Differential: d, Distortion: abs(d) / (b.Chainage - a.Chainage)}
+		sp.Over = p.Alignment.Limit > 0 && sp.Distortion > p.Alignment.Limit
+		spans = append(spans, sp)
+	}
+	return points, spans
+}
+
+func abs(x float64) float64 {
+	if x < 0 {
+		return -x
+	}
+	return x
 }

@@ -2,6 +2,7 @@ package compare
 
 import (
 	"errors"
+	"math"
 	"os"
 	"reflect"
 	"testing"
@@ -109,5 +110,79 @@ func TestOptionProblems(t *testing.T) {
 	p.Variants = []solver.Variant{{Name: "a"}, {Name: "a"}}
 	if ps := solver.AsProblems(solver.Validate(p)); len(ps) != 1 || ps[0].Path != "variants[1].name" || !errors.Is(ps[0].Err, solver.ErrConflict) {
 		t.Errorf("two options of one name: %v", ps)
+	}
+}
+
+// Five sections of the demo from three columns (the project, a thicker
+// upper clay, a higher second lift): each section's settlement at the
+// date equals the hand-edited project's solve read at that date
+// (primary + secondary, solver.SeriesAt), each span's angular distortion
+// is |Δs|/ΔL by hand, and a span over the limit is flagged.
+func TestAlignmentProfile(t *testing.T) {
+	p := demo(t)
+	p.Drains = nil
+	p.Variants = []solver.Variant{
+		{Name: "thick clay", Layers: []solver.LayerChange{{}, {Thickness: f(6)}}},
+		{Name: "high lift", Loads: []solver.LoadChange{{}, {Q: f(50)}}},
+	}
+	p.Alignment = &solver.Alignment{Date: 1000, Limit: 1.0 / 500, Sections: []solver.Section{
+		{Name: "A", Chainage: 0}, {Name: "B", Chainage: 25, Option: "thick clay"}, {Name: "C", Chainage: 50, Option: "thick clay"},
+		{Name: "D", Chainage: 80, Option: "high lift"}, {Name: "E", Chainage: 120, Option: solver.BaseOptionName},
+	}}
+	if err := solver.Validate(p); err != nil {
+		t.Fatal(err)
+	}
+	hand := map[string]func(q *solver.Project){
+		"":           func(q *solver.Project) { q.Drains = nil },
+		"thick clay": func(q *solver.Project) { q.Drains = nil; q.Layers[1].Thickness = 6 },
+		"high lift":  func(q *solver.Project) { q.Drains = nil; q.Loads[1].Q = 50 },
+	}
+	at := func(opt string) float64 {
+		q := demo(t)
+		hand[opt](q)
+		r, err := solver.Solve(q, nil)
+		if err != nil {
+			t.Fatal(err)
+		}
+		s := &r.Consolidation.Series
+		return solver.SeriesAt(s.Time, s.Settlement, 1000) + solver.SeriesAt(s.Time, s.Secondary, 1000)
+	}
+	want := []float64{at(""), at("thick clay"), at("thick clay"), at("high lift"), at("")}
+	pts, spans := Profile(p, Solve(p, nil))
+	if len(pts) != 5 || len(spans) != 4 {
+		t.Fatalf("%d points, %d spans", len(pts), len(spans))
+	}
+	for i, pt := range pts {
+		// Exact: the same solve, read at the same time.
+		if pt.Problem != "" || pt.Settlement != want[i] {
+			t.Errorf("section %s: %g m, hand-edited solve %g m (%s)", pt.Name, pt.Settlement, want[i], pt.Problem)
+		}
+	}
+	for _, sp := range spans {
+		a, b := p.Alignment.Sections[sp.From], p.Alignment.Sections[sp.To]
+		d := want[sp.To] - want[sp.From]
+		dist := math.Abs(d) / (b.Chainage - a.Chainage)
+		if math.Abs(sp.Differential-d) > 1e-15 || math.Abs(sp.Distortion-dist) > 1e-15 || sp.Over != (dist > 1.0/500) {
+			t.Errorf("%s–%s: Δs %g, distortion %g, over %v; by hand %g, %g", a.Name, b.Name, sp.Differential, sp.Distortion, sp.Over, d, dist)
+		}
+	}
+	if spans[1].Distortion != 0 {
+		t.Errorf("two sections of one column differ: %g", spans[1].Distortion)
+	}
+	// Bad sections are refused at their fields.
+	p.Alignment.Sections[2].Chainage = 10
+	p.Alignment.Sections[3].Option = "nowhere"
+	ps := solver.AsProblems(solver.Validate(p))
+	for _, w := range []struct {
+		path string
+		err  error
+	}{{"alignment.sections[2].chainage", solver.ErrNotSorted}, {"alignment.sections[3].option", solver.ErrOutOfRange}} {
+		found := false
+		for _, pr := range ps {
+			found = found || (pr.Path == w.path && errors.Is(pr.Err, w.err))
+		}
+		if !found {
+			t.Errorf("problems %v, want one at %s", ps, w.path)
+		}
 	}
 }
