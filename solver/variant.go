@@ -34,9 +34,9 @@ type LoadChange struct {
 // ch, m²/day.
 type LayerChange struct {
 	Thickness *float64 `json:"thickness,omitempty"`
-	K  *float64 `json:"k,omitempty"`
-	Mv *float64 `json:"mv,omitempty"`
-	Ch *float64 `json:"ch,omitempty"`
+	K         *float64 `json:"k,omitempty"`
+	Mv        *float64 `json:"mv,omitempty"`
+	Ch        *float64 `json:"ch,omitempty"`
 }
 
 // MaxVariants is the most variants one project holds.
