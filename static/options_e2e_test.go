@@ -16,11 +16,12 @@ import (
 )
 
 // TestE2EOptions adds two options to the demo in the built page and
-// compares them: the table's final settlements equal package compare's
+// compares them, then places five sections along an alignment: the table's final settlements equal package compare's
 // native solves of the same options (the full-precision data-value, to
 // 10⁻⁹ relative: JSON and the binary form carry floats exactly; the wasm
 // build may differ from the native one in the last bits), both overlay
-// plots are drawn, and nothing goes to the console.
+// plots, the profile and its four spans are drawn, and nothing goes to
+// the console.
 func TestE2EOptions(t *testing.T) {
 	pageURL, demo := builtPage(t)
 	rec := &recorder{}
@@ -60,6 +61,26 @@ func TestE2EOptions(t *testing.T) {
 			t.Errorf("#%s has %d curves", id, n)
 		}
 	}
+	// Five sections from the three columns: the profile and its four
+	// spans are drawn.
+	for range 5 {
+		eval[chromedp.Void](t, ctx, `document.getElementById("alignment-add").click()`)
+	}
+	poll[bool](t, ctx, `!!document.getElementById("alignment-sections-4-option")`, 10*time.Second)
+	for i, opt := range []string{"", "Option 1", "Option 1", "softer lower clay", ""} {
+		eval[chromedp.Void](t, ctx, fmt.Sprintf(`(() => { const s = document.getElementById("alignment-sections-%d-option"); s.value = %q; s.dispatchEvent(new Event("change", {bubbles: true})); })()`, i, opt))
+	}
+	typeInto(t, ctx, "alignment-limit", "0.002")
+	poll[bool](t, ctx, `!document.getElementById("options-run").disabled`, 10*time.Second)
+	time.Sleep(300 * time.Millisecond)
+	eval[chromedp.Void](t, ctx, `document.getElementById("options-run").click()`)
+	if n := poll[int](t, ctx, `document.getElementById("options-status").dataset.busy === "false" && document.querySelectorAll("#alignment-spans tbody tr").length`, 60*time.Second); n != 4 {
+		t.Errorf("%d spans, want 4", n)
+	}
+	if n := eval[int](t, ctx, `document.querySelectorAll("#plot-alignment path[clip-path]").length`); n < 1 {
+		t.Error("no profile drawn")
+	}
+
 	requests, problems := rec.snapshot()
 	for _, u := range requests {
 		if !strings.HasPrefix(u, "file://") && !strings.HasPrefix(u, "data:") && !strings.HasPrefix(u, "blob:") {

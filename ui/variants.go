@@ -166,3 +166,124 @@ func (c *Variants) settlementFig() *plot.Figure {
 	return plot.VariantsFigure(c.curves(), false, 640, 360)
 }
 func (c *Variants) degreeFig() *plot.Figure { return plot.VariantsFigure(c.curves(), true, 640, 320) }
+
+// sections are the alignment's rows.
+func (c *Variants) sections() []int {
+	a := c.F.Draft().Alignment
+	if a == nil {
+		return nil
+	}
+	out := make([]int, len(a.Sections))
+	for i := range out {
+		out[i] = i
+	}
+	return out
+}
+
+func sectionField(i int, name string) string {
+	return solver.JoinPath(solver.IndexPath("alignment.sections", i), name)
+}
+
+func (c *Variants) addSection() {
+	c.F.AddSection()
+	c.Changed()
+}
+
+func (c *Variants) removeSection(i int) {
+	c.F.RemoveSection(i)
+	c.Changed()
+}
+
+// optionChoice is one entry of a section's option select.
+type optionChoice struct {
+	Value, Text string
+	Selected    bool
+}
+
+func (c *Variants) choices(i int) []optionChoice {
+	cur := c.F.Draft().Alignment.Sections[i].Option
+	out := []optionChoice{{Value: "", Text: optcmp.BaseName, Selected: cur == "" || cur == optcmp.BaseName}}
+	known := out[0].Selected
+	for _, v := range c.F.Draft().Variants {
+		out = append(out, optionChoice{Value: v.Name, Text: v.Name, Selected: v.Name == cur})
+		known = known || v.Name == cur
+	}
+	if !known { // renamed or removed since: keep it visible, Validate names it
+		out = append(out, optionChoice{Value: cur, Text: cur + " (missing)", Selected: true})
+	}
+	return out
+}
+
+func (c *Variants) setOption(i int, e vugu.DOMEvent) {
+	c.F.SetSectionOption(i, e.PropString("target", "value"))
+	c.Changed()
+}
+
+// profile is the alignment read off the last comparison.
+func (c *Variants) profile() ([]optcmp.Point, []optcmp.Span) {
+	if c.S.model == nil || c.S.busy {
+		return nil, nil
+	}
+	return optcmp.Profile(c.S.model, c.S.outcomes)
+}
+
+func (c *Variants) hasProfile() bool {
+	pts, _ := c.profile()
+	return len(pts) > 1
+}
+
+func (c *Variants) profileFig() *plot.Figure {
+	pts, spans := c.profile()
+	pp := make([]plot.ProfilePoint, len(pts))
+	for i, p := range pts {
+		pp[i] = plot.ProfilePoint{Name: p.Name, Chainage: p.Chainage, Settlement: p.Settlement, OK: p.Problem == ""}
+	}
+	var over []bool
+	if c.S.model.Alignment.Limit > 0 {
+		over = make([]bool, len(pts))
+		for _, s := range spans {
+			over[s.From] = s.Over
+		}
+	}
+	return plot.ProfileFigure(pp, over, solver.ResolveAlignmentDate(c.S.model), 640, 320)
+}
+
+// spanRow is one row of the spans table.
+type spanRow struct {
+	ID, From, To, Diff, Ratio, Check string
+	Over                             bool
+}
+
+func (c *Variants) spanRows() []spanRow {
+	pts, spans := c.profile()
+	limit := c.S.model.Alignment.Limit
+	var out []spanRow
+	for k, s := range spans {
+		r := spanRow{ID: fmt.Sprintf("span-%d", k), From: pts[s.From].Name, To: pts[s.To].Name, Diff: inMM(s.Differential), Over: s.Over}
+		r.Ratio = "0"
+		if s.Distortion > 0 {
+			r.Ratio = "1/" + sig(1/s.Distortion, 3)
+		}
+		switch {
+		case limit == 0:
+			r.Check = "no limit given"
+		case s.Over:
+			r.Check = "over 1/" + sig(1/limit, 3)
+		default:
+			r.Check = "within 1/" + sig(1/limit, 3)
+		}
+		out = append(out, r)
+	}
+	return out
+}
+
+func (c *Variants) profileProblems() []string {
+	pts, _ := c.profile()
+	var out []string
+	for _, p := range pts {
+		if p.Problem != "" {
+			out = append(out, p.Name+": "+p.Problem)
+		}
+	}
+	return out
+}

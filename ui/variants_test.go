@@ -2,6 +2,7 @@ package ui
 
 import (
 	"reflect"
+	"strings"
 	"testing"
 	"time"
 
@@ -55,5 +56,46 @@ func TestCompareOnPage(t *testing.T) {
 			t.Errorf("workers %v: a higher load and a softer clay should settle more: %g, %g against %g", workers,
 				s.outcomes[1].Figures.Final, s.outcomes[2].Figures.Final, s.outcomes[0].Figures.Final)
 		}
+	}
+}
+
+// Five sections from the project and two options: the page's profile is
+// package compare's Profile of the same comparison, and the spans table
+// flags the spans over the limit.
+func TestAlignmentOnPage(t *testing.T) {
+	root := &Root{Version: "test"}
+	root.Start(Sources{Demo: demoJSON(t)})
+	root.form.AddVariant()
+	root.form.Edit("variants[0].name", "thick")
+	root.form.Edit("variants[0].layers[1].thickness", "6")
+	root.form.AddVariant()
+	root.form.Edit("variants[1].name", "high")
+	root.form.Edit("variants[1].loads[1].q", "50")
+	for range 5 {
+		root.form.AddSection()
+	}
+	root.form.SetSectionOption(1, "thick")
+	root.form.SetSectionOption(2, "thick")
+	root.form.SetSectionOption(3, "high")
+	root.form.Edit("alignment.limit", "0.002")
+	root.edited()
+	if !root.form.Valid() {
+		t.Fatalf("problems: %v", root.form.Other())
+	}
+	root.runCompare()
+	v := &Variants{F: root.form, S: root.compareState(), Changed: func() {}}
+	pts, spans := v.profile()
+	wantPts, wantSpans := optcmp.Profile(root.form.Model(), optcmp.Solve(root.form.Model(), nil))
+	if !reflect.DeepEqual(pts, wantPts) || !reflect.DeepEqual(spans, wantSpans) || len(spans) != 4 {
+		t.Fatalf("page profile %+v %+v, package %+v %+v", pts, spans, wantPts, wantSpans)
+	}
+	rows := v.spanRows()
+	for k, r := range rows {
+		if r.Over != spans[k].Over || (r.Over && !strings.HasPrefix(r.Check, "over 1/500")) {
+			t.Errorf("span %d: %+v against %+v", k, r, spans[k])
+		}
+	}
+	if f := v.profileFig(); f.Message != "" {
+		t.Errorf("profile figure: %s", f.Message)
 	}
 }

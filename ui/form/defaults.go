@@ -77,6 +77,10 @@ func defaultHint(path string) (string, bool) {
 		return "base", true
 	case "uncertainty.date":
 		return "end of loading", true // solver.ResolveUncertaintyDate
+	case "alignment.date":
+		return "design life", true // solver.ResolveAlignmentDate
+	case "alignment.limit":
+		return "not checked", true
 	}
 	leaf := path[strings.LastIndexByte(path, '.')+1:]
 	switch {

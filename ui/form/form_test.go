@@ -121,6 +121,12 @@ func TestPlaceholdersAreSolverDefaults(t *testing.T) {
 				t.Errorf("%q: the solver's ch is %g m²/day, kh/kv × cv = %g", text, ch, kh/p.Layers[0].K*cv)
 			}
 		},
+		"alignment.date": func(t *testing.T, text string) {
+			if text != "design life" || solver.ResolveAlignmentDate(p) != solver.ResolveDesignLife(p) {
+				t.Errorf("%q: the profile's day is %g, the design life %g", text, solver.ResolveAlignmentDate(p), solver.ResolveDesignLife(p))
+			}
+		},
+		"alignment.limit": nil, // zero: compare.Profile flags nothing (solver/compare tests)
 		"uncertainty.date": func(t *testing.T, text string) {
 			if text != "end of loading" || solver.ResolveUncertaintyDate(p) != solver.LastLoadChange(p) {
 				t.Errorf("%q: the date is day %g, the last load change day %g", text, solver.ResolveUncertaintyDate(p), solver.LastLoadChange(p))

@@ -130,3 +130,49 @@ func clearVariantLeaf(p *solver.Project, path string) error {
 	}
 	return nil
 }
+
+// AddSection appends a section of the project as given, 20 m after the
+// last one, creating the alignment if need be.
+func (f *Form) AddSection() {
+	a := f.draft.Alignment
+	if a == nil {
+		a = &solver.Alignment{}
+		f.draft.Alignment = a
+	}
+	if len(a.Sections) >= solver.MaxSections {
+		return
+	}
+	c := 0.0
+	if n := len(a.Sections); n > 0 {
+		c = a.Sections[n-1].Chainage + 20
+	}
+	a.Sections = append(a.Sections, solver.Section{Name: fmt.Sprintf("S%d", len(a.Sections)+1), Chainage: c})
+	f.check()
+}
+
+// RemoveSection deletes section i; without sections the alignment goes.
+func (f *Form) RemoveSection(i int) {
+	a := f.draft.Alignment
+	if a == nil || i < 0 || i >= len(a.Sections) {
+		return
+	}
+	f.dropRaw(solver.IndexPath("alignment.sections", i))
+	a.Sections = append(a.Sections[:i:i], a.Sections[i+1:]...)
+	f.remap("alignment.sections", Removed(i))
+	if len(a.Sections) == 0 {
+		f.draft.Alignment = nil
+		f.dropRaw("alignment")
+	}
+	f.check()
+}
+
+// SetSectionOption makes section i the option of that name ("" for the
+// project as given).
+func (f *Form) SetSectionOption(i int, name string) {
+	a := f.draft.Alignment
+	if a == nil || i < 0 || i >= len(a.Sections) {
+		return
+	}
+	a.Sections[i].Option = name
+	f.check()
+}
