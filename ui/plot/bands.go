@@ -167,7 +167,7 @@ func SensitivityFigure(base *uncertain.Sample, swings []uncertain.Swing, names f
 			}
 		}
 	}
-	const left = 150
+	const left = 170
 	rows := min(len(swings), 12)
 	box := Box{left, timeTop, f.W - 24 - left, f.H - timeBottom - timeTop}
 	row := box.H / float64(rows)
@@ -190,7 +190,7 @@ func SensitivityFigure(base *uncertain.Sample, swings []uncertain.Swing, names f
 			}
 			f.Rects = append(f.Rects, RectEl{Box: Box{a, y, math.Max(1, z-a), row * 0.6}, Fill: fill, Stroke: inkRule, StrokeWidth: 1})
 		}
-		label := names(s.Layer) + ": " + paramLabel(s.Param)
+		label := paramLabel(s.Param) + " · " + names(s.Layer) // the parameter first: a long name is cut at its end
 		f.text(box.X-6, y+row*0.3+4, fit(label, left-12, 11), "end", 11, inkText)
 	}
 	f.path("M"+coord(x0)+" "+coord(box.Y)+" V"+coord(box.Bottom()), inkText, "none", 1.5)
