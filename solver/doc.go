@@ -650,6 +650,29 @@
 //	                                  value > 0 … 10⁴                 ErrNotPositive
 //	  [i].gain                –       0 … 5                           ErrNegative, ErrOutOfRange
 //	decisions.strength.times  day     0 … MaxTime, increasing, ≤ 50   ErrNotSorted, ErrTooLarge
+//	uncertainty.runs          –       2 … 20000 (absent: 500)         ErrOutOfRange
+//	uncertainty.seed          –       0 … 2⁵³−1                       ErrOutOfRange
+//	uncertainty.date          day     0 … MaxTime (absent: the end of ErrNegative, ErrOutOfRange
+//	                                  the last load change)
+//	uncertainty.layers        –       at most one per layer           ErrOutOfRange
+//	uncertainty.layers[i].k, .mv, .ch –  COV 0 … 3 (absent: fixed)    ErrNegative, ErrOutOfRange
+//	uncertainty.layers[i].kMv –       −1 … 1 (absent: 0)              ErrOutOfRange
+//	variants                  –       at most 12                      ErrTooLarge
+//	variants[i].name          –       required, unique                ErrRequired, ErrConflict
+//	variants[i].drainSpacing  m       as drains.spacing; needs drains ErrConflict, as drains.spacing
+//	variants[i].loads, .layers –      at most one per stage, layer    ErrOutOfRange
+//	variants[i].loads[j].*    –       as loads[j]; fillThickness only ErrConflict, as loads[j]
+//	                                  on a fill stage
+//	variants[i].layers[j].*   –       as layers[j].thickness, .k,     as layers[j]
+//	                                  .mv, .ch
+//	variants[i]               –       any other problem of the        as that field
+//	                                  project with the option applied
+//	variants[i].name          –       not "As given" (the project)    ErrConflict
+//	alignment.sections        –       at most 50                      ErrTooLarge
+//	alignment.sections[i].chainage m  −10⁷ … 10⁷, increasing          ErrOutOfRange, ErrNotSorted
+//	alignment.sections[i].option –    a variant's name, or empty      ErrOutOfRange
+//	alignment.date            day     0 … MaxTime (absent: design life) ErrNegative, ErrOutOfRange
+//	alignment.limit           –       0 … 1 (absent: not checked)     ErrNegative, ErrOutOfRange
 //	top|bottom.excess         –       with drains: at the outlet only ErrConflict
 //	                                  (or the same at both ends)
 //

@@ -64,6 +64,18 @@ type Project struct {
 	// settlement after a handover date, and the surcharge design. Nil
 	// means none asked.
 	Decisions *Decisions `json:"decisions,omitempty"`
+	// Uncertainty, when given, describes how uncertain the layers' k, mv
+	// and ch are, for the Monte Carlo of package solver/uncertain; Solve
+	// itself ignores it (beyond validating it).
+	Uncertainty *Uncertainty `json:"uncertainty,omitempty"`
+	// Variants are named options of the same ground, each a set of
+	// changes to this project (Variant.Apply), solved beside it by
+	// package solver/compare; Solve itself ignores them (beyond
+	// validating them).
+	Variants []Variant `json:"variants,omitempty"`
+	// Alignment places the project and its options at chainages along
+	// a line (nil: none).
+	Alignment *Alignment `json:"alignment,omitempty"`
 	// Mesh and Stepping control the numerics; zero values are defaults.
 	Mesh     MeshSettings `json:"mesh,omitzero"`
 	Stepping Stepping     `json:"stepping,omitzero"`

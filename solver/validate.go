@@ -181,6 +181,11 @@ func Validate(p *Project) error {
 	}
 	validDrains(&ps, p, height)
 	validDecisions(&ps, p)
+	validUncertainty(&ps, p)
+	if len(ps) == 0 {
+		validVariants(&ps, p)
+	}
+	validAlignment(&ps, p)
 
 	m := p.Mesh
 	if m.Order != 0 && m.Order != 1 && m.Order != 2 {

@@ -46,7 +46,19 @@ type browserBench struct {
 	KeystrokeMaxMs                  float64 `json:"keystrokeMaxMs"` // and the slowest of them
 	Paste500Ms                      float64 `json:"paste500Ms"`     // 500 readings pasted into a plate's box (one input event, as from the clipboard) → painted, plus "Use" → painted, median
 	Insert500Ms                     float64 `json:"insert500Ms"`    // the same text inserted by the DevTools protocol (one input event per line and line break), median
-	Machine                         string  `json:"machine"`
+	// The Monte Carlo of the demo in the page (the range section):
+	// RangeRuns realisations from the click on Run to the last bands,
+	// median over the runs with one worker per core (RangeWorkers), and
+	// once with a single worker; the largest gap of a 10 ms timer on the
+	// page's thread during those runs; the page's and the workers' wasm
+	// memory after each of the repeated runs.
+	RangeRuns        int       `json:"rangeRuns,omitempty"`
+	RangeWorkers     int       `json:"rangeWorkers,omitempty"`
+	RangeMs          float64   `json:"rangeMs,omitempty"`
+	RangeOneWorkerMs float64   `json:"rangeOneWorkerMs,omitempty"`
+	RangeMaxGapMs    float64   `json:"rangeMaxGapMs,omitempty"`
+	RangeMemoryBytes []float64 `json:"rangeMemoryBytes,omitempty"`
+	Machine          string    `json:"machine"`
 }
 
 // firstPlotProbe runs before the page's own scripts and notes, against
@@ -210,6 +222,7 @@ func TestBrowserBench(t *testing.T) {
 	t.Run("paste 500 readings", func(t *testing.T) {
 		b.Paste500Ms, b.Insert500Ms = benchPaste(t, ctx)
 	})
+	t.Run("Monte Carlo", func(t *testing.T) { benchRange(t, ctx, &b) })
 
 	b.Machine = machine(product)
 	data, err := json.MarshalIndent(b, "", "  ")
@@ -451,4 +464,49 @@ func benchPaste(t *testing.T, ctx context.Context) (pasteMs, insertMs float64) {
 	t.Logf("500 readings pasted and used: median %.0f ms (min %.0f, max %.0f); inserted as text and used: median %.0f ms (min %.0f, max %.0f)",
 		median(pastes), slices.Min(pastes), slices.Max(pastes), median(inserts), slices.Min(inserts), slices.Max(inserts))
 	return median(pastes), median(inserts)
+}
+
+// benchRange times RangeRuns realisations of the demo in the page's range
+// section: once with one worker, then three times with one per core.
+func benchRange(t *testing.T, ctx context.Context, b *browserBench) {
+	const runs = 1000
+	b.RangeRuns = runs
+	eval[chromedp.Void](t, ctx, `document.getElementById("range-on").click()`)
+	poll[bool](t, ctx, `!!document.getElementById("uncertainty-runs")`, 10*time.Second)
+	paste(t, ctx, "uncertainty-runs", strconv.Itoa(runs))
+	poll[bool](t, ctx, `!document.getElementById("range-run").disabled`, 20*time.Second)
+	b.RangeWorkers = int(eval[float64](t, ctx, `porelightWorkers.wideSize`))
+	// A 10 ms timer on the page's thread: its largest gap says how long
+	// the page was unresponsive.
+	eval[chromedp.Void](t, ctx, `(() => { const G = window.__gap = {last: performance.now(), max: 0, on: false};
+		setInterval(() => { const n = performance.now(); if (G.on) G.max = Math.max(G.max, n - G.last); G.last = n; }, 10); })()`)
+	one := func(workers int) float64 {
+		eval[chromedp.Void](t, ctx, fmt.Sprintf(`porelightWorkers.wideSize = %d; window.__gap.on = true; window.__gap.last = performance.now()`, workers))
+		eval[chromedp.Void](t, ctx, `document.getElementById("range-run").click()`)
+		poll[bool](t, ctx, fmt.Sprintf(`(() => { const s = document.getElementById("range-status").dataset; return s.busy === "false" && s.done === "%d"; })()`, runs), 300*time.Second)
+		eval[chromedp.Void](t, ctx, `window.__gap.on = false`)
+		ms, err := strconv.ParseFloat(eval[string](t, ctx, `document.getElementById("range-status").dataset.ms`), 64)
+		if err != nil {
+			t.Fatal(err)
+		}
+		within(t, ctx, 30*time.Second, chromedp.Func(func(ctx context.Context, tg *chromedp.Target) error {
+			_, err := cdp.Call(ctx, tg, heapprofiler.CollectGarbage, cdp.Empty{})
+			return err
+		}))
+		mem := eval[float64](t, ctx, `porelightMemory.buffer.byteLength + porelightWorkers.stats().memory.reduce((a, b) => a + b, 0)`)
+		t.Logf("%d realisations, %d worker(s): %.0f ms; page + workers' wasm memory %.1f MB", runs, workers, ms, mem/1e6)
+		if workers == b.RangeWorkers {
+			b.RangeMemoryBytes = append(b.RangeMemoryBytes, mem)
+		}
+		return ms
+	}
+	b.RangeOneWorkerMs = one(1)
+	var many []float64
+	for range 3 {
+		many = append(many, one(b.RangeWorkers))
+	}
+	b.RangeMs = median(many)
+	b.RangeMaxGapMs = eval[float64](t, ctx, `window.__gap.max`)
+	t.Logf("one worker %.0f ms, %d workers median %.0f ms: %.2f×; largest gap of a 10 ms timer %.0f ms",
+		b.RangeOneWorkerMs, b.RangeWorkers, b.RangeMs, b.RangeOneWorkerMs/b.RangeMs, b.RangeMaxGapMs)
 }

@@ -63,6 +63,8 @@ type Root struct {
 	design    *designState  // the drain design helper (drains_root.go)
 	need      *fillNeed     // the fill needed for a finished level (fill-need.go)
 	dec       *decisionsRun // the site decisions' own solves (decisions_root.go)
+	rng       *rangeState   // the Monte Carlo of the uncertainty section (uncertain_root.go)
+	cmp       *compareState // the comparison of the options (variants_root.go)
 	fold      folds         // which secondary sections are unfolded (folds.go)
 	printing  bool          // Print report is under way: every fold is open
 	dates     bool          // the record plots run on calendar dates

@@ -185,7 +185,26 @@ func (host) Print() { _ = catch(func() { js.Global().Call("print") }) }
 // kept by the boot script; see ui.Solver). Answers come through JavaScript
 // callbacks, which only hand them to channels: the solve goroutine waits
 // here, the browser's event loop never does.
-func (host) Solve(ctx context.Context, project []byte, progress func(float64)) ([]byte, error) {
+func (h host) Solve(ctx context.Context, project []byte, progress func(float64)) ([]byte, error) {
+	return h.call(ctx, "solve-binary", project, progress)
+}
+
+// Batch runs a batch of Monte Carlo realisations (the JSON of an
+// uncertain.Batch) in the pool, which spreads batches over one worker
+// per core (see ui.Batcher).
+func (h host) Batch(ctx context.Context, batch []byte, progress func(float64)) ([]byte, error) {
+	return h.call(ctx, "vary-batch", batch, progress)
+}
+
+// SolveWide is Solve for the comparison of options: the pool spreads
+// these over one worker per core, like the Monte Carlo's batches (see
+// ui.WideSolver).
+func (h host) SolveWide(ctx context.Context, project []byte, progress func(float64)) ([]byte, error) {
+	return h.call(ctx, "vary-solve", project, progress)
+}
+
+// call runs op on payload in the pool and waits for the answer.
+func (host) call(ctx context.Context, op string, payload []byte, progress func(float64)) ([]byte, error) {
 	pool := js.Global().Get("porelightWorkers")
 	if pool.Type() != js.TypeObject {
 		return nil, ui.ErrNoWorker
@@ -233,13 +252,15 @@ func (host) Solve(ctx context.Context, project []byte, progress func(float64)) (
 	defer onProgress.Release()
 	defer onDone.Release()
 	var cancel js.Value
-	if err := catch(func() { cancel = pool.Call("call", "solve-binary", toJS(project), onProgress, onDone) }); err != nil {
+	if err := catch(func() { cancel = pool.Call("call", op, toJS(payload), onProgress, onDone) }); err != nil {
 		return nil, fmt.Errorf("%w: %v", ui.ErrNoWorker, err)
 	}
 	for {
 		select {
 		case f := <-fractions:
-			progress(f)
+			if progress != nil {
+				progress(f)
+			}
 		case a := <-done:
 			if a.noWorker != "" {
 				return nil, fmt.Errorf("%w: %s", ui.ErrNoWorker, a.noWorker)

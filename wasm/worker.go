@@ -14,6 +14,7 @@ import (
 	"time"
 
 	"porelight/solver"
+	"porelight/solver/uncertain"
 )
 
 // progressEvery is the least time between two progress messages (a
@@ -29,7 +30,12 @@ var progressEvery = 50 * time.Millisecond
 //	               (a Uint8Array of solver.Project.MarshalBinary): both
 //	               ends skip JSON, which costs about as much as a small
 //	               solve in wasm
+//	op "vary-solve" → "solve-binary" for the page's comparison of
+//	               options: the pool lets these use one worker per core
 //	op "validate"  → the problems JSON, as porelight.validate returns it
+//	op "vary-batch" → the JSON of an uncertain.Answer for the JSON of an
+//	               uncertain.Batch (realisations of a Monte Carlo, or
+//	               its sensitivity), or the problems JSON
 //	op "fault-oom", "fault-hang", "fault-panic" → run out of memory,
 //	               loop for ever, panic outside any recover: the browser
 //	               tests' way to check that the page survives its workers
@@ -66,7 +72,7 @@ func serveWorker(a *api) {
 // call answers one goCall.
 func (a *api) call(op string, project []byte, progress js.Value) []byte {
 	switch op {
-	case "solve", "solve-binary":
+	case "solve", "solve-binary", "vary-solve":
 		var report func(float64)
 		if progress.Type() == js.TypeFunction {
 			last := time.Now()
@@ -77,12 +83,14 @@ func (a *api) call(op string, project []byte, progress js.Value) []byte {
 				}
 			}
 		}
-		if op == "solve-binary" {
+		if op != "solve" {
 			return a.solveTo(project, report, marshalBinary)
 		}
 		return a.solveJSON(project, report)
 	case "validate":
 		return []byte(a.Validate(string(project)))
+	case "vary-batch":
+		return varyBatch(project, throttle(progress))
 	case "fault-oom":
 		exhaustMemory()
 	case "fault-hang":
@@ -94,6 +102,41 @@ func (a *api) call(op string, project []byte, progress js.Value) []byte {
 		panic("porelight: the fault-panic test hook")
 	}
 	return []byte(problemsJSON(solver.Problems{{Path: "", Message: fmt.Sprintf("unknown worker call %q", op)}}))
+}
+
+// throttle turns a JavaScript progress callback (or undefined) into a
+// Go one that calls it at most every progressEvery.
+func throttle(progress js.Value) func(float64) {
+	if progress.Type() != js.TypeFunction {
+		return nil
+	}
+	last := time.Now()
+	return func(f float64) {
+		if now := time.Now(); now.Sub(last) >= progressEvery {
+			last = now
+			_ = catch(func() { progress.Invoke(f) })
+		}
+	}
+}
+
+// varyBatch runs an uncertain.Batch; a panic in it comes back as a
+// problem, as a solve's does.
+func varyBatch(data []byte, progress func(float64)) (out []byte) {
+	defer func() {
+		if r := recover(); r != nil {
+			out = []byte(problemsJSON(solver.Problems{{Path: "", Message: fmt.Sprintf("internal error: %v", r)}}))
+		}
+	}()
+	out, err := uncertain.RunBatch(data, func(f float64) bool {
+		if progress != nil {
+			progress(f)
+		}
+		return true
+	})
+	if err != nil {
+		return []byte(problemsJSON(solver.AsProblems(err)))
+	}
+	return out
 }
 
 // marshalBinary encodes a *solver.Result in the binary form.

@@ -123,6 +123,10 @@
 		var pool = this;
 		var cores = navigator.hardwareConcurrency || 2;
 		pool.size = Math.max(1, Math.min(4, cores - 1));
+		// Batches (the Monte Carlo's realisations, op "vary-batch") may
+		// use one worker per core: the page's own program only gathers
+		// their answers meanwhile.
+		pool.wideSize = Math.max(1, Math.min(8, cores));
 		pool.timeout = 300000; // ms; tests lower it
 		pool.recycleBytes = 256 * 1024 * 1024; // a worker whose memory grew past this is replaced
 		pool.fault = ""; // tests: "oom", "hang" or "panic" makes the next call's worker fail so
@@ -164,7 +168,7 @@
 		}
 
 		function spawn() {
-			var slot = {w: null, ready: false, job: null, fails: 0, startedAt: 0, failedAt: 0};
+			var slot = {w: null, ready: false, job: null, fails: 0, startedAt: 0, failedAt: 0, memory: 0};
 			slots.push(slot);
 			start(slot);
 		}
@@ -266,6 +270,7 @@
 					break;
 				}
 				slot.job = null;
+				slot.memory = m.memory || 0;
 				if (m.ok) {
 					answer(job, m.result, "");
 				} else {
@@ -285,6 +290,12 @@
 			}
 		}
 
+		function busyWide() {
+			return slots.filter(function (s) {
+				return s.job && s.job.wide;
+			}).length;
+		}
+
 		function dispatch() {
 			while (queue.length > 0 && !pool.disabled) {
 				var slot = null;
@@ -298,12 +309,19 @@
 					var starting = slots.some(function (s) {
 						return !s.ready;
 					});
-					if (!starting && slots.length < pool.size) {
+					var limit = queue.some(function (j) {
+						return j.wide;
+					}) ? Math.max(pool.size, pool.wideSize) : pool.size;
+					if (!starting && slots.length < limit) {
 						spawn();
 					}
 					return;
 				}
 				var job = queue.shift();
+				if (job.wide && busyWide() >= pool.wideSize) {
+					queue.unshift(job); // pool.wideSize caps the workers a batch takes
+					return;
+				}
 				slot.job = job;
 				job.slot = slot;
 				job.timer = setTimeout(function (s, j) {
@@ -316,8 +334,8 @@
 			}
 		}
 
-		// call runs op ("solve", "solve-binary" or "validate"; see
-		// wasm/worker.go) on payload, a JSON string (or, for
+		// call runs op ("solve", "solve-binary", "validate", "vary-batch" or
+		// "vary-solve"; see wasm/worker.go) on payload, a JSON string (or, for
 		// "solve-binary", a Uint8Array of a binary project),
 		// in a worker. onDone(bytes, noWorker) is called once: bytes is a
 		// Uint8Array of the answer (JSON, or a binary result for "solve-binary"), or noWorker says why no worker
@@ -328,7 +346,7 @@
 			pool.calls++;
 			var job = {
 				id: nextID++, op: op, payload: payload instanceof Uint8Array ? payload : String(payload), onProgress: onProgress, onDone: onDone,
-				timeout: pool.timeout, settled: false, timer: 0, slot: null
+				timeout: pool.timeout, settled: false, timer: 0, slot: null, wide: op.indexOf("vary-") === 0
 			};
 			if (pool.fault) {
 				job.op = "fault-" + pool.fault;
@@ -338,7 +356,18 @@
 				answer(job, null, pool.disabled);
 				return function () {};
 			}
-			queue.push(job);
+			// A solve goes before the batches waiting: an edit is answered
+			// while a Monte Carlo runs.
+			var at = queue.length;
+			if (!job.wide) {
+				at = queue.findIndex(function (j) {
+					return j.wide;
+				});
+				if (at < 0) {
+					at = queue.length;
+				}
+			}
+			queue.splice(at, 0, job);
 			dispatch();
 			return function cancel() {
 				if (job.settled) {
@@ -362,7 +391,8 @@
 			return {
 				workers: slots.length, ready: slots.filter(function (s) { return s.ready; }).length,
 				busy: slots.filter(function (s) { return !!s.job; }).length, queued: queue.length,
-				calls: pool.calls, restarts: pool.restarts, lastRestartMs: pool.lastRestartMs, disabled: pool.disabled
+				calls: pool.calls, restarts: pool.restarts, lastRestartMs: pool.lastRestartMs, disabled: pool.disabled,
+				memory: slots.map(function (s) { return s.memory; })
 			};
 		};
 

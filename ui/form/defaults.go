@@ -30,12 +30,16 @@ var numberDefaults = map[string]float64{
 	"drains.smearRatio":    solver.DefaultSmearRatio,
 	"drains.smearK":        solver.DefaultSmearK,
 	"drains.design.degree": solver.DefaultDesignDegree,
+	"uncertainty.runs":     solver.DefaultRuns,
 }
 
 // Placeholder is the text an empty input at path shows: the default its
 // empty value means, or "hydrostatic" for a boundary head left out. ok is
 // false for an input with no placeholder.
 func Placeholder(path string) (text string, ok bool) {
+	if strings.HasPrefix(path, "variants[") && !IsText(path) {
+		return "as given", true // an option's change left empty keeps the project's value
+	}
 	if h, ok := defaultHint(path); ok {
 		return h, true
 	}
@@ -71,6 +75,12 @@ func defaultHint(path string) (string, bool) {
 		return "0", true
 	case "drains.depth":
 		return "base", true
+	case "uncertainty.date":
+		return "end of loading", true // solver.ResolveUncertaintyDate
+	case "alignment.date":
+		return "design life", true // solver.ResolveAlignmentDate
+	case "alignment.limit":
+		return "not checked", true
 	}
 	leaf := path[strings.LastIndexByte(path, '.')+1:]
 	switch {
@@ -97,6 +107,11 @@ func defaultHint(path string) (string, bool) {
 		}
 	case leaf == "inflow":
 		return "0 (sealed)", true
+	case strings.HasPrefix(path, "uncertainty.layers["):
+		if leaf == "kMv" {
+			return "0", true
+		}
+		return "0 (fixed)", true
 	}
 	return "", false
 }
@@ -113,8 +128,14 @@ func scaleOf(path string) float64 {
 	case "drains.qw":
 		return solver.DaysPerYear * 86400 // m³/s → m³/year
 	}
+	if strings.HasPrefix(path, "variants[") && strings.HasSuffix(path, ".ch") {
+		return solver.DaysPerYear // m²/day → m²/year, as the drains table
+	}
 	if strings.HasPrefix(path, "layers[") && strings.HasSuffix(path, ".ch") {
 		return solver.DaysPerYear // m²/day → m²/year
+	}
+	if strings.HasPrefix(path, "uncertainty.layers[") && !strings.HasSuffix(path, ".kMv") {
+		return 100 // coefficient of variation: fraction → %
 	}
 	if strings.HasPrefix(path, "monitoring.plates[") && strings.HasSuffix(path, ".value") {
 		return 1000 // settlement readings: m → mm

@@ -37,6 +37,8 @@ func (f *Form) AddLayer(i int) {
 	f.renumberTip(inserted)
 	f.renumberStrength(inserted)
 	f.remapAsaokaLayers(inserted)
+	f.remapUncertainty(inserted)
+	f.remapVariantLayers(inserted)
 	f.check()
 }
 
@@ -50,6 +52,8 @@ func (f *Form) RemoveLayer(i int) {
 	f.renumberTip(Removed(i))
 	f.renumberStrength(Removed(i))
 	f.remapAsaokaLayers(Removed(i))
+	f.remapUncertainty(Removed(i))
+	f.remapVariantLayers(Removed(i))
 	f.check()
 }
 
@@ -74,6 +78,8 @@ func (f *Form) MoveLayer(i, d int) {
 	f.renumberTip(swapped)
 	f.renumberStrength(swapped)
 	f.remapAsaokaLayers(swapped)
+	f.remapUncertainty(swapped)
+	f.remapVariantLayers(swapped)
 	f.check()
 }
 
@@ -96,6 +102,7 @@ func (f *Form) RemoveLoad(i int) {
 	f.draft.Loads = slices.Delete(f.draft.Loads, i, i+1)
 	f.remap("loads", Removed(i))
 	f.renumberRemoval(Removed(i))
+	f.remapVariantLoads(Removed(i))
 	f.check()
 }
 

@@ -242,6 +242,10 @@ var pageFields = func() map[string]bool {
 	add("layers[#].", "ch", "khKv")
 	add("drains.", "pattern", "spacing", "diameter", "width", "thickness", "equivalent", "smearRatio", "smearK",
 		"qw", "discharge", "top", "depth", "design.degree", "design.time")
+	add("variants[#].", "name", "drainSpacing", "loads[#].start", "loads[#].ramp", "loads[#].q", "loads[#].fillThickness",
+		"layers[#].k", "layers[#].mv", "layers[#].ch", "layers[#].thickness")
+	add("alignment.", "date", "limit", "sections[#].name", "sections[#].chainage")
+	add("uncertainty.", "runs", "seed", "date", "layers[#].k", "layers[#].mv", "layers[#].ch", "layers[#].kMv")
 	add("monitoring.", "start")
 	add("decisions.", "handover", "surcharge.removeBy", "strength.fs")
 	add("decisions.strength.laws[#].", "s", "m", "ratio", "gain")

@@ -82,6 +82,12 @@ func TestPlaceholdersAreSolverDefaults(t *testing.T) {
 		"drains.top":           {dc.Top, 1, ""},
 		"drains.design.degree": {solver.ResolveDesignDegree(p.Drains.Design), 0.01, ""}, // % of a fraction
 		"layers[0].khKv":       {kh / p.Layers[0].K, 1, ""},
+		// Monte Carlo: a COV left empty is no spread (Draw's factor is 1).
+		"uncertainty.runs":          {float64(solver.ResolveRuns(p.Uncertainty)), 1, ""},
+		"uncertainty.layers[0].k":   {0, 0.01, " (fixed)"},
+		"uncertainty.layers[0].mv":  {0, 0.01, " (fixed)"},
+		"uncertainty.layers[0].ch":  {0, 0.01, " (fixed)"},
+		"uncertainty.layers[0].kMv": {0, 1, ""},
 	}
 	// Placeholders that are words; what the solver does instead is
 	// checked where it can be.
@@ -113,6 +119,17 @@ func TestPlaceholdersAreSolverDefaults(t *testing.T) {
 			cv = p.Layers[0].K * 86400 / (p.Layers[0].Mv * cv)
 			if math.Abs(ch-kh/p.Layers[0].K*cv) > 1e-12*ch {
 				t.Errorf("%q: the solver's ch is %g m²/day, kh/kv × cv = %g", text, ch, kh/p.Layers[0].K*cv)
+			}
+		},
+		"alignment.date": func(t *testing.T, text string) {
+			if text != "design life" || solver.ResolveAlignmentDate(p) != solver.ResolveDesignLife(p) {
+				t.Errorf("%q: the profile's day is %g, the design life %g", text, solver.ResolveAlignmentDate(p), solver.ResolveDesignLife(p))
+			}
+		},
+		"alignment.limit": nil, // zero: compare.Profile flags nothing (solver/compare tests)
+		"uncertainty.date": func(t *testing.T, text string) {
+			if text != "end of loading" || solver.ResolveUncertaintyDate(p) != solver.LastLoadChange(p) {
+				t.Errorf("%q: the date is day %g, the last load change day %g", text, solver.ResolveUncertaintyDate(p), solver.LastLoadChange(p))
 			}
 		},
 		"layers[0].gamma": nil, "layers[0].mv": nil, "layers[0].calpha": nil,

@@ -180,6 +180,9 @@ func setNumber(p *solver.Project, path string, x float64) error {
 // clearNumber makes the value at path absent: nil for a pointer, zero
 // otherwise.
 func clearNumber(p *solver.Project, path string) error {
+	if strings.HasPrefix(path, "variants[") {
+		return clearVariantLeaf(p, path)
+	}
 	if isPointerLeaf(path) {
 		end, _, _ := strings.Cut(path, ".")
 		Boundary(p, end).Head = nil

@@ -25,7 +25,14 @@ type browserFigures struct {
 	KeystrokeMaxMs                  *float64 `json:"keystrokeMaxMs"` // and the slowest
 	Paste500Ms                      *float64 `json:"paste500Ms"`     // 500 readings pasted (one input event) and used, to the frames painted
 	Insert500Ms                     *float64 `json:"insert500Ms"`    // the same text inserted as one input event per line and line break
-	Machine                         string   `json:"machine"`
+	// The Monte Carlo of the demo in the page (static/browserbench_test.go).
+	RangeRuns        int       `json:"rangeRuns"`
+	RangeWorkers     int       `json:"rangeWorkers"`
+	RangeMs          float64   `json:"rangeMs"`
+	RangeOneWorkerMs float64   `json:"rangeOneWorkerMs"`
+	RangeMaxGapMs    float64   `json:"rangeMaxGapMs"`
+	RangeMemoryBytes []float64 `json:"rangeMemoryBytes"`
+	Machine          string    `json:"machine"`
 }
 
 // Goals of section 5.
@@ -36,6 +43,8 @@ const (
 	pasteGoalMs      = 1000
 	heapGrowthGoal   = 5_000_000 // bytes (10⁶ to the MB), over heapSolves solves
 	heapSolves       = 1000
+	rangeGoalMs      = 10000 // 1,000 realisations of the demo in the page
+	rangeSpeedupGoal = 1.7   // one worker per core (two here) against one
 )
 
 // readBrowser decodes the browser benchmark's file and requires its five

@@ -35,6 +35,10 @@
 //  7. What loads with geometry add: the embankment example with the stress
 //     spread and with its fill submerging, against the same lifts over the
 //     whole top (report only).
+//  8. The Monte Carlo in the page, read from -browser: 1,000 realisations
+//     of the demo (goal ≤ 10 s), one worker per core against one (goal
+//     ≥ 1.7×), the page's and workers' memory over repeated runs (flat),
+//     and the longest pause of the page's thread meanwhile (report only).
 //
 // # Timing
 //

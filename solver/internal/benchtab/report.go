@@ -165,6 +165,19 @@ func (r *report) summary() *table {
 		if b.JSHeapBeforeBytes != nil && b.JSHeapAfterBytes != nil && *b.JSHeapBeforeBytes > 0 {
 			heapRow("JavaScript heap", *b.JSHeapBeforeBytes, *b.JSHeapAfterBytes)
 		}
+		if b.RangeRuns > 0 && b.RangeMs > 0 {
+			t.add("8 range", fmt.Sprintf("%s realisations of the demo in the page, %d workers (one per core), click to last bands", count(int64(b.RangeRuns)), b.RangeWorkers),
+				fmt.Sprintf("%.1f s", b.RangeMs/1000), "", "", "≤ 10 s", holds(b.RangeMs <= rangeGoalMs))
+			t.add("8 range", fmt.Sprintf("the same, %d workers against one", b.RangeWorkers),
+				fmt.Sprintf("%.1f s", b.RangeMs/1000), fmt.Sprintf("one worker %.1f s", b.RangeOneWorkerMs/1000),
+				fmt.Sprintf("%.2f×", b.RangeOneWorkerMs/b.RangeMs), "≥ 1.7×", holds(b.RangeOneWorkerMs/b.RangeMs >= rangeSpeedupGoal))
+			if m := b.RangeMemoryBytes; len(m) > 1 {
+				t.add("8 range", fmt.Sprintf("page and workers' wasm memory over %d repeated runs", len(m)),
+					fmt.Sprintf("%s B growth", count(int64(m[len(m)-1]-m[0]))), fmt.Sprintf("%s B after the first", count(int64(m[0]))), "",
+					"flat (growth < 5 MB)", holds(m[len(m)-1]-m[0] < heapGrowthGoal))
+			}
+			t.add("8 range", "largest gap of a 10 ms timer on the page's thread during the runs", fmt.Sprintf("%.0f ms", b.RangeMaxGapMs), "", "", "report only", "—")
+		}
 	}
 	if l := r.loads; l != nil {
 		t.add("7 loads", "embankment example, no fill submerged: solve with the stress spread",
