@@ -93,16 +93,20 @@ func TestE2ELayout(t *testing.T) {
 					t.Error("the results are not beside the inputs")
 				}
 				for _, id := range []string{"sec-layers", "sec-loads", "sec-outputs"} {
+					// The summary's t50 (near its top, changed by every
+					// one of these editors) stands for the results: the
+					// summary grows below it with the analyses a project
+					// asks for (residual settlement, heave and uplift).
 					// As the wheel does: the inputs column scrolls to the
 					// section, the window stays where the columns fill it.
 					js := fmt.Sprintf(`(() => { scrollTo(0, document.querySelector(".pl-main").getBoundingClientRect().top + scrollY);
 						const col = document.querySelector(".pl-inputs");
 						col.scrollTop += document.getElementById(%q).getBoundingClientRect().top - col.getBoundingClientRect().top;
-						const s = document.getElementById("sum-flux").getBoundingClientRect();
+						const s = document.getElementById("sum-t50").getBoundingClientRect();
 						const ok = s.top >= 0 && s.bottom <= innerHeight; scrollTo(0, 0); col.scrollTop = 0; return ok; })()`, id)
 					if !eval[bool](t, ctx, js) {
-						t.Errorf("with #%s in view the summary's flux is out of view: %s", id, eval[string](t, ctx, fmt.Sprintf(`(() => { document.getElementById(%q).scrollIntoView({block: "start"});
-						const s = document.getElementById("sum-flux").getBoundingClientRect(), r = document.querySelector(".pl-results").getBoundingClientRect();
+						t.Errorf("with #%s in view the summary's t50 is out of view: %s", id, eval[string](t, ctx, fmt.Sprintf(`(() => { document.getElementById(%q).scrollIntoView({block: "start"});
+						const s = document.getElementById("sum-t50").getBoundingClientRect(), r = document.querySelector(".pl-results").getBoundingClientRect();
 						const o = JSON.stringify({s: [s.top, s.bottom], r: [r.top, r.bottom], st: getComputedStyle(document.querySelector(".pl-results")).position, h: innerHeight}); scrollTo(0, 0); return o; })()`, id)))
 					}
 				}
