@@ -8,7 +8,10 @@ import (
 const (
 	// CheckHeave is ic/i in a layer with upward flow: the critical
 	// gradient γ'/γw over the upward hydraulic gradient across the layer
-	// (Terzaghi 1943; common practice).
+	// (Terzaghi 1943; common practice). Once the stages have added
+	// effective stress Δσ'top at the layer's top (a fill, as a weighted
+	// filter: Terzaghi & Peck 1967) it is (γ'd + Δσ'top)/(γw i d), d the
+	// layer's thickness.
 	CheckHeave = "heave"
 	// CheckPrism is the whole overburden at the base of a low-permeability
 	// layer against the water pressure there, σ/u: the prism of soil (and
@@ -17,7 +20,9 @@ const (
 	// CheckUplift is the layer's own weight against the rise of water
 	// pressure across it, (σ_base − σ_top)/(u_base − u_top): the layer
 	// lifted alone, as when the soil above it is dug away or carries none
-	// of it.
+	// of it; the effective stress the stages have added at its top
+	// (Δσ'top, a fill's weight once the water under it has drained) is
+	// added to the weight.
 	CheckUplift = "uplift"
 )
 
@@ -187,17 +192,29 @@ func (ch *checks) factor(s checkSite, dsigma, du []float64) float64 {
 	}
 	uT, uB := at(st.Pore, du, s.top), at(st.Pore, du, s.base)
 	sT, sB := at(st.Total, dsigma, s.top), at(st.Total, dsigma, s.base)
+	// The effective stress the stages add at the layer's top holds the
+	// layer down like the weighted filter of common practice (Terzaghi &
+	// Peck 1967): a fill on a clay whose excess drains upward adds more
+	// weight than the water it presses out can lift. Only an addition
+	// counts; with none (the steady state, a layer laid bare by a dig)
+	// the factors are the bare ic/i and weight/water ones.
+	filter := 0.0
+	if dsigma != nil {
+		filter = math.Max(0, dsigma[s.top]-du[s.top])
+	}
 	var f float64
 	switch s.kind {
 	case CheckPrism:
 		f = ratio(sB, uB)
 	case CheckUplift:
-		f = ratio(sB-sT, uB-uT)
+		f = ratio(sB-sT+filter, uB-uT)
 	default:
 		gw := ch.c.gw
 		// Head h = u/γw − z; upward flow when the base's head is higher.
-		i := ((uB/gw - s.zB) - (uT/gw - s.zTop)) / (s.zB - s.zTop)
-		f = ratio(s.ic, i)
+		d := s.zB - s.zTop
+		i := ((uB/gw - s.zB) - (uT/gw - s.zTop)) / d
+		// ic/i, or with a filter (γ'd + Δσ'top)/(γw i d).
+		f = ratio(s.ic+filter/(gw*d), i)
 	}
 	return f
 }

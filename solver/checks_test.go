@@ -179,3 +179,53 @@ func TestUpliftDigOverTime(t *testing.T) {
 		}
 	}
 }
+
+// TestChecksUnderFill: a fill on the artesian clay cap (40 kPa on day
+// 10) cannot lift or heave it, though the water it presses out flows up
+// through the clay's top. The weight the fill adds at the clay's top
+// counts as the weighted filter of common practice (Terzaghi & Peck
+// 1967): by hand, with h the head at the clay's base from resistances in
+// series (as TestUpliftArtesianByHand), the long-term heave factor is
+// (γ'·6 + 40)/(γw h) and the layer's uplift factor (108 + 40)/(γw (h + 6));
+// the least of each is then the initial one, ic/i = (γ'/γw)/(h/6) and
+// 108/(γw (h + 6)), as no state after the fill is worse. Tolerance 1e-6
+// relative (nodally exact steady heads; the least taken over steps).
+func TestChecksUnderFill(t *testing.T) {
+	t.Parallel()
+	p := artesian()
+	p.Loads = []Load{{Start: 10, Q: 40}}
+	r, err := Solve(p, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	gw := DefaultGammaW
+	h := 3 * (6 / 1e-9) / (6/1e-9 + 4/1e-3)
+	uB := gw * (h + 6)
+	var heave, uplift *Check
+	for i := range r.Checks {
+		switch c := &r.Checks[i]; {
+		case c.Kind == CheckHeave && c.Layer == 0:
+			heave = c
+		case c.Kind == CheckUplift && c.Layer == 0:
+			uplift = c
+		}
+	}
+	if heave == nil || uplift == nil {
+		t.Fatalf("no heave or uplift check of the clay: %+v", r.Checks)
+	}
+	for _, c := range []struct {
+		what      string
+		got, want float64
+	}{
+		{"heave factor before the fill (ic/i)", heave.Initial, ((18 - gw) / gw) / (h / 6)},
+		{"heave factor in the long term", heave.LongTerm, ((18-gw)*6 + 40) / (gw * h)},
+		{"least heave factor", heave.Least, ((18 - gw) / gw) / (h / 6)},
+		{"uplift factor before the fill", uplift.Initial, 108 / uB},
+		{"uplift factor in the long term", uplift.LongTerm, (108 + 40) / uB},
+		{"least uplift factor", uplift.Least, 108 / uB},
+	} {
+		if math.Abs(c.got-c.want) > 1e-6*c.want {
+			t.Errorf("%s = %.6g, by hand %.6g (±1e-6 relative)", c.what, c.got, c.want)
+		}
+	}
+}

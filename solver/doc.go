@@ -433,7 +433,12 @@
 // Terzaghi's prism above an aquifer) and the layer's own weight against
 // the rise of water pressure across it (CheckUplift). Pore pressure is the
 // steady pressure plus the excess, total stress the steady stress plus the
-// stages' change, so digging, pumping, drawdown and loads all count. Each
+// stages' change, so digging, pumping, drawdown and loads all count. The
+// effective stress the stages add at a layer's top (a fill, once the water
+// under it drains) holds the layer down as a weighted filter does
+// (Terzaghi & Peck 1967): the heave factor is then (γ'd + Δσ'top)/(γw i d)
+// and the layer-alone factor counts it with the layer's weight, so the
+// water a fill presses up out of a clay does not read as heave. Each
 // is evaluated in the initial steady state, at every time step, for every
 // stage from its completion until the next stage starts (Check.Stages),
 // and in the long-term state; the instant of an undrained jump itself is

@@ -8894,7 +8894,7 @@ func (c *Tables) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 								vgparent.AppendChild(vgn)
 								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-note"}}}
 								vgparent.AppendChild(vgn)
-								vgn.SetInnerHTML(vugu.HTML("Heave: ic/i across the layer. Whole overburden: the total stress at the layer\x26#39;s base against the water pressure there (Terzaghi\x26#39;s prism). Layer alone: the layer\x26#39;s own weight against the rise of water pressure across it. “After stage” is the least from the stage\x26#39;s completion until the next stage starts; depths are from the original top; “≥ 100”: nothing pushes. Local codes set the factors required."))
+								vgn.SetInnerHTML(vugu.HTML("Heave: ic/i across the layer. Whole overburden: the total stress at the layer\x26#39;s base against the water pressure there (Terzaghi\x26#39;s prism). Layer alone: the layer\x26#39;s own weight against the rise of water pressure across it. In the heave and layer-alone factors, effective stress a fill or load adds on the layer\x26#39;s top counts as a weighted filter: (γ′d + Δσ′top)/(γw i d). “After stage” is the least from the stage\x26#39;s completion until the next stage starts; depths are from the original top; “≥ 100”: nothing pushes. Local codes set the factors required."))
 								vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 								vgparent.AppendChild(vgn)
 							}
