@@ -450,11 +450,15 @@ func TestPageSaveAndShare(t *testing.T) {
 		t.Errorf("the link carries %d layers", len(q.Layers))
 	}
 
-	// With a wrong input, nothing is saved and the page says why.
+	// With a wrong input, Save writes a draft that says so (keep_test.go
+	// reopens one); the link is refused, as it carries only projects.
 	p.typeInto("waterTable", "deep")
 	p.fire("save-project", "click", nil)
-	if len(p.host.downloads) != 1 {
-		t.Error("saved a project with a wrong input")
+	if len(p.host.downloads) != 2 {
+		t.Fatalf("%d downloads after saving a draft", len(p.host.downloads))
+	}
+	if d := p.host.downloads[1]; !strings.HasSuffix(d.name, "-draft.json") || !strings.Contains(string(d.data), `"porelight-draft/1"`) {
+		t.Errorf("draft saved as %q: %.80q", d.name, d.data)
 	}
 }
 
