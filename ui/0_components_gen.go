@@ -3251,6 +3251,54 @@ func (c *Keep) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 		_ = vgparent
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
+		if c.R.box != nil {
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "save-box"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-savebox pl-noprint"}, vugu.VGAttribute{Namespace: "", Key: "role", Val: "region"}, vugu.VGAttribute{Namespace: "", Key: "aria-label", Val: "The project to copy"}}}
+			vgparent.AppendChild(vgn)
+			{
+				vgparent := vgn
+				_ = vgparent
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "save-why"}}}
+				vgparent.AppendChild(vgn)
+				vgn.SetInnerHTML(c.R.box.Why)
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "textarea", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "save-json"}, vugu.VGAttribute{Namespace: "", Key: "readonly", Val: ""}, vugu.VGAttribute{Namespace: "", Key: "rows", Val: "8"}, vugu.VGAttribute{Namespace: "", Key: "aria-label", Val: "The project file, to copy"}}}
+				vgparent.AppendChild(vgn)
+				vgn.SetInnerHTML(vugu.HTML(""))
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-row"}}}
+				vgparent.AppendChild(vgn)
+				{
+					vgparent := vgn
+					_ = vgparent
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "save-copy"}}}
+					vgparent.AppendChild(vgn)
+					vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+						EventType: "click",
+						Func:      func(event vugu.DOMEvent) { c.R.copyBox() },
+						// TODO: implement capture, etc. mostly need to decide syntax
+					})
+					{
+						vgparent := vgn
+						_ = vgparent
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Copy the project to the clipboard"}
+						vgparent.AppendChild(vgn)
+					}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "save-close"}}}
+					vgparent.AppendChild(vgn)
+					vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+						EventType: "click",
+						Func:      func(event vugu.DOMEvent) { c.R.closeBox() },
+						// TODO: implement capture, etc. mostly need to decide syntax
+					})
+					{
+						vgparent := vgn
+						_ = vgparent
+						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Close"}
+						vgparent.AppendChild(vgn)
+					}
+				}
+			}
+		}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
 		if c.R.view {
 			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "view-bar"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-viewbar pl-noprint"}, vugu.VGAttribute{Namespace: "", Key: "role", Val: "region"}, vugu.VGAttribute{Namespace: "", Key: "aria-label", Val: "Read-only view"}}}
 			vgparent.AppendChild(vgn)
@@ -3322,60 +3370,6 @@ func (c *Keep) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 					_ = vgparent
 					vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Keep editing"}
 					vgparent.AppendChild(vgn)
-				}
-			}
-		}
-		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
-		vgparent.AppendChild(vgn)
-		if c.R.box != nil {
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "save-box"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-savebox pl-noprint"}, vugu.VGAttribute{Namespace: "", Key: "role", Val: "region"}, vugu.VGAttribute{Namespace: "", Key: "aria-label", Val: "The project to copy"}}}
-			vgparent.AppendChild(vgn)
-			{
-				vgparent := vgn
-				_ = vgparent
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "save-why"}}}
-				vgparent.AppendChild(vgn)
-				vgn.SetInnerHTML(c.R.box.Why)
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "textarea", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "save-json"}, vugu.VGAttribute{Namespace: "", Key: "readonly", Val: ""}, vugu.VGAttribute{Namespace: "", Key: "rows", Val: "8"}, vugu.VGAttribute{Namespace: "", Key: "aria-label", Val: "The project file, to copy"}}}
-				vgparent.AppendChild(vgn)
-				{
-					b, err := vjson.Marshal(c.R.box.Text)
-					if err != nil {
-						panic(err)
-					}
-					vgn.Prop = append(vgn.Prop, vugu.VGProperty{Key: "value", JSONVal: vjson.RawMessage(b)})
-				}
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "p", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-row"}}}
-				vgparent.AppendChild(vgn)
-				{
-					vgparent := vgn
-					_ = vgparent
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "save-copy"}}}
-					vgparent.AppendChild(vgn)
-					vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
-						EventType: "click",
-						Func:      func(event vugu.DOMEvent) { c.R.copyBox() },
-						// TODO: implement capture, etc. mostly need to decide syntax
-					})
-					{
-						vgparent := vgn
-						_ = vgparent
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Copy the project to the clipboard"}
-						vgparent.AppendChild(vgn)
-					}
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "save-close"}}}
-					vgparent.AppendChild(vgn)
-					vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
-						EventType: "click",
-						Func:      func(event vugu.DOMEvent) { c.R.closeBox() },
-						// TODO: implement capture, etc. mostly need to decide syntax
-					})
-					{
-						vgparent := vgn
-						_ = vgparent
-						vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "Close"}
-						vgparent.AppendChild(vgn)
-					}
 				}
 			}
 		}

@@ -29,6 +29,14 @@ type Focuser interface {
 	Focus(id string)
 }
 
+// Filler is a Host that can put text into a text box once the page has
+// rendered. The project to copy is put there this way, not bound: vugu's
+// renderer takes at most 16 KiB in one instruction, and a bound value
+// longer than that would stop the page.
+type Filler interface {
+	Fill(id, text string)
+}
+
 // replaceAsk is a replacement of the project waiting for the user's yes.
 type replaceAsk struct {
 	What string // "demo" or "new"
@@ -232,20 +240,28 @@ func (c *Root) save() {
 		framed, sandboxed = f.Frame()
 	}
 	if sandboxed {
-		c.box = &saveBox{name, string(data), "This page runs in a sandboxed frame (a wiki page, say) that blocks downloads, so Save cannot write a file here. Copy the project below into a file named " + name + ", or open the page on its own."}
+		c.showBox(name, data, "This page runs in a sandboxed frame (a wiki page, say) that blocks downloads, so Save cannot write a file here. Copy the project below into a file named "+name+", or open the page on its own.")
 		return
 	}
 	if err := c.host().Download(name, "application/json", data); err != nil {
-		c.box = &saveBox{name, string(data), "The browser refused the download (" + err.Error() + "). Copy the project below into a file named " + name + "."}
+		c.showBox(name, data, "The browser refused the download ("+err.Error()+"). Copy the project below into a file named "+name+".")
 		return
 	}
 	if framed {
-		c.box = &saveBox{name, string(data), "This page runs inside a frame, where browsers often block downloads without a word. If no file " + name + " arrived, copy the project below into one."}
+		c.showBox(name, data, "This page runs inside a frame, where browsers often block downloads without a word. If no file "+name+" arrived, copy the project below into one.")
 	}
 	c.markSaved()
 	if draft {
 		n := c.form.Count()
 		c.note("info", fmt.Sprintf("Saved a draft with %s: the file says so, and opening it brings the problems back to fix.", plural(n, "problem", "problems")))
+	}
+}
+
+// showBox shows the project to copy, and why.
+func (c *Root) showBox(name string, data []byte, why string) {
+	c.box = &saveBox{name, string(data), why}
+	if f, ok := c.host().(Filler); ok {
+		f.Fill("save-json", c.box.Text)
 	}
 }
 
