@@ -403,3 +403,35 @@ func TestLabel(t *testing.T) {
 		}
 	}
 }
+
+// TestOpenWrongKind opens the page's own exports and other files by
+// mistake: each is named for what it is, and the project stays.
+func TestOpenWrongKind(t *testing.T) {
+	p := newPage(t, Sources{})
+	for _, id := range []string{"export-results", "export-series", "export-layers-csv"} {
+		p.fire(id, "click", nil)
+	}
+	tests := []struct {
+		name string
+		data []byte
+		want string
+	}{
+		{"results.json", p.host.downloads[0].data, "this is a results file"},
+		{"series.csv", p.host.downloads[1].data, "looks like CSV"},
+		{"layers.csv", p.host.downloads[2].data, "looks like CSV"},
+		{"readings.csv", []byte("t,settlement\n10,12\n"), "looks like CSV"},
+		{"readings.txt", []byte("time settlement\n10 12\n"), "looks like text"},
+	}
+	title := p.root.form.Draft().Title
+	for _, tt := range tests {
+		p.host.file, p.host.fileName = tt.data, tt.name
+		p.fire("open-file", "change", nil)
+		n := p.root.notices[len(p.root.notices)-1].Text
+		if !strings.Contains(n, tt.want) || !strings.Contains(n, "open a") || !strings.Contains(n, "unchanged") {
+			t.Errorf("%s: notice %q, want %q", tt.name, n, tt.want)
+		}
+		if p.root.form.Draft().Title != title {
+			t.Fatalf("%s replaced the project", tt.name)
+		}
+	}
+}

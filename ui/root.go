@@ -380,7 +380,7 @@ func (c *Root) generalProblems() []string {
 		}
 		s := p.Message
 		if p.Path != "" {
-			s = p.Path + ": " + s
+			s = capital(form.Label(p.Path)) + ": " + s
 		}
 		out = append(out, s)
 	}
