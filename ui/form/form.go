@@ -45,6 +45,7 @@ func (f *Form) Reset(p *solver.Project) {
 	f.raw = map[string]string{}
 	f.bad = map[string]string{}
 	f.check()
+	f.typed, f.changes = "", 0
 }
 
 // Draft is the project as the inputs show it (it may have problems).
