@@ -21,6 +21,7 @@ import (
 
 	cdpbrowser "github.com/chromedp/cdproto/browser"
 	"github.com/chromedp/cdproto/cdp"
+	"github.com/chromedp/cdproto/emulation"
 	"github.com/chromedp/chromedp"
 )
 
@@ -184,6 +185,25 @@ func TestE2EKeep(t *testing.T) {
 		within(t, ctx, 20*time.Second, chromedp.SetUploadFiles(chromedp.ID("open-file"), []string{path}))
 		poll[bool](t, ctx, `document.getElementById("layers-2-mv")?.value === "5e-5x" && document.getElementById("problem-head")?.textContent.startsWith("2 inputs")`, 10*time.Second)
 		screenshot(t, ctx, shots, "keep-2-problems.png")
+		// The panel keeps within the page at a laptop's and a phone's width.
+		for _, w := range []int64{1024, 400} {
+			within(t, ctx, 10*time.Second, chromedp.Func(func(ctx context.Context, tg *chromedp.Target) error {
+				_, err := cdp.Call(ctx, tg, emulation.SetDeviceMetricsOverride, emulation.SetDeviceMetricsOverrideParams{Width: w, Height: 800, DeviceScaleFactor: 1})
+				return err
+			}))
+			time.Sleep(300 * time.Millisecond)
+			js := `(() => { const s = document.getElementById("keep").getBoundingClientRect();
+				let m = 0; for (const e of document.querySelectorAll("#keep *, .pl-undo *")) { m = Math.max(m, e.getBoundingClientRect().right - Math.min(s.right, innerWidth)); }
+				return Math.round(m); })()`
+			if over := eval[int](t, ctx, js); over > 1 {
+				t.Errorf("at %d px an element of the problem panel or the undo buttons sticks out %d px", w, over)
+			}
+			screenshot(t, ctx, shots, fmt.Sprintf("keep-2-problems-%d.png", w))
+		}
+		within(t, ctx, 10*time.Second, chromedp.Func(func(ctx context.Context, tg *chromedp.Target) error {
+			_, err := cdp.Call(ctx, tg, emulation.ClearDeviceMetricsOverride, cdp.Empty{})
+			return err
+		}))
 		// Tidy up for what follows: undo back to a valid project.
 		for range 10 {
 			if eval[bool](t, ctx, `!document.getElementById("problem-list")`) {

@@ -301,6 +301,10 @@ func TestSaveDraftReopens(t *testing.T) {
 	if !strings.Contains(q.text("status"), "2 inputs need attention") {
 		t.Errorf("status %q", q.text("status"))
 	}
+	// The demo's results would sit beside another project's inputs.
+	if q.root.Result() != nil || strings.Contains(q.text("status"), "last valid") {
+		t.Error("the results of the project the draft replaced are still shown")
+	}
 }
 
 // TestProblemList checks the list of problems: one line per cause, the

@@ -204,6 +204,11 @@ func (c *Root) openState(st form.State) {
 	c.form.Restore(st)
 	c.shareURL = ""
 	c.ask = nil
+	if !c.form.Valid() {
+		// The results shown belong to another project: none, rather than
+		// figures that do not match the inputs beside them.
+		c.result, c.resultFor, c.solveErr = nil, nil, ""
+	}
 	c.track()
 	c.afterChange()
 }
