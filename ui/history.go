@@ -22,8 +22,9 @@ const HistorySteps = 100
 
 // historyBytes bounds the stored history; the oldest steps are dropped
 // from storage (not from the page) beyond it, as browsers give a page
-// about 5 MB of storage.
-const historyBytes = 2 << 20
+// about 5 MB of storage (counted in UTF-16 by some), and the draft
+// must always fit beside it.
+const historyBytes = 1 << 20
 
 // typingPause ends a run of keystrokes in one input: typing again after
 // it starts a new step.

@@ -86,7 +86,14 @@ func (c *Root) store(history bool) {
 	if c.view || c.hist.cur == "" {
 		return
 	}
-	_ = c.host().Store(AutosaveKey, c.hist.cur) // said once at start when storage is off
+	if err := c.host().Store(AutosaveKey, c.hist.cur); err != nil {
+		// Storage full: the draft matters more than the steps before it.
+		_ = c.host().Store(HistoryKey, "")
+		if c.host().Store(AutosaveKey, c.hist.cur) != nil {
+			return // said once at start when storage is off
+		}
+		history = true
+	}
 	if history {
 		_ = c.host().Store(HistoryKey, c.hist.encode())
 	}

@@ -439,3 +439,41 @@ func TestOpenWrongKind(t *testing.T) {
 		}
 	}
 }
+
+// fullHost is a Host whose storage holds at most limit bytes in all.
+type fullHost struct {
+	*fakeHost
+	limit int
+}
+
+func (h *fullHost) Store(k, v string) error {
+	n := len(v)
+	for key, old := range h.store {
+		if key != k {
+			n += len(old)
+		}
+	}
+	if n > h.limit {
+		return fmt.Errorf("quota exceeded")
+	}
+	h.store[k] = v
+	return nil
+}
+
+// TestStorageFull checks that a full storage gives up the stored history
+// before the draft.
+func TestStorageFull(t *testing.T) {
+	p := newPage(t, Sources{})
+	draft := len(p.host.store[AutosaveKey])
+	h := &fullHost{fakeHost: p.host, limit: 3*draft + draft/2}
+	p.root.Host = h
+	// Notes that grow with each step: the history fills the storage, then
+	// a longer draft no longer fits beside it.
+	for i := range 8 {
+		p.typeInto("layers-0-name", fmt.Sprintf("name %d", i))
+		p.typeInto("notes", strings.Repeat("n", 400*(i+1)))
+		if got := h.store[AutosaveKey]; !strings.Contains(got, fmt.Sprintf(`"name %d"`, i)) || !strings.Contains(got, strings.Repeat("n", 400*(i+1))) {
+			t.Fatalf("step %d: the draft was not stored (%d bytes kept)", i, len(got))
+		}
+	}
+}
