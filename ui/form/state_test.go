@@ -1,8 +1,11 @@
 package form
 
 import (
+	"errors"
 	"strings"
 	"testing"
+
+	"porelight/solver"
 )
 
 // TestStateRoundTrip checks that what the inputs show survives
@@ -98,5 +101,18 @@ func TestReadDraftRefuses(t *testing.T) {
 	st, ps := ReadDraft([]byte(`{"format": "porelight-draft/1", "typed": {"layers[0].k": "1", "gammaZ": "2"}, "project": {"format": "porelight/1"}}`))
 	if ps != nil || len(st.Typed) != 1 || st.Typed["layers[0].k"] != "1" {
 		t.Errorf("typed %v, %v", st.Typed, ps)
+	}
+}
+
+// TestSolverNamesDrafts checks that the solver's decoder names a draft
+// for what it is, by the format the form writes.
+func TestSolverNamesDrafts(t *testing.T) {
+	data, err := New(column()).EncodeDraft()
+	if err != nil {
+		t.Fatal(err)
+	}
+	_, err = solver.Decode(data)
+	if !errors.Is(err, solver.ErrNotProject) || !strings.Contains(err.Error(), "draft saved with problems") {
+		t.Errorf("solver.Decode of a draft: %v", err)
 	}
 }
