@@ -278,6 +278,26 @@ func TestE2EKeep(t *testing.T) {
 		screenshot(t, ctx, shots, "keep-3-frame.png")
 	})
 
+	t.Run("shelf of recent projects", func(t *testing.T) {
+		open(t, ctx, pageURL)
+		typeInto(t, ctx, "title", "Shelf test, section A")
+		typeInto(t, ctx, "layers-0-thickness", "2.25")
+		poll[bool](t, ctx, draftJS+`.title === "Shelf test, section A"`, 10*time.Second)
+		click(t, ctx, "new-project")
+		poll[bool](t, ctx, `!!document.getElementById("confirm-replace")`, 10*time.Second)
+		click(t, ctx, "confirm-replace")
+		poll[bool](t, ctx, draftJS+`.layers.length === 1`, 10*time.Second)
+		// Listed after a reload, from IndexedDB; opening it brings it back.
+		open(t, ctx, pageURL)
+		poll[bool](t, ctx, `!!document.getElementById("shelf-toggle")`, 10*time.Second)
+		click(t, ctx, "shelf-toggle")
+		within(t, ctx, 10*time.Second, chromedp.Click(chromedp.CSS(`#shelf-list button[data-key="shelf-test-section-a"]`)))
+		poll[bool](t, ctx, `document.getElementById("layers-0-thickness").value === "2.25"`, 10*time.Second)
+		screenshot(t, ctx, shots, "keep-5-shelf.png")
+		click(t, ctx, "undo")
+		poll[bool](t, ctx, draftJS+`.layers.length === 1`, 10*time.Second)
+	})
+
 	t.Run("view mode", func(t *testing.T) {
 		open(t, ctx, pageURL+"?view")
 		// Nothing in the link: the full page.

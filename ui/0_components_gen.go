@@ -3422,6 +3422,57 @@ func (c *Keep) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 		}
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 		vgparent.AppendChild(vgn)
+		if !c.R.view && len(c.R.shelfItems()) > 0 {
+			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "shelf"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-shelf pl-noprint"}}}
+			vgparent.AppendChild(vgn)
+			{
+				vgparent := vgn
+				_ = vgparent
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "shelf-toggle"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-link"}, vugu.VGAttribute{Namespace: "", Key: "aria-controls", Val: "shelf-list"}}}
+				vgparent.AppendChild(vgn)
+				vgn.AddAttrInterface("aria-expanded", fmt.Sprint(c.R.shelfOpen))
+				vgn.SetInnerHTML(c.shelfHead())
+				vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+					EventType: "click",
+					Func:      func(event vugu.DOMEvent) { c.R.toggleShelf() },
+					// TODO: implement capture, etc. mostly need to decide syntax
+				})
+				if c.R.shelfOpen {
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "ul", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "shelf-list"}}}
+					vgparent.AppendChild(vgn)
+					{
+						vgparent := vgn
+						_ = vgparent
+						for i, e := range c.R.shelfItems() {
+							var vgiterkey interface{} = i
+							_ = vgiterkey
+							i := i
+							_ = i
+							e := e
+							_ = e
+							vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "li", Attr: []vugu.VGAttribute(nil)}
+							vgparent.AppendChild(vgn)
+							{
+								vgparent := vgn
+								_ = vgparent
+								vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "button", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "button"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-link"}}}
+								vgparent.AppendChild(vgn)
+								vgn.AddAttrInterface("data-key", e.Key)
+								vgn.AddAttrInterface("id", fmt.Sprintf("shelf-%d", i))
+								vgn.SetInnerHTML(shelfLabel(e))
+								vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
+									EventType: "click",
+									Func:      func(event vugu.DOMEvent) { c.R.openShelved(e.Key) },
+									// TODO: implement capture, etc. mostly need to decide syntax
+								})
+							}
+						}
+					}
+				}
+			}
+		}
+		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
+		vgparent.AppendChild(vgn)
 	}
 	return vgout
 }

@@ -196,12 +196,14 @@ func (c *Root) replaceWithDemo() {
 		c.note("error", "The demo project could not be read: "+describeProblems(ps, 3))
 		return
 	}
+	c.shelve()
 	c.open(p)
 	c.markSaved()
 	c.note("info", "Opened the demo project. Undo (Ctrl+Z) brings back the project it replaced.")
 }
 
 func (c *Root) replaceWithNew() {
+	c.shelve()
 	c.open(NewProject())
 	c.markSaved()
 	c.note("info", "Started a new project: one layer, one load stage. Undo (Ctrl+Z) brings back the project it replaced.")
@@ -258,6 +260,7 @@ func (c *Root) save() {
 		c.showBox(name, data, "This page runs inside a frame, where browsers often block downloads without a word. If no file "+name+" arrived, copy the project below into one.")
 	}
 	c.markSaved()
+	c.shelve()
 	if draft {
 		n := c.form.Count()
 		c.note("info", fmt.Sprintf("Saved a draft with %s: the file says so, and opening it brings the problems back to fix.", plural(n, "problem", "problems")))

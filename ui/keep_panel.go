@@ -19,3 +19,11 @@ func (c *Keep) head() string {
 	}
 	return fmt.Sprintf("%d inputs need attention:", n)
 }
+
+func (c *Keep) shelfHead() string {
+	n := len(c.R.shelfItems())
+	if c.R.shelfOpen {
+		return fmt.Sprintf("Recent projects in this browser (%d) ▾", n)
+	}
+	return fmt.Sprintf("Recent projects in this browser (%d) ▸", n)
+}

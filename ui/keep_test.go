@@ -477,3 +477,67 @@ func TestStorageFull(t *testing.T) {
 		}
 	}
 }
+
+// shelfHost keeps a shelf in memory.
+type shelfHost struct {
+	*fakeHost
+	shelf map[string]ShelfEntry
+}
+
+func (h *shelfHost) ShelfPut(e ShelfEntry)  { h.shelf[e.Key] = e }
+func (h *shelfHost) ShelfDelete(key string) { delete(h.shelf, key) }
+func (h *shelfHost) ShelfList(done func([]ShelfEntry)) {
+	var es []ShelfEntry
+	for _, e := range h.shelf {
+		es = append(es, e)
+	}
+	done(es)
+}
+
+// TestShelf checks the shelf: a saved project and a replaced one are
+// kept, listed on the next start, and open again (Undo takes it back).
+func TestShelf(t *testing.T) {
+	p := newPage(t, Sources{})
+	h := &shelfHost{fakeHost: p.host, shelf: map[string]ShelfEntry{}}
+	p.root.Host = h
+	p.typeInto("title", "Embankment, north section")
+	p.typeInto("layers-0-name", "Crust, north section")
+	p.fire("new-project", "click", nil)
+	p.fire("confirm-replace", "click", nil)
+	if len(h.shelf) != 1 {
+		t.Fatalf("%d projects shelved after replacing one", len(h.shelf))
+	}
+	// A new start lists it. Projects are kept by title: the sections of
+	// a job have their own.
+	q := newPage(t, Sources{})
+	q.root.Host = h
+	q.root.loadShelf()
+	q.fire("new-project", "click", nil) // the demo goes on the shelf too
+	q.build()
+	q.fire("shelf-toggle", "click", nil)
+	var key string
+	for k, e := range h.shelf {
+		if strings.Contains(e.State, "north section") {
+			key = k
+		}
+	}
+	if key == "" || q.find("shelf-list") == nil {
+		t.Fatalf("the shelf lacks the edited demo or is not listed: %v", q.root.shelfItems())
+	}
+	q.root.openShelved(key)
+	q.build()
+	if got := q.value("layers-0-name"); got != "Crust, north section" {
+		t.Errorf("the shelved project opened with layer 1 %q", got)
+	}
+	q.fire("undo", "click", nil)
+	if got := len(q.root.form.Draft().Layers); got != 1 {
+		t.Errorf("Undo after opening from the shelf: %d layers, want the new project's 1", got)
+	}
+	for range ShelfSize + 3 {
+		q.typeInto("title", fmt.Sprintf("section %d", len(h.shelf)))
+		q.fire("save-project", "click", nil)
+	}
+	if len(h.shelf) > ShelfSize {
+		t.Errorf("%d projects on the shelf, at most %d kept", len(h.shelf), ShelfSize)
+	}
+}

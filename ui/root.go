@@ -80,6 +80,8 @@ type Root struct {
 	view           bool        // the read-only view
 	storedAutosave string      // in the view: the reader's autosave, kept for leaveView
 	storedHistory  string
+	shelf          []ShelfEntry // recent projects kept in the browser (shelf.go)
+	shelfOpen      bool
 }
 
 type notice struct {
@@ -159,6 +161,7 @@ func (c *Root) Start(src Sources) {
 	if fromLink {
 		c.markSaved()
 	}
+	c.loadShelf()
 }
 
 // viewless is a URL fragment without the view mark: "#view&p=…" → "p=…".
@@ -425,6 +428,7 @@ func (c *Root) openFile(name string, data []byte, err error) {
 			orFile(name), strings.TrimSuffix(describeProblems(ps, 4), ".")+"."))
 		return
 	}
+	c.shelve()
 	c.openState(st)
 	c.markSaved()
 	if form.IsDraft(data) && !c.form.Valid() {
