@@ -154,7 +154,12 @@ func notProject(kind string) Problem {
 // otherFile recognises a JSON object that is one of Porelight's other
 // files rather than a project and says so; "" when it is not.
 func otherFile(obj map[string]any) string {
-	if _, ok := obj["format"]; ok {
+	if f, ok := obj["format"]; ok {
+		// The page's Save writes a draft with its problems in this
+		// format (ui/form.DraftFormat); the page reads it back.
+		if f == "porelight-draft/1" {
+			return "this is a draft saved with problems, not a project the solver accepts — open it in the page to fix them"
+		}
 		return ""
 	}
 	_, steady := obj["steady"]

@@ -333,6 +333,8 @@ func TestDecodeSaysWhere(t *testing.T) {
 		{"a brace too many", "{\"format\": \"porelight/1\"}\n}", "", ErrSyntax, "line 2, column 1: invalid character '}' after top-level value"},
 		{"results file", `{"steady": {"depth": [0, 1]}, "summary": {}, "warnings": [], "stats": {}}`, "", ErrNotProject,
 			"this is a results file, not a project — open a project file"},
+		{"draft", `{"format": "porelight-draft/1", "note": "…", "project": {"format": "porelight/1"}}`, "", ErrNotProject,
+			"this is a draft saved with problems"},
 		{"refusal answer", `{"error": {"problems": [{"path": "", "message": "x"}]}}`, "", ErrNotProject, "not a project — open a project file"},
 		{"CSV", "time,settlement\n0,0\n10,0.012\n", "", ErrNotProject, "this is not a project file (it looks like CSV"},
 		{"CSV with semicolons", "0;0\n10;0,012\n", "", ErrNotProject, "(it looks like CSV"},

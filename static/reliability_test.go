@@ -215,7 +215,7 @@ func TestE2EReliability(t *testing.T) {
 			{"not JSON", `{"format": "porelight/1", "layers": [`, []string{"not valid JSON"}},
 			{"not a project", `[1, 2, 3]`, nil},
 			{"newer format", string(withFormat(t, demo, "porelight/2")), []string{"format", "porelight/2"}},
-			{"invalid value", strings.Replace(string(demo), `"thickness": 4.0`, `"thickness": -4.0`, 1), []string{"layers[1].thickness"}},
+			{"invalid value", strings.Replace(string(demo), `"thickness": 4.0`, `"thickness": -4.0`, 1), []string{"layer 2, thickness"}},
 		}
 		for i, c := range cases {
 			t.Run(c.name, func(t *testing.T) {

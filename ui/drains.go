@@ -116,7 +116,7 @@ func (c *Drains) problems() []string {
 	var out []string
 	for _, p := range c.F.Other() {
 		if strings.HasPrefix(p.Path, "drains") {
-			out = append(out, p.Path+": "+p.Message)
+			out = append(out, capital(form.Label(p.Path))+": "+p.Message)
 		}
 	}
 	return out

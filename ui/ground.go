@@ -44,7 +44,7 @@ func (c *Ground) endProblems() []string {
 	var out []string
 	for _, p := range c.F.Other() {
 		if strings.HasPrefix(p.Path, "top.") || strings.HasPrefix(p.Path, "bottom.") {
-			out = append(out, p.Path+": "+p.Message)
+			out = append(out, capital(form.Label(p.Path))+": "+p.Message)
 		}
 	}
 	return out

@@ -132,7 +132,7 @@ func (c *Loads) areaProblems(i int) []string {
 	at := loadPath(i, "area")
 	for _, p := range c.F.Other() {
 		if p.Path == at || strings.HasPrefix(p.Path, at+".") {
-			out = append(out, p.Path+": "+p.Message)
+			out = append(out, capital(form.Label(p.Path))+": "+p.Message)
 		}
 	}
 	return out

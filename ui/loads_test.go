@@ -145,7 +145,7 @@ func TestPageAreaProblemShown(t *testing.T) {
 	p.fire("loads-0-areakind", "change", map[string]any{"value": "strip"})
 	p.root.form.Draft().Loads[0].Profile = []solver.DepthValue{{Z: 0, Value: 1}}
 	p.typeInto("loads-0-area-width", "7") // re-validates
-	if got := p.html(); !strings.Contains(got, "loads[0].area.shape: conflicts with another field") {
+	if got := p.html(); !strings.Contains(got, "Stage 1, area shape: conflicts with another field") {
 		t.Errorf("the conflict of area and profile is not shown in the page")
 	}
 }

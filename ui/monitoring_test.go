@@ -395,10 +395,10 @@ func TestFitError(t *testing.T) {
 			"layer 5 is out of range"},
 		{"the request", solver.Problems{{Path: monitor.FitSpecPath, Message: "nothing to fit", Err: monitor.ErrNothingToFit}}, "nothing to fit"},
 		{"a field of the project", solver.Problems{{Path: "stepping.endTime", Message: "a reading on day 600 is after the end", Err: solver.ErrConflict}},
-			"stepping.endTime: a reading on day 600 is after the end"},
+			"stepping end time: a reading on day 600 is after the end"},
 		{"a field that only starts like the panel's", solver.Problems{{Path: "fitted", Message: "m", Err: solver.ErrUnknown}}, "fitted: m"},
 		{"several", solver.Problems{{Path: "layers[0].k", Message: "must be > 0", Err: solver.ErrNotPositive}, {Path: monitor.FitFrom, Message: "too few points", Err: monitor.ErrTooFewPoints}},
-			"layers[0].k: must be > 0; too few points"},
+			"layer 1, k: must be > 0; too few points"},
 	}
 	for _, c := range cases {
 		if got := fitError(c.err); got != c.want {

@@ -354,7 +354,7 @@ func TestPageOpenFile(t *testing.T) {
 		{"not JSON", `{"format": "porelight/1", "layers": [`, false, "line 1, column 37: the file ends in the middle of the project"},
 		{"results file", `{"steady": {}, "summary": {}, "warnings": [], "stats": {}}`, false, "this is a results file, not a project"},
 		{"wrong format", `{"format": "other/9", "layers": []}`, false, "format"},
-		{"bad value", strings.Replace(string(demoJSONNoT()), `"thickness": 4.0`, `"thickness": -4.0`, 1), false, "layers[1].thickness"},
+		{"bad value", strings.Replace(string(demoJSONNoT()), `"thickness": 4.0`, `"thickness": -4.0`, 1), false, "layer 2, thickness"},
 		{"unknown field", `{"format": "porelight/1", "layer": []}`, false, "layer: is not a known field"},
 		{"good", `{"format": "porelight/1", "title": "Two layers", "layers": [{"thickness": 2, "gammaSat": 19, "k": 1e-6, "mv": 1e-4}], "top": {"drained": true}, "bottom": {"drained": false}}`, true, "Opened"},
 	}
@@ -450,11 +450,15 @@ func TestPageSaveAndShare(t *testing.T) {
 		t.Errorf("the link carries %d layers", len(q.Layers))
 	}
 
-	// With a wrong input, nothing is saved and the page says why.
+	// With a wrong input, Save writes a draft that says so (keep_test.go
+	// reopens one); the link is refused, as it carries only projects.
 	p.typeInto("waterTable", "deep")
 	p.fire("save-project", "click", nil)
-	if len(p.host.downloads) != 1 {
-		t.Error("saved a project with a wrong input")
+	if len(p.host.downloads) != 2 {
+		t.Fatalf("%d downloads after saving a draft", len(p.host.downloads))
+	}
+	if d := p.host.downloads[1]; !strings.HasSuffix(d.name, "-draft.json") || !strings.Contains(string(d.data), `"porelight-draft/1"`) {
+		t.Errorf("draft saved as %q: %.80q", d.name, d.data)
 	}
 }
 

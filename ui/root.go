@@ -28,6 +28,10 @@ type Sources struct {
 	Autosave    string // the autosaved project JSON ("" when none)
 	AutosaveErr error  // storage could not be read
 	Demo        []byte // the demo project JSON
+	History     string // the undo history stored with the autosave (HistoryKey)
+	// View asks for the read-only view (the link's "?view" or "#view"):
+	// the project in the link, its summary and plots, nothing stored.
+	View bool
 }
 
 // Root is the page: editors on one side, results on the other. wasm/ sets
@@ -47,6 +51,8 @@ type Root struct {
 	// BackFit fits the project to its field records; nil means
 	// monitor.BackFit (monitor_root.go).
 	BackFit func(*solver.Project, monitor.FitSpec, *solver.Options) (*monitor.FitResult, error)
+	// Now is the clock of the undo history's typing runs; nil is time.Now.
+	Now func() time.Time
 
 	form      *form.Form
 	demo      []byte
@@ -70,6 +76,16 @@ type Root struct {
 	dates     bool          // the record plots run on calendar dates
 	level     bool          // the piezometer plot shows water levels
 	rev       printRev      // the revision printed in the header (print.go)
+
+	hist           history     // the undo history (history.go, keep.go)
+	saved          string      // the state last opened or saved (unsaved)
+	ask            *replaceAsk // a replacement waiting for a yes
+	box            *saveBox    // the project shown for copying
+	view           bool        // the read-only view
+	storedAutosave string      // in the view: the reader's autosave, kept for leaveView
+	storedHistory  string
+	shelf          []ShelfEntry // recent projects kept in the browser (shelf.go)
+	shelfOpen      bool
 }
 
 type notice struct {
@@ -96,27 +112,43 @@ func (c *Root) Result() *solver.Result { return c.result }
 func (c *Root) Start(src Sources) {
 	c.demo = src.Demo
 	c.form = form.New(&solver.Project{Format: solver.Format})
-	opened := false
-	if data, err := DecodeFragment(src.Fragment); err == nil {
-		if p, ps := ReadProject(data); ps == nil {
-			c.open(p)
-			c.note("info", "Opened the project from the link.")
-			opened = true
+	c.view = src.View
+	opened, fromLink := false, false
+	if data, err := DecodeFragment(viewless(src.Fragment)); err == nil {
+		if st, ps := readAny(data); ps == nil {
+			c.openState(st)
+			if !c.view {
+				c.note("info", "Opened the project from the link.")
+			}
+			opened, fromLink = true, true
 		} else {
 			c.note("error", "The project in the link could not be read: "+describeProblems(ps, 3))
 		}
-		c.host().SetFragment("") // from now on, a reload restores the autosave
+		if !c.view {
+			c.host().SetFragment("") // from now on, a reload restores the autosave
+		}
 	} else if !errors.Is(err, ErrNoProject) {
 		c.note("error", err.Error())
 		c.host().SetFragment("")
+	}
+	if c.view {
+		if opened {
+			// The reader's own work stays as it was, to come back to
+			// when leaving the view.
+			c.storedAutosave, c.storedHistory = src.Autosave, src.History
+		} else {
+			c.view = false // nothing to view: the full page
+		}
 	}
 	if !opened && src.AutosaveErr != nil {
 		c.note("info", "This browser does not allow storage here, so nothing is autosaved: save the project to a file to keep it.")
 	}
 	if !opened && src.Autosave != "" {
-		if p, ps := ReadProject([]byte(src.Autosave)); ps == nil {
-			c.open(p)
-			c.note("info", "Restored the project autosaved in this browser.")
+		if st, ps := readAny([]byte(src.Autosave)); ps == nil {
+			c.openState(st)
+			c.hist.decode(src.History, c.hist.cur)
+			c.store(true)
+			c.note("info", "Restored the project autosaved in this browser, as it was typed.")
 			opened = true
 		} else {
 			c.note("error", "The autosaved project could not be read ("+describeProblems(ps, 3)+"); opened the demo project instead.")
@@ -125,29 +157,83 @@ func (c *Root) Start(src Sources) {
 	if !opened {
 		if p, ps := ReadProject(src.Demo); ps == nil {
 			c.open(p)
+			c.markSaved()
 		} else {
 			c.note("error", "The demo project could not be read: "+describeProblems(ps, 3))
 		}
 	}
+	if fromLink {
+		c.markSaved()
+	}
+	c.loadShelf()
+}
+
+// viewless is a URL fragment without the view mark: "#view&p=…" → "p=…".
+func viewless(frag string) string {
+	frag = strings.TrimPrefix(frag, "#")
+	if rest, ok := strings.CutPrefix(frag, "view"); ok {
+		return strings.TrimLeft(rest, "&;/")
+	}
+	return frag
+}
+
+// IsView reports whether a page address asks for the read-only view: a
+// query "?view" (or "?view=…", "&view") or a fragment "#view…".
+func IsView(search, frag string) bool {
+	if strings.HasPrefix(strings.TrimPrefix(frag, "#"), "view") {
+		return true
+	}
+	for part := range strings.SplitSeq(strings.TrimPrefix(search, "?"), "&") {
+		if k, _, _ := strings.Cut(part, "="); k == "view" {
+			return true
+		}
+	}
+	return false
+}
+
+// readAny reads a project file or a draft file (form.ReadDraft) as a
+// state to show; a plain project is validated, a draft is not (it shows
+// its problems).
+func readAny(data []byte) (form.State, solver.Problems) {
+	if form.IsDraft(data) {
+		return form.ReadDraft(data)
+	}
+	p, ps := ReadProject(data)
+	if ps != nil {
+		return form.State{}, ps
+	}
+	return form.State{Project: p}, nil
+}
+
+// openState shows st (a project, or a draft with its typed text) as one
+// step of the history, and solves it when it is valid.
+func (c *Root) openState(st form.State) {
+	c.form.Restore(st)
+	c.shareURL = ""
+	c.ask = nil
+	if !c.form.Valid() {
+		// The results shown belong to another project: none, rather than
+		// figures that do not match the inputs beside them.
+		c.result, c.resultFor, c.solveErr = nil, nil, ""
+	}
+	c.track()
+	c.afterChange()
 }
 
 // open makes p the project and solves it now.
 func (c *Root) open(p *solver.Project) {
 	c.form.Reset(p)
 	c.shareURL = ""
+	c.ask = nil
+	c.track()
 	c.commit(0)
 }
 
 // edited runs after every edit: a valid draft becomes the model and is
 // solved after a pause; an invalid one only shows its problems.
 func (c *Root) edited() {
-	c.revealProblems()
-	if c.form.Valid() {
-		c.commit(c.debounce())
-	} else {
-		c.gen.Add(1) // a solve under way is for an outdated model
-		c.busy = false
-	}
+	c.track()
+	c.afterChange()
 }
 
 func (c *Root) debounce() time.Duration {
@@ -166,9 +252,8 @@ func (c *Root) commit(wait time.Duration) {
 	g := c.gen.Add(1)
 	model := c.form.Model()
 	c.canceled = false
-	// Autosave what is valid now, not once solved: an edit followed at
-	// once by a reload, or a cancelled solve, must not be lost.
-	c.autosave(model)
+	// The draft was autosaved by the edit (track), before any solve: an
+	// edit followed at once by a reload, or a cancelled solve, is not lost.
 	if c.reuse(model) {
 		return // only the field records changed: the results stand
 	}
@@ -259,23 +344,15 @@ func (c *Root) finish(g int64, model *solver.Project, res *solver.Result, err er
 	c.result, c.resultFor, c.solveErr = res, model, ""
 }
 
-func (c *Root) autosave(p *solver.Project) {
-	data, err := json.Marshal(p)
-	if err != nil {
-		return
-	}
-	_ = c.host().Store(AutosaveKey, string(data)) // said once at start when storage is off
-}
-
 func (c *Root) status() Status {
 	switch {
 	case c.form == nil:
 		return Status{"busy", "Starting…"}
 	case !c.form.Valid():
-		n := c.form.Count()
-		s := fmt.Sprintf("%d inputs need attention", n)
+		n := len(c.form.Problems())
+		s := fmt.Sprintf("%d inputs need attention (listed above the editors)", n)
 		if n == 1 {
-			s = "1 input needs attention"
+			s = "1 input needs attention (shown above the editors)"
 		}
 		if c.result != nil {
 			s += "; the results shown are for the last valid inputs."
@@ -315,7 +392,7 @@ func (c *Root) generalProblems() []string {
 		}
 		s := p.Message
 		if p.Path != "" {
-			s = p.Path + ": " + s
+			s = capital(form.Label(p.Path)) + ": " + s
 		}
 		out = append(out, s)
 	}
@@ -349,14 +426,20 @@ func (c *Root) openFile(name string, data []byte, err error) {
 		c.note("error", fmt.Sprintf("Could not read %s: %v. The project is unchanged.", orFile(name), err))
 		return
 	}
-	p, ps := ReadProject(data)
+	st, ps := readAny(data)
 	if ps != nil {
 		c.note("error", fmt.Sprintf("%s is not a project this page can open: %s The project is unchanged.",
 			orFile(name), strings.TrimSuffix(describeProblems(ps, 4), ".")+"."))
 		return
 	}
-	c.open(p)
-	c.note("info", "Opened "+orFile(name)+".")
+	c.shelve()
+	c.openState(st)
+	c.markSaved()
+	if form.IsDraft(data) && !c.form.Valid() {
+		c.note("info", "Opened "+orFile(name)+", a draft saved with problems: they are listed above, to fix.")
+		return
+	}
+	c.note("info", "Opened "+orFile(name)+". Undo (Ctrl+Z) brings back the project it replaced.")
 }
 
 func orFile(name string) string {
@@ -366,38 +449,14 @@ func orFile(name string) string {
 	return "“" + name + "”"
 }
 
-func (c *Root) openDemo() {
-	p, ps := ReadProject(c.demo)
-	if ps != nil {
-		c.note("error", "The demo project could not be read: "+describeProblems(ps, 3))
-		return
-	}
-	c.open(p)
-	c.note("info", "Opened the demo project; the previous project was replaced (save projects you want to keep).")
-}
-
 // saveable is the project to save or share: the model when the inputs
 // are valid, else nothing (with a notice).
 func (c *Root) saveable() *solver.Project {
 	if !c.form.Valid() {
-		c.note("error", "Some inputs need attention; fix them first, so that the file holds what you see.")
+		c.note("error", "Some inputs need attention (listed above): a link carries only a project the solver accepts. Save keeps the draft, problems and all.")
 		return nil
 	}
 	return c.form.Model()
-}
-
-func (c *Root) save() {
-	p := c.saveable()
-	if p == nil {
-		return
-	}
-	data, err := solver.Encode(p)
-	if err == nil {
-		err = c.host().Download(baseName(p)+".json", "application/json", append(data, '\n'))
-	}
-	if err != nil {
-		c.note("error", "Could not save: "+err.Error())
-	}
 }
 
 func (c *Root) share() {

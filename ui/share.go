@@ -11,6 +11,7 @@ import (
 	"strings"
 
 	"porelight/solver"
+	"porelight/ui/form"
 )
 
 // FragmentKey starts the URL fragment that carries a shared project:
@@ -103,7 +104,8 @@ func describeProblemsAt(ps solver.Problems, limit int, here func(path string) bo
 			b.WriteString("; ")
 		}
 		if p.Path != "" && (here == nil || !here(p.Path)) {
-			b.WriteString(p.Path + ": ")
+			// Rows numbered from 1, as the tables show them.
+			b.WriteString(form.Label(p.Path) + ": ")
 		}
 		b.WriteString(p.Message)
 	}

@@ -171,12 +171,72 @@ func (host) CopyText(inputID string) error {
 		el := js.Global().Get("document").Call("getElementById", inputID)
 		el.Call("focus")
 		el.Call("select")
+		// The old command first: it works in a sandboxed frame, where the
+		// clipboard API is refused unless the frame allows clipboard-write.
+		copied := false
+		if err := catch(func() { copied = js.Global().Get("document").Call("execCommand", "copy").Truthy() }); err == nil && copied {
+			return
+		}
 		clip := js.Global().Get("navigator").Get("clipboard")
 		if clip.IsUndefined() || clip.IsNull() {
 			panic(errors.New("no clipboard"))
 		}
 		clip.Call("writeText", el.Get("value")).Call("catch", ignore)
 	})
+}
+
+// Frame reports whether the page is in a frame, and whether the frame is
+// sandboxed with an opaque origin: the origin is then "null" although the
+// page was not opened from a file (file:// pages have a "null" origin too,
+// so the address tells them apart). A frame sandboxed with
+// allow-same-origin but without allow-downloads cannot be told from a
+// plain frame; Root treats both as frames where a download may fail.
+func (host) Frame() (framed, sandboxed bool) {
+	_ = catch(func() {
+		g := js.Global()
+		framed = !g.Get("self").Equal(g.Get("top"))
+		if framed {
+			origin := g.Get("origin")
+			proto := g.Get("location").Get("protocol").String()
+			sandboxed = origin.Type() == js.TypeString && origin.String() == "null" && proto != "file:"
+		}
+	})
+	return framed, sandboxed
+}
+
+// Fill sets the value of the text box with this id after the next render
+// (which makes the box).
+func (host) Fill(id, text string) {
+	var f js.Func
+	f = js.FuncOf(func(js.Value, []js.Value) any {
+		f.Release()
+		_ = catch(func() {
+			if el := js.Global().Get("document").Call("getElementById", id); el.Truthy() {
+				el.Set("value", text)
+			}
+		})
+		return nil
+	})
+	js.Global().Call("setTimeout", f, 30)
+}
+
+// Focus focuses the element with this id after the next render (the
+// element may be in a section that opens with it), and scrolls it into
+// view.
+func (host) Focus(id string) {
+	var f js.Func
+	f = js.FuncOf(func(js.Value, []js.Value) any {
+		f.Release()
+		_ = catch(func() {
+			el := js.Global().Get("document").Call("getElementById", id)
+			if el.Truthy() {
+				el.Call("focus")
+				el.Call("scrollIntoView", map[string]any{"block": "center"})
+			}
+		})
+		return nil
+	})
+	js.Global().Call("setTimeout", f, 30)
 }
 
 func (host) Print() { _ = catch(func() { js.Global().Call("print") }) }

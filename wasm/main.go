@@ -55,10 +55,14 @@ func run(demo []byte) {
 	}
 	h := host{}
 	src := ui.Sources{Fragment: fragment(), Demo: demo}
+	src.View = ui.IsView(js.Global().Get("location").Get("search").String(), src.Fragment)
 	if s, ok, err := h.Recall(ui.AutosaveKey); err != nil {
 		src.AutosaveErr = err
 	} else if ok {
 		src.Autosave = s
+		if hist, ok, _ := h.Recall(ui.HistoryKey); ok {
+			src.History = hist
+		}
 	}
 	root := &ui.Root{Host: h, Env: ee, Version: version}
 	root.Start(src)

@@ -490,6 +490,31 @@
 		}
 	}
 
+	// Ctrl+Z (⌘Z) undoes the page's last change and Ctrl+Shift+Z or Ctrl+Y
+	// redoes, through the Undo and Redo buttons, so that the history has
+	// one way in. The page's history holds every keystroke too (a run of
+	// them in one input is one step), so the keys work the same in a text
+	// field: the browser's own undo there would only know the text the
+	// page wrote back into the field.
+	document.addEventListener("keydown", function (e) {
+		if (!(e.ctrlKey || e.metaKey) || e.altKey || e.isComposing) {
+			return;
+		}
+		var k = (e.key || "").toLowerCase();
+		var redo = (k === "z" && e.shiftKey) || (k === "y" && !e.shiftKey);
+		if (k !== "z" && !redo) {
+			return;
+		}
+		var b = document.getElementById(redo ? "redo" : "undo");
+		if (!b) {
+			return; // the read-only view has no history
+		}
+		e.preventDefault();
+		if (!b.disabled) {
+			b.click();
+		}
+	});
+
 	start().catch(function (e) {
 		fail(String(e && e.message ? e.message : e));
 	});

@@ -23,6 +23,12 @@ type Form struct {
 	bad   map[string]string   // path → why the typed text is not a value
 	probs map[string][]string // path of the input → problems from Validate
 	other []solver.Problem    // problems that no input shows
+
+	good *solver.Project // the last draft without problems (echo.go)
+	echo map[string]bool // inputs whose problem is an echo of another's
+
+	typed   string // the input Edit last took (TakeTyped)
+	changes int    // checks since TakeTyped: every change ends in one
 }
 
 // New starts a form on a copy of p.
@@ -35,9 +41,11 @@ func New(p *solver.Project) *Form {
 // Reset replaces the draft with a copy of p and forgets all typed text.
 func (f *Form) Reset(p *solver.Project) {
 	f.draft = *cloneProject(p)
+	f.good = nil
 	f.raw = map[string]string{}
 	f.bad = map[string]string{}
 	f.check()
+	f.typed, f.changes = "", 0
 }
 
 // Draft is the project as the inputs show it (it may have problems).
@@ -52,18 +60,10 @@ func (f *Form) Valid() bool {
 // it only when Valid.
 func (f *Form) Model() *solver.Project { return cloneProject(&f.draft) }
 
-// Count is the number of inputs with a problem plus problems no input shows.
-func (f *Form) Count() int {
-	n := len(f.other)
-	seen := map[string]bool{}
-	for p := range f.bad {
-		seen[p] = true
-	}
-	for p := range f.probs {
-		seen[p] = true
-	}
-	return n + len(seen)
-}
+// Count is the number of problems to fix: the inputs with a problem that
+// is not an echo of another's (echo.go), plus problems no input shows.
+// It is the length of Problems.
+func (f *Form) Count() int { return len(f.Problems()) }
 
 // Other lists the problems that no input on the page shows.
 func (f *Form) Other() []solver.Problem { return f.other }
@@ -108,6 +108,7 @@ func (f *Form) Edit(path, text string) bool {
 		f.bad[path] = msg
 	}
 	f.check()
+	f.typed = path
 	return changed
 }
 
@@ -185,6 +186,7 @@ func getAny(p *solver.Project, path string) string {
 // check runs solver.Validate on the draft and files each problem under
 // the input that shows its path.
 func (f *Form) check() {
+	f.changes++
 	f.probs = map[string][]string{}
 	f.other = nil
 	for _, pr := range solver.AsProblems(solver.Validate(&f.draft)) {
@@ -202,6 +204,10 @@ func (f *Form) check() {
 		}
 		f.probs[at] = append(f.probs[at], prefix+msg)
 	}
+	if f.Valid() {
+		f.good = cloneProject(&f.draft)
+	}
+	f.findEchoes()
 }
 
 // inputFor maps a problem path to the input showing it: list items of
