@@ -287,11 +287,20 @@ func TestE2EKeep(t *testing.T) {
 		poll[bool](t, ctx, `!!document.getElementById("confirm-replace")`, 10*time.Second)
 		click(t, ctx, "confirm-replace")
 		poll[bool](t, ctx, draftJS+`.layers.length === 1`, 10*time.Second)
+		// The page writes the shelf without waiting; a reload before the
+		// write is done (a loaded machine) would lose the race, not the
+		// project: wait until IndexedDB holds it.
+		poll[bool](t, ctx, `(() => {
+			const r = indexedDB.open("porelight");
+			r.onsuccess = () => { const db = r.result; try { const g = db.transaction("shelf").objectStore("shelf").get("shelf-test-section-a"); g.onsuccess = () => { window.__shelved = !!g.result; db.close(); }; } catch (e) { db.close(); } };
+			return window.__shelved === true;
+		})()`, 10*time.Second)
 		// Listed after a reload, from IndexedDB; opening it brings it back.
 		open(t, ctx, pageURL)
 		poll[bool](t, ctx, `!!document.getElementById("shelf-toggle")`, 10*time.Second)
 		click(t, ctx, "shelf-toggle")
-		within(t, ctx, 10*time.Second, chromedp.Click(chromedp.CSS(`#shelf-list button[data-key="shelf-test-section-a"]`)))
+		poll[bool](t, ctx, `!!document.querySelector('#shelf-list button[data-key="shelf-test-section-a"]')`, 20*time.Second)
+		eval[chromedp.Void](t, ctx, `document.querySelector('#shelf-list button[data-key="shelf-test-section-a"]').click()`)
 		poll[bool](t, ctx, `document.getElementById("layers-0-thickness").value === "2.25"`, 10*time.Second)
 		screenshot(t, ctx, shots, "keep-5-shelf.png")
 		click(t, ctx, "undo")
