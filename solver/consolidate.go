@@ -622,9 +622,11 @@ func (k *consolidation) finalNonlinear() {
 		// the iterated laws settle by their own amount, so the fill below
 		// the water table, the final stress and the settlement are solved
 		// again together with them.
+		cp, out := new(nonlinear), make([]float64, len(k.c.p.Layers))
 		_, hs := k.tr.settleFinal(k.sigInf, k.uInf, func() float64 {
+			k.nl.project(cp, k.sigInf, k.uInf, out)
 			sum := 0.0
-			for _, v := range k.nl.projected(k.sigInf, k.uInf) {
+			for _, v := range out {
 				sum += v
 			}
 			return sum

@@ -579,16 +579,24 @@ func (nl *nonlinear) drained(bps []breakpoint, sigInf, uInf []float64, uAt func(
 // remaining excess pressure still adds as it drains. The elements are
 // left as they are.
 func (nl *nonlinear) projected(sigInf, uInf []float64) []float64 {
-	cp := &nonlinear{tr: nl.tr, m: nl.m, curved: nl.curved, mv: nl.mv, mvu: nl.mvu, ck: nl.ck, kExp: nl.kExp, kLo: nl.kLo, kHi: nl.kHi,
-		k0:     append([]float64(nil), nl.k0...),
-		pts:    append([]soil.Point(nil), nl.pts...),
-		sig:    append([]float64(nil), nl.sig...),
-		peak:   append([]float64(nil), nl.peak...),
-		strain: append([]float64(nil), nl.strain...), negativeAt: math.NaN()}
-	cp.commit(math.Inf(1), sigInf, uInf)
 	out := make([]float64, len(nl.tr.c.p.Layers))
-	cp.layerSettlements(out)
+	nl.project(new(nonlinear), sigInf, uInf, out)
 	return out
+}
+
+// project writes projected's settlements into out, with cp as the copy
+// of the elements moved (its slices are reused from one call to the
+// next).
+func (nl *nonlinear) project(cp *nonlinear, sigInf, uInf, out []float64) {
+	*cp = nonlinear{tr: nl.tr, m: nl.m, curved: nl.curved, mv: nl.mv, mvu: nl.mvu, ck: nl.ck, kExp: nl.kExp, kLo: nl.kLo, kHi: nl.kHi,
+		k0:     append(cp.k0[:0], nl.k0...),
+		pts:    append(cp.pts[:0], nl.pts...),
+		sig:    append(cp.sig[:0], nl.sig...),
+		peak:   append(cp.peak[:0], nl.peak...),
+		strain: append(cp.strain[:0], nl.strain...), negativeAt: math.NaN()}
+	cp.commit(math.Inf(1), sigInf, uInf)
+	clear(out)
+	cp.layerSettlements(out)
 }
 
 // stressScale is the largest stress change a project applies, kPa: the
