@@ -93,13 +93,5 @@ func TestE2EDrains(t *testing.T) {
 		screenshot(t, ctx, shots, "drains-"+strconv.FormatInt(w, 10)+".png")
 	}
 
-	requests, problems := rec.snapshot()
-	for _, u := range requests {
-		if !strings.HasPrefix(u, "file://") && !strings.HasPrefix(u, "data:") && !strings.HasPrefix(u, "blob:") {
-			t.Errorf("network request to %s", u)
-		}
-	}
-	for _, p := range problems {
-		t.Errorf("%s", p)
-	}
+	rec.requireLocal(t)
 }

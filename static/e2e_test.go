@@ -120,6 +120,23 @@ func local(url string) bool {
 	return false
 }
 
+// requireLocal fails t for every request heard that left the machine
+// (those the interception blocked included) and every console problem,
+// and returns the requests heard.
+func (r *recorder) requireLocal(t *testing.T) []string {
+	t.Helper()
+	requests, problems := r.snapshot()
+	for _, u := range append(requests, r.blockedRequests()...) {
+		if !local(u) {
+			t.Errorf("network request to %s", u)
+		}
+	}
+	for _, p := range problems {
+		t.Errorf("%s", p)
+	}
+	return requests
+}
+
 // answer lets a paused local request go on and fails any other.
 func (r *recorder) answer(ctx context.Context, e *fetch.EventRequestPaused) {
 	c, cancel := context.WithTimeout(ctx, 10*time.Second)
@@ -607,15 +624,7 @@ func TestE2EPage(t *testing.T) {
 		screenshot(t, ctx, shots, "4-frame.png")
 	})
 
-	requests, problems := rec.snapshot()
-	for _, u := range requests {
-		if !strings.HasPrefix(u, "file://") && !strings.HasPrefix(u, "data:") && !strings.HasPrefix(u, "blob:") {
-			t.Errorf("network request to %s", u)
-		}
-	}
-	for _, p := range problems {
-		t.Errorf("%s", p)
-	}
+	requests := rec.requireLocal(t)
 	t.Logf("%d requests, all local: %v", len(requests), requests)
 }
 

@@ -104,13 +104,5 @@ func TestE2EExcavation(t *testing.T) {
 		eval[chromedp.Void](t, ctx, `document.getElementById("summary").scrollIntoView()`)
 		screenshot(t, ctx, shots, "excavation-summary-"+strconv.FormatInt(w, 10)+".png")
 	}
-	requests, problems := rec.snapshot()
-	for _, u := range requests {
-		if !strings.HasPrefix(u, "file://") && !strings.HasPrefix(u, "data:") && !strings.HasPrefix(u, "blob:") {
-			t.Errorf("network request to %s", u)
-		}
-	}
-	for _, p := range problems {
-		t.Errorf("%s", p)
-	}
+	rec.requireLocal(t)
 }

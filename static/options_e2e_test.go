@@ -5,7 +5,6 @@ package static_test
 import (
 	"fmt"
 	"strconv"
-	"strings"
 	"testing"
 	"time"
 
@@ -81,13 +80,5 @@ func TestE2EOptions(t *testing.T) {
 		t.Error("no profile drawn")
 	}
 
-	requests, problems := rec.snapshot()
-	for _, u := range requests {
-		if !strings.HasPrefix(u, "file://") && !strings.HasPrefix(u, "data:") && !strings.HasPrefix(u, "blob:") {
-			t.Errorf("network request to %s", u)
-		}
-	}
-	for _, p := range problems {
-		t.Errorf("%s", p)
-	}
+	rec.requireLocal(t)
 }

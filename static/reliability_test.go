@@ -563,14 +563,6 @@ func TestE2EReliability(t *testing.T) {
 		}
 	})
 
-	requests, problems := rec.snapshot()
-	for _, u := range append(requests, rec.blockedRequests()...) {
-		if !local(u) {
-			t.Errorf("network request to %s", u)
-		}
-	}
-	for _, p := range problems {
-		t.Errorf("%s", p)
-	}
+	requests := rec.requireLocal(t)
 	t.Logf("%d requests, all local", len(requests))
 }

@@ -254,15 +254,7 @@ func TestE2EWorker(t *testing.T) {
 		screenshot(t, ctx, shots, "2-recovered.png")
 	})
 
-	requests, problems := rec.snapshot()
-	for _, u := range append(requests, rec.blockedRequests()...) {
-		if !local(u) {
-			t.Errorf("network request to %s", u)
-		}
-	}
-	for _, p := range problems {
-		t.Errorf("%s", p)
-	}
+	requests := rec.requireLocal(t)
 	t.Logf("%d requests, all local", len(requests))
 }
 
@@ -319,13 +311,5 @@ func TestE2EWorkerFrame(t *testing.T) {
 		t.Errorf("in the frame: origin %q, pool %+v; want an opaque origin, and the page's solve and solveAsync in workers", f.Origin, f.Stats)
 	}
 	screenshot(t, ctx, shots, "frame.png")
-	requests, problems := rec.snapshot()
-	for _, u := range append(requests, rec.blockedRequests()...) {
-		if !local(u) {
-			t.Errorf("network request to %s", u)
-		}
-	}
-	for _, p := range problems {
-		t.Errorf("%s", p)
-	}
+	rec.requireLocal(t)
 }

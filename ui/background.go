@@ -7,6 +7,10 @@ import (
 	"porelight/solver"
 )
 
+// fixInputsFirst is what a helper says when asked to run on inputs with
+// problems.
+const fixInputsFirst = "Some inputs need attention: fix them first."
+
 // inBackground runs work like a solve: in a goroutine (at once, inside
 // the handler, when there is no Env), with options whose Progress yields
 // to the browser about every 40 ms, reports the fraction done through

@@ -22,7 +22,7 @@ func (c *Root) runDecisions() {
 		return
 	}
 	if !c.form.Valid() {
-		s.err = "Some inputs need attention: fix them first."
+		s.err = fixInputsFirst
 		return
 	}
 	model := c.form.Model()

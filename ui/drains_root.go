@@ -33,7 +33,7 @@ func (c *Root) runDesign() {
 		return
 	}
 	if !c.form.Valid() {
-		s.err, s.res = "Some inputs need attention: fix them first.", nil
+		s.err, s.res = fixInputsFirst, nil
 		return
 	}
 	model := c.form.Model()

@@ -127,7 +127,7 @@ func (c *Root) runNeed() {
 	day, m2 := form.ParseNumber(s.day, false)
 	switch {
 	case !c.form.Valid():
-		s.err, s.thickness = "Some inputs need attention: fix them first.", nil
+		s.err, s.thickness = fixInputsFirst, nil
 		return
 	case m1 != "" || m2 != "":
 		s.err, s.thickness = "Type the finished level and the day as numbers.", nil

@@ -68,7 +68,7 @@ func (c *Root) runRange() {
 		return
 	}
 	if !c.form.Valid() {
-		s.err = "Some inputs need attention: fix them first."
+		s.err = fixInputsFirst
 		return
 	}
 	model := c.form.Model()

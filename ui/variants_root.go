@@ -49,7 +49,7 @@ func (c *Root) runCompare() {
 		return
 	}
 	if !c.form.Valid() {
-		s.err = "Some inputs need attention: fix them first."
+		s.err = fixInputsFirst
 		return
 	}
 	model := c.form.Model()
