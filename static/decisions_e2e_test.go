@@ -30,14 +30,7 @@ import (
 // and nothing goes to the network or the console.
 func TestE2EDecisions(t *testing.T) {
 	pageURL, demo := builtPage(t)
-	shots, err := os.MkdirTemp("", "porelight-e2e-decisions-")
-	if err != nil {
-		t.Fatal(err)
-	}
-	rec := &recorder{}
-	ctx := browser(t, rec)
-	within(t, ctx, 60*time.Second, chromedp.Navigate(pageURL))
-	poll[bool](t, ctx, `!!document.getElementById("decisions-residual-0")`, 45*time.Second)
+	ctx, rec, shots := openAt(t, pageURL, "porelight-e2e-decisions-", `!!document.getElementById("decisions-residual-0")`)
 
 	p := mustDecode(t, demo)
 	native, err := solver.Solve(p, nil)

@@ -4,7 +4,6 @@ package static_test
 
 import (
 	"context"
-	"os"
 	"strconv"
 	"strings"
 	"testing"
@@ -25,14 +24,7 @@ import (
 // nothing goes to the network or the console.
 func TestE2EDrains(t *testing.T) {
 	pageURL, demo := builtPage(t)
-	shots, err := os.MkdirTemp("", "porelight-e2e-drains-")
-	if err != nil {
-		t.Fatal(err)
-	}
-	rec := &recorder{}
-	ctx := browser(t, rec)
-	within(t, ctx, 60*time.Second, chromedp.Navigate(pageURL))
-	poll[bool](t, ctx, `!!document.getElementById("sum-flux")?.dataset.value`, 45*time.Second)
+	ctx, rec, shots := openAt(t, pageURL, "porelight-e2e-drains-", `!!document.getElementById("sum-flux")?.dataset.value`)
 	eval[chromedp.Void](t, ctx, `document.getElementById("drains-on").click()`)
 	poll[bool](t, ctx, `!!document.getElementById("sum-drains-0")`, 45*time.Second)
 

@@ -120,6 +120,22 @@ func local(url string) bool {
 	return false
 }
 
+// openAt opens url in a fresh browser and waits until the JavaScript
+// ready is true; it returns the browser, its recorder and a new
+// directory for screenshots whose name starts with name.
+func openAt(t *testing.T, url, name, ready string) (context.Context, *recorder, string) {
+	t.Helper()
+	shots, err := os.MkdirTemp("", name)
+	if err != nil {
+		t.Fatal(err)
+	}
+	rec := &recorder{}
+	ctx := browser(t, rec)
+	within(t, ctx, 60*time.Second, chromedp.Navigate(url))
+	poll[bool](t, ctx, ready, 45*time.Second)
+	return ctx, rec, shots
+}
+
 // requireLocal fails t for every request heard that left the machine
 // (those the interception blocked included) and every console problem,
 // and returns the requests heard.

@@ -51,14 +51,7 @@ func TestE2EExcavation(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	shots, err := os.MkdirTemp("", "porelight-e2e-excavation-")
-	if err != nil {
-		t.Fatal(err)
-	}
-	rec := &recorder{}
-	ctx := browser(t, rec)
-	within(t, ctx, 60*time.Second, chromedp.Navigate(linkTo(t, pageURL, raw)))
-	poll[bool](t, ctx, `!!document.getElementById("sum-prism")?.dataset.value`, 45*time.Second)
+	ctx, rec, shots := openAt(t, linkTo(t, pageURL, raw), "porelight-e2e-excavation-", `!!document.getElementById("sum-prism")?.dataset.value`)
 	native, err := solver.Solve(mustDecode(t, raw), nil)
 	if err != nil {
 		t.Fatal(err)

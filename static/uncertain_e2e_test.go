@@ -4,7 +4,6 @@ package static_test
 
 import (
 	"context"
-	"os"
 	"strconv"
 	"strings"
 	"testing"
@@ -38,14 +37,7 @@ const rangeProbe = `(() => {
 // and nothing goes to the network or the console.
 func TestE2ERange(t *testing.T) {
 	pageURL, _ := builtPage(t)
-	shots, err := os.MkdirTemp("", "porelight-e2e-range-")
-	if err != nil {
-		t.Fatal(err)
-	}
-	rec := &recorder{}
-	ctx := browser(t, rec)
-	within(t, ctx, 60*time.Second, chromedp.Navigate(pageURL))
-	poll[bool](t, ctx, `!!document.getElementById("sum-flux")?.dataset.value`, 45*time.Second)
+	ctx, rec, shots := openAt(t, pageURL, "porelight-e2e-range-", `!!document.getElementById("sum-flux")?.dataset.value`)
 	eval[chromedp.Void](t, ctx, `document.getElementById("range-on").click()`)
 	poll[bool](t, ctx, `!!document.getElementById("uncertainty-runs")`, 10*time.Second)
 	typeInto(t, ctx, "uncertainty-layers-1-k", "-3")
