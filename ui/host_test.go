@@ -56,15 +56,22 @@ func (h *workerHost) calls() int {
 // settle waits until the root has no solve under way.
 func settle(t *testing.T, root *Root) {
 	t.Helper()
-	for deadline := time.Now().Add(20 * time.Second); ; time.Sleep(5 * time.Millisecond) {
+	waitIdle(t, root, "the solve", 20*time.Second, func() bool { return root.busy })
+}
+
+// waitIdle waits, with the render lock released, until busy (read under
+// the lock) is false, and fails t when what has not finished within d.
+func waitIdle(t *testing.T, root *Root, what string, d time.Duration, busy func() bool) {
+	t.Helper()
+	for deadline := time.Now().Add(d); ; time.Sleep(5 * time.Millisecond) {
 		root.Env.Lock()
-		busy := root.busy
+		b := busy()
 		root.Env.UnlockOnly()
-		if !busy {
+		if !b {
 			return
 		}
 		if time.Now().After(deadline) {
-			t.Fatal("the solve did not finish")
+			t.Fatal(what + " did not finish")
 		}
 	}
 }

@@ -57,17 +57,7 @@ func TestRangeOnPage(t *testing.T) {
 		s := root.rangeState()
 		if workers {
 			root.Env.UnlockOnly()
-			for deadline := time.Now().Add(30 * time.Second); ; time.Sleep(5 * time.Millisecond) {
-				root.Env.Lock()
-				busy := s.busy
-				root.Env.UnlockOnly()
-				if !busy {
-					break
-				}
-				if time.Now().After(deadline) {
-					t.Fatal("the Monte Carlo did not finish")
-				}
-			}
+			waitIdle(t, root, "the Monte Carlo", 30*time.Second, func() bool { return s.busy })
 		}
 		if s.err != "" || s.bands == nil || s.done != runs {
 			t.Fatalf("workers %v: error %q, %d of %d runs", workers, s.err, s.done, runs)

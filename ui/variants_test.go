@@ -31,17 +31,7 @@ func TestCompareOnPage(t *testing.T) {
 		s := root.compareState()
 		if workers {
 			root.Env.UnlockOnly()
-			for deadline := time.Now().Add(30 * time.Second); ; time.Sleep(5 * time.Millisecond) {
-				root.Env.Lock()
-				busy := s.busy
-				root.Env.UnlockOnly()
-				if !busy {
-					break
-				}
-				if time.Now().After(deadline) {
-					t.Fatal("the comparison did not finish")
-				}
-			}
+			waitIdle(t, root, "the comparison", 30*time.Second, func() bool { return s.busy })
 		}
 		want := optcmp.Solve(root.form.Model(), nil)
 		if len(s.outcomes) != 3 || s.err != "" {

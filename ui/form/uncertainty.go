@@ -40,12 +40,6 @@ func (f *Form) remapUncertainty(to func(old int) int) {
 	if u == nil {
 		return
 	}
-	out := make([]solver.LayerSpread, len(f.draft.Layers))
-	for old, l := range u.Layers {
-		if i := to(old); i >= 0 && i < len(out) {
-			out[i] = l
-		}
-	}
-	u.Layers = out
+	u.Layers = moved(u.Layers, len(f.draft.Layers), to)
 	f.remap("uncertainty.layers", to)
 }

@@ -52,13 +52,7 @@ func (f *Form) SetVariantNoDrains(i int, on bool) {
 func (f *Form) remapVariantLayers(to func(old int) int) {
 	for i := range f.draft.Variants {
 		v := &f.draft.Variants[i]
-		out := make([]solver.LayerChange, len(f.draft.Layers))
-		for old, c := range v.Layers {
-			if j := to(old); j >= 0 && j < len(out) {
-				out[j] = c
-			}
-		}
-		v.Layers = out
+		v.Layers = moved(v.Layers, len(f.draft.Layers), to)
 		f.remap(solver.JoinPath(solver.IndexPath("variants", i), "layers"), to)
 	}
 }
@@ -67,15 +61,21 @@ func (f *Form) remapVariantLayers(to func(old int) int) {
 func (f *Form) remapVariantLoads(to func(old int) int) {
 	for i := range f.draft.Variants {
 		v := &f.draft.Variants[i]
-		out := make([]solver.LoadChange, len(f.draft.Loads))
-		for old, c := range v.Loads {
-			if j := to(old); j >= 0 && j < len(out) {
-				out[j] = c
-			}
-		}
-		v.Loads = out
+		v.Loads = moved(v.Loads, len(f.draft.Loads), to)
 		f.remap(solver.JoinPath(solver.IndexPath("variants", i), "loads"), to)
 	}
+}
+
+// moved is xs with each entry at its new index to(old) in a slice of n
+// (entries that leave it are dropped, the others zero).
+func moved[T any](xs []T, n int, to func(old int) int) []T {
+	out := make([]T, n)
+	for old, x := range xs {
+		if j := to(old); j >= 0 && j < n {
+			out[j] = x
+		}
+	}
+	return out
 }
 
 // fitVariants gives every option one change per stage and layer, so that
