@@ -58,7 +58,8 @@ type consolidation struct {
 	secParts []secondaryPart // the layers with a secondary compression estimate
 
 	// layerW are the element weights of layerNow when the series keeps
-	// every layer's settlement (Series.Layers), layerBuf its scratch.
+	// every layer's settlement (Series.Layers), layerBuf its scratch
+	// (ends.ew and ends.now when ends is kept too: one sum serves both).
 	layerW, layerBuf []float64
 	// watch, when set (Options.watch), sees the nodal total stress and
 	// pore pressure change after every recorded step.
@@ -285,7 +286,11 @@ func (k *consolidation) prepareSeries() *Consolidation {
 	}
 	k.prepareEnds(capacity)
 	if n := layerSeries(p); n > 0 {
-		k.layerW, k.layerBuf = k.elementWeights(), make([]float64, n)
+		if k.ends != nil { // the same sums feed both
+			k.layerW, k.layerBuf = k.ends.ew, k.ends.now
+		} else {
+			k.layerW, k.layerBuf = k.elementWeights(), make([]float64, n)
+		}
 		ser.Layers = make([][]float64, n)
 		for i := range ser.Layers {
 			ser.Layers[i] = make([]float64, 0, capacity)
@@ -379,7 +384,9 @@ func (k *consolidation) record(ser *Series, t float64) {
 		k.ends.observe(t, k.ends.now)
 	}
 	if k.layerW != nil {
-		k.layerNow(k.layerBuf, k.layerW)
+		if k.ends == nil { // else layerBuf is ends.now, summed above
+			k.layerNow(k.layerBuf, k.layerW)
+		}
 		for i, v := range k.layerBuf {
 			ser.Layers[i] = append(ser.Layers[i], v)
 		}
