@@ -3613,7 +3613,7 @@ func (c *Field) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 		if c.showUnit() {
 			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-unit"}}}
 			vgparent.AppendChild(vgn)
-			vgn.SetInnerHTML(c.Unit)
+			vgn.SetInnerHTML(c.unit())
 		}
 		if c.problem() != "" {
 			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-err"}}}

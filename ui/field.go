@@ -29,6 +29,10 @@ func (c *Field) errID() string   { return form.IDOf(c.Path) + "-err" }
 func (c *Field) problem() string { return c.F.Problem(c.Path) }
 func (c *Field) showUnit() bool  { return c.Unit != "" && !c.Bare }
 
+// unit is the unit the input shows its value in: Unit, or its US
+// customary counterpart when the page shows those (form.Form.UnitOf).
+func (c *Field) unit() string { return c.F.UnitOf(c.Path, c.Unit) }
+
 func (c *Field) class() string {
 	s := "pl-field"
 	if c.Wide {
@@ -51,7 +55,7 @@ func (c *Field) inputMode() string {
 }
 
 func (c *Field) placeholder() any {
-	if h, ok := form.Placeholder(c.Path); ok {
+	if h, ok := c.F.Placeholder(c.Path); ok {
 		return h
 	}
 	return nil
@@ -68,10 +72,10 @@ func (c *Field) used() any {
 }
 
 func (c *Field) ariaLabel() string {
-	if c.Unit == "" || c.Unit == "–" {
-		return c.Label
+	if u := c.unit(); u != "" && u != "–" {
+		return c.Label + " (" + u + ")"
 	}
-	return c.Label + " (" + c.Unit + ")"
+	return c.Label
 }
 
 func (c *Field) invalid() any {

@@ -6,6 +6,7 @@ import (
 	"strings"
 
 	"porelight/solver"
+	"porelight/ui/units"
 )
 
 // Form is the editable state of one project: the draft the inputs show,
@@ -26,6 +27,8 @@ type Form struct {
 
 	good *solver.Project // the last draft without problems (echo.go)
 	echo map[string]bool // inputs whose problem is an echo of another's
+
+	sys units.System // the units the inputs show (units.go)
 
 	typed   string // the input Edit last took (TakeTyped)
 	changes int    // checks since TakeTyped: every change ends in one
@@ -85,6 +88,9 @@ func (f *Form) Text(path string) string {
 	if r, ok := readingAt(&f.draft, path); ok && strings.HasSuffix(path, ".t") {
 		return readingTimeText(*r)
 	}
+	if i := cvLayer(path); i >= 0 {
+		return f.cvText(i)
+	}
 	if leafKind(path) == reflect.String {
 		return getString(&f.draft, path)
 	}
@@ -95,12 +101,16 @@ func (f *Form) Text(path string) string {
 	if !ok || (v == 0 && zeroIsDefault(path)) {
 		return ""
 	}
-	return FormatNumber(v * scaleOf(path))
+	return FormatNumber(f.toShown(path, v))
 }
 
 // Edit takes the text typed into the input at path. It reports whether
 // the draft changed.
 func (f *Form) Edit(path, text string) bool {
+	if i, ok := layerK(path); ok {
+		delete(f.raw, CvPath(i)) // a k typed stands on its own
+		delete(f.bad, CvPath(i))
+	}
 	f.raw[path] = text
 	delete(f.bad, path)
 	changed, msg := f.apply(path, text)
@@ -142,6 +152,10 @@ func (f *Form) apply(path, text string) (changed bool, problem string) {
 	if msg, handled := f.applyRecord(path, s); handled {
 		return msg == "" && getAny(&f.draft, path) != before, msg
 	}
+	if i := cvLayer(path); i >= 0 {
+		msg := f.applyCv(i, s)
+		return msg == "" && getAny(&f.draft, path) != before, msg
+	}
 	switch {
 	case leafKind(path) == reflect.String:
 		if err := setString(&f.draft, path, text); err != nil {
@@ -162,7 +176,7 @@ func (f *Form) apply(path, text string) (changed bool, problem string) {
 		if msg != "" {
 			return false, msg
 		}
-		if err := setNumber(&f.draft, path, x/scaleOf(path)); err != nil {
+		if err := setNumber(&f.draft, path, f.fromShown(path, x)); err != nil {
 			return false, err.Error()
 		}
 	}
@@ -187,6 +201,7 @@ func getAny(p *solver.Project, path string) string {
 // the input that shows its path.
 func (f *Form) check() {
 	f.changes++
+	f.followCv()
 	f.probs = map[string][]string{}
 	f.other = nil
 	for _, pr := range solver.AsProblems(solver.Validate(&f.draft)) {
@@ -232,7 +247,7 @@ var pageFields = func() map[string]bool {
 		}
 	}
 	add("", "title", "notes", "gammaW", "waterTable", "times", "piezometers", "targetDegree", "designLife", "model")
-	add("layers[#].", "name", "thickness", "gammaSat", "gamma", "k", "mv", "mvUnload", "calpha", "calphaCc", "calphaReduced",
+	add("layers[#].", "cv", "name", "thickness", "gammaSat", "gamma", "k", "mv", "mvUnload", "calpha", "calphaCc", "calphaReduced",
 		"ecurve.e0", "ecurve.cc", "ecurve.cr", "ecurve.sigmaP", "ecurve.ocr", "ecurve.pop", "ecurve.ck",
 		"ecurve.sigmaPProfile[#].z", "ecurve.sigmaPProfile[#].value")
 	for _, end := range []string{"top.", "bottom."} {

@@ -49,15 +49,19 @@ func parseList(s string) ([]float64, string) {
 // writes: for values the page computes and types into a field (a
 // back-fitted k), whose further digits only look precise.
 // FormatSig(1.54762679591e-9, 3) is "1.55e-9".
-func FormatSig(x float64, n int) string {
+func FormatSig(x float64, n int) string { return FormatNumber(RoundSig(x, n)) }
+
+// RoundSig is x rounded to n significant figures (x itself when n < 1 or
+// x is 0, NaN or infinite).
+func RoundSig(x float64, n int) float64 {
 	if x == 0 || math.IsNaN(x) || math.IsInf(x, 0) || n < 1 {
-		return FormatNumber(x)
+		return x
 	}
 	r, err := strconv.ParseFloat(strconv.FormatFloat(x, 'e', n-1, 64), 64)
 	if err != nil {
-		return FormatNumber(x)
+		return x
 	}
-	return FormatNumber(r)
+	return r
 }
 
 // FormatNumber writes x briefly and exactly enough to read back the same:

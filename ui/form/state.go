@@ -9,6 +9,7 @@ import (
 	"sort"
 
 	"porelight/solver"
+	"porelight/ui/units"
 )
 
 // State is everything the inputs show: the draft, problems and all, and
@@ -18,11 +19,21 @@ import (
 type State struct {
 	Project *solver.Project   `json:"project"`
 	Typed   map[string]string `json:"typed,omitempty"`
+	// Units is the system the typed text was typed in ("" for SI).
+	Units string `json:"units,omitempty"`
+}
+
+// typedUnits is the key of the system the typed text is in, "" for SI.
+func (f *Form) typedUnits() string {
+	if f.sys == units.SI {
+		return ""
+	}
+	return f.sys.String()
 }
 
 // State returns a deep copy of what the inputs show.
 func (f *Form) State() State {
-	return State{Project: cloneProject(&f.draft), Typed: maps.Clone(f.raw)}
+	return State{Project: cloneProject(&f.draft), Typed: maps.Clone(f.raw), Units: f.typedUnits()}
 }
 
 // Restore makes s what the inputs show, as State returned it: the draft
@@ -39,6 +50,9 @@ func (f *Form) Restore(s State) {
 	f.raw = map[string]string{}
 	f.bad = map[string]string{}
 	f.check()
+	shown := f.sys
+	f.sys, _ = units.Parse(s.Units) // the typed text reads in the units it was typed in
+	defer f.SetUnits(shown)
 	paths := slices.Sorted(maps.Keys(s.Typed))
 	for _, path := range paths {
 		text := s.Typed[path]
@@ -110,6 +124,7 @@ type draftFile struct {
 	Note     string            `json:"note,omitempty"`
 	Problems []FieldProblem    `json:"problems,omitempty"`
 	Typed    map[string]string `json:"typed,omitempty"`
+	Units    string            `json:"units,omitempty"` // the system Typed is in; "" for SI
 	Project  json.RawMessage   `json:"project"`
 }
 
@@ -152,7 +167,7 @@ func (f *Form) EncodeDraft() ([]byte, error) {
 	case n > 1:
 		note = fmt.Sprintf("A draft saved from Porelight with %d problems (listed below) and the text as typed; Porelight reopens it with the problems shown. Fix them to make this a project the solver accepts.", n)
 	}
-	d := draftFile{Format: DraftFormat, Note: note, Problems: ps, Typed: f.raw, Project: proj}
+	d := draftFile{Format: DraftFormat, Note: note, Problems: ps, Typed: f.raw, Units: f.typedUnits(), Project: proj}
 	return json.MarshalIndent(d, "", "  ")
 }
 
@@ -164,7 +179,7 @@ func (f *Form) EncodeState() ([]byte, error) {
 	if err != nil {
 		return nil, err
 	}
-	return json.Marshal(draftFile{Format: DraftFormat, Typed: f.raw, Project: proj})
+	return json.Marshal(draftFile{Format: DraftFormat, Typed: f.raw, Units: f.typedUnits(), Project: proj})
 }
 
 // ErrNotDraft says data is not a draft file (it may be a plain project).
@@ -212,5 +227,8 @@ func ReadDraft(data []byte) (State, solver.Problems) {
 			typed[k] = d.Typed[k]
 		}
 	}
-	return State{Project: p, Typed: typed}, nil
+	if _, ok := units.Parse(d.Units); !ok && d.Units != "" {
+		return State{}, solver.Problems{{Path: "units", Message: fmt.Sprintf("%q is not a unit system (si or us)", d.Units)}}
+	}
+	return State{Project: p, Typed: typed, Units: d.Units}, nil
 }

@@ -8,7 +8,7 @@ import "porelight/solver"
 // → the head), else the placeholder's words ("none", "k fixed"). It is ""
 // when the input holds text or has no placeholder.
 func (f *Form) Used(path string) string {
-	hint, ok := Placeholder(path)
+	hint, ok := f.Placeholder(path)
 	if !ok || f.Text(path) != "" {
 		return ""
 	}
@@ -17,7 +17,7 @@ func (f *Form) Used(path string) string {
 		if v <= 0 {
 			return hint
 		}
-		return FormatNumber(v) + unit
+		return FormatNumber(f.toShown(path, v)) + unit
 	}
 	switch path {
 	case "mesh.maxSize":
@@ -25,7 +25,7 @@ func (f *Form) Used(path string) string {
 	case "stepping.endTime":
 		return num(solver.EndTime(p), "")
 	case "top.head", "bottom.head":
-		return FormatNumber(-p.WaterTable)
+		return FormatNumber(f.toShown(path, -p.WaterTable))
 	}
 	if steps, err := solver.ParsePath(path); err == nil && len(steps) == 2 && steps[0].Name == "layers" &&
 		steps[0].Index >= 0 && steps[0].Index < len(p.Layers) {
@@ -37,7 +37,7 @@ func (f *Form) Used(path string) string {
 			return num(l.Mv, "")
 		case "calphaReduced":
 			if l.Calpha > 0 {
-				return FormatNumber(l.Calpha)
+				return FormatNumber(l.Calpha) // a ratio: the same in every system
 			}
 		}
 	}

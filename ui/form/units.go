@@ -1,0 +1,126 @@
+package form
+
+import (
+	"porelight/ui/units"
+)
+
+// Display units. The draft and the file stay SI; an input shows its
+// value in the unit system the user chose, and what is typed into it is
+// read in that system (units.System.Take rounds a converted value to 12
+// significant figures).
+
+// quantities maps each input that measures something to what it
+// measures (paths as pageFields writes them); an input not listed is a
+// ratio, an index, a count or a time, and shows the same in every system.
+var quantities = map[string]units.Quantity{
+	"gammaW":                                      units.UnitWeight,
+	"waterTable":                                  units.Length,
+	"piezometers":                                 units.Length,
+	"layers[#].thickness":                         units.Length,
+	"layers[#].gammaSat":                          units.UnitWeight,
+	"layers[#].gamma":                             units.UnitWeight,
+	"layers[#].k":                                 units.Permeability,
+	"layers[#].cv":                                units.Consolidation,
+	"layers[#].mv":                                units.Compressibility,
+	"layers[#].mvUnload":                          units.Compressibility,
+	"layers[#].ecurve.sigmaP":                     units.Stress,
+	"layers[#].ecurve.pop":                        units.Stress,
+	"layers[#].ecurve.sigmaPProfile[#].z":         units.Length,
+	"layers[#].ecurve.sigmaPProfile[#].value":     units.Stress,
+	"layers[#].outlet.head":                       units.Length,
+	"layers[#].ch":                                units.Consolidation,
+	"top.head":                                    units.Length,
+	"bottom.head":                                 units.Length,
+	"top.inflow":                                  units.Permeability,
+	"bottom.inflow":                               units.Permeability,
+	"top.excess[#].value":                         units.Stress,
+	"bottom.excess[#].value":                      units.Stress,
+	"loads[#].q":                                  units.Stress,
+	"loads[#].fill.thickness":                     units.Length,
+	"loads[#].fill.gamma":                         units.UnitWeight,
+	"loads[#].fill.gammaSat":                      units.UnitWeight,
+	"loads[#].area.width":                         units.Length,
+	"loads[#].area.length":                        units.Length,
+	"loads[#].area.radius":                        units.Length,
+	"loads[#].area.x":                             units.Length,
+	"loads[#].area.y":                             units.Length,
+	"loads[#].profile[#].z":                       units.Length,
+	"loads[#].dig.depth":                          units.Length,
+	"loads[#].dig.waterLevel":                     units.Length,
+	"loads[#].lower.waterTable":                   units.Length,
+	"initialExcess[#].z":                          units.Length,
+	"initialExcess[#].value":                      units.Stress,
+	"mesh.maxSize":                                units.Length,
+	"drains.spacing":                              units.Length,
+	"drains.diameter":                             units.Length,
+	"drains.width":                                units.Length,
+	"drains.thickness":                            units.Length,
+	"drains.qw":                                   units.Discharge,
+	"drains.top":                                  units.Length,
+	"drains.depth":                                units.Length,
+	"variants[#].drainSpacing":                    units.Length,
+	"variants[#].loads[#].q":                      units.Stress,
+	"variants[#].loads[#].fillThickness":          units.Length,
+	"variants[#].layers[#].k":                     units.Permeability,
+	"variants[#].layers[#].mv":                    units.Compressibility,
+	"variants[#].layers[#].ch":                    units.Consolidation,
+	"variants[#].layers[#].thickness":             units.Length,
+	"alignment.sections[#].chainage":              units.Length,
+	"monitoring.plates[#].readings[#].value":      units.Settlement,
+	"monitoring.piezometers[#].depth":             units.Length,
+	"monitoring.piezometers[#].readings[#].value": units.Stress,
+}
+
+// QuantityOf is what the input at path measures (units.None for a
+// ratio, a count, a time, text, or a path no input shows).
+func QuantityOf(path string) units.Quantity { return quantities[indexless(path)] }
+
+// Units is the unit system the inputs show.
+func (f *Form) Units() units.System { return f.sys }
+
+// SetUnits makes the inputs show s. The draft is unchanged. Text typed
+// that reads as a value is shown again in the new units; text that does
+// not read as one is kept as typed, with its problem.
+func (f *Form) SetUnits(s units.System) {
+	if s == f.sys {
+		return
+	}
+	f.sys = s
+	for path := range f.raw {
+		if _, bad := f.bad[path]; bad {
+			continue
+		}
+		if QuantityOf(path) != units.None {
+			delete(f.raw, path)
+		}
+	}
+}
+
+// UnitOf is the symbol of the unit the input at path shows: given is the
+// SI symbol the page writes beside it, returned as it is where the input
+// measures nothing the systems differ in.
+func (f *Form) UnitOf(path, given string) string {
+	if q := QuantityOf(path); q != units.None && f.sys != units.SI {
+		return f.sys.Symbol(q)
+	}
+	return given
+}
+
+// toShown converts a value in the file's unit to what the input at path
+// shows; fromShown converts back.
+func (f *Form) toShown(path string, v float64) float64 {
+	return f.sys.Show(QuantityOf(path), v*scaleOf(path))
+}
+
+func (f *Form) fromShown(path string, x float64) float64 {
+	return f.sys.Take(QuantityOf(path), x) / scaleOf(path)
+}
+
+// Placeholder is what the empty input at path shows (see the function
+// Placeholder), with a default that has a unit in the units shown.
+func (f *Form) Placeholder(path string) (text string, ok bool) {
+	if v, ok := numberDefaults[path]; ok && QuantityOf(path) != units.None {
+		return FormatSig(f.toShown(path, v), 4), true
+	}
+	return Placeholder(path)
+}
