@@ -8,6 +8,7 @@ import (
 
 	"porelight/solver/monitor"
 	"porelight/ui/form"
+	"porelight/ui/units"
 
 	"github.com/vugu/vugu"
 )
@@ -139,10 +140,10 @@ func (c *Backfit) rms() []string {
 	res := c.S.res
 	var out []string
 	if res.RMSSettlement != nil && res.InitialRMSSettlement != nil {
-		out = append(out, fmt.Sprintf("Settlement: %.1f mm before the fit, %.1f mm after.", *res.InitialRMSSettlement*1000, *res.RMSSettlement*1000))
+		out = append(out, fmt.Sprintf("Settlement: %s %s before the fit, %s %[2]s after.", mm1(*res.InitialRMSSettlement), sym(units.Settlement), mm1(*res.RMSSettlement)))
 	}
 	if res.RMSPressure != nil && res.InitialRMSPressure != nil {
-		out = append(out, fmt.Sprintf("Pore pressure: %s kPa before the fit, %s kPa after.", sig(*res.InitialRMSPressure, 3), sig(*res.RMSPressure, 3)))
+		out = append(out, fmt.Sprintf("Pore pressure: %s before the fit, %s after.", qty(units.Stress, *res.InitialRMSPressure, 3), qty(units.Stress, *res.RMSPressure, 3)))
 	}
 	return out
 }

@@ -12,6 +12,7 @@ import (
 	"porelight/solver/monitor"
 	"porelight/ui/form"
 	"porelight/ui/plot"
+	"porelight/ui/units"
 )
 
 // Comparison sets the field records against the prediction: the
@@ -69,20 +70,37 @@ func (c *Comparison) Compute() {
 
 func (c *Comparison) recs() []resRecord { return c.res }
 
-// figure formats a value of a record in its unit.
+// figure formats a value of a record (in mm or kPa, its unit) in the
+// unit shown.
 func figure(v float64, unit string) string {
 	if math.IsNaN(v) {
 		return "–"
 	}
+	v = conv(recQty(unit), v)
 	if unit == "mm" {
+		if shown == units.US {
+			return fmt.Sprintf("%.2f", v)
+		}
 		return fmt.Sprintf("%.1f", v)
 	}
 	return sig(v, 3)
 }
 
+// recQty is what a record's values measure, by their unit: "mm" for
+// settlement, "kPa" for pore pressure.
+func recQty(unit string) units.Quantity {
+	if unit == "mm" {
+		return units.Settlement
+	}
+	return units.Stress
+}
+
+// recSym is the symbol a record's values are shown in.
+func recSym(unit string) string { return sym(recQty(unit)) }
+
 func (c *Comparison) kind(r resRecord) string {
 	if r.Kind == form.Piezometers {
-		return "pore pressure at " + sig(r.Depth, 4) + " m"
+		return "pore pressure at " + qty(units.Length, r.Depth, 4)
 	}
 	return "settlement"
 }
@@ -191,7 +209,7 @@ func (c *Comparison) predictedFinal() string {
 	if c.R == nil || c.R.Summary.Settlement == nil {
 		return "–"
 	}
-	return fmt.Sprintf("%.0f mm", *c.R.Summary.Settlement*1000)
+	return mm(*c.R.Summary.Settlement)
 }
 
 // predictedLabel names the figure predictedFinal shows.
@@ -394,12 +412,15 @@ func plateAsaoka(p *solver.Project, i int, from, to float64) (*monitor.AsaokaRes
 }
 
 func (c *Comparison) final(a asaoka) string {
-	return pm(a.Res.Final*1000, a.Res.FinalUncertainty*1000) + " mm"
+	return pm(conv(units.Settlement, a.Res.Final*1000), conv(units.Settlement, a.Res.FinalUncertainty*1000)) + " " + sym(units.Settlement)
 }
 
 func (c *Comparison) cv(a asaoka) string {
 	if a.Res.DrainagePath == 0 {
 		return "– (the column has no drained end)"
+	}
+	if shown == units.US {
+		return pm(conv(units.Consolidation, a.Res.Cv*solver.DaysPerYear), conv(units.Consolidation, a.Res.CvUncertainty*solver.DaysPerYear)) + " " + cvSym()
 	}
 	return pm(a.Res.Cv, a.Res.CvUncertainty) + " m²/day"
 }
@@ -413,6 +434,9 @@ func (c *Comparison) ch(a asaoka) string {
 	ch, ok := monitor.DrainCh(a.Res, c.R)
 	if !ok {
 		return "– (the readings' window is outside the prediction)"
+	}
+	if shown == units.US {
+		return cvShown(ch) + " " + cvSym()
 	}
 	return sig(ch, 3) + " m²/day (" + sig(ch*solver.DaysPerYear, 3) + " m²/year)"
 }
@@ -431,12 +455,12 @@ func (c *Comparison) cvNote(a asaoka) string {
 	if len(names) > 0 {
 		through = strings.Join(names, ", ")
 	}
-	return fmt.Sprintf("for %s (drainage path %s m: their thickness over the drained ends of the column; choose the layers above); the parabolic-isochrone form gives %s",
-		through, sig(a.Res.DrainagePath, 3), sig(a.Res.CvParabolic, 3))
+	return fmt.Sprintf("for %s (drainage path %s: their thickness over the drained ends of the column; choose the layers above); the parabolic-isochrone form gives %s",
+		through, qty(units.Length, a.Res.DrainagePath, 3), cvShown(a.Res.CvParabolic))
 }
 
 func (c *Comparison) betas(a asaoka) string {
-	return fmt.Sprintf("β0 = %s mm, β1 = %s", pm(a.Res.Beta0*1000, a.Res.Beta0SE*1000), pm(a.Res.Beta1, a.Res.Beta1SE))
+	return fmt.Sprintf("β0 = %s %s, β1 = %s", pm(conv(units.Settlement, a.Res.Beta0*1000), conv(units.Settlement, a.Res.Beta0SE*1000)), sym(units.Settlement), pm(a.Res.Beta1, a.Res.Beta1SE))
 }
 
 func (c *Comparison) windowText(a asaoka) string {
@@ -454,11 +478,11 @@ func (c *Comparison) windowText(a asaoka) string {
 
 // hyperbolic is the hyperbolic method's forecast on the same readings.
 func (c *Comparison) hyperbolic(a asaoka) string {
-	return fmt.Sprintf("%.0f mm", a.Res.Hyperbolic.Corrected*1000)
+	return mm(a.Res.Hyperbolic.Corrected)
 }
 
 func (c *Comparison) hyperbolicNote(a asaoka) string {
-	return fmt.Sprintf("with the slope correction of Sridharan et al. (1987); the plain hyperbola gives %.0f mm, which for Terzaghi-type consolidation is about 20 %% too high", a.Res.Hyperbolic.Final*1000)
+	return fmt.Sprintf("with the slope correction of Sridharan et al. (1987); the plain hyperbola gives %s, which for Terzaghi-type consolidation is about 20 %% too high", mm(a.Res.Hyperbolic.Final))
 }
 
 // startsText lists the forecast for other window starts; the ± of the
@@ -466,9 +490,9 @@ func (c *Comparison) hyperbolicNote(a asaoka) string {
 func (c *Comparison) startsText(a asaoka) string {
 	var parts []string
 	for _, r := range a.Res.Starts {
-		parts = append(parts, fmt.Sprintf("day %s: %.0f mm", sig(r.From, 4), r.Final*1000))
+		parts = append(parts, fmt.Sprintf("day %s: %s", sig(r.From, 4), mm(r.Final)))
 	}
-	return strings.Join(parts, ", ") + fmt.Sprintf(" (the ± above includes a spread of %.0f mm over the later starts)", a.Res.FinalSpread*1000)
+	return strings.Join(parts, ", ") + fmt.Sprintf(" (the ± above includes a spread of %s over the later starts)", mm(a.Res.FinalSpread))
 }
 
 func (c *Comparison) exportAsaoka(a asaoka, format string) {

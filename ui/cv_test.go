@@ -5,17 +5,21 @@ import (
 
 	"porelight/solver"
 	"porelight/solver/soil"
+	"porelight/ui/form"
 )
 
-// TestDerivedCvOnlyFromValidInputs: the derived cv beside layer 2 is
+// TestDerivedCvOnlyFromValidInputs: the cv input of layer 2 shows
 // k/(mv γw) of what is typed (soil.Cv, Terzaghi's definition; common
-// practice), and while k or mv is invalid it shows no figure rather than
-// the last valid one.
+// practice) in m²/yr, and while k or mv is invalid it shows no figure
+// rather than the last valid one.
 func TestDerivedCvOnlyFromValidInputs(t *testing.T) {
 	p := newPage(t, Sources{})
 	d := p.root.Form().Draft()
-	want := sig(soil.Cv(d.Layers[1].K, d.Layers[1].Mv, solver.ResolveGammaW(d)), 3)
-	if got := p.text("layers-1-cv"); got != want {
+	cvOf := func(k float64) string {
+		return form.FormatSig(soil.Cv(k, d.Layers[1].Mv, solver.ResolveGammaW(d))*solver.DaysPerYear, 3)
+	}
+	want := cvOf(d.Layers[1].K)
+	if got := p.value("layers-1-cv"); got != want {
 		t.Fatalf("cv of layer 2 shows %q, want %q", got, want)
 	}
 	for _, c := range []struct{ id, bad, good string }{
@@ -23,16 +27,22 @@ func TestDerivedCvOnlyFromValidInputs(t *testing.T) {
 		{"layers-1-mv", "-1", p.value("layers-1-mv")},
 	} {
 		p.typeInto(c.id, c.bad)
-		if got := p.text("layers-1-cv"); got != "–" {
-			t.Errorf("with %s = %q the cv shows %q, want –", c.id, c.bad, got)
+		if got := p.value("layers-1-cv"); got != "" {
+			t.Errorf("with %s = %q the cv shows %q, want nothing", c.id, c.bad, got)
 		}
 		p.typeInto(c.id, c.good)
-		if got := p.text("layers-1-cv"); got != want {
+		if got := p.value("layers-1-cv"); got != want {
 			t.Errorf("with %s back to %q the cv shows %q, want %q", c.id, c.good, got, want)
 		}
 	}
 	p.typeInto("layers-1-k", "3.6e-9")
-	if got, want := p.text("layers-1-cv"), sig(soil.Cv(3.6e-9, d.Layers[1].Mv, solver.ResolveGammaW(d)), 3); got != want {
+	if got, want := p.value("layers-1-cv"), cvOf(3.6e-9); got != want {
 		t.Errorf("with k doubled the cv shows %q, want %q", got, want)
+	}
+	// A cv typed gives k = cv·mv·γw (to 6 figures).
+	p.typeInto("layers-1-cv", "2.5")
+	wantK := form.FormatSig(2.5/solver.DaysPerYear/soil.SecondsPerDay*d.Layers[1].Mv*solver.ResolveGammaW(d), 6)
+	if got := p.value("layers-1-k"); got != wantK {
+		t.Errorf("cv 2.5 m²/yr typed: k shows %q, want %q", got, wantK)
 	}
 }

@@ -14,6 +14,7 @@ import (
 	"porelight/solver"
 	"porelight/ui/form"
 	"porelight/ui/plot"
+	"porelight/ui/units"
 )
 
 // decisionsRun is the state of the site decisions that need solves of
@@ -113,7 +114,7 @@ func (c *Decisions) su0Text(layer int) string {
 		if k > 0 {
 			s += "; "
 		}
-		s += sig(p.Value, 3) + " kPa at " + sig(p.Z, 3) + " m"
+		s += qty(units.Stress, p.Value, 3) + " at " + qty(units.Length, p.Z, 3)
 	}
 	return "su0: " + s
 }
@@ -157,10 +158,15 @@ func when(p *solver.Project, day float64) string {
 
 // mm1 is a settlement, m, in mm to 0.1 mm (no powers of ten for the
 // near-zero figures of stiff layers).
+// mm1 writes a settlement in m as a table figure: mm to one decimal, or
+// in to two in US units.
 func mm1(m float64) string {
 	s := fmt.Sprintf("%.1f", 1000*m)
-	if s == "-0.0" {
-		s = "0.0"
+	if shown == units.US {
+		s = fmt.Sprintf("%.2f", conv(units.Settlement, 1000*m))
+	}
+	if strings.Trim(s, "-0.") == "" {
+		s = strings.TrimPrefix(s, "-")
 	}
 	return s
 }
@@ -215,7 +221,7 @@ func (c *Decisions) progressText() string { return fmt.Sprintf("%.0f %%", 100*c.
 func (c *Decisions) removalText() string {
 	pl := c.S.plan
 	p := c.S.model
-	head := fmt.Sprintf("The surcharge (%s kPa, taken off by stage %d) ", sig(pl.Surcharge, 3), pl.Removal+1)
+	head := fmt.Sprintf("The surcharge (%s, taken off by stage %d) ", qty(units.Stress, pl.Surcharge, 3), pl.Removal+1)
 	if pl.RemoveOn == nil {
 		return head + "does not reach the permanent load's settlement everywhere in the simulated time: no removal day found."
 	}
@@ -235,7 +241,7 @@ func (c *Decisions) removalReasons() []string {
 	pl := c.S.plan
 	p := c.S.model
 	var out []string
-	t := fmt.Sprintf("Target: under the permanent load alone (%s kPa at the surface) the final primary settlement is %s", sig(pl.Permanent, 3), mm(pl.TargetPrimary))
+	t := fmt.Sprintf("Target: under the permanent load alone (%s at the surface) the final primary settlement is %s", qty(units.Stress, pl.Permanent, 3), mm(pl.TargetPrimary))
 	if pl.TargetSecondary > 0 {
 		t += fmt.Sprintf(", plus %s of secondary compression by the end of the design life", mm(pl.TargetSecondary))
 	}
@@ -257,7 +263,7 @@ func (c *Decisions) removalReasons() []string {
 			mm(a.AtRemoval), mm(a.Rebound), mm(a.FinalPrimary), after))
 	}
 	if n := pl.Needed; n != nil {
-		s := fmt.Sprintf("To take it off by %s the surcharge would have to be %s kPa", when(p, n.By), sig(n.Surcharge, 3))
+		s := fmt.Sprintf("To take it off by %s the surcharge would have to be %s", when(p, n.By), qty(units.Stress, n.Surcharge, 3))
 		if n.Thickness > 0 {
 			s += fmt.Sprintf(" (%s m of fill)", sig(n.Thickness, 3))
 		}
@@ -294,7 +300,7 @@ func (c *Decisions) liftRows() []liftRow {
 	var out []liftRow
 	p := c.S.model
 	for _, l := range c.S.strength.Lifts {
-		r := liftRow{Stage: fmt.Sprint(l.Stage + 1), Start: when(p, l.Start), Pressure: sig(l.Pressure, 3), Su: sig(l.Su, 3), Carries: sig(l.Carries, 3), Verdict: "passes", Earliest: "not in the simulated time"}
+		r := liftRow{Stage: fmt.Sprint(l.Stage + 1), Start: when(p, l.Start), Pressure: sig(conv(units.Stress, l.Pressure), 3), Su: sig(conv(units.Stress, l.Su), 3), Carries: sig(conv(units.Stress, l.Carries), 3), Verdict: "passes", Earliest: "not in the simulated time"}
 		if !l.Safe {
 			r.Verdict, r.Class = "too early", "pl-alarm"
 		}
@@ -311,7 +317,7 @@ func (c *Decisions) liftTexts() []string {
 	var out []string
 	p := c.S.model
 	for _, l := range c.S.strength.Lifts {
-		s := fmt.Sprintf("Stage %d (%s kPa at the surface once placed), planned for %s: the ground then carries about %s kPa by this check", l.Stage+1, sig(l.Pressure, 3), when(p, l.Start), sig(l.Carries, 3))
+		s := fmt.Sprintf("Stage %d (%s at the surface once placed), planned for %s: the ground then carries about %s by this check", l.Stage+1, qty(units.Stress, l.Pressure, 3), when(p, l.Start), qty(units.Stress, l.Carries, 3))
 		switch {
 		case l.Safe:
 			s += ", enough."
@@ -364,7 +370,7 @@ func (c *Decisions) ratioRows() []ratioRow {
 		if len(pr.Time) == 0 {
 			continue
 		}
-		r := ratioRow{Name: "z = " + sig(pr.Depth, 3) + " m", Measured: "–", MeasuredD: "–"}
+		r := ratioRow{Name: "z = " + qty(units.Length, pr.Depth, 3), Measured: "–", MeasuredD: "–"}
 		day := pr.Time[len(pr.Time)-1]
 		if n := len(pr.MeasuredTime); n > 0 {
 			r.Name += " (" + pr.Record + ")"
@@ -399,7 +405,7 @@ func (c *Decisions) removalOptions() []removalOption {
 	out := []removalOption{{Value: "-1", Text: "the last stage that takes load off", Selected: chosen == nil}}
 	for i, l := range c.draft().Loads {
 		if l.Pressure() < 0 {
-			out = append(out, removalOption{Value: fmt.Sprint(i), Text: fmt.Sprintf("stage %d (day %s, %s kPa)", i+1, sig(l.Start, 4), sig(l.Pressure(), 3)), Selected: chosen != nil && *chosen == i})
+			out = append(out, removalOption{Value: fmt.Sprint(i), Text: fmt.Sprintf("stage %d (day %s, %s)", i+1, sig(l.Start, 4), qty(units.Stress, l.Pressure(), 3)), Selected: chosen != nil && *chosen == i})
 		}
 	}
 	return out

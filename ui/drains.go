@@ -10,6 +10,7 @@ import (
 	"porelight/solver"
 	"porelight/ui/form"
 	"porelight/ui/plot"
+	"porelight/ui/units"
 )
 
 // Drains edits the vertical drains: the pattern, the drain, the smear zone
@@ -84,13 +85,16 @@ func (c *Drains) toggleDesign(e vugu.DOMEvent) {
 	c.Changed()
 }
 
+// dwText writes a drain diameter in m: mm in SI, in in US units.
+func dwText(m float64) string { return qty(units.Settlement, 1000*m, 3) }
+
 // cell describes the unit cell of a valid draft.
 func (c *Drains) cell() string {
 	if !c.on() || !c.F.Valid() {
 		return "The unit cell shows once the inputs are valid."
 	}
 	dc := solver.ResolveDrains(c.F.Draft())
-	s := fmt.Sprintf("Unit cell De = %s m, drain dw = %s mm", sig(dc.De, 4), sig(dc.Dw*1000, 3))
+	s := fmt.Sprintf("Unit cell De = %s, drain dw = %s", qty(units.Length, dc.De, 4), dwText(dc.Dw))
 	if dc.Equivalent != "" {
 		s += " (" + equivalentText(dc.Equivalent) + ")"
 	}
@@ -135,8 +139,8 @@ func (c *Drains) designStatus() string {
 		return c.D.err
 	case c.D.res != nil:
 		a := c.D.res
-		return fmt.Sprintf("Spacing %s m (De = %s m) reaches U = %s %% by %s, from %d solves.",
-			sig(a.Spacing, 3), sig(a.De, 3), sig(100*a.U, 3), duration(a.Time), a.Solves)
+		return fmt.Sprintf("Spacing %s (De = %s) reaches U = %s %% by %s, from %d solves.",
+			qty(units.Length, a.Spacing, 3), qty(units.Length, a.De, 3), sig(100*a.U, 3), duration(a.Time), a.Solves)
 	}
 	return ""
 }

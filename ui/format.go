@@ -6,6 +6,7 @@ import (
 	"strings"
 
 	"porelight/solver"
+	"porelight/ui/units"
 )
 
 // Number formats for the page. Values in the solver's units come in; the
@@ -51,12 +52,20 @@ func sci(x float64, n int) string {
 	return mant + " × 10" + superscript.Replace(strconv.Itoa(e))
 }
 
-// mm writes a length in metres as millimetres: whole mm from 10 mm up,
-// one decimal below.
+// mm writes a settlement in metres as millimetres (whole mm from 10 mm
+// up, one decimal below), or as inches in US units (one decimal from
+// 1 in up, two below).
 func mm(m float64) string {
 	v := m * 1000
 	if math.IsNaN(v) || math.IsInf(v, 0) {
 		return "–"
+	}
+	if shown == units.US {
+		v = shown.Show(units.Settlement, v)
+		if math.Abs(v) >= 1 {
+			return strconv.FormatFloat(v, 'f', 1, 64) + " in"
+		}
+		return strconv.FormatFloat(v, 'f', 2, 64) + " in"
 	}
 	if math.Abs(v) >= 10 {
 		return strconv.FormatFloat(math.Round(v), 'f', 0, 64) + " mm"
@@ -79,3 +88,25 @@ func duration(d float64) string {
 // exact writes x with full precision for a data attribute, so tests and
 // scripts can read the value behind a rounded figure.
 func exact(x float64) string { return strconv.FormatFloat(x, 'g', -1, 64) }
+
+// shown is the unit system the page shows (Root.setUnits sets it, with
+// the form's and the plots'). Every result below is written in it; the
+// solver's values come in SI.
+var shown units.System
+
+// sym is the symbol of the unit q is shown in.
+func sym(q units.Quantity) string { return shown.Symbol(q) }
+
+// conv converts x from q's SI display unit (m, mm, kPa…) to the unit
+// shown.
+func conv(q units.Quantity, x float64) float64 { return shown.Show(q, x) }
+
+// qty writes x (in q's SI display unit) in the unit shown, to n
+// significant figures, with its symbol: qty(units.Length, 3.048, 3) is
+// "3.05 m" in SI and "10 ft" in US units.
+func qty(q units.Quantity, x float64, n int) string {
+	if math.IsNaN(x) || math.IsInf(x, 0) {
+		return "–"
+	}
+	return sig(shown.Show(q, x), n) + " " + shown.Symbol(q)
+}

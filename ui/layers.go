@@ -8,6 +8,7 @@ import (
 	"porelight/solver"
 	"porelight/solver/soil"
 	"porelight/ui/form"
+	"porelight/ui/units"
 )
 
 // Layers edits the layer table and the e–log σ′ and creep parameters.
@@ -50,7 +51,7 @@ func (c *Layers) cv(i int) string {
 }
 
 func (c *Layers) height() string {
-	return "Column height " + sig(solver.ColumnHeight(c.F.Draft()), 4) + " m"
+	return "Column height " + qty(units.Length, solver.ColumnHeight(c.F.Draft()), 4)
 }
 
 // model is the consolidation model of the draft ("linear" when none is

@@ -10,6 +10,7 @@ import (
 	"porelight/solver"
 	"porelight/solver/monitor"
 	"porelight/ui/form"
+	"porelight/ui/units"
 )
 
 // Monitoring edits the field records: the calendar date of day 0, the
@@ -40,6 +41,7 @@ type Monitoring struct {
 
 type pasteParse struct {
 	text string
+	sys  units.System // the units the text was read in
 	rs   []solver.Reading
 	errs []string
 }
@@ -55,7 +57,7 @@ type monRec struct {
 	Path  string
 	ID    string // element id prefix
 	Name  string
-	Unit  string // of the values: "mm" or "kPa"
+	Unit  string // of the values as shown: mm or in, kPa or psf
 	Noun  string // "settlement" or "pore pressure"
 	Count int
 }
@@ -75,11 +77,11 @@ func (c *Monitoring) recs() []monRec {
 	}
 	for i, pl := range m.Plates {
 		p := form.RecordPath(form.Plates, i)
-		out = append(out, monRec{form.Plates, i, p, form.IDOf(p), pl.Name, "mm", "settlement", len(pl.Readings)})
+		out = append(out, monRec{form.Plates, i, p, form.IDOf(p), pl.Name, sym(units.Settlement), "settlement", len(pl.Readings)})
 	}
 	for i, pz := range m.Piezometers {
 		p := form.RecordPath(form.Piezometers, i)
-		out = append(out, monRec{form.Piezometers, i, p, form.IDOf(p), pz.Name, "kPa", "pore pressure", len(pz.Readings)})
+		out = append(out, monRec{form.Piezometers, i, p, form.IDOf(p), pz.Name, sym(units.Stress), "pore pressure", len(pz.Readings)})
 	}
 	return out
 }
@@ -294,7 +296,7 @@ func (c *Monitoring) parsed(r monRec) ([]solver.Reading, []string) {
 	if strings.TrimSpace(text) == "" {
 		return nil, nil
 	}
-	if got, ok := c.parsedAs[r.Path]; ok && got.text == text {
+	if got, ok := c.parsedAs[r.Path]; ok && got.text == text && got.sys == shown {
 		return got.rs, got.errs
 	}
 	rs, err := monitor.ParseReadings(text)
@@ -302,12 +304,14 @@ func (c *Monitoring) parsed(r monRec) ([]solver.Reading, []string) {
 	if err != nil {
 		rs, errs = nil, pasteMessages(err)
 	}
-	if r.Kind == form.Plates {
-		for j := range rs {
-			rs[j].Value /= 1000 // typed in mm
+	for j := range rs { // typed in the unit shown: mm or in, kPa or psf
+		if r.Kind == form.Plates {
+			rs[j].Value = shown.Take(units.Settlement, rs[j].Value) / 1000
+		} else {
+			rs[j].Value = shown.Take(units.Stress, rs[j].Value)
 		}
 	}
-	c.parsedAs[r.Path] = pasteParse{text, rs, errs}
+	c.parsedAs[r.Path] = pasteParse{text, shown, rs, errs}
 	return rs, errs
 }
 

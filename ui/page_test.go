@@ -38,13 +38,18 @@ func demoJSON(t testing.TB) []byte {
 
 func newPage(t *testing.T, src Sources) *page {
 	t.Helper()
+	return openPage(t, &fakeHost{store: map[string]string{}}, src)
+}
+
+// openPage opens the page from src in the browser of h.
+func openPage(t *testing.T, h *fakeHost, src Sources) *page {
+	t.Helper()
 	r := staticrender.New(nil)
 	ee := r.EventEnv()
 	env, err := vugu.NewBuildEnv(ee)
 	if err != nil {
 		t.Fatal(err)
 	}
-	h := &fakeHost{store: map[string]string{}}
 	p := &page{t: t, root: &Root{Host: h, Version: "test"}, host: h, env: env, ee: ee}
 	if src.Demo == nil {
 		src.Demo = demoJSON(t)

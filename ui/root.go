@@ -112,6 +112,7 @@ func (c *Root) Result() *solver.Result { return c.result }
 func (c *Root) Start(src Sources) {
 	c.demo = src.Demo
 	c.form = form.New(&solver.Project{Format: solver.Format})
+	c.loadUnits()
 	c.view = src.View
 	opened, fromLink := false, false
 	if data, err := DecodeFragment(viewless(src.Fragment)); err == nil {

@@ -5,6 +5,7 @@ import (
 	"math"
 
 	"porelight/solver"
+	"porelight/ui/units"
 )
 
 // Status is the one-line state of the results: what is shown and why.
@@ -124,7 +125,7 @@ func (c *Summary) rows() []sumRow {
 	} else if s.Flux == 0 {
 		dir = "no flow"
 	}
-	flux := sumRow{ID: "sum-flux", Label: "Steady flow (Darcy velocity)", Value: sci(math.Abs(s.Flux), 3) + " m/s",
+	flux := sumRow{ID: "sum-flux", Label: "Steady flow (Darcy velocity)", Value: sci(conv(units.Permeability, math.Abs(s.Flux)), 3) + " " + sym(units.Permeability),
 		Exact: exact(s.Flux), Note: dir}
 	rows = append(rows, heave, flux)
 	if d := c.R.Drains; d != nil {
@@ -160,11 +161,11 @@ func (c *Summary) governing(id, label string, g *solver.Governing, none string) 
 	if c.P != nil && g.Layer < len(c.P.Layers) && c.P.Layers[g.Layer].Name != "" {
 		where += " “" + c.P.Layers[g.Layer].Name + "”"
 	}
-	below := "m down"
+	below := "down"
 	if c.P != nil && hasDig(c.P) {
-		below = "m below the original top"
+		below = "below the original top"
 	}
-	r.Note = fmt.Sprintf("least over time: %s, %s %s, %s", where, sig(g.Depth, 3), below, when)
+	r.Note = fmt.Sprintf("least over time: %s, %s %s, %s", where, qty(units.Length, g.Depth, 3), below, when)
 	if g.Factor < 1 {
 		r.Class = "pl-alarm"
 	}

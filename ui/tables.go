@@ -4,6 +4,7 @@ import (
 	"fmt"
 
 	"porelight/solver"
+	"porelight/ui/units"
 )
 
 // Tables shows the results layer by layer, folded: the tables are built
@@ -71,7 +72,42 @@ func optMM(v *float64) string {
 	if v == nil {
 		return "–"
 	}
-	return sig(*v*1000, 3)
+	return setl(*v)
+}
+
+// setl writes a settlement in m as the figure of a table column in mm
+// (or in in US units), to three significant figures.
+func setl(m float64) string { return sig(conv(units.Settlement, m*1000), 3) }
+
+// len4 writes a depth or length in m in the unit shown, to four
+// significant figures.
+func len4(m float64) string { return sig(conv(units.Length, m), 4) }
+
+// kpa4 writes a stress in kPa in the unit shown, to four significant
+// figures.
+func kpa4(x float64) string { return sig(conv(units.Stress, x), 4) }
+
+// cvShown writes a cv in m²/day in its unit shown: m²/day in SI (as the
+// solver reports it), ft²/yr in US units; cvSym names it.
+func cvShown(v float64) string {
+	if shown == units.SI {
+		return sig(v, 3)
+	}
+	return sig(conv(units.Consolidation, v*solver.DaysPerYear), 3)
+}
+
+func cvSym() string {
+	if shown == units.SI {
+		return "m²/day"
+	}
+	return sym(units.Consolidation)
+}
+
+func optCv(v *float64) string {
+	if v == nil {
+		return "–"
+	}
+	return cvShown(*v)
 }
 
 func (c *Tables) layerName(i int) string {
@@ -103,9 +139,9 @@ func (c *Tables) stats() string {
 // the summary names.
 func (c *Tables) modelHead() string {
 	if c.R.Summary.Model == solver.ModelNonlinear {
-		return "Non-linear model (mm)"
+		return "Non-linear model (" + sym(units.Settlement) + ")"
 	}
-	return "Linear model (mm)"
+	return "Linear model (" + sym(units.Settlement) + ")"
 }
 
 // stageCount is the number of per-stage columns of the checks table.

@@ -11,6 +11,7 @@ import (
 	"porelight/solver/uncertain"
 	"porelight/ui/form"
 	"porelight/ui/plot"
+	"porelight/ui/units"
 )
 
 // Uncertain is the "range of outcomes" section: the spread of each
@@ -158,8 +159,7 @@ func durationText(d time.Duration) string {
 type quantRow struct {
 	ID, Name, Unit string
 	Q              uncertain.Quantiles
-	Scale          float64
-	Time           bool
+	Time           bool // else a settlement in m
 }
 
 func (c *Uncertain) quantRows() []quantRow {
@@ -170,8 +170,8 @@ func (c *Uncertain) quantRows() []quantRow {
 	date := c.S.plan.Date
 	return []quantRow{
 		{ID: "range-t90", Name: "Time to 90 % consolidation, t90", Q: b.T90, Time: true},
-		{ID: "range-final", Name: "Final settlement (primary + secondary at the design life)", Unit: "mm", Q: b.Final, Scale: 1000},
-		{ID: "range-remaining", Name: fmt.Sprintf("Settlement still to come after day %s", sig(date, 4)), Unit: "mm", Q: b.Remaining, Scale: 1000},
+		{ID: "range-final", Name: "Final settlement (primary + secondary at the design life)", Unit: sym(units.Settlement), Q: b.Final},
+		{ID: "range-remaining", Name: fmt.Sprintf("Settlement still to come after day %s", sig(date, 4)), Unit: sym(units.Settlement), Q: b.Remaining},
 	}
 }
 
@@ -182,7 +182,7 @@ func (r quantRow) cell(v float64) string {
 	if r.Time {
 		return timeText(v)
 	}
-	return sig(v*r.Scale, 3)
+	return setl(v)
 }
 
 // timeText writes days, with years beyond a year.

@@ -10,6 +10,7 @@ import (
 	optcmp "porelight/solver/compare"
 	"porelight/ui/form"
 	"porelight/ui/plot"
+	"porelight/ui/units"
 )
 
 // Variants is the options section: named sets of changes to the project
@@ -82,9 +83,9 @@ func (c *Variants) fill(j int) bool { return c.F.Draft().Loads[j].Fill != nil }
 
 func (c *Variants) stageLabel(j int) string {
 	l := c.F.Draft().Loads[j]
-	what := fmt.Sprintf("q %s kPa", sig(l.Q, 4))
+	what := "q " + qty(units.Stress, l.Q, 4)
 	if l.Fill != nil {
-		what = fmt.Sprintf("fill %s m", sig(l.Fill.Thickness, 4))
+		what = "fill " + qty(units.Length, l.Fill.Thickness, 4)
 	}
 	return fmt.Sprintf("%d. day %s, %s", j+1, sig(l.Start, 4), what)
 }
@@ -144,8 +145,6 @@ func (c *Variants) date() string {
 	}
 	return sig(c.S.outcomes[0].Figures.Date, 4)
 }
-
-func inMM(v float64) string { return sig(1000*v, 3) }
 
 func optTime(t *float64) string {
 	if t == nil {
@@ -259,7 +258,7 @@ func (c *Variants) spanRows() []spanRow {
 	limit := c.S.model.Alignment.Limit
 	var out []spanRow
 	for k, s := range spans {
-		r := spanRow{ID: fmt.Sprintf("span-%d", k), From: pts[s.From].Name, To: pts[s.To].Name, Diff: inMM(s.Differential), Over: s.Over}
+		r := spanRow{ID: fmt.Sprintf("span-%d", k), From: pts[s.From].Name, To: pts[s.To].Name, Diff: setl(s.Differential), Over: s.Over}
 		r.Ratio = "0"
 		if s.Distortion > 0 {
 			r.Ratio = "1/" + sig(1/s.Distortion, 3)

@@ -37,6 +37,12 @@ func (f *Form) cvText(i int) string {
 	if i >= len(f.draft.Layers) {
 		return ""
 	}
+	// Only from valid inputs: while k, mv or γw has a problem the draft
+	// may still hold an older value.
+	at := "layers[" + strconv.Itoa(i) + "]."
+	if f.Problem(at+"k") != "" || f.Problem(at+"mv") != "" || f.Problem("gammaW") != "" {
+		return ""
+	}
 	l := f.draft.Layers[i]
 	gw := solver.ResolveGammaW(&f.draft)
 	if l.K <= 0 || l.Mv <= 0 || gw <= 0 {
