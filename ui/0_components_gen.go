@@ -4044,8 +4044,10 @@ func (c *FillNeed) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 				{
 					vgparent := vgn
 					_ = vgparent
-					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "input", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "text"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "fillneed-level"}, vugu.VGAttribute{Namespace: "", Key: "inputmode", Val: "decimal"}, vugu.VGAttribute{Namespace: "", Key: "autocomplete", Val: "off"}, vugu.VGAttribute{Namespace: "", Key: "placeholder", Val: "m"}, vugu.VGAttribute{Namespace: "", Key: "title", Val: "Level of the finished surface above the original ground, m"}, vugu.VGAttribute{Namespace: "", Key: "aria-label", Val: "Finished level above the original ground (m)"}}}
+					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "input", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "text"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "fillneed-level"}, vugu.VGAttribute{Namespace: "", Key: "inputmode", Val: "decimal"}, vugu.VGAttribute{Namespace: "", Key: "autocomplete", Val: "off"}, vugu.VGAttribute{Namespace: "", Key: "title", Val: "Level of the finished surface above the original ground"}}}
 					vgparent.AppendChild(vgn)
+					vgn.AddAttrInterface("aria-label", "Finished level above the original ground ("+sym(units.Length)+")")
+					vgn.AddAttrInterface("placeholder", sym(units.Length))
 					{
 						b, err := vjson.Marshal(c.S.level)
 						if err != nil {
@@ -4060,7 +4062,7 @@ func (c *FillNeed) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 					})
 					vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-unit"}}}
 					vgparent.AppendChild(vgn)
-					vgn.SetInnerHTML(vugu.HTML("m"))
+					vgn.SetInnerHTML(sym(units.Length))
 					if c.levelProblem() != "" {
 						vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-err"}, vugu.VGAttribute{Namespace: "", Key: "id", Val: "fillneed-level-err"}}}
 						vgparent.AppendChild(vgn)
@@ -4282,7 +4284,7 @@ func (c *Ground) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 					vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
 					vgcomp.Changed = c.Changed
 					vgcomp.F = c.F
-					vgcomp.Hint = "Initial hydrostatic water table, metres below the top of the column (negative: water above it)"
+					vgcomp.Hint = "Initial hydrostatic water table, below the top of the column (negative: water above it)"
 					vgcomp.Label = "Water table depth below the top"
 					vgcomp.Path = "waterTable"
 					vgcomp.Unit = "m"
@@ -4465,7 +4467,7 @@ func (c *Ground) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 								vgin.BuildEnv.UseComponent(vgcompKey, vgcomp) // ensure we can use this in the cache next time around
 								vgcomp.Changed = c.Changed
 								vgcomp.F = c.F
-								vgcomp.Hint = "Piezometric level in metres above the top of the column; empty: hydrostatic from the water table"
+								vgcomp.Hint = "Piezometric level above the top of the column; empty: hydrostatic from the water table"
 								vgcomp.Label = "Total head at the " + end
 								vgcomp.Path = end + ".head"
 								vgcomp.Unit = "m"
@@ -5392,7 +5394,7 @@ func (c *Layers) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 										vgcomp.Bare = true
 										vgcomp.Changed = c.Changed
 										vgcomp.F = c.F
-										vgcomp.Hint = "Total head held in the layer, m above the top; empty: hydrostatic from the water table"
+										vgcomp.Hint = "Total head held in the layer, above the top of the column; empty: hydrostatic from the water table"
 										vgcomp.Label = "Head held in layer " + itoa(i+1)
 										vgcomp.Path = lp(i, "outlet.head")
 										vgcomp.Unit = "m"

@@ -5,7 +5,6 @@ import (
 	"sync/atomic"
 
 	"porelight/solver"
-	"porelight/ui/form"
 )
 
 // designState is the drain design helper's run: the search for the
@@ -64,6 +63,6 @@ func (c *Root) runDesign() {
 
 // useSpacing puts the spacing found into the project.
 func (c *Root) useSpacing(s float64) {
-	c.form.Edit("drains.spacing", form.FormatNumber(float64(int(s*1000))/1000))
+	c.form.Put("drains.spacing", float64(int(s*1000))/1000, 0)
 	c.edited()
 }

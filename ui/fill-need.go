@@ -11,6 +11,7 @@ import (
 
 	"porelight/solver"
 	"porelight/ui/form"
+	"porelight/ui/units"
 )
 
 // fillNeed is the state of the "fill needed" helper: which fill stage,
@@ -56,7 +57,7 @@ func (c *FillNeed) stages() []int { return fillStages(c.F.Draft()) }
 
 func (c *FillNeed) stageLabel(i int) string {
 	l := c.F.Draft().Loads[i]
-	return fmt.Sprintf("stage %d (%s m now, from day %s)", i+1, sig(l.Fill.Thickness, 4), sig(l.Start, 4))
+	return fmt.Sprintf("stage %d (%s now, from day %s)", i+1, qty(units.Length, l.Fill.Thickness, 4), sig(l.Start, 4))
 }
 
 func (c *FillNeed) setStage(e vugu.DOMEvent) {
@@ -94,8 +95,8 @@ func (c *FillNeed) resultText() string {
 	if s.thickness == nil {
 		return ""
 	}
-	return fmt.Sprintf("Stage %d needs %s m of fill for the surface to stand %s m above the original ground on day %s, after the settlement predicted by then (the other stages as they are).",
-		s.forStage+1, sig(*s.thickness, 4), sig(s.levelNum, 4), sig(s.dayNum, 5))
+	return fmt.Sprintf("Stage %d needs %s of fill for the surface to stand %s above the original ground on day %s, after the settlement predicted by then (the other stages as they are).",
+		s.forStage+1, qty(units.Length, *s.thickness, 4), qty(units.Length, s.levelNum, 4), sig(s.dayNum, 5))
 }
 
 func (c *FillNeed) progressText() string { return fmt.Sprintf("%.0f %%", 100*c.S.progress) }
@@ -124,6 +125,7 @@ func (c *Root) runNeed() {
 		return
 	}
 	level, m1 := form.ParseNumber(s.level, false)
+	level = shown.Take(units.Length, level) // typed in the units shown
 	day, m2 := form.ParseNumber(s.day, false)
 	switch {
 	case !c.form.Valid():
@@ -170,7 +172,7 @@ func (c *Root) applyNeed() {
 	if s.thickness == nil || s.forStage >= len(c.form.Draft().Loads) {
 		return
 	}
-	c.form.Edit(solver.JoinPath(solver.IndexPath("loads", s.forStage), "fill.thickness"), form.FormatNumber(*s.thickness))
+	c.form.Put(solver.JoinPath(solver.IndexPath("loads", s.forStage), "fill.thickness"), *s.thickness, 0)
 	s.thickness = nil
 	c.edited()
 }

@@ -226,18 +226,18 @@ func (c *Root) applyFit() {
 		return
 	}
 	s.before = slices.Clone(d.Layers)
-	// The fitted values go in to fitFigures significant figures: their
-	// ranges are far wider than the last of them.
-	fitted := func(v float64) string { return form.FormatSig(v, fitFigures) }
+	// The fitted values go in to fitFigures significant figures (in the
+	// units shown): their ranges are far wider than the last of them.
 	for i, l := range s.res.Project.Layers {
 		if l.K != d.Layers[i].K {
-			c.form.Edit(lp(i, "k"), fitted(l.K))
+			c.form.Put(lp(i, "k"), l.K, fitFigures)
 		}
 		if l.Mv != d.Layers[i].Mv {
-			c.form.Edit(lp(i, "mv"), fitted(l.Mv))
+			c.form.Put(lp(i, "mv"), l.Mv, fitFigures)
 		}
 		if l.Ch != d.Layers[i].Ch || l.KhKv != d.Layers[i].KhKv {
-			setLayerCh(c.form, i, l, fitted)
+			c.form.Put(lp(i, "khKv"), l.KhKv, fitFigures)
+			c.form.Put(lp(i, "ch"), l.Ch, fitFigures)
 		}
 	}
 	s.applied = true
@@ -258,17 +258,14 @@ func (c *Root) revertFit() {
 	}
 	for i, l := range s.before {
 		if l.K != d.Layers[i].K {
-			c.form.Edit(lp(i, "k"), form.FormatNumber(l.K))
+			_ = c.form.SetValue(lp(i, "k"), l.K)
 		}
 		if l.Mv != d.Layers[i].Mv {
-			text := ""
-			if l.Mv != 0 {
-				text = form.FormatNumber(l.Mv)
-			}
-			c.form.Edit(lp(i, "mv"), text)
+			_ = c.form.SetValue(lp(i, "mv"), l.Mv)
 		}
 		if l.Ch != d.Layers[i].Ch || l.KhKv != d.Layers[i].KhKv {
-			setLayerCh(c.form, i, l, form.FormatNumber)
+			_ = c.form.SetValue(lp(i, "khKv"), l.KhKv)
+			_ = c.form.SetValue(lp(i, "ch"), l.Ch)
 		}
 	}
 	s.applied, s.before = false, nil
@@ -279,19 +276,6 @@ func (c *Root) revertFit() {
 // fitFigures is the number of significant figures of a fitted value
 // applied to the project.
 const fitFigures = 3
-
-// setLayerCh types layer l's ch (m²/year on the page) and kh/kv into row
-// i, written by format, empty where zero.
-func setLayerCh(f *form.Form, i int, l solver.Layer, format func(float64) string) {
-	text := func(v, scale float64) string {
-		if v == 0 {
-			return ""
-		}
-		return format(v * scale)
-	}
-	f.Edit(lp(i, "khKv"), text(l.KhKv, 1))
-	f.Edit(lp(i, "ch"), text(l.Ch, solver.DaysPerYear))
-}
 
 // setAsaoka saves the choices for Asaoka's method in the project; the
 // results are reused, as for any edit of the field records.

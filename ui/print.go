@@ -10,6 +10,7 @@ import (
 	"github.com/vugu/vugu"
 
 	"porelight/solver"
+	"porelight/ui/units"
 )
 
 // The printout's running header: every page carries the title, the date
@@ -23,6 +24,9 @@ func (c *Root) printStyle() vugu.HTML {
 	left := c.printTitle() + " · printed " + time.Now().Format("2006-01-02") + " · Porelight " + c.Version
 	if rev := c.revision(); rev != "" {
 		left += " · inputs rev. " + rev
+	}
+	if shown != units.SI {
+		left += " · US customary units"
 	}
 	return vugu.HTML("@media print { @page { @top-left { content: " + cssString(left) +
 		`; font: 8pt system-ui, sans-serif; } @top-right { content: "Page " counter(page) " of " counter(pages); font: 8pt system-ui, sans-serif; } } }`)

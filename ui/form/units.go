@@ -124,3 +124,48 @@ func (f *Form) Placeholder(path string) (text string, ok bool) {
 	}
 	return Placeholder(path)
 }
+
+// Put types v (in the file's unit) into the input at path, as the text
+// the input would show: in the units shown, rounded to n significant
+// figures there (for n = 0: all of them in SI, 6 where the value was
+// converted, as conversion leaves digits that mean nothing). It is how the page fills in a
+// value it worked out (a fitted k, a fill thickness found), so that the
+// number reads as the user would type it. Zero clears an input whose
+// empty value means a default.
+func (f *Form) Put(path string, v float64, n int) bool {
+	if v == 0 && zeroIsDefault(path) {
+		return f.Edit(path, "")
+	}
+	x := f.toShown(path, v)
+	if n == 0 && f.sys.Of(QuantityOf(path)).ToSI != 1 {
+		n = 6
+	}
+	if n > 0 {
+		return f.Edit(path, FormatSig(x, n))
+	}
+	return f.Edit(path, FormatNumber(x))
+}
+
+// SetValue makes v (in the file's unit) the value at path exactly, with
+// no text typed: how the page puts back a value it kept (Revert), which
+// text in other units could not carry to the last digit.
+func (f *Form) SetValue(path string, v float64) error {
+	var err error
+	if v == 0 && zeroIsDefault(path) {
+		err = clearNumber(&f.draft, path)
+	} else {
+		err = setNumber(&f.draft, path, v)
+	}
+	if err != nil {
+		return err
+	}
+	delete(f.raw, path)
+	delete(f.bad, path)
+	if i, ok := layerK(path); ok {
+		delete(f.raw, CvPath(i))
+		delete(f.bad, CvPath(i))
+	}
+	f.check()
+	f.typed = path
+	return nil
+}
