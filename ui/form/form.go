@@ -101,7 +101,7 @@ func (f *Form) Text(path string) string {
 	if !ok || (v == 0 && zeroIsDefault(path)) {
 		return ""
 	}
-	return FormatNumber(f.toShown(path, v))
+	return f.shownText(path, v)
 }
 
 // Edit takes the text typed into the input at path. It reports whether

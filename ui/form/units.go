@@ -106,6 +106,20 @@ func (f *Form) UnitOf(path, given string) string {
 	return given
 }
 
+// shownDigits is how many significant figures an input shows of a value
+// converted to US units: 1.5 m shows as 4.92126 ft, not 4.92125984252.
+// The draft keeps the SI value itself until the input is typed into.
+const shownDigits = 6
+
+// shownText is the text of the input at path for v, in the file's unit.
+func (f *Form) shownText(path string, v float64) string {
+	x := f.toShown(path, v)
+	if f.sys.Of(QuantityOf(path)).ToSI != 1 {
+		return FormatSig(x, shownDigits)
+	}
+	return FormatNumber(x)
+}
+
 // toShown converts a value in the file's unit to what the input at path
 // shows; fromShown converts back.
 func (f *Form) toShown(path string, v float64) float64 {
@@ -138,7 +152,7 @@ func (f *Form) Put(path string, v float64, n int) bool {
 	}
 	x := f.toShown(path, v)
 	if n == 0 && f.sys.Of(QuantityOf(path)).ToSI != 1 {
-		n = 6
+		n = shownDigits
 	}
 	if n > 0 {
 		return f.Edit(path, FormatSig(x, n))

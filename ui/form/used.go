@@ -17,7 +17,7 @@ func (f *Form) Used(path string) string {
 		if v <= 0 {
 			return hint
 		}
-		return FormatNumber(f.toShown(path, v)) + unit
+		return f.shownText(path, v) + unit
 	}
 	switch path {
 	case "mesh.maxSize":
@@ -25,7 +25,7 @@ func (f *Form) Used(path string) string {
 	case "stepping.endTime":
 		return num(solver.EndTime(p), "")
 	case "top.head", "bottom.head":
-		return FormatNumber(f.toShown(path, -p.WaterTable))
+		return f.shownText(path, -p.WaterTable)
 	}
 	if steps, err := solver.ParsePath(path); err == nil && len(steps) == 2 && steps[0].Name == "layers" &&
 		steps[0].Index >= 0 && steps[0].Index < len(p.Layers) {
