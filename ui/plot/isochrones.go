@@ -51,9 +51,9 @@ func IsochronesFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
 		Weight: 1, Lo: math.Min(0, lo), Hi: math.Max(0, hi), Label: "Excess pore pressure, " + uStress.sym(),
 	}})
 	pn := panels[0]
-	zs := uLength.all(c.Depth)
+	zs, zu, su := uLength.all(c.Depth), uLength.tail(), uStress.tail()
 	read := func(q Pt) string {
-		return "z = " + sig(q.DY, 3) + uLength.tail() + ", u = " + sig(q.DX, 3) + uStress.tail()
+		return "z = " + sig(q.DY, 3) + zu + ", u = " + sig(q.DX, 3) + su
 	}
 	var labels []TextEl
 	for i, iso := range isos {

@@ -119,8 +119,9 @@ func ProfileFigure(pts []ProfilePoint, over []bool, day float64, w, h int) *Figu
 	clip := f.clip(box)
 	st := styleAt(0)
 	st.Marker = true
+	zu, su := uLength.tail(), uSettle.tail()
 	f.addSeries(pn, clip, "Settlement", st, xs, ys, func(q Pt) string {
-		return "chainage " + sig(q.DX, 4) + uLength.tail() + ", s = " + sig(q.DY, 3) + uSettle.tail()
+		return "chainage " + sig(q.DX, 4) + zu + ", s = " + sig(q.DY, 3) + su
 	})
 	for i, p := range pts {
 		if i+1 < len(pts) && i < len(over) && over[i] && p.OK && pts[i+1].OK {
