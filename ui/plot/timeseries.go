@@ -369,7 +369,7 @@ type RecordAxes struct {
 	// a valid date (see recordFigure).
 	Dates bool
 	// Level shows the piezometers as the water level a standpipe there
-	// would show, m above the top of the column (negative below it): the
+	// would show, m (ft) above the top of the column (negative below it): the
 	// total head u/γw − z, as Steady.Head, and the excess as Δu/γw.
 	Level bool
 }
