@@ -7,6 +7,7 @@ import (
 	"strings"
 	"testing"
 
+	"porelight/solver"
 	"porelight/solver/monitor"
 	"porelight/ui/units"
 )
@@ -399,5 +400,49 @@ func TestUnitsRebuildFigures(t *testing.T) {
 	}
 	if a3 == aus || a3.SVG() != a1.SVG() {
 		t.Error("back in SI, the Asaoka component did not draw its SI figure again")
+	}
+}
+
+// In US units the labels run longer (psf in thousands where kPa ran in
+// tens): the figures of TestTickLabelsNeverCollide, in US units, from a
+// phone's width to a desktop's, keep at least four tick labels and no
+// two overlap; and drawn without a project (as TestFiguresWithoutData
+// draws them) they still draw, the layer strip without a water table.
+func TestTickLabelsInUSUnits(t *testing.T) {
+	dp, dr := demoCase(t)
+	cases := []struct {
+		name string
+		p    *solver.Project
+		r    *solver.Result
+	}{{"synthetic", synthProject(), synthResult()}, {"demo", dp, dr}, {"no project", nil, synthResult()}}
+	t.Cleanup(func() { SetUnits(units.SI) })
+	SetUnits(units.US)
+	for _, c := range cases {
+		for _, fg := range figures {
+			for _, w := range []int{300, 360, 420, 520, 640, 760} {
+				f := fg.build(c.p, c.r, w, 420)
+				if f.Message != "" {
+					t.Errorf("%s %s at %d px: %q", c.name, fg.name, w, f.Message)
+					continue
+				}
+				var ticks []TextEl
+				for _, tx := range f.Texts {
+					if tx.Size == 11 && tx.Rotate == 0 && !tx.Bold && !tx.Halo {
+						ticks = append(ticks, tx)
+					}
+				}
+				if len(ticks) < 4 {
+					t.Errorf("%s %s at %d px: only %d tick labels left", c.name, fg.name, w, len(ticks))
+				}
+				for i := range ticks {
+					for j := range i {
+						a, b := labelBox(ticks[i]), labelBox(ticks[j])
+						if a.X < b.Right()+1 && b.X < a.Right()+1 && a.Y < b.Bottom() && b.Y < a.Bottom() {
+							t.Errorf("%s %s at %d px: labels %q and %q collide", c.name, fg.name, w, ticks[j].Text, ticks[i].Text)
+						}
+					}
+				}
+			}
+		}
 	}
 }
