@@ -16,7 +16,7 @@ const (
 )
 
 // BandsFigure draws the P10–P90 band and the P50 curve of the Monte
-// Carlo's settlement (degree false; m, growing downward) or degree of
+// Carlo's settlement (degree false; m or in, growing downward) or degree of
 // consolidation Us (degree true; %, 0 at the top) against log time, with
 // the single solve of the project as given (r, may be nil) for
 // comparison. runs is the number of realisations combined so far, of
@@ -31,7 +31,7 @@ func BandsFigure(b *uncertain.Bands, r *solver.Result, degree bool, runs, total 
 		return f.message("Run the Monte Carlo to see the range.")
 	}
 	q := b.Settlement
-	scale, unit, label := 1.0, " m", "Settlement, m"
+	scale, unit, label := uSettle.of(1), uSettle.tail(), "Settlement, "+uSettle.sym()
 	if degree {
 		q = b.Degree
 		scale, unit, label = 100, " %", "Degree of consolidation Us, %"
@@ -81,7 +81,7 @@ func BandsFigure(b *uncertain.Bands, r *solver.Result, degree bool, runs, total 
 				}
 				ys[i] = 100 * solver.SeriesAt(s.Time, s.Us, t)
 			} else {
-				ys[i] = uncertain.TotalAt(s, t)
+				ys[i] = uncertain.TotalAt(s, t) * scale
 			}
 		}
 		if ys != nil {

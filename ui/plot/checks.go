@@ -30,7 +30,7 @@ func checkCurves(r *solver.Result) (names []string, cs []*solver.Check) {
 		if c.Kind == solver.CheckHeave {
 			at = c.Top
 		}
-		names = append(names, fmt.Sprintf("%s, layer %d (%s m)", g.what, c.Layer+1, sig(at, 3)))
+		names = append(names, fmt.Sprintf("%s, layer %d (%s%s)", g.what, c.Layer+1, sig(uLength.of(at), 3), uLength.tail()))
 		cs = append(cs, c)
 	}
 	return names, cs

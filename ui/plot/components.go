@@ -66,7 +66,7 @@ type Piezometers struct {
 	Result        *solver.Result
 	Fit           *solver.Result
 	Dates         bool // as for Settlement
-	Level         bool // as water levels, m (RecordAxes.Level)
+	Level         bool // as water levels (RecordAxes.Level)
 	Width, Height int
 
 	memo figMemo

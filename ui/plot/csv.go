@@ -10,7 +10,8 @@ import (
 // CSV exports: comma-separated, one header row naming every column with
 // its unit, numbers with up to 10 significant figures, an empty cell where
 // a value is missing or not finite. A result without the data gives just
-// the header row.
+// the header row. Values and units are those shown (SetUnits): the
+// results file itself stays SI.
 
 func writeCSV(header []string, rows [][]string) string {
 	var b strings.Builder
@@ -31,19 +32,21 @@ func at(vs []float64, i int) string {
 // IsochronesCSV returns the isochrones as CSV: one row per node, depth
 // first, then the excess pore pressure at each output time.
 func IsochronesCSV(r *solver.Result) string {
-	header := []string{"depth (m)"}
+	header := []string{"depth (" + uLength.sym() + ")"}
 	if r == nil || r.Consolidation == nil {
 		return writeCSV(header, nil)
 	}
 	c := r.Consolidation
-	for _, iso := range c.Isochrones {
-		header = append(header, "excess pore pressure at t = "+csvNum(iso.Time)+" day (kPa)")
+	excess := make([][]float64, len(c.Isochrones))
+	for k, iso := range c.Isochrones {
+		header = append(header, "excess pore pressure at t = "+csvNum(iso.Time)+" day ("+uStress.sym()+")")
+		excess[k] = uStress.all(iso.Excess)
 	}
 	rows := make([][]string, len(c.Depth))
 	for i, z := range c.Depth {
-		row := []string{csvNum(z)}
-		for _, iso := range c.Isochrones {
-			row = append(row, at(iso.Excess, i))
+		row := []string{csvNum(uLength.of(z))}
+		for _, e := range excess {
+			row = append(row, at(e, i))
 		}
 		rows[i] = row
 	}
@@ -86,26 +89,27 @@ func DegreeCSV(r *solver.Result) string {
 // SettlementCSV returns the settlement histories as CSV: from mv and, when
 // the result has it, from the e–log σ′ curves.
 func SettlementCSV(r *solver.Result) string {
-	names := []string{"settlement from mv (m)"}
+	u := " (" + uSettle.sym() + ")"
+	names := []string{"settlement from mv" + u}
 	nonlinear := r != nil && r.Summary.Model == solver.ModelNonlinear
 	elog := !nonlinear && r != nil && r.Consolidation != nil && len(r.Consolidation.Series.SettlementElog) > 0
 	secondary := r != nil && r.Consolidation != nil && len(r.Consolidation.Series.Secondary) > 0
 	if nonlinear {
-		names[0] = "settlement, non-linear model (m)"
+		names[0] = "settlement, non-linear model" + u
 	}
 	if elog {
-		names = append(names, "settlement from e-log curves (m)")
+		names = append(names, "settlement from e-log curves"+u)
 	}
 	if secondary {
-		names = append(names, "secondary settlement (m)")
+		names = append(names, "secondary settlement"+u)
 	}
 	return seriesCSV(r, names, func(s *solver.Series) [][]float64 {
-		cols := [][]float64{s.Settlement}
+		cols := [][]float64{uSettle.all(s.Settlement)}
 		if elog {
-			cols = append(cols, s.SettlementElog)
+			cols = append(cols, uSettle.all(s.SettlementElog))
 		}
 		if secondary {
-			cols = append(cols, s.Secondary)
+			cols = append(cols, uSettle.all(s.Secondary))
 		}
 		return cols
 	})
@@ -120,14 +124,15 @@ func PiezometersCSV(r *solver.Result) string {
 	if r != nil && r.Consolidation != nil {
 		pz = r.Consolidation.Series.Piezometers
 	}
+	zu, su := uLength.tail(), " ("+uStress.sym()+")"
 	for _, p := range pz {
-		z := csvNum(p.Depth)
-		names = append(names, "pore pressure at z = "+z+" m (kPa)", "excess pore pressure at z = "+z+" m (kPa)")
+		z := csvNum(uLength.of(p.Depth))
+		names = append(names, "pore pressure at z = "+z+zu+su, "excess pore pressure at z = "+z+zu+su)
 	}
 	return seriesCSV(r, names, func(s *solver.Series) [][]float64 {
 		var cs [][]float64
 		for _, p := range s.Piezometers {
-			cs = append(cs, p.Pore, p.Excess)
+			cs = append(cs, uStress.all(p.Pore), uStress.all(p.Excess))
 		}
 		return cs
 	})
@@ -135,14 +140,16 @@ func PiezometersCSV(r *solver.Result) string {
 
 // SteadyCSV returns the steady state profiles as CSV, one row per node.
 func SteadyCSV(r *solver.Result) string {
-	header := []string{"depth (m)", "total head (m)", "pore pressure (kPa)", "total vertical stress (kPa)", "effective vertical stress (kPa)"}
+	m, kPa := " ("+uLength.sym()+")", " ("+uStress.sym()+")"
+	header := []string{"depth" + m, "total head" + m, "pore pressure" + kPa, "total vertical stress" + kPa, "effective vertical stress" + kPa}
 	if r == nil {
 		return writeCSV(header, nil)
 	}
 	s := &r.Steady
+	head, pore, total, eff := uLength.all(s.Head), uStress.all(s.Pore), uStress.all(s.Total), uStress.all(s.Effective)
 	rows := make([][]string, len(s.Depth))
 	for i, z := range s.Depth {
-		rows[i] = []string{csvNum(z), at(s.Head, i), at(s.Pore, i), at(s.Total, i), at(s.Effective, i)}
+		rows[i] = []string{csvNum(uLength.of(z)), at(head, i), at(pore, i), at(total, i), at(eff, i)}
 	}
 	return writeCSV(header, rows)
 }

@@ -8,7 +8,7 @@ import (
 
 // The plots of the site decisions: the curves each answer comes from.
 
-// SurchargeFigure draws the settlement (m, growing downward) against log
+// SurchargeFigure draws the settlement (m or in, growing downward) against log
 // time under the permanent load alone, with the surcharge left on, and
 // with it taken off on the removal day; the target (the permanent load's
 // final settlement) as a dashed level, and the days of the two removal
@@ -19,23 +19,26 @@ func SurchargeFigure(plan *solver.SurchargePlan, w, h int) *Figure {
 		return f.message("Not worked out yet.")
 	}
 	c := plan.Curves
+	perm, sur, fwd := uSettle.all(c.Permanent.Settlement), uSettle.all(c.Surcharged.Settlement), uSettle.all(c.Forward.Settlement)
+	target := uSettle.of(plan.Target)
 	tlo, thi, ok := positiveTimeRange(c.Surcharged.Time)
-	lo, hi, ok2 := finiteRange(c.Permanent.Settlement, c.Surcharged.Settlement, c.Forward.Settlement, []float64{plan.Target})
+	lo, hi, ok2 := finiteRange(perm, sur, fwd, []float64{target})
 	if !ok || !ok2 {
 		return f.message("No settlement to draw.")
 	}
 	lo, hi = padRange(math.Min(0, lo), math.Max(0, hi))
-	pn, clip := f.timeFigure(timeTop, tlo, thi, lo, hi, "Settlement, m", true)
-	f.addSeries(pn, clip, "Permanent load alone", styleAt(0), c.Permanent.Time, c.Permanent.Settlement, readTime("s", " m", 3))
-	f.addSeries(pn, clip, "Surcharge left on", styleAt(1), c.Surcharged.Time, c.Surcharged.Settlement, readTime("s", " m", 3))
+	su := uSettle.tail()
+	pn, clip := f.timeFigure(timeTop, tlo, thi, lo, hi, "Settlement, "+uSettle.sym(), true)
+	f.addSeries(pn, clip, "Permanent load alone", styleAt(0), c.Permanent.Time, perm, readTime("s", su, 3))
+	f.addSeries(pn, clip, "Surcharge left on", styleAt(1), c.Surcharged.Time, sur, readTime("s", su, 3))
 	if len(c.Forward.Time) > 0 {
-		f.addSeries(pn, clip, "Surcharge off on the day found", styleAt(3), c.Forward.Time, c.Forward.Settlement, readTime("s", " m", 3))
+		f.addSeries(pn, clip, "Surcharge off on the day found", styleAt(3), c.Forward.Time, fwd, readTime("s", su, 3))
 	}
-	y := pn.Y.Map(plan.Target)
+	y := pn.Y.Map(target)
 	f.path("M"+coord(pn.Box.X)+" "+coord(y)+" H"+coord(pn.Box.Right()), inkMuted, "6 3", 1)
-	f.markTime(pn, plan.Average, plan.Target, "settlement reached")
+	f.markTime(pn, plan.Average, target, "settlement reached")
 	if plan.RemoveOn != nil && plan.After != nil {
-		f.markTime(pn, plan.RemoveOn, plan.After.AtRemoval, "remove")
+		f.markTime(pn, plan.RemoveOn, uSettle.of(plan.After.AtRemoval), "remove")
 	}
 	f.legend(f.W-legendW+8, timeTop+8, legendW-12, int((f.H-timeTop-20)/16), f.allSeries())
 	return f
@@ -53,10 +56,12 @@ func StrengthFigure(res *solver.StrengthResult, w, h int) *Figure {
 	var ts []float64
 	all := [][]float64{}
 	needs := make([]float64, len(res.Lifts))
+	means := make([][]float64, len(res.Lifts))
 	for i, l := range res.Lifts {
-		needs[i] = l.Pressure * res.FS / res.Nc
+		needs[i] = uStress.of(l.Pressure * res.FS / res.Nc)
+		means[i] = uStress.all(l.Mean)
 		ts = append(ts, l.Time...)
-		all = append(all, l.Mean)
+		all = append(all, means[i])
 	}
 	all = append(all, needs)
 	tlo, thi, ok := positiveTimeRange(ts)
@@ -69,15 +74,15 @@ func StrengthFigure(res *solver.StrengthResult, w, h int) *Figure {
 		return f.message("No strength to draw.")
 	}
 	_, hi = padRange(0, hi)
-	pn, clip := f.timeFigure(timeTop, tlo, thi, 0, hi, "Mean su, kPa", false)
+	pn, clip := f.timeFigure(timeTop, tlo, thi, 0, hi, "Mean su, "+uStress.sym(), false)
 	for i, l := range res.Lifts {
 		st := styleAt(i)
 		name := "before stage " + itoa(l.Stage+1)
-		xs, ys := l.Time, l.Mean
+		xs, ys := l.Time, means[i]
 		if len(xs) == 1 { // unloaded ground: a level
-			xs, ys = []float64{tlo, thi}, []float64{l.Mean[0], l.Mean[0]}
+			xs, ys = []float64{tlo, thi}, []float64{ys[0], ys[0]}
 		}
-		f.addSeries(pn, clip, name, st, xs, ys, readTime("su", " kPa", 3))
+		f.addSeries(pn, clip, name, st, xs, ys, readTime("su", uStress.tail(), 3))
 		y := pn.Y.Map(needs[i])
 		f.path("M"+coord(pn.Box.X)+" "+coord(y)+" H"+coord(pn.Box.Right()), st.Stroke, "6 3", 1)
 		t := f.text(pn.Box.Right()-6, y-4, "stage "+itoa(l.Stage+1)+" needs", "end", 10.5, st.Stroke)
@@ -98,10 +103,10 @@ func (f *Figure) residualMarks(pn *Panel, clip string, r *solver.Result) {
 	if res == nil {
 		return
 	}
-	f.markTime(pn, &res.Time, res.Reached, "handover")
+	f.markTime(pn, &res.Time, uSettle.of(res.Reached), "handover")
 	if pn.X.Contains(res.Life) {
 		st := Style{Stroke: inkText, Shape: "square", Open: true, Width: 1.5}
-		f.addPoints(pn, clip, "At the design life", st, []float64{res.Life}, []float64{res.AtLife}, readTime("s", " m", 3))
+		f.addPoints(pn, clip, "At the design life", st, []float64{res.Life}, []float64{uSettle.of(res.AtLife)}, readTime("s", uSettle.tail(), 3))
 	}
 }
 
@@ -126,7 +131,7 @@ func PoreRatioFigure(prs []solver.PoreRatio, w, h int) *Figure {
 	pn, clip := f.timeFigure(timeTop, tlo, thi, lo, hi, "Δu/Δσ", false)
 	for i, pr := range prs {
 		st := styleAt(i)
-		f.addSeries(pn, clip, "z = "+fixed(pr.Depth, 2)+" m, predicted", st, pr.Time, pr.Ratio, readTime("Δu/Δσ", "", 3))
+		f.addSeries(pn, clip, "z = "+fixed(uLength.of(pr.Depth), 2)+uLength.tail()+", predicted", st, pr.Time, pr.Ratio, readTime("Δu/Δσ", "", 3))
 		if len(pr.MeasuredTime) > 0 {
 			m := markAt(i)
 			m.Stroke = st.Stroke

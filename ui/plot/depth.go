@@ -5,6 +5,7 @@ import (
 	"strings"
 
 	"porelight/solver"
+	"porelight/ui/units"
 )
 
 // band is one layer of the strip: name and depth range, m.
@@ -82,9 +83,13 @@ const (
 
 // depthFigure lays out the layer strip and the panels of a depth figure on
 // f, drawing the strip, the depth axis, grids, frames, x axes and the layer
-// boundary rules. Curves are added afterwards with addSeries on the
-// returned panels, clipped to the returned clip ids.
+// boundary rules. bs and zmax are in m; the depth axis is in the length
+// unit shown, and so are the depths of the curves added afterwards with
+// addSeries on the returned panels (uLength.all), clipped to the returned
+// clip ids. The specs' ranges are in the units the panels show.
 func (f *Figure) depthFigure(p *solver.Project, bs []band, zmax float64, specs []panelSpec) ([]*Panel, []string) {
+	zmax = uLength.of(zmax)
+	bs = shownBands(bs)
 	top, bottom := float64(depthTop), f.H-depthBottomM
 	strip := Box{depthLeft, top, stripW, bottom - top}
 	depth := Scale{Lo: 0, Hi: zmax, A: top, B: bottom}
@@ -122,8 +127,21 @@ func (f *Figure) depthFigure(p *solver.Project, bs []band, zmax float64, specs [
 	}
 	f.Panels = panels
 	f.strip(strip, depth, bs, p)
-	f.axis(strip, depth, zticks, sideLeft, "Depth, m")
+	f.axis(strip, depth, zticks, sideLeft, "Depth, "+uLength.sym())
 	return panels, clips
+}
+
+// shownBands is bs with its depths in the length unit shown (bs itself
+// in SI).
+func shownBands(bs []band) []band {
+	if shown == units.SI {
+		return bs
+	}
+	out := make([]band, len(bs))
+	for i, b := range bs {
+		out[i] = band{Name: b.Name, Top: uLength.of(b.Top), Bottom: uLength.of(b.Bottom)}
+	}
+	return out
 }
 
 // rules draws the layer boundaries (not the top and base of the column)
@@ -146,7 +164,8 @@ func (f *Figure) rules(pn *Panel, bs []band) {
 }
 
 // strip draws the layers to the depth scale with their names, and the
-// water table mark when the project places it within the column.
+// water table mark when the project places it within the column. depth
+// and bs are in the length unit shown; p's depths in m.
 func (f *Figure) strip(box Box, depth Scale, bs []band, p *solver.Project) {
 	for i, b := range bs {
 		y0, y1 := depth.Map(b.Top), depth.Map(b.Bottom)
@@ -164,8 +183,12 @@ func (f *Figure) strip(box Box, depth Scale, bs []band, p *solver.Project) {
 			f.text(box.X+5, y+lh*float64(k), l, "start", 10, inkText)
 		}
 	}
-	if p != nil && p.WaterTable >= 0 && p.WaterTable <= depth.Hi && isFinite(p.WaterTable) {
-		y := depth.Map(p.WaterTable)
+	wt := math.NaN()
+	if p != nil {
+		wt = uLength.of(p.WaterTable)
+	}
+	if wt >= 0 && wt <= depth.Hi && isFinite(wt) {
+		y := depth.Map(wt)
 		x := box.Right() - 14
 		// An inverted triangle on the level with two short dashes below it.
 		f.path("M"+coord(x-5)+" "+coord(y-7)+" h10 l-5 7 Z", inkAxis, "none", 1).Fill = "#ffffff"

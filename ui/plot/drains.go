@@ -38,13 +38,14 @@ func drainRange(p *solver.Project) (top, tip float64, ok bool) {
 }
 
 // stripDrains draws the drains as three vertical lines at the right of
-// the layer strip from their top to their tip, with a tick at the tip.
+// the layer strip from their top to their tip, with a tick at the tip
+// (depth in the length unit shown).
 func (f *Figure) stripDrains(box Box, depth Scale, p *solver.Project) {
 	top, tip, ok := drainRange(p)
 	if !ok {
 		return
 	}
-	y0, y1 := depth.Map(top), depth.Map(tip)
+	y0, y1 := depth.Map(uLength.of(top)), depth.Map(uLength.of(tip))
 	if !isFinite(y0) || !isFinite(y1) {
 		return
 	}
@@ -158,12 +159,16 @@ func DrainPlanFigure(p *solver.Project, w, h int) *Figure {
 	}
 	pm := f.path(marks, inkDrain, "none", 0.5)
 	pm.Fill, pm.Clip = inkDrain, clip
-	// Scale bar: a round length near a third of the width.
-	bar := niceLength(box.W / 3 / scale)
+	// Scale bar: a round length, in the unit shown, near a third of the
+	// width.
+	shownBar := niceLength(uLength.of(box.W / 3 / scale))
+	bar := uLength.back(shownBar)
 	by := box.Bottom() + 14
 	f.path("M"+coord(box.X)+" "+coord(by)+" h"+coord(bar*scale)+" M"+coord(box.X)+" "+coord(by-4)+" v8 M"+coord(box.X+bar*scale)+" "+coord(by-4)+" v8", inkAxis, "none", 1.2)
-	f.text(box.X+bar*scale+6, by+4, sig(bar, 3)+" m", "start", 10.5, inkText)
-	caption := "s = " + sig(s, 3) + " m, De = " + sig(de, 4) + " m (dashed), dw = " + sig(dw*1000, 3) + " mm, n = " + sig(de/dw, 3)
+	f.text(box.X+bar*scale+6, by+4, sig(shownBar, 3)+uLength.tail(), "start", 10.5, inkText)
+	m := uLength.tail()
+	caption := "s = " + sig(uLength.of(s), 3) + m + ", De = " + sig(uLength.of(de), 4) + m + " (dashed), dw = " +
+		sig(uMM.of(dw*1000), 3) + uMM.tail() + ", n = " + sig(de/dw, 3)
 	f.text(box.X, f.H-8, fit(caption, f.W-24, 10.5), "start", 10.5, inkText)
 	if enlarged {
 		f.text(box.Right(), by+4, "drains enlarged to 2 px", "end", 10, inkMuted)

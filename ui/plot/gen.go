@@ -19,6 +19,9 @@
 // records against time (ResidualsFigure) are on a linear axis. The
 // settlement plot draws the surface load in a strip above it, on its own
 // time axis.
+// Figures and CSV exports show the unit system set by SetUnits (SI by
+// default; US customary: ft, in, psf), converting the data before the
+// ticks are chosen; times stay in days, years or dates.
 // Colours, lightness and dash patterns are varied together so that curves
 // stay apart when printed in grey.
 //

@@ -16,8 +16,8 @@ const (
 	msgNoSteady        = "No steady state profile in the results."
 )
 
-// IsochronesFigure builds the isochrone plot: excess pore pressure (kPa)
-// against depth (m, down) at every output time, beside the layer strip,
+// IsochronesFigure builds the isochrone plot: excess pore pressure (kPa
+// or psf) against depth (m or ft, down) at every output time, beside the layer strip,
 // each curve labelled with its time. p may be nil (layer names then come
 // from the result alone); w and h are pixels, zero for the default size.
 func IsochronesFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
@@ -38,6 +38,9 @@ func IsochronesFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
 	if len(isos) == 0 || len(c.Depth) == 0 {
 		return f.message(msgNoIsochrones)
 	}
+	for i := range isos {
+		isos[i].Excess = uStress.all(isos[i].Excess)
+	}
 	lo, hi, _ := finiteRange(excessOf(isos)...)
 	bs := layerBands(p, r)
 	zmax := columnDepth(bs, c.Depth)
@@ -45,17 +48,17 @@ func IsochronesFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
 		return f.message(msgNoIsochrones)
 	}
 	panels, clips := f.depthFigure(p, bs, zmax, []panelSpec{{
-		Weight: 1, Lo: math.Min(0, lo), Hi: math.Max(0, hi), Label: "Excess pore pressure, kPa",
+		Weight: 1, Lo: math.Min(0, lo), Hi: math.Max(0, hi), Label: "Excess pore pressure, " + uStress.sym(),
 	}})
 	pn := panels[0]
+	zs, zu, su := uLength.all(c.Depth), uLength.tail(), uStress.tail()
+	read := func(q Pt) string {
+		return "z = " + sig(q.DY, 3) + zu + ", u = " + sig(q.DX, 3) + su
+	}
 	var labels []TextEl
 	for i, iso := range isos {
 		name := "t = " + dayLabel(iso.Time) // in the unit of the times typed
-
-		read := func(q Pt) string {
-			return "z = " + sig(q.DY, 3) + " m, u = " + sig(q.DX, 3) + " kPa"
-		}
-		s := f.addSeries(pn, clips[0], name, styleAt(i), iso.Excess, c.Depth, read)
+		s := f.addSeries(pn, clips[0], name, styleAt(i), iso.Excess, zs, read)
 		if s == nil {
 			continue
 		}

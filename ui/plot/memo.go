@@ -4,6 +4,7 @@ import (
 	"reflect"
 
 	"porelight/solver"
+	"porelight/ui/units"
 )
 
 // Figures are built once per change of what they show. vugu builds every
@@ -21,6 +22,7 @@ type figKey struct {
 	r, fit *solver.Result
 	a, b   bool
 	w, h   int
+	u      units.System // the units shown (get sets it)
 }
 
 // figMemo is a component's last figure and the props it was built for.
@@ -33,6 +35,7 @@ type figMemo struct {
 // was built for the same props, or for a copy of the same project that
 // differs only in text no figure shows.
 func (m *figMemo) get(k figKey, build func() *Figure) *Figure {
+	k.u = shown
 	if m.fig != nil {
 		same := m.key == k
 		if !same && m.key.p != nil && k.p != nil {

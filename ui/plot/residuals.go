@@ -11,7 +11,8 @@ import (
 // prediction, for ResidualsFigure.
 type ResidualRecord struct {
 	Name string
-	// Pressure is true for a piezometer (kPa), false for a plate (mm).
+	// Pressure is true for a piezometer (kPa), false for a plate (mm);
+	// the figure shows them in the units shown (psf, in).
 	Pressure bool
 	// Times (days after day 0) and Diffs (measured − predicted, mm or
 	// kPa) of the readings that have a prediction.
@@ -59,15 +60,15 @@ func ResidualsFigure(p *solver.Project, recs []ResidualRecord, dates bool, w, h 
 	width := f.W - legendW - 8 - timeLeft
 	height := (f.H - timeTop - timeBottom - gap*float64(n-1)) / float64(n)
 	y := float64(timeTop)
-	labels := [2]string{"Settlement difference, mm", "Pressure difference, kPa"}
-	units := [2]string{" mm", " kPa"}
+	kinds := [2]dim{uMM, uStress}
+	labels := [2]string{"Settlement difference, " + uMM.sym(), "Pressure difference, " + uStress.sym()}
 	for k, g := range groups {
 		if len(g) == 0 {
 			continue
 		}
 		var all [][]float64
 		for _, i := range g {
-			all = append(all, recs[i].Diffs)
+			all = append(all, kinds[k].all(recs[i].Diffs))
 		}
 		lo, hi, _ := finiteRange(all...)
 		m := math.Max(math.Max(math.Abs(lo), math.Abs(hi)), 1e-6)
@@ -99,7 +100,7 @@ func ResidualsFigure(p *solver.Project, recs []ResidualRecord, dates bool, w, h 
 			r := recs[i]
 			mk := markAt(j)
 			mk.Stroke = styleAt(j).Stroke
-			f.addPoints(pn, clip, r.Name, mk, r.Times, r.Diffs, readTime("difference", units[k], 3))
+			f.addPoints(pn, clip, r.Name, mk, r.Times, all[j], readTime("difference", kinds[k].tail(), 3))
 		}
 		y += height + gap
 	}

@@ -114,10 +114,11 @@ func SectionFigure(p *solver.Project, w, h int) *Figure {
 	cw := math.Max(6, 0.02*(xr-xl))
 	f.Rects = append(f.Rects, RectEl{Box: Box{x - cw/2, Y(0), cw, depth * s}, Fill: "none", Stroke: inkAxis, StrokeWidth: 1.5})
 	f.text(x, Y(depth)+12, "column", "middle", 10, inkText)
-	// A scale bar.
-	bar := niceLength(spanX / 5)
+	// A scale bar, a round length in the unit shown.
+	shownBar := niceLength(uLength.of(spanX / 5))
+	bar := uLength.back(shownBar)
 	f.path("M"+coord(xl)+" "+coord(f.H-6)+" h"+coord(bar*s), inkAxis, "none", 2)
-	f.text(xl+bar*s+4, f.H-3, sig(bar, 3)+" m", "start", 10, inkMuted)
+	f.text(xl+bar*s+4, f.H-3, sig(shownBar, 3)+uLength.tail(), "start", 10, inkMuted)
 	return f
 }
 

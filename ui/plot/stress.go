@@ -8,8 +8,8 @@ import (
 
 const msgNoStages = "No load stages: add one to see the added stress with depth."
 
-// StageName describes load stage i of p for legends: "Stage 2: fill
-// 2.5 m, embankment".
+// StageName describes load stage i of p for legends, in the units shown:
+// "Stage 2: fill 2.5 m, embankment".
 func StageName(p *solver.Project, i int) string {
 	s := "Stage " + itoa(i+1)
 	if p == nil || i >= len(p.Loads) {
@@ -17,9 +17,9 @@ func StageName(p *solver.Project, i int) string {
 	}
 	l := p.Loads[i]
 	if l.Fill != nil {
-		s += ": fill " + sig(l.Fill.Thickness, 3) + " m"
+		s += ": fill " + sig(uLength.of(l.Fill.Thickness), 3) + uLength.tail()
 	} else {
-		s += ": q " + sig(l.Q, 3) + " kPa"
+		s += ": q " + sig(uStress.of(l.Q), 3) + uStress.tail()
 	}
 	switch {
 	case l.Area != nil:
@@ -79,7 +79,9 @@ func StressFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
 				sum[j] += s.Q * v
 			}
 		}
+		added[i] = uStress.all(added[i])
 	}
+	sum, initial, depth = uStress.all(sum), uStress.all(initial), uLength.all(depth)
 	flo, fhi, _ := finiteRange(factorsOf(st)...)
 	if len(st) == 0 {
 		flo, fhi = 0, 1
@@ -88,24 +90,26 @@ func StressFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
 	panels, clips := f.depthFigure(p, bs, zmax, []panelSpec{
 		// Hi 1/1.03 so that the 3 % padding of depthFigure ends the axis at 1.
 		{Weight: 1, Lo: math.Min(0, flo), Hi: math.Max(1, fhi) / 1.03, Label: "Δσ/q of each stage"},
-		{Weight: 1.2, Lo: math.Min(0, slo), Hi: math.Max(0, shi), Label: "Added stress Δσ, kPa"},
+		{Weight: 1.2, Lo: math.Min(0, slo), Hi: math.Max(0, shi), Label: "Added stress Δσ, " + uStress.sym()},
 	})
+	zu, su := uLength.tail(), uStress.tail()
 	for i, s := range st {
 		name := StageName(p, i)
-		readF := func(q Pt) string { return "z = " + sig(q.DY, 3) + " m, Δσ/q = " + sig(q.DX, 3) }
-		readS := func(q Pt) string { return "z = " + sig(q.DY, 3) + " m, Δσ = " + sig(q.DX, 3) + " kPa" }
-		f.addSeries(panels[0], clips[0], name, styleAt(i), s.Factor, s.Depth, readF)
-		f.addSeries(panels[1], clips[1], name+" (kPa)", styleAt(i), added[i], s.Depth, readS)
+		readF := func(q Pt) string { return "z = " + sig(q.DY, 3) + zu + ", Δσ/q = " + sig(q.DX, 3) }
+		readS := func(q Pt) string { return "z = " + sig(q.DY, 3) + zu + ", Δσ = " + sig(q.DX, 3) + su }
+		zs := uLength.all(s.Depth)
+		f.addSeries(panels[0], clips[0], name, styleAt(i), s.Factor, zs, readF)
+		f.addSeries(panels[1], clips[1], name+" ("+uStress.sym()+")", styleAt(i), added[i], zs, readS)
 	}
 	if len(st) > 1 {
-		read := func(q Pt) string { return "z = " + sig(q.DY, 3) + " m, ΣΔσ = " + sig(q.DX, 4) + " kPa" }
+		read := func(q Pt) string { return "z = " + sig(q.DY, 3) + zu + ", ΣΔσ = " + sig(q.DX, 4) + su }
 		tot := styleAt(len(st))
 		tot.Width = 2.5
 		f.addSeries(panels[1], clips[1], "All stages", tot, sum, depth, read)
 	}
 	var ini *Series
 	if initial != nil {
-		read := func(q Pt) string { return "z = " + sig(q.DY, 3) + " m, Δu0 = " + sig(q.DX, 4) + " kPa" }
+		read := func(q Pt) string { return "z = " + sig(q.DY, 3) + zu + ", Δu0 = " + sig(q.DX, 4) + su }
 		ini = f.addSeries(panels[1], clips[1], "Initial excess (day 0)", withDash(styleAt(len(st)+1), "2 3"), initial, depth, read)
 	}
 	legend := append([]*Series(nil), panels[0].Series...)
@@ -132,26 +136,26 @@ func StressSVG(p *solver.Project, r *solver.Result, w, h int) string {
 }
 
 // StressCSV returns the added stress of every stage as CSV: one row per
-// depth, Δσ/q and Δσ (kPa) of each stage.
+// depth, Δσ/q and Δσ (kPa or psf) of each stage.
 func StressCSV(r *solver.Result) string {
-	header := []string{"depth (m)"}
+	header := []string{"depth (" + uLength.sym() + ")"}
 	if r == nil || r.Consolidation == nil || len(r.Consolidation.Stages) == 0 {
 		return writeCSV(header, nil)
 	}
 	st := r.Consolidation.Stages
 	for i := range st {
 		n := itoa(i + 1)
-		header = append(header, "stage "+n+" Δσ/q (–)", "stage "+n+" Δσ (kPa)")
+		header = append(header, "stage "+n+" Δσ/q (–)", "stage "+n+" Δσ ("+uStress.sym()+")")
 	}
 	rows := make([][]string, len(st[0].Depth))
 	for j, z := range st[0].Depth {
-		row := []string{csvNum(z)}
+		row := []string{csvNum(uLength.of(z))}
 		for _, s := range st {
 			q := math.NaN()
 			if j < len(s.Factor) {
 				q = s.Q * s.Factor[j]
 			}
-			row = append(row, at(s.Factor, j), csvNum(q))
+			row = append(row, at(s.Factor, j), csvNum(uStress.of(q)))
 		}
 		rows[j] = row
 	}

@@ -95,7 +95,8 @@ const (
 	loadPanelGap = 16
 )
 
-// loadPanel draws the surface load of s (kPa) over [lo, hi] in a strip
+// loadPanel draws the surface load of s (kPa, or psf; lo and hi in the
+// unit shown) over [lo, hi] in a strip
 // above the panel main, on main's time axis (the same scale, so a time
 // is at the same x in both): its grid, frame, value axis and curve. It
 // is the figure's last panel.
@@ -106,9 +107,9 @@ func (f *Figure) loadPanel(main *Panel, s *solver.Series, lo, hi float64) {
 	f.grid(pn, main.XTicks, true)
 	f.grid(pn, LinearTicks(nlo, nhi, step), false)
 	f.frame(box)
-	f.axis(box, pn.Y, LinearTicks(nlo, nhi, step), sideLeft, "Load, kPa")
+	f.axis(box, pn.Y, LinearTicks(nlo, nhi, step), sideLeft, "Load, "+uStress.sym())
 	f.Panels = append(f.Panels, pn)
-	f.addSeries(pn, f.clip(box), "Load at the surface", Style{Stroke: inkMuted, Width: 1.5}, s.Time, s.Load, readTime("q", " kPa", 3))
+	f.addSeries(pn, f.clip(box), "Load at the surface", Style{Stroke: inkMuted, Width: 1.5}, s.Time, uStress.all(s.Load), readTime("q", uStress.tail(), 3))
 }
 
 // positiveTimeRange returns the smallest positive and the largest finite
@@ -249,7 +250,7 @@ func (f *Figure) markTime(pn *Panel, t *float64, y float64, name string) {
 	tx.Halo = true
 }
 
-// SettlementFigure builds the plot of primary settlement (m, growing
+// SettlementFigure builds the plot of primary settlement (m or in, growing
 // downward) against log time, from mv and, when present, from the e–log σ′
 // curves, with the readings of the settlement plates in p.Monitoring as
 // marks.
@@ -273,6 +274,9 @@ func SettlementTimeFigure(p *solver.Project, r, fit *solver.Result, dates bool, 
 		return f.message(msg)
 	}
 	recs := plateRecords(p)
+	for i := range recs {
+		recs[i].vs = uSettle.all(recs[i].vs)
+	}
 	// With secondary compression, its own curve and the total.
 	var total []float64
 	if len(s.Secondary) == len(s.Time) {
@@ -281,12 +285,14 @@ func SettlementTimeFigure(p *solver.Project, r, fit *solver.Result, dates bool, 
 			total[i] = s.Settlement[i] + s.Secondary[i]
 		}
 	}
-	all := [][]float64{s.Settlement, s.SettlementElog, s.Secondary, total}
+	settlement, elog, secondary, total := uSettle.all(s.Settlement), uSettle.all(s.SettlementElog), uSettle.all(s.Secondary), uSettle.all(total)
+	all := [][]float64{settlement, elog, secondary, total}
 	var fs *solver.Series
 	var fitted []float64 // what the back-fit compared with the readings
 	if fit != nil && fit.Consolidation != nil {
 		fs = &fit.Consolidation.Series
 		fitted, _ = monitor.FittedSettlement(fit)
+		fitted = uSettle.all(fitted)
 		all = append(all, fitted)
 	}
 	for _, m := range recs {
@@ -299,25 +305,26 @@ func SettlementTimeFigure(p *solver.Project, r, fit *solver.Result, dates bool, 
 	lo, hi = padRange(math.Min(0, lo), math.Max(0, hi))
 	// The load above, on the same time axis, when it changes.
 	top := float64(timeTop)
-	loadLo, loadHi, hasLoad := finiteRange(s.Load)
+	loadLo, loadHi, hasLoad := finiteRange(uStress.all(s.Load))
 	hasLoad = hasLoad && loadHi-loadLo > 0
 	if hasLoad {
 		top += loadPanelH + loadPanelGap
 	}
-	pn, clip := f.recordFigure(p, s, recs, dates, top, lo, hi, "Settlement, m", true)
+	pn, clip := f.recordFigure(p, s, recs, dates, top, lo, hi, "Settlement, "+uSettle.sym(), true)
 	if hasLoad {
 		f.loadPanel(pn, s, math.Min(0, loadLo), math.Max(0, loadHi))
 	}
+	su := uSettle.tail()
 	if r.Summary.Model == solver.ModelNonlinear {
 		// One solution: the series is the non-linear model's settlement.
-		f.addSeries(pn, clip, "Non-linear model", styleAt(1), s.Time, s.Settlement, readTime("s", " m", 3))
+		f.addSeries(pn, clip, "Non-linear model", styleAt(1), s.Time, settlement, readTime("s", su, 3))
 	} else {
-		f.addSeries(pn, clip, "From mv", styleAt(0), s.Time, s.Settlement, readTime("s", " m", 3))
-		f.addSeries(pn, clip, "From e–log σ′", styleAt(1), s.Time, s.SettlementElog, readTime("s", " m", 3))
+		f.addSeries(pn, clip, "From mv", styleAt(0), s.Time, settlement, readTime("s", su, 3))
+		f.addSeries(pn, clip, "From e–log σ′", styleAt(1), s.Time, elog, readTime("s", su, 3))
 	}
 	if total != nil {
-		f.addSeries(pn, clip, "Secondary (Cα)", styleAt(2), s.Time, s.Secondary, readTime("s", " m", 3))
-		f.addSeries(pn, clip, "Primary + secondary", styleAt(3), s.Time, total, readTime("s", " m", 3))
+		f.addSeries(pn, clip, "Secondary (Cα)", styleAt(2), s.Time, secondary, readTime("s", su, 3))
+		f.addSeries(pn, clip, "Primary + secondary", styleAt(3), s.Time, total, readTime("s", su, 3))
 	}
 	if fs != nil {
 		name := "From mv"
@@ -327,10 +334,10 @@ func SettlementTimeFigure(p *solver.Project, r, fit *solver.Result, dates bool, 
 		if len(fs.Secondary) == len(fs.Time) {
 			name += " + secondary"
 		}
-		f.addSeries(pn, clip, name+", back-fitted", styleAt(4), fs.Time, fitted, readTime("s", " m", 3))
+		f.addSeries(pn, clip, name+", back-fitted", styleAt(4), fs.Time, fitted, readTime("s", su, 3))
 	}
 	for i, m := range recs {
-		f.addPoints(pn, clip, "plate "+m.name+", measured", markAt(i), m.ts, m.vs, readTime("measured s", " m", 3))
+		f.addPoints(pn, clip, "plate "+m.name+", measured", markAt(i), m.ts, m.vs, readTime("measured s", su, 3))
 	}
 	f.residualMarks(pn, clip, r)
 	f.legend(f.W-legendW+8, timeTop+8, legendW-12, int((f.H-timeTop-20)/16), f.allSeries())
@@ -341,7 +348,7 @@ func SettlementTimeFigure(p *solver.Project, r, fit *solver.Result, dates bool, 
 // pore pressure curve.
 const excessDash = "1.5 3"
 
-// PiezometersFigure builds the plot of pore pressure (kPa) against log time
+// PiezometersFigure builds the plot of pore pressure (kPa or psf) against log time
 // at every piezometer: the reading (steady plus excess) in the piezometer's
 // own style and the excess alone dotted, thinner, in the same colour. The
 // readings of the piezometer records in p.Monitoring are drawn as marks in
@@ -362,7 +369,7 @@ type RecordAxes struct {
 	// a valid date (see recordFigure).
 	Dates bool
 	// Level shows the piezometers as the water level a standpipe there
-	// would show, m above the top of the column (negative below it): the
+	// would show, m (ft) above the top of the column (negative below it): the
 	// total head u/γw − z, as Steady.Head, and the excess as Δu/γw.
 	Level bool
 }
@@ -379,31 +386,32 @@ func PiezometersTimeFigure(p *solver.Project, r, fit *solver.Result, ax RecordAx
 		return f.message(msg)
 	}
 	// The pressure u at depth z as drawn: u itself, kPa, or the level
-	// u/γw − z, m; an excess as Δu or Δu/γw.
+	// u/γw − z, m; an excess as Δu or Δu/γw; in the units shown.
 	gw := solver.DefaultGammaW
 	if p != nil {
 		gw = solver.ResolveGammaW(p)
 	}
 	at := func(z float64, vs []float64) []float64 {
 		if !ax.Level {
-			return vs
+			return uStress.all(vs)
 		}
 		out := make([]float64, len(vs))
 		for i, v := range vs {
-			out[i] = v/gw - z
+			out[i] = uLength.of(v/gw - z)
 		}
 		return out
 	}
 	excess := func(vs []float64) []float64 {
 		if !ax.Level {
-			return vs
+			return uStress.all(vs)
 		}
-		return scaled(vs, 1/gw)
+		return uLength.all(scaled(vs, 1/gw))
 	}
-	name, dname, unit, ylabel := "u", "Δu", " kPa", "Pore pressure, kPa"
+	name, dname, unit, ylabel := "u", "Δu", uStress.tail(), "Pore pressure, "+uStress.sym()
 	if ax.Level {
-		name, dname, unit, ylabel = "h", "Δu/γw", " m", "Water level (total head), m above the top"
+		name, dname, unit, ylabel = "h", "Δu/γw", uLength.tail(), "Water level (total head), "+uLength.sym()+" above the top"
 	}
+	zu := uLength.tail()
 	recs := piezometerRecords(p)
 	var all [][]float64
 	for _, pz := range s.Piezometers {
@@ -430,7 +438,7 @@ func PiezometersTimeFigure(p *solver.Project, r, fit *solver.Result, ax RecordAx
 		f.path("M"+coord(pn.Box.X)+" "+coord(y)+" H"+coord(pn.Box.Right()), inkRule, "none", 1)
 	}
 	for i, pz := range s.Piezometers {
-		z := "z = " + sig(pz.Depth, 3) + " m"
+		z := "z = " + sig(uLength.of(pz.Depth), 3) + zu
 		st := styleAt(i)
 		f.addSeries(pn, clip, z+", "+name, st, s.Time, at(pz.Depth, pz.Pore), readTime(name, unit, 3))
 		ex := withDash(st, excessDash)
@@ -442,7 +450,7 @@ func PiezometersTimeFigure(p *solver.Project, r, fit *solver.Result, ax RecordAx
 		if fz := depthIndex(fs, m.depth); fz >= 0 {
 			st := withDash(styleAt(max(k, 0)), fitDash)
 			st.Width = 1.5
-			f.addSeries(pn, clip, "z = "+sig(m.depth, 3)+" m, "+name+" back-fitted", st, fs.Time, at(m.depth, fs.Piezometers[fz].Pore), readTime(name, unit, 3))
+			f.addSeries(pn, clip, "z = "+sig(uLength.of(m.depth), 3)+zu+", "+name+" back-fitted", st, fs.Time, at(m.depth, fs.Piezometers[fz].Pore), readTime(name, unit, 3))
 		}
 		mk := markAt(j)
 		if k >= 0 {
@@ -483,21 +491,25 @@ func preconsolidation(p *solver.Project, st *solver.Steady) (xs, ys []float64) {
 const fitDash = "7 2 1.5 2"
 
 // SteadyFigure builds the steady state profiles against depth beside the
-// layer strip: total head (m) in the left panel; pore pressure, total and
-// effective vertical stress (kPa) in the right one.
+// layer strip: total head (m or ft) in the left panel; pore pressure,
+// total and effective vertical stress (kPa or psf) in the right one.
 func SteadyFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
 	f := newFigure("plot-steady", "Steady state: head, pore pressure and stresses", w, h)
 	if r == nil {
 		return f.message(msgNoResult)
 	}
-	st := &r.Steady
+	zsi := r.Steady.Depth
+	st := &solver.Steady{ // as shown
+		Depth: uLength.all(zsi), Head: uLength.all(r.Steady.Head),
+		Pore: uStress.all(r.Steady.Pore), Total: uStress.all(r.Steady.Total), Effective: uStress.all(r.Steady.Effective),
+	}
 	hlo, hhi, okH := finiteRange(st.Head)
 	slo, shi, okS := finiteRange(st.Pore, st.Total, st.Effective)
 	if len(st.Depth) == 0 || (!okH && !okS) {
 		return f.message(msgNoSteady)
 	}
 	bs := layerBands(p, r)
-	zmax := columnDepth(bs, st.Depth)
+	zmax := columnDepth(bs, zsi)
 	if !(zmax > 0) {
 		return f.message(msgNoSteady)
 	}
@@ -508,18 +520,19 @@ func SteadyFigure(p *solver.Project, r *solver.Result, w, h int) *Figure {
 		slo, shi = 0, 1
 	}
 	panels, clips := f.depthFigure(p, bs, zmax, []panelSpec{
-		{Weight: 0.8, Lo: hlo, Hi: hhi, Label: "Total head, m"},
-		{Weight: 1.4, Lo: math.Min(0, slo), Hi: math.Max(0, shi), Label: "Pressure and stress, kPa"},
+		{Weight: 0.8, Lo: hlo, Hi: hhi, Label: "Total head, " + uLength.sym()},
+		{Weight: 1.4, Lo: math.Min(0, slo), Hi: math.Max(0, shi), Label: "Pressure and stress, " + uStress.sym()},
 	})
+	zu, su := uLength.tail(), uStress.tail()
 	readZ := func(name, unit string) func(Pt) string {
-		return func(q Pt) string { return "z = " + sig(q.DY, 3) + " m, " + name + " = " + sig(q.DX, 4) + unit }
+		return func(q Pt) string { return "z = " + sig(q.DY, 3) + zu + ", " + name + " = " + sig(q.DX, 4) + unit }
 	}
-	f.addSeries(panels[0], clips[0], "Total head h", styleAt(0), st.Head, st.Depth, readZ("h", " m"))
-	f.addSeries(panels[1], clips[1], "Pore pressure u", styleAt(1), st.Pore, st.Depth, readZ("u", " kPa"))
-	f.addSeries(panels[1], clips[1], "Total stress σv", styleAt(2), st.Total, st.Depth, readZ("σv", " kPa"))
-	f.addSeries(panels[1], clips[1], "Effective stress σ′v", styleAt(3), st.Effective, st.Depth, readZ("σ′v", " kPa"))
-	if xs, ys := preconsolidation(p, st); len(xs) > 0 {
-		f.addSeries(panels[1], clips[1], "Preconsolidation σ′p", Style{Stroke: styleAt(3).Stroke, Dash: "5 3", Width: styleAt(3).Width}, xs, ys, readZ("σ′p", " kPa"))
+	f.addSeries(panels[0], clips[0], "Total head h", styleAt(0), st.Head, st.Depth, readZ("h", zu))
+	f.addSeries(panels[1], clips[1], "Pore pressure u", styleAt(1), st.Pore, st.Depth, readZ("u", su))
+	f.addSeries(panels[1], clips[1], "Total stress σv", styleAt(2), st.Total, st.Depth, readZ("σv", su))
+	f.addSeries(panels[1], clips[1], "Effective stress σ′v", styleAt(3), st.Effective, st.Depth, readZ("σ′v", su))
+	if xs, ys := preconsolidation(p, &r.Steady); len(xs) > 0 {
+		f.addSeries(panels[1], clips[1], "Preconsolidation σ′p", Style{Stroke: styleAt(3).Stroke, Dash: "5 3", Width: styleAt(3).Width}, uStress.all(xs), uLength.all(ys), readZ("σ′p", su))
 	}
 	f.legend(f.W-legendW+8, depthTop+8, legendW-12, int((f.H-depthTop-20)/16), f.allSeries())
 	return f

@@ -14,10 +14,10 @@ type Curve struct {
 }
 
 // VariantsFigure overlays the options' settlement (degree false: primary
-// of the model plus secondary, m, growing downward) or degree of
+// of the model plus secondary, m or in, growing downward) or degree of
 // consolidation Us (degree true, %) against log time, one style each.
 func VariantsFigure(curves []Curve, degree bool, w, h int) *Figure {
-	id, title, label := "plot-options-settlement", "Settlement of each option", "Settlement, m"
+	id, title, label := "plot-options-settlement", "Settlement of each option", "Settlement, "+uSettle.sym()
 	if degree {
 		id, title, label = "plot-options-degree", "Degree of consolidation Us of each option", "Degree of consolidation Us, %"
 	}
@@ -41,7 +41,7 @@ func VariantsFigure(curves []Curve, degree bool, w, h int) *Figure {
 			case degree:
 				ys = nil
 			default:
-				ys[i] = uncertain.TotalAt(s, t)
+				ys[i] = uSettle.of(uncertain.TotalAt(s, t))
 			}
 			if ys == nil {
 				break
@@ -69,7 +69,7 @@ func VariantsFigure(curves []Curve, degree bool, w, h int) *Figure {
 		lo, hi = padRange(math.Min(0, lo), math.Max(0, hi))
 	}
 	pn, clip := f.timeFigure(timeTop, tlo, thi, lo, hi, label, true)
-	name, unit := "s", " m"
+	name, unit := "s", uSettle.tail()
 	if degree {
 		name, unit = "Us", " %"
 	}
@@ -89,7 +89,7 @@ type ProfilePoint struct {
 }
 
 // ProfileFigure draws the settlement along the alignment at a date
-// (m, growing downward, against chainage), the sections marked and named;
+// (m or in, growing downward, against chainage in m or ft), the sections marked and named;
 // over, when not nil, marks the spans whose angular distortion exceeds
 // the limit (over[i] for the span from section i to i+1).
 func ProfileFigure(pts []ProfilePoint, over []bool, day float64, w, h int) *Figure {
@@ -97,7 +97,7 @@ func ProfileFigure(pts []ProfilePoint, over []bool, day float64, w, h int) *Figu
 	var xs, ys []float64
 	for _, p := range pts {
 		if p.OK {
-			xs, ys = append(xs, p.Chainage), append(ys, p.Settlement)
+			xs, ys = append(xs, uLength.of(p.Chainage)), append(ys, uSettle.of(p.Settlement))
 		}
 	}
 	if len(xs) < 2 {
@@ -113,23 +113,24 @@ func ProfileFigure(pts []ProfilePoint, over []bool, day float64, w, h int) *Figu
 	f.grid(pn, xt, true)
 	f.grid(pn, yt, false)
 	f.frame(box)
-	f.axis(box, pn.X, xt, sideBottom, "Chainage, m")
-	f.axis(box, pn.Y, yt, sideLeft, "Settlement, m")
+	f.axis(box, pn.X, xt, sideBottom, "Chainage, "+uLength.sym())
+	f.axis(box, pn.Y, yt, sideLeft, "Settlement, "+uSettle.sym())
 	f.Panels = append(f.Panels, pn)
 	clip := f.clip(box)
 	st := styleAt(0)
 	st.Marker = true
+	zu, su := uLength.tail(), uSettle.tail()
 	f.addSeries(pn, clip, "Settlement", st, xs, ys, func(q Pt) string {
-		return "chainage " + sig(q.DX, 4) + " m, s = " + sig(q.DY, 3) + " m"
+		return "chainage " + sig(q.DX, 4) + zu + ", s = " + sig(q.DY, 3) + su
 	})
 	for i, p := range pts {
 		if i+1 < len(pts) && i < len(over) && over[i] && p.OK && pts[i+1].OK {
 			a, b := pts[i+1], p
-			el := f.path("M"+coord(pn.X.Map(b.Chainage))+" "+coord(pn.Y.Map(b.Settlement))+" L"+coord(pn.X.Map(a.Chainage))+" "+coord(pn.Y.Map(a.Settlement)), "#b3261e", "none", 4)
+			el := f.path("M"+coord(pn.X.Map(uLength.of(b.Chainage)))+" "+coord(pn.Y.Map(uSettle.of(b.Settlement)))+" L"+coord(pn.X.Map(uLength.of(a.Chainage)))+" "+coord(pn.Y.Map(uSettle.of(a.Settlement))), "#b3261e", "none", 4)
 			el.Clip = clip
 		}
 		if p.OK {
-			t := f.text(pn.X.Map(p.Chainage), box.Y-4, p.Name, "middle", 10.5, inkText)
+			t := f.text(pn.X.Map(uLength.of(p.Chainage)), box.Y-4, p.Name, "middle", 10.5, inkText)
 			t.Halo = true
 		}
 	}
