@@ -3,6 +3,7 @@ package ui
 import (
 	"github.com/vugu/vugu"
 
+	"porelight/ui/plot"
 	"porelight/ui/units"
 )
 
@@ -27,6 +28,7 @@ func (c *Root) loadUnits() {
 // not a number stays as typed.
 func (c *Root) useUnits(s units.System) {
 	shown = s
+	plot.SetUnits(s)
 	if c.form != nil {
 		c.form.SetUnits(s)
 	}

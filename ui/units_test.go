@@ -6,6 +6,7 @@ import (
 	"strings"
 	"testing"
 
+	"porelight/ui/plot"
 	"porelight/ui/units"
 )
 
@@ -17,7 +18,7 @@ import (
 func usPage(t *testing.T) *page {
 	t.Helper()
 	p := newPage(t, Sources{})
-	t.Cleanup(func() { shown = units.SI })
+	t.Cleanup(func() { shown = units.SI; plot.SetUnits(units.SI) })
 	p.fire("units", "change", map[string]any{"value": "us"})
 	return p
 }
@@ -51,7 +52,7 @@ func TestUnitsSwitch(t *testing.T) {
 	}
 	// Column heads and the layers CSV.
 	html := p.html()
-	for _, want := range []string{">ft<", ">pcf<", ">ft/day<", ">ft²/kip<", ">ft²/yr<", ">psf<"} {
+	for _, want := range []string{">ft<", ">pcf<", ">ft/day<", ">ft²/kip<", ">ft²/yr<", ">psf<", "Depth, ft", "Excess pore pressure, psf"} {
 		if !strings.Contains(html, want) {
 			t.Errorf("the page in US units lacks a unit %s", want)
 		}
