@@ -8254,9 +8254,9 @@ func (c *Plots) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 					Func:      func(event vugu.DOMEvent) { c.setLevel(event) },
 					// TODO: implement capture, etc. mostly need to decide syntax
 				})
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "title", Val: "The water level a standpipe at each piezometer would show: total head u/γw − z, m above the top of the column"}}}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "title", Val: "The water level a standpipe at each piezometer would show: total head u/γw − z, above the top of the column"}}}
 				vgparent.AppendChild(vgn)
-				vgn.SetInnerHTML(vugu.HTML("piezometers as water level (m)"))
+				vgn.SetInnerHTML("piezometers as water level (" + sym(units.Length) + ")")
 			}
 		}
 		vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
