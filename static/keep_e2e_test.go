@@ -44,6 +44,36 @@ func key(t *testing.T, ctx context.Context, k string, shift bool) {
 	within(t, ctx, 10*time.Second, chromedp.KeyEvent(k, chromedp.KeyModifiers(mods...)))
 }
 
+// allowDownloads makes the browser save downloads into a new directory,
+// which it returns.
+func allowDownloads(t *testing.T, ctx context.Context) string {
+	t.Helper()
+	dir := t.TempDir()
+	within(t, ctx, 10*time.Second, chromedp.Func(func(ctx context.Context, tg *chromedp.Target) error {
+		_, err := cdp.Call(ctx, tg, cdpbrowser.SetDownloadBehavior, cdpbrowser.SetDownloadBehaviorParams{
+			Behavior: cdpbrowser.SetDownloadBehaviorBehaviorAllow, DownloadPath: dir})
+		return err
+	}))
+	return dir
+}
+
+// downloaded waits for a complete JSON file matching pattern in dir and
+// returns it.
+func downloaded(t *testing.T, dir, pattern string) []byte {
+	t.Helper()
+	for deadline := time.Now().Add(15 * time.Second); ; time.Sleep(200 * time.Millisecond) {
+		matches, _ := filepath.Glob(filepath.Join(dir, pattern))
+		if len(matches) > 0 {
+			if data, err := os.ReadFile(matches[0]); err == nil && json.Valid(data) {
+				return data
+			}
+		}
+		if time.Now().After(deadline) {
+			t.Fatalf("no %s file was downloaded", pattern)
+		}
+	}
+}
+
 func TestE2EKeep(t *testing.T) {
 	pageURL, _ := builtPage(t)
 	rec := &recorder{}
@@ -52,12 +82,7 @@ func TestE2EKeep(t *testing.T) {
 	if d := os.Getenv("SHOTS"); d != "" {
 		shots = d
 	}
-	downloads := t.TempDir()
-	within(t, ctx, 10*time.Second, chromedp.Func(func(ctx context.Context, tg *chromedp.Target) error {
-		_, err := cdp.Call(ctx, tg, cdpbrowser.SetDownloadBehavior, cdpbrowser.SetDownloadBehaviorParams{
-			Behavior: cdpbrowser.SetDownloadBehaviorBehaviorAllow, DownloadPath: downloads})
-		return err
-	}))
+	downloads := allowDownloads(t, ctx)
 	open(t, ctx, pageURL)
 
 	t.Run("undo each destructive action", func(t *testing.T) {
@@ -147,21 +172,7 @@ func TestE2EKeep(t *testing.T) {
 		poll[bool](t, ctx, `document.activeElement && document.activeElement.id === "layers-3-thickness"`, 5*time.Second)
 
 		click(t, ctx, "save-project")
-		var data []byte
-		deadline := time.Now().Add(15 * time.Second)
-		for {
-			matches, _ := filepath.Glob(filepath.Join(downloads, "*-draft.json"))
-			if len(matches) > 0 {
-				var err error
-				if data, err = os.ReadFile(matches[0]); err == nil && json.Valid(data) {
-					break
-				}
-			}
-			if time.Now().After(deadline) {
-				t.Fatal("no draft file was downloaded")
-			}
-			time.Sleep(200 * time.Millisecond)
-		}
+		data := downloaded(t, downloads, "*-draft.json")
 		var d struct {
 			Format, Note string
 			Problems     []struct{ Path, Message string }

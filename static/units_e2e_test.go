@@ -7,17 +7,9 @@ package static_test
 // and the choice survives a reload.
 
 import (
-	"context"
-	"encoding/json"
 	"math"
-	"os"
-	"path/filepath"
 	"testing"
 	"time"
-
-	cdpbrowser "github.com/chromedp/cdproto/browser"
-	"github.com/chromedp/cdproto/cdp"
-	"github.com/chromedp/chromedp"
 )
 
 // The SI values by hand from the exact definitions (NIST Special
@@ -34,12 +26,7 @@ func TestE2EUnits(t *testing.T) {
 	pageURL, _ := builtPage(t)
 	rec := &recorder{}
 	ctx := browser(t, rec)
-	downloads := t.TempDir()
-	within(t, ctx, 10*time.Second, chromedp.Func(func(ctx context.Context, tg *chromedp.Target) error {
-		_, err := cdp.Call(ctx, tg, cdpbrowser.SetDownloadBehavior, cdpbrowser.SetDownloadBehaviorParams{
-			Behavior: cdpbrowser.SetDownloadBehaviorBehaviorAllow, DownloadPath: downloads})
-		return err
-	}))
+	downloads := allowDownloads(t, ctx)
 	open(t, ctx, pageURL)
 	click(t, ctx, "new-project")
 	if eval[bool](t, ctx, `!!document.getElementById("confirm-replace")`) {
@@ -71,19 +58,7 @@ func TestE2EUnits(t *testing.T) {
 	}
 
 	click(t, ctx, "save-project")
-	var data []byte
-	for deadline := time.Now().Add(15 * time.Second); ; time.Sleep(200 * time.Millisecond) {
-		matches, _ := filepath.Glob(filepath.Join(downloads, "*.json"))
-		if len(matches) > 0 {
-			var err error
-			if data, err = os.ReadFile(matches[0]); err == nil && json.Valid(data) {
-				break
-			}
-		}
-		if time.Now().After(deadline) {
-			t.Fatal("no project file was downloaded")
-		}
-	}
+	data := downloaded(t, downloads, "*.json")
 	p := mustDecode(t, data)
 	got := map[string]float64{
 		"layers[0].thickness": p.Layers[0].Thickness, "layers[0].gammaSat": p.Layers[0].GammaSat,
