@@ -194,7 +194,7 @@ func (c *Decisions) residualText() string {
 	if r.Primary < 0 {
 		primary = fmt.Sprintf("a net rebound of %s as the column swells after the load removed", mm(-r.Primary))
 	}
-	return fmt.Sprintf("After %s the surface will settle a further %s by the end of the %s design life (%s): %s and %s of secondary compression. By %s it has settled %s; at the end of the design life %s in all.",
+	return fmt.Sprintf("After %s the surface will settle a further %s by the end of the %s design life (%s): %s and %s of secondary compression. By %s it has settled %s; at the end of the design life %s altogether.",
 		when(p, r.Time), mm(r.Total), years(r.Life), when(p, r.Life), primary, mm(r.Secondary), when(p, r.Time), mm(r.Reached), mm(r.AtLife))
 }
 
