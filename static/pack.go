@@ -5,7 +5,8 @@
 // demo project, the renderer's helper script, Go's wasm_exec.js, the
 // solve workers' script (inert text until the boot script makes workers
 // of it), the gzipped WebAssembly program in a 7-bit text code (see Encode122), its
-// memory capped at MaxMemoryPages, and the boot script. A
+// memory capped at MaxMemoryPages and its data joined into a few segments
+// (see JoinData), and the boot script. A
 // Content-Security-Policy meta tag forbids every network request, so the
 // page works the same from disk, from a static server and in a sandboxed
 // frame. The command in ./pack runs it for `make page`.
@@ -75,6 +76,9 @@ func Pack(in Inputs) ([]byte, error) {
 	}
 	wasm, err := CapMemory(in.Wasm, MaxMemoryPages)
 	if err != nil {
+		return nil, err
+	}
+	if wasm, err = JoinData(wasm, DataGap); err != nil {
 		return nil, err
 	}
 	compress := in.Gzip
