@@ -97,13 +97,19 @@ func Pack(in Inputs) ([]byte, error) {
 		return nil, errors.New("pack: the compressed program does not gunzip to the program")
 	}
 	gz := bytes.NewBuffer(gzipped)
+	// The scripts and the stylesheet go in without their comments and
+	// indentation (about 12 kB); the helper comes so already.
+	wasmExec, _ := SqueezeJS(string(in.WasmExec))
+	boot, _ := SqueezeJS(bootJS)
+	worker, _ := SqueezeJS(workerJS)
+	css, _ := SqueezeCSS(pageCSS)
 	parts := map[string]string{
 		"demo project":  string(in.Demo),
 		"helper script": in.VuguHelper,
-		"wasm_exec.js":  string(in.WasmExec),
-		"boot script":   bootJS,
-		"worker script": workerJS,
-		"stylesheet":    pageCSS,
+		"wasm_exec.js":  wasmExec,
+		"boot script":   boot,
+		"worker script": worker,
+		"stylesheet":    css,
 	}
 	for name, s := range parts {
 		if err := inlineSafe(s); err != nil {
@@ -117,14 +123,14 @@ func Pack(in Inputs) ([]byte, error) {
 	var out bytes.Buffer
 	err = t.Execute(&out, map[string]string{
 		"CSP":        CSP,
-		"CSS":        pageCSS,
+		"CSS":        css,
 		"Demo":       strings.TrimSpace(string(in.Demo)),
 		"VuguHelper": in.VuguHelper,
-		"WasmExec":   string(in.WasmExec),
+		"WasmExec":   wasmExec,
 		"WasmGz":     wrap(Encode122(gz.Bytes()), 4096),
 		"WasmLen":    strconv.Itoa(gz.Len()),
-		"Boot":       bootJS,
-		"WorkerShim": workerJS,
+		"Boot":       boot,
+		"WorkerShim": worker,
 	})
 	if err != nil {
 		return nil, err
