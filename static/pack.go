@@ -60,7 +60,7 @@ type Inputs struct {
 	VuguHelper string // the renderer's helper script (see HelperScript)
 	Demo       []byte // the demo project JSON
 	// Gzip, when not nil, compresses the program into the gzip format
-	// (e.g. by an external zopfli, some 4 % smaller than compress/gzip
+	// (e.g. by an external zopfli, some 5 % smaller than compress/gzip
 	// at its best); nil uses compress/gzip at BestCompression.
 	Gzip func([]byte) ([]byte, error)
 }
