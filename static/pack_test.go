@@ -39,7 +39,7 @@ func module(payload []byte, mem []byte) []byte {
 
 func testInputs() Inputs {
 	return Inputs{
-		Wasm:       module(bytes.Repeat([]byte("program"), 100), []byte{1, 0, 0x43}),
+		Wasm:       append(module(bytes.Repeat([]byte("program"), 100), []byte{1, 0, 0x43}), dataSection(seg(64, "data"), seg(80, "more"))...),
 		WasmExec:   []byte("globalThis.Go = class {};"),
 		VuguHelper: HelperMark + "window.vuguRender=function(){};})()",
 		Demo:       []byte(`{"format": "porelight/1", "title": "A & B <i>"}`),
@@ -93,8 +93,11 @@ func TestPack(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
+	if want, err = JoinData(want, DataGap); err != nil {
+		t.Fatal(err)
+	}
 	if !bytes.Equal(got, want) {
-		t.Error("the embedded program differs from the input with its memory capped")
+		t.Error("the embedded program differs from the input with its memory capped and its data joined")
 	}
 }
 

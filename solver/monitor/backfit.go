@@ -11,7 +11,6 @@ import (
 	"strings"
 
 	"gonum.org/v1/gonum/mat"
-	"gonum.org/v1/gonum/optimize"
 	"gonum.org/v1/gonum/stat/distuv"
 )
 
@@ -226,9 +225,9 @@ type FitRecord struct {
 // residuals r = (prediction − reading)/σ are formed, σ being the record's
 // sigma (see FitSpec). The sum ½Σr² is minimised by Gauss–Newton: the
 // Jacobian J of r is taken by forward differences (step 1e-4 in ln m, one
-// solver run per parameter), and gonum's optimize.Newton is given the
-// gradient Jᵀr and the Gauss–Newton Hessian JᵀJ, with a backtracking
-// (Armijo) line search. The search stops when the next Gauss–Newton step
+// solver run per parameter), and a Newton search (gonum's optimize.Newton
+// written out in newton.go) is given the gradient Jᵀr and the
+// Gauss–Newton Hessian JᵀJ, with a backtracking (Armijo) line search. The search stops when the next Gauss–Newton step
 // would move every log multiplier by less than 1 % of its standard
 // error, or after FitSpec.MaxRuns runs. At the optimum the covariance of
 // the log multipliers is s²(JᵀJ)⁻¹ with s² = Σr²/(n − p) (Bates & Watts
@@ -349,26 +348,24 @@ func BackFit(p *solver.Project, spec FitSpec, opt *solver.Options) (*FitResult, 
 	}
 	f.store(x0, f.extract(r0))
 
-	prob := optimize.Problem{
-		Func: f.objective,
-		Grad: f.gradient,
-		Hess: f.hessian,
-		Status: func() (optimize.Status, error) {
+	prob := newtonProblem{
+		fn:   f.objective,
+		grad: f.gradient,
+		hess: f.hessian,
+		status: func() (string, error) {
 			switch {
 			case f.err != nil:
-				return optimize.Failure, f.err
+				return statusFailure, f.err
 			case f.runs >= f.budget:
-				return optimize.FunctionEvaluationLimit, nil
+				return statusEvaluationLimit, nil
 			}
-			return optimize.NotTerminated, nil
+			return "", nil
 		},
-	}
-	settings := &optimize.Settings{
-		Converger:       fitConverger{f},
-		MajorIterations: 100,
+		converged: f.converged,
+		majors:    100,
 	}
 	f.search = true
-	res, merr := optimize.Minimize(prob, x0, settings, &optimize.Newton{Linesearcher: &optimize.Backtracking{}})
+	res, merr := newtonMinimize(prob, x0)
 	f.search = false
 	if f.err != nil {
 		return nil, f.err
@@ -377,7 +374,7 @@ func BackFit(p *solver.Project, spec FitSpec, opt *solver.Options) (*FitResult, 
 	status := "not started"
 	if res != nil {
 		xs = res.X
-		status = res.Status.String()
+		status = res.Status
 	}
 	if merr != nil {
 		status += ": " + merr.Error()
@@ -909,21 +906,11 @@ func (f *fitter) stats(ev *fitEval) fitStats {
 	return st
 }
 
-// fitConverger stops the search when the next Gauss–Newton step is
-// within tolerance (see fitStats.small).
-type fitConverger struct{ f *fitter }
-
-func (fitConverger) Init(int) {}
-
-func (c fitConverger) Converged(loc *optimize.Location) optimize.Status {
-	ev := c.f.cache[fitKey(loc.X)]
-	if ev == nil || ev.jac == nil {
-		return optimize.NotTerminated
-	}
-	if c.f.stats(ev).small {
-		return optimize.StepConvergence
-	}
-	return optimize.NotTerminated
+// converged stops the search when the next Gauss–Newton step is within
+// tolerance (see fitStats.small).
+func (f *fitter) converged(x []float64) bool {
+	ev := f.cache[fitKey(x)]
+	return ev != nil && ev.jac != nil && f.stats(ev).small
 }
 
 // fitKey identifies a point of the search exactly.

@@ -37,8 +37,9 @@
 // carries it.
 //
 // BackFit fits multipliers on k (so on cv) of chosen layers, and
-// optionally one scale on settlement, to the records by Gauss–Newton with
-// gonum/optimize, solving the whole column for each trial, with standard
+// optionally one scale on settlement, to the records by Gauss–Newton (the
+// modified Newton search of gonum/optimize, newton.go), solving the whole
+// column for each trial, with standard
 // errors from the Jacobian (Bates & Watts 1988). These assume independent
 // readings; they are widened by the effective sample size from the
 // residuals' lag-1 autocorrelation, and the 95 % ranges use Student's t
