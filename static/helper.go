@@ -54,7 +54,23 @@ var helperPatches = []helperPatch{
 		`for(let t of ` + targetPropsJS + `)try{let n=typeof e[t];`, 1},
 	{"text and comment", `else x.el.textContent=e;break}`,
 		`else x.el.nodeValue!==e&&(x.el.nodeValue=e);break}`, 2},
+	// An element whose only attribute is SameMark is as the last render
+	// left it (wasm/same.go): its attributes, listeners and children
+	// stay. The mark lasts until the next element is chosen.
+	{"same: new element", `x.elAttrNames={},x.elEventKeys={}`, `x.elAttrNames={},x.elEventKeys={},x.same=!1`, 3},
+	{"same: mark", `if(!e)throw"opcodeSetAttrStr: no current reference";let t=C.readString(),n=C.readString();`,
+		`if(!e)throw"opcodeSetAttrStr: no current reference";let t=C.readString(),n=C.readString();if(t==="` + SameMark + `"){x.same=!0;break}`, 1},
+	{"same: mark in a namespace", `e==""&&(e=null);let n=C.readString(),s=C.readString();`,
+		`e==""&&(e=null);let n=C.readString(),s=C.readString();if(n==="` + SameMark + `"){x.same=!0;break}`, 1},
+	{"same: attributes", `throw"cannot call opcodeRemoveOtherAttrs when nextElMove is set";`,
+		`throw"cannot call opcodeRemoveOtherAttrs when nextElMove is set";if(x.same)break;`, 1},
+	{"same: listeners", `case u:{let t=C.readString(),e=x.eventHandlerMap[t]||{},n=[];`,
+		`case u:{let t=C.readString();if(x.same)break;let e=x.eventHandlerMap[t]||{},n=[];`, 1},
 }
+
+// SameMark is the attribute of an element the page leaves as it is
+// (wasm.SameMark, see wasm/same.go).
+const SameMark = "data-pl-same"
 
 // TargetProps are the properties of an event's target that reach Go
 // (vugu.DOMEvent.PropString("target", name) and its kin); add a name here

@@ -41,6 +41,26 @@ type Decisions struct {
 	Run     func()
 	Cancel  func()
 	Changed func()
+
+	// The pore pressure ratios and figures of the last solve and answers,
+	// worked out once for them rather than on every render (keystroke).
+	ratios               plot.Memo[[]solver.PoreRatio]
+	ratioFig             plot.Memo[*plot.Figure]
+	surchargeFig, strFig figFor
+}
+
+// figFor is a figure and the answer it was drawn for.
+type figFor struct {
+	of  any
+	fig *plot.Figure
+}
+
+// get returns the figure for of, drawn by draw unless it was drawn for it.
+func (f *figFor) get(of any, draw func() *plot.Figure) *plot.Figure {
+	if f.fig == nil || f.of != of {
+		f.of, f.fig = of, draw()
+	}
+	return f.fig
 }
 
 func (c *Decisions) draft() *solver.Project { return c.F.Draft() }
@@ -336,8 +356,13 @@ func (c *Decisions) strengthNote() string {
 	return fmt.Sprintf("Bearing check Nc·su/FS with Nc = %s (Prandtl, strip) and FS = %s; su is the thickness-weighted mean over the layers with a law, from the solved effective stress (its σ′p grows with the largest σ′v reached).", sig(s.Nc, 3), sig(s.FS, 3))
 }
 
-func (c *Decisions) surchargeFigure() *plot.Figure { return plot.SurchargeFigure(c.S.plan, 0, 0) }
-func (c *Decisions) strengthFigure() *plot.Figure  { return plot.StrengthFigure(c.S.strength, 0, 0) }
+func (c *Decisions) surchargeFigure() *plot.Figure {
+	return c.surchargeFig.get(c.S.plan, func() *plot.Figure { return plot.SurchargeFigure(c.S.plan, 0, 0) })
+}
+
+func (c *Decisions) strengthFigure() *plot.Figure {
+	return c.strFig.get(c.S.strength, func() *plot.Figure { return plot.StrengthFigure(c.S.strength, 0, 0) })
+}
 
 // residualRow is the summary's line for the settlement after handover
 // (the site decisions give the detail).
@@ -351,11 +376,13 @@ func (c *Decisions) poreRatios() []solver.PoreRatio {
 	if c.P == nil || c.R == nil {
 		return nil
 	}
-	prs, err := solver.PoreRatios(c.P, c.R)
-	if err != nil {
-		return nil
-	}
-	return prs
+	return c.ratios.Get(c.P, c.R, func() []solver.PoreRatio {
+		prs, err := solver.PoreRatios(c.P, c.R)
+		if err != nil {
+			return nil
+		}
+		return prs
+	})
 }
 
 // ratioRow compares, at one piezometer, the last reading with the
@@ -387,7 +414,9 @@ func (c *Decisions) ratioRows() []ratioRow {
 	return out
 }
 
-func (c *Decisions) ratioFigure() *plot.Figure { return plot.PoreRatioFigure(c.poreRatios(), 0, 0) }
+func (c *Decisions) ratioFigure() *plot.Figure {
+	return c.ratioFig.Get(c.P, c.R, func() *plot.Figure { return plot.PoreRatioFigure(c.poreRatios(), 0, 0) })
+}
 
 // removalOption is one choice of the stage that takes the surcharge off.
 type removalOption struct {

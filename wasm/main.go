@@ -68,6 +68,7 @@ func run(demo []byte) {
 	root.Start(src)
 	first := true
 	drain := drainer(renderer)
+	same := samer(renderer) // same.go
 	for ok := true; ok; ok = renderer.EventWait() {
 		if !first {
 			settle() // coalesce.go
@@ -78,6 +79,9 @@ func run(demo []byte) {
 		ee.RLock()
 		br := env.RunBuild(root)
 		ee.RUnlock()
+		if same != nil {
+			same(br)
+		}
 		if err := renderer.Render(br); err != nil {
 			fail(err)
 		}

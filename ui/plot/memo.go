@@ -26,17 +26,29 @@ type figKey struct {
 }
 
 // figMemo is a component's last figure and the props it was built for.
-type figMemo struct {
+type figMemo = Memo[*Figure]
+
+// Memo is a value worked out from the props of a component (a figure,
+// the piezometers' ratios of a solve) kept with the props it was made
+// for.
+type Memo[T any] struct {
 	key figKey
-	fig *Figure
+	v   T
+	set bool
 }
 
-// get returns the figure for k, built by build unless the last figure
-// was built for the same props, or for a copy of the same project that
+// Get returns the value for the project and result of a solve, made by
+// make unless the last one was made for the same, as get.
+func (m *Memo[T]) Get(p *solver.Project, r *solver.Result, make func() T) T {
+	return m.get(figKey{p: p, r: r}, make)
+}
+
+// get returns the value for k, made by build unless the last value was
+// made for the same props, or for a copy of the same project that
 // differs only in text no figure shows.
-func (m *figMemo) get(k figKey, build func() *Figure) *Figure {
+func (m *Memo[T]) get(k figKey, build func() T) T {
 	k.u = shown
-	if m.fig != nil {
+	if m.set {
 		same := m.key == k
 		if !same && m.key.p != nil && k.p != nil {
 			old := m.key
@@ -45,11 +57,11 @@ func (m *figMemo) get(k figKey, build func() *Figure) *Figure {
 		}
 		if same {
 			m.key = k
-			return m.fig
+			return m.v
 		}
 	}
-	m.key, m.fig = k, build()
-	return m.fig
+	m.key, m.v, m.set = k, build(), true
+	return m.v
 }
 
 // sameDrawn reports whether two projects are equal but for their title

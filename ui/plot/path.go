@@ -1,9 +1,6 @@
 package plot
 
-import (
-	"math"
-	"strings"
-)
+import "math"
 
 // Pt is a data point with its pixel position.
 type Pt struct {
@@ -19,8 +16,9 @@ type Pt struct {
 func points(xs, ys []float64, sx, sy Scale) []Pt {
 	n := min(len(xs), len(ys))
 	pts := make([]Pt, 0, n)
+	mx, my := sx.mapper(), sy.mapper()
 	for i := range n {
-		x, y := sx.Map(xs[i]), sy.Map(ys[i])
+		x, y := mx(xs[i]), my(ys[i])
 		if !isFinite(x) || !isFinite(y) {
 			continue
 		}
@@ -35,30 +33,29 @@ func points(xs, ys []float64, sx, sy Scale) []Pt {
 // to the same pixel as the previous one are skipped.
 func pathD(pts []Pt) string {
 	pts = thin(pts, maxPathPoints)
-	var b strings.Builder
-	b.Grow(len(pts) * 12)
+	b := make([]byte, 0, len(pts)*12)
 	prevI := -2
 	var px, py float64
 	for _, p := range pts {
 		x, y := math.Round(p.X*10)/10, math.Round(p.Y*10)/10
 		switch {
 		case p.I != prevI+1:
-			if b.Len() > 0 {
-				b.WriteByte(' ')
+			if len(b) > 0 {
+				b = append(b, ' ')
 			}
-			b.WriteByte('M')
+			b = append(b, 'M')
 		case x == px && y == py:
 			prevI = p.I
 			continue
 		default:
-			b.WriteString(" L")
+			b = append(b, " L"...)
 		}
-		b.WriteString(coord(x))
-		b.WriteByte(' ')
-		b.WriteString(coord(y))
+		b = appendCoord(b, x)
+		b = append(b, ' ')
+		b = appendCoord(b, y)
 		px, py, prevI = x, y, p.I
 	}
-	return b.String()
+	return string(b)
 }
 
 // nearest returns the index in pts of the point closest to (x, y) in

@@ -22,6 +22,24 @@ func (s Scale) Map(v float64) float64 {
 	return s.A + t*(s.B-s.A)
 }
 
+// mapper returns Map with the logarithms of the domain's ends taken
+// once, for the points of a curve.
+func (s Scale) mapper() func(float64) float64 {
+	if !s.Log || s.Lo <= 0 || s.Hi <= 0 {
+		return s.Map
+	}
+	lo, hi := math.Log10(s.Lo), math.Log10(s.Hi)
+	if hi == lo {
+		return s.Map
+	}
+	return func(v float64) float64 {
+		if v <= 0 {
+			return math.NaN()
+		}
+		return s.A + (math.Log10(v)-lo)/(hi-lo)*(s.B-s.A)
+	}
+}
+
 // frac is the position of v along the domain, 0 at Lo and 1 at Hi.
 func (s Scale) frac(v float64) float64 {
 	lo, hi := s.Lo, s.Hi

@@ -171,6 +171,15 @@ func attr(b *strings.Builder, name, value string) {
 // XML 1.0 cannot hold (other control characters, invalid UTF-8) become
 // U+FFFD, as encoding/xml's EscapeText does.
 func esc(b *strings.Builder, s string) {
+	plain := true // most values are numbers, names and ordinary text
+	for i := 0; i < len(s) && plain; i++ {
+		c := s[i]
+		plain = c >= 0x20 && c < 0x7f && c != '&' && c != '<' && c != '>' && c != '"' && c != '\''
+	}
+	if plain {
+		b.WriteString(s)
+		return
+	}
 	for _, r := range s {
 		switch {
 		case r == '&':
