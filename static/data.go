@@ -31,36 +31,20 @@ const DataGap = 4096
 // i32.const, segments that overlap or that end past 4 GiB. Other
 // sections are copied byte for byte.
 func JoinData(wasm []byte, gap int) ([]byte, error) {
-	if len(wasm) < 8 || string(wasm[:4]) != "\x00asm" {
-		return nil, errors.New("pack: the program is not WebAssembly")
+	secs, err := sections(wasm)
+	if err != nil {
+		return nil, err
 	}
-	type section struct {
-		id             byte
-		at, start, end int // the section's first byte; its body
-	}
-	var secs []section
 	data, count := -1, -1
-	for i := 8; i < len(wasm); {
-		id := wasm[i]
-		size, n, err := uleb(wasm, i+1)
-		if err != nil {
-			return nil, fmt.Errorf("pack: section at byte %d: %w", i, err)
-		}
-		start := i + 1 + n
-		end := start + int(size)
-		if end > len(wasm) || end < start {
-			return nil, fmt.Errorf("pack: section %d at byte %d runs past the end of the module", id, i)
-		}
+	for k, sec := range secs {
 		switch {
-		case id == 11 && data >= 0, id == 12 && count >= 0:
-			return nil, fmt.Errorf("pack: the module has two sections %d", id)
-		case id == 11:
-			data = len(secs)
-		case id == 12:
-			count = len(secs)
+		case sec.id == 11 && data >= 0, sec.id == 12 && count >= 0:
+			return nil, fmt.Errorf("pack: the module has two sections %d", sec.id)
+		case sec.id == 11:
+			data = k
+		case sec.id == 12:
+			count = k
 		}
-		secs = append(secs, section{id, i, start, end})
-		i = end
 	}
 	if data < 0 {
 		return wasm, nil
@@ -105,9 +89,7 @@ func JoinData(wasm []byte, gap int) ([]byte, error) {
 			out = append(out, wasm[s.at:s.end]...)
 			continue
 		}
-		out = append(out, s.id)
-		out = appendULEB(out, uint32(len(body)))
-		out = append(out, body...)
+		out = appendSection(out, s.id, body)
 	}
 	return out, nil
 }

@@ -20,11 +20,47 @@ const MaxMemoryPages = 16384
 // WebAssembly, has no memory section or more than one memory, or whose
 // minimum exceeds maxPages. Other sections are copied byte for byte.
 func CapMemory(wasm []byte, maxPages uint32) ([]byte, error) {
-	if len(wasm) < 8 || string(wasm[:4]) != "\x00asm" {
-		return nil, errors.New("pack: the program is not WebAssembly")
+	secs, err := sections(wasm)
+	if err != nil {
+		return nil, err
 	}
 	out := append([]byte(nil), wasm[:8]...)
 	found := false
+	for _, sec := range secs {
+		if sec.id != 5 {
+			out = append(out, wasm[sec.at:sec.end]...)
+			continue
+		}
+		if found {
+			return nil, errors.New("pack: the module has two memory sections")
+		}
+		found = true
+		body, err := capLimits(wasm[sec.start:sec.end], maxPages)
+		if err != nil {
+			return nil, err
+		}
+		out = appendSection(out, 5, body)
+	}
+	if !found {
+		return nil, errors.New("pack: the module defines no memory")
+	}
+	return out, nil
+}
+
+// section is one section of a WebAssembly module: its id, its first
+// byte, and its body.
+type section struct {
+	id             byte
+	at, start, end int
+}
+
+// sections checks that wasm is a WebAssembly module and lists its
+// sections in order.
+func sections(wasm []byte) ([]section, error) {
+	if len(wasm) < 8 || string(wasm[:4]) != "\x00asm" {
+		return nil, errors.New("pack: the program is not WebAssembly")
+	}
+	var secs []section
 	for i := 8; i < len(wasm); {
 		id := wasm[i]
 		size, n, err := uleb(wasm, i+1)
@@ -36,28 +72,17 @@ func CapMemory(wasm []byte, maxPages uint32) ([]byte, error) {
 		if end > len(wasm) || end < start {
 			return nil, fmt.Errorf("pack: section %d at byte %d runs past the end of the module", id, i)
 		}
-		if id != 5 {
-			out = append(out, wasm[i:end]...)
-			i = end
-			continue
-		}
-		if found {
-			return nil, errors.New("pack: the module has two memory sections")
-		}
-		found = true
-		body, err := capLimits(wasm[start:end], maxPages)
-		if err != nil {
-			return nil, err
-		}
-		out = append(out, 5)
-		out = appendULEB(out, uint32(len(body)))
-		out = append(out, body...)
+		secs = append(secs, section{id, i, start, end})
 		i = end
 	}
-	if !found {
-		return nil, errors.New("pack: the module defines no memory")
-	}
-	return out, nil
+	return secs, nil
+}
+
+// appendSection appends a section with id and body to out.
+func appendSection(out []byte, id byte, body []byte) []byte {
+	out = append(out, id)
+	out = appendULEB(out, uint32(len(body)))
+	return append(out, body...)
 }
 
 // capLimits rewrites the body of a memory section: vec(limits).
