@@ -5,6 +5,8 @@ import (
 	"math"
 	"strconv"
 	"strings"
+
+	"porelight/ui/units"
 )
 
 // Numbers as typed and as shown.
@@ -51,18 +53,8 @@ func parseList(s string) ([]float64, string) {
 // FormatSig(1.54762679591e-9, 3) is "1.55e-9".
 func FormatSig(x float64, n int) string { return FormatNumber(RoundSig(x, n)) }
 
-// RoundSig is x rounded to n significant figures (x itself when n < 1 or
-// x is 0, NaN or infinite).
-func RoundSig(x float64, n int) float64 {
-	if x == 0 || math.IsNaN(x) || math.IsInf(x, 0) || n < 1 {
-		return x
-	}
-	r, err := strconv.ParseFloat(strconv.FormatFloat(x, 'e', n-1, 64), 64)
-	if err != nil {
-		return x
-	}
-	return r
-}
+// RoundSig is x rounded to n significant figures (units.RoundSig).
+func RoundSig(x float64, n int) float64 { return units.RoundSig(x, n) }
 
 // FormatNumber writes x briefly and exactly enough to read back the same:
 // 1.5e-09 → "1.5e-9", 0.30000000000000004 → "0.3".

@@ -130,14 +130,16 @@ func (s System) Take(q Quantity, x float64) float64 {
 	if u.ToSI == 1 {
 		return x
 	}
-	return round12(x * u.ToSI)
+	return RoundSig(x*u.ToSI, 12)
 }
 
-func round12(x float64) float64 {
-	if x == 0 || math.IsNaN(x) || math.IsInf(x, 0) {
+// RoundSig is x rounded to n significant figures (x itself when n < 1 or
+// x is 0, NaN or infinite).
+func RoundSig(x float64, n int) float64 {
+	if x == 0 || math.IsNaN(x) || math.IsInf(x, 0) || n < 1 {
 		return x
 	}
-	r, err := strconv.ParseFloat(strconv.FormatFloat(x, 'e', 11, 64), 64)
+	r, err := strconv.ParseFloat(strconv.FormatFloat(x, 'e', n-1, 64), 64)
 	if err != nil {
 		return x
 	}
