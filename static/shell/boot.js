@@ -505,14 +505,25 @@
 		if (k !== "z" && !redo) {
 			return;
 		}
-		var b = document.getElementById(redo ? "redo" : "undo");
-		if (!b) {
+		var id = redo ? "redo" : "undo";
+		if (!document.getElementById(id)) {
 			return; // the read-only view has no history
 		}
 		e.preventDefault();
-		if (!b.disabled) {
-			b.click();
-		}
+		// The buttons' state is drawn by a render that runs in a task of
+		// its own after each change (wasm/coalesce.go): keys pressed in
+		// quick succession (Ctrl+Z, then Ctrl+Shift+Z) can come before it,
+		// and find Redo still disabled. A disabled button is tried again
+		// after the tasks queued now, the pending render among them.
+		var tries = 0;
+		(function press() {
+			var b = document.getElementById(id);
+			if (b && !b.disabled) {
+				b.click();
+			} else if (b && tries++ < 2) {
+				setTimeout(press, 0);
+			}
+		})();
 	});
 
 	start().catch(function (e) {
