@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"reflect"
 	"strings"
+	"sync"
 
 	"porelight/solver"
 	"porelight/ui/units"
@@ -279,6 +280,20 @@ var pageFields = func() map[string]bool {
 // "layers[2].k" becomes "layers[#].k". A text that is not a field path
 // (solver.ParsePath) is returned as it is, so no input matches it.
 func indexless(path string) string {
+	if s, ok := indexlessOf.Load(path); ok {
+		return s.(string)
+	}
+	s := indexlessOnce(path)
+	indexlessOf.Store(path, s)
+	return s
+}
+
+// indexlessOf remembers indexless by path, as leafKinds and ids do: an
+// input asks for it several times in every render (its unit, its
+// placeholder, its value), for the same few hundred paths.
+var indexlessOf sync.Map // path → indexless path
+
+func indexlessOnce(path string) string {
 	steps, err := solver.ParsePath(path)
 	if err != nil {
 		return path

@@ -1,0 +1,52 @@
+package ui
+
+import (
+	"testing"
+
+	"github.com/vugu/vugu"
+	"github.com/vugu/vugu/staticrender"
+)
+
+// The Go side of a keystroke with the demo loaded, natively: the whole
+// tree's build (vugu rebuilds every component on every render) and the
+// edit's own work (the form's check, the autosave's encoding). The
+// browser figure is TestBrowserBench's keystroke row; these say where
+// its Go part goes (go test -bench Keystroke -cpuprofile).
+
+func demoRoot(b *testing.B) (*Root, *vugu.BuildEnv) {
+	b.Helper()
+	ee := staticrender.New(nil).EventEnv()
+	env, err := vugu.NewBuildEnv(ee)
+	if err != nil {
+		b.Fatal(err)
+	}
+	root := &Root{Host: &fakeHost{store: map[string]string{}}, Version: "bench"}
+	root.Start(Sources{Demo: demoJSON(b)})
+	if root.Result() == nil {
+		b.Fatal("the demo did not solve")
+	}
+	env.RunBuild(root)
+	return root, env
+}
+
+func BenchmarkKeystrokeBuild(b *testing.B) {
+	root, env := demoRoot(b)
+	for b.Loop() {
+		env.RunBuild(root)
+	}
+}
+
+func BenchmarkKeystrokeEdit(b *testing.B) {
+	root, _ := demoRoot(b)
+	texts := []string{"2.1e-9", "2.2e-9"}
+	i := 0
+	for b.Loop() {
+		// An invalid run of text would skip the solve; a valid one is
+		// what a keystroke mostly is, and solves natively at once
+		// without an Env: edit the form and track it, as edited does
+		// before it asks for a solve.
+		root.form.Edit("layers[1].k", texts[i%2])
+		root.track()
+		i++
+	}
+}
