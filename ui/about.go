@@ -1,5 +1,14 @@
 package ui
 
+import _ "embed"
+
 // About states the assumptions, the published sources and the cautions,
 // on screen and in the printed report.
 type About struct{}
+
+// aboutHTML is the section's content. It never changes, so it is one
+// piece of markup rather than elements vugu would build again on every
+// render (some 40 of them, and the text between).
+//
+//go:embed about.html
+var aboutHTML string
