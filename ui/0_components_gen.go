@@ -3489,63 +3489,6 @@ var _ vjson.RawMessage
 var _ js.Value
 var _ log.Logger
 
-func (c *Field) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
-
-	vgout = &vugu.BuildOut{}
-
-	var vgiterkey interface{}
-	_ = vgiterkey
-	var vgn *vugu.VGNode
-	vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute(nil)}
-	vgout.Out = append(vgout.Out, vgn) // root for output
-	vgn.AddAttrInterface("class", c.class())
-	vgn.AddAttrInterface("data-used", c.used())
-	{
-		vgparent := vgn
-		_ = vgparent
-		vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "input", Attr: []vugu.VGAttribute{{Namespace: "", Key: "type", Val: "text"}, vugu.VGAttribute{Namespace: "", Key: "autocomplete", Val: "off"}, vugu.VGAttribute{Namespace: "", Key: "spellcheck", Val: "false"}}}
-		vgparent.AppendChild(vgn)
-		vgn.AddAttrInterface("aria-describedby", c.describedBy())
-		vgn.AddAttrInterface("aria-invalid", c.invalid())
-		vgn.AddAttrInterface("aria-label", c.ariaLabel())
-		vgn.AddAttrInterface("id", c.id())
-		vgn.AddAttrInterface("inputmode", c.inputMode())
-		vgn.AddAttrInterface("placeholder", c.placeholder())
-		vgn.AddAttrInterface("title", c.Hint)
-		{
-			b, err := vjson.Marshal(c.F.Text(c.Path))
-			if err != nil {
-				panic(err)
-			}
-			vgn.Prop = append(vgn.Prop, vugu.VGProperty{Key: "value", JSONVal: vjson.RawMessage(b)})
-		}
-		vgn.DOMEventHandlerSpecList = append(vgn.DOMEventHandlerSpecList, vugu.DOMEventHandlerSpec{
-			EventType: "input",
-			Func:      func(event vugu.DOMEvent) { c.onInput(event) },
-			// TODO: implement capture, etc. mostly need to decide syntax
-		})
-		if c.showUnit() {
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-unit"}}}
-			vgparent.AppendChild(vgn)
-			vgn.SetInnerHTML(c.unit())
-		}
-		if c.problem() != "" {
-			vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "span", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-err"}}}
-			vgparent.AppendChild(vgn)
-			vgn.AddAttrInterface("id", c.errID())
-			vgn.SetInnerHTML(c.problem())
-		}
-	}
-	return vgout
-}
-
-// 'fix' unused imports
-var _ fmt.Stringer
-var _ reflect.Type
-var _ vjson.RawMessage
-var _ js.Value
-var _ log.Logger
-
 func (c *FillNeed) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 
 	vgout = &vugu.BuildOut{}

@@ -13,7 +13,7 @@ import (
 // browser figure is TestBrowserBench's keystroke row; these say where
 // its Go part goes (go test -bench Keystroke -cpuprofile).
 
-func demoRoot(b *testing.B) (*Root, *vugu.BuildEnv) {
+func demoRoot(b testing.TB) (*Root, *vugu.BuildEnv) {
 	b.Helper()
 	ee := staticrender.New(nil).EventEnv()
 	env, err := vugu.NewBuildEnv(ee)

@@ -1,6 +1,7 @@
 package ui
 
 import (
+	"github.com/vugu/vjson"
 	"github.com/vugu/vugu"
 
 	"porelight/ui/form"
@@ -24,72 +25,87 @@ type Field struct {
 	Changed func()
 }
 
-func (c *Field) id() string      { return form.IDOf(c.Path) }
-func (c *Field) errID() string   { return form.IDOf(c.Path) + "-err" }
-func (c *Field) problem() string { return c.F.Problem(c.Path) }
-func (c *Field) showUnit() bool  { return c.Unit != "" && !c.Bare }
+// Build draws the field:
+//
+//	<span class="pl-field …" data-used="…">
+//	  <input type="text" id="…" aria-label="…" … .value="…" @input>
+//	  <span class="pl-unit">kPa</span>
+//	  <span class="pl-err" id="…-err">the problem</span>
+//	</span>
+//
+// It is written out rather than generated from a template: the demo page
+// has some 150 fields, each built on every render, and a template asks
+// the form for the problem, the unit and the id several times over and
+// grows each element's attributes one at a time.
+func (c *Field) Build(*vugu.BuildIn) *vugu.BuildOut {
+	id := form.IDOf(c.Path)
+	problem := c.F.Problem(c.Path)
+	unit := c.F.UnitOf(c.Path, c.Unit)
+	text := form.IsText(c.Path)
 
-// unit is the unit the input shows its value in: Unit, or its US
-// customary counterpart when the page shows those (form.Form.UnitOf).
-func (c *Field) unit() string { return c.F.UnitOf(c.Path, c.Unit) }
-
-func (c *Field) class() string {
-	s := "pl-field"
+	class := "pl-field"
 	if c.Wide {
-		s += " pl-wide"
+		class += " pl-wide"
 	}
-	if form.IsText(c.Path) {
-		s += " pl-textfield"
+	if text {
+		class += " pl-textfield"
 	}
-	if c.problem() != "" {
-		s += " pl-bad"
+	if problem != "" {
+		class += " pl-bad"
 	}
-	return s
-}
+	root := &vugu.VGNode{Type: vugu.ElementNode, Data: "span", Attr: make([]vugu.VGAttribute, 1, 2)}
+	root.Attr[0] = vugu.VGAttribute{Key: "class", Val: class}
+	// What an empty input stands for, printed in its place by the
+	// print style sheet.
+	if used := c.F.Used(c.Path); used != "" {
+		root.Attr = append(root.Attr, vugu.VGAttribute{Key: "data-used", Val: used})
+	}
 
-func (c *Field) inputMode() string {
-	if form.IsText(c.Path) {
-		return "text"
+	in := &vugu.VGNode{Type: vugu.ElementNode, Data: "input", Attr: make([]vugu.VGAttribute, 0, 11)}
+	in.Attr = append(in.Attr,
+		vugu.VGAttribute{Key: "type", Val: "text"},
+		vugu.VGAttribute{Key: "autocomplete", Val: "off"},
+		vugu.VGAttribute{Key: "spellcheck", Val: "false"})
+	if problem != "" {
+		in.Attr = append(in.Attr,
+			vugu.VGAttribute{Key: "aria-describedby", Val: id + "-err"},
+			vugu.VGAttribute{Key: "aria-invalid", Val: "true"})
 	}
-	return "decimal"
-}
-
-func (c *Field) placeholder() any {
+	label := c.Label
+	if unit != "" && unit != "–" {
+		label += " (" + unit + ")"
+	}
+	mode := "decimal"
+	if text {
+		mode = "text"
+	}
+	in.Attr = append(in.Attr,
+		vugu.VGAttribute{Key: "aria-label", Val: label},
+		vugu.VGAttribute{Key: "id", Val: id},
+		vugu.VGAttribute{Key: "inputmode", Val: mode})
 	if h, ok := c.F.Placeholder(c.Path); ok {
-		return h
+		in.Attr = append(in.Attr, vugu.VGAttribute{Key: "placeholder", Val: h})
 	}
-	return nil
-}
+	in.Attr = append(in.Attr, vugu.VGAttribute{Key: "title", Val: c.Hint})
+	value, err := vjson.Marshal(c.F.Text(c.Path))
+	if err != nil {
+		panic(err) // a string always encodes
+	}
+	in.Prop = []vugu.VGProperty{{Key: "value", JSONVal: value}}
+	in.DOMEventHandlerSpecList = []vugu.DOMEventHandlerSpec{{EventType: "input", Func: c.onInput}}
+	root.AppendChild(in)
 
-// used is what an empty input stands for, printed in its place (the
-// data-used attribute, shown by the print style sheet); nil when the
-// input holds a value.
-func (c *Field) used() any {
-	if s := c.F.Used(c.Path); s != "" {
-		return s
+	if c.Unit != "" && !c.Bare {
+		u := &vugu.VGNode{Type: vugu.ElementNode, Data: "span", Attr: []vugu.VGAttribute{{Key: "class", Val: "pl-unit"}}}
+		u.SetInnerHTML(unit)
+		root.AppendChild(u)
 	}
-	return nil
-}
-
-func (c *Field) ariaLabel() string {
-	if u := c.unit(); u != "" && u != "–" {
-		return c.Label + " (" + u + ")"
+	if problem != "" {
+		e := &vugu.VGNode{Type: vugu.ElementNode, Data: "span", Attr: []vugu.VGAttribute{{Key: "class", Val: "pl-err"}, {Key: "id", Val: id + "-err"}}}
+		e.SetInnerHTML(problem)
+		root.AppendChild(e)
 	}
-	return c.Label
-}
-
-func (c *Field) invalid() any {
-	if c.problem() != "" {
-		return "true"
-	}
-	return nil
-}
-
-func (c *Field) describedBy() any {
-	if c.problem() != "" {
-		return c.errID()
-	}
-	return nil
+	return &vugu.BuildOut{Out: []*vugu.VGNode{root}}
 }
 
 func (c *Field) onInput(e vugu.DOMEvent) {
