@@ -7,11 +7,13 @@ import (
 	"github.com/vugu/vugu/staticrender"
 )
 
-// The Go side of a keystroke with the demo loaded, natively: the whole
-// tree's build (vugu rebuilds every component on every render) and the
-// edit's own work (the form's check, the autosave's encoding). The
-// browser figure is TestBrowserBench's keystroke row; these say where
-// its Go part goes (go test -bench Keystroke -cpuprofile).
+// The Go side of a keystroke and of a redraw with the demo loaded,
+// natively. A keystroke is the whole tree's build (vugu rebuilds every
+// component on every render) and the edit's own work (the form's check,
+// the autosave's encoding); a redraw after a solve is the build with
+// every figure made again. The browser figures are TestBrowserBench's
+// keystroke and edit-to-plot rows; these say where their Go part goes
+// (go test -bench 'Keystroke|Redraw' -gcflags=all=-l -cpuprofile).
 
 func demoRoot(b testing.TB) (*Root, *vugu.BuildEnv) {
 	b.Helper()
@@ -48,5 +50,17 @@ func BenchmarkKeystrokeEdit(b *testing.B) {
 		root.form.Edit("layers[1].k", texts[i%2])
 		root.track()
 		i++
+	}
+}
+
+// BenchmarkRedrawBuild is the build after a solve: a new result (a copy,
+// so that no figure is remembered) with the demo's project.
+func BenchmarkRedrawBuild(b *testing.B) {
+	root, env := demoRoot(b)
+	r := root.result
+	for b.Loop() {
+		cp := *r
+		root.result = &cp
+		env.RunBuild(root)
 	}
 }
