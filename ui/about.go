@@ -1,6 +1,10 @@
 package ui
 
-import _ "embed"
+import (
+	_ "embed"
+
+	"github.com/vugu/vugu"
+)
 
 // About states the assumptions, the published sources and the cautions,
 // on screen and in the printed report.
@@ -11,4 +15,7 @@ type About struct{}
 // render (some 40 of them, and the text between).
 //
 //go:embed about.html
-var aboutHTML string
+var aboutMarkup string
+
+// aboutHTML is aboutMarkup as markup for the page, not text to escape.
+var aboutHTML = vugu.HTML(aboutMarkup)

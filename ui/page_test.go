@@ -227,7 +227,9 @@ func TestPageShowsDemoAndSummary(t *testing.T) {
 		t.Fatal("no result after Start")
 	}
 	html := p.html()
-	for _, want := range []string{`id="layers-1-k"`, `id="sum-flux"`, `id="caution"`, `Upper soft clay`, `id="about"`} {
+	for _, want := range []string{`id="layers-1-k"`, `id="sum-flux"`, `id="caution"`, `Upper soft clay`, `id="about"`,
+		// The assumptions and sources are markup, not text shown with its tags.
+		`<h2>Assumptions, sources and cautions</h2>`, `<li>Darcy, H. (1856). <i>Les fontaines`} {
 		if !strings.Contains(html, want) {
 			t.Errorf("page lacks %s", want)
 		}
