@@ -599,3 +599,30 @@ func TestPageSigmaPTable(t *testing.T) {
 		t.Errorf("crust e–log settlement on the page %g m, native solve %g m", got, *want.Summary.Layers[0].SettlementElog)
 	}
 }
+
+// The warnings under the summary name the input they concern as the
+// tables number it, not by its 0-based path (common practice for the
+// page: the problem list does the same).
+func TestPageWarningsNameInputs(t *testing.T) {
+	tests := []struct {
+		w    solver.Warning
+		want string
+	}{
+		{solver.Warning{Path: "layers[0].ecurve.ocr", Message: "OCR 3 gives σ'p = 2.6 kPa"}, "Layer 1, OCR: OCR 3 gives σ'p = 2.6 kPa"},
+		{solver.Warning{Path: "layers[1].calphaReduced", Message: "give it"}, "Layer 2, Cα after unloading: give it"},
+		{solver.Warning{Path: "loads[1].fill.thickness", Message: "m"}, "Stage 2, fill thickness: m"},
+		{solver.Warning{Message: "no path"}, "no path"},
+	}
+	for _, tt := range tests {
+		if got := warningText(tt.w); got != tt.want {
+			t.Errorf("warningText(%q) = %q, want %q", tt.w.Path, got, tt.want)
+		}
+	}
+	p := newPage(t, Sources{})
+	if len(p.root.Result().Warnings) == 0 {
+		t.Fatal("the demo has no warnings to show")
+	}
+	if got := p.text("warnings"); strings.Contains(got, "layers[") {
+		t.Errorf("warnings show a 0-based path: %q", got)
+	}
+}

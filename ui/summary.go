@@ -5,6 +5,7 @@ import (
 	"math"
 
 	"porelight/solver"
+	"porelight/ui/form"
 	"porelight/ui/units"
 )
 
@@ -191,11 +192,13 @@ func (c *Summary) drainRows() []solver.DrainDegree {
 	return c.R.Drains.AtTimes
 }
 
+// warningText is a warning as the page lists it: the input it concerns
+// named as the tables number it ("Layer 1, OCR"), as the problems are.
 func warningText(w solver.Warning) string {
 	if w.Path == "" {
 		return w.Message
 	}
-	return w.Path + ": " + w.Message
+	return capital(form.Label(w.Path)) + ": " + w.Message
 }
 
 // layerNames names the layers at the indices is ("layer 2 “sand”, …").
