@@ -4,7 +4,6 @@ import (
 	"testing"
 
 	"github.com/vugu/vugu"
-	"github.com/vugu/vugu/staticrender"
 )
 
 // The Go side of a keystroke and of a redraw with the demo loaded,
@@ -15,20 +14,14 @@ import (
 // keystroke and edit-to-plot rows; these say where their Go part goes
 // (go test -bench 'Keystroke|Redraw' -gcflags=all=-l -cpuprofile).
 
-func demoRoot(b testing.TB) (*Root, *vugu.BuildEnv) {
-	b.Helper()
-	ee := staticrender.New(nil).EventEnv()
-	env, err := vugu.NewBuildEnv(ee)
-	if err != nil {
-		b.Fatal(err)
+// demoRoot is the demo page, solved and built once (newPage).
+func demoRoot(tb testing.TB) (*Root, *vugu.BuildEnv) {
+	tb.Helper()
+	p := newPage(tb, Sources{})
+	if p.root.Result() == nil {
+		tb.Fatal("the demo did not solve")
 	}
-	root := &Root{Host: &fakeHost{store: map[string]string{}}, Version: "bench"}
-	root.Start(Sources{Demo: demoJSON(b)})
-	if root.Result() == nil {
-		b.Fatal("the demo did not solve")
-	}
-	env.RunBuild(root)
-	return root, env
+	return p.root, p.env
 }
 
 func BenchmarkKeystrokeBuild(b *testing.B) {

@@ -19,7 +19,7 @@ import (
 // page renders a Root natively with staticrender and fires its DOM
 // handlers directly, as the browser would.
 type page struct {
-	t    *testing.T
+	t    testing.TB
 	root *Root
 	host *fakeHost
 	env  *vugu.BuildEnv
@@ -36,13 +36,13 @@ func demoJSON(t testing.TB) []byte {
 	return data
 }
 
-func newPage(t *testing.T, src Sources) *page {
+func newPage(t testing.TB, src Sources) *page {
 	t.Helper()
 	return openPage(t, &fakeHost{store: map[string]string{}}, src)
 }
 
 // openPage opens the page from src in the browser of h.
-func openPage(t *testing.T, h *fakeHost, src Sources) *page {
+func openPage(t testing.TB, h *fakeHost, src Sources) *page {
 	t.Helper()
 	r := staticrender.New(nil)
 	ee := r.EventEnv()
