@@ -41,13 +41,18 @@ func (c *Field) Build(*vugu.BuildIn) *vugu.BuildOut {
 	id := form.IDOf(c.Path)
 	problem := c.F.Problem(c.Path)
 	unit := c.F.UnitOf(c.Path, c.Unit)
-	text := form.IsText(c.Path)
+	textField := form.IsText(c.Path)
+	shown := c.F.Text(c.Path)
+	errID := ""
+	if problem != "" {
+		errID = id + "-err"
+	}
 
 	class := "pl-field"
 	if c.Wide {
 		class += " pl-wide"
 	}
-	if text {
+	if textField {
 		class += " pl-textfield"
 	}
 	if problem != "" {
@@ -56,8 +61,13 @@ func (c *Field) Build(*vugu.BuildIn) *vugu.BuildOut {
 	root := &vugu.VGNode{Type: vugu.ElementNode, Data: "span", Attr: make([]vugu.VGAttribute, 1, 2)}
 	root.Attr[0] = vugu.VGAttribute{Key: "class", Val: class}
 	// What an empty input stands for, printed in its place by the
-	// print style sheet.
-	if used := c.F.Used(c.Path); used != "" {
+	// print style sheet (Form.Used is "" for an input that shows text,
+	// and costs a second Text).
+	used := ""
+	if shown == "" {
+		used = c.F.Used(c.Path)
+	}
+	if used != "" {
 		root.Attr = append(root.Attr, vugu.VGAttribute{Key: "data-used", Val: used})
 	}
 
@@ -68,7 +78,7 @@ func (c *Field) Build(*vugu.BuildIn) *vugu.BuildOut {
 		vugu.VGAttribute{Key: "spellcheck", Val: "false"})
 	if problem != "" {
 		in.Attr = append(in.Attr,
-			vugu.VGAttribute{Key: "aria-describedby", Val: id + "-err"},
+			vugu.VGAttribute{Key: "aria-describedby", Val: errID},
 			vugu.VGAttribute{Key: "aria-invalid", Val: "true"})
 	}
 	label := c.Label
@@ -76,7 +86,7 @@ func (c *Field) Build(*vugu.BuildIn) *vugu.BuildOut {
 		label += " (" + unit + ")"
 	}
 	mode := "decimal"
-	if text {
+	if textField {
 		mode = "text"
 	}
 	in.Attr = append(in.Attr,
@@ -87,7 +97,7 @@ func (c *Field) Build(*vugu.BuildIn) *vugu.BuildOut {
 		in.Attr = append(in.Attr, vugu.VGAttribute{Key: "placeholder", Val: h})
 	}
 	in.Attr = append(in.Attr, vugu.VGAttribute{Key: "title", Val: c.Hint})
-	value, err := vjson.Marshal(c.F.Text(c.Path))
+	value, err := vjson.Marshal(shown)
 	if err != nil {
 		panic(err) // a string always encodes
 	}
@@ -101,7 +111,7 @@ func (c *Field) Build(*vugu.BuildIn) *vugu.BuildOut {
 		root.AppendChild(u)
 	}
 	if problem != "" {
-		e := &vugu.VGNode{Type: vugu.ElementNode, Data: "span", Attr: []vugu.VGAttribute{{Key: "class", Val: "pl-err"}, {Key: "id", Val: id + "-err"}}}
+		e := &vugu.VGNode{Type: vugu.ElementNode, Data: "span", Attr: []vugu.VGAttribute{{Key: "class", Val: "pl-err"}, {Key: "id", Val: errID}}}
 		e.SetInnerHTML(problem)
 		root.AppendChild(e)
 	}
