@@ -10,7 +10,7 @@ import (
 // on screen and in the printed report.
 type About struct{}
 
-// aboutHTML is the section's content. It never changes, so it is one
+// aboutMarkup is the section's content. It never changes, so it is one
 // piece of markup rather than elements vugu would build again on every
 // render (some 40 of them, and the text between).
 //

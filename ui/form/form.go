@@ -293,6 +293,7 @@ func indexless(path string) string {
 // placeholder, its value), for the same few hundred paths.
 var indexlessOf sync.Map // path → indexless path
 
+// indexlessOnce works indexless out.
 func indexlessOnce(path string) string {
 	steps, err := solver.ParsePath(path)
 	if err != nil {
