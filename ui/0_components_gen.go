@@ -8629,8 +8629,9 @@ func (c *Root) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 				}
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(1), Data: "\n"}
 				vgparent.AppendChild(vgn)
-				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "class", Val: "pl-results"}}}
+				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "results"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-results"}}}
 				vgparent.AppendChild(vgn)
+				vgn.AddAttrInterface("aria-busy", c.drawingText())
 				{
 					vgparent := vgn
 					_ = vgparent

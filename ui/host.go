@@ -77,6 +77,18 @@ type Solver interface {
 	Solve(ctx context.Context, project []byte, progress func(float64)) (result []byte, err error)
 }
 
+// Screen is a Host that knows what the window shows. After a solve,
+// Root draws the figures in view first and the others in a render of
+// their own once the browser has painted (inview.go).
+type Screen interface {
+	// InView reports whether the element with this id is at least partly
+	// in view: in the window and not scrolled out of a box that clips it.
+	InView(id string) bool
+	// AfterPaint calls f, from a browser callback, once the browser has
+	// painted the next frame: f must not block.
+	AfterPaint(f func())
+}
+
 // ErrNoWorker is the error of Solver.Solve when the browser cannot run
 // workers here.
 var ErrNoWorker = errors.New("no solve worker")

@@ -73,6 +73,8 @@ type Root struct {
 	cmp       *compareState // the comparison of the options (variants_root.go)
 	fold      folds         // which secondary sections are unfolded (folds.go)
 	printing  bool          // Print report is under way: every fold is open
+	fresh     bool          // the results are new: draw the figures in view first (inview.go)
+	drawing   bool          // figures out of view wait for the render after the paint
 	dates     bool          // the record plots run on calendar dates
 	level     bool          // the piezometer plot shows water levels
 	rev       printRev      // the revision printed in the header (print.go)
@@ -343,6 +345,7 @@ func (c *Root) finish(g int64, model *solver.Project, res *solver.Result, err er
 		return
 	}
 	c.result, c.resultFor, c.solveErr = res, model, ""
+	c.fresh = true
 }
 
 func (c *Root) status() Status {

@@ -241,6 +241,35 @@ func (host) Focus(id string) {
 
 func (host) Print() { _ = catch(func() { js.Global().Call("print") }) }
 
+// InView asks the page shell (porelightInView in static/shell/boot.js)
+// whether the element with this id is in view; ui.Screen.
+func (host) InView(id string) bool {
+	in := true // when in doubt, draw it
+	_ = catch(func() {
+		if f := js.Global().Get("porelightInView"); f.Type() == js.TypeFunction {
+			in = f.Invoke(id).Truthy()
+		}
+	})
+	return in
+}
+
+// AfterPaint calls f from a zero-delay timeout set by an animation frame
+// callback: the frame is painted between the two; ui.Screen.
+func (host) AfterPaint(f func()) {
+	var frame, after js.Func
+	after = js.FuncOf(func(js.Value, []js.Value) any {
+		after.Release()
+		f()
+		return nil
+	})
+	frame = js.FuncOf(func(js.Value, []js.Value) any {
+		frame.Release()
+		js.Global().Call("setTimeout", after, 0)
+		return nil
+	})
+	js.Global().Call("requestAnimationFrame", frame)
+}
+
 // Solve runs the solve in the page's worker pool (globalThis.porelightWorkers,
 // kept by the boot script; see ui.Solver). Answers come through JavaScript
 // callbacks, which only hand them to channels: the solve goroutine waits

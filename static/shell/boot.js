@@ -490,6 +490,34 @@
 		}
 	}
 
+	// porelightInView(id) says whether the element with this id is at
+	// least partly in view, with a margin of 48 px: inside the window and
+	// not scrolled out of a box that clips it. After a solve the page
+	// draws the figures in view first (wasm/host.go InView, ui/inview.go).
+	Object.defineProperty(globalThis, "porelightInView", {value: function (id) {
+		var el = document.getElementById(id);
+		if (!el) {
+			return false;
+		}
+		var r = el.getBoundingClientRect();
+		var top = r.top, bottom = r.bottom, left = r.left, right = r.right, m = 48;
+		for (var p = el.parentElement; p && p !== document.body; p = p.parentElement) {
+			if (p.scrollHeight <= p.clientHeight && p.scrollWidth <= p.clientWidth) {
+				continue; // nothing scrolled out of it
+			}
+			var st = getComputedStyle(p);
+			if (st.overflowX === "visible" && st.overflowY === "visible") {
+				continue;
+			}
+			var q = p.getBoundingClientRect();
+			top = Math.max(top, q.top - m);
+			bottom = Math.min(bottom, q.bottom + m);
+			left = Math.max(left, q.left - m);
+			right = Math.min(right, q.right + m);
+		}
+		return bottom > top && right > left && bottom > -m && top < innerHeight + m && right > -m && left < innerWidth + m;
+	}});
+
 	// Ctrl+Z (⌘Z) undoes the page's last change and Ctrl+Shift+Z or Ctrl+Y
 	// redoes, through the Undo and Redo buttons, so that the history has
 	// one way in. The page's history holds every keystroke too (a run of

@@ -25,6 +25,18 @@ type figKey struct {
 	u      units.System // the units shown (get sets it)
 }
 
+// Out of view. After a solve the page draws the figures in view at once
+// and the others in a render of their own after that has been painted
+// (ui.Root.Compute): while outside is set, a figure whose props changed
+// keeps its last build when outside(its id) reports it out of view.
+var outside func(id string) bool
+
+// KeepOutside makes the figures built from now on that are out of view,
+// as out reports by their id, keep their last figure when their props
+// changed; the caller builds them again soon. nil builds every figure
+// from its props, as always.
+func KeepOutside(out func(id string) bool) { outside = out }
+
 // figMemo is a component's last figure and the props it was built for.
 type figMemo = Memo[*Figure]
 
@@ -57,6 +69,11 @@ func (m *Memo[T]) get(k figKey, build func() T) T {
 		}
 		if same {
 			m.key = k
+			return m.v
+		}
+		// Out of view: keep the last figure, and the props it was built
+		// for, so that the next build makes the new one.
+		if f, ok := any(m.v).(*Figure); ok && f != nil && outside != nil && outside(f.ID) {
 			return m.v
 		}
 	}
