@@ -19,6 +19,8 @@ type browserFigures struct {
 
 	EditToPlotNoDebounceMs          *float64 `json:"editToPlotNoDebounceMs"`          // the same from the end of the page's pause before a solve
 	EditToPlotNonlinearNoDebounceMs *float64 `json:"editToPlotNonlinearNoDebounceMs"` // the same on the non-linear model
+	EditToRestMs                    *float64 `json:"editToRestMs"`                    // the same to a figure out of view drawn, after the paint
+	EditToRestNonlinearMs           *float64 `json:"editToRestNonlinearMs"`           // and on the non-linear model
 	JSHeapBeforeBytes               *float64 `json:"jsHeapBeforeBytes"`               // JavaScript heap; 0 when unavailable
 	JSHeapAfterBytes                *float64 `json:"jsHeapAfterBytes"`
 	KeystrokeMs                     *float64 `json:"keystrokeMs"`    // a keystroke's input event to the next frame painted, median

@@ -132,10 +132,18 @@ func (r *report) summary() *table {
 			t.add("5 browser", "edit to plot, from the input event (includes the page's 200 ms pause for typing)", fmt.Sprintf("%.1f ms", *b.EditToPlotMs), "", "", "report only", "—")
 		}
 		if v := b.EditToPlotNoDebounceMs; v != nil {
-			t.add("5 browser", "edit to plot, from the end of the page's pause before a solve (solve and redraw)", fmt.Sprintf("%.1f ms", *v), "", "", "≤ 50 ms", holds(*v <= editToPlotGoalMs))
+			t.add("5 browser", "edit to plot, from the end of the page's pause before a solve (solve and redraw of the summary and the plot in view)", fmt.Sprintf("%.1f ms", *v), "", "", "≤ 50 ms", holds(*v <= editToPlotGoalMs))
 		}
 		if v := b.EditToPlotNonlinearNoDebounceMs; v != nil {
 			t.add("5 browser", "the same on the non-linear model (solve and redraw)", fmt.Sprintf("%.1f ms", *v), "", "", "≤ 50 ms", holds(*v <= editToPlotGoalMs))
+		}
+		// The figures out of view are drawn by one more render once the
+		// first has been painted (ui/inview.go).
+		if v := b.EditToRestMs; v != nil {
+			t.add("5 browser", "the same to a figure out of view drawn (the render after the paint)", fmt.Sprintf("%.1f ms", *v), "", "", "report only", "—")
+		}
+		if v := b.EditToRestNonlinearMs; v != nil {
+			t.add("5 browser", "the same on the non-linear model", fmt.Sprintf("%.1f ms", *v), "", "", "report only", "—")
 		}
 		if v := b.KeystrokeMs; v != nil {
 			worst := ""
