@@ -133,19 +133,32 @@ func ThetaRHS(dst, u, ds, d, k []float64, c float64) {
 		return
 	}
 	// Row i of K·u is k[2(i-1)+1]·u[i-1] + k[2i]·u[i] + k[2i+1]·u[i+1].
+	// The rows above the last, with and without ds, are loops of their
+	// own without a test per row; the arithmetic is the same either way.
+	dst, d, k = dst[:n], d[:2*n], k[:2*n]
 	prev := 0.0 // k[i-1][i]·u[i-1]
-	for i := range n {
-		ku := prev + k[2*i]*u[i]
-		if i+1 < n {
-			ku += k[2*i+1] * u[i+1]
-			prev = k[2*i+1] * u[i]
+	last := n - 1
+	if ds == nil {
+		for i := range last {
+			ui, ki := u[i], k[2*i+1]
+			ku := prev + k[2*i]*ui + ki*u[i+1]
+			prev = ki * ui
+			dst[i] = d[2*i]*ui - c*ku
 		}
-		v := u[i]
-		if ds != nil {
-			v += ds[i]
+	} else {
+		ds = ds[:n]
+		for i := range last {
+			ui, ki := u[i], k[2*i+1]
+			ku := prev + k[2*i]*ui + ki*u[i+1]
+			prev = ki * ui
+			dst[i] = d[2*i]*(ui+ds[i]) - c*ku
 		}
-		dst[i] = d[2*i]*v - c*ku
 	}
+	v := u[last]
+	if ds != nil {
+		v += ds[last]
+	}
+	dst[last] = d[2*last]*v - c*(prev+k[2*last]*u[last])
 }
 
 // BandThetaRHS sets dst = M (u + ds) − c·K u for symmetric band matrices M
