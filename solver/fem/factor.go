@@ -68,11 +68,20 @@ func FactorizeSum(dst *Factor, a, b *Band, c float64, lo, hi int) error {
 	if a.KD == 1 {
 		dst.d = grow(dst.d, n)
 		dst.e = grow(dst.e, max(n-1, 0))
-		for i := range n {
-			dst.d[i] = entry((lo + i) * ld)
-			if i < n-1 {
-				dst.e[i] = entry((lo+i)*ld + 1)
+		d, e, ab := dst.d, dst.e, a.AB[2*lo:2*(lo+n)]
+		if b == nil {
+			for i := range n - 1 {
+				d[i], e[i] = ab[2*i], ab[2*i+1]
 			}
+			d[n-1] = ab[2*(n-1)]
+		} else {
+			// entry's arithmetic, the rows read in place: the time loop
+			// factorises M + θΔt·K for every new step length.
+			bb := b.AB[2*lo : 2*(lo+n)]
+			for i := range n - 1 {
+				d[i], e[i] = ab[2*i]+c*bb[2*i], ab[2*i+1]+c*bb[2*i+1]
+			}
+			d[n-1] = ab[2*(n-1)] + c*bb[2*(n-1)]
 		}
 		if !lapack.Dpttrf(n, dst.d, dst.e) || !finitePivots(dst.d) {
 			return notDefinite(lo, dst.d, 1)
