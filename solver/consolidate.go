@@ -337,10 +337,11 @@ func (k *consolidation) record(ser *Series, t float64) {
 		ser.Load[len(ser.Load)-1] -= tr.sub.lost(p.Loads, t, false, tr.settled)
 	}
 	var sNow, pNow float64
+	sigma, u, wl := tr.sigma, tr.u, tr.wLength // read once, not per node
 	for i, w := range tr.wMass {
-		d := tr.sigma[i] - tr.u[i]
+		d := sigma[i] - u[i]
 		sNow += w * d
-		pNow += tr.wLength[i] * d
+		pNow += wl[i] * d
 	}
 	if k.nl != nil {
 		sNow = k.nl.settlement()
@@ -436,11 +437,17 @@ func (k *consolidation) follow(t float64) float64 {
 func centreStress(to []float64, m *fem.Mesh, pts []soil.Point, sigma, u []float64, dug []bool) (negative int) {
 	negative = -1
 	to = to[:len(pts)]
+	linear := m.Order == 1
 	for e := range pts {
 		if dug != nil && dug[e] {
 			continue
 		}
-		v := pts[e].S0 + m.Centre(sigma, e) - m.Centre(u, e)
+		var v float64
+		if linear { // m.Centre, its order tested once
+			v = pts[e].S0 + (sigma[e]+sigma[e+1])/2 - (u[e]+u[e+1])/2
+		} else {
+			v = pts[e].S0 + m.Centre(sigma, e) - m.Centre(u, e)
+		}
 		to[e] = v
 		if v < 0 && negative < 0 {
 			negative = e
