@@ -22,7 +22,11 @@ func Follow(dst []float64, pts []Point, to []float64, move []bool) {
 		}
 		s := &pts[i]
 		s.start()
-		if t := max(to[i], MinEffective); t != s.sig {
+		t := to[i]
+		if t < MinEffective { // max(t, MinEffective), which js/wasm calls out of line
+			t = MinEffective
+		}
+		if t != s.sig {
 			var lto float64 // s.log10Of(t)
 			if d := t - s.sig; d > -1e-2*s.sig && d < 1e-2*s.sig && s.sig >= MinEffective {
 				x := d / (t + s.sig)
