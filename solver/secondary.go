@@ -92,7 +92,7 @@ func (k *consolidation) layerNow(dst, ew []float64) {
 		return
 	}
 	m, tr, dug := k.c.m, k.tr, k.c.dug
-	sigma, u := tr.sigma, tr.u
+	sigma, u, linear := tr.sigma, tr.u, m.Order == 1
 	// Layer by layer (its elements are m.First[l] … m.First[l+1]-1), the
 	// sum in a register: the same additions in the same order as adding
 	// into dst element by element.
@@ -104,7 +104,7 @@ func (k *consolidation) layerNow(dst, ew []float64) {
 				continue
 			}
 			var v float64
-			if m.Order == 1 {
+			if linear {
 				v = ew[2*e]*(sigma[e]-u[e]) + ew[2*e+1]*(sigma[e+1]-u[e+1])
 			} else {
 				np, n0 := m.Order+1, e*m.Order
