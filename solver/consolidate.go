@@ -479,7 +479,18 @@ func (k *consolidation) march() error {
 	k.record(ser, 0)
 	end := bps[len(bps)-1].t
 	lastReport := 0
+	// Past the last restart the steps only grow: their factors are made
+	// without caching them (fem.Stepper.Uncached).
+	lastRestart := -1
+	for i, b := range bps {
+		if b.kind&(bpRestart|bpJump) != 0 {
+			lastRestart = i
+		}
+	}
 	for bi < len(bps) {
+		if bi > lastRestart {
+			tr.stepper.Uncached()
+		}
 		target := bps[bi].t
 		h := math.Min(dt, target-t)
 		grown := h == dt
