@@ -9,6 +9,14 @@ import (
 // settings: steady state, consolidation, e–log path and summary.
 func BenchmarkDemo(b *testing.B) { benchSolve(b, demoProject(b)) }
 
+// BenchmarkDemoNonlinear is BenchmarkDemo on the non-linear model, the
+// page's other choice of model for the same project.
+func BenchmarkDemoNonlinear(b *testing.B) {
+	p := demoProject(b)
+	p.Model = ModelNonlinear
+	benchSolve(b, p)
+}
+
 // benchSolve times Solve of p.
 func benchSolve(b *testing.B, p *Project) {
 	b.ReportAllocs()

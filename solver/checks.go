@@ -112,6 +112,7 @@ type checks struct {
 	// from and to bound each load stage's window: from its completion
 	// to the next start after it (+Inf: none).
 	from, to []float64
+	open     []int // scratch of observe: the stages whose window holds t
 }
 
 // upliftSites lists the bases of the layers at least 100 times less
@@ -172,7 +173,8 @@ func newChecks(c *column, st *Steady) *checks {
 	}
 	ch.out = make([]Check, len(ch.sites))
 	ch.leastT = make([]float64, len(ch.sites))
-	for j, s := range ch.sites {
+	for j := range ch.sites {
+		s := &ch.sites[j]
 		f := ch.factor(s, nil, nil)
 		ch.out[j] = Check{Kind: s.kind, Layer: s.layer, Top: s.zTop, Base: s.zB, Initial: f, LongTerm: f, Least: f}
 		ch.leastT[j] = 0
@@ -182,7 +184,7 @@ func newChecks(c *column, st *Steady) *checks {
 
 // factor is the factor of site s with the nodal total stress and pore
 // pressure changes dsigma and du from the steady state (nil: none).
-func (ch *checks) factor(s checkSite, dsigma, du []float64) float64 {
+func (ch *checks) factor(s *checkSite, dsigma, du []float64) float64 {
 	st := ch.st
 	at := func(v []float64, d []float64, j int) float64 {
 		if d != nil {
@@ -233,6 +235,7 @@ func ratio(resist, push float64) float64 {
 func (ch *checks) prepare(n int, loads []Load) {
 	stages := len(loads)
 	ch.from, ch.to = make([]float64, stages), make([]float64, stages)
+	ch.open = make([]int, 0, stages)
 	for i, l := range loads {
 		ch.from[i], ch.to[i] = l.Start+l.Ramp, math.Inf(1)
 		for _, o := range loads {
@@ -261,27 +264,35 @@ func (ch *checks) prepare(n int, loads []Load) {
 // value there, and the first step after it (Stepping.FirstStep) is the
 // first state checked.
 func (ch *checks) observe(t float64, dsigma, du []float64, jumped bool) {
-	for j, s := range ch.sites {
-		o := &ch.out[j]
-		if jumped {
-			if j < MaxCheckSeries {
-				last := o.Initial
-				if n := len(o.Series); n > 0 {
-					last = o.Series[n-1]
-				}
-				o.Series = append(o.Series, last)
+	if jumped {
+		for j := range min(len(ch.out), MaxCheckSeries) {
+			o := &ch.out[j]
+			last := o.Initial
+			if n := len(o.Series); n > 0 {
+				last = o.Series[n-1]
 			}
-			continue
+			o.Series = append(o.Series, last)
 		}
-		f := ch.factor(s, dsigma, du)
+		return
+	}
+	// The windows depend on t alone: found once for every check.
+	open := ch.open[:0]
+	for i, from := range ch.from {
+		if t >= from-1e-12*math.Max(1, from) && t < ch.to[i] {
+			open = append(open, i)
+		}
+	}
+	for j := range ch.sites {
+		o := &ch.out[j]
+		f := ch.factor(&ch.sites[j], dsigma, du)
 		if j < MaxCheckSeries {
 			o.Series = append(o.Series, f)
 		}
 		if f < o.Least {
 			o.Least, ch.leastT[j] = f, t
 		}
-		for i, from := range ch.from {
-			if t >= from-1e-12*math.Max(1, from) && t < ch.to[i] && f < o.Stages[i] {
+		for _, i := range open {
+			if f < o.Stages[i] {
 				o.Stages[i] = f
 			}
 		}
@@ -290,8 +301,8 @@ func (ch *checks) observe(t float64, dsigma, du []float64, jumped bool) {
 
 // longTerm evaluates every check in the final drained state.
 func (ch *checks) longTerm(sigInf, uInf []float64) {
-	for j, s := range ch.sites {
-		f := ch.factor(s, sigInf, uInf)
+	for j := range ch.sites {
+		f := ch.factor(&ch.sites[j], sigInf, uInf)
 		o := &ch.out[j]
 		o.LongTerm = f
 		if f < o.Least {

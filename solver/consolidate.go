@@ -65,6 +65,10 @@ type consolidation struct {
 	// pore pressure change after every recorded step.
 	watch func(t float64, sigma, u []float64)
 
+	// elogTo and elogEach are follow's scratch: per element the
+	// effective stress now and the e–log settlement.
+	elogTo, elogEach []float64
+
 	checks *checks // the heave and uplift checks through time
 	jumped bool    // the state to record follows an instantaneous change
 }
@@ -317,23 +321,27 @@ func (k *consolidation) prepareSeries() *Consolidation {
 			k.followStress = k.followStress || tv.Value > 0
 		}
 	}
+	if k.followStress {
+		k.elogTo, k.elogEach = make([]float64, len(k.points)), make([]float64, len(k.points))
+	}
 	return res
 }
 
 // record appends the state at time t to the series. It allocates nothing
 // beyond the capacity prepareSeries gave.
 func (k *consolidation) record(ser *Series, t float64) {
-	p, m, tr := k.c.p, k.c.m, k.tr
+	p, tr := k.c.p, k.tr
 	ser.Time = append(ser.Time, t)
 	ser.Load = append(ser.Load, surcharge(p, t))
 	if tr.sub != nil {
 		ser.Load[len(ser.Load)-1] -= tr.sub.lost(p.Loads, t, false, tr.settled)
 	}
 	var sNow, pNow float64
+	sigma, u, wl := tr.sigma, tr.u, tr.wLength // read once, not per node
 	for i, w := range tr.wMass {
-		d := tr.sigma[i] - tr.u[i]
+		d := sigma[i] - u[i]
 		sNow += w * d
-		pNow += tr.wLength[i] * d
+		pNow += wl[i] * d
 	}
 	if k.nl != nil {
 		sNow = k.nl.settlement()
@@ -352,29 +360,7 @@ func (k *consolidation) record(ser *Series, t float64) {
 			ser.SettlementElog = append(ser.SettlementElog, sNow)
 		}
 	} else if k.followStress {
-		total := 0.0
-		for e := range k.points {
-			if k.c.isDug(e) {
-				continue
-			}
-			s := &k.points[e]
-			to := s.S0 + m.Centre(tr.sigma, e) - m.Centre(tr.u, e)
-			if to < 0 && !k.negativeWarned {
-				k.negativeWarned = true
-				_, z0, z1 := m.Span(e)
-				k.warn("loads", fmt.Sprintf("the effective stress falls below zero at %.3g m near %.4g days: the soil would lose contact (heave); results there are not physical", (z0+z1)/2, t))
-			}
-			switch {
-			case k.curved[e]:
-				s.MoveTo(to)
-				total += s.Settlement()
-			case !k.anyCurve:
-			case k.nl != nil:
-				total += k.nl.strain[e] // its mv, with its swelling mv
-			default:
-				total += k.mv[m.Layer[e]] * (m.Integrate(tr.sigma, e) - m.Integrate(tr.u, e))
-			}
-		}
+		total := k.follow(t)
 		if k.anyCurve {
 			ser.SettlementElog = append(ser.SettlementElog, total)
 		}
@@ -405,6 +391,71 @@ func (k *consolidation) record(ser *Series, t float64) {
 	}
 }
 
+// follow moves every element's e–log point to the effective stress at its
+// centre now, σ'0 + σ − u (soil.Follow: one pass, the moves inlined),
+// warns the first time that falls below zero, and returns the e–log
+// settlement of the column (elements without a curve add their mv
+// settlement).
+func (k *consolidation) follow(t float64) float64 {
+	m, tr := k.c.m, k.tr
+	pts, curved, dug, sigma, u := k.points, k.curved, k.c.dug, tr.sigma, tr.u
+	to, each := k.elogTo, k.elogEach
+	if negative := centreStress(to, m, pts, sigma, u, dug); negative >= 0 && !k.negativeWarned {
+		k.negativeWarned = true
+		_, z0, z1 := m.Span(negative)
+		k.warn("loads", fmt.Sprintf("the effective stress falls below zero at %.3g m near %.4g days: the soil would lose contact (heave); results there are not physical", (z0+z1)/2, t))
+	}
+	soil.Follow(each, pts, to, curved)
+	total := 0.0
+	if k.allCurves && dug == nil { // every element moved
+		for _, v := range each {
+			total += v
+		}
+		return total
+	}
+	for e := range pts {
+		if dug != nil && dug[e] {
+			continue
+		}
+		switch {
+		case curved[e]:
+			total += each[e]
+		case !k.anyCurve:
+		case k.nl != nil:
+			total += k.nl.strain[e] // its mv, with its swelling mv
+		default:
+			total += k.mv[m.Layer[e]] * (m.Integrate(sigma, e) - m.Integrate(u, e))
+		}
+	}
+	return total
+}
+
+// centreStress writes σ'0 + σ − u at the centre of every element e not
+// dug (dug nil: none) to to[e], σ'0 being pts[e].S0, and returns the first
+// element where that is negative, or -1. A function of its own, with
+// nothing else live, so that the loop keeps its slices in registers.
+func centreStress(to []float64, m *fem.Mesh, pts []soil.Point, sigma, u []float64, dug []bool) (negative int) {
+	negative = -1
+	to = to[:len(pts)]
+	linear := m.Order == 1
+	for e := range pts {
+		if dug != nil && dug[e] {
+			continue
+		}
+		var v float64
+		if linear { // m.Centre, its order tested once
+			v = pts[e].S0 + (sigma[e]+sigma[e+1])/2 - (u[e]+u[e+1])/2
+		} else {
+			v = pts[e].S0 + m.Centre(sigma, e) - m.Centre(u, e)
+		}
+		to[e] = v
+		if v < 0 && negative < 0 {
+			negative = e
+		}
+	}
+	return negative
+}
+
 // march runs the time loop from 0 through every breakpoint: steps grow
 // geometrically from Stepping.FirstStep after each restart and land on
 // every breakpoint, instantaneous changes are applied between steps and
@@ -428,7 +479,18 @@ func (k *consolidation) march() error {
 	k.record(ser, 0)
 	end := bps[len(bps)-1].t
 	lastReport := 0
+	// Past the last restart the steps only grow: their factors are made
+	// without caching them (fem.Stepper.Uncached).
+	lastRestart := -1
+	for i, b := range bps {
+		if b.kind&(bpRestart|bpJump) != 0 {
+			lastRestart = i
+		}
+	}
 	for bi < len(bps) {
+		if bi > lastRestart {
+			tr.stepper.Uncached()
+		}
 		target := bps[bi].t
 		h := math.Min(dt, target-t)
 		grown := h == dt

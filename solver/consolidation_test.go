@@ -415,3 +415,29 @@ func TestDrainedEndPressureHistory(t *testing.T) {
 		})
 	}
 }
+
+// TestLinearStepAllocates checks that the linear model's time loop
+// allocates nothing once its factors are made: a solve with four times as
+// many steps makes as many allocations. The column follows its e–log
+// points (soil.Follow), the layer series of a handover, a layer's end of
+// primary (Cα) and a piezometer at every step; with Growth 1 and steps of
+// an exact binary fraction the step lengths, and so the factors, are the
+// same two (damped and Crank–Nicolson) at either count.
+func TestLinearStepAllocates(t *testing.T) {
+	p, _ := drClay(2, 50, 50)
+	p.Model = ModelLinear
+	p.Layers[0].Calpha = 0.01
+	p.Piezometers = []float64{1}
+	p.Decisions = &Decisions{Handover: 2}
+	count := func(steps float64) float64 {
+		p.Stepping = Stepping{FirstStep: 4 / steps, Growth: 1, EndTime: 4}
+		return testing.AllocsPerRun(2, func() {
+			if _, err := Solve(p, nil); err != nil {
+				t.Fatal(err)
+			}
+		})
+	}
+	if a, b := count(128), count(512); b > a+2 {
+		t.Errorf("%g allocations for 128 steps, %g for 512: the loop allocates", a, b)
+	}
+}

@@ -86,47 +86,61 @@ func (v *monitorCheck) readings(at string, rs []Reading, limit float64, unit str
 		ps.Add(at+".readings", ErrTooLarge, fmt.Sprintf("%d readings, the limit is %d", len(rs), MaxReadings))
 		return
 	}
-	prev, prevOK, prevText := 0.0, false, ""
+	// The paths and the texts of the messages are made only for a reading
+	// with a problem: Validate runs before every solve, and a record may
+	// hold thousands of readings.
+	prev, prevOK, prevAt := 0.0, false, 0 // prevAt: the reading of prev
 	for j, r := range rs {
-		rp := fmt.Sprintf("%s.readings[%d]", at, j)
-		t, ok, path, text := 0.0, false, rp+".t", ""
+		rp := func(field string) string { return fmt.Sprintf("%s.readings[%d].%s", at, j, field) }
+		t, ok, field := 0.0, false, "t"
 		if r.Date != "" {
-			path, text = rp+".date", r.Date
+			field = "date"
 			if r.T != 0 {
-				ps.Add(rp+".t", ErrConflict, "give t or date, not both")
+				ps.Add(rp("t"), ErrConflict, "give t or date, not both")
 			}
 			d, good := parseDate(r.Date)
 			switch {
 			case !good:
-				ps.Add(path, ErrDate, fmt.Sprintf("got %q", r.Date))
+				ps.Add(rp(field), ErrDate, fmt.Sprintf("got %q", r.Date))
 			case !v.hasStart:
 				if v.dated == "" {
-					v.dated = path
+					v.dated = rp(field)
 				}
 			case v.startOK:
 				t = daysBetween(v.start, d)
 				if t < 0 {
-					ps.Add(path, ErrOutOfRange, fmt.Sprintf("%s is before day 0, monitoring.start = %s", r.Date, v.start.Format(DateLayout)))
+					ps.Add(rp(field), ErrOutOfRange, fmt.Sprintf("%s is before day 0, monitoring.start = %s", r.Date, v.start.Format(DateLayout)))
 				} else {
 					ok = true
 				}
 			}
-		} else if upTo(ps, path, r.T, MaxTime, "days") {
-			t, ok, text = r.T, true, fmt.Sprintf("day %g", r.T)
+		} else if r.T >= 0 && r.T <= MaxTime || upTo(ps, rp(field), r.T, MaxTime, "days") {
+			t, ok = r.T, true // upTo's test first, its path only for a problem
 		}
-		within(ps, rp+".value", r.Value, limit, unit)
+		if !(r.Value >= -limit && r.Value <= limit) { // within's test
+			within(ps, rp("value"), r.Value, limit, unit)
+		}
 		if ok && prevOK {
 			switch {
 			case t < prev:
-				ps.Add(path, ErrNotSorted, fmt.Sprintf("%s follows %s", text, prevText))
+				ps.Add(rp(field), ErrNotSorted, fmt.Sprintf("%s follows %s", readingText(r), readingText(rs[prevAt])))
 			case t == prev:
-				ps.Add(path, ErrDuplicate, fmt.Sprintf("%s again; give each time once", text))
+				ps.Add(rp(field), ErrDuplicate, fmt.Sprintf("%s again; give each time once", readingText(r)))
 			}
 		}
 		if ok {
-			prev, prevOK, prevText = t, true, text
+			prev, prevOK, prevAt = t, true, j
 		}
 	}
+}
+
+// readingText names the time of a reading in a message: its date, or
+// "day t".
+func readingText(r Reading) string {
+	if r.Date != "" {
+		return r.Date
+	}
+	return fmt.Sprintf("day %g", r.T)
 }
 
 // ReadingTimes returns the time of each reading in days after day 0,

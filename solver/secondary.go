@@ -91,17 +91,30 @@ func (k *consolidation) layerNow(dst, ew []float64) {
 		k.nl.layerSettlements(dst)
 		return
 	}
-	m, tr := k.c.m, k.tr
-	np := m.Order + 1
-	for e := range m.Elements() {
-		n0 := e * m.Order
-		v := 0.0
-		for a := range np {
-			v += ew[e*np+a] * (tr.sigma[n0+a] - tr.u[n0+a])
+	m, tr, dug := k.c.m, k.tr, k.c.dug
+	sigma, u, linear := tr.sigma, tr.u, m.Order == 1
+	// Layer by layer (its elements are m.First[l] … m.First[l+1]-1), the
+	// sum in a register: the same additions in the same order as adding
+	// into dst element by element.
+	for l := range len(m.First) - 1 {
+		mv, sum := tr.mv[l], 0.0
+		e0, e1 := m.First[l], m.First[l+1]
+		for e := e0; e < e1; e++ {
+			if dug != nil && dug[e] {
+				continue
+			}
+			var v float64
+			if linear {
+				v = ew[2*e]*(sigma[e]-u[e]) + ew[2*e+1]*(sigma[e+1]-u[e+1])
+			} else {
+				np, n0 := m.Order+1, e*m.Order
+				for a := range np {
+					v += ew[e*np+a] * (sigma[n0+a] - u[n0+a])
+				}
+			}
+			sum += mv * v
 		}
-		if !k.c.isDug(e) {
-			dst[m.Layer[e]] += tr.mv[m.Layer[e]] * v
-		}
+		dst[l] = sum
 	}
 }
 

@@ -154,16 +154,41 @@ func (c *column) blame(out string) string {
 }
 
 // firstNonFinite walks v (a Result or a part of it) and returns the JSON
-// path of its first NaN or ±Inf float, with the value. O(size of v).
+// path of its first NaN or ±Inf float, with the value: path, then the
+// fields and indices below it. O(size of v); Solve asks it of every
+// result, so the path is made only once a value is found.
 func firstNonFinite(v reflect.Value, path string) (string, float64, bool) {
+	steps, f, ok := nonFinite(v)
+	if !ok {
+		return "", 0, false
+	}
+	for i := len(steps) - 1; i >= 0; i-- { // outermost last
+		if s := steps[i]; s.name != "" {
+			path = JoinPath(path, s.name)
+		} else {
+			path = IndexPath(path, s.index)
+		}
+	}
+	return path, f, true
+}
+
+// pathStep is a field (name) or an index of firstNonFinite's path.
+type pathStep struct {
+	name  string
+	index int
+}
+
+// nonFinite is firstNonFinite's walk: the steps of the path below v come
+// back innermost first, and are made only on the way out from a find.
+func nonFinite(v reflect.Value) ([]pathStep, float64, bool) {
 	switch v.Kind() {
 	case reflect.Float64:
 		if f := v.Float(); math.IsNaN(f) || math.IsInf(f, 0) {
-			return path, f, true
+			return nil, f, true
 		}
 	case reflect.Pointer:
 		if !v.IsNil() {
-			return firstNonFinite(v.Elem(), path)
+			return nonFinite(v.Elem())
 		}
 	case reflect.Struct:
 		t := v.Type()
@@ -172,24 +197,24 @@ func firstNonFinite(v reflect.Value, path string) (string, float64, bool) {
 			if name == "" || name == "-" {
 				continue
 			}
-			if p, f, ok := firstNonFinite(v.Field(i), JoinPath(path, name)); ok {
-				return p, f, true
+			if steps, f, ok := nonFinite(v.Field(i)); ok {
+				return append(steps, pathStep{name: name}), f, true
 			}
 		}
 	case reflect.Slice:
 		if xs, ok := v.Interface().([]float64); ok {
 			for i, f := range xs {
 				if math.IsNaN(f) || math.IsInf(f, 0) {
-					return IndexPath(path, i), f, true
+					return []pathStep{{index: i}}, f, true
 				}
 			}
-			return "", 0, false
+			return nil, 0, false
 		}
 		for i := range v.Len() {
-			if p, f, ok := firstNonFinite(v.Index(i), IndexPath(path, i)); ok {
-				return p, f, true
+			if steps, f, ok := nonFinite(v.Index(i)); ok {
+				return append(steps, pathStep{index: i}), f, true
 			}
 		}
 	}
-	return "", 0, false
+	return nil, 0, false
 }

@@ -68,11 +68,20 @@ func FactorizeSum(dst *Factor, a, b *Band, c float64, lo, hi int) error {
 	if a.KD == 1 {
 		dst.d = grow(dst.d, n)
 		dst.e = grow(dst.e, max(n-1, 0))
-		for i := range n {
-			dst.d[i] = entry((lo + i) * ld)
-			if i < n-1 {
-				dst.e[i] = entry((lo+i)*ld + 1)
+		d, e, ab := dst.d, dst.e, a.AB[2*lo:2*(lo+n)]
+		if b == nil {
+			for i := range n - 1 {
+				d[i], e[i] = ab[2*i], ab[2*i+1]
 			}
+			d[n-1] = ab[2*(n-1)]
+		} else {
+			// entry's arithmetic, the rows read in place: the time loop
+			// factorises M + θΔt·K for every new step length.
+			bb := b.AB[2*lo : 2*(lo+n)]
+			for i := range n - 1 {
+				d[i], e[i] = ab[2*i]+c*bb[2*i], ab[2*i+1]+c*bb[2*i+1]
+			}
+			d[n-1] = ab[2*(n-1)] + c*bb[2*(n-1)]
 		}
 		if !lapack.Dpttrf(n, dst.d, dst.e) || !finitePivots(dst.d) {
 			return notDefinite(lo, dst.d, 1)
@@ -127,11 +136,44 @@ func (f *Factor) Solve(x []float64) {
 	b := x[f.lo : f.lo+f.n]
 	switch f.kd {
 	case 1:
-		lapack.Dpttrs(f.n, 1, f.d, f.e, b, 1)
+		solveTridiagonal(f.d, f.e, b)
 	case 2:
 		solveBand2(f.n, f.s, b)
 	default:
 		lapack.Dpbtrs(blas.Upper, f.n, f.kd, 1, f.ab, f.kd+1, b, 1)
+	}
+}
+
+// solveTridiagonal overwrites b with the solution of L·D·Lᵀ x = b, D and
+// the subdiagonal of L as Dpttrf leaves them in d and e (len(e) ≥
+// len(b)−1, len(d) ≥ len(b)). It does Dpttrs's arithmetic for one
+// right-hand side in the same order, so its answers are Dpttrs's to the
+// bit (tested), but carries the last value of each substitution in a
+// register instead of reloading it: the recurrences then wait on one
+// multiply-add per row rather than on a store and a load as well, about
+// twice as fast at the demo's hundred-odd nodes.
+func solveTridiagonal(d, e, b []float64) {
+	n := len(b)
+	switch n {
+	case 0:
+		return
+	case 1:
+		b[0] *= 1 / d[0] // as Dpttrs scales a single row
+		return
+	}
+	d, e = d[:n], e[:n-1]
+	// L y = b, top down.
+	y := b[0]
+	for i := 1; i < n; i++ {
+		y = b[i] - y*e[i-1]
+		b[i] = y
+	}
+	// D Lᵀ x = y, bottom up.
+	x := b[n-1] / d[n-1]
+	b[n-1] = x
+	for i := n - 2; i >= 0; i-- {
+		x = b[i]/d[i] - x*e[i]
+		b[i] = x
 	}
 }
 

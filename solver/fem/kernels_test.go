@@ -742,6 +742,72 @@ func TestStepperReuse(t *testing.T) {
 	}
 }
 
+// TestStepperUncached checks the steps after Uncached: a (θ, Δt) not
+// cached is factorised into the scratch factor and serves the steps in a
+// row with it (Factorizations counts one, no allocation, and the answer
+// is a caching Stepper's bit for bit); a new Δt and a return to the first
+// each factorise again; a (θ, Δt) cached before Uncached is still taken
+// from the cache; Reset forgets the scratch factor. Not parallel, as
+// TestStepperReuse.
+func TestStepperUncached(t *testing.T) {
+	for _, sc := range []stepCase{
+		{1, true, true, true, 20}, {1, false, true, false, 20},
+		{2, true, false, true, 20}, {2, false, false, false, 20},
+	} {
+		t.Run(sc.String(), func(t *testing.T) {
+			rnd := rand.New(rand.NewPCG(1, 1))
+			m, k, held := sc.build(rnd)
+			n := m.N
+			u0, ds, next := randVec(rnd, n), randVec(rnd, n), randVec(rnd, len(held))
+			const theta, dt = 0.5, 0.1
+			step := func(s *Stepper, dt float64) []float64 {
+				u := slices.Clone(u0)
+				if err := s.Step(u, ds, next, theta, dt); err != nil {
+					t.Fatal(err)
+				}
+				return u
+			}
+			want := func(s *Stepper, what string, n int) {
+				t.Helper()
+				if got := s.Factorizations(); got != n {
+					t.Errorf("%s: %d factorisations, want %d", what, got, n)
+				}
+			}
+			s := NewStepper(m, k, held, sc.lumped)
+			s.Uncached()
+			first := step(s, dt)
+			if again := step(s, dt); !slices.Equal(first, again) || !slices.Equal(first, step(NewStepper(m, k, held, sc.lumped), dt)) {
+				t.Errorf("the scratch factor's steps differ from a caching Stepper's")
+			}
+			want(s, "two steps with one (θ, Δt)", 1)
+			u := slices.Clone(u0)
+			if allocs := testing.AllocsPerRun(20, func() {
+				if err := s.Step(u, ds, next, theta, dt); err != nil {
+					t.Fatal(err)
+				}
+			}); allocs != 0 {
+				t.Errorf("a step from the scratch factor allocates %v times, want 0", allocs)
+			}
+			step(s, 2*dt)
+			step(s, dt)
+			want(s, "a new Δt and back", 3)
+			if len(s.cache) != 0 {
+				t.Errorf("%d factors cached after Uncached, want 0", len(s.cache))
+			}
+			s.Reset()
+			step(s, dt)
+			want(s, "the same Δt after Reset", 4)
+
+			c := NewStepper(m, k, held, sc.lumped)
+			step(c, dt)
+			c.Uncached()
+			step(c, 2*dt)
+			step(c, dt)
+			want(c, "a Δt cached before Uncached, then a new one and back", 2)
+		})
+	}
+}
+
 // field is the polynomial α + βz + γz² and its integral over [z0, z1],
 // written as (z1−z0)·(mean of the field) so that thin elements far down
 // the column do not cancel.

@@ -17,7 +17,7 @@ const factorCacheFloats = 4 << 20
 // one shape; the free unknowns are Lo … Hi-1 and Held lists the held
 // nodes (runs from either end, see HeldRuns). A diagonal M (Lumped) with a tridiagonal K
 // takes a fused one-pass right-hand side. Each distinct (θ, Δt) is
-// factorised once and reused.
+// factorised once and reused (after Uncached, only while it lasts).
 type Stepper struct {
 	M, K   *Band
 	Lo, Hi int
@@ -32,6 +32,12 @@ type Stepper struct {
 	cached  int
 	factors int
 	rhs     []float64
+	// After Uncached, the factors not in the cache are made in scratch,
+	// which holds the one for scratchKey while scratchOK.
+	uncached  bool
+	scratch   Factor
+	scratchOK bool
+	scratchOf stepKey
 }
 
 // NewStepper returns a stepper for capacity m and conductivity k with the
@@ -75,14 +81,38 @@ func (s *Stepper) Factorizations() int { return s.factors }
 func (s *Stepper) Reset() {
 	clear(s.cache)
 	s.cached = 0
+	s.scratchOK = false
 }
 
+// Uncached makes the factors of the later steps whose (θ, Δt) is not
+// cached in one scratch factor instead of adding them to the cache; the
+// scratch factor serves the steps after it as long as (θ, Δt) stays the
+// same. A time loop calls it for its last stretch, where the steps grow
+// and no length comes back: each would be cached for nothing (in the
+// demo's solve about 160 factors of 2 KB, half of what a solve
+// allocates). The answers are the same to the bit; only a length that
+// did come back, not in a row, would be factorised again.
+func (s *Stepper) Uncached() { s.uncached = true }
+
 // factorFor returns the factorisation of M + θΔt·K on the free block,
-// computing it once per distinct (θ, Δt).
+// computing it once per distinct (θ, Δt), or once per run of steps with
+// it after Uncached.
 func (s *Stepper) factorFor(theta, dt float64) (*Factor, error) {
 	key := stepKey{theta, dt}
 	if f, ok := s.cache[key]; ok {
 		return f, nil
+	}
+	if s.uncached {
+		if s.scratchOK && s.scratchOf == key {
+			return &s.scratch, nil
+		}
+		s.scratchOK = false
+		if err := FactorizeSum(&s.scratch, s.M, s.K, theta*dt, s.Lo, s.Hi); err != nil {
+			return nil, err
+		}
+		s.factors++
+		s.scratchOK, s.scratchOf = true, key
+		return &s.scratch, nil
 	}
 	f := new(Factor)
 	if err := FactorizeSum(f, s.M, s.K, theta*dt, s.Lo, s.Hi); err != nil {
@@ -133,19 +163,32 @@ func ThetaRHS(dst, u, ds, d, k []float64, c float64) {
 		return
 	}
 	// Row i of K·u is k[2(i-1)+1]·u[i-1] + k[2i]·u[i] + k[2i+1]·u[i+1].
+	// The rows above the last, with and without ds, are loops of their
+	// own without a test per row; the arithmetic is the same either way.
+	dst, d, k = dst[:n], d[:2*n], k[:2*n]
 	prev := 0.0 // k[i-1][i]·u[i-1]
-	for i := range n {
-		ku := prev + k[2*i]*u[i]
-		if i+1 < n {
-			ku += k[2*i+1] * u[i+1]
-			prev = k[2*i+1] * u[i]
+	last := n - 1
+	if ds == nil {
+		for i := range last {
+			ui, ki := u[i], k[2*i+1]
+			ku := prev + k[2*i]*ui + ki*u[i+1]
+			prev = ki * ui
+			dst[i] = d[2*i]*ui - c*ku
 		}
-		v := u[i]
-		if ds != nil {
-			v += ds[i]
+	} else {
+		ds = ds[:n]
+		for i := range last {
+			ui, ki := u[i], k[2*i+1]
+			ku := prev + k[2*i]*ui + ki*u[i+1]
+			prev = ki * ui
+			dst[i] = d[2*i]*(ui+ds[i]) - c*ku
 		}
-		dst[i] = d[2*i]*v - c*ku
 	}
+	v := u[last]
+	if ds != nil {
+		v += ds[last]
+	}
+	dst[last] = d[2*last]*v - c*(prev+k[2*last]*u[last])
 }
 
 // BandThetaRHS sets dst = M (u + ds) − c·K u for symmetric band matrices M

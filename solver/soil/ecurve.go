@@ -93,13 +93,18 @@ func (s *Point) Peak() float64 { return max(s.peak, s.sig) }
 // Settlement is this sublayer's settlement so far, m.
 func (s *Point) Settlement() float64 { return s.de / (1 + s.Curve.E0) * s.H }
 
-// start sets the logarithms of the stresses on first use.
+// start sets the logarithms of the stresses on first use. It is the
+// test alone, small enough to be inlined; begin does the work.
 func (s *Point) start() {
 	if !s.started {
-		s.lsig = math.Log10(max(s.sig, MinEffective))
-		s.lpeak = max(math.Log10(max(s.peak, MinEffective)), s.lsig)
-		s.started = true
+		s.begin()
 	}
+}
+
+func (s *Point) begin() {
+	s.lsig = math.Log10(max(s.sig, MinEffective))
+	s.lpeak = max(math.Log10(max(s.peak, MinEffective)), s.lsig)
+	s.started = true
 }
 
 // log10Of is log10(to) for to ≥ MinEffective, from the logarithm of the
