@@ -63,6 +63,7 @@ type nonlinear struct {
 	inv     []float64 // curved elements: 1/(1+e0)
 	floor   []float64 // curved elements: the least mv·σ', 1e-6 Cc/(ln 10 (1+e0))
 	kExp    []float64 // curved elements with Ck > 0: −ln 10/Ck
+	kq      []float64 // and kExp (1+e0), for gk
 	ct      []float64 // lumped capacity: the tangent mv at the iterate (nil otherwise)
 	tanR    []float64 // curved elements: the tangent mv·σ' below σ'p, floored (Cr)
 	tanC    []float64 // and on the virgin line (Cc)
@@ -74,6 +75,8 @@ type nonlinear struct {
 	rhs        []float64
 	au         []float64 // A(u) u of the iterate (lumped: the pivots)
 	lw         []float64 // lumped: the off-diagonal of A', then of L
+	uw         []float64 // lumped with gk: the upper off-diagonal of A', then of D⁻¹U
+	gk         []float64 // lumped: d(k/γw)/dσ' at the iterate (nil: k constant, or drains)
 	half, invH []float64 // lumped: per element h/2 and 1/h
 	du, du2    []float64 // the change of u over the last step and the one before
 	du3        []float64 // and the one before that
@@ -105,6 +108,7 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 	nl.mv, nl.mvu, nl.sig, nl.peak, nl.strain = f(), f(), f(), f(), f()
 	nl.k0, nl.ck, nl.cm, nl.cc = f(), f(), f(), f()
 	nl.inv, nl.floor, nl.kExp, nl.tanR, nl.tanC = f(), f(), f(), f(), f()
+	nl.kq = f()
 	for e := range ne {
 		l := &c.p.Layers[m.Layer[e]]
 		nl.mv[e] = mvs[m.Layer[e]]
@@ -124,6 +128,7 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 			nl.tanC[e] = max(cu.Cc/(math.Ln10*(1+cu.E0)), nl.floor[e])
 			if nl.ck[e] > 0 {
 				nl.kExp[e] = -math.Ln10 / nl.ck[e]
+				nl.kq[e] = nl.kExp[e] * (1 + cu.E0)
 			}
 		}
 	}
@@ -135,13 +140,17 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 	nl.u0, nl.u1, nl.rhs, nl.du, nl.r0 = make([]float64, n), make([]float64, n), make([]float64, n), make([]float64, n), make([]float64, n)
 	nl.du2, nl.du3, nl.au = make([]float64, n), make([]float64, n), make([]float64, n)
 	if nl.lumped {
-		nl.lw, nl.half, nl.invH = make([]float64, n), f(), f()
+		nl.lw, nl.uw, nl.half, nl.invH = make([]float64, n), make([]float64, n), f(), f()
+		nl.gk = f()
 		for e := range ne {
 			h := m.Z[e+1] - m.Z[e]
 			nl.half[e], nl.invH[e] = h/2, 1/h
 		}
 	}
 	nl.sink = newIteratedSink(tr, mvs, nl.lumped)
+	if nl.sink != nil || !slices.ContainsFunc(nl.ck, func(ck float64) bool { return ck > 0 }) {
+		nl.gk = nil // the band path (drains), or k constant: A' symmetric
+	}
 	return nl
 }
 
@@ -216,7 +225,17 @@ func (nl *nonlinear) coefficients(theta float64, sigma, u []float64) {
 			nl.cc[e] = nl.k0[e]
 			if nl.ck[e] > 0 {
 				// soil.PermeabilityAfter(k0, θΔe, Ck) = k0·10^(−θΔe/Ck).
-				nl.cc[e] = nl.clampK(nl.k0[e] * soil.Exp(nl.kExp[e]*theta*de))
+				kt := nl.k0[e] * soil.Exp(nl.kExp[e]*theta*de)
+				cc := nl.clampK(kt)
+				nl.cc[e] = cc
+				if nl.gk != nil {
+					// d(k/γw)/dσ' = k/γw kExp θ dΔe/dσ', with
+					// dΔe/dσ' = (1+e0) ct; zero where k is held.
+					nl.gk[e] = 0
+					if cc == kt {
+						nl.gk[e] = cc * theta * nl.kq[e] * nl.ct[e]
+					}
+				}
 			}
 			continue
 		}
@@ -297,14 +316,19 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 		// at their values), so that its fixed point is the step's
 		// equation whatever A' is. With a lumped capacity A' takes the
 		// tangent mv at the iterate (M_T, the derivative of the storage
-		// term row by row) in place of the secant: Newton's method in the
-		// storage term, Picard's in k (measured on the soft clay of
+		// term row by row) in place of the secant, Newton's method in the
+		// storage term (measured on the soft clay of
 		// BenchmarkSoftClayNonlinear: 2.93 iterations a step against 3.02
-		// with the secant). The quadratic elements' consistent capacity
-		// keeps the secant, which makes this Picard iteration. (Reusing
-		// the factor of the step's first iterate, a chord iteration, was
-		// measured too: 10 % more iterations, which cost more than the
-		// factorisations saved.)
+		// with the secant), and the derivative of the flux by k's change
+		// with the iterate (gk; see solveLumped), Newton's in k too: 2.04
+		// iterations a step against 2.72 with k's change left out
+		// (Picard's in k; the same cubic predictor), the second update of
+		// a step mostly below 1e-5 kPa instead of 1e-3. The quadratic
+		// elements' consistent capacity keeps the secant, which makes this
+		// Picard iteration. (Reusing the factor of the step's first
+		// iterate, a chord iteration, was measured with Picard's k: 10 %
+		// more iterations, which cost more than the factorisations
+		// saved.)
 		// The fused pass knows no drains: with a sink, linear elements
 		// take the band path too, with their lumped capacity (Picard in
 		// the storage term; the same fixed point).
@@ -401,104 +425,142 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 
 // solveLumped is the update of one iteration for linear elements with
 // the lumped capacity: it writes r to rhs[lo:hi] from the coefficients of
-// the iterate (cm, ct, cc), solving A' r = b(u) − A(u) u with one pass
-// that assembles the tridiagonal A' and the residual and one that
-// factorises A' = L D Lᵀ (a symmetric positive definite tridiagonal
-// matrix) and substitutes; r is zero at the held nodes, so their columns
-// drop out. It computes what AssembleConstant, FactorizeSum, ThetaRHS and
-// Factor.Solve compute on the bands, without their passes over the band
-// storage. No allocation.
+// the iterate (cm, ct, cc and, where k follows the void ratio, gk),
+// solving A' r = b(u) − A(u) u with one pass that assembles the
+// tridiagonal A' and the residual and two that factorise A' = L U and
+// substitute; r is zero at the held nodes, so their columns drop out. It
+// computes what AssembleConstant, FactorizeSum, ThetaRHS and Factor.Solve
+// compute on the bands (for gk nil, when A' is symmetric), without their
+// passes over the band storage. No allocation.
+//
+// A' is the derivative of the residual, Newton's matrix, but for the
+// secant's own change: the tangent capacity ct h/2 per node, θΔt g on the
+// flux, and with gk the change of the flux g (w_a − w_b) with k, whose
+// derivative by each node's u is −½ (w_a − w_b) gk/h. That term makes A'
+// unsymmetric; it is held within ±θΔt g, so that the off-diagonal stays
+// ≤ 0 and every column sums to its capacity (> 0): A' stays an M-matrix,
+// its pivots positive, and only the speed of convergence where it is held
+// differs from Newton's.
 func (nl *nonlinear) solveLumped(theta, dt float64, ds []float64) error {
 	tr := nl.tr
 	c0, c1 := (1-theta)*dt, theta*dt
-	d, l, r := nl.au, nl.lw, nl.rhs // A': diagonal, then inverse pivots; off-diagonal, then L; residual
-	d[0], r[0] = 0, 0               // every later entry is first written by its element's loop
+	ne := len(nl.half)
+	half, invH := nl.half[:ne], nl.invH[:ne]
+	cm, ct, cc := nl.cm[:ne], nl.ct[:ne], nl.cc[:ne]
+	u0, u1 := nl.u0[:ne+1], nl.u1[:ne+1]
+	// A': diagonal, then inverse pivots; lower off-diagonal, then L;
+	// upper, then D⁻¹ U (the lower's own storage when A' is symmetric);
+	// residual, then r.
+	d, l, r := nl.au[:ne+1], nl.lw[:ne+1], nl.rhs[:ne+1]
+	up, gk := l, nl.gk
+	if gk != nil {
+		up, gk = nl.uw[:ne+1], gk[:ne]
+	}
 	// Element e, nodes a = e and b = e+1: its secant capacity cm h/2 times
-	// each node's change u⁰ + Δσ − u, and its flux g (w_a − w_b) with
+	// each node's change u⁰ + Δσ − u, and its flux f = g (w_a − w_b) with
 	// g = cc/h and w = (1−θ)Δt u⁰ + θΔt u, which leaves a and enters b.
-	// A' takes the tangent capacity ct h/2 and θΔt g.
-	va := nl.u0[0] - nl.u1[0]
+	// The entries of node b carry over to the next element in registers.
+	va := u0[0] - u1[0]
 	if ds != nil {
+		ds = ds[:ne+1]
 		va += ds[0]
 	}
-	wa := c0*nl.u0[0] + c1*nl.u1[0]
-	for e, hh := range nl.half {
-		vb := nl.u0[e+1] - nl.u1[e+1]
+	wa := c0*u0[0] + c1*u1[0]
+	dn, rn := 0.0, 0.0
+	for e, hh := range half {
+		vb := u0[e+1] - u1[e+1]
 		if ds != nil {
 			vb += ds[e+1]
 		}
-		wb := c0*nl.u0[e+1] + c1*nl.u1[e+1]
-		g := nl.cc[e] * nl.invH[e]
+		wb := c0*u0[e+1] + c1*u1[e+1]
+		g := cc[e] * invH[e]
 		f := g * (wa - wb)
-		ms := nl.cm[e] * hh
-		r[e] += ms*va - f
-		r[e+1] = ms*vb + f
-		a := nl.ct[e]*hh + c1*g
-		d[e] += a
-		d[e+1] = a
-		l[e] = -c1 * g
+		ms := cm[e] * hh
+		r[e] = rn + ms*va - f
+		rn = ms*vb + f
+		a := ct[e]*hh + c1*g
+		off, sk := c1*g, 0.0
+		if gk != nil {
+			// Comparisons rather than min and max (see clampK).
+			if sk = 0.5 * (wa - wb) * gk[e] * invH[e]; sk > off {
+				sk = off
+			} else if sk < -off {
+				sk = -off
+			}
+		}
+		d[e] = dn + a - sk
+		dn = a + sk
+		l[e] = sk - off
+		up[e] = -sk - off
 		va, wa = vb, wb
 	}
+	d[ne], r[ne] = dn, rn
 	// A leaky end passes (u − 0)/(γw R) out: θΔt of it on A', the flux of
 	// w on the residual. A draining layer's node keeps u = 0: its row is
 	// the identity and its update zero.
 	if a := tr.leakTop; a > 0 {
 		d[0] += c1 * a
-		r[0] -= a * (c0*nl.u0[0] + c1*nl.u1[0])
+		r[0] -= a * (c0*u0[0] + c1*u1[0])
 	}
-	if a, j := tr.leakBottom, len(nl.half); a > 0 {
-		d[j] += c1 * a
-		r[j] -= a * (c0*nl.u0[j] + c1*nl.u1[j])
+	if a := tr.leakBottom; a > 0 {
+		d[ne] += c1 * a
+		r[ne] -= a * (c0*u0[ne] + c1*u1[ne])
 	}
 	for _, j := range tr.pinned {
 		d[j], r[j] = 1, 0
 		if j > 0 {
-			l[j-1] = 0
+			l[j-1], up[j-1] = 0, 0
 		}
-		if j < len(nl.half) {
-			l[j] = 0
+		if j < ne {
+			l[j], up[j] = 0, 0
 		}
 	}
-	// A' = L D Lᵀ on the free rows, L y = r, then Lᵀ x = D⁻¹ y. The
-	// pivots come first, alone: each waits on the last, so they are taken
-	// as ratios of the leading principal minors, P_i = d_i P_{i−1} −
-	// l²_{i−1} P_{i−2}, pivot_i = P_i/P_{i−1} (a recurrence of products,
-	// its division off the chain), with P rescaled by 2^±500 (exactly)
-	// when it leaves [2^−500, 2^500]. The multipliers and the forward
-	// substitution, which do not feed the pivots, follow in a second pass.
+	// A' = L U on the free rows, L y = r, then U x = y. The pivots come
+	// first, alone: each waits on the last, so they are taken as ratios of
+	// the leading principal minors, P_i = d_i P_{i−1} − l_{i−1} u_{i−1}
+	// P_{i−2}, pivot_i = P_i/P_{i−1} (a recurrence of products, its
+	// division off the chain), with P rescaled by 2^±500 (exactly) when it
+	// leaves [2^−500, 2^500]. The multipliers and the forward substitution,
+	// which do not feed the pivots, follow in a second pass; each
+	// substitution carries its last value in a register.
 	lo, hi := tr.lo, tr.hi
-	if lo < hi {
-		pm2, pm1 := 1.0, d[lo]
-		for i := lo + 1; i < hi; i++ {
-			p := d[i]*pm1 - l[i-1]*l[i-1]*pm2
-			d[i] = p / pm1
-			pm2, pm1 = pm1, p
-			if a := math.Abs(p); a > 0x1p500 {
-				pm2, pm1 = pm2*0x1p-500, pm1*0x1p-500
-			} else if a < 0x1p-500 {
-				pm2, pm1 = pm2*0x1p500, pm1*0x1p500
-			}
+	if lo >= hi {
+		return nil
+	}
+	pm2, pm1 := 1.0, d[lo]
+	for i := lo + 1; i < hi; i++ {
+		p := d[i]*pm1 - l[i-1]*up[i-1]*pm2
+		d[i] = p / pm1
+		pm2, pm1 = pm1, p
+		if a := math.Abs(p); a > 0x1p500 {
+			pm2, pm1 = pm2*0x1p-500, pm1*0x1p-500
+		} else if a < 0x1p-500 {
+			pm2, pm1 = pm2*0x1p500, pm1*0x1p500
 		}
 	}
-	inv := 0.0 // 1/pivot of the row before
+	inv, y := 0.0, 0.0 // 1/pivot and y of the row before
 	for i := lo; i < hi; i++ {
 		piv := d[i]
 		if !(piv > 0 && piv <= math.MaxFloat64) { // positive and finite
 			return &fem.NotDefiniteError{Node: i, Pivot: piv}
 		}
 		if i > lo {
-			m := l[i-1] * inv
-			r[i] -= m * r[i-1]
-			l[i-1] = m
+			// Both read before either is written: up may be l.
+			m, v := l[i-1]*inv, up[i-1]*inv
+			l[i-1], up[i-1] = m, v
+			y = r[i] - m*y
+		} else {
+			y = r[i]
 		}
+		r[i] = y
 		inv = 1 / piv
 		d[i] = inv
 	}
-	for i := hi - 1; i >= lo; i-- {
-		r[i] *= d[i]
-		if i+1 < hi {
-			r[i] -= l[i] * r[i+1]
-		}
+	x := r[hi-1] * d[hi-1]
+	r[hi-1] = x
+	for i := hi - 2; i >= lo; i-- {
+		x = r[i]*d[i] - up[i]*x
+		r[i] = x
 	}
 	return nil
 }
