@@ -13,7 +13,8 @@ import (
 // TestSolveLumpedNewton checks the fused update with the permeability
 // term (gk set, A' unsymmetric) against a dense LU solve (gonum's
 // mat.Dense.Solve) of A' assembled here entry by entry from its
-// definition in solveLumped's comment, on an uneven mesh with held ends:
+// definition in solveLumped's comment, on an uneven mesh with held ends,
+// and with leaky ends and a draining node inside (its row the identity):
 // per element e (nodes a, b), with g = cc/h, s = ½ (w_a − w_b) gk/h held
 // within ±θΔt g, A'_aa += ct h/2 + θΔt g − s, A'_bb += ct h/2 + θΔt g + s,
 // A'_ab += −θΔt g − s, A'_ba += −θΔt g + s; the residual as in
@@ -23,7 +24,24 @@ import (
 func TestSolveLumpedNewton(t *testing.T) {
 	m := fem.NewMesh([]float64{0.7, 2.3, 1.1}, 1, 0.13, 1)
 	n, ne := m.Nodes(), m.Elements()
-	nl := &nonlinear{tr: &transient{lo: 1, hi: n - 1, held: []int{0, n - 1}}, m: m, lumped: true}
+	cases := []struct {
+		name         string
+		tr           *transient
+		leakT, leakB float64
+	}{
+		{"held ends", &transient{lo: 1, hi: n - 1, held: []int{0, n - 1}}, 0, 0},
+		{"leaky ends, a draining node", &transient{lo: 0, hi: n, pinned: []int{n / 3}, leakTop: 2e-4, leakBottom: 5e-5}, 2e-4, 5e-5},
+	}
+	for _, tc := range cases {
+		t.Run(tc.name, func(t *testing.T) {
+			tc.tr.leakTop, tc.tr.leakBottom = tc.leakT, tc.leakB
+			checkSolveLumpedNewton(t, m, n, ne, tc.tr)
+		})
+	}
+}
+
+func checkSolveLumpedNewton(t *testing.T, m *fem.Mesh, n, ne int, tr *transient) {
+	nl := &nonlinear{tr: tr, m: m, lumped: true}
 	f := func(g func(i int) float64, k int) []float64 {
 		v := make([]float64, k)
 		for i := range v {
@@ -50,16 +68,22 @@ func TestSolveLumpedNewton(t *testing.T) {
 	if err := nl.solveLumped(theta, dt, ds); err != nil {
 		t.Fatal(err)
 	}
-	// The residual b − A u the long way, as in TestSolveLumped.
+	// The residual b − A u the long way, as in TestSolveLumped, with the
+	// leaks' flux of w = (1−θ)Δt u⁰ + θΔt u.
 	mass, cond := fem.NewBand(n, 1), fem.NewBand(n, 1)
 	m.AssembleConstant(mass, nl.cm, true, true)
 	m.AssembleConstant(cond, nl.cc, false, false)
 	b, au := make([]float64, n), make([]float64, n)
 	fem.ThetaRHS(b, nl.u0, ds, mass.AB, cond.AB, (1-theta)*dt)
 	fem.ThetaRHS(au, nl.u1, nil, mass.AB, cond.AB, -theta*dt)
-	// A' dense, then its free rows and columns.
-	a := mat.NewDense(n, n, nil)
 	c0, c1 := (1-theta)*dt, theta*dt
+	for i := range b {
+		b[i] -= au[i]
+	}
+	b[0] -= tr.leakTop * (c0*nl.u0[0] + c1*nl.u1[0])
+	b[n-1] -= tr.leakBottom * (c0*nl.u0[n-1] + c1*nl.u1[n-1])
+	// A' dense; a draining node's row the identity, its update zero.
+	a := mat.NewDense(n, n, nil)
 	held := 0
 	for e := range ne {
 		h := m.Z[e+1] - m.Z[e]
@@ -78,22 +102,37 @@ func TestSolveLumpedNewton(t *testing.T) {
 	if held != 1 {
 		t.Fatalf("%d elements with the permeability term held, want 1 (the test's set-up)", held)
 	}
-	free := a.Slice(1, n-1, 1, n-1)
-	rv := mat.NewVecDense(n-2, nil)
-	for i := 1; i < n-1; i++ {
-		rv.SetVec(i-1, b[i]-au[i])
+	a.Set(0, 0, a.At(0, 0)+c1*tr.leakTop)
+	a.Set(n-1, n-1, a.At(n-1, n-1)+c1*tr.leakBottom)
+	for _, j := range tr.pinned {
+		for i := range n {
+			a.Set(j, i, 0)
+		}
+		a.Set(j, j, 1)
+		b[j] = 0
+	}
+	lo, hi := tr.lo, tr.hi
+	free := a.Slice(lo, hi, lo, hi)
+	rv := mat.NewVecDense(hi-lo, nil)
+	for i := lo; i < hi; i++ {
+		rv.SetVec(i-lo, b[i])
 	}
 	var x mat.VecDense
 	if err := x.SolveVec(free, rv); err != nil {
 		t.Fatal(err)
 	}
 	worst, scale := 0.0, 0.0
-	for i := 1; i < n-1; i++ {
-		worst = math.Max(worst, math.Abs(nl.rhs[i]-x.AtVec(i-1)))
-		scale = math.Max(scale, math.Abs(x.AtVec(i-1)))
+	for i := lo; i < hi; i++ {
+		worst = math.Max(worst, math.Abs(nl.rhs[i]-x.AtVec(i-lo)))
+		scale = math.Max(scale, math.Abs(x.AtVec(i-lo)))
 	}
 	if worst > 1e-10*scale || scale == 0 {
 		t.Errorf("fused unsymmetric update differs from the dense LU solve by %.3g (largest update %.3g), want ≤ 1e-10 of it", worst, scale)
+	}
+	for _, j := range tr.pinned {
+		if nl.rhs[j] != 0 {
+			t.Errorf("draining node %d: update %g, want 0", j, nl.rhs[j])
+		}
 	}
 }
 
