@@ -185,79 +185,116 @@ func (nl *nonlinear) mean(u []float64, e int) float64 {
 // to the iterate's effective stress, and k/γw at the θ-point. It runs for
 // every element at every iteration, so the constants of each element's
 // curve are taken from newNonlinear (inv, kExp) and a division is spent
-// only where a value needs it.
+// only where a value needs it; the slices are taken once, at their
+// length, so that the loop reads them without reloading or checking.
 func (nl *nonlinear) coefficients(theta float64, sigma, u []float64) {
-	for e := range nl.cm {
-		p := &nl.pts[e]
-		to := p.S0 + nl.mean(sigma, e) - nl.mean(u, e)
-		if nl.curved[e] {
-			from := p.Stress()
-			ref := max(from, soil.MinEffective)
-			inv := nl.inv[e] // 1/(1+e0)
-			// The secant Δe/((1+e0)Δσ'); for a move too small to measure,
-			// the tangent index in the direction of the move (Cr below
-			// the largest past stress, Cc on the virgin line). Both are
-			// floored at 1e-6 of the virgin slope, which keeps the
-			// capacity positive when Cr = 0.
-			var mvT, de float64
-			if d := to - from; math.Abs(d) > 1e-9*ref {
-				de = p.Toward(to)
-				mvT = de * inv / d
-			} else {
-				idx := p.Curve.Cr
-				if d > 0 && from >= p.Peak()*(1-1e-9) {
-					idx = p.Curve.Cc
-				}
-				mvT = idx * inv / (math.Ln10 * ref)
-			}
-			if floor := nl.floor[e]; mvT*ref < floor {
-				mvT = floor / ref
-			}
-			nl.cm[e] = mvT
-			if nl.ct != nil {
-				// The tangent at the iterate, with the same floor.
-				t := nl.tanR[e]
-				if to > p.Peak() {
-					t = nl.tanC[e]
-				}
-				nl.ct[e] = t / max(to, soil.MinEffective)
-			}
-			nl.cc[e] = nl.k0[e]
-			if nl.ck[e] > 0 {
-				// soil.PermeabilityAfter(k0, θΔe, Ck) = k0·10^(−θΔe/Ck).
-				kt := nl.k0[e] * soil.Exp(nl.kExp[e]*theta*de)
-				cc := nl.clampK(kt)
-				nl.cc[e] = cc
-				if nl.gk != nil {
-					// d(k/γw)/dσ' = k/γw kExp θ dΔe/dσ', with
-					// dΔe/dσ' = (1+e0) ct; zero where k is held.
-					nl.gk[e] = 0
-					if cc == kt {
-						nl.gk[e] = cc * theta * nl.kq[e] * nl.ct[e]
-					}
-				}
-			}
+	ne := len(nl.cm)
+	pts, curved := nl.pts[:ne], nl.curved[:ne]
+	cm, cc, k0, ck := nl.cm[:ne], nl.cc[:ne], nl.k0[:ne], nl.ck[:ne]
+	inv, floor, kExp := nl.inv[:ne], nl.floor[:ne], nl.kExp[:ne]
+	ct, tanR, tanC := nl.ct, nl.tanR, nl.tanC
+	if ct != nil {
+		ct, tanR, tanC = ct[:ne], tanR[:ne], tanC[:ne]
+	}
+	gk, kq := nl.gk, nl.kq
+	if gk != nil {
+		gk, kq = gk[:ne], kq[:ne]
+	}
+	linear := nl.m.Order == 1
+	if linear {
+		sigma, u = sigma[:ne+1], u[:ne+1]
+	}
+	for e := range pts {
+		p := &pts[e]
+		var to float64
+		if linear { // nl.mean, inlined
+			to = p.S0 + (sigma[e]+sigma[e+1])/2 - (u[e]+u[e+1])/2
+		} else {
+			to = p.S0 + nl.mean(sigma, e) - nl.mean(u, e)
+		}
+		if !curved[e] {
+			nl.mvCoefficients(e, to)
 			continue
 		}
-		mvT := nl.mv[e]
-		if to < nl.peak[e] || nl.sig[e] < nl.peak[e]*(1-1e-9) {
-			if nl.mvu[e] > 0 {
-				mvT = nl.mvu[e]
+		from := p.Stress()
+		ref := from // max(from, MinEffective) (see clampK)
+		if ref < soil.MinEffective {
+			ref = soil.MinEffective
+		}
+		// The secant Δe/((1+e0)Δσ'); for a move too small to measure,
+		// the tangent index in the direction of the move (Cr below
+		// the largest past stress, Cc on the virgin line). Both are
+		// floored at 1e-6 of the virgin slope, which keeps the
+		// capacity positive when Cr = 0.
+		var mvT, de float64
+		if d := to - from; math.Abs(d) > 1e-9*ref {
+			de = p.Toward(to)
+			mvT = de * inv[e] / d
+		} else {
+			idx := p.Curve.Cr
+			if d > 0 && from >= p.Peak()*(1-1e-9) {
+				idx = p.Curve.Cc
+			}
+			mvT = idx * inv[e] / (math.Ln10 * ref)
+		}
+		if f := floor[e]; mvT*ref < f {
+			mvT = f / ref
+		}
+		cm[e] = mvT
+		tangent := 0.0
+		if ct != nil {
+			// The tangent at the iterate, with the same floor.
+			t := tanR[e]
+			if to > p.Peak() {
+				t = tanC[e]
+			}
+			s := to
+			if s < soil.MinEffective {
+				s = soil.MinEffective
+			}
+			tangent = t / s
+			ct[e] = tangent
+		}
+		k := k0[e]
+		if ck[e] > 0 {
+			// soil.PermeabilityAfter(k0, θΔe, Ck) = k0·10^(−θΔe/Ck).
+			kt := k * soil.Exp(kExp[e]*theta*de)
+			k = nl.clampK(kt)
+			if gk != nil {
+				// d(k/γw)/dσ' = k/γw kExp θ dΔe/dσ', with
+				// dΔe/dσ' = (1+e0) ct; zero where k is held.
+				g := 0.0
+				if k == kt {
+					g = k * theta * kq[e] * tangent
+				}
+				gk[e] = g
 			}
 		}
-		if d := to - nl.sig[e]; math.Abs(d) > 1e-9*max(math.Abs(nl.sig[e]), soil.MinEffective) {
-			s, _ := soil.LinearCompress(nl.mv[e], nl.mvu[e], nl.sig[e], to, nl.peak[e])
-			mvT = s / d
-		}
-		nl.cm[e] = mvT
-		if nl.ct != nil {
-			nl.ct[e] = nl.mv[e]
-			if to <= max(nl.peak[e], nl.sig[e]) && nl.mvu[e] > 0 {
-				nl.ct[e] = nl.mvu[e]
-			}
-		}
-		nl.cc[e] = nl.k0[e]
+		cc[e] = k
 	}
+}
+
+// mvCoefficients is coefficients for element e on the constant-mv law
+// (with its swelling mv) at the iterate's effective stress to.
+func (nl *nonlinear) mvCoefficients(e int, to float64) {
+	mvT := nl.mv[e]
+	if to < nl.peak[e] || nl.sig[e] < nl.peak[e]*(1-1e-9) {
+		if nl.mvu[e] > 0 {
+			mvT = nl.mvu[e]
+		}
+	}
+	if d := to - nl.sig[e]; math.Abs(d) > 1e-9*max(math.Abs(nl.sig[e]), soil.MinEffective) {
+		s, _ := soil.LinearCompress(nl.mv[e], nl.mvu[e], nl.sig[e], to, nl.peak[e])
+		mvT = s / d
+	}
+	nl.cm[e] = mvT
+	if nl.ct != nil {
+		nl.ct[e] = nl.mv[e]
+		if to <= max(nl.peak[e], nl.sig[e]) && nl.mvu[e] > 0 {
+			nl.ct[e] = nl.mvu[e]
+		}
+	}
+	nl.cc[e] = nl.k0[e]
 }
 
 // step advances the column from t0 by dt, iterating the coefficients to
