@@ -324,8 +324,10 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 		l2 := (dt - 0) * (dt - t1) * (dt - t3) / ((t2 - 0) * (t2 - t1) * (t2 - t3))
 		l3 := (dt - 0) * (dt - t1) * (dt - t2) / ((t3 - 0) * (t3 - t1) * (t3 - t2))
 		w1, w2, w3 := -(l1 + l2 + l3), -(l2 + l3), -l3
-		for i := tr.lo; i < tr.hi; i++ {
-			nl.u1[i] += w1*nl.du[i] + w2*nl.du2[i] + w3*nl.du3[i]
+		u1, n := nl.u1[tr.lo:tr.hi], tr.hi-tr.lo
+		du, du2, du3 := nl.du[tr.lo:][:n], nl.du2[tr.lo:][:n], nl.du3[tr.lo:][:n]
+		for i := range u1 {
+			u1[i] += w1*du[i] + w2*du2[i] + w3*du3[i]
 		}
 	case nl.lastDt > 0 && nl.lastDt2 > 0:
 		// With rates v1 = du/h1, v2 = du2/h2 and a = (v1 − v2)/((h1+h2)/2),
@@ -403,31 +405,33 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 		change = 0
 		if it == 0 {
 			// ω = 1: the update goes with the same pass.
-			for i := tr.lo; i < tr.hi; i++ {
-				r := nl.rhs[i]
+			u1, n := nl.u1[tr.lo:tr.hi], tr.hi-tr.lo
+			rhs, r0 := nl.rhs[tr.lo:][:n], nl.r0[tr.lo:][:n]
+			for i, r := range rhs {
 				if a := math.Abs(r); !(a <= change) { // NaN too
 					change = a
 				}
-				nl.r0[i] = r
-				nl.u1[i] += r
+				r0[i] = r
+				u1[i] += r
 			}
 		} else {
 			num, den := 0.0, 0.0
-			for i := tr.lo; i < tr.hi; i++ {
-				r := nl.rhs[i]
+			u1, n := nl.u1[tr.lo:tr.hi], tr.hi-tr.lo
+			rhs, r0 := nl.rhs[tr.lo:][:n], nl.r0[tr.lo:][:n]
+			for i, r := range rhs {
 				if a := math.Abs(r); !(a <= change) {
 					change = a
 				}
-				d := r - nl.r0[i]
-				num += nl.r0[i] * d
+				d := r - r0[i]
+				num += r0[i] * d
 				den += d * d
-				nl.r0[i] = r
+				r0[i] = r
 			}
 			if den > 0 {
 				omega = min(max(-omega*num/den, 0.05), 2)
 			}
-			for i := tr.lo; i < tr.hi; i++ {
-				nl.u1[i] += omega * nl.r0[i]
+			for i, r := range r0 {
+				u1[i] += omega * r
 			}
 		}
 		nl.iterations++
@@ -451,8 +455,9 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 		nl.worst = math.Max(nl.worst, change)
 	}
 	nl.du, nl.du2, nl.du3 = nl.du3, nl.du, nl.du2
-	for i := range nl.du {
-		nl.du[i] = nl.u1[i] - nl.u0[i]
+	du, u0, u1 := nl.du, nl.u0[:len(nl.du)], nl.u1[:len(nl.du)]
+	for i := range du {
+		du[i] = u1[i] - u0[i]
 	}
 	nl.lastDt, nl.lastDt2, nl.lastDt3 = dt, nl.lastDt, nl.lastDt2
 	copy(tr.u, nl.u1)
@@ -602,19 +607,32 @@ func (nl *nonlinear) solveLumped(theta, dt float64, ds []float64) error {
 	return nil
 }
 
-// commit moves every element to the effective stress of the nodal fields.
+// commit moves every element to the effective stress of the nodal
+// fields, its slices taken once as in coefficients.
 func (nl *nonlinear) commit(t float64, sigma, u []float64) {
-	for e := range nl.pts {
-		p := &nl.pts[e]
-		to := p.S0 + nl.mean(sigma, e) - nl.mean(u, e)
+	ne := len(nl.pts)
+	pts, curved := nl.pts, nl.curved[:ne]
+	k0, ck, kExp := nl.k0[:ne], nl.ck[:ne], nl.kExp[:ne]
+	linear := nl.m.Order == 1
+	if linear {
+		sigma, u = sigma[:ne+1], u[:ne+1]
+	}
+	for e := range pts {
+		p := &pts[e]
+		var to float64
+		if linear { // nl.mean, inlined
+			to = p.S0 + (sigma[e]+sigma[e+1])/2 - (u[e]+u[e+1])/2
+		} else {
+			to = p.S0 + nl.mean(sigma, e) - nl.mean(u, e)
+		}
 		if to < 0 && math.IsNaN(nl.negativeAt) && !nl.tr.c.isDug(e) {
 			_, z0, z1 := nl.m.Span(e)
 			nl.negativeAt, nl.negativeT = (z0+z1)/2, t
 		}
-		if nl.curved[e] {
+		if curved[e] {
 			de := p.MoveTo(to)
-			if nl.ck[e] > 0 {
-				nl.k0[e] = nl.clampK(nl.k0[e] * soil.Exp(nl.kExp[e]*de)) // soil.PermeabilityAfter
+			if ck[e] > 0 {
+				k0[e] = nl.clampK(k0[e] * soil.Exp(kExp[e]*de)) // soil.PermeabilityAfter
 			}
 			continue
 		}
