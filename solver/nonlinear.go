@@ -569,10 +569,12 @@ func (nl *nonlinear) solveLumped(theta, dt float64, ds []float64) error {
 	if lo >= hi {
 		return nil
 	}
-	pm2, pm1 := 1.0, d[lo]
-	for i := lo + 1; i < hi; i++ {
-		p := d[i]*pm1 - l[i-1]*up[i-1]*pm2
-		d[i] = p / pm1
+	n := hi - lo // the free rows, from 0
+	dd, ll, uu, rr := d[lo:hi], l[lo:hi][:n], up[lo:hi][:n], r[lo:hi][:n]
+	pm2, pm1 := 1.0, dd[0]
+	for i := 1; i < n; i++ {
+		p := dd[i]*pm1 - ll[i-1]*uu[i-1]*pm2
+		dd[i] = p / pm1
 		pm2, pm1 = pm1, p
 		if a := math.Abs(p); a > 0x1p500 {
 			pm2, pm1 = pm2*0x1p-500, pm1*0x1p-500
@@ -581,28 +583,27 @@ func (nl *nonlinear) solveLumped(theta, dt float64, ds []float64) error {
 		}
 	}
 	inv, y := 0.0, 0.0 // 1/pivot and y of the row before
-	for i := lo; i < hi; i++ {
-		piv := d[i]
+	for i, piv := range dd {
 		if !(piv > 0 && piv <= math.MaxFloat64) { // positive and finite
-			return &fem.NotDefiniteError{Node: i, Pivot: piv}
+			return &fem.NotDefiniteError{Node: lo + i, Pivot: piv}
 		}
-		if i > lo {
+		if i > 0 {
 			// Both read before either is written: up may be l.
-			m, v := l[i-1]*inv, up[i-1]*inv
-			l[i-1], up[i-1] = m, v
-			y = r[i] - m*y
+			m, v := ll[i-1]*inv, uu[i-1]*inv
+			ll[i-1], uu[i-1] = m, v
+			y = rr[i] - m*y
 		} else {
-			y = r[i]
+			y = rr[i]
 		}
-		r[i] = y
+		rr[i] = y
 		inv = 1 / piv
-		d[i] = inv
+		dd[i] = inv
 	}
-	x := r[hi-1] * d[hi-1]
-	r[hi-1] = x
-	for i := hi - 2; i >= lo; i-- {
-		x = r[i]*d[i] - up[i]*x
-		r[i] = x
+	x := rr[n-1] * dd[n-1]
+	rr[n-1] = x
+	for i := n - 2; i >= 0; i-- {
+		x = rr[i]*dd[i] - uu[i]*x
+		rr[i] = x
 	}
 	return nil
 }
