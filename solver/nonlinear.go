@@ -258,7 +258,12 @@ func (nl *nonlinear) coefficients(theta float64, sigma, u []float64) {
 		k := k0[e]
 		if ck[e] > 0 {
 			// soil.PermeabilityAfter(k0, θΔe, Ck) = k0·10^(−θΔe/Ck).
-			kt := k * soil.Exp(kExp[e]*theta*de)
+			y := kExp[e] * theta * de
+			x, ok := soil.ExpSmall(y) // soil.Exp, in line
+			if !ok {
+				x = math.Exp(y)
+			}
+			kt := k * x
 			k = nl.clampK(kt)
 			if gk != nil {
 				// d(k/γw)/dσ' = k/γw kExp θ dΔe/dσ', with
@@ -636,7 +641,12 @@ func (nl *nonlinear) commit(t float64, sigma, u []float64) {
 		if curved[e] {
 			de := p.MoveTo(to)
 			if ck[e] > 0 {
-				k0[e] = nl.clampK(k0[e] * soil.Exp(kExp[e]*de)) // soil.PermeabilityAfter
+				y := kExp[e] * de
+				x, ok := soil.ExpSmall(y) // soil.Exp, in line
+				if !ok {
+					x = math.Exp(y)
+				}
+				k0[e] = nl.clampK(k0[e] * x) // soil.PermeabilityAfter
 			}
 			continue
 		}
