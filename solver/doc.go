@@ -196,8 +196,9 @@
 //
 // (k held within MinK … MaxK, the bounds of layers[i].k), by iteration on
 // the residual of that equation (with linear elements the matrix takes
-// the tangent mv at the iterate, Newton's method in the storage term;
-// quadratic elements keep the secant, Picard's), each update relaxed
+// the tangent mv at the iterate and the change of the flux with k,
+// Newton's method but for the secant's own change; quadratic elements
+// keep the secant and k of the iterate, Picard's), each update relaxed
 // by Aitken's factor (Irons & Tuck 1969), from a first iterate
 // extrapolated from the last three steps, until the largest change of
 // excess pressure between iterates is at most NonlinearTolerance (1e-6)

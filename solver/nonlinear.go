@@ -63,6 +63,7 @@ type nonlinear struct {
 	inv     []float64 // curved elements: 1/(1+e0)
 	floor   []float64 // curved elements: the least mv·σ', 1e-6 Cc/(ln 10 (1+e0))
 	kExp    []float64 // curved elements with Ck > 0: −ln 10/Ck
+	kq      []float64 // and kExp (1+e0), for gk
 	ct      []float64 // lumped capacity: the tangent mv at the iterate (nil otherwise)
 	tanR    []float64 // curved elements: the tangent mv·σ' below σ'p, floored (Cr)
 	tanC    []float64 // and on the virgin line (Cc)
@@ -74,6 +75,8 @@ type nonlinear struct {
 	rhs        []float64
 	au         []float64 // A(u) u of the iterate (lumped: the pivots)
 	lw         []float64 // lumped: the off-diagonal of A', then of L
+	uw         []float64 // lumped with gk: the upper off-diagonal of A', then of D⁻¹U
+	gk         []float64 // lumped: d(k/γw)/dσ' at the iterate (nil: k constant, or drains)
 	half, invH []float64 // lumped: per element h/2 and 1/h
 	du, du2    []float64 // the change of u over the last step and the one before
 	du3        []float64 // and the one before that
@@ -105,6 +108,7 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 	nl.mv, nl.mvu, nl.sig, nl.peak, nl.strain = f(), f(), f(), f(), f()
 	nl.k0, nl.ck, nl.cm, nl.cc = f(), f(), f(), f()
 	nl.inv, nl.floor, nl.kExp, nl.tanR, nl.tanC = f(), f(), f(), f(), f()
+	nl.kq = f()
 	for e := range ne {
 		l := &c.p.Layers[m.Layer[e]]
 		nl.mv[e] = mvs[m.Layer[e]]
@@ -124,6 +128,7 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 			nl.tanC[e] = max(cu.Cc/(math.Ln10*(1+cu.E0)), nl.floor[e])
 			if nl.ck[e] > 0 {
 				nl.kExp[e] = -math.Ln10 / nl.ck[e]
+				nl.kq[e] = nl.kExp[e] * (1 + cu.E0)
 			}
 		}
 	}
@@ -135,13 +140,17 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 	nl.u0, nl.u1, nl.rhs, nl.du, nl.r0 = make([]float64, n), make([]float64, n), make([]float64, n), make([]float64, n), make([]float64, n)
 	nl.du2, nl.du3, nl.au = make([]float64, n), make([]float64, n), make([]float64, n)
 	if nl.lumped {
-		nl.lw, nl.half, nl.invH = make([]float64, n), f(), f()
+		nl.lw, nl.uw, nl.half, nl.invH = make([]float64, n), make([]float64, n), f(), f()
+		nl.gk = f()
 		for e := range ne {
 			h := m.Z[e+1] - m.Z[e]
 			nl.half[e], nl.invH[e] = h/2, 1/h
 		}
 	}
 	nl.sink = newIteratedSink(tr, mvs, nl.lumped)
+	if nl.sink != nil || !slices.ContainsFunc(nl.ck, func(ck float64) bool { return ck > 0 }) {
+		nl.gk = nil // the band path (drains), or k constant: A' symmetric
+	}
 	return nl
 }
 
@@ -176,69 +185,121 @@ func (nl *nonlinear) mean(u []float64, e int) float64 {
 // to the iterate's effective stress, and k/γw at the θ-point. It runs for
 // every element at every iteration, so the constants of each element's
 // curve are taken from newNonlinear (inv, kExp) and a division is spent
-// only where a value needs it.
+// only where a value needs it; the slices are taken once, at their
+// length, so that the loop reads them without reloading or checking.
 func (nl *nonlinear) coefficients(theta float64, sigma, u []float64) {
-	for e := range nl.cm {
-		p := &nl.pts[e]
-		to := p.S0 + nl.mean(sigma, e) - nl.mean(u, e)
-		if nl.curved[e] {
-			from := p.Stress()
-			ref := max(from, soil.MinEffective)
-			inv := nl.inv[e] // 1/(1+e0)
-			// The secant Δe/((1+e0)Δσ'); for a move too small to measure,
-			// the tangent index in the direction of the move (Cr below
-			// the largest past stress, Cc on the virgin line). Both are
-			// floored at 1e-6 of the virgin slope, which keeps the
-			// capacity positive when Cr = 0.
-			var mvT, de float64
-			if d := to - from; math.Abs(d) > 1e-9*ref {
-				de = p.Toward(to)
-				mvT = de * inv / d
-			} else {
-				idx := p.Curve.Cr
-				if d > 0 && from >= p.Peak()*(1-1e-9) {
-					idx = p.Curve.Cc
-				}
-				mvT = idx * inv / (math.Ln10 * ref)
-			}
-			if floor := nl.floor[e]; mvT*ref < floor {
-				mvT = floor / ref
-			}
-			nl.cm[e] = mvT
-			if nl.ct != nil {
-				// The tangent at the iterate, with the same floor.
-				t := nl.tanR[e]
-				if to > p.Peak() {
-					t = nl.tanC[e]
-				}
-				nl.ct[e] = t / max(to, soil.MinEffective)
-			}
-			nl.cc[e] = nl.k0[e]
-			if nl.ck[e] > 0 {
-				// soil.PermeabilityAfter(k0, θΔe, Ck) = k0·10^(−θΔe/Ck).
-				nl.cc[e] = nl.clampK(nl.k0[e] * soil.Exp(nl.kExp[e]*theta*de))
-			}
+	ne := len(nl.cm)
+	pts, curved := nl.pts[:ne], nl.curved[:ne]
+	cm, cc, k0, ck := nl.cm[:ne], nl.cc[:ne], nl.k0[:ne], nl.ck[:ne]
+	inv, floor, kExp := nl.inv[:ne], nl.floor[:ne], nl.kExp[:ne]
+	ct, tanR, tanC := nl.ct, nl.tanR, nl.tanC
+	if ct != nil {
+		ct, tanR, tanC = ct[:ne], tanR[:ne], tanC[:ne]
+	}
+	gk, kq := nl.gk, nl.kq
+	if gk != nil {
+		gk, kq = gk[:ne], kq[:ne]
+	}
+	linear := nl.m.Order == 1
+	if linear {
+		sigma, u = sigma[:ne+1], u[:ne+1]
+	}
+	for e := range pts {
+		p := &pts[e]
+		var to float64
+		if linear { // nl.mean, inlined
+			to = p.S0 + (sigma[e]+sigma[e+1])/2 - (u[e]+u[e+1])/2
+		} else {
+			to = p.S0 + nl.mean(sigma, e) - nl.mean(u, e)
+		}
+		if !curved[e] {
+			nl.mvCoefficients(e, to)
 			continue
 		}
-		mvT := nl.mv[e]
-		if to < nl.peak[e] || nl.sig[e] < nl.peak[e]*(1-1e-9) {
-			if nl.mvu[e] > 0 {
-				mvT = nl.mvu[e]
+		from := p.Stress()
+		ref := from // max(from, MinEffective) (see clampK)
+		if ref < soil.MinEffective {
+			ref = soil.MinEffective
+		}
+		// The secant Δe/((1+e0)Δσ'); for a move too small to measure,
+		// the tangent index in the direction of the move (Cr below
+		// the largest past stress, Cc on the virgin line). Both are
+		// floored at 1e-6 of the virgin slope, which keeps the
+		// capacity positive when Cr = 0.
+		var mvT, de float64
+		if d := to - from; math.Abs(d) > 1e-9*ref {
+			de = p.Toward(to)
+			mvT = de * inv[e] / d
+		} else {
+			idx := p.Curve.Cr
+			if d > 0 && from >= p.Peak()*(1-1e-9) {
+				idx = p.Curve.Cc
+			}
+			mvT = idx * inv[e] / (math.Ln10 * ref)
+		}
+		if f := floor[e]; mvT*ref < f {
+			mvT = f / ref
+		}
+		cm[e] = mvT
+		tangent := 0.0
+		if ct != nil {
+			// The tangent at the iterate, with the same floor.
+			t := tanR[e]
+			if to > p.Peak() {
+				t = tanC[e]
+			}
+			s := to
+			if s < soil.MinEffective {
+				s = soil.MinEffective
+			}
+			tangent = t / s
+			ct[e] = tangent
+		}
+		k := k0[e]
+		if ck[e] > 0 {
+			// soil.PermeabilityAfter(k0, θΔe, Ck) = k0·10^(−θΔe/Ck).
+			y := kExp[e] * theta * de
+			x, ok := soil.ExpSmall(y) // soil.Exp, in line
+			if !ok {
+				x = math.Exp(y)
+			}
+			kt := k * x
+			k = nl.clampK(kt)
+			if gk != nil {
+				// d(k/γw)/dσ' = k/γw kExp θ dΔe/dσ', with
+				// dΔe/dσ' = (1+e0) ct; zero where k is held.
+				g := 0.0
+				if k == kt {
+					g = k * theta * kq[e] * tangent
+				}
+				gk[e] = g
 			}
 		}
-		if d := to - nl.sig[e]; math.Abs(d) > 1e-9*max(math.Abs(nl.sig[e]), soil.MinEffective) {
-			s, _ := soil.LinearCompress(nl.mv[e], nl.mvu[e], nl.sig[e], to, nl.peak[e])
-			mvT = s / d
-		}
-		nl.cm[e] = mvT
-		if nl.ct != nil {
-			nl.ct[e] = nl.mv[e]
-			if to <= max(nl.peak[e], nl.sig[e]) && nl.mvu[e] > 0 {
-				nl.ct[e] = nl.mvu[e]
-			}
-		}
-		nl.cc[e] = nl.k0[e]
+		cc[e] = k
 	}
+}
+
+// mvCoefficients is coefficients for element e on the constant-mv law
+// (with its swelling mv) at the iterate's effective stress to.
+func (nl *nonlinear) mvCoefficients(e int, to float64) {
+	mvT := nl.mv[e]
+	if to < nl.peak[e] || nl.sig[e] < nl.peak[e]*(1-1e-9) {
+		if nl.mvu[e] > 0 {
+			mvT = nl.mvu[e]
+		}
+	}
+	if d := to - nl.sig[e]; math.Abs(d) > 1e-9*max(math.Abs(nl.sig[e]), soil.MinEffective) {
+		s, _ := soil.LinearCompress(nl.mv[e], nl.mvu[e], nl.sig[e], to, nl.peak[e])
+		mvT = s / d
+	}
+	nl.cm[e] = mvT
+	if nl.ct != nil {
+		nl.ct[e] = nl.mv[e]
+		if to <= max(nl.peak[e], nl.sig[e]) && nl.mvu[e] > 0 {
+			nl.ct[e] = nl.mvu[e]
+		}
+	}
+	nl.cc[e] = nl.k0[e]
 }
 
 // step advances the column from t0 by dt, iterating the coefficients to
@@ -268,8 +329,10 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 		l2 := (dt - 0) * (dt - t1) * (dt - t3) / ((t2 - 0) * (t2 - t1) * (t2 - t3))
 		l3 := (dt - 0) * (dt - t1) * (dt - t2) / ((t3 - 0) * (t3 - t1) * (t3 - t2))
 		w1, w2, w3 := -(l1 + l2 + l3), -(l2 + l3), -l3
-		for i := tr.lo; i < tr.hi; i++ {
-			nl.u1[i] += w1*nl.du[i] + w2*nl.du2[i] + w3*nl.du3[i]
+		u1, n := nl.u1[tr.lo:tr.hi], tr.hi-tr.lo
+		du, du2, du3 := nl.du[tr.lo:][:n], nl.du2[tr.lo:][:n], nl.du3[tr.lo:][:n]
+		for i := range u1 {
+			u1[i] += w1*du[i] + w2*du2[i] + w3*du3[i]
 		}
 	case nl.lastDt > 0 && nl.lastDt2 > 0:
 		// With rates v1 = du/h1, v2 = du2/h2 and a = (v1 − v2)/((h1+h2)/2),
@@ -297,14 +360,21 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 		// at their values), so that its fixed point is the step's
 		// equation whatever A' is. With a lumped capacity A' takes the
 		// tangent mv at the iterate (M_T, the derivative of the storage
-		// term row by row) in place of the secant: Newton's method in the
-		// storage term, Picard's in k (measured on the soft clay of
+		// term row by row) in place of the secant, Newton's method in the
+		// storage term (measured on the soft clay of
 		// BenchmarkSoftClayNonlinear: 2.93 iterations a step against 3.02
-		// with the secant). The quadratic elements' consistent capacity
-		// keeps the secant, which makes this Picard iteration. (Reusing
-		// the factor of the step's first iterate, a chord iteration, was
-		// measured too: 10 % more iterations, which cost more than the
-		// factorisations saved.)
+		// with the secant), and the derivative of the flux by k's change
+		// with the iterate (gk; see solveLumped), Newton's in k too: 2.04
+		// iterations a step against 2.72 with k's change left out
+		// (Picard's in k; the same cubic predictor), the second update of
+		// a step mostly below 1e-5 kPa instead of 1e-3. The quadratic
+		// elements' consistent capacity keeps the secant, which makes this
+		// Picard iteration. (Reusing the factor of the step's first
+		// iterate, a chord iteration, was measured with Picard's k: 10 %
+		// more iterations, which cost more than the factorisations
+		// saved; with Newton's, keeping the first factor for the second
+		// update left it near 1e-3 kPa instead of 1e-6: 581 iterations
+		// against 332.)
 		// The fused pass knows no drains: with a sink, linear elements
 		// take the band path too, with their lumped capacity (Picard in
 		// the storage term; the same fixed point).
@@ -342,31 +412,33 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 		change = 0
 		if it == 0 {
 			// ω = 1: the update goes with the same pass.
-			for i := tr.lo; i < tr.hi; i++ {
-				r := nl.rhs[i]
+			u1, n := nl.u1[tr.lo:tr.hi], tr.hi-tr.lo
+			rhs, r0 := nl.rhs[tr.lo:][:n], nl.r0[tr.lo:][:n]
+			for i, r := range rhs {
 				if a := math.Abs(r); !(a <= change) { // NaN too
 					change = a
 				}
-				nl.r0[i] = r
-				nl.u1[i] += r
+				r0[i] = r
+				u1[i] += r
 			}
 		} else {
 			num, den := 0.0, 0.0
-			for i := tr.lo; i < tr.hi; i++ {
-				r := nl.rhs[i]
+			u1, n := nl.u1[tr.lo:tr.hi], tr.hi-tr.lo
+			rhs, r0 := nl.rhs[tr.lo:][:n], nl.r0[tr.lo:][:n]
+			for i, r := range rhs {
 				if a := math.Abs(r); !(a <= change) {
 					change = a
 				}
-				d := r - nl.r0[i]
-				num += nl.r0[i] * d
+				d := r - r0[i]
+				num += r0[i] * d
 				den += d * d
-				nl.r0[i] = r
+				r0[i] = r
 			}
 			if den > 0 {
 				omega = min(max(-omega*num/den, 0.05), 2)
 			}
-			for i := tr.lo; i < tr.hi; i++ {
-				nl.u1[i] += omega * nl.r0[i]
+			for i, r := range r0 {
+				u1[i] += omega * r
 			}
 		}
 		nl.iterations++
@@ -390,8 +462,9 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 		nl.worst = math.Max(nl.worst, change)
 	}
 	nl.du, nl.du2, nl.du3 = nl.du3, nl.du, nl.du2
-	for i := range nl.du {
-		nl.du[i] = nl.u1[i] - nl.u0[i]
+	du, u0, u1 := nl.du, nl.u0[:len(nl.du)], nl.u1[:len(nl.du)]
+	for i := range du {
+		du[i] = u1[i] - u0[i]
 	}
 	nl.lastDt, nl.lastDt2, nl.lastDt3 = dt, nl.lastDt, nl.lastDt2
 	copy(tr.u, nl.u1)
@@ -401,121 +474,179 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 
 // solveLumped is the update of one iteration for linear elements with
 // the lumped capacity: it writes r to rhs[lo:hi] from the coefficients of
-// the iterate (cm, ct, cc), solving A' r = b(u) − A(u) u with one pass
-// that assembles the tridiagonal A' and the residual and one that
-// factorises A' = L D Lᵀ (a symmetric positive definite tridiagonal
-// matrix) and substitutes; r is zero at the held nodes, so their columns
-// drop out. It computes what AssembleConstant, FactorizeSum, ThetaRHS and
-// Factor.Solve compute on the bands, without their passes over the band
-// storage. No allocation.
+// the iterate (cm, ct, cc and, where k follows the void ratio, gk),
+// solving A' r = b(u) − A(u) u with one pass that assembles the
+// tridiagonal A' and the residual, one for the pivots of A' = L U, one
+// for the multipliers and the forward substitution and one back; r is
+// zero at the held nodes, so their columns drop out. It
+// computes what AssembleConstant, FactorizeSum, ThetaRHS and Factor.Solve
+// compute on the bands (for gk nil, when A' is symmetric), without their
+// passes over the band storage. No allocation.
+//
+// A' is the derivative of the residual, Newton's matrix, but for the
+// secant's own change: the tangent capacity ct h/2 per node, θΔt g on the
+// flux, and with gk the change of the flux g (w_a − w_b) with k, whose
+// derivative by each node's u is −½ (w_a − w_b) gk/h. That term makes A'
+// unsymmetric; it is held within ±θΔt g, so that the off-diagonal stays
+// ≤ 0 and every column sums to its capacity (> 0): A' stays an M-matrix,
+// its pivots positive, and only the speed of convergence where it is held
+// differs from Newton's.
 func (nl *nonlinear) solveLumped(theta, dt float64, ds []float64) error {
 	tr := nl.tr
 	c0, c1 := (1-theta)*dt, theta*dt
-	d, l, r := nl.au, nl.lw, nl.rhs // A': diagonal, then inverse pivots; off-diagonal, then L; residual
-	d[0], r[0] = 0, 0               // every later entry is first written by its element's loop
+	ne := len(nl.half)
+	half, invH := nl.half[:ne], nl.invH[:ne]
+	cm, ct, cc := nl.cm[:ne], nl.ct[:ne], nl.cc[:ne]
+	u0, u1 := nl.u0[:ne+1], nl.u1[:ne+1]
+	// A': diagonal, then inverse pivots; lower off-diagonal, then L;
+	// upper, then D⁻¹ U (the lower's own storage when A' is symmetric);
+	// residual, then r.
+	d, l, r := nl.au[:ne+1], nl.lw[:ne+1], nl.rhs[:ne+1]
+	up, gk := l, nl.gk
+	if gk != nil {
+		up, gk = nl.uw[:ne+1], gk[:ne]
+	}
 	// Element e, nodes a = e and b = e+1: its secant capacity cm h/2 times
-	// each node's change u⁰ + Δσ − u, and its flux g (w_a − w_b) with
+	// each node's change u⁰ + Δσ − u, and its flux f = g (w_a − w_b) with
 	// g = cc/h and w = (1−θ)Δt u⁰ + θΔt u, which leaves a and enters b.
-	// A' takes the tangent capacity ct h/2 and θΔt g.
-	va := nl.u0[0] - nl.u1[0]
+	// The entries of node b carry over to the next element in registers.
+	va := u0[0] - u1[0]
 	if ds != nil {
+		ds = ds[:ne+1]
 		va += ds[0]
 	}
-	wa := c0*nl.u0[0] + c1*nl.u1[0]
-	for e, hh := range nl.half {
-		vb := nl.u0[e+1] - nl.u1[e+1]
+	wa := c0*u0[0] + c1*u1[0]
+	dn, rn := 0.0, 0.0
+	for e, hh := range half {
+		vb := u0[e+1] - u1[e+1]
 		if ds != nil {
 			vb += ds[e+1]
 		}
-		wb := c0*nl.u0[e+1] + c1*nl.u1[e+1]
-		g := nl.cc[e] * nl.invH[e]
+		wb := c0*u0[e+1] + c1*u1[e+1]
+		g := cc[e] * invH[e]
 		f := g * (wa - wb)
-		ms := nl.cm[e] * hh
-		r[e] += ms*va - f
-		r[e+1] = ms*vb + f
-		a := nl.ct[e]*hh + c1*g
-		d[e] += a
-		d[e+1] = a
-		l[e] = -c1 * g
+		ms := cm[e] * hh
+		r[e] = rn + ms*va - f
+		rn = ms*vb + f
+		a := ct[e]*hh + c1*g
+		off, sk := c1*g, 0.0
+		if gk != nil {
+			// Comparisons rather than min and max (see clampK).
+			if sk = 0.5 * (wa - wb) * gk[e] * invH[e]; sk > off {
+				sk = off
+			} else if sk < -off {
+				sk = -off
+			}
+		}
+		d[e] = dn + a - sk
+		dn = a + sk
+		l[e] = sk - off
+		up[e] = -sk - off
 		va, wa = vb, wb
 	}
+	d[ne], r[ne] = dn, rn
 	// A leaky end passes (u − 0)/(γw R) out: θΔt of it on A', the flux of
 	// w on the residual. A draining layer's node keeps u = 0: its row is
 	// the identity and its update zero.
 	if a := tr.leakTop; a > 0 {
 		d[0] += c1 * a
-		r[0] -= a * (c0*nl.u0[0] + c1*nl.u1[0])
+		r[0] -= a * (c0*u0[0] + c1*u1[0])
 	}
-	if a, j := tr.leakBottom, len(nl.half); a > 0 {
-		d[j] += c1 * a
-		r[j] -= a * (c0*nl.u0[j] + c1*nl.u1[j])
+	if a := tr.leakBottom; a > 0 {
+		d[ne] += c1 * a
+		r[ne] -= a * (c0*u0[ne] + c1*u1[ne])
 	}
 	for _, j := range tr.pinned {
 		d[j], r[j] = 1, 0
 		if j > 0 {
-			l[j-1] = 0
+			l[j-1], up[j-1] = 0, 0
 		}
-		if j < len(nl.half) {
-			l[j] = 0
+		if j < ne {
+			l[j], up[j] = 0, 0
 		}
 	}
-	// A' = L D Lᵀ on the free rows, L y = r, then Lᵀ x = D⁻¹ y. The
-	// pivots come first, alone: each waits on the last, so they are taken
-	// as ratios of the leading principal minors, P_i = d_i P_{i−1} −
-	// l²_{i−1} P_{i−2}, pivot_i = P_i/P_{i−1} (a recurrence of products,
-	// its division off the chain), with P rescaled by 2^±500 (exactly)
-	// when it leaves [2^−500, 2^500]. The multipliers and the forward
-	// substitution, which do not feed the pivots, follow in a second pass.
+	// A' = L U on the free rows, L y = r, then U x = y. The pivots come
+	// first, alone: each waits on the last, so they are taken as ratios of
+	// the leading principal minors, P_i = d_i P_{i−1} − l_{i−1} u_{i−1}
+	// P_{i−2}, pivot_i = P_i/P_{i−1} (a recurrence of products, its
+	// division off the chain), with P rescaled by 2^±500 (exactly) when it
+	// leaves [2^−500, 2^500]. The multipliers and the forward substitution,
+	// which do not feed the pivots, follow in a second pass; each
+	// substitution carries its last value in a register.
 	lo, hi := tr.lo, tr.hi
-	if lo < hi {
-		pm2, pm1 := 1.0, d[lo]
-		for i := lo + 1; i < hi; i++ {
-			p := d[i]*pm1 - l[i-1]*l[i-1]*pm2
-			d[i] = p / pm1
-			pm2, pm1 = pm1, p
-			if a := math.Abs(p); a > 0x1p500 {
-				pm2, pm1 = pm2*0x1p-500, pm1*0x1p-500
-			} else if a < 0x1p-500 {
-				pm2, pm1 = pm2*0x1p500, pm1*0x1p500
-			}
+	if lo >= hi {
+		return nil
+	}
+	n := hi - lo // the free rows, from 0
+	dd, ll, uu, rr := d[lo:hi], l[lo:hi][:n], up[lo:hi][:n], r[lo:hi][:n]
+	pm2, pm1 := 1.0, dd[0]
+	for i := 1; i < n; i++ {
+		p := dd[i]*pm1 - ll[i-1]*uu[i-1]*pm2
+		dd[i] = p / pm1
+		pm2, pm1 = pm1, p
+		if a := math.Abs(p); a > 0x1p500 {
+			pm2, pm1 = pm2*0x1p-500, pm1*0x1p-500
+		} else if a < 0x1p-500 {
+			pm2, pm1 = pm2*0x1p500, pm1*0x1p500
 		}
 	}
-	inv := 0.0 // 1/pivot of the row before
-	for i := lo; i < hi; i++ {
-		piv := d[i]
+	inv, y := 0.0, 0.0 // 1/pivot and y of the row before
+	for i, piv := range dd {
 		if !(piv > 0 && piv <= math.MaxFloat64) { // positive and finite
-			return &fem.NotDefiniteError{Node: i, Pivot: piv}
+			return &fem.NotDefiniteError{Node: lo + i, Pivot: piv}
 		}
-		if i > lo {
-			m := l[i-1] * inv
-			r[i] -= m * r[i-1]
-			l[i-1] = m
+		if i > 0 {
+			// Both read before either is written: up may be l.
+			m, v := ll[i-1]*inv, uu[i-1]*inv
+			ll[i-1], uu[i-1] = m, v
+			y = rr[i] - m*y
+		} else {
+			y = rr[i]
 		}
+		rr[i] = y
 		inv = 1 / piv
-		d[i] = inv
+		dd[i] = inv
 	}
-	for i := hi - 1; i >= lo; i-- {
-		r[i] *= d[i]
-		if i+1 < hi {
-			r[i] -= l[i] * r[i+1]
-		}
+	x := rr[n-1] * dd[n-1]
+	rr[n-1] = x
+	for i := n - 2; i >= 0; i-- {
+		x = rr[i]*dd[i] - uu[i]*x
+		rr[i] = x
 	}
 	return nil
 }
 
-// commit moves every element to the effective stress of the nodal fields.
+// commit moves every element to the effective stress of the nodal
+// fields, its slices taken once as in coefficients.
 func (nl *nonlinear) commit(t float64, sigma, u []float64) {
-	for e := range nl.pts {
-		p := &nl.pts[e]
-		to := p.S0 + nl.mean(sigma, e) - nl.mean(u, e)
+	ne := len(nl.pts)
+	pts, curved := nl.pts, nl.curved[:ne]
+	k0, ck, kExp := nl.k0[:ne], nl.ck[:ne], nl.kExp[:ne]
+	linear := nl.m.Order == 1
+	if linear {
+		sigma, u = sigma[:ne+1], u[:ne+1]
+	}
+	for e := range pts {
+		p := &pts[e]
+		var to float64
+		if linear { // nl.mean, inlined
+			to = p.S0 + (sigma[e]+sigma[e+1])/2 - (u[e]+u[e+1])/2
+		} else {
+			to = p.S0 + nl.mean(sigma, e) - nl.mean(u, e)
+		}
 		if to < 0 && math.IsNaN(nl.negativeAt) && !nl.tr.c.isDug(e) {
 			_, z0, z1 := nl.m.Span(e)
 			nl.negativeAt, nl.negativeT = (z0+z1)/2, t
 		}
-		if nl.curved[e] {
+		if curved[e] {
 			de := p.MoveTo(to)
-			if nl.ck[e] > 0 {
-				nl.k0[e] = nl.clampK(nl.k0[e] * soil.Exp(nl.kExp[e]*de)) // soil.PermeabilityAfter
+			if ck[e] > 0 {
+				y := kExp[e] * de
+				x, ok := soil.ExpSmall(y) // soil.Exp, in line
+				if !ok {
+					x = math.Exp(y)
+				}
+				k0[e] = nl.clampK(k0[e] * x) // soil.PermeabilityAfter
 			}
 			continue
 		}

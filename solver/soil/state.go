@@ -32,13 +32,21 @@ func PermeabilityAfter(k, de, ck float64) float64 {
 // y⁶/720 < 2e-15 relative): the time loop evaluates it for every element
 // and iteration, mostly at small arguments.
 func Exp(y float64) float64 {
-	if y > -1e-4 && y < 1e-4 {
-		return 1 + y*(1+y*(0.5+y*(1.0/6))) // remainder below y⁴/24 < 5e-18
-	}
-	if y > -1e-2 && y < 1e-2 {
-		return 1 + y*(1+y*(0.5+y*(1.0/6+y*(1.0/24+y*(1.0/120)))))
+	if v, ok := ExpSmall(y); ok {
+		return v
 	}
 	return math.Exp(y)
+}
+
+// ExpSmall is Exp where |y| < 1e-2, with ok true there; elsewhere ok is
+// false and v meaningless. Free of calls, it is inlined where Exp is not:
+// a loop that calls math.Exp itself when ok is false keeps the small
+// arguments in line.
+func ExpSmall(y float64) (v float64, ok bool) {
+	if y > -1e-4 && y < 1e-4 {
+		return 1 + y*(1+y*(0.5+y*(1.0/6))), true // remainder below y⁴/24 < 5e-18
+	}
+	return 1 + y*(1+y*(0.5+y*(1.0/6+y*(1.0/24+y*(1.0/120))))), y > -1e-2 && y < 1e-2
 }
 
 // LinearCompress is Compress for a soil with a constant coefficient of

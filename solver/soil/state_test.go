@@ -74,6 +74,12 @@ func TestSeriesAgainstMath(t *testing.T) {
 		if got, want := Exp(y), math.Exp(y); math.Abs(got-want) > 2e-15*want {
 			t.Errorf("Exp(%g) = %.17g, math.Exp %.17g", y, got, want)
 		}
+		// ExpSmall, the series in line, claims exactly |y| < 1e-2 and
+		// there agrees with Exp to the bit.
+		v, ok := ExpSmall(y)
+		if ok != (math.Abs(y) < 1e-2) || ok && v != Exp(y) {
+			t.Errorf("ExpSmall(%g) = %.17g, %v; Exp %.17g", y, v, ok, Exp(y))
+		}
 	}
 	for _, rel := range []float64{1e-12, -1e-9, 5e-5, -2e-4, 3e-3, -9.99e-3, 9.99e-3, 1.01e-2, -0.05, 0.5} {
 		p := NewPoint(Curve{E0: 1, Cc: 0.5, Cr: 0.05}, 1, 37.3, 37.3)
