@@ -163,7 +163,7 @@ func TestBrowserBench(t *testing.T) {
 	}
 	onNewDocument(t, ctx, firstPlotProbe)
 	within(t, ctx, 60*time.Second, chromedp.Navigate(pageURL))
-	poll[bool](t, ctx, `!!window.__bench.frame && (document.getElementById("status").textContent.includes("up to date") && !document.querySelector("#results[aria-busy=true]"))`, 60*time.Second)
+	poll[bool](t, ctx, `!!window.__bench.frame && `+upToDate, 60*time.Second)
 
 	t.Run("edit to plot", func(t *testing.T) {
 		eval[chromedp.Void](t, ctx, editProbe)
@@ -176,12 +176,12 @@ func TestBrowserBench(t *testing.T) {
 		// The same edits with the consolidation model switched to the
 		// iterated e–log laws (every demo layer has a curve).
 		setSelect(t, ctx, "model", "nonlinear")
-		poll[bool](t, ctx, `(document.getElementById("status").textContent.includes("up to date") && !document.querySelector("#results[aria-busy=true]")) && document.getElementById("sum-t50").closest("tr").textContent.includes("non-linear")`, 60*time.Second)
+		poll[bool](t, ctx, upToDate+` && document.getElementById("sum-t50").closest("tr").textContent.includes("non-linear")`, 60*time.Second)
 		time.Sleep(500 * time.Millisecond)
 		_, without, rest := editsToPlot(t, ctx, "non-linear")
 		b.EditToPlotNonlinearNoDebounceMs, b.EditToRestNonlinearMs = median(without), median(rest)
 		setSelect(t, ctx, "model", "linear")
-		poll[bool](t, ctx, `(document.getElementById("status").textContent.includes("up to date") && !document.querySelector("#results[aria-busy=true]"))`, 60*time.Second)
+		poll[bool](t, ctx, upToDate, 60*time.Second)
 	})
 
 	t.Run("typing", func(t *testing.T) {
@@ -413,7 +413,7 @@ func benchTyping(t *testing.T, ctx context.Context) (medianMs, maxMs float64) {
 			}
 		}
 		// let the solve of the last value finish before the next round
-		poll[bool](t, ctx, `(document.getElementById("status").textContent.includes("up to date") && !document.querySelector("#results[aria-busy=true]"))`, 30*time.Second)
+		poll[bool](t, ctx, upToDate, 30*time.Second)
 	}
 	t.Logf("%d keystrokes: input event → next frame painted median %.1f ms (min %.1f, max %.1f)",
 		len(all), median(all), slices.Min(all), slices.Max(all))
@@ -474,7 +474,7 @@ func benchPaste(t *testing.T, ctx context.Context) (pasteMs, insertMs float64) {
 		default:
 			pastes = append(pastes, p+u)
 		}
-		poll[bool](t, ctx, `(document.getElementById("status").textContent.includes("up to date") && !document.querySelector("#results[aria-busy=true]"))`, 30*time.Second)
+		poll[bool](t, ctx, upToDate, 30*time.Second)
 	}
 	t.Logf("500 readings pasted and used: median %.0f ms (min %.0f, max %.0f); inserted as text and used: median %.0f ms (min %.0f, max %.0f)",
 		median(pastes), slices.Min(pastes), slices.Max(pastes), median(inserts), slices.Min(inserts), slices.Max(inserts))

@@ -24,7 +24,7 @@ import (
 // nothing goes to the network or the console.
 func TestE2EDrains(t *testing.T) {
 	pageURL, demo := builtPage(t)
-	ctx, rec, shots := openAt(t, pageURL, "porelight-e2e-drains-", `!!document.getElementById("sum-flux")?.dataset.value && !document.querySelector("#results[aria-busy=true]")`)
+	ctx, rec, shots := openAt(t, pageURL, "porelight-e2e-drains-", `!!document.getElementById("sum-flux")?.dataset.value && `+figuresDrawn)
 	eval[chromedp.Void](t, ctx, `document.getElementById("drains-on").click()`)
 	poll[bool](t, ctx, `!!document.getElementById("sum-drains-0")`, 45*time.Second)
 

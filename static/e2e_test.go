@@ -35,6 +35,15 @@ import (
 
 const pagePath = "build/porelight.html"
 
+// figuresDrawn holds in the page once every figure is drawn from the last
+// results: figures out of view follow those in view by a render, and
+// the results column says aria-busy meanwhile (ui/inview.go). upToDate
+// holds once the status says so and every figure is drawn.
+const (
+	figuresDrawn = `!document.querySelector("#results[aria-busy=true]")`
+	upToDate     = `(document.getElementById("status")?.textContent.includes("up to date") && ` + figuresDrawn + `)`
+)
+
 func required() bool { return os.Getenv("CI") != "" || os.Getenv("E2E") != "" }
 
 func findBrowser() string {
@@ -395,7 +404,7 @@ func TestE2EPage(t *testing.T) {
 	}
 
 	// The demo renders: results, then a plot with drawn curves.
-	poll[bool](t, ctx, `!!document.getElementById("sum-flux")?.dataset.value && !document.querySelector("#results[aria-busy=true]")`, 45*time.Second)
+	poll[bool](t, ctx, `!!document.getElementById("sum-flux")?.dataset.value && `+figuresDrawn, 45*time.Second)
 	decodeMs := eval[float64](t, ctx, `performance.getEntriesByName("porelight: decode program text")[0]?.duration ?? -1`)
 	if decodeMs < 0 {
 		t.Error("the boot script measured no decoding of the program text")
@@ -446,7 +455,7 @@ func TestE2EPage(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		poll[bool](t, ctx, `(document.getElementById("status").textContent.includes("up to date") && !document.querySelector("#results[aria-busy=true]"))`, 20*time.Second)
+		poll[bool](t, ctx, upToDate, 20*time.Second)
 		if got := dataValue(t, ctx, "sum-flux"); !near(got, want.Summary.Flux, 1e-9) {
 			t.Errorf("flux after the edit %g, natively %g", got, want.Summary.Flux)
 		}
@@ -455,7 +464,7 @@ func TestE2EPage(t *testing.T) {
 	t.Run("a wrong value keeps the results", func(t *testing.T) {
 		// No solve may be under way when the figure to keep is read (on a
 		// loaded machine the last edit's solve can still be running).
-		poll[bool](t, ctx, `(document.getElementById("status").textContent.includes("up to date") && !document.querySelector("#results[aria-busy=true]"))`, 20*time.Second)
+		poll[bool](t, ctx, upToDate, 20*time.Second)
 		before := dataValue(t, ctx, "sum-flux")
 		typeInto(t, ctx, "layers-1-thickness", "4,5m")
 		msg := poll[string](t, ctx, `document.getElementById("layers-1-thickness-err")?.textContent`, 10*time.Second)
@@ -559,7 +568,7 @@ func TestE2EPage(t *testing.T) {
 		}
 		k := eval[string](t, ctx, `document.getElementById("layers-1-k").value`)
 		within(t, ctx, 60*time.Second, chromedp.Navigate("about:blank"), chromedp.Navigate(link))
-		poll[bool](t, ctx, `!!document.getElementById("sum-flux")?.dataset.value && !document.querySelector("#results[aria-busy=true]")`, 45*time.Second)
+		poll[bool](t, ctx, `!!document.getElementById("sum-flux")?.dataset.value && `+figuresDrawn, 45*time.Second)
 		if got := eval[string](t, ctx, `document.getElementById("notices").textContent`); !strings.Contains(got, "from the link") {
 			t.Errorf("notices %q", got)
 		}
@@ -575,11 +584,11 @@ func TestE2EPage(t *testing.T) {
 		// Choose a strip for stage 1 and type its width as a user would:
 		// the page solves it as the native solver does, and draws the
 		// section sketch and the added stress beside the layers.
-		poll[bool](t, ctx, `(document.getElementById("status").textContent.includes("up to date") && !document.querySelector("#results[aria-busy=true]"))`, 20*time.Second)
+		poll[bool](t, ctx, upToDate, 20*time.Second)
 		eval[chromedp.Void](t, ctx, `(() => { const s = document.getElementById("loads-0-areakind"); s.value = "strip"; s.dispatchEvent(new Event("change", {bubbles: true})); })()`)
 		poll[bool](t, ctx, `!!document.getElementById("loads-0-area-width")`, 10*time.Second)
 		typeInto(t, ctx, "loads-0-area-width", "8")
-		poll[bool](t, ctx, `(document.getElementById("status").textContent.includes("up to date") && !document.querySelector("#results[aria-busy=true]")) && document.getElementById("loads-0-area-width").value === "8"`, 20*time.Second)
+		poll[bool](t, ctx, upToDate+` && document.getElementById("loads-0-area-width").value === "8"`, 20*time.Second)
 		p := mustDecode(t, []byte(eval[string](t, ctx, `porelight.demo()`)))
 		p.Loads[0].Area = &solver.Area{Shape: "strip", Width: 8}
 		want, err := solver.Solve(p, nil)
@@ -686,7 +695,7 @@ func TestE2EMonitoring(t *testing.T) {
 	rec := &recorder{}
 	ctx := browser(t, rec)
 	within(t, ctx, 60*time.Second, chromedp.Navigate("file://"+abs))
-	poll[bool](t, ctx, `!!document.getElementById("sum-flux")?.dataset.value && !document.querySelector("#results[aria-busy=true]")`, 45*time.Second)
+	poll[bool](t, ctx, `!!document.getElementById("sum-flux")?.dataset.value && `+figuresDrawn, 45*time.Second)
 
 	// Each plate is a legend entry and a path of marks, one per reading
 	// after day 0 (a log time axis has no day 0).

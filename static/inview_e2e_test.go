@@ -34,7 +34,7 @@ func TestE2EInViewFirst(t *testing.T) {
 	if err := json.Unmarshal(raw, &tc); err != nil {
 		t.Fatal(err)
 	}
-	ctx, rec, _ := openAt(t, pageURL+fragment(t, tc.Project), "inview", `(document.getElementById("status")?.textContent.includes("up to date") && !document.querySelector("#results[aria-busy=true]"))`)
+	ctx, rec, _ := openAt(t, pageURL+fragment(t, tc.Project), "inview", upToDate)
 	if title := eval[string](t, ctx, `document.getElementById("title").value`); !strings.HasPrefix(title, "Reference") {
 		t.Fatalf("the page opened %q, not the reference project", title)
 	}
@@ -65,7 +65,7 @@ func TestE2EInViewFirst(t *testing.T) {
 	}
 	seen, far := body("plot-isochrones"), body(last)
 	paste(t, ctx, "layers-0-k", "4.4e-9")
-	poll[bool](t, ctx, fmt.Sprintf(`document.getElementById("plot-isochrones").innerHTML !== %q && (document.getElementById("status").textContent.includes("up to date") && !document.querySelector("#results[aria-busy=true]"))`, seen), 20*time.Second)
+	poll[bool](t, ctx, fmt.Sprintf(`document.getElementById("plot-isochrones").innerHTML !== %q && `+upToDate, seen), 20*time.Second)
 	// Drawn by the render after the paint, with nothing else happening.
 	poll[bool](t, ctx, fmt.Sprintf(`document.getElementById(%q).innerHTML !== %q`, last, far), 10*time.Second)
 	drawn := eval[[][]string](t, ctx, `window.__drawn`)

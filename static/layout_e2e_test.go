@@ -60,7 +60,7 @@ func TestE2ELayout(t *testing.T) {
 	pageURL, _ := builtPage(t)
 	ctx := browser(t, &recorder{})
 	within(t, ctx, 60*time.Second, chromedp.Navigate(pageURL))
-	poll[bool](t, ctx, `(!!(document.getElementById("status")?.textContent.includes("up to date") && !document.querySelector("#results[aria-busy=true]")) && !document.querySelector("#results[aria-busy=true]"))`, 60*time.Second)
+	poll[bool](t, ctx, upToDate, 60*time.Second)
 	shots := t.TempDir()
 	for _, vp := range []struct {
 		w, h     int64
@@ -121,5 +121,5 @@ func TestE2ELayout(t *testing.T) {
 	viewport(t, ctx, 400, 800)
 	before := eval[string](t, ctx, `document.getElementById("sum-flux").dataset.value`)
 	typeInto(t, ctx, "layers-0-thickness", "3.5")
-	poll[bool](t, ctx, fmt.Sprintf(`document.getElementById("sum-flux").dataset.value !== %q && (document.getElementById("status").textContent.includes("up to date") && !document.querySelector("#results[aria-busy=true]"))`, before), 30*time.Second)
+	poll[bool](t, ctx, fmt.Sprintf(`document.getElementById("sum-flux").dataset.value !== %q && `+upToDate, before), 30*time.Second)
 }

@@ -26,7 +26,7 @@ func TestE2EOptions(t *testing.T) {
 	rec := &recorder{}
 	ctx := browser(t, rec)
 	within(t, ctx, 60*time.Second, chromedp.Navigate(pageURL))
-	poll[bool](t, ctx, `!!document.getElementById("sum-flux")?.dataset.value && !document.querySelector("#results[aria-busy=true]")`, 45*time.Second)
+	poll[bool](t, ctx, `!!document.getElementById("sum-flux")?.dataset.value && `+figuresDrawn, 45*time.Second)
 	eval[chromedp.Void](t, ctx, `document.getElementById("options-add").click()`)
 	poll[bool](t, ctx, `!!document.getElementById("variants-0-loads-1-q")`, 10*time.Second)
 	typeInto(t, ctx, "variants-0-loads-1-q", "45")

@@ -36,7 +36,7 @@ func TestE2EPrintWidths(t *testing.T) {
 	pageURL, _ := builtPage(t)
 	ctx := browser(t, &recorder{})
 	within(t, ctx, 60*time.Second, chromedp.Navigate(pageURL))
-	poll[bool](t, ctx, `(!!(document.getElementById("status")?.textContent.includes("up to date") && !document.querySelector("#results[aria-busy=true]")) && !document.querySelector("#results[aria-busy=true]"))`, 60*time.Second)
+	poll[bool](t, ctx, upToDate, 60*time.Second)
 	for _, id := range []string{"tables-toggle", "records-toggle", "asaoka-plots-toggle"} {
 		eval[chromedp.Void](t, ctx, fmt.Sprintf(`document.getElementById(%q).click()`, id))
 	}

@@ -375,7 +375,7 @@ func TestE2EReliability(t *testing.T) {
 		for _, id := range typed {
 			paste(t, ctx, id, evil)
 		}
-		poll[bool](t, ctx, `(document.getElementById("status").textContent.includes("up to date") && !document.querySelector("#results[aria-busy=true]"))`, 20*time.Second)
+		poll[bool](t, ctx, upToDate, 20*time.Second)
 		time.Sleep(300 * time.Millisecond)
 
 		if n := eval[int](t, ctx, markup); n != 0 {
@@ -466,7 +466,7 @@ func TestE2EReliability(t *testing.T) {
 				poll[bool](t, ctx, fmt.Sprintf(`!document.getElementById(%q)`, id+"-err"), 5*time.Second)
 			})
 		}
-		poll[bool](t, ctx, `(document.getElementById("status").textContent.includes("up to date") && !document.querySelector("#results[aria-busy=true]"))`, 20*time.Second)
+		poll[bool](t, ctx, upToDate, 20*time.Second)
 	})
 
 	t.Run("a long solve shows progress and can be cancelled", func(t *testing.T) {
@@ -519,7 +519,7 @@ func TestE2EReliability(t *testing.T) {
 		throttle(1)
 		screenshot(t, ctx, shots, "6-cancelled.png")
 		typeInto(t, ctx, "mesh-maxSize", "0.1")
-		poll[bool](t, ctx, `(document.getElementById("status").textContent.includes("up to date") && !document.querySelector("#results[aria-busy=true]"))`, 20*time.Second)
+		poll[bool](t, ctx, upToDate, 20*time.Second)
 	})
 
 	t.Run("1000 solves keep the heap bounded", func(t *testing.T) {

@@ -17,7 +17,7 @@ import (
 
 func TestE2ESame(t *testing.T) {
 	pageURL, _ := builtPage(t)
-	ctx, rec, _ := openAt(t, pageURL, "same", `(document.getElementById("status")?.textContent.includes("up to date") && !document.querySelector("#results[aria-busy=true]"))`)
+	ctx, rec, _ := openAt(t, pageURL, "same", upToDate)
 	// Attributes the page never sets, on a figure the keystroke leaves
 	// alone and on the input it changes.
 	eval[chromedp.Void](t, ctx, `document.getElementById("fig-isochrones").setAttribute("data-probe", "1");

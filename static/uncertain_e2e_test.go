@@ -37,7 +37,7 @@ const rangeProbe = `(() => {
 // and nothing goes to the network or the console.
 func TestE2ERange(t *testing.T) {
 	pageURL, _ := builtPage(t)
-	ctx, rec, shots := openAt(t, pageURL, "porelight-e2e-range-", `!!document.getElementById("sum-flux")?.dataset.value && !document.querySelector("#results[aria-busy=true]")`)
+	ctx, rec, shots := openAt(t, pageURL, "porelight-e2e-range-", `!!document.getElementById("sum-flux")?.dataset.value && `+figuresDrawn)
 	eval[chromedp.Void](t, ctx, `document.getElementById("range-on").click()`)
 	poll[bool](t, ctx, `!!document.getElementById("uncertainty-runs")`, 10*time.Second)
 	typeInto(t, ctx, "uncertainty-layers-1-k", "-3")

@@ -103,7 +103,7 @@ func TestE2EWorker(t *testing.T) {
 	ctx := browser(t, rec)
 	intercept(t, ctx)
 	open(t, ctx, pageURL)
-	poll[bool](t, ctx, `(document.getElementById("status").textContent.includes("up to date") && !document.querySelector("#results[aria-busy=true]"))`, 45*time.Second)
+	poll[bool](t, ctx, upToDate, 45*time.Second)
 
 	t.Run("the page solves in a worker", func(t *testing.T) {
 		s := stats(t, ctx)
@@ -115,7 +115,7 @@ func TestE2EWorker(t *testing.T) {
 		}
 		before := s.Calls
 		typeInto(t, ctx, "layers-1-k", "6e-9")
-		poll[bool](t, ctx, `(document.getElementById("status").textContent.includes("up to date") && !document.querySelector("#results[aria-busy=true]")) && porelightWorkers.stats().calls > `+strconv.Itoa(before), 20*time.Second)
+		poll[bool](t, ctx, upToDate+` && porelightWorkers.stats().calls > `+strconv.Itoa(before), 20*time.Second)
 		p := mustDecode(t, demo)
 		p.Layers[1].K = 6e-9
 		want, err := solver.Solve(p, nil)
@@ -241,7 +241,7 @@ func TestE2EWorker(t *testing.T) {
 
 		// The next edit solves in the fresh worker.
 		typeInto(t, ctx, "layers-1-k", "5e-9")
-		poll[bool](t, ctx, `(document.getElementById("status").textContent.includes("up to date") && !document.querySelector("#results[aria-busy=true]"))`, 30*time.Second)
+		poll[bool](t, ctx, upToDate, 30*time.Second)
 		p := mustDecode(t, demo)
 		p.Layers[1].K = 5e-9
 		want, err := solver.Solve(p, nil)
