@@ -8631,7 +8631,7 @@ func (c *Root) Build(vgin *vugu.BuildIn) (vgout *vugu.BuildOut) {
 				vgparent.AppendChild(vgn)
 				vgn = &vugu.VGNode{Type: vugu.VGNodeType(3), Namespace: "", Data: "div", Attr: []vugu.VGAttribute{{Namespace: "", Key: "id", Val: "results"}, vugu.VGAttribute{Namespace: "", Key: "class", Val: "pl-results"}}}
 				vgparent.AppendChild(vgn)
-				vgn.AddAttrInterface("aria-busy", c.drawingText())
+				vgn.AddAttrInterface("aria-busy", fmt.Sprint(c.drawing))
 				{
 					vgparent := vgn
 					_ = vgparent

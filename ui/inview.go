@@ -27,15 +27,6 @@ func (c *Root) Compute() {
 	plot.KeepOutside(func(id string) bool { return !s.InView(id) })
 }
 
-// drawingText is the results' aria-busy: "true" while figures out of
-// view wait for the render after the paint.
-func (c *Root) drawingText() string {
-	if c.drawing {
-		return "true"
-	}
-	return "false"
-}
-
 // drawRest renders the page again, from a browser callback after the
 // render that left figures out of view as they were.
 func (c *Root) drawRest() {
