@@ -70,17 +70,16 @@ type nonlinear struct {
 	f          fem.Factor
 	u0, u1     []float64
 	rhs        []float64
-	au         []float64 // A(u) u of the iterate (lumped: the pivots)
-	lw         []float64 // lumped: the off-diagonal of A', then of L
-	uw         []float64 // lumped with gk: the upper off-diagonal of A', then of D⁻¹U
-	gk         []float64 // lumped: d(k/γw)/dσ' at the iterate (nil: k constant, or drains)
-	half, invH []float64 // lumped: per element h/2 and 1/h
-	du, du2    []float64 // the change of u over the last step and the one before
-	du3        []float64 // and the one before that
-	r0         []float64 // the last iteration's update
-	lastDt     float64   // the last step's length (0: no step to extrapolate from)
-	lastDt2    float64   // the one before (0: none)
-	lastDt3    float64   // and the one before that (0: none)
+	au         []float64   // A(u) u of the iterate (the band path)
+	rows       []lumpedRow // lumped: A' and the residual, then their factors
+	gk         []float64   // lumped: d(k/γw)/dσ' at the iterate (nil: k constant, or drains)
+	spans      []span      // lumped: per element h/2 and 1/h
+	du, du2    []float64   // the change of u over the last step and the one before
+	du3        []float64   // and the one before that
+	r0         []float64   // the last iteration's update
+	lastDt     float64     // the last step's length (0: no step to extrapolate from)
+	lastDt2    float64     // the one before (0: none)
+	lastDt3    float64     // and the one before that (0: none)
 
 	// Statistics.
 	iterations, steps int
@@ -103,6 +102,17 @@ type curveLaw struct {
 	kExp  float64 // −ln 10/Ck where Ck > 0, else 0 (k constant)
 	kq    float64 // kExp (1+e0), for gk
 }
+
+// span is an element's h/2 and 1/h, and lumpedRow a row of the
+// tridiagonal A' of solveLumped with its residual: the diagonal, then the
+// inverse pivot; the lower off-diagonal (the entry below the diagonal,
+// in the next row), then L's multiplier; the upper, then D⁻¹U's; the
+// residual, then y of L y = r. Side by side for the reason curveLaw
+// gives.
+type (
+	span      struct{ half, inv float64 }
+	lumpedRow struct{ d, l, u, r float64 }
+)
 
 // newNonlinear sets up the element laws: an e–log curve where curvedLaw
 // says so (sharing the points, which the iteration then moves), else the
@@ -151,11 +161,11 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 	nl.u0, nl.u1, nl.rhs, nl.du, nl.r0 = make([]float64, n), make([]float64, n), make([]float64, n), make([]float64, n), make([]float64, n)
 	nl.du2, nl.du3, nl.au = make([]float64, n), make([]float64, n), make([]float64, n)
 	if nl.lumped {
-		nl.lw, nl.uw, nl.half, nl.invH = make([]float64, n), make([]float64, n), f(), f()
+		nl.rows, nl.spans = make([]lumpedRow, n), make([]span, ne)
 		nl.gk = f()
 		for e := range ne {
 			h := m.Z[e+1] - m.Z[e]
-			nl.half[e], nl.invH[e] = h/2, 1/h
+			nl.spans[e] = span{half: h / 2, inv: 1 / h}
 		}
 	}
 	nl.sink = newIteratedSink(tr, mvs, nl.lumped)
@@ -518,17 +528,15 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 func (nl *nonlinear) solveLumped(theta, dt float64, ds []float64) error {
 	tr := nl.tr
 	c0, c1 := (1-theta)*dt, theta*dt
-	ne := len(nl.half)
-	half, invH := nl.half[:ne], nl.invH[:ne]
+	ne := len(nl.spans)
+	spans := nl.spans[:ne]
 	cm, ct, cc := nl.cm[:ne], nl.ct[:ne], nl.cc[:ne]
 	u0, u1 := nl.u0[:ne+1], nl.u1[:ne+1]
-	// A': diagonal, then inverse pivots; lower off-diagonal, then L;
-	// upper, then D⁻¹ U (the lower's own storage when A' is symmetric);
-	// residual, then r.
-	d, l, r := nl.au[:ne+1], nl.lw[:ne+1], nl.rhs[:ne+1]
-	up, gk := l, nl.gk
+	// A' and the residual row by row (lumpedRow), and then their factors
+	// and the forward substitution in place; r goes to rhs.
+	rows, gk := nl.rows[:ne+1], nl.gk
 	if gk != nil {
-		up, gk = nl.uw[:ne+1], gk[:ne]
+		gk = gk[:ne]
 	}
 	// Element e, nodes a = e and b = e+1: its secant capacity cm h/2 times
 	// each node's change u⁰ + Δσ − u, and its flux f = g (w_a − w_b) with
@@ -541,52 +549,53 @@ func (nl *nonlinear) solveLumped(theta, dt float64, ds []float64) error {
 	}
 	wa := c0*u0[0] + c1*u1[0]
 	dn, rn := 0.0, 0.0
-	for e, hh := range half {
+	for e := range spans {
+		sp, row := &spans[e], &rows[e]
 		vb := u0[e+1] - u1[e+1]
 		if ds != nil {
 			vb += ds[e+1]
 		}
 		wb := c0*u0[e+1] + c1*u1[e+1]
-		g := cc[e] * invH[e]
+		g := cc[e] * sp.inv
 		f := g * (wa - wb)
-		ms := cm[e] * hh
-		r[e] = rn + ms*va - f
+		ms := cm[e] * sp.half
+		row.r = rn + ms*va - f
 		rn = ms*vb + f
-		a := ct[e]*hh + c1*g
+		a := ct[e]*sp.half + c1*g
 		off, sk := c1*g, 0.0
 		if gk != nil {
 			// Comparisons rather than min and max (see clampK).
-			if sk = 0.5 * (wa - wb) * gk[e] * invH[e]; sk > off {
+			if sk = 0.5 * (wa - wb) * gk[e] * sp.inv; sk > off {
 				sk = off
 			} else if sk < -off {
 				sk = -off
 			}
 		}
-		d[e] = dn + a - sk
+		row.d = dn + a - sk
 		dn = a + sk
-		l[e] = sk - off
-		up[e] = -sk - off
+		row.l = sk - off
+		row.u = -sk - off
 		va, wa = vb, wb
 	}
-	d[ne], r[ne] = dn, rn
+	rows[ne].d, rows[ne].r = dn, rn
 	// A leaky end passes (u − 0)/(γw R) out: θΔt of it on A', the flux of
 	// w on the residual. A draining layer's node keeps u = 0: its row is
 	// the identity and its update zero.
 	if a := tr.leakTop; a > 0 {
-		d[0] += c1 * a
-		r[0] -= a * (c0*u0[0] + c1*u1[0])
+		rows[0].d += c1 * a
+		rows[0].r -= a * (c0*u0[0] + c1*u1[0])
 	}
 	if a := tr.leakBottom; a > 0 {
-		d[ne] += c1 * a
-		r[ne] -= a * (c0*u0[ne] + c1*u1[ne])
+		rows[ne].d += c1 * a
+		rows[ne].r -= a * (c0*u0[ne] + c1*u1[ne])
 	}
 	for _, j := range tr.pinned {
-		d[j], r[j] = 1, 0
+		rows[j].d, rows[j].r = 1, 0
 		if j > 0 {
-			l[j-1], up[j-1] = 0, 0
+			rows[j-1].l, rows[j-1].u = 0, 0
 		}
 		if j < ne {
-			l[j], up[j] = 0, 0
+			rows[j].l, rows[j].u = 0, 0
 		}
 	}
 	// A' = L U on the free rows, L y = r, then U x = y. The pivots come
@@ -602,11 +611,11 @@ func (nl *nonlinear) solveLumped(theta, dt float64, ds []float64) error {
 		return nil
 	}
 	n := hi - lo // the free rows, from 0
-	dd, ll, uu, rr := d[lo:hi], l[lo:hi][:n], up[lo:hi][:n], r[lo:hi][:n]
-	pm2, pm1 := 1.0, dd[0]
+	rr, x := rows[lo:hi], nl.rhs[lo:hi][:n]
+	pm2, pm1 := 1.0, rr[0].d
 	for i := 1; i < n; i++ {
-		p := dd[i]*pm1 - ll[i-1]*uu[i-1]*pm2
-		dd[i] = p / pm1
+		p := rr[i].d*pm1 - rr[i-1].l*rr[i-1].u*pm2
+		rr[i].d = p / pm1
 		pm2, pm1 = pm1, p
 		if a := math.Abs(p); a > 0x1p500 {
 			pm2, pm1 = pm2*0x1p-500, pm1*0x1p-500
@@ -615,27 +624,28 @@ func (nl *nonlinear) solveLumped(theta, dt float64, ds []float64) error {
 		}
 	}
 	inv, y := 0.0, 0.0 // 1/pivot and y of the row before
-	for i, piv := range dd {
-		if !(piv > 0 && piv <= math.MaxFloat64) { // positive and finite
+	for i := range rr {
+		row := &rr[i]
+		if piv := row.d; !(piv > 0 && piv <= math.MaxFloat64) { // positive and finite
 			return &fem.NotDefiniteError{Node: lo + i, Pivot: piv}
 		}
 		if i > 0 {
-			// Both read before either is written: up may be l.
-			m, v := ll[i-1]*inv, uu[i-1]*inv
-			ll[i-1], uu[i-1] = m, v
-			y = rr[i] - m*y
+			above := &rr[i-1]
+			m := above.l * inv
+			above.l, above.u = m, above.u*inv
+			y = row.r - m*y
 		} else {
-			y = rr[i]
+			y = row.r
 		}
-		rr[i] = y
-		inv = 1 / piv
-		dd[i] = inv
+		row.r = y
+		inv = 1 / row.d
+		row.d = inv
 	}
-	x := rr[n-1] * dd[n-1]
-	rr[n-1] = x
+	v := rr[n-1].r * rr[n-1].d
+	x[n-1] = v
 	for i := n - 2; i >= 0; i-- {
-		x = rr[i]*dd[i] - uu[i]*x
-		rr[i] = x
+		v = rr[i].r*rr[i].d - rr[i].u*v
+		x[i] = v
 	}
 	return nil
 }
