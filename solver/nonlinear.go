@@ -62,7 +62,6 @@ type nonlinear struct {
 	cm, cc  []float64  // the coefficients of the iterate: secant mv, k/γw
 	to, de  []float64  // scratch: effective stress of the iterate, compression of the move
 	law     []curveLaw // curved elements: the constants of the curve
-	kExp    []float64  // curved elements with Ck > 0: −ln 10/Ck (as in law, for commit)
 	ct      []float64  // lumped capacity: the tangent mv at the iterate (nil otherwise)
 
 	mass, cond *fem.Band
@@ -127,7 +126,7 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 	f := func() []float64 { return make([]float64, ne) }
 	nl.mv, nl.mvu, nl.sig, nl.peak, nl.strain = f(), f(), f(), f(), f()
 	nl.k0, nl.ck, nl.cm, nl.cc = f(), f(), f(), f()
-	nl.kExp, nl.to, nl.de = f(), f(), f()
+	nl.to, nl.de = f(), f()
 	nl.law = make([]curveLaw, ne)
 	for e := range ne {
 		l := &c.p.Layers[m.Layer[e]]
@@ -148,8 +147,8 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 			w.tanR = max(cu.Cr/(math.Ln10*(1+cu.E0)), w.floor)
 			w.tanC = max(cu.Cc/(math.Ln10*(1+cu.E0)), w.floor)
 			if nl.ck[e] > 0 {
-				nl.kExp[e] = -math.Ln10 / nl.ck[e]
-				w.kExp, w.kq = nl.kExp[e], nl.kExp[e]*(1+cu.E0)
+				w.kExp = -math.Ln10 / nl.ck[e]
+				w.kq = w.kExp * (1 + cu.E0)
 			}
 		}
 	}
@@ -658,7 +657,7 @@ func (nl *nonlinear) commit(t float64, sigma, u []float64) {
 	nl.meanStress(nl.to, sigma, u)
 	soil.Move(nl.de, nl.pts, nl.to, nl.curved)
 	pts, curved, tos, des := nl.pts, nl.curved[:ne], nl.to[:ne], nl.de[:ne]
-	k0, ck, kExp := nl.k0[:ne], nl.ck[:ne], nl.kExp[:ne]
+	k0, law := nl.k0[:ne], nl.law[:ne]
 	for e := range pts {
 		to := tos[e]
 		if to < 0 && math.IsNaN(nl.negativeAt) && !nl.tr.c.isDug(e) {
@@ -666,8 +665,8 @@ func (nl *nonlinear) commit(t float64, sigma, u []float64) {
 			nl.negativeAt, nl.negativeT = (z0+z1)/2, t
 		}
 		if curved[e] {
-			if ck[e] > 0 {
-				y := kExp[e] * des[e]
+			if kExp := law[e].kExp; kExp < 0 { // Ck > 0
+				y := kExp * des[e]
 				x, ok := soil.ExpSmall(y) // soil.Exp, in line
 				if !ok {
 					x = math.Exp(y)
@@ -713,7 +712,7 @@ func (nl *nonlinear) layerSettlements(dst []float64) {
 // then the final state) and returns each layer's final settlement, m: the
 // denominator of Us.
 func (nl *nonlinear) drained(bps []breakpoint, sigInf, uInf []float64, uAt func(dst []float64, t float64) []float64) []float64 {
-	cp := &nonlinear{tr: nl.tr, m: nl.m, curved: nl.curved, mv: nl.mv, mvu: nl.mvu, ck: nl.ck, kExp: nl.kExp, kLo: nl.kLo, kHi: nl.kHi,
+	cp := &nonlinear{tr: nl.tr, m: nl.m, curved: nl.curved, mv: nl.mv, mvu: nl.mvu, law: nl.law, kLo: nl.kLo, kHi: nl.kHi,
 		to: nl.to, de: nl.de, // scratch, written before it is read
 		k0:     append([]float64(nil), nl.k0...),
 		pts:    append([]soil.Point(nil), nl.pts...),
@@ -746,7 +745,7 @@ func (nl *nonlinear) projected(sigInf, uInf []float64) []float64 {
 // of the elements moved (its slices are reused from one call to the
 // next).
 func (nl *nonlinear) project(cp *nonlinear, sigInf, uInf, out []float64) {
-	*cp = nonlinear{tr: nl.tr, m: nl.m, curved: nl.curved, mv: nl.mv, mvu: nl.mvu, ck: nl.ck, kExp: nl.kExp, kLo: nl.kLo, kHi: nl.kHi,
+	*cp = nonlinear{tr: nl.tr, m: nl.m, curved: nl.curved, mv: nl.mv, mvu: nl.mvu, law: nl.law, kLo: nl.kLo, kHi: nl.kHi,
 		to: nl.to, de: nl.de, // scratch, written before it is read
 		k0:     append(cp.k0[:0], nl.k0...),
 		pts:    append(cp.pts[:0], nl.pts...),
