@@ -54,36 +54,31 @@ type nonlinear struct {
 	// Per element.
 	pts     []soil.Point // the e–log state (curved elements)
 	curved  []bool
-	mv, mvu []float64 // constant-mv law: loading and swelling mv
-	sig     []float64 // constant-mv law: effective stress now
-	peak    []float64 // constant-mv law: largest past effective stress
-	strain  []float64 // constant-mv law: settlement so far, m
-	k0, ck  []float64 // conductivity k/γw now, m²/(kPa·day), and Ck (0: constant)
-	cm, cc  []float64 // the coefficients of the iterate: secant mv, k/γw
-	inv     []float64 // curved elements: 1/(1+e0)
-	floor   []float64 // curved elements: the least mv·σ', 1e-6 Cc/(ln 10 (1+e0))
-	kExp    []float64 // curved elements with Ck > 0: −ln 10/Ck
-	kq      []float64 // and kExp (1+e0), for gk
-	ct      []float64 // lumped capacity: the tangent mv at the iterate (nil otherwise)
-	tanR    []float64 // curved elements: the tangent mv·σ' below σ'p, floored (Cr)
-	tanC    []float64 // and on the virgin line (Cc)
+	mv, mvu []float64  // constant-mv law: loading and swelling mv
+	sig     []float64  // constant-mv law: effective stress now
+	peak    []float64  // constant-mv law: largest past effective stress
+	strain  []float64  // constant-mv law: settlement so far, m
+	k0, ck  []float64  // conductivity k/γw now, m²/(kPa·day), and Ck (0: constant)
+	cm, cc  []float64  // the coefficients of the iterate: secant mv, k/γw
+	to, de  []float64  // scratch: effective stress of the iterate, compression of the move
+	law     []curveLaw // curved elements: the constants of the curve
+	ct      []float64  // lumped capacity: the tangent mv at the iterate (nil otherwise)
 
 	mass, cond *fem.Band
 	sink       *iteratedSink // the drains' radial sink on cond (nil: no drains)
 	f          fem.Factor
 	u0, u1     []float64
 	rhs        []float64
-	au         []float64 // A(u) u of the iterate (lumped: the pivots)
-	lw         []float64 // lumped: the off-diagonal of A', then of L
-	uw         []float64 // lumped with gk: the upper off-diagonal of A', then of D⁻¹U
-	gk         []float64 // lumped: d(k/γw)/dσ' at the iterate (nil: k constant, or drains)
-	half, invH []float64 // lumped: per element h/2 and 1/h
-	du, du2    []float64 // the change of u over the last step and the one before
-	du3        []float64 // and the one before that
-	r0         []float64 // the last iteration's update
-	lastDt     float64   // the last step's length (0: no step to extrapolate from)
-	lastDt2    float64   // the one before (0: none)
-	lastDt3    float64   // and the one before that (0: none)
+	au         []float64   // A(u) u of the iterate (the band path)
+	rows       []lumpedRow // lumped: A' and the residual, then their factors
+	gk         []float64   // lumped: d(k/γw)/dσ' at the iterate (nil: k constant, or drains)
+	spans      []span      // lumped: per element h/2 and 1/h
+	du, du2    []float64   // the change of u over the last step and the one before
+	du3        []float64   // and the one before that
+	r0         []float64   // the last iteration's update
+	lastDt     float64     // the last step's length (0: no step to extrapolate from)
+	lastDt2    float64     // the one before (0: none)
+	lastDt3    float64     // and the one before that (0: none)
 
 	// Statistics.
 	iterations, steps int
@@ -93,6 +88,30 @@ type nonlinear struct {
 	negativeAt        float64 // depth where σ' first fell below zero (NaN: never)
 	negativeT         float64
 }
+
+// curveLaw holds the constants of an element's e–log curve that
+// coefficients reads at every iteration, side by side: one slice where
+// six would each hold a register of the loop (or, short of registers,
+// be reloaded from the stack every element).
+type curveLaw struct {
+	inv   float64 // 1/(1+e0)
+	floor float64 // the least mv·σ', 1e-6 Cc/(ln 10 (1+e0))
+	tanR  float64 // the tangent mv·σ' below σ'p, floored (Cr)
+	tanC  float64 // and on the virgin line (Cc)
+	kExp  float64 // −ln 10/Ck where Ck > 0, else 0 (k constant)
+	kq    float64 // kExp (1+e0), for gk
+}
+
+// span is an element's h/2 and 1/h, and lumpedRow a row of the
+// tridiagonal A' of solveLumped with its residual: the diagonal, then the
+// inverse pivot; the lower off-diagonal (the entry below the diagonal,
+// in the next row), then L's multiplier; the upper, then D⁻¹U's; the
+// residual, then y of L y = r. Side by side for the reason curveLaw
+// gives.
+type (
+	span      struct{ half, inv float64 }
+	lumpedRow struct{ d, l, u, r float64 }
+)
 
 // newNonlinear sets up the element laws: an e–log curve where curvedLaw
 // says so (sharing the points, which the iteration then moves), else the
@@ -107,8 +126,8 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 	f := func() []float64 { return make([]float64, ne) }
 	nl.mv, nl.mvu, nl.sig, nl.peak, nl.strain = f(), f(), f(), f(), f()
 	nl.k0, nl.ck, nl.cm, nl.cc = f(), f(), f(), f()
-	nl.inv, nl.floor, nl.kExp, nl.tanR, nl.tanC = f(), f(), f(), f(), f()
-	nl.kq = f()
+	nl.to, nl.de = f(), f()
+	nl.law = make([]curveLaw, ne)
 	for e := range ne {
 		l := &c.p.Layers[m.Layer[e]]
 		nl.mv[e] = mvs[m.Layer[e]]
@@ -122,13 +141,14 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 		if curvedLaw[e] {
 			cu := pts[e].Curve
 			nl.ck[e] = l.ECurve.Ck
-			nl.inv[e] = 1 / (1 + cu.E0)
-			nl.floor[e] = 1e-6 * cu.Cc / (math.Ln10 * (1 + cu.E0))
-			nl.tanR[e] = max(cu.Cr/(math.Ln10*(1+cu.E0)), nl.floor[e])
-			nl.tanC[e] = max(cu.Cc/(math.Ln10*(1+cu.E0)), nl.floor[e])
+			w := &nl.law[e]
+			w.inv = 1 / (1 + cu.E0)
+			w.floor = 1e-6 * cu.Cc / (math.Ln10 * (1 + cu.E0))
+			w.tanR = max(cu.Cr/(math.Ln10*(1+cu.E0)), w.floor)
+			w.tanC = max(cu.Cc/(math.Ln10*(1+cu.E0)), w.floor)
 			if nl.ck[e] > 0 {
-				nl.kExp[e] = -math.Ln10 / nl.ck[e]
-				nl.kq[e] = nl.kExp[e] * (1 + cu.E0)
+				w.kExp = -math.Ln10 / nl.ck[e]
+				w.kq = w.kExp * (1 + cu.E0)
 			}
 		}
 	}
@@ -140,11 +160,11 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 	nl.u0, nl.u1, nl.rhs, nl.du, nl.r0 = make([]float64, n), make([]float64, n), make([]float64, n), make([]float64, n), make([]float64, n)
 	nl.du2, nl.du3, nl.au = make([]float64, n), make([]float64, n), make([]float64, n)
 	if nl.lumped {
-		nl.lw, nl.uw, nl.half, nl.invH = make([]float64, n), make([]float64, n), f(), f()
+		nl.rows, nl.spans = make([]lumpedRow, n), make([]span, ne)
 		nl.gk = f()
 		for e := range ne {
 			h := m.Z[e+1] - m.Z[e]
-			nl.half[e], nl.invH[e] = h/2, 1/h
+			nl.spans[e] = span{half: h / 2, inv: 1 / h}
 		}
 	}
 	nl.sink = newIteratedSink(tr, mvs, nl.lumped)
@@ -180,42 +200,55 @@ func (nl *nonlinear) mean(u []float64, e int) float64 {
 	return (u[e] + u[e+1]) / 2
 }
 
+// meanStress writes the effective stress of every element e at the
+// iterate, σ'0 + the mean of sigma − u over it (nl.mean), to to[e].
+func (nl *nonlinear) meanStress(to, sigma, u []float64) {
+	pts := nl.pts
+	to = to[:len(pts)]
+	if nl.m.Order != 1 {
+		for e := range pts {
+			to[e] = pts[e].S0 + nl.mean(sigma, e) - nl.mean(u, e)
+		}
+		return
+	}
+	sigma, u = sigma[:len(pts)+1], u[:len(pts)+1]
+	for e := range pts { // nl.mean, inlined
+		to[e] = pts[e].S0 + (sigma[e]+sigma[e+1])/2 - (u[e]+u[e+1])/2
+	}
+}
+
 // coefficients sets cm and cc for the iterate u (nodal excess) under the
 // nodal total stress change sigma: the secant mv from the committed state
 // to the iterate's effective stress, and k/γw at the θ-point. It runs for
 // every element at every iteration, so the constants of each element's
-// curve are taken from newNonlinear (inv, kExp) and a division is spent
-// only where a value needs it; the slices are taken once, at their
-// length, so that the loop reads them without reloading or checking.
+// curve are taken from newNonlinear (law), a division is spent only where
+// a value needs it, and the compressions come from one soil.Toward over
+// the column (a call per element would cost as much again); the slices
+// are taken once, at their length, and are few, so that the loop reads
+// them from registers without checking. (Measured on
+// BenchmarkSoftClayNonlinear, the curve's constants in one slice of
+// curveLaw rather than six took some 15 % off the solve.)
 func (nl *nonlinear) coefficients(theta float64, sigma, u []float64) {
 	ne := len(nl.cm)
-	pts, curved := nl.pts[:ne], nl.curved[:ne]
-	cm, cc, k0, ck := nl.cm[:ne], nl.cc[:ne], nl.k0[:ne], nl.ck[:ne]
-	inv, floor, kExp := nl.inv[:ne], nl.floor[:ne], nl.kExp[:ne]
-	ct, tanR, tanC := nl.ct, nl.tanR, nl.tanC
+	nl.meanStress(nl.to, sigma, u)
+	soil.Toward(nl.de, nl.pts, nl.to, nl.curved)
+	pts, curved, tos, des := nl.pts[:ne], nl.curved[:ne], nl.to[:ne], nl.de[:ne]
+	cm, cc, k0, law := nl.cm[:ne], nl.cc[:ne], nl.k0[:ne], nl.law[:ne]
+	ct, gk := nl.ct, nl.gk
 	if ct != nil {
-		ct, tanR, tanC = ct[:ne], tanR[:ne], tanC[:ne]
+		ct = ct[:ne]
 	}
-	gk, kq := nl.gk, nl.kq
 	if gk != nil {
-		gk, kq = gk[:ne], kq[:ne]
-	}
-	linear := nl.m.Order == 1
-	if linear {
-		sigma, u = sigma[:ne+1], u[:ne+1]
+		gk = gk[:ne]
 	}
 	for e := range pts {
 		p := &pts[e]
-		var to float64
-		if linear { // nl.mean, inlined
-			to = p.S0 + (sigma[e]+sigma[e+1])/2 - (u[e]+u[e+1])/2
-		} else {
-			to = p.S0 + nl.mean(sigma, e) - nl.mean(u, e)
-		}
+		to := tos[e]
 		if !curved[e] {
 			nl.mvCoefficients(e, to)
 			continue
 		}
+		w := &law[e]
 		from := p.Stress()
 		ref := from // max(from, MinEffective) (see clampK)
 		if ref < soil.MinEffective {
@@ -228,25 +261,25 @@ func (nl *nonlinear) coefficients(theta float64, sigma, u []float64) {
 		// capacity positive when Cr = 0.
 		var mvT, de float64
 		if d := to - from; math.Abs(d) > 1e-9*ref {
-			de = p.Toward(to)
-			mvT = de * inv[e] / d
+			de = des[e]
+			mvT = de * w.inv / d
 		} else {
 			idx := p.Curve.Cr
 			if d > 0 && from >= p.Peak()*(1-1e-9) {
 				idx = p.Curve.Cc
 			}
-			mvT = idx * inv[e] / (math.Ln10 * ref)
+			mvT = idx * w.inv / (math.Ln10 * ref)
 		}
-		if f := floor[e]; mvT*ref < f {
+		if f := w.floor; mvT*ref < f {
 			mvT = f / ref
 		}
 		cm[e] = mvT
 		tangent := 0.0
 		if ct != nil {
 			// The tangent at the iterate, with the same floor.
-			t := tanR[e]
+			t := w.tanR
 			if to > p.Peak() {
-				t = tanC[e]
+				t = w.tanC
 			}
 			s := to
 			if s < soil.MinEffective {
@@ -256,9 +289,9 @@ func (nl *nonlinear) coefficients(theta float64, sigma, u []float64) {
 			ct[e] = tangent
 		}
 		k := k0[e]
-		if ck[e] > 0 {
+		if w.kExp < 0 { // Ck > 0
 			// soil.PermeabilityAfter(k0, θΔe, Ck) = k0·10^(−θΔe/Ck).
-			y := kExp[e] * theta * de
+			y := w.kExp * theta * de
 			x, ok := soil.ExpSmall(y) // soil.Exp, in line
 			if !ok {
 				x = math.Exp(y)
@@ -270,7 +303,7 @@ func (nl *nonlinear) coefficients(theta float64, sigma, u []float64) {
 				// dΔe/dσ' = (1+e0) ct; zero where k is held.
 				g := 0.0
 				if k == kt {
-					g = k * theta * kq[e] * tangent
+					g = k * theta * w.kq * tangent
 				}
 				gk[e] = g
 			}
@@ -494,17 +527,15 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 func (nl *nonlinear) solveLumped(theta, dt float64, ds []float64) error {
 	tr := nl.tr
 	c0, c1 := (1-theta)*dt, theta*dt
-	ne := len(nl.half)
-	half, invH := nl.half[:ne], nl.invH[:ne]
+	ne := len(nl.spans)
+	spans := nl.spans[:ne]
 	cm, ct, cc := nl.cm[:ne], nl.ct[:ne], nl.cc[:ne]
 	u0, u1 := nl.u0[:ne+1], nl.u1[:ne+1]
-	// A': diagonal, then inverse pivots; lower off-diagonal, then L;
-	// upper, then D⁻¹ U (the lower's own storage when A' is symmetric);
-	// residual, then r.
-	d, l, r := nl.au[:ne+1], nl.lw[:ne+1], nl.rhs[:ne+1]
-	up, gk := l, nl.gk
+	// A' and the residual row by row (lumpedRow), and then their factors
+	// and the forward substitution in place; r goes to rhs.
+	rows, gk := nl.rows[:ne+1], nl.gk
 	if gk != nil {
-		up, gk = nl.uw[:ne+1], gk[:ne]
+		gk = gk[:ne]
 	}
 	// Element e, nodes a = e and b = e+1: its secant capacity cm h/2 times
 	// each node's change u⁰ + Δσ − u, and its flux f = g (w_a − w_b) with
@@ -517,52 +548,53 @@ func (nl *nonlinear) solveLumped(theta, dt float64, ds []float64) error {
 	}
 	wa := c0*u0[0] + c1*u1[0]
 	dn, rn := 0.0, 0.0
-	for e, hh := range half {
+	for e := range spans {
+		sp, row := &spans[e], &rows[e]
 		vb := u0[e+1] - u1[e+1]
 		if ds != nil {
 			vb += ds[e+1]
 		}
 		wb := c0*u0[e+1] + c1*u1[e+1]
-		g := cc[e] * invH[e]
+		g := cc[e] * sp.inv
 		f := g * (wa - wb)
-		ms := cm[e] * hh
-		r[e] = rn + ms*va - f
+		ms := cm[e] * sp.half
+		row.r = rn + ms*va - f
 		rn = ms*vb + f
-		a := ct[e]*hh + c1*g
+		a := ct[e]*sp.half + c1*g
 		off, sk := c1*g, 0.0
 		if gk != nil {
 			// Comparisons rather than min and max (see clampK).
-			if sk = 0.5 * (wa - wb) * gk[e] * invH[e]; sk > off {
+			if sk = 0.5 * (wa - wb) * gk[e] * sp.inv; sk > off {
 				sk = off
 			} else if sk < -off {
 				sk = -off
 			}
 		}
-		d[e] = dn + a - sk
+		row.d = dn + a - sk
 		dn = a + sk
-		l[e] = sk - off
-		up[e] = -sk - off
+		row.l = sk - off
+		row.u = -sk - off
 		va, wa = vb, wb
 	}
-	d[ne], r[ne] = dn, rn
+	rows[ne].d, rows[ne].r = dn, rn
 	// A leaky end passes (u − 0)/(γw R) out: θΔt of it on A', the flux of
 	// w on the residual. A draining layer's node keeps u = 0: its row is
 	// the identity and its update zero.
 	if a := tr.leakTop; a > 0 {
-		d[0] += c1 * a
-		r[0] -= a * (c0*u0[0] + c1*u1[0])
+		rows[0].d += c1 * a
+		rows[0].r -= a * (c0*u0[0] + c1*u1[0])
 	}
 	if a := tr.leakBottom; a > 0 {
-		d[ne] += c1 * a
-		r[ne] -= a * (c0*u0[ne] + c1*u1[ne])
+		rows[ne].d += c1 * a
+		rows[ne].r -= a * (c0*u0[ne] + c1*u1[ne])
 	}
 	for _, j := range tr.pinned {
-		d[j], r[j] = 1, 0
+		rows[j].d, rows[j].r = 1, 0
 		if j > 0 {
-			l[j-1], up[j-1] = 0, 0
+			rows[j-1].l, rows[j-1].u = 0, 0
 		}
 		if j < ne {
-			l[j], up[j] = 0, 0
+			rows[j].l, rows[j].u = 0, 0
 		}
 	}
 	// A' = L U on the free rows, L y = r, then U x = y. The pivots come
@@ -578,11 +610,11 @@ func (nl *nonlinear) solveLumped(theta, dt float64, ds []float64) error {
 		return nil
 	}
 	n := hi - lo // the free rows, from 0
-	dd, ll, uu, rr := d[lo:hi], l[lo:hi][:n], up[lo:hi][:n], r[lo:hi][:n]
-	pm2, pm1 := 1.0, dd[0]
+	rr, x := rows[lo:hi], nl.rhs[lo:hi][:n]
+	pm2, pm1 := 1.0, rr[0].d
 	for i := 1; i < n; i++ {
-		p := dd[i]*pm1 - ll[i-1]*uu[i-1]*pm2
-		dd[i] = p / pm1
+		p := rr[i].d*pm1 - rr[i-1].l*rr[i-1].u*pm2
+		rr[i].d = p / pm1
 		pm2, pm1 = pm1, p
 		if a := math.Abs(p); a > 0x1p500 {
 			pm2, pm1 = pm2*0x1p-500, pm1*0x1p-500
@@ -591,57 +623,50 @@ func (nl *nonlinear) solveLumped(theta, dt float64, ds []float64) error {
 		}
 	}
 	inv, y := 0.0, 0.0 // 1/pivot and y of the row before
-	for i, piv := range dd {
-		if !(piv > 0 && piv <= math.MaxFloat64) { // positive and finite
+	for i := range rr {
+		row := &rr[i]
+		if piv := row.d; !(piv > 0 && piv <= math.MaxFloat64) { // positive and finite
 			return &fem.NotDefiniteError{Node: lo + i, Pivot: piv}
 		}
 		if i > 0 {
-			// Both read before either is written: up may be l.
-			m, v := ll[i-1]*inv, uu[i-1]*inv
-			ll[i-1], uu[i-1] = m, v
-			y = rr[i] - m*y
+			above := &rr[i-1]
+			m := above.l * inv
+			above.l, above.u = m, above.u*inv
+			y = row.r - m*y
 		} else {
-			y = rr[i]
+			y = row.r
 		}
-		rr[i] = y
-		inv = 1 / piv
-		dd[i] = inv
+		row.r = y
+		inv = 1 / row.d
+		row.d = inv
 	}
-	x := rr[n-1] * dd[n-1]
-	rr[n-1] = x
+	v := rr[n-1].r * rr[n-1].d
+	x[n-1] = v
 	for i := n - 2; i >= 0; i-- {
-		x = rr[i]*dd[i] - uu[i]*x
-		rr[i] = x
+		v = rr[i].r*rr[i].d - rr[i].u*v
+		x[i] = v
 	}
 	return nil
 }
 
 // commit moves every element to the effective stress of the nodal
-// fields, its slices taken once as in coefficients.
+// fields (one soil.Move over the column, as in coefficients), its slices
+// taken once as in coefficients.
 func (nl *nonlinear) commit(t float64, sigma, u []float64) {
 	ne := len(nl.pts)
-	pts, curved := nl.pts, nl.curved[:ne]
-	k0, ck, kExp := nl.k0[:ne], nl.ck[:ne], nl.kExp[:ne]
-	linear := nl.m.Order == 1
-	if linear {
-		sigma, u = sigma[:ne+1], u[:ne+1]
-	}
+	nl.meanStress(nl.to, sigma, u)
+	soil.Move(nl.de, nl.pts, nl.to, nl.curved)
+	pts, curved, tos, des := nl.pts, nl.curved[:ne], nl.to[:ne], nl.de[:ne]
+	k0, law := nl.k0[:ne], nl.law[:ne]
 	for e := range pts {
-		p := &pts[e]
-		var to float64
-		if linear { // nl.mean, inlined
-			to = p.S0 + (sigma[e]+sigma[e+1])/2 - (u[e]+u[e+1])/2
-		} else {
-			to = p.S0 + nl.mean(sigma, e) - nl.mean(u, e)
-		}
+		to := tos[e]
 		if to < 0 && math.IsNaN(nl.negativeAt) && !nl.tr.c.isDug(e) {
 			_, z0, z1 := nl.m.Span(e)
 			nl.negativeAt, nl.negativeT = (z0+z1)/2, t
 		}
 		if curved[e] {
-			de := p.MoveTo(to)
-			if ck[e] > 0 {
-				y := kExp[e] * de
+			if kExp := law[e].kExp; kExp < 0 { // Ck > 0
+				y := kExp * des[e]
 				x, ok := soil.ExpSmall(y) // soil.Exp, in line
 				if !ok {
 					x = math.Exp(y)
@@ -651,7 +676,7 @@ func (nl *nonlinear) commit(t float64, sigma, u []float64) {
 			continue
 		}
 		s, pk := soil.LinearCompress(nl.mv[e], nl.mvu[e], nl.sig[e], to, nl.peak[e])
-		nl.strain[e] += s * p.H
+		nl.strain[e] += s * pts[e].H
 		nl.sig[e], nl.peak[e] = to, pk
 	}
 }
@@ -687,7 +712,8 @@ func (nl *nonlinear) layerSettlements(dst []float64) {
 // then the final state) and returns each layer's final settlement, m: the
 // denominator of Us.
 func (nl *nonlinear) drained(bps []breakpoint, sigInf, uInf []float64, uAt func(dst []float64, t float64) []float64) []float64 {
-	cp := &nonlinear{tr: nl.tr, m: nl.m, curved: nl.curved, mv: nl.mv, mvu: nl.mvu, ck: nl.ck, kExp: nl.kExp, kLo: nl.kLo, kHi: nl.kHi,
+	cp := &nonlinear{tr: nl.tr, m: nl.m, curved: nl.curved, mv: nl.mv, mvu: nl.mvu, law: nl.law, kLo: nl.kLo, kHi: nl.kHi,
+		to: nl.to, de: nl.de, // scratch, written before it is read
 		k0:     append([]float64(nil), nl.k0...),
 		pts:    append([]soil.Point(nil), nl.pts...),
 		sig:    append([]float64(nil), nl.sig...),
@@ -719,7 +745,8 @@ func (nl *nonlinear) projected(sigInf, uInf []float64) []float64 {
 // of the elements moved (its slices are reused from one call to the
 // next).
 func (nl *nonlinear) project(cp *nonlinear, sigInf, uInf, out []float64) {
-	*cp = nonlinear{tr: nl.tr, m: nl.m, curved: nl.curved, mv: nl.mv, mvu: nl.mvu, ck: nl.ck, kExp: nl.kExp, kLo: nl.kLo, kHi: nl.kHi,
+	*cp = nonlinear{tr: nl.tr, m: nl.m, curved: nl.curved, mv: nl.mv, mvu: nl.mvu, law: nl.law, kLo: nl.kLo, kHi: nl.kHi,
+		to: nl.to, de: nl.de, // scratch, written before it is read
 		k0:     append(cp.k0[:0], nl.k0...),
 		pts:    append(cp.pts[:0], nl.pts...),
 		sig:    append(cp.sig[:0], nl.sig...),

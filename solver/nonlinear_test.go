@@ -341,11 +341,11 @@ func TestSolveLumped(t *testing.T) {
 	nl.u1 = f(func(i int) float64 { return nl.u0[i] * (0.9 + 0.01*math.Cos(float64(i))) }, n)
 	nl.u1[0], nl.u1[n-1] = 0.5, -0.25
 	ds := f(func(i int) float64 { return 3 + m.Z[i] }, n)
-	nl.au, nl.lw, nl.rhs = make([]float64, n), make([]float64, n), make([]float64, n)
-	nl.half, nl.invH = make([]float64, ne), make([]float64, ne)
+	nl.rows, nl.rhs = make([]lumpedRow, n), make([]float64, n)
+	nl.spans = make([]span, ne)
 	for e := range ne {
 		h := m.Z[e+1] - m.Z[e]
-		nl.half[e], nl.invH[e] = h/2, 1/h
+		nl.spans[e] = span{half: h / 2, inv: 1 / h}
 	}
 	const theta, dt = 0.5, 30.0
 	if err := nl.solveLumped(theta, dt, ds); err != nil {

@@ -10,7 +10,8 @@
 // It knows nothing of meshes, files or the time loop: package solver
 // builds one Point per element and moves it along the stresses the
 // consolidation gives (the non-linear model moves them itself, trying each
-// stress with Point.Toward first). New behaviour belongs here: creep laws
+// stress with Point.Toward first; Follow, Move and Toward do the same for
+// a whole column in one loop). New behaviour belongs here: creep laws
 // per layer, undrained strength from σ′.
 //
 // Units: stress kPa, length m, permeability m/s, mv 1/kPa, γw kN/m³,

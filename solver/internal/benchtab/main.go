@@ -18,7 +18,12 @@ func main() {
 	cpuprofile := flag.String("cpuprofile", "", "write CPU profiles of the timed solves of the largest size to FILE-linear.ext and FILE-quadratic.ext")
 	root := flag.String("root", "", "repository root (default: the nearest directory above the working directory holding go.mod)")
 	quick := flag.Bool("quick", false, "smaller sizes for a smoke run; the figures are not the benchmark")
+	nonlinear := flag.Bool("nonlinear", false, "time only section 6 (the non-linear model against the linear one) and log its figures; no table")
 	flag.Parse()
+	if *nonlinear {
+		onlyNonlinear(*quick)
+		return
+	}
 	if err := run(*out, *browser, *cpuprofile, *root, *quick); err != nil {
 		fmt.Fprintln(os.Stderr, "benchtab:", err)
 		os.Exit(1)
@@ -128,6 +133,22 @@ func run(out, browserFile, cpuprofile, root string, quick bool) error {
 	}
 	logf("done")
 	return nil
+}
+
+// onlyNonlinear is the -nonlinear run: section 6 alone, some ten seconds
+// where the table takes minutes, for work on the non-linear model.
+func onlyNonlinear(quick bool) {
+	start := time.Now()
+	logf := func(format string, args ...any) {
+		fmt.Fprintf(os.Stderr, "%6.1fs  "+format+"\n", append([]any{time.Since(start).Seconds()}, args...)...)
+	}
+	elements := 2000
+	if quick {
+		elements = 200
+	}
+	logf("load %s", loadAvg())
+	measureNonlinear(elements, logf)
+	logf("load %s", loadAvg())
 }
 
 // findRoot returns the nearest directory at or above the working

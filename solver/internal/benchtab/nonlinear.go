@@ -50,7 +50,9 @@ func measureNonlinear(elements int, logf func(string, ...any)) nonlinearCost {
 		}
 		c.nodes, c.steps = r.Stats.Nodes, r.Stats.Steps
 	}
-	logf("non-linear: %.2f× the linear cost, %.2f iterations per step", c.ratio(), c.perStep())
+	work := c.nodes * c.steps
+	logf("non-linear: %s per node-step (%s/solve) against the linear %s (%s/solve): %.2f× the linear cost, %.2f iterations per step",
+		dur(per(c.nonlin.best, work)), dur(float64(c.nonlin.best)), dur(per(c.linear.best, work)), dur(float64(c.linear.best)), c.ratio(), c.perStep())
 	return c
 }
 
