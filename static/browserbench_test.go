@@ -356,25 +356,35 @@ func machine(product string) string {
 
 // paintProbe notes, for every input event and click, the time from the
 // event (its timeStamp) to the next frame painted after the page's
-// render. The page renders in a task of its own queued while its handler
-// runs (wasm/coalesce.go); this listener, on the document, runs after
-// that handler, so its zero-delay timeout fires after the render. A
-// requestAnimationFrame callback then runs just before the next frame's
-// style, layout and paint, and a message posted from it arrives once
-// they are done.
+// render. vugu's renderer writes into the DOM through window.vuguRender
+// only; the first call after the event, noted in the capture phase
+// before the page's own handler, asks for an animation frame. Its
+// callback runs just before the first frame that can show the render
+// (the whole render runs in one task), and a message posted from it
+// arrives once that frame's style, layout and paint are done. The page
+// renders in the event's own task when it was idle, and in a task of its
+// own when events come in a burst (wasm/coalesce.go): either way the
+// frame is the first one after the render, not one after a timeout of the
+// probe's own, which would miss a frame the browser paints between the
+// render's task and the timeout.
 const paintProbe = `(() => {
 	if (window.__paint) return;
 	const P = window.__paint = [];
 	const ch = new MessageChannel();
-	let pending = [];
-	ch.port1.onmessage = () => { const now = performance.now(); for (const r of pending) r.painted = now - r.at; pending = []; };
-	const note = e => {
-		const r = {kind: e.type, at: e.timeStamp, painted: 0};
-		P.push(r);
-		setTimeout(() => requestAnimationFrame(() => { pending.push(r); ch.port2.postMessage(0); }), 0);
+	let waiting = [], framing = [];
+	ch.port1.onmessage = () => { const now = performance.now(); for (const r of framing) r.painted = now - r.at; framing = []; };
+	const note = e => { const r = {kind: e.type, at: e.timeStamp, painted: 0}; P.push(r); waiting.push(r); };
+	document.addEventListener("input", note, true);
+	document.addEventListener("click", note, true);
+	const render = window.vuguRender;
+	window.vuguRender = function () {
+		if (waiting.length) {
+			const rs = waiting;
+			waiting = [];
+			requestAnimationFrame(() => { framing.push(...rs); ch.port2.postMessage(0); });
+		}
+		return render.apply(this, arguments);
 	};
-	document.addEventListener("input", note);
-	document.addEventListener("click", note);
 })()`
 
 // painted waits for the paint after the last of n events noted by

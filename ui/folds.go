@@ -76,10 +76,11 @@ func (c *Root) print() {
 		return
 	}
 	go func() {
-		// The page renders in a task of its own after the click
-		// (wasm/coalesce.go), queued in the same turn as this goroutine's
-		// first yield, perhaps after it: the second yield returns after
-		// that render.
+		// The page renders the click at once, in the click's own task,
+		// or, soon after another render, in a task of its own
+		// (wasm/coalesce.go) queued in the same turn as this goroutine's
+		// first yield, perhaps after it: either way the second yield
+		// returns after that render.
 		c.host().Yield()
 		c.host().Yield()
 		c.host().Print() // returns when the dialogue closes

@@ -23,6 +23,10 @@ func TestFiguresInViewFirst(t *testing.T) {
 	sh := &screenHost{fakeHost: p.host, in: map[string]bool{"plot-isochrones": true}}
 	p.root.Host = sh
 	iso, deg, flux := p.text("plot-isochrones"), p.text("plot-degree"), p.attr("sum-flux", "data-value")
+	res := p.text("plot-residuals") // the records against the prediction: its own memo (plot.Residuals)
+	if res == "" {
+		t.Fatal("the demo draws no residuals figure")
+	}
 
 	p.typeInto("layers-1-k", "4e-9") // solves at once without Env, then builds
 	if p.text("plot-isochrones") == iso {
@@ -34,6 +38,9 @@ func TestFiguresInViewFirst(t *testing.T) {
 	if p.text("plot-degree") != deg {
 		t.Error("a figure out of view was drawn in the render of the new results")
 	}
+	if p.text("plot-residuals") != res {
+		t.Error("the residuals, out of view, were drawn in the render of the new results")
+	}
 	if len(sh.after) != 1 {
 		t.Fatalf("%d renders asked for after the paint, want 1", len(sh.after))
 	}
@@ -44,6 +51,9 @@ func TestFiguresInViewFirst(t *testing.T) {
 	p.build()     // the render it asks for
 	if p.text("plot-degree") == deg {
 		t.Error("the figure out of view was not drawn in the next render")
+	}
+	if p.text("plot-residuals") == res {
+		t.Error("the residuals were not drawn in the next render")
 	}
 	if b := p.attr("results", "aria-busy"); b != "false" {
 		t.Errorf("the results say aria-busy %q once all is drawn, want false", b)

@@ -5,6 +5,7 @@ package main
 import (
 	"reflect"
 	"syscall/js"
+	"time"
 	"unsafe"
 
 	"github.com/vugu/vugu/domrender"
@@ -14,9 +15,31 @@ import (
 // event: a paste that the browser delivers as many input events (one per
 // line and line break when text is inserted programmatically: 1,000 for
 // 500 readings), or keys typed during a render, each cost a whole render.
-// The render loop instead lets the browser finish what is queued
-// (settle), forgets the render requests that piled up meanwhile
-// (drain), and renders once for all of them.
+// A request that comes soon after a render may be one of such a burst:
+// the render loop then lets the browser finish what is queued (settle),
+// forgets the render requests that piled up meanwhile (drain), and
+// renders once for all of them. A request that finds the page idle (a
+// keystroke as people type, a solve's answer) is rendered at once, in
+// the task that asked: settling would hand the browser a frame to paint
+// without the render (after a key the browser paints the field's new
+// text first), and the render's own frame would be the next one.
+
+// burstGap is how soon after a render a request counts as part of a
+// burst: one frame at 60 Hz.
+const burstGap = 16 * time.Millisecond
+
+// coalescer remembers when the last render ended.
+type coalescer struct{ last time.Time }
+
+// wait settles before a render that may be part of a burst.
+func (c *coalescer) wait() {
+	if time.Since(c.last) < burstGap {
+		settle()
+	}
+}
+
+// rendered notes the end of a render.
+func (c *coalescer) rendered() { c.last = time.Now() }
 
 // settle returns once the browser has run the tasks queued now: a
 // zero-delay timeout fires after them. While it waits every goroutine

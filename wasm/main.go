@@ -67,11 +67,12 @@ func run(demo []byte) {
 	root := &ui.Root{Host: h, Env: ee, Version: version}
 	root.Start(src)
 	first := true
+	var co coalescer // coalesce.go
 	drain := drainer(renderer)
 	same := samer(renderer) // same.go
 	for ok := true; ok; ok = renderer.EventWait() {
 		if !first {
-			settle() // coalesce.go
+			co.wait()
 			if drain != nil && !drain() {
 				break
 			}
@@ -85,6 +86,7 @@ func run(demo []byte) {
 		if err := renderer.Render(br); err != nil {
 			fail(err)
 		}
+		co.rendered()
 		if first {
 			first = false
 			// Tell the page shell (and tests) that the page is up.

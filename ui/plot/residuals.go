@@ -121,9 +121,13 @@ type Residuals struct {
 
 // Figure builds the figure drawn for the current props, once per change
 // of them (the records are made anew on every render, so they are
-// compared by value).
+// compared by value). Out of view (KeepOutside) new records keep the
+// last figure, as new props do in figMemo, and the next build draws them.
 func (c *Residuals) Figure() *Figure {
 	if !reflect.DeepEqual(c.records, c.Records) {
+		if f := c.memo.v; f != nil && outside != nil && outside(f.ID) {
+			return f
+		}
 		c.memo, c.records = figMemo{}, c.Records
 	}
 	return c.memo.get(figKey{p: c.Project, a: c.Dates, w: c.Width, h: c.Height}, func() *Figure {
