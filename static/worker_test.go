@@ -201,41 +201,6 @@ func TestE2EWorker(t *testing.T) {
 		}
 	})
 
-	t.Run("a call made while a worker starts is held by it", func(t *testing.T) {
-		// A crash leaves a fresh worker starting. A call made then goes to
-		// it at once, without waiting for this thread to read its ready
-		// message (the page's first solve, while the page itself starts,
-		// is such a call), and the worker runs it once its program is up.
-		var r struct {
-			Before, After poolStats
-			Answer        string
-		}
-		c, cancel := context.WithTimeout(ctx, 60*time.Second)
-		defer cancel()
-		got, err := chromedp.Run(c, chromedp.Evaluate[string](`(async () => {
-			const P = porelightWorkers;
-			P.fault = "panic";
-			await porelight.solveAsync(window.__demo);
-			const before = P.stats(), next = porelight.solveAsync(window.__demo), after = P.stats();
-			return JSON.stringify({before, after, answer: await next});
-		})()`, chromedp.EvalAwaitPromise))
-		if err != nil {
-			t.Fatal(err)
-		}
-		if err := json.Unmarshal([]byte(got), &r); err != nil {
-			t.Fatal(err)
-		}
-		if r.Before.Ready != 0 || r.Before.Workers != 1 {
-			t.Fatalf("after the crash the pool was %+v: this test needs one worker, starting", r.Before)
-		}
-		if r.After.Busy != 1 || r.After.Queued != 0 {
-			t.Errorf("the call made while the worker started waited in the queue: pool %+v", r.After)
-		}
-		if a := decodeAnswer(t, r.Answer); a.Error != nil || a.Summary == nil {
-			t.Errorf("the call held by the starting worker answered %.200q", r.Answer)
-		}
-	})
-
 	t.Run("an endless solve times out", func(t *testing.T) {
 		eval[chromedp.Void](t, ctx, `porelightWorkers.timeout = 1500; porelightWorkers.fault = "hang"`)
 		start := time.Now()

@@ -113,8 +113,7 @@
 	}
 
 	// Workers is the pool of solve workers: each runs the same program
-	// (module, a promise of the compiled module, is shared) behind
-	// static/shell/worker.js. A
+	// (the compiled module is shared) behind static/shell/worker.js. A
 	// worker that crashes, runs out of memory, takes longer than
 	// pool.timeout or is cancelled is terminated and replaced by a fresh
 	// one; the page's own program is never touched. Where the browser
@@ -165,11 +164,7 @@
 					fault(slot, "a message from the solver worker could not be read");
 				}
 			};
-			module.then(function (m) {
-				if (slot.w === w) {
-					w.postMessage({type: "init", module: m});
-				}
-			});
+			w.postMessage({type: "init", module: module});
 		}
 
 		function spawn() {
@@ -235,21 +230,12 @@
 		function fault(slot, msg) {
 			var job = slot.job;
 			slot.job = null;
-			if (!slot.ready) {
-				// It failed while starting, so a call given to it has not
-				// run (the worker runs calls after it says it is ready):
-				// the call waits for the next worker. Give up after a few
-				// tries.
-				if (job) {
-					clearTimeout(job.timer);
-					job.slot = null;
-					queue.unshift(job);
-				}
+			if (!slot.ready && !job) {
+				// It failed while starting: give up after a few tries.
 				if (++slot.fails >= 3) {
 					disable("the solver worker would not start: " + msg);
 					return;
 				}
-				job = null;
 			}
 			if (job) {
 				answerError(job, msg);
@@ -312,21 +298,11 @@
 
 		function dispatch() {
 			while (queue.length > 0 && !pool.disabled) {
-				// An idle worker, or else one still starting: it holds the
-				// call until its program is up (worker.js), so the call
-				// does not wait for this thread to read the worker's ready
-				// message too, which, while the page itself starts, comes
-				// late.
 				var slot = null;
 				for (var i = 0; i < slots.length; i++) {
 					if (slots[i].ready && !slots[i].job) {
 						slot = slots[i];
 						break;
-					}
-				}
-				for (i = 0; !slot && i < slots.length; i++) {
-					if (slots[i].w && !slots[i].job) {
-						slot = slots[i];
 					}
 				}
 				if (!slot) {
@@ -482,18 +458,6 @@
 		if (!holder || !holder.hasAttribute("data-bytes")) {
 			throw new Error("the page holds no embedded program (#wasm-gz with data-bytes)");
 		}
-		// The workers start first: a worker's thread and script take the
-		// page's own thread a while to set up, which they get while the
-		// program is unpacked; the compiled module follows them.
-		// A worker's script: wasm_exec.js, then the shim. The URL is never
-		// revoked: new workers are made from it after a crash.
-		var url = URL.createObjectURL(new Blob([
-			document.getElementById("wasm-exec").textContent, "\n",
-			document.getElementById("worker-shim").textContent
-		], {type: "text/javascript"}));
-		var compiled;
-		var pool = new Workers(new Promise(function (resolve) { compiled = resolve; }), url);
-		Object.defineProperty(globalThis, "porelightWorkers", {value: pool});
 		var t0 = performance.now();
 		var gz = from122(holder.textContent, Number(holder.getAttribute("data-bytes")));
 		// For the browser tests: how long reading the text took.
@@ -502,7 +466,14 @@
 		var bytes = await new Response(stream).arrayBuffer();
 		// Compiled once: the page and every worker instantiate this module.
 		var module = await WebAssembly.compile(bytes);
-		compiled(module);
+		// A worker's script: wasm_exec.js, then the shim. The URL is never
+		// revoked: new workers are made from it after a crash.
+		var url = URL.createObjectURL(new Blob([
+			document.getElementById("wasm-exec").textContent, "\n",
+			document.getElementById("worker-shim").textContent
+		], {type: "text/javascript"}));
+		var pool = new Workers(module, url);
+		Object.defineProperty(globalThis, "porelightWorkers", {value: pool});
 		var go = new Go();
 		var instance = await WebAssembly.instantiate(module, go.importObject);
 		// The program's linear memory, read-only, for diagnostics and the

@@ -8,8 +8,7 @@
 //   {type: "reply", id, ok, result|error, memory} the answer (a Uint8Array of JSON)
 //   {type: "exit", code, stderr, memory}         the program ended: a crash, or out of memory
 //   {type: "initError", error}                   the program could not start
-// Calls that come before the program is up wait for it. onmessage is
-// synchronous on purpose: a call holds the worker until it
+// onmessage is synchronous on purpose: a call holds the worker until it
 // is answered, and the page stops a worker that takes too long.
 (function () {
 	"use strict";
@@ -18,8 +17,6 @@
 	var mem = null;
 	var stderr = "";
 	var decoder = new TextDecoder("utf-8");
-	// Calls that came before the program was up, run once it is.
-	var early = [];
 
 	// Keep the start of what the program writes to standard error during
 	// a call (Go's runtime begins its report with "fatal error: out of
@@ -47,11 +44,6 @@
 			};
 			self.goReady = function () {
 				self.postMessage({type: "ready"});
-				if (early.length > 0) {
-					setTimeout(function () {
-						early.splice(0).forEach(call);
-					}, 0);
-				}
 			};
 			WebAssembly.instantiate(m.module, go.importObject).then(function (inst) {
 				mem = inst.exports.mem;
@@ -64,14 +56,6 @@
 		if (m.type !== "call") {
 			return;
 		}
-		if (!self.goCall) {
-			early.push(m);
-			return;
-		}
-		call(m);
-	};
-
-	function call(m) {
 		var id = m.id;
 		var progress = function (f) {
 			self.postMessage({type: "progress", id: id, value: f});
@@ -90,5 +74,5 @@
 			return;
 		}
 		self.postMessage({type: "reply", id: id, ok: true, result: r, memory: memory()}, [r.buffer]);
-	}
+	};
 })();
