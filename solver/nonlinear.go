@@ -278,7 +278,7 @@ func (nl *nonlinear) coefficients(theta float64, sigma, u []float64) {
 		if ct != nil {
 			// The tangent at the iterate, with the same floor.
 			t := w.tanR
-			if to > p.Peak() {
+			if p.Beyond(to) {
 				t = w.tanC
 			}
 			s := to
