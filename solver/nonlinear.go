@@ -58,6 +58,7 @@ type nonlinear struct {
 	sig     []float64  // constant-mv law: effective stress now
 	peak    []float64  // constant-mv law: largest past effective stress
 	strain  []float64  // constant-mv law: settlement so far, m
+	layers  []float64  // per layer: its settlement at the last settlement()
 	k0, ck  []float64  // conductivity k/γw now, m²/(kPa·day), and Ck (0: constant)
 	cm, cc  []float64  // the coefficients of the iterate: secant mv, k/γw
 	to, de  []float64  // scratch: effective stress of the iterate, compression of the move
@@ -127,6 +128,7 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 	nl.mv, nl.mvu, nl.sig, nl.peak, nl.strain = f(), f(), f(), f(), f()
 	nl.k0, nl.ck, nl.cm, nl.cc = f(), f(), f(), f()
 	nl.to, nl.de = f(), f()
+	nl.layers = make([]float64, len(c.p.Layers))
 	nl.law = make([]curveLaw, ne)
 	for e := range ne {
 		l := &c.p.Layers[m.Layer[e]]
@@ -682,15 +684,22 @@ func (nl *nonlinear) commit(t float64, sigma, u []float64) {
 }
 
 // settlement is the settlement of the column now, m: the sum over the
-// elements of what their laws give for the path they followed.
+// elements of what their laws give for the path they followed. The same
+// pass leaves each layer's share in nl.layers (layerSettlements' sums),
+// which layerNow reads after it: one Settlement per element a step.
 func (nl *nonlinear) settlement() float64 {
+	ne := len(nl.pts)
+	pts, curved, strain, layer := nl.pts, nl.curved[:ne], nl.strain[:ne], nl.m.Layer[:ne]
+	layers := nl.layers
+	clear(layers)
 	s := 0.0
-	for e := range nl.pts {
-		if nl.curved[e] {
-			s += nl.pts[e].Settlement()
-		} else {
-			s += nl.strain[e]
+	for e := range pts {
+		v := strain[e]
+		if curved[e] {
+			v = pts[e].Settlement()
 		}
+		s += v
+		layers[layer[e]] += v
 	}
 	return s
 }
