@@ -492,7 +492,13 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 				r0[i] = r
 			}
 			if den > 0 {
-				omega = min(max(-omega*num/den, 0.05), 2)
+				// min(max(·, 0.05), 2) by comparisons (js/wasm calls
+				// min and max out of line); NaN is kept as they keep it.
+				if omega = -omega * num / den; omega < 0.05 {
+					omega = 0.05
+				} else if omega > 2 {
+					omega = 2
+				}
 			}
 			for i, r := range r0 {
 				u1[i] += omega * r
