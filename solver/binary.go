@@ -7,6 +7,7 @@ import (
 	"fmt"
 	"math"
 	"reflect"
+	"sync"
 )
 
 // The binary forms of a Result and of a Project carry a solve from one
@@ -63,14 +64,24 @@ func (p *Project) UnmarshalBinary(data []byte) error { return unmarshalBinary(pr
 // output.
 func IsBinaryProject(data []byte) bool { return bytes.HasPrefix(data, []byte(projectMagic)) }
 
-// marshalBinary encodes *ptr after magic.
+// binBuffers holds the buffers marshalBinary encodes into, grown to the
+// size of what they carried: a result (the demo's is some 130 KB) grew
+// from a small buffer by doubling, and its copies and their collection
+// took most of the time of an encode.
+var binBuffers = sync.Pool{New: func() any { return new([]byte) }}
+
+// marshalBinary encodes *ptr after magic, into a pooled buffer, and
+// returns a copy of exactly its length.
 func marshalBinary[T any](magic string, ptr *T) ([]byte, error) {
-	e := binEncoder{buf: make([]byte, 0, 4096)}
-	e.buf = append(e.buf, magic...)
-	if err := e.value(reflect.ValueOf(ptr).Elem()); err != nil {
+	bp := binBuffers.Get().(*[]byte)
+	defer binBuffers.Put(bp)
+	e := binEncoder{buf: append((*bp)[:0], magic...)}
+	err := e.value(reflect.ValueOf(ptr).Elem())
+	*bp = e.buf[:0]
+	if err != nil {
 		return nil, err
 	}
-	return e.buf, nil
+	return bytes.Clone(e.buf), nil
 }
 
 // unmarshalBinary decodes data into *ptr, leaving it alone on error.

@@ -65,8 +65,9 @@ type binaryForm interface {
 func TestBinaryRoundTrip(t *testing.T) {
 	// Every kind of field and value, on 200 random values of each type
 	// (fixed seeds): the decoded value must equal the encoded one exactly
-	// (reflect.DeepEqual: same bits, same nil-ness), and the header tells
-	// the two forms apart.
+	// (reflect.DeepEqual: same bits, same nil-ness), the header tells
+	// the two forms apart, and a form is the caller's: encoding the next
+	// value (into the pooled buffer) leaves the last one's intact.
 	cases := []struct {
 		name  string
 		new   func() binaryForm
@@ -78,6 +79,8 @@ func TestBinaryRoundTrip(t *testing.T) {
 	}
 	for _, c := range cases {
 		t.Run(c.name, func(t *testing.T) {
+			var last []byte
+			var lastWant binaryForm
 			for seed := range uint64(200) {
 				r := rand.New(rand.NewPCG(seed, 7))
 				want := c.new()
@@ -99,6 +102,13 @@ func TestBinaryRoundTrip(t *testing.T) {
 				if err := c.new().UnmarshalBinary(append([]byte(nil), data...)[:len(data)-1]); err == nil && len(data) > 0 {
 					t.Fatalf("seed %d: a truncated form was accepted", seed)
 				}
+				if last != nil {
+					prev := c.new()
+					if err := prev.UnmarshalBinary(last); err != nil || !reflect.DeepEqual(prev, lastWant) {
+						t.Fatalf("seed %d: encoding this value changed the last one's form (%v)", seed, err)
+					}
+				}
+				last, lastWant = data, want
 			}
 		})
 	}

@@ -110,7 +110,8 @@ type checks struct {
 	out    []Check
 	leastT []float64 // per check: when Least occurs, days (+Inf: long term)
 	// from and to bound each load stage's window: from its completion
-	// to the next start after it (+Inf: none).
+	// (less 1e-12 of it, and of a day at least, for the rounding of the
+	// steps' times) to the next start after it (+Inf: none).
 	from, to []float64
 	open     []int // scratch of observe: the stages whose window holds t
 }
@@ -202,7 +203,11 @@ func (ch *checks) factor(s *checkSite, dsigma, du []float64) float64 {
 	// the factors are the bare ic/i and weight/water ones.
 	filter := 0.0
 	if dsigma != nil {
-		filter = math.Max(0, dsigma[s.top]-du[s.top])
+		// math.Max(0, ·) by a comparison (NaN kept, −0 to 0): js/wasm
+		// calls math.Max out of line, and this runs every step.
+		if filter = dsigma[s.top] - du[s.top]; filter <= 0 {
+			filter = 0
+		}
 	}
 	var f float64
 	switch s.kind {
@@ -227,7 +232,12 @@ func ratio(resist, push float64) float64 {
 	if push <= 0 || resist >= FactorCap*push {
 		return FactorCap
 	}
-	return math.Max(resist/push, 0)
+	// math.Max(·, 0) as in factor.
+	f := resist / push
+	if f <= 0 {
+		f = 0
+	}
+	return f
 }
 
 // prepare sizes the series of the first MaxCheckSeries checks for n
@@ -237,9 +247,10 @@ func (ch *checks) prepare(n int, loads []Load) {
 	ch.from, ch.to = make([]float64, stages), make([]float64, stages)
 	ch.open = make([]int, 0, stages)
 	for i, l := range loads {
-		ch.from[i], ch.to[i] = l.Start+l.Ramp, math.Inf(1)
+		done := l.Start + l.Ramp
+		ch.from[i], ch.to[i] = done-1e-12*math.Max(1, done), math.Inf(1)
 		for _, o := range loads {
-			if o.Start > ch.from[i] && o.Start < ch.to[i] {
+			if o.Start > done && o.Start < ch.to[i] {
 				ch.to[i] = o.Start
 			}
 		}
@@ -278,7 +289,7 @@ func (ch *checks) observe(t float64, dsigma, du []float64, jumped bool) {
 	// The windows depend on t alone: found once for every check.
 	open := ch.open[:0]
 	for i, from := range ch.from {
-		if t >= from-1e-12*math.Max(1, from) && t < ch.to[i] {
+		if t >= from && t < ch.to[i] {
 			open = append(open, i)
 		}
 	}

@@ -338,13 +338,19 @@ func (k *consolidation) record(ser *Series, t float64) {
 	}
 	var sNow, pNow float64
 	sigma, u, wl := tr.sigma, tr.u, tr.wLength // read once, not per node
-	for i, w := range tr.wMass {
-		d := sigma[i] - u[i]
-		sNow += w * d
-		pNow += wl[i] * d
-	}
 	if k.nl != nil {
+		// The iterated laws give the settlement (and each layer's, for
+		// layerNow); the mv's sum is not needed.
 		sNow = k.nl.settlement()
+		for i, w := range wl {
+			pNow += w * (sigma[i] - u[i])
+		}
+	} else {
+		for i, w := range tr.wMass {
+			d := sigma[i] - u[i]
+			sNow += w * d
+			pNow += wl[i] * d
+		}
 	}
 	ser.Settlement = append(ser.Settlement, sNow)
 	tr.settled = sNow // the submergence of the next step follows it

@@ -177,14 +177,15 @@ func TestPermeabilityDerivative(t *testing.T) {
 		u[i] = 20 + 20*c.m.Z[i]/3 // to = 40 + 50 − u: 70 at the top, 50 at the base
 	}
 	const theta = 0.5
-	nl.coefficients(theta, sigma, u)
+	nl.loadStress(sigma)
+	nl.coefficients(theta, u)
 	gk := append([]float64(nil), nl.gk...)
 	at := func(shift float64) []float64 {
 		v := make([]float64, n)
 		for i := range v {
 			v[i] = u[i] - shift // σ' rises by shift
 		}
-		nl.coefficients(theta, sigma, v)
+		nl.coefficients(theta, v)
 		return append([]float64(nil), nl.cc...)
 	}
 	for e := range ne {

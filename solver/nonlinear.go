@@ -58,9 +58,11 @@ type nonlinear struct {
 	sig     []float64  // constant-mv law: effective stress now
 	peak    []float64  // constant-mv law: largest past effective stress
 	strain  []float64  // constant-mv law: settlement so far, m
+	layers  []float64  // per layer: its settlement at the last settlement()
 	k0, ck  []float64  // conductivity k/γw now, m²/(kPa·day), and Ck (0: constant)
 	cm, cc  []float64  // the coefficients of the iterate: secant mv, k/γw
 	to, de  []float64  // scratch: effective stress of the iterate, compression of the move
+	base    []float64  // σ'0 + the mean of the total stress change (loadStress)
 	law     []curveLaw // curved elements: the constants of the curve
 	ct      []float64  // lumped capacity: the tangent mv at the iterate (nil otherwise)
 
@@ -126,7 +128,8 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 	f := func() []float64 { return make([]float64, ne) }
 	nl.mv, nl.mvu, nl.sig, nl.peak, nl.strain = f(), f(), f(), f(), f()
 	nl.k0, nl.ck, nl.cm, nl.cc = f(), f(), f(), f()
-	nl.to, nl.de = f(), f()
+	nl.to, nl.de, nl.base = f(), f(), f()
+	nl.layers = make([]float64, len(c.p.Layers))
 	nl.law = make([]curveLaw, ne)
 	for e := range ne {
 		l := &c.p.Layers[m.Layer[e]]
@@ -200,25 +203,45 @@ func (nl *nonlinear) mean(u []float64, e int) float64 {
 	return (u[e] + u[e+1]) / 2
 }
 
-// meanStress writes the effective stress of every element e at the
-// iterate, σ'0 + the mean of sigma − u over it (nl.mean), to to[e].
-func (nl *nonlinear) meanStress(to, sigma, u []float64) {
+// loadStress sets base for the nodal total stress change sigma: every
+// element's σ'0 + the mean of sigma over it (nl.mean), which meanStress
+// then reads at every iteration of the step (sigma is that of the step's
+// end throughout).
+func (nl *nonlinear) loadStress(sigma []float64) {
 	pts := nl.pts
-	to = to[:len(pts)]
+	base := nl.base[:len(pts)]
 	if nl.m.Order != 1 {
 		for e := range pts {
-			to[e] = pts[e].S0 + nl.mean(sigma, e) - nl.mean(u, e)
+			base[e] = pts[e].S0 + nl.mean(sigma, e)
 		}
 		return
 	}
-	sigma, u = sigma[:len(pts)+1], u[:len(pts)+1]
+	sigma = sigma[:len(pts)+1]
 	for e := range pts { // nl.mean, inlined
-		to[e] = pts[e].S0 + (sigma[e]+sigma[e+1])/2 - (u[e]+u[e+1])/2
+		base[e] = pts[e].S0 + (sigma[e]+sigma[e+1])/2
+	}
+}
+
+// meanStress writes the effective stress of every element e at the
+// iterate, base[e] (loadStress) − the mean of u over it (nl.mean), to
+// to[e]: σ'0 + the mean of sigma − u, added in that order.
+func (nl *nonlinear) meanStress(to, u []float64) {
+	base := nl.base
+	to = to[:len(base)]
+	if nl.m.Order != 1 {
+		for e := range base {
+			to[e] = base[e] - nl.mean(u, e)
+		}
+		return
+	}
+	u = u[:len(base)+1]
+	for e := range base { // nl.mean, inlined
+		to[e] = base[e] - (u[e]+u[e+1])/2
 	}
 }
 
 // coefficients sets cm and cc for the iterate u (nodal excess) under the
-// nodal total stress change sigma: the secant mv from the committed state
+// nodal total stress change loadStress was given: the secant mv from the committed state
 // to the iterate's effective stress, and k/γw at the θ-point. It runs for
 // every element at every iteration, so the constants of each element's
 // curve are taken from newNonlinear (law), a division is spent only where
@@ -228,9 +251,9 @@ func (nl *nonlinear) meanStress(to, sigma, u []float64) {
 // them from registers without checking. (Measured on
 // BenchmarkSoftClayNonlinear, the curve's constants in one slice of
 // curveLaw rather than six took some 15 % off the solve.)
-func (nl *nonlinear) coefficients(theta float64, sigma, u []float64) {
+func (nl *nonlinear) coefficients(theta float64, u []float64) {
 	ne := len(nl.cm)
-	nl.meanStress(nl.to, sigma, u)
+	nl.meanStress(nl.to, u)
 	soil.Toward(nl.de, nl.pts, nl.to, nl.curved)
 	pts, curved, tos, des := nl.pts[:ne], nl.curved[:ne], nl.to[:ne], nl.de[:ne]
 	cm, cc, k0, law := nl.cm[:ne], nl.cc[:ne], nl.k0[:ne], nl.law[:ne]
@@ -278,7 +301,7 @@ func (nl *nonlinear) coefficients(theta float64, sigma, u []float64) {
 		if ct != nil {
 			// The tangent at the iterate, with the same floor.
 			t := w.tanR
-			if to > p.Peak() {
+			if p.Beyond(to) {
 				t = w.tanC
 			}
 			s := to
@@ -342,6 +365,7 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 	ds := tr.stressStep(t0, dt)
 	tr.zeroPins(ds)
 	tr.heldValues(tr.next, t0+dt, true)
+	nl.loadStress(tr.sigma)
 	// The first iterate extrapolates the last step's change, unless
 	// something jumped since (then u is no longer where that step ended).
 	// With two steps behind, the extrapolation is quadratic in time.
@@ -387,7 +411,7 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 	}
 	change, omega := math.Inf(1), 1.0
 	for it := range NonlinearMaxIterations {
-		nl.coefficients(theta, tr.sigma, nl.u1)
+		nl.coefficients(theta, nl.u1)
 		// The update solves A' r = b(u) − A(u) u, with A(u) = M(u) + θΔt
 		// K(u) and b(u) = (M(u) − (1−θ)Δt K(u)) u⁰ + M(u) Δσ (held nodes
 		// at their values), so that its fixed point is the step's
@@ -468,7 +492,13 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 				r0[i] = r
 			}
 			if den > 0 {
-				omega = min(max(-omega*num/den, 0.05), 2)
+				// min(max(·, 0.05), 2) by comparisons (js/wasm calls
+				// min and max out of line); NaN is kept as they keep it.
+				if omega = -omega * num / den; omega < 0.05 {
+					omega = 0.05
+				} else if omega > 2 {
+					omega = 2
+				}
 			}
 			for i, r := range r0 {
 				u1[i] += omega * r
@@ -501,7 +531,7 @@ func (nl *nonlinear) step(theta, t0, dt float64) error {
 	}
 	nl.lastDt, nl.lastDt2, nl.lastDt3 = dt, nl.lastDt, nl.lastDt2
 	copy(tr.u, nl.u1)
-	nl.commit(t0+dt, tr.sigma, tr.u)
+	nl.commit(t0+dt, tr.u)
 	return nil
 }
 
@@ -650,11 +680,12 @@ func (nl *nonlinear) solveLumped(theta, dt float64, ds []float64) error {
 }
 
 // commit moves every element to the effective stress of the nodal
-// fields (one soil.Move over the column, as in coefficients), its slices
-// taken once as in coefficients.
-func (nl *nonlinear) commit(t float64, sigma, u []float64) {
+// excess u under the total stress loadStress was given (one soil.Move
+// over the column, as in coefficients), its slices taken once as in
+// coefficients.
+func (nl *nonlinear) commit(t float64, u []float64) {
 	ne := len(nl.pts)
-	nl.meanStress(nl.to, sigma, u)
+	nl.meanStress(nl.to, u)
 	soil.Move(nl.de, nl.pts, nl.to, nl.curved)
 	pts, curved, tos, des := nl.pts, nl.curved[:ne], nl.to[:ne], nl.de[:ne]
 	k0, law := nl.k0[:ne], nl.law[:ne]
@@ -682,15 +713,22 @@ func (nl *nonlinear) commit(t float64, sigma, u []float64) {
 }
 
 // settlement is the settlement of the column now, m: the sum over the
-// elements of what their laws give for the path they followed.
+// elements of what their laws give for the path they followed. The same
+// pass leaves each layer's share in nl.layers (layerSettlements' sums),
+// which layerNow reads after it: one Settlement per element a step.
 func (nl *nonlinear) settlement() float64 {
+	ne := len(nl.pts)
+	pts, curved, strain, layer := nl.pts, nl.curved[:ne], nl.strain[:ne], nl.m.Layer[:ne]
+	layers := nl.layers
+	clear(layers)
 	s := 0.0
-	for e := range nl.pts {
-		if nl.curved[e] {
-			s += nl.pts[e].Settlement()
-		} else {
-			s += nl.strain[e]
+	for e := range pts {
+		v := strain[e]
+		if curved[e] {
+			v = pts[e].Settlement()
 		}
+		s += v
+		layers[layer[e]] += v
 	}
 	return s
 }
@@ -713,7 +751,7 @@ func (nl *nonlinear) layerSettlements(dst []float64) {
 // denominator of Us.
 func (nl *nonlinear) drained(bps []breakpoint, sigInf, uInf []float64, uAt func(dst []float64, t float64) []float64) []float64 {
 	cp := &nonlinear{tr: nl.tr, m: nl.m, curved: nl.curved, mv: nl.mv, mvu: nl.mvu, law: nl.law, kLo: nl.kLo, kHi: nl.kHi,
-		to: nl.to, de: nl.de, // scratch, written before it is read
+		to: nl.to, de: nl.de, base: nl.base, // scratch, written before it is read
 		k0:     append([]float64(nil), nl.k0...),
 		pts:    append([]soil.Point(nil), nl.pts...),
 		sig:    append([]float64(nil), nl.sig...),
@@ -722,9 +760,11 @@ func (nl *nonlinear) drained(bps []breakpoint, sigInf, uInf []float64, uAt func(
 	stress, ub := make([]float64, nl.m.Nodes()), make([]float64, nl.m.Nodes())
 	for _, b := range bps {
 		nl.tr.stressAt(stress, b.t, false)
-		cp.commit(b.t, stress, uAt(ub, b.t))
+		cp.loadStress(stress)
+		cp.commit(b.t, uAt(ub, b.t))
 	}
-	cp.commit(math.Inf(1), sigInf, uInf)
+	cp.loadStress(sigInf)
+	cp.commit(math.Inf(1), uInf)
 	out := make([]float64, len(nl.tr.c.p.Layers))
 	cp.layerSettlements(out)
 	return out
@@ -746,13 +786,14 @@ func (nl *nonlinear) projected(sigInf, uInf []float64) []float64 {
 // next).
 func (nl *nonlinear) project(cp *nonlinear, sigInf, uInf, out []float64) {
 	*cp = nonlinear{tr: nl.tr, m: nl.m, curved: nl.curved, mv: nl.mv, mvu: nl.mvu, law: nl.law, kLo: nl.kLo, kHi: nl.kHi,
-		to: nl.to, de: nl.de, // scratch, written before it is read
+		to: nl.to, de: nl.de, base: nl.base, // scratch, written before it is read
 		k0:     append(cp.k0[:0], nl.k0...),
 		pts:    append(cp.pts[:0], nl.pts...),
 		sig:    append(cp.sig[:0], nl.sig...),
 		peak:   append(cp.peak[:0], nl.peak...),
 		strain: append(cp.strain[:0], nl.strain...), negativeAt: math.NaN()}
-	cp.commit(math.Inf(1), sigInf, uInf)
+	cp.loadStress(sigInf)
+	cp.commit(math.Inf(1), uInf)
 	clear(out)
 	cp.layerSettlements(out)
 }

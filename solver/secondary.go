@@ -86,11 +86,11 @@ func (k *consolidation) elementWeights() []float64 {
 // layerNow writes each layer's settlement now to dst, from the model
 // that drives the loop, with the element weights ew. No allocation.
 func (k *consolidation) layerNow(dst, ew []float64) {
-	clear(dst)
-	if k.nl != nil {
-		k.nl.layerSettlements(dst)
+	if k.nl != nil { // summed with the column's settlement (record)
+		copy(dst, k.nl.layers)
 		return
 	}
+	clear(dst)
 	m, tr, dug := k.c.m, k.tr, k.c.dug
 	sigma, u, linear := tr.sigma, tr.u, m.Order == 1
 	// Layer by layer (its elements are m.First[l] … m.First[l+1]-1), the

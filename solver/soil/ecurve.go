@@ -90,6 +90,12 @@ func (s *Point) Stress() float64 { return s.sig }
 // Peak is the largest effective stress the point has carried, kPa.
 func (s *Point) Peak() float64 { return max(s.peak, s.sig) }
 
+// Beyond reports whether to lies beyond the largest effective stress the
+// point has carried, to > Peak(), by comparisons: js/wasm calls max out of
+// line, and the non-linear model asks this of every element at every
+// iteration.
+func (s *Point) Beyond(to float64) bool { return to > s.peak && to > s.sig }
+
 // Settlement is this sublayer's settlement so far, m.
 func (s *Point) Settlement() float64 { return s.de / (1 + s.Curve.E0) * s.H }
 

@@ -1,6 +1,7 @@
 package soil
 
 import (
+	"math"
 	"math/rand/v2"
 	"testing"
 )
@@ -11,7 +12,9 @@ import (
 // stay put, in small steps (the series for the logarithm) and large ones
 // (math.Log10); Follow writes the settlement, Move the compression MoveTo
 // returns, Toward what Point.Toward returns; unmarked points and their
-// dst entries are left alone. The reference is MoveTo, itself checked
+// dst entries are left alone; Point.Beyond agrees with a comparison
+// against Peak along the way (at the target, at the peak itself, just
+// past it and for NaN). The reference is MoveTo, itself checked
 // against Compress (Terzaghi & Peck 1967) in TestPointFollowsCompress.
 func TestFollowIsMoveTo(t *testing.T) {
 	t.Parallel()
@@ -55,6 +58,11 @@ func TestFollowIsMoveTo(t *testing.T) {
 			}
 			if w := want[i].Toward(to[i]); dt[i] != w || tried[i] != want[i] {
 				t.Fatalf("step %d: point %d: Toward wrote %v and left %v, Point.Toward gives %v and leaves %v", step, i, dt[i], tried[i], w, want[i])
+			}
+			for _, v := range []float64{to[i], want[i].Peak(), math.Nextafter(want[i].Peak(), math.Inf(1)), math.NaN()} {
+				if got, w := want[i].Beyond(v), v > want[i].Peak(); got != w {
+					t.Fatalf("step %d: point %d: Beyond(%v) = %v, %v > Peak() %v is %v", step, i, v, got, v, want[i].Peak(), w)
+				}
 			}
 			de := want[i].MoveTo(to[i])
 			if got[i] != want[i] || moved[i] != want[i] {
