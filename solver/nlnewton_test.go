@@ -42,28 +42,9 @@ func TestSolveLumpedNewton(t *testing.T) {
 
 func checkSolveLumpedNewton(t *testing.T, m *fem.Mesh, n, ne int, tr *transient) {
 	nl := &nonlinear{tr: tr, m: m, lumped: true}
-	f := func(g func(i int) float64, k int) []float64 {
-		v := make([]float64, k)
-		for i := range v {
-			v[i] = g(i)
-		}
-		return v
-	}
-	nl.cm = f(func(e int) float64 { return 1e-3 * (1 + 0.5*math.Sin(float64(e))) }, ne)
-	nl.ct = f(func(e int) float64 { return 0.7e-3 * (1 + 0.4*math.Cos(float64(e))) }, ne)
-	nl.cc = f(func(e int) float64 { return 1e-4 * math.Exp(2*math.Sin(0.3*float64(e))) }, ne)
-	nl.gk = f(func(e int) float64 { return -nl.cc[e] * 0.02 * (1 + math.Sin(0.7*float64(e))) }, ne)
+	ds := lumpedCase(nl)
+	nl.gk = filled(ne, func(e int) float64 { return -nl.cc[e] * 0.02 * (1 + math.Sin(0.7*float64(e))) })
 	nl.gk[ne/2] = -1e3 * nl.cc[ne/2] // held to ±θΔt g
-	nl.u0 = f(func(i int) float64 { return 80 * math.Sin(math.Pi*m.Z[i]/4.1) }, n)
-	nl.u1 = f(func(i int) float64 { return nl.u0[i] * (0.9 + 0.01*math.Cos(float64(i))) }, n)
-	nl.u1[0], nl.u1[n-1] = 0.5, -0.25
-	ds := f(func(i int) float64 { return 3 + m.Z[i] }, n)
-	nl.rows, nl.rhs = make([]lumpedRow, n), make([]float64, n)
-	nl.spans = make([]span, ne)
-	for e := range ne {
-		h := m.Z[e+1] - m.Z[e]
-		nl.spans[e] = span{half: h / 2, inv: 1 / h}
-	}
 	const theta, dt = 0.5, 30.0
 	if err := nl.solveLumped(theta, dt, ds); err != nil {
 		t.Fatal(err)

@@ -315,6 +315,36 @@ func TestNonlinearEarlyRemoval(t *testing.T) {
 	}
 }
 
+// lumpedCase gives nl (its mesh set) the arbitrary coefficients, pore
+// pressures and work slices of the solveLumped checks, and returns the
+// stress change per node.
+func lumpedCase(nl *nonlinear) (ds []float64) {
+	m := nl.m
+	n, ne := m.Nodes(), m.Elements()
+	nl.cm = filled(ne, func(e int) float64 { return 1e-3 * (1 + 0.5*math.Sin(float64(e))) })
+	nl.ct = filled(ne, func(e int) float64 { return 0.7e-3 * (1 + 0.4*math.Cos(float64(e))) })
+	nl.cc = filled(ne, func(e int) float64 { return 1e-4 * math.Exp(2*math.Sin(0.3*float64(e))) })
+	nl.u0 = filled(n, func(i int) float64 { return 80 * math.Sin(math.Pi*m.Z[i]/4.1) })
+	nl.u1 = filled(n, func(i int) float64 { return nl.u0[i] * (0.9 + 0.01*math.Cos(float64(i))) })
+	nl.u1[0], nl.u1[n-1] = 0.5, -0.25
+	nl.rows, nl.rhs = make([]lumpedRow, n), make([]float64, n)
+	nl.spans = make([]span, ne)
+	for e := range ne {
+		h := m.Z[e+1] - m.Z[e]
+		nl.spans[e] = span{half: h / 2, inv: 1 / h}
+	}
+	return filled(n, func(i int) float64 { return 3 + m.Z[i] })
+}
+
+// filled returns g(0), …, g(k−1).
+func filled(k int, g func(i int) float64) []float64 {
+	v := make([]float64, k)
+	for i := range v {
+		v[i] = g(i)
+	}
+	return v
+}
+
 // TestSolveLumped checks the fused update of linear elements against the
 // same update taken the long way through package fem's band routines
 // (AssembleConstant, FactorizeSum, ThetaRHS, MoveHeldSum, Factor.Solve,
@@ -325,28 +355,9 @@ func TestNonlinearEarlyRemoval(t *testing.T) {
 // not positive definite must be refused, naming its node.
 func TestSolveLumped(t *testing.T) {
 	m := fem.NewMesh([]float64{0.7, 2.3, 1.1}, 1, 0.13, 1)
-	n, ne := m.Nodes(), m.Elements()
+	n := m.Nodes()
 	nl := &nonlinear{tr: &transient{lo: 1, hi: n - 1, held: []int{0, n - 1}}, m: m, lumped: true}
-	f := func(g func(i int) float64, k int) []float64 {
-		v := make([]float64, k)
-		for i := range v {
-			v[i] = g(i)
-		}
-		return v
-	}
-	nl.cm = f(func(e int) float64 { return 1e-3 * (1 + 0.5*math.Sin(float64(e))) }, ne)
-	nl.ct = f(func(e int) float64 { return 0.7e-3 * (1 + 0.4*math.Cos(float64(e))) }, ne)
-	nl.cc = f(func(e int) float64 { return 1e-4 * math.Exp(2*math.Sin(0.3*float64(e))) }, ne)
-	nl.u0 = f(func(i int) float64 { return 80 * math.Sin(math.Pi*m.Z[i]/4.1) }, n)
-	nl.u1 = f(func(i int) float64 { return nl.u0[i] * (0.9 + 0.01*math.Cos(float64(i))) }, n)
-	nl.u1[0], nl.u1[n-1] = 0.5, -0.25
-	ds := f(func(i int) float64 { return 3 + m.Z[i] }, n)
-	nl.rows, nl.rhs = make([]lumpedRow, n), make([]float64, n)
-	nl.spans = make([]span, ne)
-	for e := range ne {
-		h := m.Z[e+1] - m.Z[e]
-		nl.spans[e] = span{half: h / 2, inv: 1 / h}
-	}
+	ds := lumpedCase(nl)
 	const theta, dt = 0.5, 30.0
 	if err := nl.solveLumped(theta, dt, ds); err != nil {
 		t.Fatal(err)
