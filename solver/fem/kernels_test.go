@@ -681,6 +681,22 @@ func checkStep(t *testing.T, m, k *Band, held []int, u0, ds, next, u []float64, 
 	return ratio
 }
 
+// cachedCases are the columns of the factor-cache checks: both orders,
+// lumped and consistent, each kind of held end.
+var cachedCases = []stepCase{
+	{1, true, true, true, 20}, {1, false, true, false, 20},
+	{2, true, false, true, 20}, {2, false, false, false, 20},
+}
+
+// stepData returns the case's M, K and held nodes with a start u0, a
+// stress change ds and the held values next, all random from a fixed
+// seed.
+func (sc stepCase) stepData() (m, k *Band, held []int, u0, ds, next []float64) {
+	rnd := rand.New(rand.NewPCG(1, 1))
+	m, k, held = sc.build(rnd)
+	return m, k, held, randVec(rnd, m.N), randVec(rnd, m.N), randVec(rnd, len(held))
+}
+
 // TestStepperReuse checks that a second Step with the same (θ, Δt) reuses
 // the cached factor (Factorizations unchanged, and bit for bit the answer
 // of a fresh Stepper), that a new Δt adds one factorisation and a return
@@ -689,15 +705,9 @@ func checkStep(t *testing.T, m, k *Band, held []int, u0, ds, next, u []float64, 
 // process, and top-level tests that call t.Parallel wait until the
 // sequential ones have finished.
 func TestStepperReuse(t *testing.T) {
-	for _, sc := range []stepCase{
-		{1, true, true, true, 20}, {1, false, true, false, 20},
-		{2, true, false, true, 20}, {2, false, false, false, 20},
-	} {
+	for _, sc := range cachedCases {
 		t.Run(sc.String(), func(t *testing.T) {
-			rnd := rand.New(rand.NewPCG(1, 1))
-			m, k, held := sc.build(rnd)
-			n := m.N
-			u0, ds, next := randVec(rnd, n), randVec(rnd, n), randVec(rnd, len(held))
+			m, k, held, u0, ds, next := sc.stepData()
 			const theta, dt = 0.5, 0.1
 			s := NewStepper(m, k, held, sc.lumped)
 			u := slices.Clone(u0)
@@ -750,15 +760,9 @@ func TestStepperReuse(t *testing.T) {
 // from the cache; Reset forgets the scratch factor. Not parallel, as
 // TestStepperReuse.
 func TestStepperUncached(t *testing.T) {
-	for _, sc := range []stepCase{
-		{1, true, true, true, 20}, {1, false, true, false, 20},
-		{2, true, false, true, 20}, {2, false, false, false, 20},
-	} {
+	for _, sc := range cachedCases {
 		t.Run(sc.String(), func(t *testing.T) {
-			rnd := rand.New(rand.NewPCG(1, 1))
-			m, k, held := sc.build(rnd)
-			n := m.N
-			u0, ds, next := randVec(rnd, n), randVec(rnd, n), randVec(rnd, len(held))
+			m, k, held, u0, ds, next := sc.stepData()
 			const theta, dt = 0.5, 0.1
 			step := func(s *Stepper, dt float64) []float64 {
 				u := slices.Clone(u0)
