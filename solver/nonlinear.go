@@ -59,7 +59,7 @@ type nonlinear struct {
 	peak    []float64  // constant-mv law: largest past effective stress
 	strain  []float64  // constant-mv law: settlement so far, m
 	layers  []float64  // per layer: its settlement at the last settlement()
-	k0, ck  []float64  // conductivity k/γw now, m²/(kPa·day), and Ck (0: constant)
+	k0      []float64  // conductivity k/γw now, m²/(kPa·day)
 	cm, cc  []float64  // the coefficients of the iterate: secant mv, k/γw
 	to, de  []float64  // scratch: effective stress of the iterate, compression of the move
 	base    []float64  // σ'0 + the mean of the total stress change (loadStress)
@@ -127,10 +127,11 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 	nl.kLo, nl.kHi = MinK*soil.SecondsPerDay/c.gw, MaxK*soil.SecondsPerDay/c.gw
 	f := func() []float64 { return make([]float64, ne) }
 	nl.mv, nl.mvu, nl.sig, nl.peak, nl.strain = f(), f(), f(), f(), f()
-	nl.k0, nl.ck, nl.cm, nl.cc = f(), f(), f(), f()
+	nl.k0, nl.cm, nl.cc = f(), f(), f()
 	nl.to, nl.de, nl.base = f(), f(), f()
 	nl.layers = make([]float64, len(c.p.Layers))
 	nl.law = make([]curveLaw, ne)
+	kVaries := false // some element's k follows its void ratio (Ck > 0)
 	for e := range ne {
 		l := &c.p.Layers[m.Layer[e]]
 		nl.mv[e] = mvs[m.Layer[e]]
@@ -143,15 +144,15 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 		nl.k0[e] = l.K * soil.SecondsPerDay / c.gw
 		if curvedLaw[e] {
 			cu := pts[e].Curve
-			nl.ck[e] = l.ECurve.Ck
 			w := &nl.law[e]
 			w.inv = 1 / (1 + cu.E0)
 			w.floor = 1e-6 * cu.Cc / (math.Ln10 * (1 + cu.E0))
 			w.tanR = max(cu.Cr/(math.Ln10*(1+cu.E0)), w.floor)
 			w.tanC = max(cu.Cc/(math.Ln10*(1+cu.E0)), w.floor)
-			if nl.ck[e] > 0 {
-				w.kExp = -math.Ln10 / nl.ck[e]
+			if ck := l.ECurve.Ck; ck > 0 {
+				w.kExp = -math.Ln10 / ck
 				w.kq = w.kExp * (1 + cu.E0)
+				kVaries = true
 			}
 		}
 	}
@@ -171,7 +172,7 @@ func newNonlinear(tr *transient, pts []soil.Point, curvedLaw []bool, mvs []float
 		}
 	}
 	nl.sink = newIteratedSink(tr, mvs, nl.lumped)
-	if nl.sink != nil || !slices.ContainsFunc(nl.ck, func(ck float64) bool { return ck > 0 }) {
+	if nl.sink != nil || !kVaries {
 		nl.gk = nil // the band path (drains), or k constant: A' symmetric
 	}
 	return nl
@@ -714,13 +715,18 @@ func (nl *nonlinear) commit(t float64, u []float64) {
 
 // settlement is the settlement of the column now, m: the sum over the
 // elements of what their laws give for the path they followed. The same
-// pass leaves each layer's share in nl.layers (layerSettlements' sums),
-// which layerNow reads after it: one Settlement per element a step.
+// pass leaves each layer's share in nl.layers, which layerNow reads after
+// it: one Settlement per element a step.
 func (nl *nonlinear) settlement() float64 {
+	clear(nl.layers)
+	return nl.layerSettlements(nl.layers)
+}
+
+// layerSettlements adds each element's settlement so far to its layer's
+// entry of dst, and returns their sum, m (added element by element).
+func (nl *nonlinear) layerSettlements(dst []float64) float64 {
 	ne := len(nl.pts)
 	pts, curved, strain, layer := nl.pts, nl.curved[:ne], nl.strain[:ne], nl.m.Layer[:ne]
-	layers := nl.layers
-	clear(layers)
 	s := 0.0
 	for e := range pts {
 		v := strain[e]
@@ -728,21 +734,9 @@ func (nl *nonlinear) settlement() float64 {
 			v = pts[e].Settlement()
 		}
 		s += v
-		layers[layer[e]] += v
+		dst[layer[e]] += v
 	}
 	return s
-}
-
-// layerSettlements adds each element's settlement so far to its layer's
-// entry of dst.
-func (nl *nonlinear) layerSettlements(dst []float64) {
-	for e := range nl.pts {
-		s := nl.strain[e]
-		if nl.curved[e] {
-			s = nl.pts[e].Settlement()
-		}
-		dst[nl.m.Layer[e]] += s
-	}
 }
 
 // drained follows a copy of every element's state along the fully drained
