@@ -44,10 +44,16 @@ type figMemo = Memo[*Figure]
 // the piezometers' ratios of a solve) kept with the props it was made
 // for.
 type Memo[T any] struct {
-	key figKey
-	v   T
-	set bool
+	key   figKey
+	v     T
+	set   bool
+	stale bool // made for inputs outside the key that have changed since (outdate)
 }
+
+// outdate says that the value is not that of the props any more, for an
+// input the key does not hold: the next get makes it anew, or, for a
+// figure out of view, keeps it until the build after.
+func (m *Memo[T]) outdate() { m.stale = true }
 
 // Get returns the value for the project and result of a solve, made by
 // make unless the last one was made for the same, as get.
@@ -57,7 +63,7 @@ func (m *Memo[T]) Get(p *solver.Project, r *solver.Result, make func() T) T {
 
 // get returns the value for k, made by build unless the last value was
 // made for the same props, or for a copy of the same project that
-// differs only in text no figure shows.
+// differs only in text no figure shows, and not outdated since.
 func (m *Memo[T]) get(k figKey, build func() T) T {
 	k.u = shown
 	if m.set {
@@ -67,7 +73,7 @@ func (m *Memo[T]) get(k figKey, build func() T) T {
 			old.p = k.p
 			same = old == k && sameDrawn(m.key.p, k.p)
 		}
-		if same {
+		if same && !m.stale {
 			m.key = k
 			return m.v
 		}
@@ -77,7 +83,7 @@ func (m *Memo[T]) get(k figKey, build func() T) T {
 			return m.v
 		}
 	}
-	m.key, m.v, m.set = k, build(), true
+	m.key, m.v, m.set, m.stale = k, build(), true, false
 	return m.v
 }
 

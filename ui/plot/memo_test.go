@@ -52,3 +52,35 @@ func TestFigureMemo(t *testing.T) {
 		t.Error("the chart kept the markup of its old figure")
 	}
 }
+
+// TestResidualsMemo: the residuals figure is built once per change of
+// its records, compared by value (they are made anew on every render),
+// and new records out of view (KeepOutside) keep the last figure until a
+// build in view. Not parallel: KeepOutside sets the package's hook.
+func TestResidualsMemo(t *testing.T) {
+	p := &solver.Project{Monitoring: &solver.Monitoring{Start: "2026-03-02"}}
+	recs := func(d float64) []ResidualRecord {
+		return []ResidualRecord{{Name: "plate P1", Times: []float64{10, 40}, Diffs: []float64{2, d}}}
+	}
+	c := &Residuals{Project: p, Records: recs(-7)}
+	f1 := c.Figure()
+	c.Records = recs(-7)
+	if c.Figure() != f1 {
+		t.Error("equal records built the figure again")
+	}
+	c.Records = recs(5)
+	f2 := c.Figure()
+	if f2 == f1 {
+		t.Fatal("new records kept the old figure")
+	}
+	defer KeepOutside(nil)
+	KeepOutside(func(id string) bool { return id == f2.ID })
+	c.Records = recs(9)
+	if c.Figure() != f2 {
+		t.Error("new records out of view did not keep the last figure")
+	}
+	KeepOutside(nil)
+	if f3 := c.Figure(); f3 == f2 || f3.Body() == f2.Body() {
+		t.Error("the build after the one out of view did not draw the new records")
+	}
+}

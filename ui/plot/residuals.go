@@ -121,14 +121,12 @@ type Residuals struct {
 
 // Figure builds the figure drawn for the current props, once per change
 // of them (the records are made anew on every render, so they are
-// compared by value). Out of view (KeepOutside) new records keep the
-// last figure, as new props do in figMemo, and the next build draws them.
+// compared by value: new ones outdate the memo, which then treats them
+// as it treats new props, out of view too).
 func (c *Residuals) Figure() *Figure {
 	if !reflect.DeepEqual(c.records, c.Records) {
-		if f := c.memo.v; f != nil && outside != nil && outside(f.ID) {
-			return f
-		}
-		c.memo, c.records = figMemo{}, c.Records
+		c.memo.outdate()
+		c.records = c.Records
 	}
 	return c.memo.get(figKey{p: c.Project, a: c.Dates, w: c.Width, h: c.Height}, func() *Figure {
 		return ResidualsFigure(c.Project, c.Records, c.Dates, c.Width, c.Height)
